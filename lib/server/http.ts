@@ -1,0 +1,64 @@
+import "server-only";
+import { z } from "zod";
+import { AppError, errorBody, statusForCode, type FieldErrors } from "@/lib/errors";
+
+/** Field errors from a zod failure, keyed by dotted path ("site.latitudeDeg"). */
+export function fieldErrorsOf(error: z.ZodError): FieldErrors {
+  const fields: FieldErrors = {};
+  for (const issue of error.issues) {
+    const key = issue.path.length > 0 ? issue.path.join(".") : "_";
+    (fields[key] ??= []).push(issue.message);
+  }
+  return fields;
+}
+
+/** Parses with a schema or throws `bad_request:<subject>` naming every bad field. */
+export function parseOrThrow<T extends z.ZodType>(schema: T, input: unknown, subject: string): z.infer<T> {
+  const result = schema.safeParse(input);
+  if (!result.success) {
+    const fields = fieldErrorsOf(result.error);
+    const names = Object.keys(fields).join(", ");
+    throw new AppError(`bad_request:${subject}`, `Invalid ${subject}: check ${names}.`, fields);
+  }
+  return result.data;
+}
+
+/** Maps any thrown value to the product's error answer. Unknown errors are logged, never echoed. */
+export function errorResponse(error: unknown): Response {
+  if (error instanceof AppError) {
+    return Response.json(errorBody(error), { status: statusForCode(error.code) });
+  }
+  if (isDatabaseUnavailable(error)) {
+    console.error("database unavailable:", error);
+    const unavailable = new AppError("unavailable:database", "The database is not reachable right now; try again shortly.");
+    return Response.json(errorBody(unavailable), { status: 503, headers: { "Retry-After": "5" } });
+  }
+  console.error("unexpected error:", error);
+  return Response.json(errorBody(new AppError("internal:server", "Something went wrong on our side.")), {
+    status: 500,
+  });
+}
+
+const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P03", "57014"]);
+
+/** True for errors that mean "PostgreSQL is down or too slow", not "the query is wrong". */
+export function isDatabaseUnavailable(error: unknown): boolean {
+  let current: unknown = error;
+  for (let depth = 0; depth < 4 && current && typeof current === "object"; depth++) {
+    const code = (current as { code?: unknown }).code;
+    if (typeof code === "string" && unavailableCodes.has(code)) return true;
+    current = (current as { cause?: unknown }).cause;
+  }
+  return false;
+}
+
+/** Wraps a route handler so every failure becomes the documented error shape. */
+export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
+  return async (...args: A): Promise<Response> => {
+    try {
+      return await fn(...args);
+    } catch (error) {
+      return errorResponse(error);
+    }
+  };
+}

@@ -1,0 +1,91 @@
+#!/usr/bin/env node
+// `npm start` (production build) and `npm run dev` (next dev): everything from a fresh clone to a
+// running Arcwright with demo data. State lives in .data/ (git-ignored) and survives restarts.
+import { join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { appEnvironment } from "./lib/app-env.mjs";
+import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
+import { ensureNodeModules } from "./lib/deps.mjs";
+import { startFakes } from "./lib/fakes.mjs";
+import { log } from "./lib/log.mjs";
+import { Cluster } from "./lib/postgres.mjs";
+import { runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
+import { loadOrCreateSecrets } from "./lib/secrets.mjs";
+
+const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
+const isDev = process.argv.includes("--dev");
+const stateDir = join(repoRoot, ".data");
+const appPort = Number(process.env.PORT ?? process.env.ARCWRIGHT_PORT ?? 3000);
+const dbPort = Number(process.env.ARCWRIGHT_DB_PORT ?? 54329);
+const appUrl = `http://127.0.0.1:${appPort}`;
+const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
+
+let cluster;
+let stopping = false;
+
+async function shutdown(code) {
+  if (stopping) return;
+  stopping = true;
+  log("stop", "stopping Arcwright");
+  await stopAll();
+  cluster?.stop();
+  process.exit(code);
+}
+
+process.on("SIGINT", () => shutdown(0));
+process.on("SIGTERM", () => shutdown(0));
+
+try {
+  const startedAt = Date.now();
+  ensureNodeModules(repoRoot);
+  const secrets = loadOrCreateSecrets(stateDir);
+
+  let databaseUrl = process.env.DATABASE_URL;
+  if (databaseUrl) {
+    log("postgres", "using DATABASE_URL from the environment");
+  } else {
+    cluster = new Cluster({ root: join(stateDir, "postgres"), port: dbPort, password: secrets.postgresPassword });
+    if (cluster.initialize()) log("postgres", `created a new cluster in ${cluster.dataDir}`);
+    cluster.start();
+    cluster.ensureDatabase("arcwright");
+    databaseUrl = cluster.url("arcwright");
+  }
+
+  const fakes = await startFakes({ stateDir: join(stateDir, "fakes"), appUrl });
+  const env = appEnvironment({
+    databaseUrl,
+    appUrl,
+    secrets,
+    nodeEnv: isDev ? "development" : "production",
+    extra: fakes.env,
+  });
+  await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env });
+  await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
+
+  if (isDev) {
+    startChild("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
+  } else {
+    const distDir = join(repoRoot, ".next");
+    const digest = sourceDigest(repoRoot);
+    if (isBuildCurrent(distDir, digest)) {
+      log("build", "production build is current; not rebuilding");
+    } else {
+      await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
+      markBuild(distDir, digest);
+    }
+    const server = startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], {
+      cwd: repoRoot,
+      env,
+    });
+    server.on("exit", (code) => {
+      if (!stopping) {
+        log("app", `next start exited (${code}); stopping`);
+        shutdown(code ?? 1);
+      }
+    });
+  }
+  log("ready", `Arcwright is at ${appUrl}  (set up in ${((Date.now() - startedAt) / 1000).toFixed(1)} s; Ctrl-C stops everything)`);
+} catch (error) {
+  console.error(`[start] ${error.message}`);
+  await shutdown(1);
+}
