@@ -1,8 +1,9 @@
 import { defineConfig } from "vitest/config";
 
 /**
- * Two projects: `unit` (pure logic, parallel) and `integration` (route handlers and data access
- * against the real PostgreSQL that `npm test` starts; one file at a time because they share it).
+ * Three projects: `unit` (pure logic, parallel), `integration` (route handlers and data access
+ * against the real PostgreSQL that `npm test` starts; one file at a time because they share it) and
+ * `e2e` (playwright-core driving Debian's Chromium against the built app that `npm test` serves).
  */
 export default defineConfig({
   resolve: { tsconfigPaths: true },
@@ -26,6 +27,17 @@ export default defineConfig({
           testTimeout: 20_000,
           hookTimeout: 30_000,
           server: { deps: { inline: ["next-auth"] } },
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: "e2e",
+          environment: "node",
+          include: ["tests/e2e/**/*.test.ts"],
+          fileParallelism: false,
+          testTimeout: 90_000,
+          hookTimeout: 60_000,
         },
       },
     ],

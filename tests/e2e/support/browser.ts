@@ -1,0 +1,37 @@
+import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+
+/** The built app that `npm test` serves for these tests. */
+export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000";
+
+/** Debian's Chromium (never a downloaded browser); flags from shared/notes/stack.md. */
+const chromiumFlags = [
+  "--headless",
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+  "--enable-unsafe-swiftshader",
+  "--use-angle=swiftshader",
+];
+
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({
+    executablePath: process.env.CHROMIUM_PATH ?? "/usr/bin/chromium",
+    args: chromiumFlags,
+  });
+}
+
+/** A fresh context (own cookies) and page; console errors are collected for assertions. */
+export async function newPage(browser: Browser): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
+  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 900 } });
+  const page = await context.newPage();
+  const consoleErrors: string[] = [];
+  page.on("console", (message) => {
+    if (message.type() === "error") consoleErrors.push(message.text());
+  });
+  page.on("pageerror", (error) => consoleErrors.push(error.message));
+  return { context, page, consoleErrors };
+}
