@@ -1,3 +1,4 @@
+import { fileURLToPath } from "node:url";
 import { defineConfig } from "vitest/config";
 
 /**
@@ -6,7 +7,12 @@ import { defineConfig } from "vitest/config";
  * `e2e` (playwright-core driving Debian's Chromium against the built app that `npm test` serves).
  */
 export default defineConfig({
-  resolve: { tsconfigPaths: true },
+  resolve: {
+    tsconfigPaths: true,
+    // Tests call the server-only data-access modules directly; outside React's server build the
+    // marker package would throw, so point it at its own empty entry.
+    alias: { "server-only": fileURLToPath(new URL("./node_modules/server-only/empty.js", import.meta.url)) },
+  },
   test: {
     projects: [
       {

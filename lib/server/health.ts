@@ -1,14 +1,17 @@
 import "server-only";
 import { sql } from "drizzle-orm";
-import { dbClient } from "@/db/client";
+import { dbClient, type Database } from "@/db/client";
 
 export type DatabaseHealth = { ok: true; latencyMs: number } | { ok: false; reason: string };
 
-/** Runs a real query against PostgreSQL, bounded by the pool's connect and statement timeouts. */
-export async function checkDatabase(): Promise<DatabaseHealth> {
+/**
+ * Runs a real query against PostgreSQL (the app's pool unless another is given), bounded by the
+ * pool's connect and statement timeouts.
+ */
+export async function checkDatabase(db: Database = dbClient().db): Promise<DatabaseHealth> {
   const started = performance.now();
   try {
-    const rows = await dbClient().db.execute<{ one: number }>(sql`select 1 as one`);
+    const rows = await db.execute<{ one: number }>(sql`select 1 as one`);
     if (Number(rows[0]?.one) !== 1) return { ok: false, reason: "unexpected answer to select 1" };
     return { ok: true, latencyMs: Math.round((performance.now() - started) * 10) / 10 };
   } catch (error) {

@@ -1,0 +1,140 @@
+#!/usr/bin/env node
+// `npm test`: self-contained on a fresh clone. Installs what is missing, runs a throwaway PostgreSQL
+// on a free loopback port, type-checks, runs the unit and integration tests, builds and serves the
+// app, runs the end-to-end tests in Debian's Chromium, and tears everything down whatever happens.
+//
+//   npm test                                  every phase
+//   npm test -- --phase unit,integration      only some phases (typecheck, unit, integration, e2e)
+//   npm test -- tests/unit/env.test.ts        extra arguments are vitest file filters
+import { mkdtempSync, chmodSync, readFileSync, existsSync, rmSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+import { appEnvironment } from "./lib/app-env.mjs";
+import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
+import { ensureDebianPackages } from "./lib/debian.mjs";
+import { ensureNodeModules } from "./lib/deps.mjs";
+import { startFakes } from "./lib/fakes.mjs";
+import { log } from "./lib/log.mjs";
+import { freePort, waitForHttp } from "./lib/ports.mjs";
+import { Cluster } from "./lib/postgres.mjs";
+import { run, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
+import { throwawaySecrets } from "./lib/secrets.mjs";
+
+const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
+const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
+const allPhases = ["typecheck", "unit", "integration", "e2e"];
+
+function parseArgs(argv) {
+  const filters = [...argv];
+  let phases = allPhases;
+  const at = filters.indexOf("--phase");
+  if (at >= 0) {
+    phases = (filters[at + 1] ?? "").split(",");
+    filters.splice(at, 2);
+  }
+  const unknown = phases.filter((p) => !allPhases.includes(p));
+  if (unknown.length > 0) throw new Error(`--phase: unknown phase ${unknown.join(", ")} (known: ${allPhases.join(", ")})`);
+  return { phases, filters };
+}
+
+let cluster;
+const totals = { passed: 0, failed: 0, skipped: 0 };
+const failures = [];
+
+/** Runs one vitest project and adds its counts to the totals (from vitest's JSON report). */
+async function vitestProject(project, env, tmp, filters) {
+  const report = join(tmp, `${project}.json`);
+  const code = await run(
+    bin("vitest"),
+    ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`, "--passWithNoTests", ...filters],
+    { cwd: repoRoot, env },
+  );
+  if (existsSync(report)) {
+    const result = JSON.parse(readFileSync(report, "utf8"));
+    totals.passed += result.numPassedTests;
+    totals.failed += result.numFailedTests;
+    totals.skipped += result.numPendingTests + result.numTodoTests;
+    if (result.numFailedTestSuites > 0 && result.numFailedTests === 0) totals.failed += result.numFailedTestSuites;
+  } else if (code !== 0) {
+    totals.failed += 1;
+  }
+  if (code !== 0) failures.push(`vitest ${project} (exit ${code})`);
+}
+
+async function main() {
+  const { phases, filters } = parseArgs(process.argv.slice(2));
+  const startedAt = Date.now();
+  ensureNodeModules(repoRoot);
+  ensureDebianPackages(["postgresql", ...(phases.includes("e2e") ? ["chromium"] : [])]);
+
+  const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));
+  chmodSync(tmp, 0o755); // the server's own user must reach its folder inside
+  const secrets = throwawaySecrets();
+  cluster = new Cluster({ root: join(tmp, "postgres"), port: await freePort(), password: secrets.postgresPassword, throwaway: true });
+  try {
+    cluster.initialize();
+    cluster.start();
+    cluster.ensureDatabase("arcwright_test");
+    const appPort = await freePort();
+    const appUrl = `http://127.0.0.1:${appPort}`;
+    const baseEnv = appEnvironment({ databaseUrl: cluster.url("arcwright_test"), appUrl, secrets, nodeEnv: "test" });
+    await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env: baseEnv });
+
+    if (phases.includes("typecheck")) {
+      log("test", "type check (tsc --noEmit)");
+      const code = await run(bin("tsc"), ["--noEmit", "-p", "."], { cwd: repoRoot, env: baseEnv });
+      if (code === 0) totals.passed += 1;
+      else {
+        totals.failed += 1;
+        failures.push("typecheck");
+      }
+    }
+    for (const project of ["unit", "integration"]) {
+      if (phases.includes(project)) await vitestProject(project, baseEnv, tmp, filters);
+    }
+
+    if (phases.includes("e2e")) {
+      const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
+      const distDir = ".next-test";
+      const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
+      const digest = sourceDigest(repoRoot);
+      if (!isBuildCurrent(join(repoRoot, distDir), digest)) {
+        await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
+        markBuild(join(repoRoot, distDir), digest);
+      } else {
+        log("build", "test build is current; not rebuilding");
+      }
+      await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
+      startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
+      await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 });
+      await vitestProject("e2e", { ...env, E2E_BASE_URL: appUrl }, tmp, filters);
+    }
+  } finally {
+    await stopAll();
+    cluster.stop();
+    rmSync(tmp, { recursive: true, force: true });
+  }
+  const seconds = ((Date.now() - startedAt) / 1000).toFixed(0);
+  log("test", `finished in ${seconds} s${failures.length ? `; failed: ${failures.join(", ")}` : ""}`);
+  // The plain closing line CI reads.
+  console.log(`tests: ${totals.passed} passed, ${totals.failed} failed, ${totals.skipped} skipped`);
+  return failures.length === 0 && totals.failed === 0 ? 0 : 1;
+}
+
+let exitCode = 1;
+for (const signal of ["SIGINT", "SIGTERM"]) {
+  process.on(signal, async () => {
+    await stopAll();
+    cluster?.stop();
+    process.exit(130);
+  });
+}
+try {
+  exitCode = await main();
+} catch (error) {
+  console.error(`[test] ${error.message}`);
+  console.log(`tests: ${totals.passed} passed, ${totals.failed + 1} failed, ${totals.skipped} skipped`);
+  exitCode = 1;
+}
+process.exit(exitCode);
