@@ -1,6 +1,7 @@
 #!/usr/bin/env node
 // `npm start` (production build) and `npm run dev` (next dev): everything from a fresh clone to a
 // running Arcwright with demo data. State lives in .data/ (git-ignored) and survives restarts.
+import { createHash } from "node:crypto";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { appEnvironment } from "./lib/app-env.mjs";
@@ -8,7 +9,7 @@ import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
-import { Cluster } from "./lib/postgres.mjs";
+import { Cluster, serverUserCanReach } from "./lib/postgres.mjs";
 import { runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
 import { loadOrCreateSecrets } from "./lib/secrets.mjs";
 
@@ -22,6 +23,16 @@ const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
 
 let cluster;
 let stopping = false;
+
+/** .data/postgres, unless the server's user cannot reach the clone (then a folder of its own under /var/lib). */
+function clusterRoot() {
+  const inClone = join(stateDir, "postgres");
+  if (serverUserCanReach(stateDir)) return inClone;
+  const digest = createHash("sha256").update(repoRoot).digest("hex").slice(0, 12);
+  const outside = join("/var/lib/arcwright", digest, "postgres");
+  log("postgres", `the postgres user cannot reach ${stateDir}; keeping this clone's cluster in ${outside}`);
+  return outside;
+}
 
 async function shutdown(code) {
   if (stopping) return;
@@ -44,7 +55,7 @@ try {
   if (databaseUrl) {
     log("postgres", "using DATABASE_URL from the environment");
   } else {
-    cluster = new Cluster({ root: join(stateDir, "postgres"), port: dbPort, password: secrets.postgresPassword });
+    cluster = new Cluster({ root: clusterRoot(), port: dbPort, password: secrets.postgresPassword });
     if (cluster.initialize()) log("postgres", `created a new cluster in ${cluster.dataDir}`);
     cluster.start();
     cluster.ensureDatabase("arcwright");

@@ -47,6 +47,15 @@ function ownForServer(path, { isFile = false } = {}) {
 }
 
 /**
+ * Whether the server's user can reach a folder (as root, every parent must let `postgres` through;
+ * a clone under a private home folder does not).
+ */
+export function serverUserCanReach(path) {
+  if (!isRoot) return true;
+  return spawnSync("runuser", ["-u", "postgres", "--", "test", "-x", path], { stdio: "ignore" }).status === 0;
+}
+
+/**
  * A PostgreSQL cluster in `root` (data in root/data, socket in root/socket, log in root/server.log).
  * `throwaway` clusters run with fsync off, which is only acceptable for test data.
  */
