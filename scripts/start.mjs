@@ -9,6 +9,7 @@ import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
+import { waitForHttp } from "./lib/ports.mjs";
 import { Cluster, serverUserCanReach } from "./lib/postgres.mjs";
 import { runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
 import { loadOrCreateSecrets } from "./lib/secrets.mjs";
@@ -95,6 +96,7 @@ try {
       }
     });
   }
+  await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 120_000 });
   log("ready", `Arcwright is at ${appUrl}  (set up in ${((Date.now() - startedAt) / 1000).toFixed(1)} s; Ctrl-C stops everything)`);
 } catch (error) {
   console.error(`[start] ${error.message}`);
