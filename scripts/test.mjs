@@ -16,6 +16,7 @@ import { ensureDebianPackages } from "./lib/debian.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
+import { acquireLock } from "./lib/lock.mjs";
 import { freePort, waitForHttp } from "./lib/ports.mjs";
 import { Cluster } from "./lib/postgres.mjs";
 import { run, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
@@ -39,6 +40,7 @@ function parseArgs(argv) {
 }
 
 let cluster;
+let releaseBuild;
 const totals = { passed: 0, failed: 0, skipped: 0 };
 const failures = [];
 
@@ -95,8 +97,10 @@ async function main() {
     }
 
     if (phases.includes("e2e")) {
-      const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
+      // One build folder per clone, reused while the sources are unchanged; concurrent runs take turns.
       const distDir = ".next-test";
+      releaseBuild = await acquireLock(join(repoRoot, `${distDir}.lock`));
+      const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
       const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
       const digest = sourceDigest(repoRoot);
       if (!isBuildCurrent(join(repoRoot, distDir), digest)) {
@@ -112,6 +116,7 @@ async function main() {
     }
   } finally {
     await stopAll();
+    releaseBuild?.();
     cluster.stop();
     rmSync(tmp, { recursive: true, force: true });
   }
@@ -126,6 +131,7 @@ let exitCode = 1;
 for (const signal of ["SIGINT", "SIGTERM"]) {
   process.on(signal, async () => {
     await stopAll();
+    releaseBuild?.();
     cluster?.stop();
     process.exit(130);
   });
