@@ -3,5 +3,4 @@ export const primaryNavigation = [
   { href: "/bench", label: "Lens bench" },
   { href: "/proposals", label: "Proposals" },
   { href: "/sky", label: "Sky windows" },
-  { href: "/exports", label: "Exports" },
 ] as const;
