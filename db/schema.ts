@@ -1,4 +1,18 @@
-import { pgTable, text, timestamp } from "drizzle-orm/pg-core";
+import { sql } from "drizzle-orm";
+import {
+  bigserial,
+  check,
+  doublePrecision,
+  index,
+  integer,
+  pgEnum,
+  pgTable,
+  primaryKey,
+  text,
+  timestamp,
+  uniqueIndex,
+  uuid,
+} from "drizzle-orm/pg-core";
 
 /** Which seed sets have been applied to this database, so seeding runs once and never duplicates. */
 export const seedRuns = pgTable("seed_runs", {
@@ -7,3 +21,233 @@ export const seedRuns = pgTable("seed_runs", {
 });
 
 export type SeedRun = typeof seedRuns.$inferSelect;
+
+const createdAt = () => timestamp("created_at", { withTimezone: true }).notNull().defaultNow();
+const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull().defaultNow();
+
+export const siteRole = pgEnum("site_role", ["admin", "member"]);
+export const proposalRole = pgEnum("proposal_role", ["pi", "coi", "viewer"]);
+export const authTokenPurpose = pgEnum("auth_token_purpose", ["password_reset", "sign_in_link"]);
+export const lensModel = pgEnum("lens_model", ["point", "sis"]);
+export const targetStatus = pgEnum("target_status", ["candidate", "accepted", "scheduled", "observed", "dropped"]);
+export const verdict = pgEnum("feasibility_verdict", ["feasible", "marginal", "infeasible", "unknown"]);
+
+/** People who can sign in. E-mail is stored lower-cased so uniqueness ignores case. */
+export const users = pgTable(
+  "users",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    email: text("email").notNull(),
+    name: text("name").notNull(),
+    /** bcrypt hash; null for an account that has only ever signed in by e-mailed link. */
+    passwordHash: text("password_hash"),
+    siteRole: siteRole("site_role").notNull().default("member"),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("users_email_key").on(t.email), check("users_email_lower", sql`${t.email} = lower(${t.email})`)],
+);
+
+export type User = typeof users.$inferSelect;
+
+/**
+ * Single-use secrets sent by e-mail (password reset, sign-in link). Only the SHA-256 of the token is
+ * kept, so a leaked database cannot be replayed as links.
+ */
+export const authTokens = pgTable(
+  "auth_tokens",
+  {
+    tokenHash: text("token_hash").primaryKey(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    purpose: authTokenPurpose("purpose").notNull(),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    usedAt: timestamp("used_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("auth_tokens_user_idx").on(t.userId)],
+);
+
+export type AuthToken = typeof authTokens.$inferSelect;
+
+/**
+ * Fixed-window attempt counters (sign-in per account and per address). Kept in PostgreSQL so every
+ * app instance counts against the same limit.
+ */
+export const rateLimitCounters = pgTable(
+  "rate_limit_counters",
+  {
+    bucket: text("bucket").notNull(),
+    windowStart: timestamp("window_start", { withTimezone: true }).notNull(),
+    hits: integer("hits").notNull().default(0),
+  },
+  (t) => [primaryKey({ columns: [t.bucket, t.windowStart] })],
+);
+
+export type RateLimitCounter = typeof rateLimitCounters.$inferSelect;
+
+/** A proposal, with the observing site and the instrument defaults its feasibility verdicts use. */
+export const proposals = pgTable("proposals", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  title: text("title").notNull(),
+  cycle: text("cycle").notNull(),
+  abstract: text("abstract").notNull().default(""),
+  siteName: text("site_name").notNull(),
+  siteLatitudeDeg: doublePrecision("site_latitude_deg").notNull(),
+  siteLongitudeDeg: doublePrecision("site_longitude_deg").notNull(),
+  siteElevationM: doublePrecision("site_elevation_m").notNull(),
+  siteHorizonLimitDeg: doublePrecision("site_horizon_limit_deg").notNull(),
+  resolutionMas: doublePrecision("resolution_mas").notNull(),
+  cadenceHours: doublePrecision("cadence_hours").notNull(),
+  campaignLengthDays: doublePrecision("campaign_length_days").notNull(),
+  createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+  createdAt: createdAt(),
+  updatedAt: updatedAt(),
+});
+
+export type Proposal = typeof proposals.$inferSelect;
+
+export const proposalMembers = pgTable(
+  "proposal_members",
+  {
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    role: proposalRole("role").notNull(),
+    joinedAt: timestamp("joined_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.proposalId, t.userId] }), index("proposal_members_user_idx").on(t.userId)],
+);
+
+export type ProposalMember = typeof proposalMembers.$inferSelect;
+
+/** An e-mailed offer to join a proposal with a role; the token is stored hashed, like auth tokens. */
+export const invitations = pgTable(
+  "invitations",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    email: text("email").notNull(),
+    role: proposalRole("role").notNull(),
+    tokenHash: text("token_hash").notNull(),
+    invitedBy: uuid("invited_by").references(() => users.id, { onDelete: "set null" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    acceptedAt: timestamp("accepted_at", { withTimezone: true }),
+    acceptedBy: uuid("accepted_by").references(() => users.id, { onDelete: "set null" }),
+    revokedAt: timestamp("revoked_at", { withTimezone: true }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("invitations_token_key").on(t.tokenHash), index("invitations_proposal_idx").on(t.proposalId)],
+);
+
+export type Invitation = typeof invitations.$inferSelect;
+
+/**
+ * A target and its lens hypothesis. The derived columns (Einstein radius and the rest) are computed by
+ * `lib/workspace/derived.ts` whenever the target or its proposal's instrument defaults change, and
+ * stored so that the table can sort and filter on them in SQL at 10,000 rows.
+ */
+export const targets = pgTable(
+  "targets",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    name: text("name").notNull(),
+    raDeg: doublePrecision("ra_deg").notNull(),
+    decDeg: doublePrecision("dec_deg").notNull(),
+    lensModel: lensModel("lens_model").notNull(),
+    lensMassSolar: doublePrecision("lens_mass_solar"),
+    velocityDispersionKmPerS: doublePrecision("velocity_dispersion_km_per_s"),
+    lensDistancePc: doublePrecision("lens_distance_pc"),
+    sourceDistancePc: doublePrecision("source_distance_pc"),
+    lensRedshift: doublePrecision("lens_redshift"),
+    sourceRedshift: doublePrecision("source_redshift"),
+    sourceOffsetThetaE: doublePrecision("source_offset_theta_e").notNull(),
+    properMotionMasPerYr: doublePrecision("proper_motion_mas_per_yr"),
+    priority: integer("priority").notNull(),
+    status: targetStatus("status").notNull().default("candidate"),
+    tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
+    einsteinRadiusMas: doublePrecision("einstein_radius_mas"),
+    imageSeparationMas: doublePrecision("image_separation_mas"),
+    magnificationTotal: doublePrecision("magnification_total"),
+    timeDelayDays: doublePrecision("time_delay_days"),
+    crossingTimeDays: doublePrecision("crossing_time_days"),
+    shadowDiameterMicroarcsec: doublePrecision("shadow_diameter_microarcsec"),
+    resolutionVerdict: verdict("resolution_verdict").notNull().default("unknown"),
+    cadenceVerdict: verdict("cadence_verdict").notNull().default("unknown"),
+    campaignVerdict: verdict("campaign_verdict").notNull().default("unknown"),
+    createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [
+    index("targets_proposal_name_idx").on(t.proposalId, t.name),
+    index("targets_proposal_einstein_idx").on(t.proposalId, t.einsteinRadiusMas),
+    index("targets_proposal_priority_idx").on(t.proposalId, t.priority),
+  ],
+);
+
+export type Target = typeof targets.$inferSelect;
+export type NewTarget = typeof targets.$inferInsert;
+
+/** One Markdown observation note per row; `version` rises by one on every save (optimistic locking). */
+export const notes = pgTable(
+  "notes",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    targetId: uuid("target_id")
+      .notNull()
+      .references(() => targets.id, { onDelete: "cascade" }),
+    authorId: uuid("author_id").references(() => users.id, { onDelete: "set null" }),
+    body: text("body").notNull(),
+    version: integer("version").notNull().default(1),
+    updatedBy: uuid("updated_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+    updatedAt: updatedAt(),
+  },
+  (t) => [index("notes_target_idx").on(t.targetId)],
+);
+
+export type Note = typeof notes.$inferSelect;
+
+/** Every saved text of a note, the first one included. */
+export const noteRevisions = pgTable(
+  "note_revisions",
+  {
+    noteId: uuid("note_id")
+      .notNull()
+      .references(() => notes.id, { onDelete: "cascade" }),
+    version: integer("version").notNull(),
+    body: text("body").notNull(),
+    editedBy: uuid("edited_by").references(() => users.id, { onDelete: "set null" }),
+    editedAt: timestamp("edited_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [primaryKey({ columns: [t.noteId, t.version] })],
+);
+
+export type NoteRevision = typeof noteRevisions.$inferSelect;
+
+/** Who added, changed or removed what in a proposal, and when. */
+export const activity = pgTable(
+  "activity",
+  {
+    id: bigserial("id", { mode: "number" }).primaryKey(),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    action: text("action").notNull(),
+    subject: text("subject").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("activity_proposal_idx").on(t.proposalId, t.id)],
+);
+
+export type Activity = typeof activity.$inferSelect;

@@ -13,6 +13,19 @@ export const serverEnvSchema = z.object({
   DATABASE_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   /** A query (or a connection attempt) that takes longer than this fails, so a request never hangs. */
   DATABASE_TIMEOUT_SECONDS: z.coerce.number().positive().max(60).default(4),
+  /** The app's public origin; links in e-mails point here. Set by `npm start` / `npm test`. */
+  NEXTAUTH_URL: z.url({ error: "NEXTAUTH_URL must be an absolute URL (http://host:port)" }).default("http://127.0.0.1:3000"),
+  /** Outgoing mail: the fake SMTP server that `npm start` and `npm test` start on loopback sets these. */
+  SMTP_HOST: z.string().min(1).default("127.0.0.1"),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65_535).optional(),
+  MAIL_FROM: z.string().min(3).default("Arcwright <no-reply@arcwright.invalid>"),
+  /** Folder where the fake SMTP server keeps every message it received (one JSON file each). */
+  ARCWRIGHT_MAILBOX_DIR: z.string().min(1).optional(),
+  /**
+   * "1" shows the mailbox page outside development; `npm test` sets it because it serves a
+   * production build. Never set it on a real deployment.
+   */
+  ARCWRIGHT_DEV_MAILBOX: z.enum(["0", "1"]).default("0"),
 });
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>;

@@ -1,0 +1,3 @@
+import { accountRoutes } from "@/lib/server/api/account-routes";
+
+export const POST = accountRoutes.requestReset;

@@ -1,0 +1,4 @@
+import { activityRoutes } from "@/lib/server/api/proposal-routes";
+import { sessionActor } from "@/lib/server/session";
+
+export const { GET } = activityRoutes(sessionActor);

@@ -1,0 +1,4 @@
+import { noteRoutes } from "@/lib/server/api/target-routes";
+import { sessionActor } from "@/lib/server/session";
+
+export const { GET, PATCH, DELETE } = noteRoutes(sessionActor);

@@ -1,0 +1,4 @@
+import { proposalCollectionRoutes } from "@/lib/server/api/proposal-routes";
+import { sessionActor } from "@/lib/server/session";
+
+export const { GET, POST } = proposalCollectionRoutes(sessionActor);

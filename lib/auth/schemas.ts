@@ -1,0 +1,20 @@
+import { z } from "zod";
+import { emailSchema, tokenSchema } from "@/lib/workspace/member-schema";
+
+export const passwordSchema = z
+  .string()
+  .min(10, "Use at least 10 characters.")
+  .max(200, "Use at most 200 characters.");
+
+export const accountSchema = z.object({
+  email: emailSchema,
+  name: z.string().trim().min(1, "Tell your team what to call you.").max(100),
+  password: passwordSchema,
+});
+
+export const signUpSchema = accountSchema;
+/** Sign-in checks only the shape: a wrong length must cost as much as a wrong password. */
+export const signInSchema = accountSchema.pick({ email: true }).extend({ password: z.string().min(1, "Enter your password.").max(200) });
+export const emailOnlySchema = accountSchema.pick({ email: true });
+export const resetPasswordSchema = accountSchema.pick({ password: true }).extend({ token: tokenSchema });
+export const linkSignInSchema = z.object({ token: tokenSchema });

@@ -1,0 +1,120 @@
+import "server-only";
+import { and, eq, gt, isNull, sql } from "drizzle-orm";
+import { dbClient } from "@/db/client";
+import { authTokens, users, type User } from "@/db/schema";
+import { hashPassword, verifyPassword } from "@/lib/auth/password";
+import { emailOnlySchema, linkSignInSchema, resetPasswordSchema, signInSchema, signUpSchema } from "@/lib/auth/schemas";
+import { hashLinkToken, newLinkToken } from "@/lib/auth/tokens";
+import { AppError } from "@/lib/errors";
+import type { Actor } from "@/lib/server/actor";
+import { parseOrThrow } from "@/lib/server/http";
+import { appLink, linkMail, sendMail } from "@/lib/server/mailer";
+import { consumeAttempt } from "@/lib/server/rate-limit";
+
+/** Sign-in attempts allowed per account and per client address in each 15-minute window. */
+export const signInLimits = { perAccount: 8, perAddress: 40, windowSeconds: 15 * 60 } as const;
+const linkLifetimeMinutes = { password_reset: 60, sign_in_link: 15 } as const;
+
+export function actorOf(user: Pick<User, "id" | "email" | "name" | "siteRole">): Actor {
+  return { userId: user.id, email: user.email, name: user.name, siteRole: user.siteRole };
+}
+
+async function findUserByEmail(email: string): Promise<User | undefined> {
+  const [user] = await dbClient().db.select().from(users).where(eq(users.email, email)).limit(1);
+  return user;
+}
+
+export async function findActor(userId: string): Promise<Actor | null> {
+  const [user] = await dbClient().db.select().from(users).where(eq(users.id, userId)).limit(1);
+  return user ? actorOf(user) : null;
+}
+
+/** Creates an account with a password. The e-mail must be new. */
+export async function signUp(input: unknown): Promise<Actor> {
+  const { email, name, password } = parseOrThrow(signUpSchema, input, "account");
+  const passwordHash = await hashPassword(password);
+  const [user] = await dbClient().db.insert(users).values({ email, name, passwordHash }).onConflictDoNothing().returning();
+  if (!user) {
+    throw new AppError("conflict:account", "An account with this e-mail exists; sign in or reset its password.", {
+      email: ["An account with this e-mail exists."],
+    });
+  }
+  return actorOf(user);
+}
+
+/**
+ * Password sign-in. Rate-limited per account and per address before any check, and the same bcrypt
+ * work is done whether or not the account exists, so neither timing nor answer reveals it.
+ */
+export async function authenticateWithPassword(input: unknown, clientAddress: string): Promise<Actor | null> {
+  const { email, password } = parseOrThrow(signInSchema, input, "sign-in");
+  const window = signInLimits.windowSeconds;
+  await consumeAttempt({ bucket: `sign-in:address:${clientAddress}`, limit: signInLimits.perAddress, windowSeconds: window }, "sign-in");
+  await consumeAttempt({ bucket: `sign-in:account:${email}`, limit: signInLimits.perAccount, windowSeconds: window }, "sign-in");
+  const user = await findUserByEmail(email);
+  const matches = await verifyPassword(password, user?.passwordHash ?? null);
+  return user && matches ? actorOf(user) : null;
+}
+
+async function issueToken(userId: string, purpose: keyof typeof linkLifetimeMinutes): Promise<string> {
+  const { token, tokenHash } = newLinkToken();
+  await dbClient()
+    .db.insert(authTokens)
+    .values({ tokenHash, userId, purpose, expiresAt: sql`now() + make_interval(mins => ${linkLifetimeMinutes[purpose]})` });
+  return token;
+}
+
+/** Marks a token used and returns its user, in one statement so a link works exactly once. */
+async function consumeToken(token: string, purpose: keyof typeof linkLifetimeMinutes) {
+  const [row] = await dbClient()
+    .db.update(authTokens)
+    .set({ usedAt: sql`now()` })
+    .where(
+      and(
+        eq(authTokens.tokenHash, hashLinkToken(token)),
+        eq(authTokens.purpose, purpose),
+        isNull(authTokens.usedAt),
+        gt(authTokens.expiresAt, sql`now()`),
+      ),
+    )
+    .returning({ userId: authTokens.userId });
+  if (!row) throw new AppError("bad_request:link", "This link has expired or was already used; ask for a new one.");
+  return row.userId;
+}
+
+/**
+ * E-mails a reset or sign-in link when the account exists. The answer is the same either way (and the
+ * address is rate-limited like a sign-in), so the form cannot be used to probe for accounts.
+ */
+async function mailLink(input: unknown, clientAddress: string, purpose: keyof typeof linkLifetimeMinutes): Promise<void> {
+  const { email } = parseOrThrow(emailOnlySchema, input, "e-mail");
+  const window = signInLimits.windowSeconds;
+  await consumeAttempt({ bucket: `link:address:${clientAddress}`, limit: signInLimits.perAddress, windowSeconds: window }, "link");
+  await consumeAttempt({ bucket: `link:account:${email}`, limit: 5, windowSeconds: window }, "link");
+  const user = await findUserByEmail(email);
+  if (!user) return;
+  const token = await issueToken(user.id, purpose);
+  const mail =
+    purpose === "password_reset"
+      ? linkMail(email, "Reset your Arcwright password", [`Hello ${user.name},`, `Someone asked to reset the password of this account. The link works once, within ${linkLifetimeMinutes.password_reset} minutes. If it was not you, ignore this message.`], { label: "Choose a new password", url: appLink(`/reset/${token}`) })
+      : linkMail(email, "Your Arcwright sign-in link", [`Hello ${user.name},`, `This link signs you in once, within ${linkLifetimeMinutes.sign_in_link} minutes.`], { label: "Sign in to Arcwright", url: appLink(`/sign-in/link?token=${token}`) });
+  await sendMail(mail);
+}
+
+export const requestPasswordReset = (input: unknown, clientAddress: string) => mailLink(input, clientAddress, "password_reset");
+export const requestSignInLink = (input: unknown, clientAddress: string) => mailLink(input, clientAddress, "sign_in_link");
+
+/** Sets a new password from a reset link and spends the link. */
+export async function resetPassword(input: unknown): Promise<void> {
+  const { token, password } = parseOrThrow(resetPasswordSchema, input, "password reset");
+  const passwordHash = await hashPassword(password);
+  const userId = await consumeToken(token, "password_reset");
+  await dbClient().db.update(users).set({ passwordHash }).where(eq(users.id, userId));
+}
+
+/** Signs in from an e-mailed link (spent on use). */
+export async function authenticateWithLink(input: unknown): Promise<Actor | null> {
+  const { token } = parseOrThrow(linkSignInSchema, input, "sign-in link");
+  const userId = await consumeToken(token, "sign_in_link");
+  return findActor(userId);
+}

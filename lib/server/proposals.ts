@@ -1,0 +1,140 @@
+import "server-only";
+import { count, desc, eq } from "drizzle-orm";
+import { dbClient } from "@/db/client";
+import { proposalMembers, proposals, targets, type Proposal } from "@/db/schema";
+import { proposalParamsSchema } from "@/lib/workspace/ids";
+import { createProposalSchema, updateProposalSchema, type ProposalInput } from "@/lib/workspace/proposal-schema";
+import { permissionsFor, type Permissions, type ProposalRole } from "@/lib/workspace/roles";
+import { authorize, loadAccess, parseIds } from "@/lib/server/access";
+import { recordActivity } from "@/lib/server/activity";
+import { requireActor, type Actor } from "@/lib/server/actor";
+import { instrumentOf, rederiveTargets } from "@/lib/server/derived-columns";
+import { parseOrThrow } from "@/lib/server/http";
+
+export interface ProposalSummary {
+  id: string;
+  title: string;
+  cycle: string;
+  role: ProposalRole;
+  targetCount: number;
+  updatedAt: string;
+}
+
+export interface ProposalDetail extends ProposalInput {
+  id: string;
+  role: ProposalRole;
+  permissions: Permissions;
+  createdAt: string;
+  updatedAt: string;
+}
+
+function detailOf(p: Proposal, role: ProposalRole): ProposalDetail {
+  return {
+    id: p.id,
+    title: p.title,
+    cycle: p.cycle,
+    abstract: p.abstract,
+    site: {
+      name: p.siteName,
+      latitudeDeg: p.siteLatitudeDeg,
+      longitudeDeg: p.siteLongitudeDeg,
+      elevationM: p.siteElevationM,
+      horizonLimitDeg: p.siteHorizonLimitDeg,
+    },
+    instrument: instrumentOf(p),
+    role,
+    permissions: permissionsFor(role),
+    createdAt: p.createdAt.toISOString(),
+    updatedAt: p.updatedAt.toISOString(),
+  };
+}
+
+function columnsOf(input: Partial<ProposalInput>) {
+  return {
+    ...(input.title !== undefined ? { title: input.title } : {}),
+    ...(input.cycle !== undefined ? { cycle: input.cycle } : {}),
+    ...(input.abstract !== undefined ? { abstract: input.abstract } : {}),
+    ...(input.site
+      ? {
+          siteName: input.site.name,
+          siteLatitudeDeg: input.site.latitudeDeg,
+          siteLongitudeDeg: input.site.longitudeDeg,
+          siteElevationM: input.site.elevationM,
+          siteHorizonLimitDeg: input.site.horizonLimitDeg,
+        }
+      : {}),
+    ...(input.instrument ? input.instrument : {}),
+  };
+}
+
+/** The proposals the actor is a member of, most recently changed first. */
+export async function listProposals(actor: Actor | null): Promise<ProposalSummary[]> {
+  const { userId } = requireActor(actor);
+  const { db } = dbClient();
+  const rows = await db
+    .select({ proposal: proposals, role: proposalMembers.role, targetCount: count(targets.id) })
+    .from(proposalMembers)
+    .innerJoin(proposals, eq(proposals.id, proposalMembers.proposalId))
+    .leftJoin(targets, eq(targets.proposalId, proposals.id))
+    .where(eq(proposalMembers.userId, userId))
+    .groupBy(proposals.id, proposalMembers.role)
+    .orderBy(desc(proposals.updatedAt))
+    .limit(500);
+  return rows.map(({ proposal, role, targetCount }) => ({
+    id: proposal.id,
+    title: proposal.title,
+    cycle: proposal.cycle,
+    role,
+    targetCount,
+    updatedAt: proposal.updatedAt.toISOString(),
+  }));
+}
+
+/** Any signed-in person may start a proposal; they become its PI. */
+export async function createProposal(input: unknown, actor: Actor | null): Promise<ProposalDetail> {
+  const data = parseOrThrow(createProposalSchema, input, "proposal");
+  const { userId } = requireActor(actor);
+  return dbClient().db.transaction(async (tx) => {
+    const [proposal] = await tx
+      .insert(proposals)
+      .values({ ...(columnsOf(data) as Required<ReturnType<typeof columnsOf>>), createdBy: userId })
+      .returning();
+    await tx.insert(proposalMembers).values({ proposalId: proposal.id, userId, role: "pi" });
+    await recordActivity(tx, { proposalId: proposal.id, actorId: userId, action: "proposal.created", subject: proposal.title });
+    return detailOf(proposal, "pi");
+  });
+}
+
+export async function getProposal(params: unknown, actor: Actor | null): Promise<ProposalDetail> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const access = await loadAccess(dbClient().db, proposalId, requireActor(actor));
+  return detailOf(access.proposal, access.role);
+}
+
+/** PI only. Changing the instrument defaults re-grades every target in the same transaction. */
+export async function updateProposal(params: unknown, input: unknown, actor: Actor | null): Promise<ProposalDetail> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const data = parseOrThrow(updateProposalSchema, input, "proposal");
+  const who = requireActor(actor);
+  return dbClient().db.transaction(async (tx) => {
+    const access = await authorize(tx, proposalId, who, "manage", "proposal");
+    const [proposal] = await tx
+      .update(proposals)
+      .set({ ...columnsOf(data), updatedAt: new Date() })
+      .where(eq(proposals.id, proposalId))
+      .returning();
+    if (data.instrument) await rederiveTargets(tx, proposalId, data.instrument);
+    await recordActivity(tx, { proposalId, actorId: who.userId, action: "proposal.updated", subject: proposal.title });
+    return detailOf(proposal, access.role);
+  });
+}
+
+/** PI only; targets, notes, members and the feed go with it. */
+export async function deleteProposal(params: unknown, actor: Actor | null): Promise<void> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const who = requireActor(actor);
+  await dbClient().db.transaction(async (tx) => {
+    await authorize(tx, proposalId, who, "delete", "proposal");
+    await tx.delete(proposals).where(eq(proposals.id, proposalId));
+  });
+}

@@ -1,0 +1,39 @@
+import "server-only";
+import { sql } from "drizzle-orm";
+import { dbClient } from "@/db/client";
+import { rateLimitCounters } from "@/db/schema";
+import { AppError } from "@/lib/errors";
+
+export interface RateLimit {
+  /** Distinguishes counters, e.g. "sign-in:account:<email>". */
+  bucket: string;
+  limit: number;
+  windowSeconds: number;
+}
+
+/**
+ * Counts one attempt in a fixed window and throws `rate_limited:<subject>` once the window's limit is
+ * passed. The upsert is one statement, so concurrent attempts from several app instances all count.
+ */
+export async function consumeAttempt({ bucket, limit, windowSeconds }: RateLimit, subject: string): Promise<void> {
+  const { db } = dbClient();
+  const windowStartSql = sql`to_timestamp(floor(extract(epoch from now()) / ${windowSeconds}) * ${windowSeconds})`;
+  const [row] = await db
+    .insert(rateLimitCounters)
+    .values({ bucket, windowStart: windowStartSql, hits: 1 })
+    .onConflictDoUpdate({
+      target: [rateLimitCounters.bucket, rateLimitCounters.windowStart],
+      set: { hits: sql`${rateLimitCounters.hits} + 1` },
+    })
+    .returning({ hits: rateLimitCounters.hits });
+  if (row.hits > limit) {
+    throw new AppError(`rate_limited:${subject}`, "Too many attempts; wait a few minutes and try again.", undefined, {
+      retryAfterSeconds: windowSeconds,
+    });
+  }
+}
+
+/** Drops windows older than a day so the table stays small; called opportunistically. */
+export async function pruneRateLimits(): Promise<void> {
+  await dbClient().db.delete(rateLimitCounters).where(sql`${rateLimitCounters.windowStart} < now() - interval '1 day'`);
+}

@@ -1,0 +1,207 @@
+import "server-only";
+import { and, arrayContains, asc, count, desc, eq, ilike, sql, type SQL } from "drizzle-orm";
+import { dbClient } from "@/db/client";
+import { proposals, targets, type Target } from "@/db/schema";
+import { AppError } from "@/lib/errors";
+import { formatDeclination, formatRightAscension } from "@/lib/workspace/coordinates";
+import { deriveTargetColumns, type DerivedColumns } from "@/lib/workspace/derived";
+import { proposalParamsSchema, targetParamsSchema } from "@/lib/workspace/ids";
+import { canChangeStatus } from "@/lib/workspace/status";
+import { targetListQuerySchema, type TargetSortColumn } from "@/lib/workspace/target-query";
+import {
+  createTargetSchema,
+  lensHypothesisErrors,
+  updateTargetSchema,
+  type LensHypothesis,
+} from "@/lib/workspace/target-schema";
+import { authorize, parseIds } from "@/lib/server/access";
+import { recordActivity } from "@/lib/server/activity";
+import { requireActor, type Actor } from "@/lib/server/actor";
+import { instrumentOf } from "@/lib/server/derived-columns";
+import { parseOrThrow } from "@/lib/server/http";
+
+/** A target as the API and the pages see it. */
+export interface TargetView extends LensHypothesis, DerivedColumns {
+  id: string;
+  proposalId: string;
+  name: string;
+  raDeg: number;
+  decDeg: number;
+  raText: string;
+  decText: string;
+  priority: number;
+  status: Target["status"];
+  tags: string[];
+  updatedAt: string;
+}
+
+export interface TargetPage {
+  rows: TargetView[];
+  total: number;
+  page: number;
+  pageSize: number;
+}
+
+export function targetViewOf(t: Target): TargetView {
+  return {
+    id: t.id,
+    proposalId: t.proposalId,
+    name: t.name,
+    raDeg: t.raDeg,
+    decDeg: t.decDeg,
+    raText: formatRightAscension(t.raDeg),
+    decText: formatDeclination(t.decDeg),
+    lensModel: t.lensModel,
+    lensMassSolar: t.lensMassSolar,
+    velocityDispersionKmPerS: t.velocityDispersionKmPerS,
+    lensDistancePc: t.lensDistancePc,
+    sourceDistancePc: t.sourceDistancePc,
+    lensRedshift: t.lensRedshift,
+    sourceRedshift: t.sourceRedshift,
+    sourceOffsetThetaE: t.sourceOffsetThetaE,
+    properMotionMasPerYr: t.properMotionMasPerYr,
+    priority: t.priority,
+    status: t.status,
+    tags: t.tags,
+    einsteinRadiusMas: t.einsteinRadiusMas,
+    imageSeparationMas: t.imageSeparationMas,
+    magnificationTotal: t.magnificationTotal,
+    timeDelayDays: t.timeDelayDays,
+    crossingTimeDays: t.crossingTimeDays,
+    shadowDiameterMicroarcsec: t.shadowDiameterMicroarcsec,
+    resolutionVerdict: t.resolutionVerdict,
+    cadenceVerdict: t.cadenceVerdict,
+    campaignVerdict: t.campaignVerdict,
+    updatedAt: t.updatedAt.toISOString(),
+  };
+}
+
+const sortableColumns = {
+  name: targets.name,
+  raDeg: targets.raDeg,
+  decDeg: targets.decDeg,
+  priority: targets.priority,
+  status: targets.status,
+  einsteinRadiusMas: targets.einsteinRadiusMas,
+  imageSeparationMas: targets.imageSeparationMas,
+  magnificationTotal: targets.magnificationTotal,
+  timeDelayDays: targets.timeDelayDays,
+  crossingTimeDays: targets.crossingTimeDays,
+  updatedAt: targets.updatedAt,
+} satisfies Record<TargetSortColumn, unknown>;
+
+const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+/** One page of a proposal's targets, sorted and filtered in SQL on known columns only. */
+export async function listTargets(params: unknown, query: unknown, actor: Actor | null): Promise<TargetPage> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const q = parseOrThrow(targetListQuerySchema, query, "query");
+  const { db } = dbClient();
+  await authorize(db, proposalId, requireActor(actor), "read", "target");
+  const filters: (SQL | undefined)[] = [
+    eq(targets.proposalId, proposalId),
+    q.q ? ilike(targets.name, likePattern(q.q)) : undefined,
+    q.status ? eq(targets.status, q.status) : undefined,
+    q.lensModel ? eq(targets.lensModel, q.lensModel) : undefined,
+    q.tag ? arrayContains(targets.tags, [q.tag]) : undefined,
+    q.resolutionVerdict ? eq(targets.resolutionVerdict, q.resolutionVerdict) : undefined,
+  ];
+  const where = and(...filters);
+  const column = sortableColumns[q.sort];
+  // Rows without a value (a model that gives none) sort last either way; id breaks ties so paging is stable.
+  const order = q.direction === "asc" ? sql`${asc(column)} nulls last` : sql`${desc(column)} nulls last`;
+  const [rows, [{ total }]] = await Promise.all([
+    db.select().from(targets).where(where).orderBy(order, asc(targets.id)).limit(q.pageSize).offset((q.page - 1) * q.pageSize),
+    db.select({ total: count() }).from(targets).where(where),
+  ]);
+  return { rows: rows.map(targetViewOf), total, page: q.page, pageSize: q.pageSize };
+}
+
+async function loadTarget(db: Parameters<typeof authorize>[0], proposalId: string, targetId: string): Promise<Target> {
+  const [target] = await db.select().from(targets).where(and(eq(targets.id, targetId), eq(targets.proposalId, proposalId))).limit(1);
+  if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
+  return target;
+}
+
+export async function getTarget(params: unknown, actor: Actor | null): Promise<TargetView> {
+  const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
+  const { db } = dbClient();
+  await authorize(db, proposalId, requireActor(actor), "read", "target");
+  return targetViewOf(await loadTarget(db, proposalId, targetId));
+}
+
+function requireCompleteHypothesis(h: LensHypothesis): void {
+  const fields = lensHypothesisErrors(h);
+  const names = Object.keys(fields);
+  if (names.length > 0) throw new AppError("bad_request:target", `Invalid target: check ${names.join(", ")}.`, fields);
+}
+
+/** Co-I or PI. The derived columns are computed from the new target and the proposal's instrument. */
+export async function createTarget(params: unknown, input: unknown, actor: Actor | null): Promise<TargetView> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const { ra, dec, ...data } = parseOrThrow(createTargetSchema, input, "target");
+  requireCompleteHypothesis(data);
+  const who = requireActor(actor);
+  return dbClient().db.transaction(async (tx) => {
+    const access = await authorize(tx, proposalId, who, "edit", "target");
+    const derived = deriveTargetColumns(data, instrumentOf(access.proposal));
+    const [target] = await tx
+      .insert(targets)
+      .values({ ...data, raDeg: ra, decDeg: dec, ...derived, proposalId, createdBy: who.userId })
+      .returning();
+    await tx.update(proposals).set({ updatedAt: new Date() }).where(eq(proposals.id, proposalId));
+    await recordActivity(tx, { proposalId, actorId: who.userId, action: "target.added", subject: target.name });
+    return targetViewOf(target);
+  });
+}
+
+/** Co-I or PI. Status moves follow the allowed transitions; the hypothesis must stay complete. */
+export async function updateTarget(params: unknown, input: unknown, actor: Actor | null): Promise<TargetView> {
+  const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
+  const { ra, dec, ...patch } = parseOrThrow(updateTargetSchema, input, "target");
+  const who = requireActor(actor);
+  return dbClient().db.transaction(async (tx) => {
+    const access = await authorize(tx, proposalId, who, "edit", "target");
+    // Row lock: two concurrent edits of one target apply one after the other, never interleaved.
+    const [current] = await tx
+      .select()
+      .from(targets)
+      .where(and(eq(targets.id, targetId), eq(targets.proposalId, proposalId)))
+      .for("update");
+    if (!current) throw new AppError("not_found:target", "No such target in this proposal.");
+    if (patch.status && !canChangeStatus(current.status, patch.status)) {
+      throw new AppError("bad_request:target", `A ${current.status} target cannot become ${patch.status}.`, {
+        status: [`Not allowed from ${current.status}.`],
+      });
+    }
+    const merged = { ...current, ...patch };
+    requireCompleteHypothesis(merged);
+    const derived = deriveTargetColumns(merged, instrumentOf(access.proposal));
+    const [target] = await tx
+      .update(targets)
+      .set({
+        ...patch,
+        ...(ra !== undefined ? { raDeg: ra } : {}),
+        ...(dec !== undefined ? { decDeg: dec } : {}),
+        ...derived,
+        updatedAt: new Date(),
+      })
+      .where(eq(targets.id, targetId))
+      .returning();
+    const what = patch.status && patch.status !== current.status ? `${target.name} → ${patch.status}` : target.name;
+    await recordActivity(tx, { proposalId, actorId: who.userId, action: "target.updated", subject: what });
+    return targetViewOf(target);
+  });
+}
+
+/** Co-I or PI; its notes go with it. */
+export async function deleteTarget(params: unknown, actor: Actor | null): Promise<void> {
+  const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
+  const who = requireActor(actor);
+  await dbClient().db.transaction(async (tx) => {
+    await authorize(tx, proposalId, who, "edit", "target");
+    const target = await loadTarget(tx, proposalId, targetId);
+    await tx.delete(targets).where(eq(targets.id, targetId));
+    await recordActivity(tx, { proposalId, actorId: who.userId, action: "target.removed", subject: target.name });
+  });
+}

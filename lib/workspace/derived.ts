@@ -1,0 +1,146 @@
+import { angularDiameterDistance, angularDiameterDistanceBetween } from "@/lib/physics/cosmology";
+import { einsteinCrossingTime, einsteinRadius, pointLensImages, pointMassTimeDelay } from "@/lib/physics/point-lens";
+import { shadowAngularDiameter } from "@/lib/physics/relativistic-effects";
+import { sisEinsteinRadius, sisImages, sisTimeDelay } from "@/lib/physics/sis";
+import { DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
+import type { LensHypothesis } from "@/lib/workspace/target-schema";
+
+export const verdicts = ["feasible", "marginal", "infeasible", "unknown"] as const;
+export type Verdict = (typeof verdicts)[number];
+
+/** A target's computed columns, in the units their names say; null where the model gives no value. */
+export interface DerivedColumns {
+  einsteinRadiusMas: number | null;
+  imageSeparationMas: number | null;
+  magnificationTotal: number | null;
+  timeDelayDays: number | null;
+  crossingTimeDays: number | null;
+  shadowDiameterMicroarcsec: number | null;
+  resolutionVerdict: Verdict;
+  cadenceVerdict: Verdict;
+  campaignVerdict: Verdict;
+}
+
+interface Geometry {
+  lensPc: number;
+  sourcePc: number;
+  lensSourcePc: number;
+  /** 0 inside the Galaxy, where the cosmological (1 + z) stretch of delays does not apply. */
+  lensRedshift: number;
+}
+
+/**
+ * Distances from what the target gives: Galactic distances (then D_LS = D_S − D_L) or redshifts
+ * (then angular-diameter distances in the physics module's default flat ΛCDM).
+ */
+function geometryOf(h: LensHypothesis): Geometry | null {
+  if (h.lensRedshift != null && h.sourceRedshift != null) {
+    return {
+      lensPc: angularDiameterDistance(h.lensRedshift),
+      sourcePc: angularDiameterDistance(h.sourceRedshift),
+      lensSourcePc: angularDiameterDistanceBetween(h.lensRedshift, h.sourceRedshift),
+      lensRedshift: h.lensRedshift,
+    };
+  }
+  if (h.lensDistancePc != null && h.sourceDistancePc != null) {
+    return {
+      lensPc: h.lensDistancePc,
+      sourcePc: h.sourceDistancePc,
+      lensSourcePc: h.sourceDistancePc - h.lensDistancePc,
+      lensRedshift: 0,
+    };
+  }
+  return null;
+}
+
+/** Ratio thresholds: at least `feasibleAt` is feasible, at least `marginalAt` marginal. */
+function grade(ratio: number | null, feasibleAt: number, marginalAt: number): Verdict {
+  if (ratio === null || !Number.isFinite(ratio)) return "unknown";
+  if (ratio >= feasibleAt) return "feasible";
+  if (ratio >= marginalAt) return "marginal";
+  return "infeasible";
+}
+
+function crossingTimeDaysOf(thetaERad: number, muMasPerYr: number | null | undefined): number | null {
+  if (muMasPerYr == null) return null;
+  return einsteinCrossingTime(thetaERad, (muMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S) / DAY_S;
+}
+
+/**
+ * The verdicts against the instrument defaults:
+ * - resolution: the largest angular feature (image separation, or a compact lens's shadow) over the
+ *   resolution; ≥ 1 resolves it, ≥ 0.5 is marginal (super-resolution or model fitting needed);
+ * - cadence: samples per variability timescale (Einstein crossing time for a point lens, the image
+ *   time delay for an isothermal galaxy); ≥ 10 samples the light curve, ≥ 3 is marginal;
+ * - campaign: campaign length over the span to cover (2 t_E for an event's rise and fall, 1.5 × the
+ *   delay to see a feature in both images); ≥ 1 covers it, ≥ 0.5 is marginal.
+ */
+function verdictsFor(
+  columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict">,
+  lensModel: LensHypothesis["lensModel"],
+  instrument: InstrumentDefaults,
+) {
+  const features = [columns.imageSeparationMas, columns.shadowDiameterMicroarcsec === null ? null : columns.shadowDiameterMicroarcsec / 1000];
+  const knownFeatures = features.filter((f): f is number => f !== null);
+  const largestFeatureMas = knownFeatures.length > 0 ? Math.max(...knownFeatures) : null;
+  const timescaleDays = lensModel === "point" ? columns.crossingTimeDays : columns.timeDelayDays;
+  const spanDays = timescaleDays === null ? null : lensModel === "point" ? 2 * timescaleDays : 1.5 * timescaleDays;
+  return {
+    resolutionVerdict: grade(largestFeatureMas === null ? null : largestFeatureMas / instrument.resolutionMas, 1, 0.5),
+    cadenceVerdict: grade(timescaleDays === null ? null : (timescaleDays * 24) / instrument.cadenceHours, 10, 3),
+    campaignVerdict: grade(spanDays === null ? null : instrument.campaignLengthDays / spanDays, 1, 0.5),
+  };
+}
+
+/**
+ * Computes a target's derived columns from its lens hypothesis and the proposal's instrument
+ * defaults. All lensing quantities come from `lib/physics` (thin-lens point mass per Paczyński 1986,
+ * singular isothermal sphere per Schneider, Ehlers & Falco 1992); this function only chooses the
+ * distances and converts units.
+ * An incomplete hypothesis yields nulls and "unknown" verdicts rather than an error.
+ */
+export function deriveTargetColumns(h: LensHypothesis, instrument: InstrumentDefaults): DerivedColumns {
+  const geometry = geometryOf(h);
+  const empty = {
+    einsteinRadiusMas: null,
+    imageSeparationMas: null,
+    magnificationTotal: null,
+    timeDelayDays: null,
+    crossingTimeDays: null,
+    shadowDiameterMicroarcsec: null,
+  };
+  let columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"> = empty;
+  const u = h.sourceOffsetThetaE;
+
+  if (geometry && h.lensModel === "point" && h.lensMassSolar != null) {
+    const thetaERad = einsteinRadius(h.lensMassSolar, geometry.lensPc, geometry.sourcePc, geometry.lensSourcePc);
+    const thetaEMas = thetaERad / MILLIARCSECOND_RAD;
+    const images = pointLensImages(u);
+    columns = {
+      einsteinRadiusMas: thetaEMas,
+      imageSeparationMas: (images.thetaPlus - images.thetaMinus) * thetaEMas,
+      magnificationTotal: images.magnificationTotal,
+      timeDelayDays: pointMassTimeDelay(h.lensMassSolar, geometry.lensRedshift, u) / DAY_S,
+      crossingTimeDays: crossingTimeDaysOf(thetaERad, h.properMotionMasPerYr),
+      shadowDiameterMicroarcsec: shadowAngularDiameter(h.lensMassSolar, geometry.lensPc) / MICROARCSECOND_RAD,
+    };
+  } else if (geometry && h.lensModel === "sis" && h.velocityDispersionKmPerS != null) {
+    const thetaERad = sisEinsteinRadius(h.velocityDispersionKmPerS, geometry.lensSourcePc, geometry.sourcePc);
+    const betaRad = u * thetaERad;
+    const images = sisImages(betaRad, thetaERad);
+    // An isothermal sphere forms two images (so a separation and a delay) only for u < 1.
+    const isDouble = images.imageCount === 2;
+    columns = {
+      ...empty,
+      einsteinRadiusMas: thetaERad / MILLIARCSECOND_RAD,
+      imageSeparationMas: isDouble ? (images.thetaPlus - images.thetaMinus) / MILLIARCSECOND_RAD : null,
+      magnificationTotal: images.magnificationTotal,
+      timeDelayDays: isDouble
+        ? sisTimeDelay(betaRad, thetaERad, geometry.lensRedshift, geometry.lensPc, geometry.sourcePc, geometry.lensSourcePc) / DAY_S
+        : null,
+      crossingTimeDays: crossingTimeDaysOf(thetaERad, h.properMotionMasPerYr),
+    };
+  }
+  return { ...columns, ...verdictsFor(columns, h.lensModel, instrument) };
+}

@@ -1,0 +1,35 @@
+/** Per-proposal roles. A PI owns the proposal, a Co-I edits its content, a viewer only reads. */
+export const proposalRoles = ["pi", "coi", "viewer"] as const;
+export type ProposalRole = (typeof proposalRoles)[number];
+
+export const siteRoles = ["admin", "member"] as const;
+export type SiteRole = (typeof siteRoles)[number];
+
+/**
+ * What a member may do: `read` everything of the proposal, `edit` targets and notes, `manage` the
+ * proposal itself (details, members, invitations), `delete` the proposal.
+ */
+export type Capability = "read" | "edit" | "manage" | "delete";
+
+const capabilitiesByRole: Record<ProposalRole, ReadonlySet<Capability>> = {
+  pi: new Set(["read", "edit", "manage", "delete"]),
+  coi: new Set(["read", "edit"]),
+  viewer: new Set(["read"]),
+};
+
+export function roleCan(role: ProposalRole, capability: Capability): boolean {
+  return capabilitiesByRole[role].has(capability);
+}
+
+export const roleLabels: Record<ProposalRole, string> = { pi: "PI", coi: "Co-I", viewer: "Viewer" };
+
+/** What the UI may offer a member; the server checks the same rules again on every request. */
+export interface Permissions {
+  canEdit: boolean;
+  canManage: boolean;
+  canDelete: boolean;
+}
+
+export function permissionsFor(role: ProposalRole): Permissions {
+  return { canEdit: roleCan(role, "edit"), canManage: roleCan(role, "manage"), canDelete: roleCan(role, "delete") };
+}

@@ -1,0 +1,164 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("server-only", () => ({}));
+
+import { dbClient } from "@/db/client";
+import type { GetActor } from "@/lib/server/actor";
+import { acceptInvitationRoutes, invitationCollectionRoutes, invitationRoutes, memberCollectionRoutes, memberRoutes } from "@/lib/server/api/member-routes";
+import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
+import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
+import { startMailCatcher } from "./support/mail-catcher";
+import { actorFor, callers, createWorld, pointTargetInput, proposalInput, type Caller, type World } from "./support/world";
+
+type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+interface Endpoint {
+  name: string;
+  handler: (getActor: GetActor) => Handler;
+  path: (w: World) => string;
+  params: (w: World) => Record<string, string>;
+  body?: (w: World) => unknown;
+  /** Expected status for [signed out, non-member, viewer, Co-I, PI]. */
+  expected: [number, number, number, number, number];
+}
+
+const proposalParams = (w: World) => ({ proposalId: w.proposalId });
+const targetParams = (w: World) => ({ proposalId: w.proposalId, targetId: w.targetId });
+const noteParams = (w: World) => ({ ...targetParams(w), noteId: w.noteId });
+const base = (w: World) => `http://arcwright.test/api/proposals/${w.proposalId}`;
+const as = <T extends Record<string, unknown>>(routes: (g: GetActor) => T, method: keyof T) => (g: GetActor) => routes(g)[method] as unknown as Handler;
+
+const endpoints: Endpoint[] = [
+  { name: "GET /proposals", handler: as(proposalCollectionRoutes, "GET"), path: () => "http://arcwright.test/api/proposals", params: () => ({}), expected: [401, 200, 200, 200, 200] },
+  { name: "POST /proposals", handler: as(proposalCollectionRoutes, "POST"), path: () => "http://arcwright.test/api/proposals", params: () => ({}), body: () => proposalInput, expected: [401, 201, 201, 201, 201] },
+  { name: "GET /proposals/:id", handler: as(proposalRoutes, "GET"), path: base, params: proposalParams, expected: [401, 404, 200, 200, 200] },
+  { name: "PATCH /proposals/:id", handler: as(proposalRoutes, "PATCH"), path: base, params: proposalParams, body: () => ({ title: "Renamed" }), expected: [401, 404, 403, 403, 200] },
+  { name: "DELETE /proposals/:id", handler: as(proposalRoutes, "DELETE"), path: base, params: proposalParams, expected: [401, 404, 403, 403, 204] },
+  { name: "GET /activity", handler: as(activityRoutes, "GET"), path: (w) => `${base(w)}/activity`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
+  { name: "GET /members", handler: as(memberCollectionRoutes, "GET"), path: (w) => `${base(w)}/members`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
+  {
+    name: "PATCH /members/:userId",
+    handler: as(memberRoutes, "PATCH"),
+    path: (w) => `${base(w)}/members/${w.actors.viewer.userId}`,
+    params: (w) => ({ proposalId: w.proposalId, userId: w.actors.viewer.userId }),
+    body: () => ({ role: "coi" }),
+    expected: [401, 404, 403, 403, 200],
+  },
+  {
+    name: "DELETE /members/:userId",
+    handler: as(memberRoutes, "DELETE"),
+    path: (w) => `${base(w)}/members/${w.actors.coi.userId}`,
+    params: (w) => ({ proposalId: w.proposalId, userId: w.actors.coi.userId }),
+    expected: [401, 404, 403, 403, 204],
+  },
+  { name: "GET /invitations", handler: as(invitationCollectionRoutes, "GET"), path: (w) => `${base(w)}/invitations`, params: proposalParams, expected: [401, 404, 403, 403, 200] },
+  {
+    name: "POST /invitations",
+    handler: as(invitationCollectionRoutes, "POST"),
+    path: (w) => `${base(w)}/invitations`,
+    params: proposalParams,
+    body: () => ({ email: `new-${Math.random().toString(36).slice(2)}@example.org`, role: "coi" }),
+    expected: [401, 404, 403, 403, 201],
+  },
+  {
+    name: "DELETE /invitations/:id",
+    handler: as(invitationRoutes, "DELETE"),
+    path: (w) => `${base(w)}/invitations/${w.invitationId}`,
+    params: (w) => ({ proposalId: w.proposalId, invitationId: w.invitationId }),
+    expected: [401, 404, 403, 403, 204],
+  },
+  { name: "GET /targets", handler: as(targetCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets?sort=einsteinRadiusMas&direction=desc`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
+  { name: "POST /targets", handler: as(targetCollectionRoutes, "POST"), path: (w) => `${base(w)}/targets`, params: proposalParams, body: () => ({ ...pointTargetInput, name: "TB-ML-0002" }), expected: [401, 404, 403, 201, 201] },
+  { name: "GET /targets/:id", handler: as(targetRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}`, params: targetParams, expected: [401, 404, 200, 200, 200] },
+  { name: "PATCH /targets/:id", handler: as(targetRoutes, "PATCH"), path: (w) => `${base(w)}/targets/${w.targetId}`, params: targetParams, body: () => ({ status: "accepted" }), expected: [401, 404, 403, 200, 200] },
+  { name: "DELETE /targets/:id", handler: as(targetRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}`, params: targetParams, expected: [401, 404, 403, 204, 204] },
+  { name: "GET /notes", handler: as(noteCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes`, params: targetParams, expected: [401, 404, 200, 200, 200] },
+  { name: "POST /notes", handler: as(noteCollectionRoutes, "POST"), path: (w) => `${base(w)}/targets/${w.targetId}/notes`, params: targetParams, body: () => ({ body: "Seeing 0.8″." }), expected: [401, 404, 403, 201, 201] },
+  { name: "GET /notes/:id", handler: as(noteRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 200, 200, 200] },
+  { name: "PATCH /notes/:id", handler: as(noteRoutes, "PATCH"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, body: () => ({ body: "Revised.", version: 1 }), expected: [401, 404, 403, 200, 200] },
+  { name: "DELETE /notes/:id", handler: as(noteRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 403, 204, 204] },
+];
+
+const methodOf = (name: string) => name.split(" ")[0];
+
+async function call(endpoint: Endpoint, world: World, caller: Caller): Promise<{ status: number; body: unknown }> {
+  const actor = actorFor(world, caller);
+  const body = endpoint.body?.(world);
+  const request = new Request(endpoint.path(world), {
+    method: methodOf(endpoint.name),
+    ...(body === undefined ? {} : { body: JSON.stringify(body), headers: { "content-type": "application/json" } }),
+  });
+  const response = await endpoint.handler(async () => actor)(request, { params: Promise.resolve(endpoint.params(world)) });
+  return { status: response.status, body: response.status === 204 ? null : await response.json() };
+}
+
+let mail: Awaited<ReturnType<typeof startMailCatcher>>;
+
+beforeAll(async () => {
+  mail = await startMailCatcher();
+});
+
+afterAll(async () => {
+  await mail.stop();
+  await dbClient().sql.end();
+});
+
+describe("authorization matrix: every endpoint × {signed out, non-member, viewer, Co-I, PI}", () => {
+  for (const endpoint of endpoints) {
+    callers.forEach((caller, index) => {
+      const expected = endpoint.expected[index];
+      it(`${endpoint.name} as ${caller} → ${expected}`, async () => {
+        const world = await createWorld();
+        const { status, body } = await call(endpoint, world, caller);
+        expect(status, JSON.stringify(body)).toBe(expected);
+        if (status >= 400) {
+          const code = (body as { error: { code: string } }).error.code;
+          expect(code).toMatch({ 401: /^unauthorized:/, 403: /^forbidden:/, 404: /^not_found:/ }[status as 401 | 403 | 404]);
+        }
+      });
+    });
+  }
+
+  it("POST /invitations/accept: signed out 401, another address 403, the invited address joins with the role", async () => {
+    const world = await createWorld();
+    const invite = endpoints.find((e) => e.name === "POST /invitations")!;
+    const email = `colleague-${Date.now()}@example.org`;
+    const created = await invite.handler(async () => world.actors.pi)(
+      new Request(invite.path(world), { method: "POST", body: JSON.stringify({ email, role: "viewer" }) }),
+      { params: Promise.resolve(proposalParams(world)) },
+    );
+    expect(created.status).toBe(201);
+    const sent = mail.messages.find((m) => m.to.includes(email));
+    const token = /invitations\/([A-Za-z0-9_-]{43})/.exec(sent?.text ?? "")?.[1];
+    expect(token).toBeDefined();
+
+    const accept = (actor: World["actors"]["pi"] | null) =>
+      acceptInvitationRoutes(async () => actor).POST(
+        new Request("http://arcwright.test/api/invitations/accept", { method: "POST", body: JSON.stringify({ token }) }),
+        { params: Promise.resolve({}) },
+      );
+    expect((await accept(null)).status).toBe(401);
+    expect((await accept(world.actors.outsider)).status).toBe(403);
+    const invitee = { ...world.actors.outsider, email };
+    const accepted = await accept(invitee);
+    expect(accepted.status).toBe(200);
+    expect(await accepted.json()).toEqual({ proposalId: world.proposalId, role: "viewer" });
+    expect((await accept(invitee)).status).toBe(400);
+  });
+
+  it("a malformed id answers 404 like a missing one, and bad input names its fields", async () => {
+    const world = await createWorld();
+    const get = proposalRoutes(async () => world.actors.pi).GET;
+    const notUuid = await get(new Request("http://arcwright.test/api/proposals/nope"), { params: Promise.resolve({ proposalId: "nope" }) });
+    expect(notUuid.status).toBe(404);
+    const post = targetCollectionRoutes(async () => world.actors.pi).POST;
+    const bad = await post(
+      new Request(`${base(world)}/targets`, { method: "POST", body: JSON.stringify({ ...pointTargetInput, dec: "-95 00 00", lensMassSolar: null }) }),
+      { params: Promise.resolve(proposalParams(world)) },
+    );
+    expect(bad.status).toBe(400);
+    const { error } = (await bad.json()) as { error: { code: string; fields: Record<string, string[]> } };
+    expect(error.code).toBe("bad_request:target");
+    expect(Object.keys(error.fields)).toContain("dec");
+  });
+});

@@ -1,0 +1,40 @@
+import type { AddressInfo } from "node:net";
+import { simpleParser } from "mailparser";
+import { SMTPServer } from "smtp-server";
+
+export interface CaughtMail {
+  to: string[];
+  subject: string;
+  text: string;
+}
+
+/**
+ * An in-process SMTP server for integration tests, so invitation and link e-mails really go through
+ * nodemailer. Sets SMTP_HOST/SMTP_PORT before the app reads its environment.
+ */
+export async function startMailCatcher(): Promise<{ messages: CaughtMail[]; stop: () => Promise<void> }> {
+  const messages: CaughtMail[] = [];
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ["STARTTLS", "AUTH"],
+    onData(stream, session, callback) {
+      simpleParser(stream)
+        .then((parsed) => {
+          messages.push({ to: session.envelope.rcptTo.map((r) => r.address), subject: parsed.subject ?? "", text: parsed.text ?? "" });
+          callback();
+        })
+        .catch(callback);
+    },
+  });
+  await new Promise<void>((resolve) => server.listen(0, "127.0.0.1", resolve));
+  process.env.SMTP_HOST = "127.0.0.1";
+  process.env.SMTP_PORT = String((server.server.address() as AddressInfo).port);
+  return { messages, stop: () => new Promise<void>((resolve) => server.close(() => resolve())) };
+}
+
+/** The first link into the app found in a message's text. */
+export function linkIn(mail: CaughtMail): URL {
+  const match = /https?:\/\/\S+/.exec(mail.text);
+  if (!match) throw new Error(`no link in "${mail.subject}"`);
+  return new URL(match[0]);
+}

@@ -1,0 +1,107 @@
+import { afterAll, describe, expect, it, vi } from "vitest";
+
+vi.mock("server-only", () => ({}));
+
+import { eq } from "drizzle-orm";
+import { dbClient } from "@/db/client";
+import { activity, targets } from "@/db/schema";
+import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { listActivity } from "@/lib/server/activity";
+import { updateProposal } from "@/lib/server/proposals";
+import { createTarget, listTargets, updateTarget } from "@/lib/server/targets";
+import { createWorld, pointTargetInput, proposalInput } from "./support/world";
+
+afterAll(async () => {
+  await dbClient().sql.end();
+});
+
+describe("targets", () => {
+  it("stores coordinates in degrees and the derived columns computed on the server", async () => {
+    const world = await createWorld();
+    const { rows } = await listTargets({ proposalId: world.proposalId }, {}, world.actors.viewer);
+    const target = rows[0];
+    // 17h57m12.4s = 269.301666… degrees; −29°12′05″ = −29.201388… degrees.
+    expect(target.raDeg).toBeCloseTo(269.3016667, 6);
+    expect(target.decDeg).toBeCloseTo(-29.2013889, 6);
+    // θ_E = sqrt(4GM/c² · D_LS/(D_L D_S)) for 0.4 M☉, D_L = 4 kpc, D_S = 8 kpc: about 0.638 mas.
+    expect(target.einsteinRadiusMas).toBeCloseTo(0.638, 2);
+    expect(target).toMatchObject(deriveTargetColumns({ ...pointTargetInput, lensModel: "point" }, proposalInput.instrument));
+  });
+
+  it("refuses a forbidden status move and a hypothesis left incomplete, and writes nothing", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId, targetId: world.targetId };
+    await expect(updateTarget(params, { status: "observed" }, world.actors.coi)).rejects.toMatchObject({ code: "bad_request:target", fields: { status: expect.any(Array) } });
+    await expect(updateTarget(params, { lensModel: "sis", name: "renamed" }, world.actors.coi)).rejects.toMatchObject({
+      fields: { velocityDispersionKmPerS: expect.any(Array) },
+    });
+    const [row] = await dbClient().db.select().from(targets).where(eq(targets.id, world.targetId));
+    expect(row).toMatchObject({ name: "TB-ML-0001", status: "candidate", lensModel: "point" });
+  });
+
+  it("re-grades every target when the instrument defaults change, and logs it in the feed", async () => {
+    const world = await createWorld();
+    const before = await listTargets({ proposalId: world.proposalId }, {}, world.actors.pi);
+    expect(before.rows[0].resolutionVerdict).toBe("infeasible");
+    await updateProposal({ proposalId: world.proposalId }, { instrument: { ...proposalInput.instrument, resolutionMas: 0.5 } }, world.actors.pi);
+    const after = await listTargets({ proposalId: world.proposalId }, {}, world.actors.pi);
+    expect(after.rows[0].resolutionVerdict).toBe("feasible");
+    const feed = await listActivity({ proposalId: world.proposalId }, { limit: 10 }, world.actors.viewer);
+    expect(feed.entries.map((e) => e.action)).toEqual(["proposal.updated", "note.added", "target.added", "proposal.created"]);
+    expect(feed.entries[0].actorName).toBe("pi");
+  });
+
+  it("rejects unknown sort columns and oversized pages", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId };
+    await expect(listTargets(params, { sort: "password_hash" }, world.actors.pi)).rejects.toMatchObject({ code: "bad_request:query", fields: { sort: expect.any(Array) } });
+    await expect(listTargets(params, { pageSize: "5000" }, world.actors.pi)).rejects.toMatchObject({ fields: { pageSize: expect.any(Array) } });
+  });
+
+  it("lists a page of 10,000 targets sorted by a computed column quickly", async () => {
+    const world = await createWorld();
+    const instrument = proposalInput.instrument;
+    const rows = Array.from({ length: 10_000 }, (_, i) => {
+      const h = { ...pointTargetInput, lensModel: "point" as const, lensMassSolar: 0.05 + (i % 500) / 100, sourceOffsetThetaE: 0.05 + (i % 37) / 10 };
+      return {
+        proposalId: world.proposalId,
+        name: `BULK-${String(i).padStart(5, "0")}`,
+        raDeg: (i * 0.036) % 360,
+        decDeg: -30 + (i % 60) / 10,
+        ...h,
+        status: "candidate" as const,
+        tags: i % 3 === 0 ? ["bulge"] : [],
+        ...deriveTargetColumns(h, instrument),
+      };
+    });
+    for (let i = 0; i < rows.length; i += 1000) await dbClient().db.insert(targets).values(rows.slice(i, i + 1000));
+
+    const params = { proposalId: world.proposalId };
+    const timings: number[] = [];
+    let page;
+    for (let run = 0; run < 5; run++) {
+      const started = performance.now();
+      page = await listTargets(params, { sort: "einsteinRadiusMas", direction: "desc", pageSize: "100", page: "30", tag: "bulge" }, world.actors.viewer);
+      timings.push(performance.now() - started);
+    }
+    expect(page!.total).toBe(3335);
+    expect(page!.rows).toHaveLength(100);
+    const radii = page!.rows.map((r) => r.einsteinRadiusMas!);
+    expect([...radii].sort((a, b) => b - a)).toEqual(radii);
+    const medianMs = timings.sort((a, b) => a - b)[2];
+    console.log(`[measure] page 30 of 10,001 targets sorted by Einstein radius, filtered by tag: median ${medianMs.toFixed(1)} ms`);
+    expect(medianMs).toBeLessThan(500);
+
+    const started = performance.now();
+    await updateProposal(params, { instrument: { ...instrument, cadenceHours: 2 } }, world.actors.pi);
+    console.log(`[measure] re-grading 10,001 targets after an instrument change: ${(performance.now() - started).toFixed(0)} ms`);
+    const entries = await dbClient().db.select().from(activity).where(eq(activity.proposalId, world.proposalId));
+    expect(entries.length).toBeGreaterThan(0);
+  });
+
+  it("new targets from a Co-I land as candidates with the activity recorded", async () => {
+    const world = await createWorld();
+    const created = await createTarget({ proposalId: world.proposalId }, { ...pointTargetInput, name: "TB-ML-0099", ra: 150.25, dec: "+02d11m00s" }, world.actors.coi);
+    expect(created).toMatchObject({ status: "candidate", raDeg: 150.25, decDeg: expect.closeTo(2.1833333, 6) });
+  });
+});
