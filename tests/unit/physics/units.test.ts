@@ -1,0 +1,128 @@
+import { describe, expect, it } from "vitest";
+import * as constants from "@/lib/physics/constants";
+import {
+  QuantityError,
+  formatAngle,
+  formatDistance,
+  formatMass,
+  formatProperMotion,
+  formatTime,
+  formatVelocity,
+  parseAngle,
+  parseDistance,
+  parseMass,
+  parseProperMotion,
+  parseTime,
+  parseVelocity,
+} from "@/lib/physics/units";
+import { loadFixture, relativeError } from "./fixtures";
+
+const { values, versions } = loadFixture<{ values: Record<string, number> }>("units.json");
+const ULP4 = 4 * Number.EPSILON;
+
+describe("constants", () => {
+  it("match astropy's IAU constants", () => {
+    // fixture from tests/fixtures/generate_physics.py, astropy constants (IAU 2015 B3, IAU 2012 B2)
+    expect(constants.GM_SUN_M3_PER_S2).toBe(values.GM_sun_m3_s2);
+    expect(constants.SPEED_OF_LIGHT_M_PER_S).toBe(values.c_m_s);
+    expect(constants.AU_M).toBe(values.au_m);
+    expect(constants.SOLAR_RADIUS_M).toBe(values.R_sun_m);
+    expect(relativeError(constants.PARSEC_M, values.pc_m)).toBeLessThan(ULP4);
+    expect(relativeError(constants.SOLAR_MASS_TIME_S, values.geometrizedTimeSolar_s)).toBeLessThan(ULP4);
+    expect(relativeError(constants.SOLAR_MASS_LENGTH_M, values.geometrizedLengthSolar_m)).toBeLessThan(ULP4);
+    console.info(`constants checked against astropy ${versions.astropy}`);
+  });
+
+  it("give GM_sun/c^3 = 4.93 us, so one second of mass is about 203,000 solar masses", () => {
+    // published check value (issue 3; e.g. any GR text: GM_sun/c^3 = 4.925 us)
+    expect(constants.SOLAR_MASS_TIME_S).toBeCloseTo(4.925e-6, 9);
+    expect(1 / constants.SOLAR_MASS_TIME_S).toBeCloseTo(203_000, -3);
+  });
+
+  it("give 2GM/(c^2 R) of about 4 parts per million at the solar surface", () => {
+    // published check value: 2 GM_sun/(c^2 R_sun) = 4.245e-6 (IAU 2015 B3 nominal values)
+    expect((2 * constants.SOLAR_MASS_LENGTH_M) / constants.SOLAR_RADIUS_M).toBeCloseTo(4.245e-6, 9);
+  });
+});
+
+describe("parsers", () => {
+  it("read distances as astropy converts them", () => {
+    // fixture from tests/fixtures/generate_physics.py, astropy units
+    expect(relativeError(parseDistance("8.1 kpc"), values.kpc_pc)).toBeLessThan(ULP4);
+    expect(relativeError(parseDistance("8.1kpc"), values.kpc_pc)).toBeLessThan(ULP4);
+    expect(relativeError(parseDistance("1.3 Gpc"), values.Gpc_pc)).toBeLessThan(ULP4);
+    expect(relativeError(parseDistance("2.1 ly"), values.ly_pc)).toBeLessThan(ULP4);
+    expect(relativeError(parseDistance("1 au"), values.au_pc)).toBeLessThan(ULP4);
+    expect(parseDistance("12", { defaultUnit: "pc" })).toBe(12);
+  });
+
+  it("read angles, including the micro sign and typographic seconds", () => {
+    // fixture from tests/fixtures/generate_physics.py, astropy units
+    expect(relativeError(parseAngle("45 uas"), values.uas_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("45 µas"), values.uas_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("45 μas"), values.uas_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("350 mas"), values.mas_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("1.2 arcsec"), values.arcsec_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("1.2″"), values.arcsec_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("0.3 deg"), values.deg_rad)).toBeLessThan(ULP4);
+    expect(relativeError(parseAngle("0.3°"), values.deg_rad)).toBeLessThan(ULP4);
+  });
+
+  it("read velocities, proper motions and times", () => {
+    // fixture from tests/fixtures/generate_physics.py, astropy units (yr = Julian year)
+    expect(parseVelocity("250 km/s")).toBe(values.kmPerS_mPerS / 1000);
+    expect(relativeError(parseProperMotion("5 mas/yr"), values.masPerYr_radPerS)).toBeLessThan(ULP4);
+    expect(relativeError(parseProperMotion("5 mas yr^-1"), values.masPerYr_radPerS)).toBeLessThan(ULP4);
+    expect(parseTime("1 d")).toBe(values.day_s);
+    expect(parseTime("1 yr")).toBe(values.yr_s);
+    expect(parseTime("3 h")).toBe(10_800);
+  });
+
+  it("read masses, geometrized lengths and times", () => {
+    // GM_sun/c^2 = 1476.6 m and GM_sun/c^3 = 4.925 us (IAU 2015 B3 nominal GM_sun)
+    expect(parseMass("4e6 Msun")).toEqual({ massSolar: 4e6, interpretedAs: "mass" });
+    expect(parseMass("4×10^6 M☉").massSolar).toBe(4e6);
+    expect(parseMass("1.48 km")).toMatchObject({ interpretedAs: "geometrized length" });
+    expect(parseMass("1.48 km").massSolar).toBeCloseTo(1.0023, 4);
+    expect(parseMass("4.9 us").massSolar).toBeCloseTo(0.994825, 6);
+    expect(parseMass("4.9 µs").interpretedAs).toBe("geometrized time");
+    // 1.98841e30 kg = GM_sun / G (CODATA 2018 G)
+    expect(parseMass("1.98841e30 kg").massSolar).toBeCloseTo(1, 5);
+  });
+
+  it("name the quantity in their errors", () => {
+    // common practice: the message names the field's quantity and what was typed
+    expect(() => parseDistance("8 kg")).toThrow("distance: '8 kg' is a mass, not a distance");
+    expect(() => parseAngle("3 km/s")).toThrow("angle: '3 km/s' is a velocity, not an angle");
+    expect(() => parseMass("-2 Msun")).toThrow("mass: '-2 Msun' must be greater than zero");
+    expect(() => parseMass("NaN")).toThrow(QuantityError);
+    expect(() => parseDistance("1e400 pc")).toThrow("is not finite");
+    expect(() => parseDistance("12")).toThrow("has no distance unit");
+    expect(() => parseTime("")).toThrow("time: '' is empty");
+    expect(() => parseProperMotion("5 mas")).toThrow("is an angle, not a proper motion");
+    try {
+      parseVelocity("fast");
+    } catch (error) {
+      expect(error).toBeInstanceOf(QuantityError);
+      expect((error as QuantityError).quantity).toBe("velocity");
+    }
+  });
+});
+
+describe("formatters", () => {
+  it("show values in the chosen unit", () => {
+    // round trips of the parsers above (common practice)
+    expect(formatDistance(8100, "kpc")).toBe("8.1 kpc");
+    expect(formatAngle(parseAngle("45 uas"), "uas")).toBe("45 uas");
+    expect(formatAngle(parseAngle("1.2 arcsec"), "mas")).toBe("1200 mas");
+    expect(formatMass(4e6)).toBe("4e6 Msun");
+    expect(formatMass(1, "km")).toBe("1.477 km");
+    expect(formatMass(1, "us")).toBe("4.925 us");
+    expect(formatVelocity(250, "m/s")).toBe("250000 m/s");
+    expect(formatVelocity(2500, "m/s")).toBe("2.5e6 m/s");
+    expect(formatProperMotion(parseProperMotion("5 mas/yr"))).toBe("5 mas/yr");
+    expect(formatTime(86_400 * 3)).toBe("3 d");
+    expect(() => formatDistance(1, "kg")).toThrow("distance: 'kg' is not a distance unit");
+    expect(() => formatMass(1, "deg")).toThrow("mass: 'deg' is not a mass unit");
+  });
+});
