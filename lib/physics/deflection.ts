@@ -45,6 +45,8 @@ const SERIES_COEFFICIENTS: Float64Array = (() => {
   return coefficients;
 })();
 
+const CRITICAL_IMPACT_OVER_M = 3 * Math.sqrt(3);
+
 /** ln(216 (7 - 4 sqrt 3)) - pi, the constant of the Schwarzschild strong-deflection limit (Bozza 2002). */
 const STRONG_FIELD_CONSTANT = Math.log(216 * (7 - 4 * Math.sqrt(3))) - Math.PI;
 
@@ -96,6 +98,18 @@ export function exactDeflection(b: number, M: number): number {
   if (b >= SERIES_MIN_B_OVER_M * M) return seriesDeflection(M / b);
   const epsilon = criticalExcess(b, M);
   if (!(epsilon > 0)) throw domainError("b", b, `> b_c = 3 sqrt(3) M (smaller b is captured)`);
+  return deflectionFromCriticalExcess(epsilon);
+}
+
+/**
+ * Exact deflection as a function of epsilon = b/b_c - 1 > 0, radians (as exactDeflection, which it
+ * serves; this form keeps full accuracy where b/b_c - 1 is known better than b, e.g. in lens-equation
+ * solvers that work in ln(b/b_c - 1)). Domain: epsilon > 0, or +Infinity (returns 0).
+ */
+export function deflectionFromCriticalExcess(epsilon: number): number {
+  if (!(epsilon > 0)) throw domainError("epsilon", epsilon, "> 0 (b > b_c)");
+  const bOverM = CRITICAL_IMPACT_OVER_M * (1 + epsilon);
+  if (bOverM >= SERIES_MIN_B_OVER_M) return seriesDeflection(1 / bOverM);
   return closedFormDeflection(photonSphereExcessFromCriticalExcess(epsilon));
 }
 
