@@ -1,0 +1,185 @@
+/**
+ * Dormand-Prince 5(4) explicit Runge-Kutta integrator with step-size control and 4th-order dense
+ * output (J. R. Dormand & P. J. Prince 1980, J. Comput. Appl. Math. 6, 19; dense output and step
+ * control as in E. Hairer, S. P. Norsett & G. Wanner, Solving Ordinary Differential Equations I,
+ * 2nd ed. 1993, sect. II.4-II.6), written out for the photon-orbit system of ./ray-tracer,
+ *   w' = v,  v' = 3 (M/b) w^2 - w,  chi' = 2 (M/b) / (w (1 - 2 (M/b) w)) + (M/b) w,
+ * where chi = tau + v/w carries the coordinate time tau = chi - v/w. (tau' = 1/(w^2 (1 - 2 (M/b) w))
+ * itself varies like 1/w^2 far from the lens and, under error control, doubled the step count; v/w
+ * is its flat-space part, cot(phi) on a straight line, and d(v/w)/dsigma = (M/b) w - 1/w^2 follows
+ * from the first integral v^2 = 1 - w^2 + 2 (M/b) w^3.) Scalar stages so that a step allocates nothing and touches no arrays except its dense record
+ * (a general array-based stepper ran this system ~5x slower).
+ */
+
+// Butcher tableau (Dormand & Prince 1980, Table 2; Hairer et al. 1993, Table II.5.2).
+const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
+const A21 = 1 / 5;
+const A31 = 3 / 40, A32 = 9 / 40;
+const A41 = 44 / 45, A42 = -56 / 15, A43 = 32 / 9;
+const A51 = 19372 / 6561, A52 = -25360 / 2187, A53 = 64448 / 6561, A54 = -212 / 729;
+const A61 = 9017 / 3168, A62 = -355 / 33, A63 = 46732 / 5247, A64 = 49 / 176, A65 = -5103 / 18656;
+const A71 = 35 / 384, A73 = 500 / 1113, A74 = 125 / 192, A75 = -2187 / 6784, A76 = 11 / 84;
+// error estimate: 5th-order minus embedded 4th-order weights
+const E1 = 71 / 57600, E3 = -71 / 16695, E4 = 71 / 1920, E5 = -17253 / 339200, E6 = 22 / 525, E7 = -1 / 40;
+// dense output (Hairer et al. 1993, sect. II.6, "contd5")
+const D1 = -12715105075 / 11282082432, D3 = 87487479700 / 32700410799, D4 = -10690763975 / 1880347072;
+const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997945 / 29380423;
+
+/**
+ * Step-size factor SAFETY * error^(-1/4): the exponent 1/4 instead of the textbook 1/5 (Hairer et al.
+ * 1993, eq. II.4.13) costs two square roots instead of Math.pow, which was a third of the step's cost;
+ * on the photon-orbit bench it takes 2% fewer steps, with the same rejection rate.
+ */
+const SAFETY = 0.9;
+const MIN_FACTOR = 0.2;
+const MAX_FACTOR = 10;
+/** Rejected attempts allowed within one step before giving up (step-size underflow guard). */
+const MAX_REJECTIONS = 60;
+
+/** Numbers per dense record: sigma0, 1/h, then 5 coefficients for each of w, v, chi. */
+export const DENSE_RECORD_LENGTH = 17;
+
+/**
+ * Integrator state and dense record for one ray at a time. Usage: start(...), then step() until the
+ * caller's stop condition; each accepted step is recorded until maxSteps, then step() returns false.
+ * Error control: RMS over (w, v, chi) of the local error estimate divided by atol_i + rtol |y_i|
+ * (Hairer et al. 1993, eq. II.4.11) kept <= 1.
+ */
+export class PhotonOrbitIntegrator {
+  readonly rtol: number;
+  readonly maxSteps: number;
+  readonly dense: Float64Array;
+  stepCount = 0;
+  sigma = 0;
+  h = 0;
+  w = 0;
+  v = 0;
+  chi = 0;
+  private massOverB = 0;
+  private threeOverB = 0;
+  private twoOverB = 0;
+  private atolW = 0;
+  private atolV = 0;
+  private atolChi = 0;
+  /** Derivatives at the current point (FSAL: the last stage of the previous step). */
+  private dw1 = 0;
+  private dv1 = 0;
+  private dchi1 = 0;
+
+  constructor(rtol: number, maxSteps: number) {
+    this.rtol = rtol;
+    this.maxSteps = maxSteps;
+    this.dense = new Float64Array(maxSteps * DENSE_RECORD_LENGTH);
+  }
+
+  /** Starts a ray with M/b = massOverB at (w, v, tau = 0) with absolute tolerances and first step h0. */
+  start(massOverB: number, w: number, v: number, atolW: number, atolV: number, atolChi: number, h0: number): void {
+    this.massOverB = massOverB;
+    this.threeOverB = 3 * massOverB;
+    this.twoOverB = 2 * massOverB;
+    this.atolW = atolW;
+    this.atolV = atolV;
+    this.atolChi = atolChi;
+    this.sigma = 0;
+    this.w = w;
+    this.v = v;
+    this.chi = v / w;
+    this.h = h0;
+    this.dw1 = v;
+    this.dv1 = this.threeOverB * w * w - w;
+    this.dchi1 = this.timeRate(w);
+    this.stepCount = 0;
+  }
+
+  /** d chi / d sigma at w. */
+  private timeRate(w: number): number {
+    return this.twoOverB / (w * (1 - this.twoOverB * w)) + this.massOverB * w;
+  }
+
+  /** Takes one accepted step; false when the record is full or the step size underflowed. */
+  step(): boolean {
+    if (this.stepCount >= this.maxSteps) return false;
+    const k3b = this.threeOverB;
+    const k2b = this.twoOverB;
+    const x = this.massOverB;
+    const w0 = this.w, v0 = this.v, chi0 = this.chi;
+    const dw1 = this.dw1, dv1 = this.dv1, dt1 = this.dchi1;
+    for (let attempt = 0; attempt < MAX_REJECTIONS; attempt++) {
+      const h = this.h;
+      let w = w0 + h * A21 * dw1;
+      let v = v0 + h * A21 * dv1;
+      const dw2 = v, dv2 = k3b * w * w - w, dt2 = k2b / (w * (1 - k2b * w)) + x * w;
+      w = w0 + h * (A31 * dw1 + A32 * dw2);
+      v = v0 + h * (A31 * dv1 + A32 * dv2);
+      const dw3 = v, dv3 = k3b * w * w - w, dt3 = k2b / (w * (1 - k2b * w)) + x * w;
+      w = w0 + h * (A41 * dw1 + A42 * dw2 + A43 * dw3);
+      v = v0 + h * (A41 * dv1 + A42 * dv2 + A43 * dv3);
+      const dw4 = v, dv4 = k3b * w * w - w, dt4 = k2b / (w * (1 - k2b * w)) + x * w;
+      w = w0 + h * (A51 * dw1 + A52 * dw2 + A53 * dw3 + A54 * dw4);
+      v = v0 + h * (A51 * dv1 + A52 * dv2 + A53 * dv3 + A54 * dv4);
+      const dw5 = v, dv5 = k3b * w * w - w, dt5 = k2b / (w * (1 - k2b * w)) + x * w;
+      w = w0 + h * (A61 * dw1 + A62 * dw2 + A63 * dw3 + A64 * dw4 + A65 * dw5);
+      v = v0 + h * (A61 * dv1 + A62 * dv2 + A63 * dv3 + A64 * dv4 + A65 * dv5);
+      const dw6 = v, dv6 = k3b * w * w - w, dt6 = k2b / (w * (1 - k2b * w)) + x * w;
+      const w1 = w0 + h * (A71 * dw1 + A73 * dw3 + A74 * dw4 + A75 * dw5 + A76 * dw6);
+      const v1 = v0 + h * (A71 * dv1 + A73 * dv3 + A74 * dv4 + A75 * dv5 + A76 * dv6);
+      const chi1 = chi0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
+      const dw7 = v1, dv7 = k3b * w1 * w1 - w1, dt7 = k2b / (w1 * (1 - k2b * w1)) + x * w1;
+      const ew = (h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7)) / (this.atolW + this.rtol * Math.max(Math.abs(w0), Math.abs(w1)));
+      const ev = (h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7)) / (this.atolV + this.rtol * Math.max(Math.abs(v0), Math.abs(v1)));
+      const et = (h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7)) / (this.atolChi + this.rtol * Math.max(Math.abs(chi0), Math.abs(chi1)));
+      const error = Math.sqrt((ew * ew + ev * ev + et * et) / 3);
+      const factor = error === 0 ? MAX_FACTOR : Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY / Math.sqrt(Math.sqrt(error))));
+      if (!(error <= 1)) {
+        this.h = h * Math.min(1, factor);
+        continue;
+      }
+      const d = this.dense;
+      const base = this.stepCount * DENSE_RECORD_LENGTH;
+      d[base] = this.sigma;
+      d[base + 1] = 1 / h;
+      writeDense(d, base + 2, w0, w1, h, dw1, dw3, dw4, dw5, dw6, dw7);
+      writeDense(d, base + 7, v0, v1, h, dv1, dv3, dv4, dv5, dv6, dv7);
+      writeDense(d, base + 12, chi0, chi1, h, dt1, dt3, dt4, dt5, dt6, dt7);
+      this.sigma += h;
+      this.w = w1;
+      this.v = v1;
+      this.chi = chi1;
+      this.dw1 = dw7;
+      this.dv1 = dv7;
+      this.dchi1 = dt7;
+      this.h = h * factor;
+      this.stepCount++;
+      return true;
+    }
+    return false;
+  }
+}
+
+/** Dense-output coefficients of one component (Hairer et al. 1993, sect. II.6, "contd5"). */
+function writeDense(d: Float64Array, at: number, y0: number, y1: number, h: number, k1: number, k3: number, k4: number, k5: number, k6: number, k7: number): void {
+  const difference = y1 - y0;
+  const bSpline = h * k1 - difference;
+  d[at] = y0;
+  d[at + 1] = difference;
+  d[at + 2] = bSpline;
+  d[at + 3] = difference - h * k7 - bSpline;
+  d[at + 4] = h * (D1 * k1 + D3 * k3 + D4 * k4 + D5 * k5 + D6 * k6 + D7 * k7);
+}
+
+/** Index of each component's coefficients within a dense record. */
+export const DENSE_W = 2;
+export const DENSE_V = 7;
+export const DENSE_CHI = 12;
+
+/**
+ * Dense output at sigma (within recorded step `step`) of the component whose coefficients start at
+ * `component` (DENSE_W, DENSE_V or DENSE_CHI): the 4th-order continuous extension of Hairer et al.
+ */
+export function denseValue(dense: Float64Array, step: number, component: number, sigma: number): number {
+  const base = step * DENSE_RECORD_LENGTH;
+  const theta = (sigma - dense[base]) * dense[base + 1];
+  const theta1 = 1 - theta;
+  const r = base + component;
+  return dense[r] + theta * (dense[r + 1] + theta1 * (dense[r + 2] + theta * (dense[r + 3] + theta1 * dense[r + 4])));
+}

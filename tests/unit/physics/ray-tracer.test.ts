@@ -1,0 +1,139 @@
+import { describe, expect, it } from "vitest";
+import { exactDeflection } from "@/lib/physics/deflection";
+import { CAPTURE_MARGIN, traceRay, traceRayBundle } from "@/lib/physics/ray-tracer";
+
+const BC = 3 * Math.sqrt(3);
+
+function radiusAt(xy: Float64Array, i: number): number {
+  return Math.hypot(xy[2 * i], xy[2 * i + 1]);
+}
+
+describe("traceRay", () => {
+  it("starts at (-R, b) and ends at the same radius when it escapes", () => {
+    // the geometry of the API contract (common practice)
+    const ray = traceRay(10, 1);
+    expect(ray.count).toBe(512);
+    expect(ray.xy.length).toBe(1024);
+    expect(ray.xy[0]).toBeCloseTo(-60, 12);
+    expect(ray.xy[1]).toBeCloseTo(10, 12);
+    expect(ray.t[0]).toBe(0);
+    expect(radiusAt(ray.xy, 511)).toBeCloseTo(Math.hypot(60, 10), 9);
+    expect(ray.fate).toBe("escaped");
+    expect(ray.halfTurns).toBe(1);
+  });
+
+  it("gives deflections that agree with the closed form to 1e-9", () => {
+    // exactDeflection (Darwin 1959 closed form, itself checked against mpmath fixtures)
+    let worstAbsolute = 0;
+    let worstRelative = 0;
+    for (const b of [5.4, 5.6, 6, 8, 10, 20, 29.5, 45, 100, 1000]) {
+      const ray = traceRay(b, 1);
+      const exact = exactDeflection(b, 1);
+      worstAbsolute = Math.max(worstAbsolute, Math.abs(ray.deflection - exact));
+      if (exact > 0.1) worstRelative = Math.max(worstRelative, Math.abs(ray.deflection - exact) / exact);
+    }
+    console.info(`traceRay: largest deflection error ${worstAbsolute.toExponential(2)} rad, ${worstRelative.toExponential(2)} relative for alpha > 0.1, at rtol 1e-10`);
+    expect(worstAbsolute).toBeLessThan(1e-9);
+    expect(worstRelative).toBeLessThan(1e-9);
+  });
+
+  it("conserves the photon's first integral along the sampled path", () => {
+    // (du/dphi)^2 + u^2 - 2 M u^3 = 1/b^2 (Darwin 1959): check via r(phi) finite differences
+    const b = 7;
+    const ray = traceRay(b, 1, { samples: 4096 });
+    let worst = 0;
+    for (let i = 1; i < 4095; i++) {
+      const phi = (k: number) => Math.atan2(ray.xy[2 * k + 1], ray.xy[2 * k]);
+      const u = (k: number) => 1 / radiusAt(ray.xy, k);
+      const dPhi = phi(i + 1) - phi(i - 1);
+      const dudphi = (u(i + 1) - u(i - 1)) / dPhi;
+      const invB2 = dudphi * dudphi + u(i) ** 2 - 2 * u(i) ** 3;
+      worst = Math.max(worst, Math.abs(invB2 * b * b - 1));
+    }
+    expect(worst).toBeLessThan(1e-5);
+  });
+
+  it("gives coordinate time close to the flat travel time far from the lens", () => {
+    // weak field: t ~ path length + Shapiro excess 2M ln(...) (Shapiro 1964), order 10 M here
+    const ray = traceRay(50, 1, { startRadius: 1000 });
+    const flat = 2 * 1000;
+    expect(ray.t[ray.count - 1]).toBeGreaterThan(flat);
+    expect(ray.t[ray.count - 1] - flat).toBeLessThan(40);
+    for (let i = 1; i < ray.count; i++) expect(ray.t[i]).toBeGreaterThan(ray.t[i - 1]);
+  });
+
+  it("captures rays below b_c at r = 2M (1 + margin)", () => {
+    // Darwin 1959: b < 3 sqrt(3) M falls in
+    for (const b of [0, 1, 5, BC * (1 - 1e-3)]) {
+      const ray = traceRay(b, 1);
+      expect(ray.fate === "captured" || ray.fate === "winding").toBe(true);
+      expect(ray.deflection).toBeNaN();
+      expect(radiusAt(ray.xy, ray.count - 1)).toBeCloseTo(2 * (1 + CAPTURE_MARGIN), 8);
+    }
+    expect(traceRay(3, 1).fate).toBe("captured");
+    expect(traceRay(0, 1).t[511]).toBeGreaterThan(58);
+  });
+
+  it("marks rays that circle the photon sphere as winding and counts half-turns", () => {
+    // alpha ~ -ln(b/b_c - 1) - 0.40 (Bozza 2002): at b/b_c - 1 = 1e-6 the ray sweeps ~ pi + 13.4 rad
+    const ray = traceRay(BC * (1 + 1e-6), 1);
+    expect(ray.fate).toBe("winding");
+    expect(ray.deflection).toBeNaN();
+    expect(ray.halfTurns).toBe(Math.floor((Math.PI + exactDeflection(BC * (1 + 1e-6), 1) - 0.17) / Math.PI));
+    const capped = traceRay(BC * (1 + 1e-15), 1, { maxHalfTurns: 4 });
+    expect(capped.fate).toBe("winding");
+    expect(capped.halfTurns).toBe(4);
+  });
+
+  it("mirrors negative impact parameters", () => {
+    // symmetry y -> -y of the equatorial problem (common practice)
+    const up = traceRay(8, 1);
+    const down = traceRay(-8, 1);
+    expect(down.deflection).toBe(up.deflection);
+    expect(down.xy[101]).toBe(-up.xy[101]);
+    expect(down.xy[100]).toBe(up.xy[100]);
+  });
+
+  it("scales with M", () => {
+    // geometrized units: the path in units of M depends on b/M only
+    const a = traceRay(20, 2, { startRadius: 120 });
+    const b = traceRay(10, 1, { startRadius: 60 });
+    expect(a.deflection).toBeCloseTo(b.deflection, 14);
+    expect(a.xy[600]).toBeCloseTo(b.xy[600], 9);
+  });
+
+  it("rejects bad arguments", () => {
+    // common practice: RangeError naming the argument and its domain
+    expect(() => traceRay(NaN, 1)).toThrow(/b must be finite/);
+    expect(() => traceRay(Infinity, 1)).toThrow(RangeError);
+    expect(() => traceRay(5, 0)).toThrow(/M must be/);
+    expect(() => traceRay(5, 1, { samples: 1 })).toThrow(/options.samples/);
+    expect(() => traceRay(5, 1, { rtol: 0 })).toThrow(/options.rtol/);
+    expect(() => traceRay(5, 1, { startRadius: 3 })).toThrow(/options.startRadius/);
+  });
+});
+
+describe("traceRayBundle", () => {
+  it("packs every ray into one buffer, samples points each, matching traceRay", () => {
+    // contract of the bundle (common practice); the same integrator as traceRay
+    const bs = new Float64Array([-40, -3, 0, 5.3, 12, 40]);
+    const bundle = traceRayBundle(bs, 1, { samples: 64 });
+    expect(bundle.samples).toBe(64);
+    expect(bundle.xy.length).toBe(6 * 64 * 2);
+    expect(bundle.t.length).toBe(6 * 64);
+    expect(Array.from(bundle.fates)).toEqual([0, 1, 1, 2, 0, 0]);
+    const single = traceRay(12, 1, { samples: 64, startRadius: 80 });
+    expect(bundle.deflections[4]).toBe(single.deflection);
+    expect(bundle.xy[4 * 128 + 50]).toBe(single.xy[50]);
+    expect(bundle.t[4 * 64 + 30]).toBe(single.t[30]);
+    expect(bundle.xy[0]).toBeCloseTo(-80, 12);
+    expect(Number.isNaN(bundle.deflections[1])).toBe(true);
+  });
+
+  it("handles an empty bundle", () => {
+    // edge case (common practice)
+    const bundle = traceRayBundle(new Float64Array(0), 1);
+    expect(bundle.xy.length).toBe(0);
+    expect(bundle.samples).toBe(512);
+  });
+});
