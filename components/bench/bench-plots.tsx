@@ -1,0 +1,55 @@
+"use client";
+
+import { useMemo } from "react";
+import type { BenchResults } from "@/lib/bench/compute-results";
+import { angleInUnit, naturalAngleUnit, unitLabel } from "@/lib/bench/display-units";
+import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
+import { AstrometricTrackPlot } from "@/components/plots/astrometric-track-plot";
+import { DeflectionPlot } from "@/components/plots/deflection-plot";
+import { LensPlaneDiagram } from "@/components/plots/lens-plane-diagram";
+import { LightCurvePlot } from "@/components/plots/light-curve-plot";
+
+const PLOT_WIDTH = 540;
+const PLOT_HEIGHT = 340;
+
+function PlotCard({ children, testId }: { children: React.ReactNode; testId: string }) {
+  return (
+    <figure data-testid={testId} className="overflow-x-auto rounded-md border border-void-edge bg-void-raised p-2">
+      {children}
+    </figure>
+  );
+}
+
+/** The four plots of the sketch; the deflection curves are in units of M and never change. */
+export function BenchPlots({ results }: { results: BenchResults }) {
+  const curves = useMemo(() => deflectionCurves(), []);
+  const event = results.event;
+  const eventPlots = useMemo(() => (event === undefined ? undefined : { light: lightCurve(event), track: astrometricTrack(event) }), [event]);
+  const thetaERad = results.lensPlane.thetaERad;
+  const angleUnit = naturalAngleUnit(thetaERad);
+  const thetaEInUnit = angleInUnit(thetaERad, angleUnit);
+  // The centroid shift is ~θ_E/3: a finer unit often reads better there.
+  const shiftUnit = naturalAngleUnit(thetaERad / 3);
+  return (
+    <section aria-label="Plots" className="grid gap-4 xl:grid-cols-2">
+      <PlotCard testId="plot-lens-plane">
+        <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={thetaEInUnit} unitLabel={unitLabel(angleUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+      </PlotCard>
+      <PlotCard testId="plot-deflection">
+        <DeflectionPlot curves={curves} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+      </PlotCard>
+      {eventPlots !== undefined ? (
+        <>
+          <PlotCard testId="plot-light-curve">
+            <LightCurvePlot lightCurve={eventPlots.light} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+          </PlotCard>
+          <PlotCard testId="plot-astrometric-track">
+            <AstrometricTrackPlot track={eventPlots.track} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+          </PlotCard>
+        </>
+      ) : (
+        <p className="text-sm text-dusk-dim xl:col-span-2">The light curve and astrometric track are drawn for a compact (point) lens.</p>
+      )}
+    </section>
+  );
+}

@@ -1,0 +1,164 @@
+"use client";
+
+import dynamic from "next/dynamic";
+import { useCallback, useEffect, useMemo, useRef, useState } from "react";
+import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
+import { parseBundle } from "@/lib/bench/parse-sketch";
+import type { Sketch } from "@/lib/bench/sketch-state";
+import { fateStyles } from "@/components/scene/fate-styles";
+import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
+import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
+
+const RayBundleCanvas = dynamic(() => import("@/components/scene/ray-bundle-canvas"), {
+  ssr: false,
+  loading: () => <p className="p-4 text-sm text-dusk-dim">Loading the 3D view…</p>,
+});
+
+/** The mark set when a bundle first appears on screen (read by the browser benchmark). */
+export const BUNDLE_DRAWN_MARK = "bench:bundle-drawn";
+
+/** Start radius of the view before the first bundle, units of M (as the demo bundle's). */
+const INITIAL_START_RADIUS_M = 30;
+
+interface RayBundlePanelProps {
+  sketch: Sketch;
+  onFieldChange: FieldChange;
+}
+
+function FateLegend({ bundle }: { bundle?: AssembledBundle }) {
+  return (
+    <ul aria-label="Rays by fate" className="flex flex-wrap gap-x-6 gap-y-1 text-sm">
+      {RAY_FATES.map((fate) => {
+        const style = fateStyles[fate];
+        return (
+          <li key={fate} className="flex items-center gap-2">
+            <svg width="36" height="8" aria-hidden="true">
+              <line x1="0" y1="4" x2="36" y2="4" stroke={style.color} strokeWidth="2.5" strokeDasharray={style.legendDash} />
+            </svg>
+            <span>
+              {style.label}: <span className="font-mono text-glint" data-testid={`fate-count-${fate}`}>{bundle?.fateCounts[fate] ?? "—"}</span>
+            </span>
+          </li>
+        );
+      })}
+      <li className="flex items-center gap-2">
+        <svg width="36" height="8" aria-hidden="true">
+          <line x1="0" y1="4" x2="36" y2="4" stroke="#f4f1ea" strokeWidth="1" />
+        </svg>
+        Wavefronts (equal coordinate time)
+      </li>
+    </ul>
+  );
+}
+
+/** The 3D ray bundle: its own inputs (kept in the URL like the rest), the trace control and the view. */
+export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
+  const parsed = useMemo(() => parseBundle(sketch), [sketch]);
+  const fieldErrors = parsed.ok ? {} : parsed.fieldErrors;
+  const { bundle, isTracing, progress, error, trace, cancel } = useRayTrace();
+  const canvasRef = useRef<HTMLCanvasElement | undefined>(undefined);
+  const [drawnBundle, setDrawnBundle] = useState<AssembledBundle | undefined>(undefined);
+
+  const parsedBundle = parsed.ok ? parsed.bundle : undefined;
+  const startTrace = useCallback(() => {
+    if (parsedBundle !== undefined) void trace(parsedBundle);
+  }, [parsedBundle, trace]);
+
+  // A shared link should show its bundle without a click; later traces are the user's to start.
+  const hasAutoTraced = useRef(false);
+  useEffect(() => {
+    if (hasAutoTraced.current || parsedBundle === undefined) return;
+    hasAutoTraced.current = true;
+    startTrace();
+  }, [parsedBundle, startTrace]);
+
+  // Changing a ray input makes the bundle in flight stale, so it never lands over the new inputs.
+  const inputsKey = `${sketch.rays}|${sketch.bmin}|${sketch.bmax}|${sketch.layout}`;
+  const tracedKey = useRef(inputsKey);
+  useEffect(() => {
+    if (tracedKey.current === inputsKey) return;
+    tracedKey.current = inputsKey;
+    cancel();
+  }, [inputsKey, cancel]);
+
+  const onBundleDrawn = useCallback((drawn: AssembledBundle) => {
+    performance.mark(BUNDLE_DRAWN_MARK);
+    performance.measure("bench:trace-to-drawn", TRACE_START_MARK, BUNDLE_DRAWN_MARK);
+    setDrawnBundle(drawn);
+  }, []);
+
+  const savePng = () => {
+    const canvas = canvasRef.current;
+    if (canvas === undefined) return;
+    const link = document.createElement("a");
+    link.href = canvas.toDataURL("image/png");
+    link.download = `arcwright-ray-bundle-${bundle?.rayCount ?? 0}-rays.png`;
+    link.click();
+  };
+
+  const text = sketchTextFields(sketch, fieldErrors, onFieldChange);
+
+  return (
+    <section aria-label="Ray bundle" className="space-y-3 rounded-md border border-void-edge bg-void-raised p-4">
+      <h2 className="text-base font-semibold text-dusk">Ray bundle: exact light paths past the mass</h2>
+      <p className="text-sm text-dusk-dim">
+        Lengths in units of M = GM/c². Black: the horizon (r = 2M); pink wire: the photon sphere (r = 3M). Rays with b below
+        b_c = 3√3 M ≈ 5.196 M are captured. Drag to turn the view, scroll to zoom.
+      </p>
+      <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
+        {text("rays", "Number of rays", "1 to 5000")}
+        {text("bmin", "Smallest impact parameter b (M)", "a plain number, e.g. 0.5")}
+        {text("bmax", "Largest impact parameter b (M)", "a plain number, up to 100")}
+        <ChoiceField
+          legend="Bundle shape"
+          value={sketch.layout}
+          onChange={(value) => onFieldChange("layout", value)}
+          options={[
+            { value: "fan", label: "Planar fan" },
+            { value: "cylinder", label: "Full cylinder" },
+          ]}
+        />
+      </div>
+      <div className="flex flex-wrap items-center gap-3">
+        <button
+          type="button"
+          onClick={startTrace}
+          disabled={parsedBundle === undefined}
+          className="rounded-md bg-ember px-4 py-1.5 font-semibold text-void hover:bg-ember-strong disabled:opacity-50"
+        >
+          Trace rays
+        </button>
+        <button
+          type="button"
+          onClick={savePng}
+          disabled={drawnBundle === undefined}
+          className="rounded-md border border-void-edge px-3 py-1.5 text-sm text-dusk hover:border-ember disabled:opacity-50"
+        >
+          Save view as PNG
+        </button>
+        <span role="status" aria-live="polite" className="text-sm text-dusk-dim" data-testid="trace-status" data-drawn-rays={drawnBundle?.rayCount ?? 0}>
+          {isTracing ? "Tracing…" : drawnBundle !== undefined ? `${drawnBundle.rayCount} rays drawn` : ""}
+        </span>
+        {isTracing && progress !== undefined ? (
+          <progress aria-label="Tracing progress" value={progress} max={1} className="h-2 w-48 accent-ember" />
+        ) : null}
+      </div>
+      {error !== undefined ? (
+        <p role="alert" className="text-sm text-alarm">
+          Tracing failed: {error}
+        </p>
+      ) : null}
+      <FateLegend bundle={bundle} />
+      <div className="h-[480px] overflow-hidden rounded border border-void-edge">
+        <RayBundleCanvas
+          bundle={bundle}
+          startRadiusM={INITIAL_START_RADIUS_M}
+          onCanvasReady={(canvas) => {
+            canvasRef.current = canvas;
+          }}
+          onBundleDrawn={onBundleDrawn}
+        />
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,41 @@
+import { extent, line, scaleLinear } from "d3";
+import type { CurvePoint, LightCurve } from "@/lib/bench/plot-data";
+import { defaultMargins, Marker, PlotAxes, PlotLegend, PlotSurface } from "./plot-axes";
+import { dashPatterns, plotPalette } from "./plot-palette";
+
+interface LightCurvePlotProps {
+  lightCurve: LightCurve;
+  width: number;
+  height: number;
+}
+
+/** Point-lens magnification over the campaign, with the magnification seen at each epoch. */
+export function LightCurvePlot({ lightCurve, width, height }: LightCurvePlotProps) {
+  const margins = defaultMargins;
+  const x = scaleLinear().domain([0, lightCurve.campaignDays]).range([margins.left, width - margins.right]);
+  const [low, high] = extent(lightCurve.curve, (point) => point.y) as [number, number];
+  const y = scaleLinear().domain([Math.min(1, low), high * 1.08]).nice().range([height - margins.bottom, margins.top]);
+  const path = line<CurvePoint>().x((point) => x(point.x)).y((point) => y(point.y));
+  const isPeakInCampaign = lightCurve.peakTimeDays >= 0 && lightCurve.peakTimeDays <= lightCurve.campaignDays;
+  return (
+    <PlotSurface width={width} height={height} label="Microlensing light curve">
+      <PlotAxes x={x} y={y} width={width} height={height} margins={margins} xLabel="time from campaign start (d)" yLabel="magnification A" title="Light curve (point source, point lens)" />
+      {isPeakInCampaign ? (
+        <line x1={x(lightCurve.peakTimeDays)} x2={x(lightCurve.peakTimeDays)} y1={margins.top} y2={height - margins.bottom} stroke={plotPalette.frame} strokeDasharray={dashPatterns.dotted} />
+      ) : null}
+      <path d={path(lightCurve.curve) ?? ""} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2} />
+      {lightCurve.epochs.map((epoch) => (
+        <Marker key={epoch.x} shape="circle" cx={x(epoch.x)} cy={y(epoch.y)} size={4} color={plotPalette.orange} isHollow />
+      ))}
+      <PlotLegend
+        x={margins.left + 8}
+        y={margins.top + 6}
+        entries={[
+          { label: "A(t)", color: plotPalette.skyBlue },
+          { label: "epochs at the cadence", color: plotPalette.orange, marker: "circle" },
+          { label: "peak t0", color: plotPalette.frame, dash: dashPatterns.dotted },
+        ]}
+      />
+    </PlotSurface>
+  );
+}

@@ -1,0 +1,133 @@
+import type { ScaleContinuousNumeric } from "d3";
+import { plotFont, plotPalette } from "./plot-palette";
+
+export interface PlotMargins {
+  top: number;
+  right: number;
+  bottom: number;
+  left: number;
+}
+
+export const defaultMargins: PlotMargins = { top: 28, right: 16, bottom: 46, left: 62 };
+
+type Scale = ScaleContinuousNumeric<number, number>;
+
+/** Tick labels for a scale: d3's own format, which writes powers of ten compactly on log scales. */
+function ticksOf(scale: Scale, count: number): { value: number; label: string }[] {
+  const format = scale.tickFormat(count);
+  return scale.ticks(count).map((value) => ({ value, label: format(value) }));
+}
+
+interface AxesProps {
+  x: Scale;
+  y: Scale;
+  width: number;
+  height: number;
+  margins: PlotMargins;
+  xLabel: string;
+  yLabel: string;
+  xTicks?: number;
+  yTicks?: number;
+  title: string;
+}
+
+/** Frame, grid, ticks and axis labels (with units) drawn from d3 scales, as SVG elements. */
+export function PlotAxes({ x, y, width, height, margins, xLabel, yLabel, xTicks = 6, yTicks = 5, title }: AxesProps) {
+  const [x0, x1] = [margins.left, width - margins.right];
+  const [y0, y1] = [height - margins.bottom, margins.top];
+  const xTickList = ticksOf(x, xTicks).filter((tick) => x(tick.value) >= x0 - 0.5 && x(tick.value) <= x1 + 0.5);
+  const yTickList = ticksOf(y, yTicks).filter((tick) => y(tick.value) <= y0 + 0.5 && y(tick.value) >= y1 - 0.5);
+  return (
+    <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
+      <text x={margins.left} y={16} fontSize={13} fontWeight={600}>
+        {title}
+      </text>
+      {xTickList.map((tick) => (
+        <g key={`x${tick.value}`}>
+          <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y1} stroke={plotPalette.grid} />
+          <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y0 + 4} stroke={plotPalette.frame} />
+          <text x={x(tick.value)} y={y0 + 16} textAnchor="middle">
+            {tick.label}
+          </text>
+        </g>
+      ))}
+      {yTickList.map((tick) => (
+        <g key={`y${tick.value}`}>
+          <line x1={x0} x2={x1} y1={y(tick.value)} y2={y(tick.value)} stroke={plotPalette.grid} />
+          <line x1={x0 - 4} x2={x0} y1={y(tick.value)} y2={y(tick.value)} stroke={plotPalette.frame} />
+          <text x={x0 - 7} y={y(tick.value) + 4} textAnchor="end">
+            {tick.label}
+          </text>
+        </g>
+      ))}
+      <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} fill="none" stroke={plotPalette.frame} />
+      <text x={(x0 + x1) / 2} y={height - 8} textAnchor="middle" fontSize={12}>
+        {xLabel}
+      </text>
+      <text transform={`translate(14 ${(y0 + y1) / 2}) rotate(-90)`} textAnchor="middle" fontSize={12}>
+        {yLabel}
+      </text>
+    </g>
+  );
+}
+
+export interface LegendEntry {
+  label: string;
+  color: string;
+  dash?: string;
+  marker?: "circle" | "square" | "triangle" | "diamond" | "cross";
+}
+
+/** A marker shape centred on (cx, cy), so series differ by shape as well as colour. */
+export function Marker({ shape, cx, cy, size, color, isHollow = false }: { shape: NonNullable<LegendEntry["marker"]>; cx: number; cy: number; size: number; color: string; isHollow?: boolean }) {
+  const fill = isHollow ? "none" : color;
+  const r = size / 2;
+  switch (shape) {
+    case "circle":
+      return <circle cx={cx} cy={cy} r={r} fill={fill} stroke={color} strokeWidth={1.5} />;
+    case "square":
+      return <rect x={cx - r} y={cy - r} width={size} height={size} fill={fill} stroke={color} strokeWidth={1.5} />;
+    case "triangle":
+      return <path d={`M${cx},${cy - r} L${cx + r},${cy + r} L${cx - r},${cy + r} Z`} fill={fill} stroke={color} strokeWidth={1.5} />;
+    case "diamond":
+      return <path d={`M${cx},${cy - r} L${cx + r},${cy} L${cx},${cy + r} L${cx - r},${cy} Z`} fill={fill} stroke={color} strokeWidth={1.5} />;
+    case "cross":
+      return <path d={`M${cx - r},${cy - r} L${cx + r},${cy + r} M${cx - r},${cy + r} L${cx + r},${cy - r}`} stroke={color} strokeWidth={2} />;
+  }
+}
+
+/** A boxed legend at (x, y): a line sample (with its dash) and/or a marker per entry. */
+export function PlotLegend({ entries, x, y }: { entries: LegendEntry[]; x: number; y: number }) {
+  const rowHeight = 15;
+  const width = 12 + 30 + 6 + Math.max(...entries.map((entry) => entry.label.length)) * 5.6;
+  return (
+    <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
+      <rect x={x} y={y} width={width} height={entries.length * rowHeight + 8} fill={plotPalette.ground} fillOpacity={0.85} stroke={plotPalette.grid} />
+      {entries.map((entry, index) => {
+        const cy = y + 11 + index * rowHeight;
+        return (
+          <g key={entry.label}>
+            {entry.marker === undefined ? (
+              <line x1={x + 6} x2={x + 36} y1={cy} y2={cy} stroke={entry.color} strokeWidth={2} strokeDasharray={entry.dash} />
+            ) : (
+              <Marker shape={entry.marker} cx={x + 21} cy={cy} size={7} color={entry.color} />
+            )}
+            <text x={x + 42} y={cy + 4}>
+              {entry.label}
+            </text>
+          </g>
+        );
+      })}
+    </g>
+  );
+}
+
+/** The self-contained SVG of one plot: its own size, dark ground and accessible name. */
+export function PlotSurface({ width, height, label, children }: { width: number; height: number; label: string; children: React.ReactNode }) {
+  return (
+    <svg xmlns="http://www.w3.org/2000/svg" width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={label}>
+      <rect width={width} height={height} fill={plotPalette.ground} />
+      {children}
+    </svg>
+  );
+}

@@ -1,0 +1,111 @@
+/**
+ * The series the bench plots draw, sampled from lib/physics: deflection against impact parameter,
+ * the Paczyński light curve with the campaign's epochs, and the astrometric centroid track.
+ */
+
+import {
+  criticalImpactParameter,
+  DAY_S,
+  exactDeflection,
+  paczynskiMagnification,
+  pointLensImages,
+  strongFieldDeflection,
+  weakFieldDeflection,
+} from "@/lib/physics";
+import type { MicrolensingEvent } from "./compute-results";
+
+export interface CurvePoint {
+  x: number;
+  y: number;
+}
+
+export interface DeflectionCurves {
+  criticalBOverM: number;
+  exact: CurvePoint[];
+  weakField: Record<1 | 2 | 3, CurvePoint[]>;
+  strongField: CurvePoint[];
+}
+
+const DEFLECTION_POINTS = 240;
+/** From just outside b_c (where α is already ~7 rad) out to where α is a few parts in 10^4. */
+const DEFLECTION_MIN_EXCESS = 1e-3;
+const DEFLECTION_MAX_B_OVER_M = 1e4;
+/** The strong-deflection limit is drawn only near b_c, where it applies. */
+const STRONG_FIELD_MAX_B_OVER_BC = 3;
+
+/** α(b) on log axes for b/M from b_c (1 + 1e-3) to 1e4, in units of M (the curves do not depend on M). */
+export function deflectionCurves(): DeflectionCurves {
+  const criticalBOverM = criticalImpactParameter(1);
+  const logLow = Math.log10(criticalBOverM * (1 + DEFLECTION_MIN_EXCESS));
+  const logHigh = Math.log10(DEFLECTION_MAX_B_OVER_M);
+  const exact: CurvePoint[] = [];
+  const weakField: DeflectionCurves["weakField"] = { 1: [], 2: [], 3: [] };
+  const strongField: CurvePoint[] = [];
+  for (let i = 0; i < DEFLECTION_POINTS; i++) {
+    const b = 10 ** (logLow + ((logHigh - logLow) * i) / (DEFLECTION_POINTS - 1));
+    exact.push({ x: b, y: exactDeflection(b, 1) });
+    for (const order of [1, 2, 3] as const) weakField[order].push({ x: b, y: weakFieldDeflection(b, 1, order) });
+    if (b <= STRONG_FIELD_MAX_B_OVER_BC * criticalBOverM) {
+      const alpha = strongFieldDeflection(b, 1);
+      if (alpha > 0) strongField.push({ x: b, y: alpha });
+    }
+  }
+  return { criticalBOverM, exact, weakField, strongField };
+}
+
+export interface LightCurve {
+  /** Magnification against days from the campaign start. */
+  curve: CurvePoint[];
+  /** The campaign's epochs (every cadence interval) with the magnification each would see. */
+  epochs: CurvePoint[];
+  peakTimeDays: number;
+  campaignDays: number;
+}
+
+const LIGHT_CURVE_POINTS = 400;
+/** An epoch list longer than this is thinned for drawing (the verdict still counts every epoch). */
+const MAX_DRAWN_EPOCHS = 600;
+
+export function lightCurve(event: MicrolensingEvent): LightCurve {
+  const { campaignS, cadenceS, peakTimeS, einsteinTimeS, u0ThetaE } = event;
+  const curve: CurvePoint[] = [];
+  for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
+    const timeS = (campaignS * i) / (LIGHT_CURVE_POINTS - 1);
+    curve.push({ x: timeS / DAY_S, y: paczynskiMagnification(timeS, peakTimeS, einsteinTimeS, u0ThetaE) });
+  }
+  const epochCount = Math.floor(campaignS / cadenceS) + 1;
+  const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
+  const epochs: CurvePoint[] = [];
+  for (let k = 0; k < epochCount; k += stride) {
+    const timeS = k * cadenceS;
+    epochs.push({ x: timeS / DAY_S, y: paczynskiMagnification(timeS, peakTimeS, einsteinTimeS, u0ThetaE) });
+  }
+  return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S };
+}
+
+/** Centroid shift on the sky in units of θ_E: along the lens–source vector (τ, u0), length u/(u²+2). */
+export interface AstrometricTrack {
+  track: CurvePoint[];
+  epochs: CurvePoint[];
+}
+
+function centroidAt(timeS: number, event: MicrolensingEvent): CurvePoint {
+  const tau = (timeS - event.peakTimeS) / event.einsteinTimeS;
+  const u = Math.hypot(tau, event.u0ThetaE);
+  const shift = pointLensImages(u).centroidShift;
+  return { x: (shift * tau) / u, y: (shift * event.u0ThetaE) / u };
+}
+
+/** The track from t0 − 6 t_E to t0 + 6 t_E (nearly the whole ellipse), and the campaign's epochs on it. */
+export function astrometricTrack(event: MicrolensingEvent): AstrometricTrack {
+  const track: CurvePoint[] = [];
+  const span = 6 * event.einsteinTimeS;
+  for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
+    track.push(centroidAt(event.peakTimeS - span + (2 * span * i) / (LIGHT_CURVE_POINTS - 1), event));
+  }
+  const epochCount = Math.floor(event.campaignS / event.cadenceS) + 1;
+  const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
+  const epochs: CurvePoint[] = [];
+  for (let k = 0; k < epochCount; k += stride) epochs.push(centroidAt(k * event.cadenceS, event));
+  return { track, epochs };
+}

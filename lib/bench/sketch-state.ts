@@ -1,0 +1,101 @@
+/**
+ * The lens-bench sketch as it lives in the URL: every input is kept as the text the astronomer typed
+ * (with its unit), so a shared link reproduces the sketch character for character. Parsing into
+ * numbers happens in `parse-sketch.ts`; this module only validates the shape of the query string.
+ */
+
+import { z } from "zod";
+
+/** Longest text a field accepts from a URL; far above any real quantity, short enough to bound work. */
+const MAX_FIELD_CHARS = 80;
+
+/** The demo sketch: a Galactic microlensing event by a half-solar-mass star seen with an interferometer. */
+export const demoSketch = {
+  lens: "point",
+  mass: "0.5 Msun",
+  sigma: "220 km/s",
+  geometry: "distance",
+  dl: "4 kpc",
+  ds: "8 kpc",
+  zl: "0.5",
+  zs: "2",
+  h0: "70",
+  om0: "0.3",
+  beta: "0.3",
+  betaUnit: "thetaE",
+  mu: "6 mas/yr",
+  t0: "45 d",
+  u0: "0.2",
+  resolution: "interferometer",
+  fwhm: "50 mas",
+  lambda: "2.2 um",
+  baseline: "130 m",
+  cadence: "1 d",
+  campaign: "90 d",
+  rays: "2000",
+  bmin: "0.5",
+  bmax: "15",
+  layout: "fan",
+} as const;
+
+function textField(key: keyof typeof demoSketch) {
+  return z.string().trim().max(MAX_FIELD_CHARS).catch(demoSketch[key]);
+}
+
+function choiceField<const T extends readonly [string, ...string[]]>(options: T, fallback: T[number]) {
+  return z.enum(options).catch(fallback);
+}
+
+export const lensModels = ["point", "sis"] as const;
+export const geometryModes = ["distance", "redshift"] as const;
+export const betaUnits = ["thetaE", "angle"] as const;
+export const resolutionModes = ["fwhm", "interferometer"] as const;
+export const rayLayouts = ["fan", "cylinder"] as const;
+
+/** Query-string schema; a missing or malformed key falls back to the demo value, never to an error page. */
+export const sketchSchema = z.object({
+  lens: choiceField(lensModels, demoSketch.lens),
+  mass: textField("mass"),
+  sigma: textField("sigma"),
+  geometry: choiceField(geometryModes, demoSketch.geometry),
+  dl: textField("dl"),
+  ds: textField("ds"),
+  zl: textField("zl"),
+  zs: textField("zs"),
+  h0: textField("h0"),
+  om0: textField("om0"),
+  beta: textField("beta"),
+  betaUnit: choiceField(betaUnits, demoSketch.betaUnit),
+  mu: textField("mu"),
+  t0: textField("t0"),
+  u0: textField("u0"),
+  resolution: choiceField(resolutionModes, demoSketch.resolution),
+  fwhm: textField("fwhm"),
+  lambda: textField("lambda"),
+  baseline: textField("baseline"),
+  cadence: textField("cadence"),
+  campaign: textField("campaign"),
+  rays: textField("rays"),
+  bmin: textField("bmin"),
+  bmax: textField("bmax"),
+  layout: choiceField(rayLayouts, demoSketch.layout),
+});
+
+export type Sketch = z.infer<typeof sketchSchema>;
+export type SketchField = keyof Sketch;
+
+/** Next's `searchParams` (or any record of query values) to a complete sketch; repeated keys use the first. */
+export function sketchFromSearchParams(params: Record<string, string | string[] | undefined>): Sketch {
+  const firstValues: Record<string, string | undefined> = {};
+  for (const [key, value] of Object.entries(params)) {
+    firstValues[key] = Array.isArray(value) ? value[0] : value;
+  }
+  return sketchSchema.parse(firstValues);
+}
+
+/** The query string that reproduces `sketch` (all keys, in schema order, so links are stable). */
+export function sketchToQueryString(sketch: Sketch): string {
+  const query = new URLSearchParams();
+  for (const key of Object.keys(sketchSchema.shape) as SketchField[]) query.set(key, sketch[key]);
+  return query.toString();
+}

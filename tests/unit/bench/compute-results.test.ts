@@ -1,0 +1,69 @@
+import { describe, expect, it } from "vitest";
+import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
+import { parseSketch } from "@/lib/bench/parse-sketch";
+import { demoSketch, type Sketch } from "@/lib/bench/sketch-state";
+import { isSolarSketch } from "@/lib/bench/solar-caution";
+import { ARCSECOND_RAD, einsteinRadius, sisEinsteinRadius } from "@/lib/physics";
+
+function resultsOf(changes: Partial<Sketch>): BenchResults {
+  const parsed = parseSketch({ ...demoSketch, ...changes });
+  if (!parsed.ok) throw new Error(JSON.stringify(parsed.fieldErrors));
+  const computed = computeResults(parsed.inputs);
+  if (!computed.ok) throw new Error(computed.message);
+  return computed.results;
+}
+
+const row = (results: BenchResults, id: string) => {
+  const found = results.rows.find((candidate) => candidate.id === id);
+  if (found === undefined) throw new Error(`no row ${id}`);
+  return found.value;
+};
+
+describe("point-lens results", () => {
+  const results = resultsOf({});
+
+  it("shows the physics module's Einstein radius and the images it implies", () => {
+    const thetaERad = einsteinRadius(0.5, 4000, 8000);
+    expect(row(results, "theta-e")).toBe(thetaERad);
+    // Paczyński 1986: θ± = (u ± √(u²+4))/2 θ_E, so the separation is √(u²+4) θ_E.
+    expect(row(results, "separation") / thetaERad).toBeCloseTo(Math.sqrt(0.3 ** 2 + 4), 12);
+    expect(row(results, "t-e") / 86_400).toBeCloseTo((thetaERad / ((6e-3 / 206_265) / (365.25 * 86_400))) / 86_400, 3);
+  });
+
+  it("compares exact and weak-field deflection for each image ray, flagging only the relativistic one", () => {
+    const flags = Object.fromEntries(results.deflections.map((deflection) => [deflection.id, deflection.isWeakFieldOff]));
+    expect(flags).toEqual({ "deflection-plus": false, "deflection-minus": false, "deflection-ring": false, "deflection-rel-plus": true });
+    const ring = results.deflections.find((deflection) => deflection.id === "deflection-ring");
+    // The first omitted term makes 4M/b too small by (15π/16) M/b relative (Keeton & Petters 2005).
+    expect(ring?.fractionalDifference).toBeCloseTo(-((15 * Math.PI) / 16) / (ring?.bOverM ?? 1), 12);
+  });
+
+  it("gives verdicts for resolution, sampling and time delay of the demo event", () => {
+    expect(results.verdicts.map((verdict) => [verdict.id, verdict.outlook])).toEqual([
+      ["resolution", "infeasible"],
+      ["sampling", "feasible"],
+      ["time-delay", "infeasible"],
+    ]);
+  });
+
+  it("is not a solar sketch, but the Sun seen from 1 au is", () => {
+    const demo = parseSketch(demoSketch);
+    const sun = parseSketch({ ...demoSketch, mass: "1 Msun", dl: "1 au" });
+    expect(demo.ok && isSolarSketch(demo.inputs)).toBe(false);
+    expect(sun.ok && isSolarSketch(sun.inputs)).toBe(true);
+  });
+});
+
+describe("isothermal-sphere results", () => {
+  it("uses the SIS Einstein radius and loses the inner image once β ≥ θ_E", () => {
+    const pair = resultsOf({ lens: "sis", sigma: "220 km/s", geometry: "redshift", beta: "0.5" });
+    const thetaERad = row(pair, "theta-e");
+    expect(thetaERad / ARCSECOND_RAD).toBeGreaterThan(0.3);
+    expect(row(pair, "separation")).toBeCloseTo(2 * thetaERad, 18);
+    expect(pair.deflections).toEqual([]);
+    const single = resultsOf({ lens: "sis", sigma: "220 km/s", beta: "1.5" });
+    expect(single.rows.some((candidate) => candidate.id === "theta-minus")).toBe(false);
+    expect(single.verdicts[0].text).toMatch(/single image/);
+    expect(sisEinsteinRadius(220, 4000, 8000)).toBe(row(single, "theta-e"));
+  });
+});
