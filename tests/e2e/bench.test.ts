@@ -1,0 +1,132 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { demoSketch, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
+import { criticalImpactParameter, einsteinRadius, MILLIARCSECOND_RAD } from "@/lib/physics";
+import { launchBrowser, newPage } from "./support/browser";
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+const benchLink = (changes: Partial<Sketch>) => `/bench?${sketchToQueryString({ ...demoSketch, ...changes })}`;
+
+/** The Einstein radius as shown (default unit mas), as a number of milliarcseconds. */
+async function shownThetaEMas(page: Page): Promise<number> {
+  const text = (await page.getByTestId("result-theta-e").textContent()) ?? "";
+  expect(text).toMatch(/ mas$/);
+  return Number(text.replace(/ mas$/, ""));
+}
+
+/** Resolves once the scene reports a newly drawn bundle (one more "bundle drawn" mark than before). */
+async function waitForNextDrawnBundle(page: Page, marksBefore: number): Promise<void> {
+  await page.waitForFunction((count) => performance.getEntriesByName("bench:bundle-drawn").length > count, marksBefore, { timeout: 60_000 });
+}
+
+const drawnMarks = (page: Page) => page.evaluate(() => performance.getEntriesByName("bench:bundle-drawn").length);
+
+describe("lens bench", () => {
+  it("opens from a link with parameters and shows the Einstein radius the physics module computes", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc" }));
+    await expect(page.getByLabel("Lens mass").inputValue()).resolves.toBe("4e6 Msun");
+    const expectedMas = einsteinRadius(4e6, 8100, 16_000) / MILLIARCSECOND_RAD;
+    // Shown to 4 significant digits.
+    expect(Math.abs((await shownThetaEMas(page)) / expectedMas - 1)).toBeLessThan(5e-4);
+    await context.close();
+  });
+
+  it("updates the Einstein radius when the mass changes, and keeps the link in step", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc" }));
+    await page.getByLabel("Lens mass").fill("1e6 Msun");
+    const expectedMas = einsteinRadius(1e6, 8100, 16_000) / MILLIARCSECOND_RAD;
+    await page.waitForFunction((text) => document.querySelector('[data-testid="result-theta-e"]')?.textContent === text, `${Number(expectedMas.toPrecision(4))} mas`);
+    expect(Math.abs((await shownThetaEMas(page)) / expectedMas - 1)).toBeLessThan(5e-4);
+    expect(new URL(page.url()).searchParams.get("mass")).toBe("1e6 Msun");
+    await context.close();
+  });
+
+  it("shows a bad value's error beside its field and keeps the last good result", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({}));
+    const before = await page.getByTestId("result-theta-e").textContent();
+    const massField = page.getByLabel("Lens mass");
+    await massField.fill("45 uas");
+    const fieldError = page.getByRole("alert").filter({ hasText: "mass: '45 uas' is an angle, not a mass" });
+    await fieldError.waitFor();
+    // The message belongs to the mass field: it is the first description of that input.
+    const errorId = await fieldError.getAttribute("id");
+    expect(((await massField.getAttribute("aria-describedby")) ?? "").split(" ")[0]).toBe(errorId);
+    await expect(massField.getAttribute("aria-invalid")).resolves.toBe("true");
+    await expect(page.getByTestId("result-theta-e").textContent()).resolves.toBe(before);
+    await expect(page.getByTestId("stale-note").isVisible()).resolves.toBe(true);
+    await context.close();
+  });
+
+  it("traces 2,000 rays in workers, draws them on the 3D canvas and counts them by fate", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({ rays: "2000", bmin: "0.5", bmax: "15" }));
+    // The link's own bundle is traced on arrival; then trace again by hand.
+    await waitForNextDrawnBundle(page, 0);
+    const marks = await drawnMarks(page);
+    await page.getByRole("button", { name: "Trace rays" }).click();
+    await waitForNextDrawnBundle(page, marks);
+
+    const counts = {
+      escaped: Number(await page.getByTestId("fate-count-escaped").textContent()),
+      captured: Number(await page.getByTestId("fate-count-captured").textContent()),
+      winding: Number(await page.getByTestId("fate-count-winding").textContent()),
+    };
+    expect(counts.escaped + counts.captured + counts.winding).toBe(2000);
+    // Rays are spread evenly over b in [0.5, 15] M; only those with b < b_c can fall in.
+    const criticalM = criticalImpactParameter(1);
+    let belowCritical = 0;
+    for (let i = 0; i < 2000; i++) if (0.5 + (14.5 * (i + 0.5)) / 2000 < criticalM) belowCritical += 1;
+    expect(counts.captured).toBeLessThanOrEqual(belowCritical);
+    expect(counts.captured).toBeGreaterThan(belowCritical - 50);
+    expect(counts.escaped).toBeLessThanOrEqual(2000 - belowCritical);
+    expect(counts.winding).toBeGreaterThan(0);
+
+    // Read the WebGL canvas back through a 2D canvas and count pixels that are not the background.
+    const pixels = await page.evaluate(() => {
+      const source = document.querySelector<HTMLCanvasElement>('[data-testid="ray-bundle-canvas"] canvas');
+      if (source === null) return { total: 0, lit: 0, blue: 0 };
+      const copy = document.createElement("canvas");
+      copy.width = source.width;
+      copy.height = source.height;
+      const context2d = copy.getContext("2d");
+      if (context2d === null) return { total: 0, lit: 0, blue: 0 };
+      context2d.drawImage(source, 0, 0);
+      const data = context2d.getImageData(0, 0, copy.width, copy.height).data;
+      let lit = 0;
+      let blue = 0;
+      for (let i = 0; i < data.length; i += 4) {
+        const [r, g, b] = [data[i], data[i + 1], data[i + 2]];
+        // The background is #05070c.
+        if (Math.abs(r - 5) + Math.abs(g - 7) + Math.abs(b - 12) > 40) lit += 1;
+        if (b > 100 && b > r + 30) blue += 1;
+      }
+      return { total: data.length / 4, lit, blue };
+    });
+    expect(pixels.total).toBeGreaterThan(100_000);
+    expect(pixels.lit / pixels.total).toBeGreaterThan(0.1);
+    // The escaped rays (sky blue) are the larger part of the picture.
+    expect(pixels.blue / pixels.total).toBeGreaterThan(0.05);
+    await context.close();
+  });
+
+  it("warns about solar filters when the sketch is deflection by the Sun", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({ mass: "1 Msun", dl: "1 au" }));
+    await expect(page.getByTestId("solar-caution").textContent()).resolves.toMatch(/Never point a telescope, camera or binoculars at or near the Sun without a proper solar filter/);
+    await page.goto(benchLink({}));
+    await expect(page.getByTestId("solar-caution").count()).resolves.toBe(0);
+    await context.close();
+  });
+});
