@@ -28,6 +28,8 @@ export {
 } from "./deflection";
 export { CAPTURE_MARGIN, traceRay, traceRayBundle } from "./ray-tracer";
 export type { RayFate, TraceOptions, TracedRay, TracedRayBundle } from "./ray-tracer";
+export { traceBoundOrbit } from "./orbit-tracer";
+export type { OrbitTraceOptions, TracedOrbit } from "./orbit-tracer";
 export {
   einsteinCrossingTime,
   einsteinRadius,

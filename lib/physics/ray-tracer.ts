@@ -11,8 +11,8 @@
  * Method: the orbit equation in the swept polar angle sigma (Darwin 1959), written for w = b u,
  * u = 1/r: w'' = 3 (M/b) w^2 - w, with coordinate time tau = t/b from dtau/dsigma = 1/(w^2 (1 - 2Mw/b))
  * (dt/dphi = r^2/(b (1 - 2M/r)) from the conserved energy and angular momentum; integrated as
- * chi = tau + w'/w, see ./photon-orbit-integrator), by
- * Dormand-Prince 5(4) with dense output (./photon-orbit-integrator). Samples are uniform in sigma along the
+ * chi = tau + w'/w, see ./orbit-integrator), by
+ * Dormand-Prince 5(4) with dense output (./orbit-integrator). Samples are uniform in sigma along the
  * traced path. The deflection of an escaped ray is its swept angle extended to infinity at both ends
  * by the exact tail integrals (sweptAngleFromInfinity), minus pi, so it is the asymptotic deflection
  * and agrees with exactDeflection to < 1e-9 rad at rtol 1e-10 (tested).
@@ -25,7 +25,7 @@
 
 import { sweptAngleFromInfinity } from "./deflection";
 import { domainError, requirePositive } from "./domain";
-import { DENSE_RECORD_LENGTH, DENSE_CHI, DENSE_V, DENSE_W, PhotonOrbitIntegrator, denseValue } from "./photon-orbit-integrator";
+import { DENSE_RECORD_LENGTH, DENSE_TIME, DENSE_V, DENSE_W, OrbitIntegrator, denseValue } from "./orbit-integrator";
 
 
 /** Fate of a traced ray; the numeric codes are those of traceRayBundle's `fates`. */
@@ -90,10 +90,10 @@ interface RayOutcome {
 
 /** Reusable integrator and scratch for many rays (one per thread). */
 class RayTracer {
-  private readonly integrator: PhotonOrbitIntegrator;
+  private readonly integrator: OrbitIntegrator;
 
   constructor(rtol: number) {
-    this.integrator = new PhotonOrbitIntegrator(rtol, MAX_STEPS);
+    this.integrator = new OrbitIntegrator(rtol, MAX_STEPS);
   }
 
   get rtol(): number {
@@ -115,7 +115,7 @@ class RayTracer {
     const integrator = this.integrator;
     const rtol = integrator.rtol;
     const vStart = Math.sqrt(Math.max(0, 1 - wStart * wStart + (2 / bAbs) * wStart * wStart * wStart));
-    integrator.start(1 / bAbs, wStart, vStart, rtol * Math.min(1, wStart), rtol, (rtol * startR) / bAbs, 0.05 * wStart);
+    integrator.start(true, 1 / bAbs, 0, wStart, vStart, rtol * Math.min(1, wStart), rtol, (rtol * startR) / bAbs, 0.05 * wStart);
     const maxSweep = maxHalfTurns * Math.PI;
     let fate: RayFate = "winding";
     let endSigma = 0;
@@ -192,7 +192,7 @@ class RayTracer {
       const theta1 = 1 - theta;
       const w = base + DENSE_W;
       const v = base + DENSE_V;
-      const chi = base + DENSE_CHI;
+      const chi = base + DENSE_TIME;
       const wValue = dense[w] + theta * (dense[w + 1] + theta1 * (dense[w + 2] + theta * (dense[w + 3] + theta1 * dense[w + 4])));
       const vValue = dense[v] + theta * (dense[v + 1] + theta1 * (dense[v + 2] + theta * (dense[v + 3] + theta1 * dense[v + 4])));
       const chiValue = dense[chi] + theta * (dense[chi + 1] + theta1 * (dense[chi + 2] + theta * (dense[chi + 3] + theta1 * dense[chi + 4])));

@@ -1,6 +1,8 @@
 import { describe, expect, it } from "vitest";
 import { exactDeflection } from "@/lib/physics/deflection";
+import { traceBoundOrbit } from "@/lib/physics/orbit-tracer";
 import { CAPTURE_MARGIN, traceRay, traceRayBundle } from "@/lib/physics/ray-tracer";
+import { loadFixture, relativeError } from "./fixtures";
 
 const BC = 3 * Math.sqrt(3);
 
@@ -135,5 +137,44 @@ describe("traceRayBundle", () => {
     const bundle = traceRayBundle(new Float64Array(0), 1);
     expect(bundle.xy.length).toBe(0);
     expect(bundle.samples).toBe(512);
+  });
+});
+
+describe("traceBoundOrbit", () => {
+  const periastron = loadFixture<{ rows: { pOverM: number; e: number; advance: string; radialPeriod: string }[] }>("periastron.json");
+
+  it("integrates the periastron advance and radial period of the exact orbit", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath quadrature of the bound-orbit integrals
+    let worstAdvance = 0;
+    let worstPeriod = 0;
+    for (const row of periastron.rows.filter((r) => r.e > 0 && r.pOverM <= 1e4)) {
+      const orbit = traceBoundOrbit(row.pOverM, row.e, 1);
+      worstAdvance = Math.max(worstAdvance, Math.abs(orbit.periastronAdvance - Number(row.advance)));
+      worstPeriod = Math.max(worstPeriod, relativeError(orbit.radialPeriod, Number(row.radialPeriod)));
+      expect(relativeError(orbit.periastronAdvanceExact, Number(row.advance))).toBeLessThan(1e-13);
+    }
+    console.info(`traceBoundOrbit: largest advance error ${worstAdvance.toExponential(2)} rad per orbit, radial period ${worstPeriod.toExponential(2)} relative, at rtol 1e-10`);
+    expect(worstAdvance).toBeLessThan(3e-8);
+    expect(worstPeriod).toBeLessThan(2e-8);
+  });
+
+  it("starts at periastron and reaches apastron p/(1-e)", () => {
+    // orbit shape r = p/(1 + e cos chi) at the turning points (Darwin 1961)
+    const orbit = traceBoundOrbit(40, 0.5, 1, { orbits: 1, samples: 4001 });
+    expect(orbit.xy[0]).toBeCloseTo(40 / 1.5, 12);
+    expect(orbit.xy[1]).toBe(0);
+    let largest = 0;
+    for (let i = 0; i < orbit.count; i++) largest = Math.max(largest, Math.hypot(orbit.xy[2 * i], orbit.xy[2 * i + 1]));
+    expect(largest).toBeCloseTo(80, 4);
+    expect(orbit.periastronAdvanceFirstOrder).toBeCloseTo((6 * Math.PI) / 40, 15);
+  });
+
+  it("rejects unstable, unbound and circular orbits", () => {
+    // separatrix p = (6 + 2e) M (Cutler, Kennefick & Poisson 1994); e = 0 has no periastron to time
+    expect(() => traceBoundOrbit(6.5, 0.5, 1)).toThrow(/p must be finite and > \(6 \+ 2e\) M/);
+    expect(() => traceBoundOrbit(20, 1, 1)).toThrow(/eccentricity must be in \(0, 1\)/);
+    expect(() => traceBoundOrbit(20, 0, 1)).toThrow(RangeError);
+    expect(() => traceBoundOrbit(NaN, 0.3, 1)).toThrow(/p must be/);
+    expect(() => traceBoundOrbit(20, 0.3, 1, { orbits: 0 })).toThrow(/options.orbits/);
   });
 });

@@ -2,12 +2,17 @@
  * Dormand-Prince 5(4) explicit Runge-Kutta integrator with step-size control and 4th-order dense
  * output (J. R. Dormand & P. J. Prince 1980, J. Comput. Appl. Math. 6, 19; dense output and step
  * control as in E. Hairer, S. P. Norsett & G. Wanner, Solving Ordinary Differential Equations I,
- * 2nd ed. 1993, sect. II.4-II.6), written out for the photon-orbit system of ./ray-tracer,
- *   w' = v,  v' = 3 (M/b) w^2 - w,  chi' = 2 (M/b) / (w (1 - 2 (M/b) w)) + (M/b) w,
- * where chi = tau + v/w carries the coordinate time tau = chi - v/w. (tau' = 1/(w^2 (1 - 2 (M/b) w))
- * itself varies like 1/w^2 far from the lens and, under error control, doubled the step count; v/w
- * is its flat-space part, cot(phi) on a straight line, and d(v/w)/dsigma = (M/b) w - 1/w^2 follows
- * from the first integral v^2 = 1 - w^2 + 2 (M/b) w^3.) Scalar stages so that a step allocates nothing and touches no arrays except its dense record
+ * 2nd ed. 1993, sect. II.4-II.6), written out for the Schwarzschild orbit equation in the swept polar
+ * angle sigma, with w = L u (u = 1/r, L a length scale: b for light, p for a bound orbit), x = M/L:
+ *   w' = v,  v' = f0 + 3 x w^2 - w,
+ * f0 = 0 for light (./ray-tracer) and f0 = p M/L_z^2 for a bound orbit (./orbit-tracer), plus a time
+ * component T:
+ *   light:  T = chi = tau + v/w, chi' = 2x / (w (1 - 2 x w)) + x w,  with tau = t/b = chi - v/w;
+ *   orbit:  T = tau, tau' = 1 / (w^2 (1 - 2 x w)),  with t = (E p^2/L_z) tau.
+ * (For light, tau' = 1/(w^2 (1 - 2xw)) varies like 1/w^2 far from the lens and, under error control,
+ * doubled the step count; v/w is its flat-space part, cot(phi) on a straight line, and
+ * d(v/w)/dsigma = x w - 1/w^2 follows from the first integral v^2 = 1 - w^2 + 2 x w^3.)
+ * Scalar stages, so that a step allocates nothing and touches no arrays except its dense record
  * (a general array-based stepper ran this system ~5x slower).
  */
 
@@ -36,16 +41,16 @@ const MAX_FACTOR = 10;
 /** Rejected attempts allowed within one step before giving up (step-size underflow guard). */
 const MAX_REJECTIONS = 60;
 
-/** Numbers per dense record: sigma0, 1/h, then 5 coefficients for each of w, v, chi. */
+/** Numbers per dense record: sigma0, 1/h, then 5 coefficients for each of w, v, T. */
 export const DENSE_RECORD_LENGTH = 17;
 
 /**
- * Integrator state and dense record for one ray at a time. Usage: start(...), then step() until the
+ * Integrator state and dense record for one orbit or ray at a time. Usage: start(...), then step() until the
  * caller's stop condition; each accepted step is recorded until maxSteps, then step() returns false.
- * Error control: RMS over (w, v, chi) of the local error estimate divided by atol_i + rtol |y_i|
+ * Error control: RMS over (w, v, T) of the local error estimate divided by atol_i + rtol |y_i|
  * (Hairer et al. 1993, eq. II.4.11) kept <= 1.
  */
-export class PhotonOrbitIntegrator {
+export class OrbitIntegrator {
   readonly rtol: number;
   readonly maxSteps: number;
   readonly dense: Float64Array;
@@ -54,17 +59,19 @@ export class PhotonOrbitIntegrator {
   h = 0;
   w = 0;
   v = 0;
-  chi = 0;
+  time = 0;
+  private isLight = true;
+  private force = 0;
   private massOverB = 0;
   private threeOverB = 0;
   private twoOverB = 0;
   private atolW = 0;
   private atolV = 0;
-  private atolChi = 0;
+  private atolTime = 0;
   /** Derivatives at the current point (FSAL: the last stage of the previous step). */
   private dw1 = 0;
   private dv1 = 0;
-  private dchi1 = 0;
+  private dtime1 = 0;
 
   constructor(rtol: number, maxSteps: number) {
     this.rtol = rtol;
@@ -72,28 +79,33 @@ export class PhotonOrbitIntegrator {
     this.dense = new Float64Array(maxSteps * DENSE_RECORD_LENGTH);
   }
 
-  /** Starts a ray with M/b = massOverB at (w, v, tau = 0) with absolute tolerances and first step h0. */
-  start(massOverB: number, w: number, v: number, atolW: number, atolV: number, atolChi: number, h0: number): void {
+  /**
+   * Starts at sigma = 0, (w, v) and tau = 0, for light (force 0, time carried as chi) or a bound orbit
+   * (force f0 > 0, time carried as tau), with x = M/L = massOverB, absolute tolerances and first step h0.
+   */
+  start(isLight: boolean, massOverB: number, force: number, w: number, v: number, atolW: number, atolV: number, atolTime: number, h0: number): void {
+    this.isLight = isLight;
+    this.force = force;
     this.massOverB = massOverB;
     this.threeOverB = 3 * massOverB;
     this.twoOverB = 2 * massOverB;
     this.atolW = atolW;
     this.atolV = atolV;
-    this.atolChi = atolChi;
+    this.atolTime = atolTime;
     this.sigma = 0;
     this.w = w;
     this.v = v;
-    this.chi = v / w;
+    this.time = isLight ? v / w : 0;
     this.h = h0;
     this.dw1 = v;
-    this.dv1 = this.threeOverB * w * w - w;
-    this.dchi1 = this.timeRate(w);
+    this.dv1 = force + this.threeOverB * w * w - w;
+    this.dtime1 = this.timeRate(w);
     this.stepCount = 0;
   }
 
-  /** d chi / d sigma at w. */
+  /** dT/dsigma at w (chi for light, tau for an orbit). */
   private timeRate(w: number): number {
-    return this.twoOverB / (w * (1 - this.twoOverB * w)) + this.massOverB * w;
+    return this.isLight ? this.twoOverB / (w * (1 - this.twoOverB * w)) + this.massOverB * w : 1 / (w * w * (1 - this.twoOverB * w));
   }
 
   /** Takes one accepted step; false when the record is full or the step size underflowed. */
@@ -102,32 +114,34 @@ export class PhotonOrbitIntegrator {
     const k3b = this.threeOverB;
     const k2b = this.twoOverB;
     const x = this.massOverB;
-    const w0 = this.w, v0 = this.v, chi0 = this.chi;
-    const dw1 = this.dw1, dv1 = this.dv1, dt1 = this.dchi1;
+    const f0 = this.force;
+    const light = this.isLight;
+    const w0 = this.w, v0 = this.v, time0 = this.time;
+    const dw1 = this.dw1, dv1 = this.dv1, dt1 = this.dtime1;
     for (let attempt = 0; attempt < MAX_REJECTIONS; attempt++) {
       const h = this.h;
       let w = w0 + h * A21 * dw1;
       let v = v0 + h * A21 * dv1;
-      const dw2 = v, dv2 = k3b * w * w - w, dt2 = k2b / (w * (1 - k2b * w)) + x * w;
+      const dw2 = v, dv2 = f0 + k3b * w * w - w, dt2 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
       w = w0 + h * (A31 * dw1 + A32 * dw2);
       v = v0 + h * (A31 * dv1 + A32 * dv2);
-      const dw3 = v, dv3 = k3b * w * w - w, dt3 = k2b / (w * (1 - k2b * w)) + x * w;
+      const dw3 = v, dv3 = f0 + k3b * w * w - w, dt3 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
       w = w0 + h * (A41 * dw1 + A42 * dw2 + A43 * dw3);
       v = v0 + h * (A41 * dv1 + A42 * dv2 + A43 * dv3);
-      const dw4 = v, dv4 = k3b * w * w - w, dt4 = k2b / (w * (1 - k2b * w)) + x * w;
+      const dw4 = v, dv4 = f0 + k3b * w * w - w, dt4 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
       w = w0 + h * (A51 * dw1 + A52 * dw2 + A53 * dw3 + A54 * dw4);
       v = v0 + h * (A51 * dv1 + A52 * dv2 + A53 * dv3 + A54 * dv4);
-      const dw5 = v, dv5 = k3b * w * w - w, dt5 = k2b / (w * (1 - k2b * w)) + x * w;
+      const dw5 = v, dv5 = f0 + k3b * w * w - w, dt5 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
       w = w0 + h * (A61 * dw1 + A62 * dw2 + A63 * dw3 + A64 * dw4 + A65 * dw5);
       v = v0 + h * (A61 * dv1 + A62 * dv2 + A63 * dv3 + A64 * dv4 + A65 * dv5);
-      const dw6 = v, dv6 = k3b * w * w - w, dt6 = k2b / (w * (1 - k2b * w)) + x * w;
+      const dw6 = v, dv6 = f0 + k3b * w * w - w, dt6 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
       const w1 = w0 + h * (A71 * dw1 + A73 * dw3 + A74 * dw4 + A75 * dw5 + A76 * dw6);
       const v1 = v0 + h * (A71 * dv1 + A73 * dv3 + A74 * dv4 + A75 * dv5 + A76 * dv6);
-      const chi1 = chi0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
-      const dw7 = v1, dv7 = k3b * w1 * w1 - w1, dt7 = k2b / (w1 * (1 - k2b * w1)) + x * w1;
+      const time1 = time0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
+      const dw7 = v1, dv7 = f0 + k3b * w1 * w1 - w1, dt7 = light ? k2b / (w1 * (1 - k2b * w1)) + x * w1 : 1 / (w1 * w1 * (1 - k2b * w1));
       const ew = (h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7)) / (this.atolW + this.rtol * Math.max(Math.abs(w0), Math.abs(w1)));
       const ev = (h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7)) / (this.atolV + this.rtol * Math.max(Math.abs(v0), Math.abs(v1)));
-      const et = (h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7)) / (this.atolChi + this.rtol * Math.max(Math.abs(chi0), Math.abs(chi1)));
+      const et = (h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7)) / (this.atolTime + this.rtol * Math.max(Math.abs(time0), Math.abs(time1)));
       const error = Math.sqrt((ew * ew + ev * ev + et * et) / 3);
       const factor = error === 0 ? MAX_FACTOR : Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY / Math.sqrt(Math.sqrt(error))));
       if (!(error <= 1)) {
@@ -140,14 +154,14 @@ export class PhotonOrbitIntegrator {
       d[base + 1] = 1 / h;
       writeDense(d, base + 2, w0, w1, h, dw1, dw3, dw4, dw5, dw6, dw7);
       writeDense(d, base + 7, v0, v1, h, dv1, dv3, dv4, dv5, dv6, dv7);
-      writeDense(d, base + 12, chi0, chi1, h, dt1, dt3, dt4, dt5, dt6, dt7);
+      writeDense(d, base + 12, time0, time1, h, dt1, dt3, dt4, dt5, dt6, dt7);
       this.sigma += h;
       this.w = w1;
       this.v = v1;
-      this.chi = chi1;
+      this.time = time1;
       this.dw1 = dw7;
       this.dv1 = dv7;
-      this.dchi1 = dt7;
+      this.dtime1 = dt7;
       this.h = h * factor;
       this.stepCount++;
       return true;
@@ -170,11 +184,11 @@ function writeDense(d: Float64Array, at: number, y0: number, y1: number, h: numb
 /** Index of each component's coefficients within a dense record. */
 export const DENSE_W = 2;
 export const DENSE_V = 7;
-export const DENSE_CHI = 12;
+export const DENSE_TIME = 12;
 
 /**
  * Dense output at sigma (within recorded step `step`) of the component whose coefficients start at
- * `component` (DENSE_W, DENSE_V or DENSE_CHI): the 4th-order continuous extension of Hairer et al.
+ * `component` (DENSE_W, DENSE_V or DENSE_TIME): the 4th-order continuous extension of Hairer et al.
  */
 export function denseValue(dense: Float64Array, step: number, component: number, sigma: number): number {
   const base = step * DENSE_RECORD_LENGTH;
