@@ -1,0 +1,10 @@
+/** Size limits of what the product accepts from a user's file (issue 6: uploads). */
+
+/** A target list (CSV or VOTable) is at most 5 MiB. */
+export const MAX_IMPORT_BYTES = 5 * 1024 * 1024;
+
+/** A target list has at most 10,000 data rows, so one import stays one bounded transaction. */
+export const MAX_IMPORT_ROWS = 10_000;
+
+/** A note attachment (PNG, JPEG, PDF, FITS) is at most 16 MiB. */
+export const MAX_ATTACHMENT_BYTES = 16 * 1024 * 1024;

@@ -1,0 +1,218 @@
+import { AppError, type FieldErrors } from "@/lib/errors";
+import {
+  defaultUnits,
+  importFieldKinds,
+  importFieldLabels,
+  importFields,
+  requiredImportFields,
+  type ColumnMapping,
+  type FieldKind,
+  type ImportField,
+} from "@/lib/imports/columns";
+import type { ImportTable } from "@/lib/imports/import-table";
+import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import { QuantityError, parseDistance, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
+import { createTargetSchema, lensHypothesisErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
+
+/** Values used for every row where the file has no column (or an empty cell) for the field. */
+export interface ImportFill {
+  lensModel?: LensModel;
+  priority?: number;
+  sourceOffsetThetaE?: number;
+}
+
+/** One row of the preview: its cells as written, the target it becomes, or why it cannot. */
+export interface PreviewRow {
+  rowNumber: number;
+  /** The mapped cells, trimmed, by field. */
+  cells: Partial<Record<ImportField, string>>;
+  /** Present exactly when `errors` is empty. */
+  target?: CreateTargetInput;
+  /** Each one names the row and the field: "row 17: Dec +95:00:00 — Declination must be in ...". */
+  errors: string[];
+}
+
+export interface ImportPreview {
+  rows: PreviewRow[];
+  validRowCount: number;
+  invalidRowCount: number;
+}
+
+// Spellings of "no value" in exported tables (common practice); such a cell is empty.
+const MISSING = new Set(["", "nan", "null", "none", "--", "-", "n/a", "na"]);
+const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?$/i;
+const HOUR_UNITS = new Set(["h", "hr", "hour", "hours", "hourangle"]);
+const DEGREE_UNITS = new Set(["deg", "degree", "degrees", "°"]);
+
+const lensModelSpellings: Record<string, LensModel> = {
+  point: "point",
+  pointmass: "point",
+  pointlens: "point",
+  pm: "point",
+  sis: "sis",
+  isothermal: "sis",
+  singularisothermalsphere: "sis",
+};
+
+class CellError extends Error {}
+
+/** A VOTable unit (IVOA VOUnits 1.0: "km.s-1", "mas.yr-1") in the form the units parser reads. */
+function readableUnit(unit: string): string {
+  return unit
+    .trim()
+    .replace(/^"(.*)"$/, "$1")
+    .replace(/\.([A-Za-z]+)-1\b/g, "/$1");
+}
+
+function plainNumber(text: string): number {
+  if (!PLAIN_NUMBER.test(text)) throw new CellError("is not a number");
+  return Number(text);
+}
+
+/**
+ * A quantity cell in the field's unit. A bare number already in that unit is taken as written, so
+ * "5.5" mas/yr stays 5.5 rather than passing through rad/s and back.
+ */
+function quantity(kind: FieldKind, parse: (text: string, options: { defaultUnit?: string }) => number, text: string, unit: string | undefined): number {
+  const defaultUnit = unit === undefined ? undefined : readableUnit(unit);
+  if (PLAIN_NUMBER.test(text) && defaultUnit === defaultUnits[kind]) return Number(text);
+  try {
+    return parse(text, { defaultUnit });
+  } catch (error) {
+    if (!(error instanceof QuantityError)) throw error;
+    // The units parser names the quantity and the input; the row message already does.
+    const lead = `${error.quantity}: '${error.input}' `;
+    throw new CellError(error.message.startsWith(lead) ? error.message.slice(lead.length) : error.message);
+  }
+}
+
+/** A cell as the target schema's input wants it (coordinates stay text for the workspace parser). */
+function readCell(kind: FieldKind, text: string, unit: string | undefined): unknown {
+  switch (kind) {
+    case "text":
+    case "dec":
+      return text;
+    case "ra": {
+      const unitName = unit === undefined ? undefined : readableUnit(unit).toLowerCase();
+      if (unitName !== undefined && HOUR_UNITS.has(unitName) && PLAIN_NUMBER.test(text)) return Number(text) * 15;
+      if (unitName !== undefined && !HOUR_UNITS.has(unitName) && !DEGREE_UNITS.has(unitName) && unitName !== "h:m:s") {
+        throw new CellError(`has the unit ${unit}; RA is read in hours (h:m:s or h) or degrees`);
+      }
+      return text;
+    }
+    case "lensModel": {
+      const model = lensModelSpellings[text.toLowerCase().replace(/[^a-z]/g, "")];
+      if (model === undefined) throw new CellError('is not a lens model: write "point" or "sis"');
+      return model;
+    }
+    case "number":
+    case "integer":
+      return plainNumber(text);
+    case "tags":
+      return text.split(/[;,|\s]+/).filter(Boolean);
+    case "mass":
+      return quantity(kind, (t, o) => parseMass(t, o).massSolar, text, unit);
+    case "distance":
+      return quantity(kind, parseDistance, text, unit);
+    case "velocity":
+      return quantity(kind, parseVelocity, text, unit);
+    case "properMotion":
+      return quantity(kind, (t, o) => (parseProperMotion(t, o) * JULIAN_YEAR_S) / MILLIARCSECOND_RAD, text, unit);
+  }
+}
+
+/** A mass alone means a point lens, a velocity dispersion alone an isothermal sphere; else unknown. */
+function inferredLensModel(input: Record<string, unknown>): LensModel | undefined {
+  const hasMass = input.lensMassSolar !== undefined;
+  const hasDispersion = input.velocityDispersionKmPerS !== undefined;
+  if (hasMass === hasDispersion) return undefined;
+  return hasMass ? "point" : "sis";
+}
+
+/**
+ * Checks a mapping (proposed or chosen by the user) against the table: every required field mapped,
+ * each column in range and used once. Refuses with an AppError whose `fields` name each problem.
+ */
+export function checkColumnMapping(table: ImportTable, mapping: ColumnMapping): void {
+  const fields: FieldErrors = {};
+  const add = (field: ImportField, message: string) => (fields[field] ??= []).push(message);
+  const users = new Map<number, ImportField>();
+  for (const field of importFields) {
+    const assignment = mapping[field];
+    if (assignment === undefined) {
+      if (requiredImportFields.includes(field)) add(field, `Choose the column that holds the ${importFieldLabels[field]}.`);
+      continue;
+    }
+    const { column } = assignment;
+    if (!Number.isInteger(column) || column < 0 || column >= table.columns.length) {
+      add(field, `${importFieldLabels[field]}: there is no column ${column + 1}.`);
+      continue;
+    }
+    const other = users.get(column);
+    if (other !== undefined) add(field, `Column "${table.columns[column].name}" is already used for ${importFieldLabels[other]}.`);
+    users.set(column, field);
+  }
+  if (Object.keys(fields).length > 0) {
+    throw new AppError("bad_request:import", Object.values(fields).flat().join(" "), fields);
+  }
+}
+
+/**
+ * Reads every row into a target as the workspace's target schema defines it (coordinates through
+ * lib/workspace/coordinates, quantities through lib/physics/units), and collects row-level errors
+ * that name the row and the field. The lens model, when neither a column nor `fill` gives it, follows
+ * from what the row has: a mass means a point lens, a velocity dispersion an isothermal sphere.
+ */
+export function validateImportRows(table: ImportTable, mapping: ColumnMapping, fill: ImportFill = {}): ImportPreview {
+  checkColumnMapping(table, mapping);
+  const rows = table.rows.map((row): PreviewRow => {
+    const prefix = `row ${row.rowNumber}`;
+    const cells: PreviewRow["cells"] = {};
+    for (const field of importFields) {
+      const assignment = mapping[field];
+      if (assignment !== undefined) cells[field] = (row.cells[assignment.column] ?? "").trim();
+    }
+    if (row.cells.length !== table.columns.length) {
+      return { rowNumber: row.rowNumber, cells, errors: [`${prefix}: has ${row.cells.length} fields, but the header has ${table.columns.length}.`] };
+    }
+    const errors: string[] = [];
+    const input: Record<string, unknown> = {};
+    for (const field of importFields) {
+      const text = cells[field];
+      if (text === undefined || MISSING.has(text.toLowerCase())) continue;
+      try {
+        input[field] = readCell(importFieldKinds[field], text, mapping[field]?.unit);
+      } catch (error) {
+        if (!(error instanceof CellError)) throw error;
+        errors.push(`${prefix}: ${importFieldLabels[field]} ${text} ${error.message}.`);
+      }
+    }
+    if (errors.length > 0) return { rowNumber: row.rowNumber, cells, errors };
+    for (const field of ["lensModel", "priority", "sourceOffsetThetaE"] as const) {
+      if (input[field] === undefined && fill[field] !== undefined) input[field] = fill[field];
+    }
+    input.lensModel ??= inferredLensModel(input);
+
+    const parsed = createTargetSchema.safeParse(input);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const field = issue.path[0] as ImportField | undefined;
+        const label = field !== undefined && field in importFieldLabels ? importFieldLabels[field] : "Target";
+        const text = field !== undefined ? cells[field] : undefined;
+        const missing = input[field as string] === undefined;
+        errors.push(
+          missing
+            ? `${prefix}: ${label} is missing${field === "lensModel" ? " (give a mass for a point lens or a velocity dispersion for an isothermal one)" : ""}.`
+            : `${prefix}: ${label}${text ? ` ${text}` : ""} — ${issue.message}`,
+        );
+      }
+      return { rowNumber: row.rowNumber, cells, errors };
+    }
+    for (const [field, messages] of Object.entries(lensHypothesisErrors(parsed.data))) {
+      for (const message of messages) errors.push(`${prefix}: ${importFieldLabels[field as ImportField] ?? field} — ${message}`);
+    }
+    return errors.length > 0 ? { rowNumber: row.rowNumber, cells, errors } : { rowNumber: row.rowNumber, cells, target: parsed.data, errors };
+  });
+  const validRowCount = rows.filter((row) => row.target !== undefined).length;
+  return { rows, validRowCount, invalidRowCount: rows.length - validRowCount };
+}

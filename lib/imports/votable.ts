@@ -1,0 +1,108 @@
+import { XMLParser, XMLValidator } from "fast-xml-parser";
+import { AppError } from "@/lib/errors";
+import type { ImportColumn, ImportRow, ImportTable } from "@/lib/imports/import-table";
+import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+
+const importError = (message: string) => new AppError("bad_request:import", message);
+
+// A DOCTYPE is how an XML file declares entities: the "billion laughs" bomb and external entities
+// that read local files or URLs both need one. A VOTable never needs a DTD (IVOA VOTable 1.4 is
+// defined by an XML Schema), so any declaration refuses the file before a parser sees it.
+const DECLARATION = /<!(?:DOCTYPE|ENTITY)/i;
+
+// The five predefined entities and character references (XML 1.0 §4.1, §4.6) are escapes of single
+// characters, not expansions; the parser leaves them alone (processEntities: false), we decode them.
+const REFERENCE = /&(?:#(\d{1,7})|#x([0-9a-f]{1,6})|(lt|gt|amp|quot|apos));/gi;
+const PREDEFINED: Record<string, string> = { lt: "<", gt: ">", amp: "&", quot: '"', apos: "'" };
+
+function decodeReferences(text: string): string {
+  return text.replace(REFERENCE, (whole, decimal: string | undefined, hex: string | undefined, name: string | undefined) => {
+    if (name !== undefined) return PREDEFINED[name.toLowerCase()];
+    const codePoint = decimal !== undefined ? Number(decimal) : parseInt(hex!, 16);
+    return codePoint <= 0x10ffff ? String.fromCodePoint(codePoint) : whole;
+  });
+}
+
+const parser = new XMLParser({
+  ignoreAttributes: false,
+  attributeNamePrefix: "@_",
+  removeNSPrefix: true,
+  processEntities: false,
+  parseTagValue: false,
+  parseAttributeValue: false,
+  trimValues: false,
+  isArray: (name) => ["RESOURCE", "TABLE", "FIELD", "TR", "TD"].includes(name),
+});
+
+type XmlNode = Record<string, unknown>;
+
+const asNodes = (value: unknown): XmlNode[] => (Array.isArray(value) ? value.filter((v): v is XmlNode => typeof v === "object" && v !== null) : []);
+
+function attribute(node: XmlNode, name: string): string | undefined {
+  const value = node[`@_${name}`];
+  return typeof value === "string" ? decodeReferences(value) : undefined;
+}
+
+/** Every TABLE, depth first, in RESOURCEs nested to any depth (IVOA VOTable 1.4 §3.1). */
+function tablesIn(resources: XmlNode[]): XmlNode[] {
+  return resources.flatMap((resource) => [...asNodes(resource.TABLE), ...tablesIn(asNodes(resource.RESOURCE))]);
+}
+
+function cellText(td: unknown): string {
+  if (typeof td === "string") return decodeReferences(td);
+  if (typeof td === "object" && td !== null && typeof (td as XmlNode)["#text"] === "string") return decodeReferences((td as XmlNode)["#text"] as string);
+  return "";
+}
+
+/**
+ * Reads a VOTable target list (IVOA VOTable 1.4): the one TABLE it holds, its FIELDs as columns (with
+ * `unit` and `ucd`) and its TABLEDATA rows. A cell equal to its FIELD's VALUES/@null is read as empty
+ * (§4.5). Refused with a clear message: a DOCTYPE or ENTITY declaration, malformed XML, a root other
+ * than VOTABLE, more than one table, BINARY/BINARY2/FITS serializations, no rows, or too many rows.
+ */
+export function parseVoTable(text: string): ImportTable {
+  if (DECLARATION.test(text)) {
+    throw importError("The XML file declares a DOCTYPE or entities, which a VOTable never needs; it is refused for safety. Export the table again without a DTD.");
+  }
+  const validation = XMLValidator.validate(text);
+  if (validation !== true) {
+    throw importError(`The XML is malformed at line ${validation.err.line}, column ${validation.err.col}: ${validation.err.msg}`);
+  }
+  const document = parser.parse(text) as XmlNode;
+  const root = document.VOTABLE;
+  if (typeof root !== "object" || root === null) throw importError("The XML file is not a VOTable (its root element is not VOTABLE).");
+  const tables = tablesIn(asNodes((root as XmlNode).RESOURCE));
+  if (tables.length === 0) throw importError("The VOTable holds no TABLE.");
+  if (tables.length > 1) throw importError(`The VOTable holds ${tables.length} tables; import one table per file.`);
+  const table = tables[0];
+
+  const fields = asNodes(table.FIELD);
+  if (fields.length === 0) throw importError("The VOTable's TABLE declares no FIELD.");
+  const nullValues = fields.map((field) => {
+    const values = field.VALUES;
+    return typeof values === "object" && values !== null ? attribute(values as XmlNode, "null") : undefined;
+  });
+  const columns: ImportColumn[] = fields.map((field, index) => ({
+    name: attribute(field, "name")?.trim() || attribute(field, "ID")?.trim() || `column ${index + 1}`,
+    ...(attribute(field, "unit") ? { unit: attribute(field, "unit") } : {}),
+    ...(attribute(field, "ucd") ? { ucd: attribute(field, "ucd") } : {}),
+  }));
+
+  const data = (typeof table.DATA === "object" && table.DATA !== null ? table.DATA : {}) as XmlNode;
+  const binary = ["BINARY", "BINARY2", "FITS"].find((name) => name in data);
+  if (binary) throw importError(`The VOTable's data are in ${binary} serialization; export it with TABLEDATA (plain XML rows).`);
+  const tableData = (typeof data.TABLEDATA === "object" && data.TABLEDATA !== null ? data.TABLEDATA : {}) as XmlNode;
+  const trs = asNodes(tableData.TR);
+  if (trs.length === 0) throw importError("The VOTable has its columns but no data rows.");
+  if (trs.length > MAX_IMPORT_ROWS) {
+    throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+  }
+  const rows: ImportRow[] = trs.map((tr, index) => ({
+    rowNumber: index + 1,
+    cells: (Array.isArray(tr.TD) ? tr.TD : []).map((td, column) => {
+      const value = cellText(td);
+      return nullValues[column] !== undefined && value.trim() === nullValues[column] ? "" : value;
+    }),
+  }));
+  return { format: "votable", columns, rows };
+}

@@ -1,0 +1,59 @@
+import { describe, expect, it } from "vitest";
+import { proposeColumnMapping } from "@/lib/imports/columns";
+import { columnFromHeader } from "@/lib/imports/csv";
+
+const fromHeaders = (...headers: string[]) => proposeColumnMapping(headers.map(columnFromHeader));
+
+describe("proposeColumnMapping", () => {
+  it("maps common header spellings whatever their case and punctuation (common practice)", () => {
+    const mapping = fromHeaders("Target Name", "RA_ICRS", "DEJ2000", "z_lens", "z_s", "Priority", "Tags");
+    expect(mapping).toEqual({
+      name: { column: 0 },
+      ra: { column: 1 },
+      dec: { column: 2 },
+      lensRedshift: { column: 3 },
+      sourceRedshift: { column: 4 },
+      priority: { column: 5 },
+      tags: { column: 6 },
+    });
+  });
+
+  it("takes a unit from brackets or a trailing unit word, else assumes the field's unit and says so", () => {
+    const mapping = fromHeaders("name", "ra", "dec", "mass [Msun]", "dist_lens_kpc", "D_S", "sigma", "mu_rel");
+    expect(mapping.lensMassSolar).toEqual({ column: 3, unit: "Msun" });
+    expect(mapping.lensDistancePc).toEqual({ column: 4, unit: "kpc" });
+    expect(mapping.sourceDistancePc).toEqual({ column: 5, unit: "pc", isUnitAssumed: true });
+    expect(mapping.velocityDispersionKmPerS).toEqual({ column: 6, unit: "km/s", isUnitAssumed: true });
+    expect(mapping.properMotionMasPerYr).toEqual({ column: 7, unit: "mas/yr", isUnitAssumed: true });
+  });
+
+  it("reads an RA unit (hours) from the header for decimal-hour columns", () => {
+    expect(fromHeaders("ra [h]").ra).toEqual({ column: 0, unit: "h" });
+  });
+
+  it("uses VOTable UCDs for columns whose names say nothing (IVOA UCD1+ 1.5: pos.eq.ra, pos.eq.dec, meta.id;meta.main)", () => {
+    const mapping = proposeColumnMapping([
+      { name: "col1", ucd: "meta.id;meta.main" },
+      { name: "col2", ucd: "pos.eq.ra;meta.main", unit: "deg" },
+      { name: "col3", ucd: "pos.eq.dec;meta.main", unit: "deg" },
+      { name: "col4", ucd: "phys.veloc.dispersion", unit: "km.s-1" },
+      { name: "col5", ucd: "src.redshift" },
+    ]);
+    expect(mapping).toEqual({
+      name: { column: 0 },
+      ra: { column: 1, unit: "deg" },
+      dec: { column: 2 },
+      velocityDispersionKmPerS: { column: 3, unit: "km.s-1" },
+    });
+  });
+
+  it("gives a field to the first matching column only, and a column to one field only", () => {
+    const mapping = fromHeaders("name", "object", "ra", "dec");
+    expect(mapping.name).toEqual({ column: 0 });
+    expect(Object.values(mapping).filter((assignment) => assignment?.column === 1)).toEqual([]);
+  });
+
+  it("proposes nothing for an ambiguous bare redshift or unknown headers", () => {
+    expect(fromHeaders("z", "magnitude", "notes")).toEqual({});
+  });
+});
