@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { ArcwrightMark } from "@/components/arcwright-mark";
+import { AccountMenu } from "@/components/workspace/account-menu";
 import { primaryNavigation } from "@/components/navigation";
 
 /** The frame around every page: product name, the areas of the product, and the page itself. */
@@ -19,6 +20,7 @@ export function AppShell({ children }: { children: React.ReactNode }) {
               </Link>
             ))}
           </nav>
+          <AccountMenu />
         </div>
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">{children}</main>

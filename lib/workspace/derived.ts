@@ -1,13 +1,23 @@
-import { angularDiameterDistance, angularDiameterDistanceBetween } from "@/lib/physics/cosmology";
-import { einsteinCrossingTime, einsteinRadius, pointLensImages, pointMassTimeDelay } from "@/lib/physics/point-lens";
-import { shadowAngularDiameter } from "@/lib/physics/relativistic-effects";
-import { sisEinsteinRadius, sisImages, sisTimeDelay } from "@/lib/physics/sis";
-import { DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import {
+  angularDiameterDistance,
+  angularDiameterDistanceBetween,
+  DAY_S,
+  einsteinCrossingTime,
+  einsteinRadius,
+  JULIAN_YEAR_S,
+  MICROARCSECOND_RAD,
+  MILLIARCSECOND_RAD,
+  pointLensImages,
+  pointMassTimeDelay,
+  shadowAngularDiameter,
+  sisEinsteinRadius,
+  sisImages,
+  sisTimeDelay,
+} from "@/lib/physics";
 import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
+import type { Verdict } from "@/lib/workspace/verdicts";
 
-export const verdicts = ["feasible", "marginal", "infeasible", "unknown"] as const;
-export type Verdict = (typeof verdicts)[number];
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {

@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { lensModels } from "@/lib/workspace/target-schema";
 import { targetStatuses } from "@/lib/workspace/status";
-import { verdicts } from "@/lib/workspace/derived";
+import { verdicts } from "@/lib/workspace/verdicts";
 
 /** Columns the target table may be sorted by; anything else is refused, never passed to SQL. */
 export const targetSortColumns = [

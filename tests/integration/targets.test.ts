@@ -64,11 +64,11 @@ describe("targets", () => {
     const rows = Array.from({ length: 10_000 }, (_, i) => {
       const h = { ...pointTargetInput, lensModel: "point" as const, lensMassSolar: 0.05 + (i % 500) / 100, sourceOffsetThetaE: 0.05 + (i % 37) / 10 };
       return {
+        ...h,
         proposalId: world.proposalId,
         name: `BULK-${String(i).padStart(5, "0")}`,
         raDeg: (i * 0.036) % 360,
         decDeg: -30 + (i % 60) / 10,
-        ...h,
         status: "candidate" as const,
         tags: i % 3 === 0 ? ["bulge"] : [],
         ...deriveTargetColumns(h, instrument),

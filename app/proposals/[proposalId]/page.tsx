@@ -1,0 +1,67 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { ActivityFeed } from "@/components/workspace/activity-feed";
+import { MembersPanel } from "@/components/workspace/members-panel";
+import { TargetForm } from "@/components/workspace/target-form";
+import { TargetTable } from "@/components/workspace/target-table";
+import { initialTargetSorting, targetPageSize } from "@/components/workspace/target-table-state";
+import { roleLabels } from "@/lib/workspace/roles";
+import { listMembers } from "@/lib/server/members";
+import { loadForPage } from "@/lib/server/page-access";
+import { getProposal } from "@/lib/server/proposals";
+import { listTargets } from "@/lib/server/targets";
+
+export const metadata: Metadata = { title: "Proposal" };
+
+export default async function ProposalPage({ params }: { params: Promise<{ proposalId: string }> }) {
+  const { proposalId } = await params;
+  const sort = initialTargetSorting[0];
+  const { proposal, targets, members } = await loadForPage(`/proposals/${proposalId}`, async (actor) => {
+    const proposal = await getProposal({ proposalId }, actor);
+    const [targets, members] = await Promise.all([
+      listTargets({ proposalId }, { sort: sort.id, direction: sort.desc ? "desc" : "asc", page: 1, pageSize: targetPageSize }, actor),
+      listMembers({ proposalId }, actor),
+    ]);
+    return { proposal, targets, members };
+  });
+  const { site, instrument, permissions } = proposal;
+  return (
+    <div className="space-y-8">
+      <header className="space-y-2">
+        <p className="text-sm text-dusk-dim">
+          <Link href="/proposals">Proposals</Link> / {proposal.cycle}
+        </p>
+        <h1 className="text-3xl font-bold">{proposal.title}</h1>
+        <p className="text-sm">
+          Your role: <span className="font-semibold" data-testid="my-role">{roleLabels[proposal.role]}</span>
+        </p>
+        {proposal.abstract && <p className="max-w-3xl leading-relaxed text-dusk-dim">{proposal.abstract}</p>}
+        <dl className="flex flex-wrap gap-x-8 gap-y-1 text-sm">
+          <div>
+            <dt className="inline text-dusk-dim">Site </dt>
+            <dd className="inline">
+              {site.name} ({site.latitudeDeg}°, {site.longitudeDeg}°, {site.elevationM} m; horizon {site.horizonLimitDeg}°)
+            </dd>
+          </div>
+          <div>
+            <dt className="inline text-dusk-dim">Instrument </dt>
+            <dd className="inline">
+              resolution {instrument.resolutionMas} mas · cadence {instrument.cadenceHours} h · campaign {instrument.campaignLengthDays} d
+            </dd>
+          </div>
+        </dl>
+      </header>
+      <section aria-labelledby="targets-heading" className="space-y-4">
+        <h2 id="targets-heading" className="text-2xl font-semibold">
+          Targets
+        </h2>
+        <TargetTable proposalId={proposalId} initialPage={targets} />
+        {permissions.canEdit && <TargetForm proposalId={proposalId} />}
+      </section>
+      <div className="grid gap-8 md:grid-cols-2">
+        <MembersPanel proposalId={proposalId} initialMembers={members} canManage={permissions.canManage} />
+        <ActivityFeed proposalId={proposalId} />
+      </div>
+    </div>
+  );
+}

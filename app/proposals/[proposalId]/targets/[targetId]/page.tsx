@@ -1,0 +1,116 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
+import { TargetNotes } from "@/components/workspace/target-notes";
+import { TargetStatusControl } from "@/components/workspace/target-status";
+import { benchLink } from "@/lib/workspace/bench-link";
+import { statusLabels } from "@/lib/workspace/status";
+import { lensModelLabels } from "@/lib/workspace/target-schema";
+import { listNotes } from "@/lib/server/notes";
+import { loadForPage } from "@/lib/server/page-access";
+import { getProposal } from "@/lib/server/proposals";
+import { getTarget } from "@/lib/server/targets";
+
+export const metadata: Metadata = { title: "Target" };
+
+export default async function TargetPage({ params }: { params: Promise<{ proposalId: string; targetId: string }> }) {
+  const ids = await params;
+  const { proposal, target, notes } = await loadForPage(`/proposals/${ids.proposalId}/targets/${ids.targetId}`, async (actor) => {
+    const [proposal, target, notes] = await Promise.all([getProposal(ids, actor), getTarget(ids, actor), listNotes(ids, actor)]);
+    return { proposal, target, notes };
+  });
+  const apiBase = `/api/proposals/${proposal.id}/targets/${target.id}`;
+  const { instrument } = proposal;
+  const parameters: [string, string][] = [
+    ["Right ascension (ICRS)", `${target.raText} (${formatQuantity(target.raDeg, 8)}°)`],
+    ["Declination (ICRS)", `${target.decText} (${formatQuantity(target.decDeg, 8)}°)`],
+    ["Lens model", lensModelLabels[target.lensModel]],
+    ...(target.lensMassSolar != null ? [["Lens mass", `${formatQuantity(target.lensMassSolar)} M☉`] as [string, string]] : []),
+    ...(target.velocityDispersionKmPerS != null ? [["Velocity dispersion", `${formatQuantity(target.velocityDispersionKmPerS)} km/s`] as [string, string]] : []),
+    ...(target.lensDistancePc != null ? [["Lens / source distance", `${formatQuantity(target.lensDistancePc)} pc / ${formatQuantity(target.sourceDistancePc)} pc`] as [string, string]] : []),
+    ...(target.lensRedshift != null ? [["Lens / source redshift", `${target.lensRedshift} / ${target.sourceRedshift}`] as [string, string]] : []),
+    ["Source offset", `${formatQuantity(target.sourceOffsetThetaE)} θE`],
+    ["Relative proper motion", target.properMotionMasPerYr != null ? `${formatQuantity(target.properMotionMasPerYr)} mas/yr` : "—"],
+    ["Priority", String(target.priority)],
+    ["Tags", target.tags.join(", ") || "—"],
+  ];
+  const computed: [string, string, string][] = [
+    ["einstein-radius", "Einstein radius", `${formatQuantity(target.einsteinRadiusMas)} mas`],
+    ["image-separation", "Image separation", `${formatQuantity(target.imageSeparationMas)} mas`],
+    ["magnification", "Total magnification", formatQuantity(target.magnificationTotal)],
+    ["time-delay", "Time delay between images", `${formatQuantity(target.timeDelayDays)} d`],
+    ["crossing-time", "Einstein crossing time", `${formatQuantity(target.crossingTimeDays)} d`],
+    [
+      "shadow",
+      "Shadow angular diameter",
+      target.shadowDiameterMicroarcsec != null
+        ? `${formatQuantity(target.shadowDiameterMicroarcsec)} µas (${formatQuantity(target.shadowDiameterMicroarcsec / 1000 / instrument.resolutionMas, 3)} × resolution)`
+        : "—",
+    ],
+  ];
+  const verdicts = [
+    ["Resolution", target.resolutionVerdict, `${instrument.resolutionMas} mas`],
+    ["Cadence", target.cadenceVerdict, `${instrument.cadenceHours} h`],
+    ["Campaign", target.campaignVerdict, `${instrument.campaignLengthDays} d`],
+  ] as const;
+
+  return (
+    <div className="space-y-8">
+      <header className="space-y-2">
+        <p className="text-sm text-dusk-dim">
+          <Link href="/proposals">Proposals</Link> / <Link href={`/proposals/${proposal.id}`}>{proposal.title}</Link>
+        </p>
+        <h1 className="text-3xl font-bold">{target.name}</h1>
+        <div className="flex flex-wrap items-center gap-4">
+          {proposal.permissions.canEdit ? (
+            <TargetStatusControl targetUrl={apiBase} status={target.status} />
+          ) : (
+            <p className="text-sm">Status: {statusLabels[target.status]}</p>
+          )}
+          <Link href={benchLink(target, instrument)} className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
+            Open in the lens bench
+          </Link>
+        </div>
+      </header>
+      <div className="grid gap-8 md:grid-cols-2">
+        <section aria-labelledby="hypothesis-heading">
+          <h2 id="hypothesis-heading" className="mb-2 text-xl font-semibold">
+            Lens hypothesis
+          </h2>
+          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+            {parameters.map(([label, value]) => (
+              <div key={label} className="contents">
+                <dt className="text-dusk-dim">{label}</dt>
+                <dd>{value}</dd>
+              </div>
+            ))}
+          </dl>
+        </section>
+        <section aria-labelledby="computed-heading">
+          <h2 id="computed-heading" className="mb-2 text-xl font-semibold">
+            Computed
+          </h2>
+          <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
+            {computed.map(([id, label, value]) => (
+              <div key={id} className="contents">
+                <dt className="text-dusk-dim">{label}</dt>
+                <dd className="tabular-nums text-glint" data-testid={`computed-${id}`}>
+                  {value}
+                </dd>
+              </div>
+            ))}
+            {verdicts.map(([label, verdict, against]) => (
+              <div key={label} className="contents">
+                <dt className="text-dusk-dim">{label} verdict</dt>
+                <dd className={verdictClass[verdict]}>
+                  {verdictLabels[verdict]} <span className="text-dusk-dim">(against {against})</span>
+                </dd>
+              </div>
+            ))}
+          </dl>
+        </section>
+      </div>
+      <TargetNotes notesUrl={`${apiBase}/notes`} initialNotes={notes} canEdit={proposal.permissions.canEdit} />
+    </div>
+  );
+}

@@ -1,0 +1,27 @@
+import type { Verdict } from "@/lib/workspace/verdicts";
+
+/** Four significant digits, exponent form for very small or large values; "—" where there is no value. */
+export function formatQuantity(value: number | null | undefined, digits = 4): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
+  const magnitude = Math.abs(value);
+  if (magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e6)) return value.toExponential(digits - 1);
+  return Number(value.toPrecision(digits)).toString();
+}
+
+export const verdictLabels: Record<Verdict, string> = {
+  feasible: "Feasible",
+  marginal: "Marginal",
+  infeasible: "Not feasible",
+  unknown: "Unknown",
+};
+
+export const verdictClass: Record<Verdict, string> = {
+  feasible: "text-glint",
+  marginal: "text-ember",
+  infeasible: "text-alarm",
+  unknown: "text-dusk-dim",
+};
+
+export function formatDateTime(iso: string): string {
+  return new Date(iso).toLocaleString("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" }) + " UTC";
+}

@@ -1,0 +1,183 @@
+"use client";
+
+import { rowSortingFeature, tableFeatures, useTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
+import Link from "next/link";
+import { useState } from "react";
+import useSWR from "swr";
+import { statusLabels, targetStatuses } from "@/lib/workspace/status";
+import { lensModelLabels, lensModels } from "@/lib/workspace/target-schema";
+import type { TargetPage, TargetView } from "@/lib/server/targets";
+import { swrFetcher } from "@/components/workspace/api-client";
+import { ChoiceOptions } from "@/components/workspace/choice-options";
+import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
+import { emptyFilters, initialTargetSorting, targetListUrl, targetPageSize, type TargetFilters } from "@/components/workspace/target-table-state";
+
+const features = tableFeatures({ rowSortingFeature });
+
+const numberCell = (digits = 4) => (info: { getValue: () => unknown }) => (
+  <span className="tabular-nums">{formatQuantity(info.getValue() as number | null, digits)}</span>
+);
+
+function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[] {
+  return [
+    {
+      accessorKey: "name",
+      header: "Target",
+      cell: (info) => (
+        <Link href={`/proposals/${proposalId}/targets/${info.row.original.id}`} className="font-semibold">
+          {info.row.original.name}
+        </Link>
+      ),
+    },
+    { accessorKey: "raDeg", header: "RA", cell: (info) => <span className="tabular-nums">{info.row.original.raText}</span> },
+    { accessorKey: "decDeg", header: "Dec", cell: (info) => <span className="tabular-nums">{info.row.original.decText}</span> },
+    { accessorKey: "lensModel", header: "Lens", enableSorting: false, cell: (info) => (info.getValue() === "point" ? "Point" : "SIS") },
+    { accessorKey: "priority", header: "Prio." },
+    { accessorKey: "status", header: "Status", cell: (info) => statusLabels[info.row.original.status] },
+    { accessorKey: "einsteinRadiusMas", header: "θE (mas)", cell: numberCell() },
+    { accessorKey: "imageSeparationMas", header: "Sep. (mas)", cell: numberCell() },
+    { accessorKey: "magnificationTotal", header: "μ total", cell: numberCell(3) },
+    { accessorKey: "timeDelayDays", header: "Δt (d)", cell: numberCell(3) },
+    { accessorKey: "crossingTimeDays", header: "tE (d)", cell: numberCell(3) },
+    {
+      id: "verdicts",
+      header: "Resolution · cadence · campaign",
+      enableSorting: false,
+      cell: (info) => {
+        const t = info.row.original;
+        return (
+          <span className="whitespace-nowrap text-xs">
+            {[t.resolutionVerdict, t.cadenceVerdict, t.campaignVerdict].map((v, i) => (
+              <span key={i} className={`${verdictClass[v]} mr-2`}>
+                {verdictLabels[v]}
+              </span>
+            ))}
+          </span>
+        );
+      },
+    },
+  ];
+}
+
+/**
+ * The proposal's targets: sorted, filtered and paged on the server (so 10,000 targets cost one page
+ * of rows here), with the computed lensing columns and feasibility verdicts.
+ */
+export function TargetTable({ proposalId, initialPage }: { proposalId: string; initialPage: TargetPage }) {
+  const [sorting, setSorting] = useState<SortingState>(initialTargetSorting);
+  const [page, setPage] = useState(1);
+  const [filters, setFilters] = useState<TargetFilters>(emptyFilters);
+  const initialUrl = targetListUrl(proposalId, initialTargetSorting, 1, targetPageSize, emptyFilters);
+  const url = targetListUrl(proposalId, sorting, page, targetPageSize, filters);
+  const { data, error, isLoading } = useSWR<TargetPage>(url, swrFetcher, {
+    fallbackData: url === initialUrl ? initialPage : undefined,
+    keepPreviousData: true,
+  });
+  const rows = data?.rows ?? [];
+  const table = useTable({
+    features,
+    columns: columnsFor(proposalId),
+    data: rows,
+    manualSorting: true,
+    enableMultiSort: false,
+    state: { sorting },
+    onSortingChange: (updater) => {
+      setSorting(updater);
+      setPage(1);
+    },
+  });
+  const total = data?.total ?? 0;
+  const pageCount = Math.max(1, Math.ceil(total / targetPageSize));
+  const setFilter = (key: keyof TargetFilters) => (event: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
+    setFilters((f) => ({ ...f, [key]: event.target.value }));
+    setPage(1);
+  };
+
+  return (
+    <div className="space-y-3">
+      <div className="flex flex-wrap items-end gap-3 text-sm" role="search" aria-label="Filter targets">
+        <label className="flex flex-col">
+          Name contains
+          <input value={filters.q} onChange={setFilter("q")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1" />
+        </label>
+        <label className="flex flex-col">
+          Status
+          <select value={filters.status} onChange={setFilter("status")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+            <option value="">Any</option>
+            <ChoiceOptions values={targetStatuses} labels={statusLabels} />
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Lens model
+          <select value={filters.lensModel} onChange={setFilter("lensModel")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+            <option value="">Any</option>
+            <ChoiceOptions values={lensModels} labels={lensModelLabels} />
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Tag
+          <input value={filters.tag} onChange={setFilter("tag")} className="mt-1 w-28 rounded border border-void-edge bg-void px-2 py-1" />
+        </label>
+        <span className="ml-auto text-dusk-dim" aria-live="polite">
+          {isLoading ? "Loading…" : `${total} target${total === 1 ? "" : "s"}`}
+        </span>
+      </div>
+      {error && <p role="alert" className="text-alarm">{error.message}</p>}
+      <div className="overflow-x-auto rounded-lg border border-void-edge">
+        <table className="w-full text-left text-sm" data-testid="target-table">
+          <thead className="bg-void-raised text-dusk-dim">
+            {table.getHeaderGroups().map((group) => (
+              <tr key={group.id}>
+                {group.headers.map((header) => {
+                  const sorted = header.column.getIsSorted();
+                  const canSort = header.column.getCanSort();
+                  return (
+                    <th key={header.id} scope="col" className="px-3 py-2 font-semibold" aria-sort={sorted ? (sorted === "asc" ? "ascending" : "descending") : undefined}>
+                      {canSort ? (
+                        <button type="button" className="hover:text-dusk" onClick={header.column.getToggleSortingHandler()}>
+                          <table.FlexRender header={header} />
+                          {sorted === "asc" ? " ▲" : sorted === "desc" ? " ▼" : ""}
+                        </button>
+                      ) : (
+                        <table.FlexRender header={header} />
+                      )}
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody className="divide-y divide-void-edge">
+            {table.getRowModel().rows.map((row) => (
+              <tr key={row.id} data-testid="target-row">
+                {row.getAllCells().map((cell) => (
+                  <td key={cell.id} className="px-3 py-2" data-column={cell.column.id}>
+                    <table.FlexRender cell={cell} />
+                  </td>
+                ))}
+              </tr>
+            ))}
+            {rows.length === 0 && !isLoading && (
+              <tr>
+                <td colSpan={12} className="px-3 py-6 text-center text-dusk-dim">
+                  No targets match.
+                </td>
+              </tr>
+            )}
+          </tbody>
+        </table>
+      </div>
+      <nav aria-label="Target pages" className="flex items-center gap-3 text-sm">
+        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
+          Previous
+        </button>
+        <span>
+          Page {page} of {pageCount}
+        </span>
+        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page >= pageCount} onClick={() => setPage((p) => p + 1)}>
+          Next
+        </button>
+      </nav>
+    </div>
+  );
+}
