@@ -28,13 +28,6 @@ export function requireNonNegative(name: string, value: number): void {
   }
 }
 
-/** Throws unless `value` lies in the half-open interval [low, high). */
-export function requireInRange(name: string, value: number, low: number, high: number): void {
-  if (!(value >= low && value < high)) {
-    throw new RangeError(`${name} must lie in [${low}, ${high}), got ${describe(value)}`);
-  }
-}
-
 /** Throws with a domain described in words (for domains that depend on other arguments). */
 export function domainError(name: string, value: number, domain: string): RangeError {
   return new RangeError(`${name} must be ${domain}, got ${describe(value)}`);
