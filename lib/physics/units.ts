@@ -1,7 +1,8 @@
 /**
  * Parsing and formatting of the quantities astronomers type, on mathjs units. Every input field of the
  * product reads through these functions, so they accept the common spellings (`4e6 Msun`, `8.1 kpc`,
- * `45 uas`, `45 µas`, `1.2″`, `5 mas/yr`, `1 d`, `4×10^6 M☉`) and reject nonsense with a QuantityError
+ * `45 uas`, `45 µas`, `1.2″`, `5 mas/yr`, `1 d`, `4×10^6 M☉`, `M_sun`, a decimal comma `8,1 kpc`, a
+ * thousands comma `1,000 pc`) and reject nonsense with a QuantityError
  * that names the quantity. Conversion factors come from ./constants only.
  *
  * Results: masses in solar masses, distances in parsecs, angles in radians, velocities in km/s,
@@ -25,7 +26,7 @@ import {
 const math = create({ unitDependencies, createUnitDependencies });
 
 math.createUnit({
-  Msun: { definition: `${SOLAR_MASS_KG} kg`, aliases: ["Msol", "M_sun", "solMass", "Mo"] },
+  Msun: { definition: `${SOLAR_MASS_KG} kg`, aliases: ["Msol", "solMass", "Mo"] },
   pc: { definition: `${PARSEC_M} m`, prefixes: "short", aliases: ["parsec", "parsecs"] },
   au: { definition: `${AU_M} m`, aliases: ["AU", "ua"] },
   ly: { definition: `${LIGHT_YEAR_M} m`, aliases: ["lyr", "lightyear", "lightyears"] },
@@ -68,6 +69,9 @@ function normalize(text: string): string {
     .replace(/[\u00b5\u03bc]/g, "u") // micro sign and Greek mu
     .replace(/[\u2212\u2013]/g, "-") // minus sign, en dash
     .replace(/M\s*[\u2609\u2299]/g, "Msun") // M☉, M⊙
+    .replace(/\bM_(sun|sol)\b/g, "Msun")
+    .replace(/(\d),(\d{3})(?!\d)/g, "$1$2") // thousands separator: 1,000 pc
+    .replace(/(\d),(\d)/g, "$1.$2") // decimal comma: 8,1 kpc
     .replace(/(\d)\s*[x\u00d7*]\s*10\s*\^\s*([+-]?\d+)/g, "$1e$2") // 4×10^6
     .replace(/\s*(\u2033|")\s*/g, " arcsec ")
     .replace(/\s*(\u2032|')\s*/g, " arcmin ")

@@ -54,6 +54,9 @@ describe("parsers", () => {
     expect(relativeError(parseDistance("2.1 ly"), values.ly_pc)).toBeLessThan(ULP4);
     expect(relativeError(parseDistance("1 au"), values.au_pc)).toBeLessThan(ULP4);
     expect(parseDistance("12", { defaultUnit: "pc" })).toBe(12);
+    // common practice: decimal comma and thousands comma as typed in many locales
+    expect(parseDistance("8,1 kpc")).toBe(parseDistance("8.1 kpc"));
+    expect(parseDistance("1,000 pc")).toBe(1000);
   });
 
   it("read angles, including the micro sign and typographic seconds", () => {
@@ -82,6 +85,7 @@ describe("parsers", () => {
     // GM_sun/c^2 = 1476.6 m and GM_sun/c^3 = 4.925 us (IAU 2015 B3 nominal GM_sun)
     expect(parseMass("4e6 Msun")).toEqual({ massSolar: 4e6, interpretedAs: "mass" });
     expect(parseMass("4×10^6 M☉").massSolar).toBe(4e6);
+    expect(parseMass("10 M_sun").massSolar).toBe(10);
     expect(parseMass("1.48 km")).toMatchObject({ interpretedAs: "geometrized length" });
     expect(parseMass("1.48 km").massSolar).toBeCloseTo(1.0023, 4);
     expect(parseMass("4.9 us").massSolar).toBeCloseTo(0.994825, 6);
