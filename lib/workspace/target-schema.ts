@@ -46,13 +46,14 @@ export const targetFieldsSchema = z.object({
   properMotionMasPerYr: optionalPositive("The relative proper motion is a positive number of mas/yr."),
   priority: z.number().int().min(1, "Priority runs from 1 (highest) to 5.").max(5, "Priority runs from 1 (highest) to 5."),
   status: z.enum(targetStatuses),
-  tags: z.array(tagSchema).max(12, "At most 12 tags.").default([]),
+  tags: z.array(tagSchema).max(12, "At most 12 tags."),
 });
 
 export type TargetFields = z.infer<typeof targetFieldsSchema>;
 
-/** New targets always start as candidates. */
-export const createTargetSchema = targetFieldsSchema.omit({ status: true });
+/** New targets always start as candidates. The tags default lives here only: a default in the base
+ * would survive `.partial()` and clear a target's tags on every update that does not send them. */
+export const createTargetSchema = targetFieldsSchema.omit({ status: true }).extend({ tags: targetFieldsSchema.shape.tags.default([]) });
 export const updateTargetSchema = targetFieldsSchema.partial();
 
 export type CreateTargetInput = z.infer<typeof createTargetSchema>;

@@ -1,0 +1,62 @@
+import { describe, expect, it } from "vitest";
+import { CoordinateError, formatDeclination, formatRightAscension, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+
+describe("right ascension", () => {
+  it.each([
+    ["17 45 40.04", 266.41683333],
+    ["17:45:40.04", 266.41683333],
+    ["17h45m40.04s", 266.41683333],
+    ["0 0 0", 0],
+    ["266.4168", 266.4168],
+    ["266.4168d", 266.4168],
+    [359.999, 359.999],
+  ])("%s → %f degrees", (input, degrees) => {
+    expect(parseRightAscensionDeg(input)).toBeCloseTo(degrees, 7);
+  });
+
+  it.each([
+    ["24 00 00", /hours must be below 24/],
+    ["12 60 00", /minutes must be below 60/],
+    ["12 00 60", /seconds must be below 60/],
+    ["-01 00 00", /cannot be negative/],
+    ["360", /\[0, 360\)/],
+    ["north", /hours "hh mm ss.s" or degrees/],
+    ["", /hours "hh mm ss.s" or degrees/],
+  ])("refuses %j", (input, message) => {
+    expect(() => parseRightAscensionDeg(input)).toThrow(CoordinateError);
+    expect(() => parseRightAscensionDeg(input)).toThrow(message);
+  });
+});
+
+describe("declination", () => {
+  it.each([
+    ["-29 00 28.1", -29.00780556],
+    ["-00 30 00", -0.5],
+    ["+41d16m09s", 41.26916667],
+    ["-29.0078", -29.0078],
+    [90, 90],
+  ])("%s → %f degrees", (input, degrees) => {
+    expect(parseDeclinationDeg(input)).toBeCloseTo(degrees, 7);
+  });
+
+  it("keeps the sign of a declination between 0 and -1 degree", () => {
+    expect(parseDeclinationDeg("-00 00 01")).toBeLessThan(0);
+  });
+
+  it.each(["-90 00 01", "91", "12 75 00"])("refuses %j", (input) => {
+    expect(() => parseDeclinationDeg(input)).toThrow(CoordinateError);
+  });
+});
+
+describe("display", () => {
+  it("round-trips through the sexagesimal text", () => {
+    expect(formatRightAscension(266.41683333)).toBe("17h45m40.04s");
+    expect(formatDeclination(-29.00780556)).toBe("−29°00′28.1″");
+    expect(parseRightAscensionDeg(formatRightAscension(123.456789).replace(/[hm]/g, " ").replace("s", ""))).toBeCloseTo(123.456789, 4);
+  });
+
+  it("never prints 60 seconds (regression: rounding carried into the next minute)", () => {
+    expect(formatRightAscension(((59 * 60 + 59.999) / 3600) * 15)).toBe("01h00m00.00s");
+    expect(formatDeclination(-(10 + 59 / 60 + 59.97 / 3600))).toBe("−11°00′00.0″");
+  });
+});
