@@ -9,8 +9,9 @@ import { RayTracePool } from "@/workers/ray-trace-pool";
 /** Work shorter than this finishes before a progress bar would be worth showing. */
 const PROGRESS_DELAY_MS = 200;
 
-/** Performance marks the browser benchmark reads: from the trace request to the bundle on screen. */
+/** Performance marks the browser benchmark reads: the trace request, and the bundle assembled from the workers. */
 export const TRACE_START_MARK = "bench:trace-start";
+export const TRACE_DONE_MARK = "bench:trace-done";
 
 export interface RayTraceState {
   /** The last bundle that finished tracing (kept on screen while a newer one is traced). */
@@ -46,7 +47,10 @@ export function useRayTrace() {
         if (performance.now() - startedAt < PROGRESS_DELAY_MS) return;
         setState((previous) => (previous.isTracing ? { ...previous, progress: raysDone / rayCount } : previous));
       });
-      if (outcome.status === "done") setState({ bundle: outcome.bundle, isTracing: false });
+      if (outcome.status === "done") {
+        performance.mark(TRACE_DONE_MARK);
+        setState({ bundle: outcome.bundle, isTracing: false });
+      }
     } catch (error) {
       setState((previous) => ({ bundle: previous.bundle, isTracing: false, error: error instanceof Error ? error.message : String(error) }));
     }

@@ -59,7 +59,7 @@ export default function RayBundleCanvas({ bundle, startRadiusM, onCanvasReady, o
       frameloop="demand"
       dpr={1}
       camera={{ position: [0, 0, distance], fov: FIELD_OF_VIEW_DEG, near: 0.1, far: 20 * distance }}
-      gl={{ preserveDrawingBuffer: true, antialias: true }}
+      gl={{ preserveDrawingBuffer: true, antialias: false }}
       onCreated={({ gl }) => onCanvasReady(gl.domElement)}
       data-testid="ray-bundle-canvas"
     >
