@@ -5,6 +5,7 @@
 //   (c) the same rays by scipy solve_ivp DOP853 at the same tolerance (target >= 100x slower), with
 //       the accuracy of both against the closed-form deflection
 import { spawnSync } from "node:child_process";
+import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
 import { criticalImpactParameter, exactDeflection, traceRayBundle } from "@/lib/physics";
 
@@ -27,15 +28,23 @@ function median(values: number[]): number {
   return sorted[Math.floor(sorted.length / 2)];
 }
 
-function timeSeconds(run: () => void, repeats: number): { best: number; median: number } {
+/** Wall-clock best and median, and the median CPU time of this (single-threaded) process. */
+function timeSeconds(run: () => void, repeats: number): { best: number; median: number; cpuMedian: number } {
   const times: number[] = [];
+  const cpuTimes: number[] = [];
   for (let r = 0; r < repeats; r++) {
+    const cpuStart = process.cpuUsage();
     const started = performance.now();
     run();
     times.push((performance.now() - started) / 1000);
+    const cpu = process.cpuUsage(cpuStart);
+    cpuTimes.push((cpu.user + cpu.system) / 1e6);
   }
-  return { best: Math.min(...times), median: median(times) };
+  return { best: Math.min(...times), median: median(times), cpuMedian: median(cpuTimes) };
 }
+
+const describeLoad = () => `load average ${loadavg().map((value) => value.toFixed(1)).join(" ")} on ${cpus().length} CPUs`;
+console.log(`physics bench, ${describeLoad()} (timings of a shared machine are upper bounds)`);
 
 // (a) exact deflections
 const bc = criticalImpactParameter(1);
@@ -50,7 +59,7 @@ const deflectionRun = () => {
 deflectionRun(); // JIT warm-up
 const deflectionTime = timeSeconds(deflectionRun, REPEATS);
 const perSecond = DEFLECTION_COUNT / deflectionTime.median;
-console.log(`(a) exactDeflection: ${(perSecond / 1e6).toFixed(1)} million/s (median of ${REPEATS}; best ${(DEFLECTION_COUNT / deflectionTime.best / 1e6).toFixed(1)} million/s) over ${DEFLECTION_COUNT} b from b_c(1+1e-6) to 1e9 M; target 5 million/s: ${(perSecond / 5e6).toFixed(1)}x the target [checksum ${checksum.toExponential(3)}]`);
+console.log(`(a) exactDeflection: ${(perSecond / 1e6).toFixed(1)} million/s (median of ${REPEATS}; best ${(DEFLECTION_COUNT / deflectionTime.best / 1e6).toFixed(1)} million/s) over ${DEFLECTION_COUNT} b from b_c(1+1e-6) to 1e9 M; ${(perSecond / 5e6).toFixed(1)}x the 5 million/s target [checksum ${checksum.toExponential(3)}]`);
 
 // (b) ray bundle: b uniform in [-30 M, 30 M] (escaped, captured and winding rays, as the lens view draws)
 const rays = new Float64Array(RAY_COUNT);
@@ -62,7 +71,7 @@ const rayTime = timeSeconds(() => {
 }, REPEATS);
 const fateCounts = [0, 0, 0];
 for (const fate of bundle.fates) fateCounts[fate]++;
-console.log(`(b) traceRayBundle: ${RAY_COUNT} rays x ${SAMPLES} samples at rtol ${RTOL}: ${rayTime.median.toFixed(3)} s median of ${REPEATS} (best ${rayTime.best.toFixed(3)} s), one thread; target 0.3 s: ${(0.3 / rayTime.median).toFixed(2)}x inside the target (${fateCounts[0]} escaped, ${fateCounts[1]} captured, ${fateCounts[2]} winding)`);
+console.log(`(b) traceRayBundle: ${RAY_COUNT} rays x ${SAMPLES} samples at rtol ${RTOL}: ${rayTime.median.toFixed(3)} s median of ${REPEATS} (best ${rayTime.best.toFixed(3)} s; CPU ${rayTime.cpuMedian.toFixed(3)} s), one thread; that is ${(rayTime.best / 0.3).toFixed(2)} (best) and ${(rayTime.median / 0.3).toFixed(2)} (median) of the 0.3 s target (${fateCounts[0]} escaped, ${fateCounts[1]} captured, ${fateCounts[2]} winding)`);
 
 function deflectionErrors(indices: number[], deflections: (number | null)[]): { absolute: number; relative: number; count: number } {
   let absolute = 0;
@@ -108,3 +117,4 @@ if (baseline.status !== 0) {
   console.log(`    equal or better accuracy, ours at rtol ${EQUAL_ACCURACY_RTOL}: ${tightTime.median.toFixed(3)} s median (best ${tightTime.best.toFixed(3)} s), ${(extrapolated / tightTime.median).toFixed(0)}x faster than the baseline; error ${oursTight.absolute.toExponential(2)} rad (relative ${oursTight.relative.toExponential(2)}) vs scipy's ${theirs.absolute.toExponential(2)} rad`);
   console.log(`    ours at rtol ${RTOL} over all ${allOurs.count} escaped rays of the bundle: ${allOurs.absolute.toExponential(2)} rad (relative ${allOurs.relative.toExponential(2)})`);
 }
+console.log(`physics bench done, ${describeLoad()}`);
