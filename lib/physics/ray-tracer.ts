@@ -10,17 +10,17 @@
  *
  * Method: the orbit equation in the swept polar angle sigma (Darwin 1959), written for w = b u,
  * u = 1/r: w'' = 3 (M/b) w^2 - w, with coordinate time tau = t/b from dtau/dsigma = 1/(w^2 (1 - 2Mw/b))
- * (dt/dphi = r^2/(b (1 - 2M/r)) from the conserved energy and angular momentum; integrated as
- * chi = tau + w'/w, see ./orbit-integrator), by
- * Dormand-Prince 5(4) with dense output (./orbit-integrator). Samples are uniform in sigma along the
- * traced path. The deflection of an escaped ray is its swept angle extended to infinity at both ends
+ * (dt/dphi = r^2/(b (1 - 2M/r)) from the conserved energy and angular momentum; carried as
+ * chi = tau + w'/w), by Dormand-Prince 5(4) with dense output (./orbit-integrator). Samples are
+ * uniform in sigma along the traced path. The deflection of an escaped ray is its swept angle extended to infinity at both ends
  * by the exact tail integrals (sweptAngleFromInfinity), minus pi, so it is the asymptotic deflection
  * and agrees with exactDeflection to < 1e-9 rad at rtol 1e-10 (tested).
  *
  * Winding: halfTurns = floor(swept angle / pi) of the traced path (0 or 1 for a ray that merely
  * passes the lens). A ray is "winding" when it sweeps at least 2 pi, i.e. circles the lens at least
- * once near the photon sphere (b/b_c - 1 below ~0.03 at R = 60 M, where alpha exceeds pi + 0.17), or when the maxHalfTurns or step
- * cap stops it first; its fate is then "winding" whether it would finally escape or fall in.
+ * once near the photon sphere (|b/b_c - 1| below ~0.03 at R = 60 M, where alpha exceeds pi + 0.17),
+ * or when the maxHalfTurns or step cap stops it first; its fate is then "winding" whether it would
+ * finally escape or fall in.
  */
 
 import { sweptAngleFromInfinity } from "./deflection";
