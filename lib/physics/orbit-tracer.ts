@@ -33,6 +33,7 @@ export interface TracedOrbit {
   radialPeriod: number;
 }
 
+/** Options of traceBoundOrbit. */
 export interface OrbitTraceOptions {
   /** Radial periods to trace (integer 1..100, default 3). */
   orbits?: number;

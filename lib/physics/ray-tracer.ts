@@ -45,6 +45,7 @@ export interface TracedRay {
   halfTurns: number;
 }
 
+/** Options of traceRay and traceRayBundle; lengths in the unit of M. */
 export interface TraceOptions {
   /** Samples per ray (>= 2, default 512). */
   samples?: number;

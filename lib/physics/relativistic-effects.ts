@@ -78,8 +78,17 @@ export function exactPeriastronAdvance(massSolar: number, semiMajorAxisAu: numbe
   return advanceFromMassOverP(mu, eccentricity);
 }
 
-/** 2 pi (1/AGM(sqrt(1 - d1), sqrt(1 - d2)) - 1) with d1,2 = 2 mu (3 +- e); see exactPeriastronAdvance. */
+/**
+ * Exact periastron advance per radial period, radians, of the bound orbit with mu = M/p (p the
+ * semi-latus rectum in Schwarzschild coordinates) and eccentricity e: 2 pi (1/AGM(sqrt(1 - d1),
+ * sqrt(1 - d2)) - 1), d1,2 = 2 mu (3 +- e) (see exactPeriastronAdvance for source and accuracy).
+ * Domain: 0 <= e < 1, 0 <= massOverP < 1/(6 + 2e).
+ */
 export function advanceFromMassOverP(massOverP: number, eccentricity: number): number {
+  if (!(eccentricity >= 0 && eccentricity < 1)) throw domainError("eccentricity", eccentricity, "in [0, 1) (a bound orbit)");
+  if (!(massOverP >= 0 && massOverP < separatrixMassOverP(eccentricity))) {
+    throw domainError("massOverP", massOverP, `in [0, 1/(6 + 2e) = ${separatrixMassOverP(eccentricity)}) (a stable bound orbit)`);
+  }
   const y = 2 * massOverP * (3 + eccentricity);
   const z = 2 * massOverP * (3 - eccentricity);
   // deviations of the AGM pair from 1: a = 1 - da, g = 1 - dg
