@@ -8,6 +8,12 @@ export function formatQuantity(value: number | null | undefined, digits = 4): st
   return Number(value.toPrecision(digits)).toString();
 }
 
+/** A value with its unit, or a bare "—" when there is no value. */
+export function formatWithUnit(value: number | null | undefined, unit: string, digits = 4): string {
+  const text = formatQuantity(value, digits);
+  return text === "—" ? text : `${text} ${unit}`;
+}
+
 export const verdictLabels: Record<Verdict, string> = {
   feasible: "Feasible",
   marginal: "Marginal",

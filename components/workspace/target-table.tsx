@@ -69,7 +69,7 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
   const [filters, setFilters] = useState<TargetFilters>(emptyFilters);
   const initialUrl = targetListUrl(proposalId, initialTargetSorting, 1, targetPageSize, emptyFilters);
   const url = targetListUrl(proposalId, sorting, page, targetPageSize, filters);
-  const { data, error, isLoading } = useSWR<TargetPage>(url, swrFetcher, {
+  const { data, error } = useSWR<TargetPage>(url, swrFetcher, {
     fallbackData: url === initialUrl ? initialPage : undefined,
     keepPreviousData: true,
   });
@@ -119,7 +119,7 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
           <input value={filters.tag} onChange={setFilter("tag")} className="mt-1 w-28 rounded border border-void-edge bg-void px-2 py-1" />
         </label>
         <span className="ml-auto text-dusk-dim" aria-live="polite">
-          {isLoading ? "Loading…" : `${total} target${total === 1 ? "" : "s"}`}
+          {data ? `${total} target${total === 1 ? "" : "s"}` : "Loading…"}
         </span>
       </div>
       {error && <p role="alert" className="text-alarm">{error.message}</p>}
@@ -157,7 +157,7 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
                 ))}
               </tr>
             ))}
-            {rows.length === 0 && !isLoading && (
+            {rows.length === 0 && data && (
               <tr>
                 <td colSpan={12} className="px-3 py-6 text-center text-dusk-dim">
                   No targets match.

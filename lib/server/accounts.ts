@@ -29,9 +29,10 @@ export async function findActor(userId: string): Promise<Actor | null> {
   return user ? actorOf(user) : null;
 }
 
-/** Creates an account with a password. The e-mail must be new. */
-export async function signUp(input: unknown): Promise<Actor> {
+/** Creates an account with a password. The e-mail must be new; sign-ups are rate-limited per address. */
+export async function signUp(input: unknown, clientAddress: string): Promise<Actor> {
   const { email, name, password } = parseOrThrow(signUpSchema, input, "account");
+  await consumeAttempt({ bucket: `sign-up:address:${clientAddress}`, limit: signInLimits.perAddress, windowSeconds: signInLimits.windowSeconds }, "sign-up");
   const passwordHash = await hashPassword(password);
   const [user] = await dbClient().db.insert(users).values({ email, name, passwordHash }).onConflictDoNothing().returning();
   if (!user) {

@@ -1,5 +1,5 @@
 import "server-only";
-import { sql } from "drizzle-orm";
+import { and, eq, lt, sql } from "drizzle-orm";
 import { dbClient } from "@/db/client";
 import { rateLimitCounters } from "@/db/schema";
 import { AppError } from "@/lib/errors";
@@ -26,14 +26,13 @@ export async function consumeAttempt({ bucket, limit, windowSeconds }: RateLimit
       set: { hits: sql`${rateLimitCounters.hits} + 1` },
     })
     .returning({ hits: rateLimitCounters.hits });
+  // The first attempt of a new window drops this bucket's older windows, so counters do not pile up.
+  if (row.hits === 1) {
+    await db.delete(rateLimitCounters).where(and(eq(rateLimitCounters.bucket, bucket), lt(rateLimitCounters.windowStart, windowStartSql)));
+  }
   if (row.hits > limit) {
     throw new AppError(`rate_limited:${subject}`, "Too many attempts; wait a few minutes and try again.", undefined, {
       retryAfterSeconds: windowSeconds,
     });
   }
-}
-
-/** Drops windows older than a day so the table stays small; called opportunistically. */
-export async function pruneRateLimits(): Promise<void> {
-  await dbClient().db.delete(rateLimitCounters).where(sql`${rateLimitCounters.windowStart} < now() - interval '1 day'`);
 }

@@ -33,9 +33,9 @@ const address = () => `198.51.100.${Math.floor(Math.random() * 250)}-${randomUUI
 describe("accounts", () => {
   it("signs up (e-mail kept lower-case), refuses a second account for the address, signs in with the password", async () => {
     const email = freshEmail("ada");
-    const actor = await signUp({ email, name: "Ada Quillon", password: "long-enough-pass" });
+    const actor = await signUp({ email, name: "Ada Quillon", password: "long-enough-pass" }, address());
     expect(actor.email).toBe(email.toLowerCase());
-    await expect(signUp({ email: email.toUpperCase(), name: "Again", password: "long-enough-pass" })).rejects.toMatchObject({ code: "conflict:account" });
+    await expect(signUp({ email: email.toUpperCase(), name: "Again", password: "long-enough-pass" }, address())).rejects.toMatchObject({ code: "conflict:account" });
     await expect(authenticateWithPassword({ email, password: "long-enough-pass" }, address())).resolves.toMatchObject({ userId: actor.userId });
     await expect(authenticateWithPassword({ email, password: "wrong-password" }, address())).resolves.toBeNull();
   });
@@ -52,7 +52,7 @@ describe("accounts", () => {
 
   it("takes as long for an unknown e-mail as for a wrong password", async () => {
     const email = freshEmail("timing");
-    await signUp({ email, name: "Timing", password: "long-enough-pass" });
+    await signUp({ email, name: "Timing", password: "long-enough-pass" }, address());
     const time = async (input: { email: string; password: string }) => {
       const started = performance.now();
       await authenticateWithPassword(input, address());
@@ -75,7 +75,7 @@ describe("accounts", () => {
 
   it("limits sign-in attempts per account, whatever the address", async () => {
     const email = freshEmail("guessed");
-    await signUp({ email, name: "Guessed", password: "long-enough-pass" });
+    await signUp({ email, name: "Guessed", password: "long-enough-pass" }, address());
     for (let i = 0; i < signInLimits.perAccount; i++) {
       await expect(authenticateWithPassword({ email, password: "nope" }, address())).resolves.toBeNull();
     }
@@ -93,7 +93,7 @@ describe("accounts", () => {
 
   it("resets a password through the e-mailed link, which works once", async () => {
     const email = freshEmail("forgetful");
-    await signUp({ email, name: "Forgetful", password: "old-password-1" });
+    await signUp({ email, name: "Forgetful", password: "old-password-1" }, address());
     await requestPasswordReset({ email }, address());
     const message = mail.messages.findLast((m) => m.to.includes(email.toLowerCase()))!;
     expect(message.subject).toBe("Reset your Arcwright password");
@@ -112,7 +112,7 @@ describe("accounts", () => {
 
   it("signs in once from an e-mailed link", async () => {
     const email = freshEmail("linked");
-    const actor = await signUp({ email, name: "Linked", password: "long-enough-pass" });
+    const actor = await signUp({ email, name: "Linked", password: "long-enough-pass" }, address());
     await requestSignInLink({ email }, address());
     const message = mail.messages.findLast((m) => m.to.includes(email.toLowerCase()))!;
     const token = linkIn(message).searchParams.get("token");

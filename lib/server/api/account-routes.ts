@@ -15,7 +15,7 @@ const sameAnswerEitherWay = () =>
 export const accountRoutes = {
   /** POST /api/account/sign-up */
   signUp: endpoint(signedOut, async ({ request }) => {
-    const actor = await signUp(await readJson(request));
+    const actor = await signUp(await readJson(request), clientAddress(request));
     return Response.json({ account: { email: actor.email, name: actor.name } }, { status: 201 });
   }),
   /** POST /api/account/reset-request */

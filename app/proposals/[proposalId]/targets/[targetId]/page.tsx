@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
+import { formatQuantity, formatWithUnit, verdictClass, verdictLabels } from "@/components/workspace/format";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
 import { benchLink } from "@/lib/workspace/bench-link";
@@ -30,16 +30,16 @@ export default async function TargetPage({ params }: { params: Promise<{ proposa
     ...(target.lensDistancePc != null ? [["Lens / source distance", `${formatQuantity(target.lensDistancePc)} pc / ${formatQuantity(target.sourceDistancePc)} pc`] as [string, string]] : []),
     ...(target.lensRedshift != null ? [["Lens / source redshift", `${target.lensRedshift} / ${target.sourceRedshift}`] as [string, string]] : []),
     ["Source offset", `${formatQuantity(target.sourceOffsetThetaE)} θE`],
-    ["Relative proper motion", target.properMotionMasPerYr != null ? `${formatQuantity(target.properMotionMasPerYr)} mas/yr` : "—"],
+    ["Relative proper motion", formatWithUnit(target.properMotionMasPerYr, "mas/yr")],
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
   ];
   const computed: [string, string, string][] = [
-    ["einstein-radius", "Einstein radius", `${formatQuantity(target.einsteinRadiusMas)} mas`],
-    ["image-separation", "Image separation", `${formatQuantity(target.imageSeparationMas)} mas`],
+    ["einstein-radius", "Einstein radius", formatWithUnit(target.einsteinRadiusMas, "mas")],
+    ["image-separation", "Image separation", formatWithUnit(target.imageSeparationMas, "mas")],
     ["magnification", "Total magnification", formatQuantity(target.magnificationTotal)],
-    ["time-delay", "Time delay between images", `${formatQuantity(target.timeDelayDays)} d`],
-    ["crossing-time", "Einstein crossing time", `${formatQuantity(target.crossingTimeDays)} d`],
+    ["time-delay", "Time delay between images", formatWithUnit(target.timeDelayDays, "d")],
+    ["crossing-time", "Einstein crossing time", formatWithUnit(target.crossingTimeDays, "d")],
     [
       "shadow",
       "Shadow angular diameter",
