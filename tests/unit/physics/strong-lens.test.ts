@@ -18,7 +18,7 @@ interface VirbhadraEllisFixture {
     images: Record<"primary" | "secondary" | "relativisticPrimary" | "relativisticSecondary", FixtureImage>;
   }[];
 }
-const fixture = loadFixture<VirbhadraEllisFixture>("virbhadra_ellis.json");
+const fixture = loadFixture<VirbhadraEllisFixture>("virbhadra-ellis.json");
 
 describe("virbhadraEllisImages", () => {
   it("matches the mpmath solution of the exact lens equation", () => {
