@@ -99,7 +99,7 @@ export function photonSphereExcessFromCriticalExcess(epsilon: number): number {
  */
 export function closestApproach(b: number, M: number): number {
   requirePositive("M", M);
-  if (Number.isNaN(b) || b === -Infinity) throw domainError("b", b, `>= b_c = 3 sqrt(3) M = ${criticalImpactParameter(M)}`);
+  if (Number.isNaN(b) || b === -Infinity) throw domainError("b", b, `> b_c = 3 sqrt(3) M = ${criticalImpactParameter(M)}`);
   if (b === Infinity) return Infinity;
   const epsilon = criticalExcess(b, M);
   if (!(epsilon > 0)) {
