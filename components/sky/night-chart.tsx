@@ -1,0 +1,135 @@
+import { area, line, scaleLinear } from "d3";
+import type { NightVisibility } from "@/lib/astro/visibility";
+import { SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG } from "@/lib/astro/constants";
+import { apparentAltitudeForAirmassDeg } from "@/lib/astro/airmass";
+import { defaultMargins, PlotAxes, PlotLegend } from "@/components/plots/plot-axes";
+import { dashPatterns, plotFont, plotPalette } from "@/components/plots/plot-palette";
+import { formatUtcClock } from "./sky-format";
+
+interface NightChartProps {
+  visibility: NightVisibility;
+  width?: number;
+  height?: number;
+}
+
+/** Sky brightness from the Sun's altitude, lightest (day) to darkest (astronomical darkness). */
+const skyShades = [
+  { below: Infinity, fill: "#3a4356", label: "day" },
+  { below: SUNRISE_GEOMETRIC_ALTITUDE_DEG, fill: "#2c3446", label: "civil twilight" },
+  { below: TWILIGHT_ALTITUDE_DEG.civil, fill: "#212838", label: "nautical twilight" },
+  { below: TWILIGHT_ALTITUDE_DEG.nautical, fill: "#171d2a", label: "astronomical twilight" },
+  { below: TWILIGHT_ALTITUDE_DEG.astronomical, fill: plotPalette.ground, label: "darkness" },
+] as const;
+
+function shadeIndex(sunAltitudeDeg: number): number {
+  let index = 0;
+  for (let i = 1; i < skyShades.length; i++) if (sunAltitudeDeg <= skyShades[i].below) index = i;
+  return index;
+}
+
+const AIRMASS_TICKS = [1.1, 1.3, 1.5, 2, 3];
+const HOUR = 1 / 24;
+
+/**
+ * Altitude of the target through one night (apparent, degrees) with its air mass on the right-hand
+ * axis, the Moon's altitude, the altitude limit, transit, and the sky shaded by twilight. Times on
+ * the axis are UTC hours; the view spans an hour before sunset to an hour after sunrise (the whole
+ * noon-to-noon window when the Sun does not set or rise).
+ */
+export function NightChart({ visibility, width = 760, height = 360 }: NightChartProps) {
+  const { samples, twilight, passages, limit } = visibility;
+  const margins = { ...defaultMargins, right: 56 };
+  const count = samples.jdUtc.length;
+  const windowStart = samples.jdUtc[0];
+  const windowEnd = samples.jdUtc[count - 1];
+  const from = twilight.sunset.eveningJdUtc !== null ? Math.max(windowStart, twilight.sunset.eveningJdUtc - HOUR) : windowStart;
+  const to = twilight.sunset.morningJdUtc !== null ? Math.min(windowEnd, twilight.sunset.morningJdUtc + HOUR) : windowEnd;
+  // Hours on the axis count from 0 UTC of the window's first day, so labels read as UTC clock hours.
+  const dayZero = Math.floor(windowStart - 0.5) + 0.5;
+  const toHours = (jd: number) => (jd - dayZero) * 24;
+  const x = scaleLinear().domain([toHours(from), toHours(to)]).range([margins.left, width - margins.right]);
+  // PlotAxes labels ticks through the scale's own tickFormat: give it clock hours modulo 24.
+  x.tickFormat = () => (value) => `${String(((Number(value) % 24) + 24) % 24).padStart(2, "0")}h`;
+  const y = scaleLinear().domain([0, 90]).range([height - margins.bottom, margins.top]);
+  const [x0, x1] = x.range();
+  const [y0, y1] = y.range();
+
+  const indices = Array.from({ length: count }, (_, k) => k).filter((k) => samples.jdUtc[k] >= from - 0.01 && samples.jdUtc[k] <= to + 0.01);
+  const bands: { start: number; end: number; shade: number }[] = [];
+  for (const k of indices) {
+    const shade = shadeIndex(samples.sunAltitudeDeg[k]);
+    const last = bands.at(-1);
+    if (last && last.shade === shade) last.end = samples.jdUtc[k];
+    else bands.push({ start: samples.jdUtc[k], end: samples.jdUtc[k], shade });
+  }
+  const curve = (values: Float64Array) =>
+    line<number>()
+      .defined((k) => values[k] > -5)
+      .x((k) => x(toHours(samples.jdUtc[k])))
+      .y((k) => y(Math.max(-5, values[k])))(indices) ?? "";
+  const darkAbove = area<number>()
+    .defined((k) => samples.sunAltitudeDeg[k] <= TWILIGHT_ALTITUDE_DEG.astronomical && samples.altitudeDeg[k] >= limit.apparentDeg)
+    .x((k) => x(toHours(samples.jdUtc[k])))
+    .y0(y(limit.apparentDeg))
+    .y1((k) => y(samples.altitudeDeg[k]))(indices) ?? "";
+  const transitX = x(toHours(passages.transitJdUtc));
+  const isTransitShown = passages.transitJdUtc >= from && passages.transitJdUtc <= to;
+  const clipId = `night-clip-${visibility.nightDateIso}`;
+
+  return (
+    <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={`Altitude and air mass through the night of ${visibility.nightDateIso}`} data-testid="night-chart" data-night={visibility.nightDateIso}>
+      <rect width={width} height={height} fill={plotPalette.ground} />
+      <defs>
+        <clipPath id={clipId}>
+          <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} />
+        </clipPath>
+      </defs>
+      <g clipPath={`url(#${clipId})`}>
+        {bands.map((band) => (
+          <rect key={band.start} x={x(toHours(band.start))} width={Math.max(0, x(toHours(band.end + 1 / 288)) - x(toHours(band.start)))} y={y1} height={y0 - y1} fill={skyShades[band.shade].fill} />
+        ))}
+      </g>
+      <PlotAxes x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC)" yLabel="apparent altitude (°)" yTicks={6} title={`Night of ${visibility.nightDateIso}`} />
+      <g clipPath={`url(#${clipId})`}>
+        <path d={darkAbove} fill={plotPalette.bluishGreen} fillOpacity={0.3} />
+        <line x1={x0} x2={x1} y1={y(limit.apparentDeg)} y2={y(limit.apparentDeg)} stroke={plotPalette.orange} strokeDasharray={dashPatterns.dashed} strokeWidth={1.5} />
+        <path d={curve(samples.moonAltitudeDeg)} fill="none" stroke={plotPalette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={2} />
+        <path d={curve(samples.altitudeDeg)} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2.5} />
+        {isTransitShown ? (
+          <g>
+            <line x1={transitX} x2={transitX} y1={y0} y2={y1} stroke={plotPalette.white} strokeDasharray={dashPatterns.dashDot} strokeWidth={1} />
+            <text x={transitX + 4} y={y1 + 14} fontFamily={plotFont} fontSize={11} fill={plotPalette.white}>
+              transit {formatUtcClock(passages.transitJdUtc)}
+            </text>
+          </g>
+        ) : null}
+      </g>
+      <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
+        {AIRMASS_TICKS.map((airmass) => {
+          // Each label sits where Pickering's air mass (not sec z) takes that value.
+          const exact = apparentAltitudeForAirmassDeg(airmass);
+          return (
+            <g key={airmass}>
+              <line x1={x1} x2={x1 + 4} y1={y(exact)} y2={y(exact)} stroke={plotPalette.frame} />
+              <text x={x1 + 7} y={y(exact) + 4}>{airmass}</text>
+            </g>
+          );
+        })}
+        <text transform={`translate(${width - 10} ${(y0 + y1) / 2}) rotate(90)`} textAnchor="middle" fontSize={12}>
+          air mass
+        </text>
+      </g>
+      <PlotLegend
+        x={x0 + 8}
+        y={y1 + 22}
+        entries={[
+          { label: "target", color: plotPalette.skyBlue },
+          { label: "Moon", color: plotPalette.yellow, dash: dashPatterns.dotted },
+          { label: `limit ${limit.apparentDeg.toFixed(1)}° (${limit.binding})`, color: plotPalette.orange, dash: dashPatterns.dashed },
+          { label: "transit", color: plotPalette.white, dash: dashPatterns.dashDot },
+        ]}
+      />
+    </svg>
+  );
+}
+
