@@ -1,11 +1,11 @@
 /** Loads the JSON fixtures written by tests/fixtures/generate_physics.py. */
 import { readFileSync } from "node:fs";
-import { join } from "node:path";
+import { fileURLToPath } from "node:url";
 
-const FIXTURE_DIR = join(process.cwd(), "tests", "fixtures", "physics");
+const FIXTURE_DIR = fileURLToPath(new URL("../../fixtures/physics/", import.meta.url));
 
 export function loadFixture<T>(name: string): T & { versions: Record<string, string> } {
-  return JSON.parse(readFileSync(join(FIXTURE_DIR, name), "utf8"));
+  return JSON.parse(readFileSync(`${FIXTURE_DIR}${name}`, "utf8"));
 }
 
 /** |actual - expected| / |expected| (absolute when expected is 0). */
