@@ -87,8 +87,8 @@ function closedFormDeflection(eta: number): number {
  * (b_c is irrational, so no double equals it; alpha grows like -ln(b/b_c - 1), ~37.7 at the double
  * nearest b_c.)
  * Method: closed form in Carlson's R_F for b < 100 M, the exact power series in M/b above (module
- * comment). Accuracy: 1e-12 relative or better for b from b_c (1 + 1e-9) to 1e12 M, measured against
- * 30-digit mpmath quadrature (tests/fixtures/physics/deflection.json); relative to the exact value at
+ * comment). Accuracy: 3.3e-14 relative or better for b from b_c (1 + 1e-15) to 1e12 M, measured
+ * against 30-digit mpmath quadrature (tests/fixtures/physics/deflection.json); relative to the exact value at
  * the given double b (near b_c the condition number ~1/ln(b/b_c - 1)/(b/b_c - 1) is inherent).
  * Source: Darwin 1959; Carlson 1995; Keeton & Petters 2005.
  */

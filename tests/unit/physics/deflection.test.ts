@@ -93,7 +93,7 @@ describe("closestApproach", () => {
 });
 
 describe("exactDeflection", () => {
-  it("matches 30-digit mpmath quadrature to 1e-12 from b_c(1+1e-9) to 1e12 M", () => {
+  it("matches 30-digit mpmath quadrature to 1e-12 from b_c(1+1e-15) to 1e12 M", () => {
     // fixture from tests/fixtures/generate_physics.py (mpmath quad cross-checked with elliprf)
     let worst = 0;
     let worstB = 0;
