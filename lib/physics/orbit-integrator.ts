@@ -13,7 +13,7 @@
  * doubled the step count; v/w is its flat-space part, cot(phi) on a straight line, and
  * d(v/w)/dsigma = x w - 1/w^2 follows from the first integral v^2 = 1 - w^2 + 2 x w^3.)
  * Scalar stages, so that a step allocates nothing and touches no arrays except its dense record
- * (a general array-based stepper ran this system ~5x slower).
+ * (a general array-based stepper ran this system about 2x slower).
  */
 
 // Butcher tableau (Dormand & Prince 1980, Table 2; Hairer et al. 1993, Table II.5.2).
