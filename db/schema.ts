@@ -2,6 +2,7 @@ import { sql } from "drizzle-orm";
 import {
   bigserial,
   check,
+  date,
   doublePrecision,
   index,
   integer,
@@ -100,6 +101,14 @@ export const proposals = pgTable("proposals", {
   resolutionMas: doublePrecision("resolution_mas").notNull(),
   cadenceHours: doublePrecision("cadence_hours").notNull(),
   campaignLengthDays: doublePrecision("campaign_length_days").notNull(),
+  /** The observing cycle's first and last nights (local evening dates); the season view spans them. */
+  cycleStartDate: date("cycle_start_date", { mode: "string" }),
+  cycleEndDate: date("cycle_end_date", { mode: "string" }),
+  /** Largest airmass the team will observe at (sky windows count dark hours below it). */
+  airmassLimit: doublePrecision("airmass_limit").notNull().default(2),
+  /** An interferometer's observing wavelength and longest baseline, for the shadow against λ/B. */
+  interferometerWavelengthMm: doublePrecision("interferometer_wavelength_mm"),
+  interferometerBaselineKm: doublePrecision("interferometer_baseline_km"),
   createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
   createdAt: createdAt(),
   updatedAt: updatedAt(),

@@ -22,8 +22,8 @@ export const serverEnvSchema = z.object({
   /** Folder where the fake SMTP server keeps every message it received (one JSON file each). */
   ARCWRIGHT_MAILBOX_DIR: z.string().min(1).optional(),
   /**
-   * "1" shows the mailbox page outside development; `npm test` sets it because it serves a
-   * production build. Never set it on a real deployment.
+   * "1" shows the mailbox page of the fake SMTP server; the scripts set it whenever they start that
+   * fake (`npm start`, `npm run dev`, `npm test`). A deployment with a real mail service leaves it unset.
    */
   ARCWRIGHT_DEV_MAILBOX: z.enum(["0", "1"]).default("0"),
 });

@@ -19,10 +19,12 @@ const isDev = process.argv.includes("--dev");
 const stateDir = join(repoRoot, ".data");
 const appPort = Number(process.env.PORT ?? process.env.ARCWRIGHT_PORT ?? 3000);
 const dbPort = Number(process.env.ARCWRIGHT_DB_PORT ?? 54329);
+const uploadsPort = Number(process.env.ARCWRIGHT_UPLOADS_PORT ?? 54331);
 const appUrl = `http://127.0.0.1:${appPort}`;
 const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
 
 let cluster;
+let fakes;
 let stopping = false;
 
 /** .data/postgres, unless the server's user cannot reach the clone (then a folder of its own under /var/lib). */
@@ -40,6 +42,7 @@ async function shutdown(code) {
   stopping = true;
   log("stop", "stopping Arcwright");
   await stopAll();
+  await fakes?.stop();
   cluster?.stop();
   process.exit(code);
 }
@@ -63,7 +66,7 @@ try {
     databaseUrl = cluster.url("arcwright");
   }
 
-  const fakes = await startFakes({ stateDir: join(stateDir, "fakes"), appUrl });
+  fakes = await startFakes({ stateDir: join(stateDir, "fakes"), appUrl, uploadsPort });
   const env = appEnvironment({
     databaseUrl,
     appUrl,

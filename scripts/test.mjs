@@ -6,7 +6,7 @@
 //   npm test                                  every phase
 //   npm test -- --phase unit,integration      only some phases (typecheck, unit, integration, e2e)
 //   npm test -- tests/unit/env.test.ts        extra arguments are vitest file filters
-import { mkdtempSync, chmodSync, readFileSync, existsSync, rmSync } from "node:fs";
+import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
@@ -16,7 +16,7 @@ import { ensureDebianPackages } from "./lib/debian.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
-import { acquireLock } from "./lib/lock.mjs";
+import { tryLock } from "./lib/lock.mjs";
 import { freePort, waitForHttp } from "./lib/ports.mjs";
 import { Cluster } from "./lib/postgres.mjs";
 import { run, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
@@ -40,7 +40,22 @@ function parseArgs(argv) {
 }
 
 let cluster;
-let releaseBuild;
+const cleanups = [];
+
+async function runCleanups() {
+  while (cleanups.length > 0) await cleanups.pop()();
+}
+
+/** `next build` adds its build folder's types to tsconfig.json; a throwaway folder must not stay there. */
+async function buildKeepingTsconfig(env) {
+  const tsconfigPath = join(repoRoot, "tsconfig.json");
+  const tsconfig = readFileSync(tsconfigPath, "utf8");
+  try {
+    await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
+  } finally {
+    if (readFileSync(tsconfigPath, "utf8") !== tsconfig) writeFileSync(tsconfigPath, tsconfig);
+  }
+}
 const totals = { passed: 0, failed: 0, skipped: 0 };
 const failures = [];
 
@@ -97,14 +112,17 @@ async function main() {
     }
 
     if (phases.includes("e2e")) {
-      // One build folder per clone, reused while the sources are unchanged; concurrent runs take turns.
-      const distDir = ".next-test";
-      releaseBuild = await acquireLock(join(repoRoot, `${distDir}.lock`));
+      // The shared build folder is reused while the sources are unchanged; a run that finds it in use
+      // by another run builds into a folder of its own and removes it afterwards.
+      const release = tryLock(join(repoRoot, ".next-test.lock"));
+      const distDir = release ? ".next-test" : `.next-test-${process.pid}`;
+      cleanups.push(release ?? (() => rmSync(join(repoRoot, distDir), { recursive: true, force: true })));
       const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
+      cleanups.push(fakes.stop);
       const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
       const digest = sourceDigest(repoRoot);
       if (!isBuildCurrent(join(repoRoot, distDir), digest)) {
-        await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
+        await buildKeepingTsconfig(env);
         markBuild(join(repoRoot, distDir), digest);
       } else {
         log("build", "test build is current; not rebuilding");
@@ -116,7 +134,7 @@ async function main() {
     }
   } finally {
     await stopAll();
-    releaseBuild?.();
+    await runCleanups();
     cluster.stop();
     rmSync(tmp, { recursive: true, force: true });
   }
@@ -131,7 +149,7 @@ let exitCode = 1;
 for (const signal of ["SIGINT", "SIGTERM"]) {
   process.on(signal, async () => {
     await stopAll();
-    releaseBuild?.();
+    await runCleanups();
     cluster?.stop();
     process.exit(130);
   });

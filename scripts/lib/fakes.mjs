@@ -5,6 +5,8 @@ import { join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { freePort } from "./ports.mjs";
 import { startChild } from "./processes.mjs";
+import { log } from "./log.mjs";
+import { startUploadFake } from "../fakes/uploads.mjs";
 
 const smtpScript = fileURLToPath(new URL("../fakes/smtp.mjs", import.meta.url));
 
@@ -42,10 +44,18 @@ async function startMailFake(stateDir) {
 }
 
 /**
- * @param {{ stateDir: string, appUrl: string }} options
- * @returns {Promise<{ env: Record<string, string> }>}
+ * Starts every fake. `uploadsPort` fixes the upload fake's port (stored file URLs name it, so
+ * `npm start` keeps one across restarts); tests take a free one.
+ * The mailbox page is shown whenever the mail fake runs: the messages it lists exist only there.
+ * @param {{ stateDir: string, appUrl: string, uploadsPort?: number }} options
+ * @returns {Promise<{ env: Record<string, string>, stop: () => Promise<void> }>}
  */
-export async function startFakes({ stateDir, appUrl }) {
-  void appUrl;
-  return { env: { ...(await startMailFake(stateDir)) } };
+export async function startFakes({ stateDir, appUrl, uploadsPort }) {
+  const mail = await startMailFake(stateDir);
+  const uploads = await startUploadFake({ stateDir: join(stateDir, "uploads"), appUrl, port: uploadsPort });
+  log("uploads", `fake upload service on http://localhost:${uploads.port}`);
+  return {
+    env: { ...mail, ARCWRIGHT_DEV_MAILBOX: "1", ...uploads.env },
+    stop: () => uploads.stop(),
+  };
 }

@@ -1,7 +1,6 @@
-// A folder lock between concurrent runs on one clone (e.g. two `npm test` runs sharing one build folder).
+// A folder lock between concurrent runs on one clone (e.g. two `npm test` runs and one build folder).
 import { mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
-import { log } from "./log.mjs";
 
 function isAlive(pid) {
   try {
@@ -12,11 +11,12 @@ function isAlive(pid) {
   }
 }
 
-/** Waits (up to `timeoutMs`) until this process holds the lock at `path`; returns its release function. */
-export async function acquireLock(path, { timeoutMs = 30 * 60_000 } = {}) {
-  const deadline = Date.now() + timeoutMs;
-  let announced = false;
-  for (;;) {
+/**
+ * Takes the lock at `path` if nobody alive holds it (a lock left by a dead process is taken over).
+ * Returns its release function, or null when another live process holds it.
+ */
+export function tryLock(path) {
+  for (let attempt = 0; attempt < 2; attempt++) {
     try {
       mkdirSync(path);
       writeFileSync(join(path, "pid"), String(process.pid));
@@ -28,17 +28,10 @@ export async function acquireLock(path, { timeoutMs = 30 * 60_000 } = {}) {
     try {
       holder = Number(readFileSync(join(path, "pid"), "utf8"));
     } catch {
-      // The holder has made the folder but not yet written its pid.
+      return null; // just made by another run that has not written its pid yet
     }
-    if (Number.isInteger(holder) && !isAlive(holder)) {
-      rmSync(path, { recursive: true, force: true });
-      continue;
-    }
-    if (Date.now() > deadline) throw new Error(`${path} is still held by process ${holder} after ${timeoutMs} ms`);
-    if (!announced) {
-      log("lock", `waiting for process ${holder} to release ${path}`);
-      announced = true;
-    }
-    await new Promise((resolve) => setTimeout(resolve, 1_000));
+    if (isAlive(holder)) return null;
+    rmSync(path, { recursive: true, force: true });
   }
+  return null;
 }
