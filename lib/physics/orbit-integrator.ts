@@ -139,10 +139,15 @@ export class OrbitIntegrator {
       const v1 = v0 + h * (A71 * dv1 + A73 * dv3 + A74 * dv4 + A75 * dv5 + A76 * dv6);
       const time1 = time0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
       const dw7 = v1, dv7 = f0 + k3b * w1 * w1 - w1, dt7 = light ? k2b / (w1 * (1 - k2b * w1)) + x * w1 : 1 / (w1 * w1 * (1 - k2b * w1));
-      const ew = (h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7)) / (this.atolW + this.rtol * Math.max(Math.abs(w0), Math.abs(w1)));
-      const ev = (h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7)) / (this.atolV + this.rtol * Math.max(Math.abs(v0), Math.abs(v1)));
-      const et = (h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7)) / (this.atolTime + this.rtol * Math.max(Math.abs(time0), Math.abs(time1)));
-      const error = Math.sqrt((ew * ew + ev * ev + et * et) / 3);
+      // RMS of (estimate_i / scale_i) over the three components, with one division instead of three
+      const ew = h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7);
+      const ev = h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7);
+      const et = h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7);
+      const sw = this.atolW + this.rtol * Math.max(Math.abs(w0), Math.abs(w1));
+      const sv = this.atolV + this.rtol * Math.max(Math.abs(v0), Math.abs(v1));
+      const st = this.atolTime + this.rtol * Math.max(Math.abs(time0), Math.abs(time1));
+      const a = ew * sv * st, b = ev * sw * st, c = et * sw * sv, scales = sw * sv * st;
+      const error = Math.sqrt((a * a + b * b + c * c) / (3 * scales * scales));
       const factor = error === 0 ? MAX_FACTOR : Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY / Math.sqrt(Math.sqrt(error))));
       if (!(error <= 1)) {
         this.h = h * Math.min(1, factor);

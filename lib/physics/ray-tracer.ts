@@ -163,45 +163,51 @@ class RayTracer {
     return sigma;
   }
 
-  /** Writes `samples` points uniform in sigma on [0, endSigma] from the dense record. */
+  /**
+   * Writes `samples` points uniform in sigma on [0, endSigma] from the dense record: an outer loop over
+   * steps holds each step's 15 coefficients in locals, an inner loop writes the samples in that step.
+   */
   private sample(bAbs: number, sign: number, phiStart: number, endSigma: number, samples: number, xy: Float64Array, t: Float64Array, offset: number): void {
     const { dense, stepCount } = this.integrator;
     const delta = endSigma / (samples - 1);
     const cosDelta = Math.cos(delta);
     const sinDelta = Math.sin(delta);
-    let cosPhi = 1;
-    let sinPhi = 0;
-    let base = 0;
-    let stepEnd = dense[0] + 1 / dense[1];
-    const lastBase = (stepCount - 1) * DENSE_RECORD_LENGTH;
-    for (let j = 0; j < samples; j++) {
-      const sigma = j === samples - 1 ? endSigma : j * delta;
-      while (base < lastBase && sigma > stepEnd) {
-        base += DENSE_RECORD_LENGTH;
-        stepEnd = dense[base] + 1 / dense[base + 1];
+    let cosPhi = Math.cos(phiStart);
+    let sinPhi = Math.sin(phiStart);
+    let j = 0;
+    for (let step = 0; step < stepCount && j < samples; step++) {
+      const base = step * DENSE_RECORD_LENGTH;
+      const sigma0 = dense[base];
+      const inverseH = dense[base + 1];
+      const stepEnd = step === stepCount - 1 ? Infinity : sigma0 + 1 / inverseH;
+      const w0 = dense[base + DENSE_W], w1 = dense[base + DENSE_W + 1], w2 = dense[base + DENSE_W + 2], w3 = dense[base + DENSE_W + 3], w4 = dense[base + DENSE_W + 4];
+      const v0 = dense[base + DENSE_V], v1 = dense[base + DENSE_V + 1], v2 = dense[base + DENSE_V + 2], v3 = dense[base + DENSE_V + 3], v4 = dense[base + DENSE_V + 4];
+      const c0 = dense[base + DENSE_TIME], c1 = dense[base + DENSE_TIME + 1], c2 = dense[base + DENSE_TIME + 2], c3 = dense[base + DENSE_TIME + 3], c4 = dense[base + DENSE_TIME + 4];
+      for (; j < samples; j++) {
+        const sigma = j === samples - 1 ? endSigma : j * delta;
+        if (sigma > stepEnd) break;
+        if (j > 0) {
+          if (j % ROTATION_RESYNC === 0 || j === samples - 1) {
+            cosPhi = Math.cos(phiStart - sigma);
+            sinPhi = Math.sin(phiStart - sigma);
+          } else {
+            const c = cosPhi * cosDelta + sinPhi * sinDelta;
+            sinPhi = sinPhi * cosDelta - cosPhi * sinDelta;
+            cosPhi = c;
+          }
+        }
+        // the 4th-order continuous extension (denseValue) of w, v and chi at one theta
+        const theta = (sigma - sigma0) * inverseH;
+        const theta1 = 1 - theta;
+        const w = w0 + theta * (w1 + theta1 * (w2 + theta * (w3 + theta1 * w4)));
+        const v = v0 + theta * (v1 + theta1 * (v2 + theta * (v3 + theta1 * v4)));
+        const chi = c0 + theta * (c1 + theta1 * (c2 + theta * (c3 + theta1 * c4)));
+        const inverseW = 1 / w;
+        const r = bAbs * inverseW;
+        xy[2 * (offset + j)] = r * cosPhi;
+        xy[2 * (offset + j) + 1] = sign * r * sinPhi;
+        t[offset + j] = j === 0 ? 0 : bAbs * (chi - v * inverseW);
       }
-      if (j % ROTATION_RESYNC === 0 || j === samples - 1) {
-        cosPhi = Math.cos(phiStart - sigma);
-        sinPhi = Math.sin(phiStart - sigma);
-      } else {
-        const c = cosPhi * cosDelta + sinPhi * sinDelta;
-        sinPhi = sinPhi * cosDelta - cosPhi * sinDelta;
-        cosPhi = c;
-      }
-      // the 4th-order continuous extension (denseValue), inlined for w, v and chi at one theta
-      const theta = (sigma - dense[base]) * dense[base + 1];
-      const theta1 = 1 - theta;
-      const w = base + DENSE_W;
-      const v = base + DENSE_V;
-      const chi = base + DENSE_TIME;
-      const wValue = dense[w] + theta * (dense[w + 1] + theta1 * (dense[w + 2] + theta * (dense[w + 3] + theta1 * dense[w + 4])));
-      const vValue = dense[v] + theta * (dense[v + 1] + theta1 * (dense[v + 2] + theta * (dense[v + 3] + theta1 * dense[v + 4])));
-      const chiValue = dense[chi] + theta * (dense[chi + 1] + theta1 * (dense[chi + 2] + theta * (dense[chi + 3] + theta1 * dense[chi + 4])));
-      const inverseW = 1 / wValue;
-      const r = bAbs * inverseW;
-      xy[2 * (offset + j)] = r * cosPhi;
-      xy[2 * (offset + j) + 1] = sign * r * sinPhi;
-      t[offset + j] = j === 0 ? 0 : bAbs * (chiValue - vValue * inverseW);
     }
   }
 
