@@ -16,8 +16,8 @@
  * (a general array-based stepper ran this system about 2x slower).
  */
 
-// Butcher tableau (Dormand & Prince 1980, Table 2; Hairer et al. 1993, Table II.5.2).
-const C2 = 1 / 5, C3 = 3 / 10, C4 = 4 / 5, C5 = 8 / 9;
+// Butcher tableau (Dormand & Prince 1980, Table 2; Hairer et al. 1993, Table II.5.2). The system is
+// autonomous, so the nodes c_i are not needed.
 const A21 = 1 / 5;
 const A31 = 3 / 40, A32 = 9 / 40;
 const A41 = 44 / 45, A42 = -56 / 15, A43 = 32 / 9;
