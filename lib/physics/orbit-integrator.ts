@@ -122,7 +122,8 @@ export class OrbitIntegrator {
       const h = this.h;
       let w = w0 + h * A21 * dw1;
       let v = v0 + h * A21 * dv1;
-      const dw2 = v, dv2 = f0 + k3b * w * w - w, dt2 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
+      // the time component never feeds back and has weight 0 for stage 2, so its stage-2 rate is not needed
+      const dw2 = v, dv2 = f0 + k3b * w * w - w;
       w = w0 + h * (A31 * dw1 + A32 * dw2);
       v = v0 + h * (A31 * dv1 + A32 * dv2);
       const dw3 = v, dv3 = f0 + k3b * w * w - w, dt3 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
