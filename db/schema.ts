@@ -6,6 +6,7 @@ import {
   doublePrecision,
   index,
   integer,
+  jsonb,
   pgEnum,
   pgTable,
   primaryKey,
@@ -260,3 +261,81 @@ export const activity = pgTable(
 );
 
 export type Activity = typeof activity.$inferSelect;
+
+export const uploadPurpose = pgEnum("upload_purpose", ["target_list", "note_attachment"]);
+export const importFormat = pgEnum("import_format", ["csv", "votable"]);
+export const attachmentKind = pgEnum("attachment_kind", ["png", "jpeg", "pdf", "fits"]);
+
+/**
+ * A file held by the upload service, recorded when its upload completed and its content was checked.
+ * Only the service's key is stored, never a URL: the service's host can change, the key does not.
+ */
+export const uploadedFiles = pgTable(
+  "uploaded_files",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    key: text("key").notNull(),
+    name: text("name").notNull(),
+    sizeBytes: integer("size_bytes").notNull(),
+    /** The media type found from the content (magic bytes), not the one the browser declared. */
+    contentType: text("content_type").notNull(),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    uploadedBy: uuid("uploaded_by").references(() => users.id, { onDelete: "set null" }),
+    purpose: uploadPurpose("purpose").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("uploaded_files_key_key").on(t.key), index("uploaded_files_proposal_idx").on(t.proposalId)],
+);
+
+export type UploadedFile = typeof uploadedFiles.$inferSelect;
+
+/** One committed target-list import: the file it came from (kept), how it was read, what it changed. */
+export const imports = pgTable(
+  "imports",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    proposalId: uuid("proposal_id")
+      .notNull()
+      .references(() => proposals.id, { onDelete: "cascade" }),
+    fileId: uuid("file_id")
+      .notNull()
+      .references(() => uploadedFiles.id),
+    format: importFormat("format").notNull(),
+    /** The column mapping and fill values used (lib/imports/columns ColumnMapping, rows ImportFill). */
+    mapping: jsonb("mapping").notNull(),
+    fill: jsonb("fill").notNull(),
+    toleranceArcsec: doublePrecision("tolerance_arcsec").notNull(),
+    addedCount: integer("added_count").notNull(),
+    updatedCount: integer("updated_count").notNull(),
+    skippedCount: integer("skipped_count").notNull(),
+    importedBy: uuid("imported_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("imports_proposal_idx").on(t.proposalId, t.createdAt)],
+);
+
+export type ImportRecord = typeof imports.$inferSelect;
+
+/** A file attached to an observation note; FITS files keep their primary header's keywords. */
+export const noteAttachments = pgTable(
+  "note_attachments",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    noteId: uuid("note_id")
+      .notNull()
+      .references(() => notes.id, { onDelete: "cascade" }),
+    fileId: uuid("file_id")
+      .notNull()
+      .references(() => uploadedFiles.id, { onDelete: "cascade" }),
+    kind: attachmentKind("kind").notNull(),
+    /** lib/imports/fits-header FitsHeader (keywords, BITPIX, axes, sizes) for FITS; null otherwise. */
+    fitsHeader: jsonb("fits_header"),
+    sizeBytes: integer("size_bytes").notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("note_attachments_file_key").on(t.fileId), index("note_attachments_note_idx").on(t.noteId)],
+);
+
+export type NoteAttachment = typeof noteAttachments.$inferSelect;

@@ -26,7 +26,38 @@ export const serverEnvSchema = z.object({
    * fake (`npm start`, `npm run dev`, `npm test`). A deployment with a real mail service leaves it unset.
    */
   ARCWRIGHT_DEV_MAILBOX: z.enum(["0", "1"]).default("0"),
+  /**
+   * The upload service (UploadThing). The SDK reads these from the process environment itself; they
+   * are validated here so a bad value fails at boot. `npm start` / `npm test` point them at the fake.
+   * The token is base64 of JSON {apiKey: "sk_...", appId, regions: [...]}.
+   */
+  UPLOADTHING_TOKEN: z
+    .string()
+    .refine(isUploadToken, "UPLOADTHING_TOKEN must be base64 of JSON with apiKey (sk_...), appId and regions")
+    .optional(),
+  UPLOADTHING_INGEST_URL: z.url({ error: "UPLOADTHING_INGEST_URL must be an absolute URL" }).optional(),
+  UPLOADTHING_API_URL: z.url({ error: "UPLOADTHING_API_URL must be an absolute URL" }).optional(),
+  /** Host[:port] that files are served from; the SDK uses http:// only when it contains "local". */
+  UPLOADTHING_UFS_HOST: z.string().regex(/^[\w.-]+(:\d{1,5})?$/, "UPLOADTHING_UFS_HOST is host or host:port").optional(),
+  UPLOADTHING_UFS_APP_ID_LOCATION: z.enum(["subdomain", "path"]).optional(),
+  UPLOADTHING_CALLBACK_URL: z.url({ error: "UPLOADTHING_CALLBACK_URL must be an absolute URL (<app>/api/uploadthing)" }).optional(),
+  UPLOADTHING_IS_DEV: z.enum(["true", "false"]).optional(),
 });
+
+function isUploadToken(token: string): boolean {
+  try {
+    const parsed = JSON.parse(Buffer.from(token, "base64").toString("utf8")) as { apiKey?: unknown; appId?: unknown; regions?: unknown };
+    return (
+      typeof parsed.apiKey === "string" &&
+      parsed.apiKey.startsWith("sk_") &&
+      typeof parsed.appId === "string" &&
+      Array.isArray(parsed.regions) &&
+      parsed.regions.length > 0
+    );
+  } catch {
+    return false;
+  }
+}
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>;
 
