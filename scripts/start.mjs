@@ -11,7 +11,7 @@ import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
 import { waitForHttp } from "./lib/ports.mjs";
 import { Cluster, serverUserCanReach } from "./lib/postgres.mjs";
-import { runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
+import { runCapturing, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
 import { loadOrCreateSecrets } from "./lib/secrets.mjs";
 
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
@@ -75,7 +75,7 @@ try {
     extra: fakes.env,
   });
   await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env });
-  await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
+  const seedOutput = await runCapturing("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
 
   if (isDev) {
     startChild("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
@@ -100,6 +100,10 @@ try {
     });
   }
   await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 120_000 });
+  // The accounts again, last, so they are on screen beside the URL after the build output.
+  for (const line of seedOutput.split("\n").filter((l) => l.includes("password:") || l.includes("demo accounts"))) {
+    process.stdout.write(`${line}\n`);
+  }
   log("ready", `Arcwright is at ${appUrl}  (set up in ${((Date.now() - startedAt) / 1000).toFixed(1)} s; Ctrl-C stops everything)`);
 } catch (error) {
   console.error(`[start] ${error.message}`);

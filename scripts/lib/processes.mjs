@@ -52,3 +52,22 @@ export async function stopAll(graceMs = 8_000) {
     ),
   );
 }
+
+/** Runs a command to completion, echoing its output; resolves with the output, throws when it fails. */
+export function runCapturing(label, command, args, options = {}) {
+  return new Promise((resolve, reject) => {
+    const child = spawn(command, args, { ...options, stdio: ["ignore", "pipe", "inherit"] });
+    children.add(child);
+    let output = "";
+    child.stdout.on("data", (chunk) => {
+      output += chunk;
+      process.stdout.write(chunk);
+    });
+    child.on("error", reject);
+    child.on("exit", (code) => {
+      children.delete(child);
+      if (code === 0) resolve(output);
+      else reject(new Error(`${label} failed with exit code ${code}`));
+    });
+  });
+}
