@@ -7,6 +7,7 @@ import type { GetActor } from "@/lib/server/actor";
 import { acceptInvitationRoutes, invitationCollectionRoutes, invitationRoutes, memberCollectionRoutes, memberRoutes } from "@/lib/server/api/member-routes";
 import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
+import { targetTableExportRoutes } from "@/lib/exports/server/routes";
 import { startMailCatcher } from "./support/mail-catcher";
 import { actorFor, callers, createWorld, pointTargetInput, proposalInput, type Caller, type World } from "./support/world";
 
@@ -77,6 +78,7 @@ const endpoints: Endpoint[] = [
   { name: "GET /notes/:id", handler: as(noteRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 200, 200, 200] },
   { name: "PATCH /notes/:id", handler: as(noteRoutes, "PATCH"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, body: () => ({ body: "Revised.", version: 1 }), expected: [401, 404, 403, 200, 200] },
   { name: "DELETE /notes/:id", handler: as(noteRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 403, 204, 204] },
+  { name: "GET /exports/targets", handler: as(targetTableExportRoutes, "GET"), path: (w) => `${base(w)}/exports/targets?format=json&columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
 ];
 
 const methodOf = (name: string) => name.split(" ")[0];

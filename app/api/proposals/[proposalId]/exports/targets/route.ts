@@ -1,0 +1,4 @@
+import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { sessionActor } from "@/lib/server/session";
+
+export const { GET } = targetTableExportRoutes(sessionActor);

@@ -1,0 +1,22 @@
+/** A file-name-safe ASCII slug of a title ("Arcs over the bulge" → "arcs-over-the-bulge"), at most 60 characters. */
+export function fileSlug(title: string): string {
+  const slug = title
+    .normalize("NFKD")
+    .replace(/[^\x00-\x7F]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60)
+    .replace(/-+$/, "");
+  return slug === "" ? "arcwright" : slug;
+}
+
+/** Headers of a download: its media type and `Content-Disposition: attachment` with the file name (RFC 6266). */
+export function attachmentHeaders(fileName: string, contentType: string): Record<string, string> {
+  return {
+    "Content-Type": contentType,
+    "Content-Disposition": `attachment; filename="${fileName.replace(/["\\]/g, "")}"`,
+    "Cache-Control": "private, no-store",
+    "X-Content-Type-Options": "nosniff",
+  };
+}

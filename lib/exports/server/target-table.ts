@@ -1,0 +1,63 @@
+import "server-only";
+import { asc, eq } from "drizzle-orm";
+import { z } from "zod";
+import { dbClient } from "@/db/client";
+import { targets } from "@/db/schema";
+import { serverEnv } from "@/lib/env";
+import { buildProvenance } from "@/lib/exports/provenance";
+import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
+import { tableFormats, type TableFormat } from "@/lib/exports/tables/formats";
+import type { TargetTable } from "@/lib/exports/tables/table";
+import { proposalParamsSchema } from "@/lib/workspace/ids";
+import { authorize, parseIds } from "@/lib/server/access";
+import { requireActor, type Actor } from "@/lib/server/actor";
+import { instrumentOf } from "@/lib/server/derived-columns";
+import { parseOrThrow } from "@/lib/server/http";
+import { targetViewOf } from "@/lib/server/targets";
+
+/** Most rows one table export writes; far above a proposal's target list, low enough to bound the work. */
+export const MAX_EXPORT_ROWS = 20_000;
+
+const tableQuerySchema = z.object({
+  format: z.enum(tableFormats, { error: `The format must be one of ${tableFormats.join(", ")}.` }).default("csv"),
+  columns: z.string().optional(),
+  digits: z.string().optional(),
+});
+
+/**
+ * A proposal's whole target list (priority, then name) with the chosen columns and the provenance
+ * of the export. Any member may export, viewers included (the same rule as reading the table).
+ * Order: validate the id and the query → session → load and role → read.
+ */
+export async function loadTargetTable(params: unknown, query: unknown, actor: Actor | null): Promise<{ table: TargetTable; format: TableFormat }> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const { format, ...columnQuery } = parseOrThrow(tableQuerySchema, query, "export");
+  const columns = parseOrThrow(tableColumnsQuerySchema, columnQuery, "export");
+  const who = requireActor(actor);
+  const { db } = dbClient();
+  const { proposal } = await authorize(db, proposalId, who, "read", "export");
+  const rows = await db
+    .select()
+    .from(targets)
+    .where(eq(targets.proposalId, proposalId))
+    .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
+    .limit(MAX_EXPORT_ROWS);
+  const instrument = instrumentOf(proposal);
+  const provenance = buildProvenance({
+    subject: `Target table of the proposal "${proposal.title}" (${proposal.cycle})`,
+    reproduceUrl: new URL(`/proposals/${proposal.id}`, serverEnv().NEXTAUTH_URL).toString(),
+    inputs: {
+      proposalId: proposal.id,
+      proposalUpdatedAt: proposal.updatedAt.toISOString(),
+      site: `${proposal.siteName} (lat ${proposal.siteLatitudeDeg} deg, lon ${proposal.siteLongitudeDeg} deg, ${proposal.siteElevationM} m)`,
+      resolutionMas: instrument.resolutionMas,
+      cadenceHours: instrument.cadenceHours,
+      campaignLengthDays: instrument.campaignLengthDays,
+      columns: columns.map((c) => c.column.key).join(","),
+      digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${c.digits}`).join(","),
+      rowCount: rows.length,
+      order: "priority, name",
+    },
+  });
+  return { table: { title: proposal.title, columns, rows: rows.map(targetViewOf), provenance }, format };
+}

@@ -1,0 +1,163 @@
+/**
+ * The columns a target table export can hold: each with its header label, unit (as shown, in
+ * LaTeX and in IVOA VOUnit form), UCD (IVOA UCD1+ 1.5), VOTable datatype and default significant
+ * digits. Numbers are exported in the units the column key names.
+ */
+import { z } from "zod";
+import type { TargetView } from "@/lib/server/targets";
+
+export type ColumnKind = "double" | "int" | "text";
+
+export interface ExportColumn {
+  key: keyof TargetView;
+  label: string;
+  /** Unit as a reader sees it in CSV/JSON headers; "" for a dimensionless or text column. */
+  unit: string;
+  /** The unit in LaTeX math-free text (compiles with no package). */
+  latexUnit: string;
+  /** IVOA VOUnits 1.0 string; "" when dimensionless. */
+  voUnit: string;
+  ucd: string;
+  kind: ColumnKind;
+  /** Significant digits when the request names none (doubles only). */
+  defaultDigits: number;
+  /** Whether the column is an input of the hypothesis or a stored computed quantity. */
+  origin: "input" | "computed";
+}
+
+const input = (c: Omit<ExportColumn, "origin">): ExportColumn => ({ ...c, origin: "input" });
+const computed = (c: Omit<ExportColumn, "origin">): ExportColumn => ({ ...c, origin: "computed" });
+const text = { unit: "", latexUnit: "", voUnit: "", kind: "text", defaultDigits: 0 } as const;
+
+export const exportColumns = [
+  input({ key: "name", label: "Name", ucd: "meta.id;meta.main", ...text }),
+  input({ key: "raDeg", label: "RA (ICRS)", unit: "deg", latexUnit: "deg", voUnit: "deg", ucd: "pos.eq.ra;meta.main", kind: "double", defaultDigits: 9 }),
+  input({ key: "decDeg", label: "Dec (ICRS)", unit: "deg", latexUnit: "deg", voUnit: "deg", ucd: "pos.eq.dec;meta.main", kind: "double", defaultDigits: 9 }),
+  input({ key: "lensModel", label: "Lens model", ucd: "meta.code.class", ...text }),
+  input({ key: "lensMassSolar", label: "Lens mass", unit: "Msun", latexUnit: "$M_\\odot$", voUnit: "solMass", ucd: "phys.mass", kind: "double", defaultDigits: 4 }),
+  input({ key: "velocityDispersionKmPerS", label: "Velocity dispersion", unit: "km/s", latexUnit: "km/s", voUnit: "km/s", ucd: "phys.veloc.dispersion", kind: "double", defaultDigits: 4 }),
+  input({ key: "lensDistancePc", label: "Lens distance", unit: "pc", latexUnit: "pc", voUnit: "pc", ucd: "pos.distance", kind: "double", defaultDigits: 4 }),
+  input({ key: "sourceDistancePc", label: "Source distance", unit: "pc", latexUnit: "pc", voUnit: "pc", ucd: "pos.distance", kind: "double", defaultDigits: 4 }),
+  input({ key: "lensRedshift", label: "Lens redshift", unit: "", latexUnit: "", voUnit: "", ucd: "src.redshift", kind: "double", defaultDigits: 4 }),
+  input({ key: "sourceRedshift", label: "Source redshift", unit: "", latexUnit: "", voUnit: "", ucd: "src.redshift", kind: "double", defaultDigits: 4 }),
+  input({ key: "sourceOffsetThetaE", label: "Source offset", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "pos.angDistance;arith.ratio", kind: "double", defaultDigits: 4 }),
+  input({ key: "properMotionMasPerYr", label: "Relative proper motion", unit: "mas/yr", latexUnit: "mas/yr", voUnit: "mas/yr", ucd: "pos.pm", kind: "double", defaultDigits: 4 }),
+  input({ key: "priority", label: "Priority", unit: "", latexUnit: "", voUnit: "", ucd: "meta.code.qual", kind: "int", defaultDigits: 0 }),
+  input({ key: "status", label: "Status", ucd: "meta.code.status", ...text }),
+  input({ key: "tags", label: "Tags", ucd: "meta.note", ...text }),
+  computed({ key: "einsteinRadiusMas", label: "Einstein radius", unit: "mas", latexUnit: "mas", voUnit: "mas", ucd: "phys.angSize", kind: "double", defaultDigits: 4 }),
+  computed({ key: "imageSeparationMas", label: "Image separation", unit: "mas", latexUnit: "mas", voUnit: "mas", ucd: "pos.angDistance", kind: "double", defaultDigits: 4 }),
+  computed({ key: "magnificationTotal", label: "Total magnification", unit: "", latexUnit: "", voUnit: "", ucd: "arith.factor", kind: "double", defaultDigits: 4 }),
+  computed({ key: "timeDelayDays", label: "Time delay", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.interval", kind: "double", defaultDigits: 4 }),
+  computed({ key: "crossingTimeDays", label: "Einstein crossing time", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.duration", kind: "double", defaultDigits: 4 }),
+  computed({ key: "shadowDiameterMicroarcsec", label: "Shadow diameter", unit: "uas", latexUnit: "$\\mu$as", voUnit: "uarcsec", ucd: "phys.angSize", kind: "double", defaultDigits: 4 }),
+  computed({ key: "resolutionVerdict", label: "Resolution verdict", ucd: "meta.code", ...text }),
+  computed({ key: "cadenceVerdict", label: "Cadence verdict", ucd: "meta.code", ...text }),
+  computed({ key: "campaignVerdict", label: "Campaign verdict", ucd: "meta.code", ...text }),
+] as const satisfies readonly ExportColumn[];
+
+export type ExportColumnKey = (typeof exportColumns)[number]["key"];
+
+export const exportColumnKeys = exportColumns.map((c) => c.key) as [ExportColumnKey, ...ExportColumnKey[]];
+
+const columnByKey = new Map<string, ExportColumn>(exportColumns.map((c) => [c.key, c]));
+
+/** The column spec for a key known to be valid. */
+export function exportColumnOf(key: ExportColumnKey): ExportColumn {
+  return columnByKey.get(key)!;
+}
+
+/** The columns a request names none of: what a technical justification usually shows. */
+export const defaultExportColumns: ExportColumnKey[] = [
+  "name",
+  "raDeg",
+  "decDeg",
+  "lensModel",
+  "einsteinRadiusMas",
+  "imageSeparationMas",
+  "magnificationTotal",
+  "crossingTimeDays",
+  "resolutionVerdict",
+];
+
+/** "Einstein radius [mas]": the header text with its unit, for CSV and JSON. */
+export function headerOf(column: ExportColumn): string {
+  return column.unit === "" ? column.label : `${column.label} [${column.unit}]`;
+}
+
+export const MIN_DIGITS = 1;
+export const MAX_DIGITS = 17;
+
+/** A column with the significant digits it is exported with. */
+export interface ChosenColumn {
+  column: ExportColumn;
+  digits: number;
+}
+
+/** One exported cell before formatting: a number, a text, or nothing (the model gives no value). */
+export type CellValue = number | string | null;
+
+/** The cell of `row` under `column`; tags are joined with "; ". */
+export function cellOf(row: TargetView, column: ExportColumn): CellValue {
+  const value = row[column.key];
+  if (Array.isArray(value)) return value.join("; ");
+  if (value === null || value === undefined) return null;
+  return value as number | string;
+}
+
+/** Rounds to `digits` significant digits (IEEE round-trip of `toPrecision`). */
+export function roundSignificant(value: number, digits: number): number {
+  return Number(value.toPrecision(digits));
+}
+
+/** A cell as text: doubles at their significant digits (shortest form that holds them), "" for null. */
+export function cellText(value: CellValue, chosen: ChosenColumn): string {
+  if (value === null) return "";
+  if (typeof value === "number") return chosen.column.kind === "double" ? String(roundSignificant(value, chosen.digits)) : String(value);
+  return value;
+}
+
+const digitsSchema = z.coerce.number().int().min(MIN_DIGITS).max(MAX_DIGITS);
+
+/**
+ * The export query's `columns` (comma-separated keys) and `digits` (`key:n` pairs, or one bare `n`
+ * for every double column). Unknown columns are refused by name; digits for a column that is not
+ * chosen are refused too, so a typo never passes silently.
+ */
+export const tableColumnsQuerySchema = z
+  .object({
+    columns: z.string().max(2000).optional(),
+    digits: z.string().max(2000).optional(),
+  })
+  .transform((query, ctx): ChosenColumn[] => {
+    const keys = query.columns === undefined || query.columns.trim() === "" ? defaultExportColumns : query.columns.split(",").map((k) => k.trim());
+    const unknown = keys.filter((k) => !columnByKey.has(k));
+    if (unknown.length > 0) {
+      ctx.addIssue({ code: "custom", path: ["columns"], message: `Unknown column${unknown.length > 1 ? "s" : ""}: ${unknown.join(", ")}. Known: ${exportColumnKeys.join(", ")}.` });
+      return z.NEVER;
+    }
+    const duplicates = keys.filter((k, i) => keys.indexOf(k) !== i);
+    if (duplicates.length > 0) {
+      ctx.addIssue({ code: "custom", path: ["columns"], message: `Column named twice: ${[...new Set(duplicates)].join(", ")}.` });
+      return z.NEVER;
+    }
+    const digitsByKey = new Map<string, number>();
+    let allDigits: number | undefined;
+    for (const part of (query.digits ?? "").split(",").map((p) => p.trim()).filter((p) => p !== "")) {
+      const [key, n] = part.includes(":") ? part.split(":", 2) : [undefined, part];
+      const parsed = digitsSchema.safeParse(n);
+      if (!parsed.success) {
+        ctx.addIssue({ code: "custom", path: ["digits"], message: `Significant digits must be a whole number from ${MIN_DIGITS} to ${MAX_DIGITS} (got "${part}").` });
+        return z.NEVER;
+      }
+      if (key === undefined) allDigits = parsed.data;
+      else if (!keys.includes(key) || columnByKey.get(key)!.kind !== "double") {
+        ctx.addIssue({ code: "custom", path: ["digits"], message: `Digits given for "${key}", which is not a chosen numeric column.` });
+        return z.NEVER;
+      } else digitsByKey.set(key, parsed.data);
+    }
+    return keys.map((key) => {
+      const column = columnByKey.get(key)!;
+      return { column, digits: digitsByKey.get(key) ?? allDigits ?? column.defaultDigits };
+    });
+  });

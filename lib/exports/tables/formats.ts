@@ -1,0 +1,22 @@
+import { targetTableCsv } from "./csv";
+import { targetTableJson } from "./json";
+import { targetTableLatex } from "./latex";
+import type { TargetTable } from "./table";
+import { targetTableVotable } from "./votable";
+
+export const tableFormats = ["csv", "tex", "votable", "json"] as const;
+export type TableFormat = (typeof tableFormats)[number];
+
+interface TableWriter {
+  write: (table: TargetTable) => string;
+  contentType: string;
+  extension: string;
+}
+
+/** Each table format's writer, media type and file extension. */
+export const tableWriters: Record<TableFormat, TableWriter> = {
+  csv: { write: targetTableCsv, contentType: "text/csv; charset=utf-8; header=present", extension: "csv" },
+  tex: { write: targetTableLatex, contentType: "application/x-tex; charset=utf-8", extension: "tex" },
+  votable: { write: targetTableVotable, contentType: "application/x-votable+xml; charset=utf-8", extension: "vot" },
+  json: { write: targetTableJson, contentType: "application/json; charset=utf-8", extension: "json" },
+};

@@ -1,0 +1,170 @@
+import { execFileSync, spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import { XMLParser, XMLValidator } from "fast-xml-parser";
+import Papa from "papaparse";
+import { describe, expect, it } from "vitest";
+import { PRODUCT_VERSION } from "@/lib/exports/provenance";
+import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
+import { targetTableCsv } from "@/lib/exports/tables/csv";
+import { targetTableJson, type TargetTableJson } from "@/lib/exports/tables/json";
+import { escapeLatex, targetTableLatex } from "@/lib/exports/tables/latex";
+import type { TargetTable } from "@/lib/exports/tables/table";
+import { targetTableVotable, VOTABLE_NAMESPACE } from "@/lib/exports/tables/votable";
+import packageJson from "@/package.json";
+import { exportProvenance, exportRows } from "./fixtures";
+
+const columns = tableColumnsQuerySchema.parse({
+  columns: "name,raDeg,lensModel,einsteinRadiusMas,timeDelayDays,priority,tags,shadowDiameterMicroarcsec",
+  digits: "einsteinRadiusMas:3,timeDelayDays:2",
+});
+const table: TargetTable = { title: "Arcs", columns, rows: exportRows, provenance: exportProvenance };
+const hostileName = exportRows[1].name;
+
+describe("export column query", () => {
+  it("refuses unknown columns by name and digits outside 1–17 or for columns not chosen", () => {
+    const unknown = tableColumnsQuerySchema.safeParse({ columns: "name,einsteinRadius,fooBar" });
+    expect(unknown.success).toBe(false);
+    expect(unknown.error?.issues[0].message).toContain("einsteinRadius, fooBar");
+    expect(unknown.error?.issues[0].path).toEqual(["columns"]);
+    expect(tableColumnsQuerySchema.safeParse({ columns: "name,raDeg", digits: "raDeg:0" }).success).toBe(false);
+    expect(tableColumnsQuerySchema.safeParse({ columns: "name,raDeg", digits: "raDeg:18" }).success).toBe(false);
+    expect(tableColumnsQuerySchema.safeParse({ columns: "name,raDeg", digits: "decDeg:3" }).success).toBe(false);
+    expect(tableColumnsQuerySchema.safeParse({ columns: "name,name" }).success).toBe(false);
+  });
+
+  it("keeps the requested order, per-column digits over a bare default over the column's own", () => {
+    const chosen = tableColumnsQuerySchema.parse({ columns: "einsteinRadiusMas,raDeg,magnificationTotal", digits: "3,raDeg:10" });
+    expect(chosen.map((c) => [c.column.key, c.digits])).toEqual([
+      ["einsteinRadiusMas", 3],
+      ["raDeg", 10],
+      ["magnificationTotal", 3],
+    ]);
+  });
+});
+
+describe("CSV export (RFC 4180, read back with papaparse)", () => {
+  const csv = targetTableCsv(table);
+  const parsed = Papa.parse<string[]>(csv, { comments: "#", skipEmptyLines: true });
+
+  it("round-trips: header with units, numbers at their significant digits, empty where no value", () => {
+    expect(parsed.errors).toEqual([]);
+    const [header, first, second] = parsed.data;
+    expect(header).toEqual(["Name", "RA (ICRS) [deg]", "Lens model", "Einstein radius [mas]", "Time delay [d]", "Priority", "Tags", "Shadow diameter [uas]"]);
+    expect(first).toEqual(["TB-ML-0001", "269.301667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
+    expect(second[3]).toBe("1030");
+    expect(second[4]).toBe("");
+    expect(csv.includes("\r\n")).toBe(true);
+  });
+
+  it("neutralizes a formula-like name with a leading apostrophe (OWASP CSV injection) and keeps its text", () => {
+    expect(parsed.data[2][0]).toBe(`'${hostileName}`);
+  });
+
+  it("carries the provenance in # comment lines: version, export time, link back, constants with sources", () => {
+    const comments = csv.split("\r\n").filter((line) => line.startsWith("# "));
+    expect(comments.join("\n")).toContain(`Arcwright ${packageJson.version}`);
+    expect(comments.join("\n")).toContain("2031-02-03T04:05:06.000Z");
+    expect(comments.join("\n")).toContain("Reproduce: http://arcwright.test/proposals/");
+    expect(comments.join("\n")).toContain("Constant GM_sun = 132712440000000000000 m3 s-2 (IAU 2015 Resolution B3 (nominal))");
+    expect(comments.join("\n")).toContain("H0 = 70 km/s/Mpc, Om0 = 0.3");
+    expect(PRODUCT_VERSION).toBe(packageJson.version);
+  });
+});
+
+/** Strips escaped characters, then checks { } balance never goes negative and ends at zero. */
+function bracesBalance(tex: string): boolean {
+  let depth = 0;
+  for (const c of tex.replace(/\\[{}%]/g, "").replace(/%.*$/gm, "")) {
+    if (c === "{") depth++;
+    if (c === "}" && --depth < 0) return false;
+  }
+  return depth === 0;
+}
+
+describe("LaTeX export", () => {
+  const tex = targetTableLatex(table);
+
+  it("escapes the ten special characters (LaTeX: A Document Preparation System, Lamport 1994, §2.2.1)", () => {
+    expect(escapeLatex("A&B_{1}% $5 #2 ~^\\")).toBe("A\\&B\\_\\{1\\}\\% \\$5 \\#2 \\textasciitilde{}\\textasciicircum{}\\textbackslash{}");
+  });
+
+  it("is a plain tabular: braces balance, every row has as many cells as the alignment has columns", () => {
+    expect(bracesBalance(tex)).toBe(true);
+    const alignment = /\\begin\{tabular\}\{([lrc]+)\}/.exec(tex)?.[1];
+    expect(alignment).toBe("lrlrrrlr");
+    const body = tex.slice(tex.indexOf("\\hline"), tex.indexOf("\\end{tabular}"));
+    const rows = body.split("\n").filter((line) => line.endsWith("\\\\"));
+    expect(rows).toHaveLength(3);
+    for (const row of rows) expect(row.replace(/\\&/g, "").split("&")).toHaveLength(alignment!.length);
+    expect(rows[1]).toContain("$1.2\\times10^{-7}$");
+    expect(rows[2]).toContain(" & -- & ");
+  });
+
+  it("carries the provenance as % comments", () => {
+    expect(tex.split("\n")[0]).toBe('% Target table of the proposal "Arcs" (2031A)');
+    expect(tex).toContain(`% Exported by Arcwright ${packageJson.version} at 2031-02-03T04:05:06.000Z`);
+  });
+
+  it("compiles with pdflatex when a TeX engine is installed", () => {
+    const which = spawnSync("sh", ["-c", "command -v pdflatex"], { encoding: "utf8" });
+    if (which.status !== 0) {
+      console.info("LaTeX compile check not run: no pdflatex on PATH (install texlive-latex-base to run it); structural checks above still ran.");
+      return;
+    }
+    const dir = mkdtempSync(join(tmpdir(), "arcwright-tex-"));
+    writeFileSync(join(dir, "table.tex"), `\\documentclass{article}\n\\begin{document}\n${tex}\n\\end{document}\n`);
+    execFileSync("pdflatex", ["-interaction=nonstopmode", "-halt-on-error", "table.tex"], { cwd: dir, stdio: "pipe" });
+  });
+});
+
+describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () => {
+  const xml = targetTableVotable(table);
+  const parser = new XMLParser({ ignoreAttributes: false, attributeNamePrefix: "", processEntities: true, isArray: (name) => ["FIELD", "TR", "TD", "INFO"].includes(name), parseTagValue: false });
+
+  it("is well-formed, has no DOCTYPE (no entity expansion), and declares version 1.4 in the 1.3 namespace", () => {
+    expect(/<!DOCTYPE/i.test(xml)).toBe(false);
+    expect(XMLValidator.validate(xml)).toBe(true);
+    const doc = parser.parse(xml);
+    expect(doc.VOTABLE.version).toBe("1.4");
+    expect(doc.VOTABLE.xmlns).toBe(VOTABLE_NAMESPACE);
+  });
+
+  it("gives every FIELD its datatype, VOUnit and UCD (UCD1+ 1.5, VOUnits 1.0)", () => {
+    const fields = parser.parse(xml).VOTABLE.RESOURCE.TABLE.FIELD as Record<string, string>[];
+    const byName = Object.fromEntries(fields.map((f) => [f.name, f]));
+    expect(byName.raDeg).toMatchObject({ datatype: "double", unit: "deg", ucd: "pos.eq.ra;meta.main", ref: "icrs" });
+    expect(byName.einsteinRadiusMas).toMatchObject({ datatype: "double", unit: "mas", ucd: "phys.angSize", precision: "3" });
+    expect(byName.timeDelayDays).toMatchObject({ unit: "d", ucd: "time.interval" });
+    expect(byName.shadowDiameterMicroarcsec.unit).toBe("uarcsec");
+    expect(byName.priority).toMatchObject({ datatype: "int", ucd: "meta.code.qual" });
+    expect(byName.priority.unit).toBeUndefined();
+    expect(byName.name).toMatchObject({ datatype: "char", arraysize: "*" });
+  });
+
+  it("escapes markup in cells and reads back the same values; provenance in INFO elements", () => {
+    const resource = parser.parse(xml).VOTABLE.RESOURCE;
+    const rows = resource.TABLE.DATA.TABLEDATA.TR as { TD: string[] }[];
+    expect(rows[1].TD[0]).toBe(hostileName);
+    expect(rows[0].TD[3]).toBe("0.637");
+    expect(rows[1].TD[4]).toBe("");
+    const infos = Object.fromEntries((resource.INFO as Record<string, string>[]).map((i) => [i.name, i.value]));
+    expect(infos.product).toBe(`Arcwright ${packageJson.version}`);
+    expect(infos.exportedAt).toBe("2031-02-03T04:05:06.000Z");
+    expect(infos.reproduceUrl).toContain("/proposals/");
+    expect(infos["constant.GM_sun"]).toBe("132712440000000000000 m3 s-2");
+  });
+});
+
+describe("JSON export", () => {
+  it("rounds numbers to the chosen digits, keeps nulls, describes columns and carries the provenance", () => {
+    const body = JSON.parse(targetTableJson(table)) as TargetTableJson;
+    expect(body.rows[0].einsteinRadiusMas).toBe(0.637);
+    expect(body.rows[1].timeDelayDays).toBeNull();
+    expect(body.rows[1].name).toBe(hostileName);
+    expect(body.columns.find((c) => c.key === "einsteinRadiusMas")).toMatchObject({ unit: "mas", ucd: "phys.angSize", digits: 3, origin: "computed" });
+    expect(body.provenance.version).toBe(packageJson.version);
+    expect(body.provenance.constants.map((c) => c.name)).toContain("GM_sun");
+  });
+});
