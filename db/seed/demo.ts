@@ -3,6 +3,7 @@ import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coo
 import { deriveTargetColumns } from "@/lib/workspace/derived";
 import type { Database } from "@/db/client";
 import { activity, noteRevisions, notes, proposalMembers, proposals, targets, users } from "@/db/schema";
+import { seedDemoSkyCycle } from "@/db/seed/demo-sky-cycle";
 import { runSeedOnce, type SeedTransaction as Tx } from "@/db/seed/run-once";
 import {
   compactObject,
@@ -66,8 +67,17 @@ async function insertTargets(tx: Tx, proposal: { id: string; instrument: typeof 
   }
 }
 
-/** The invented demo scenario (accounts, proposals, targets, notes), applied once per database. */
+/**
+ * The invented demo scenario (accounts, proposals, targets, notes), then its later seed sets, each
+ * applied once per database. True when the first set was applied now.
+ */
 export async function seedDemo(db: Database): Promise<boolean> {
+  const applied = await seedDemoWorkspace(db);
+  await seedDemoSkyCycle(db);
+  return applied;
+}
+
+async function seedDemoWorkspace(db: Database): Promise<boolean> {
   return runSeedOnce(db, "demo-workspace-v1", async (tx) => {
     const ids: Record<string, string> = {};
     for (const account of demoAccounts) {

@@ -3,10 +3,26 @@ import { eq, sql } from "drizzle-orm";
 import type { Database } from "@/db/client";
 import { targets, type Proposal } from "@/db/schema";
 import { deriveTargetColumns } from "@/lib/workspace/derived";
-import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
+import type { InstrumentDefaults, InstrumentSettings } from "@/lib/workspace/proposal-schema";
 
+/** The lensing scales of a proposal, what the stored verdicts are graded against. */
 export function instrumentOf(p: Pick<Proposal, "resolutionMas" | "cadenceHours" | "campaignLengthDays">): InstrumentDefaults {
   return { resolutionMas: p.resolutionMas, cadenceHours: p.cadenceHours, campaignLengthDays: p.campaignLengthDays };
+}
+
+/** Every instrument default of a proposal: the lensing scales, the airmass limit, λ and B. */
+export function instrumentSettingsOf(p: Proposal): InstrumentSettings {
+  return {
+    ...instrumentOf(p),
+    airmassLimit: p.airmassLimit,
+    interferometerWavelengthMm: p.interferometerWavelengthMm,
+    interferometerBaselineKm: p.interferometerBaselineKm,
+  };
+}
+
+/** Whether a change of instrument defaults moves the scales the stored verdicts depend on. */
+export function changesLensingScales(before: InstrumentDefaults, after: InstrumentDefaults): boolean {
+  return before.resolutionMas !== after.resolutionMas || before.cadenceHours !== after.cadenceHours || before.campaignLengthDays !== after.campaignLengthDays;
 }
 
 /**

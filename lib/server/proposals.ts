@@ -1,14 +1,21 @@
 import "server-only";
-import { count, desc, eq } from "drizzle-orm";
+import { asc, count, desc, eq } from "drizzle-orm";
 import { dbClient } from "@/db/client";
 import { proposalMembers, proposals, targets, type Proposal } from "@/db/schema";
+import { SEASON_MAX_TARGETS } from "@/lib/astro/season";
+import { AppError, type FieldErrors } from "@/lib/errors";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
-import { createProposalSchema, updateProposalSchema, type ProposalInput } from "@/lib/workspace/proposal-schema";
+import {
+  createProposalSchema,
+  proposalSettingsErrors,
+  updateProposalSchema,
+  type ProposalInput,
+} from "@/lib/workspace/proposal-schema";
 import { permissionsFor, type Permissions, type ProposalRole } from "@/lib/workspace/roles";
 import { authorize, loadAccess, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { instrumentOf, rederiveTargets } from "@/lib/server/derived-columns";
+import { changesLensingScales, instrumentOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 
 export interface ProposalSummary {
@@ -34,6 +41,8 @@ function detailOf(p: Proposal, role: ProposalRole): ProposalDetail {
     title: p.title,
     cycle: p.cycle,
     abstract: p.abstract,
+    cycleStartDate: p.cycleStartDate,
+    cycleEndDate: p.cycleEndDate,
     site: {
       name: p.siteName,
       latitudeDeg: p.siteLatitudeDeg,
@@ -41,7 +50,7 @@ function detailOf(p: Proposal, role: ProposalRole): ProposalDetail {
       elevationM: p.siteElevationM,
       horizonLimitDeg: p.siteHorizonLimitDeg,
     },
-    instrument: instrumentOf(p),
+    instrument: instrumentSettingsOf(p),
     role,
     permissions: permissionsFor(role),
     createdAt: p.createdAt.toISOString(),
@@ -54,6 +63,8 @@ function columnsOf(input: Partial<ProposalInput>) {
     ...(input.title !== undefined ? { title: input.title } : {}),
     ...(input.cycle !== undefined ? { cycle: input.cycle } : {}),
     ...(input.abstract !== undefined ? { abstract: input.abstract } : {}),
+    ...(input.cycleStartDate !== undefined ? { cycleStartDate: input.cycleStartDate } : {}),
+    ...(input.cycleEndDate !== undefined ? { cycleEndDate: input.cycleEndDate } : {}),
     ...(input.site
       ? {
           siteName: input.site.name,
@@ -93,6 +104,7 @@ export async function listProposals(actor: Actor | null): Promise<ProposalSummar
 /** Any signed-in person may start a proposal; they become its PI. */
 export async function createProposal(input: unknown, actor: Actor | null): Promise<ProposalDetail> {
   const data = parseOrThrow(createProposalSchema, input, "proposal");
+  requireConsistentSettings(proposalSettingsErrors(data));
   const { userId } = requireActor(actor);
   return dbClient().db.transaction(async (tx) => {
     const [proposal] = await tx
@@ -111,22 +123,67 @@ export async function getProposal(params: unknown, actor: Actor | null): Promise
   return detailOf(access.proposal, access.role);
 }
 
-/** PI only. Changing the instrument defaults re-grades every target in the same transaction. */
+function requireConsistentSettings(fields: FieldErrors): void {
+  const names = Object.keys(fields);
+  if (names.length > 0) throw new AppError("bad_request:proposal", `Invalid proposal: check ${names.join(", ")}.`, fields);
+}
+
+/**
+ * PI only. The cross-field checks run on the proposal as it will be stored; changing the lensing
+ * scales re-grades every target in the same transaction (the shadow and dark-hours verdicts are
+ * graded on read from the stored λ, B, cycle and site, so they follow at once).
+ */
 export async function updateProposal(params: unknown, input: unknown, actor: Actor | null): Promise<ProposalDetail> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
   const data = parseOrThrow(updateProposalSchema, input, "proposal");
   const who = requireActor(actor);
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "manage", "proposal");
+    const current = detailOf(access.proposal, access.role);
+    requireConsistentSettings(
+      proposalSettingsErrors({
+        cycleStartDate: data.cycleStartDate === undefined ? current.cycleStartDate : data.cycleStartDate,
+        cycleEndDate: data.cycleEndDate === undefined ? current.cycleEndDate : data.cycleEndDate,
+        instrument: data.instrument ?? current.instrument,
+      }),
+    );
     const [proposal] = await tx
       .update(proposals)
       .set({ ...columnsOf(data), updatedAt: new Date() })
       .where(eq(proposals.id, proposalId))
       .returning();
-    if (data.instrument) await rederiveTargets(tx, proposalId, data.instrument);
+    if (data.instrument && changesLensingScales(current.instrument, data.instrument)) await rederiveTargets(tx, proposalId, instrumentOf(proposal));
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "proposal.updated", subject: proposal.title });
     return detailOf(proposal, access.role);
   });
+}
+
+/** A target's place on the sky, what the season view needs of it. */
+export interface SkyTargetRow {
+  id: string;
+  name: string;
+  raDeg: number;
+  decDeg: number;
+}
+
+/**
+ * Any member: the proposal and the sky positions of its targets (by priority, then name), at most
+ * `SEASON_MAX_TARGETS`; `total` tells when more exist.
+ */
+export async function getProposalSky(params: unknown, actor: Actor | null): Promise<{ proposal: ProposalDetail; targets: SkyTargetRow[]; total: number }> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const { db } = dbClient();
+  const access = await authorize(db, proposalId, requireActor(actor), "read", "proposal");
+  const [rows, [{ total }]] = await Promise.all([
+    db
+      .select({ id: targets.id, name: targets.name, raDeg: targets.raDeg, decDeg: targets.decDeg })
+      .from(targets)
+      .where(eq(targets.proposalId, proposalId))
+      .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
+      .limit(SEASON_MAX_TARGETS),
+    db.select({ total: count() }).from(targets).where(eq(targets.proposalId, proposalId)),
+  ]);
+  return { proposal: detailOf(access.proposal, access.role), targets: rows, total };
 }
 
 /** PI only; targets, notes, members and the feed go with it. */

@@ -14,10 +14,22 @@ import {
   sisImages,
   sisTimeDelay,
 } from "@/lib/physics";
-import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
+import { seasonWindows, type SeasonWindows } from "@/lib/astro/season";
+import { cycleNightCount, skySiteOf, type InstrumentDefaults, type ProposalInput } from "@/lib/workspace/proposal-schema";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
-import type { Verdict } from "@/lib/workspace/verdicts";
-
+import {
+  campaignCoverage,
+  feasibilityReport,
+  gradeRatio,
+  largestFeatureMas,
+  samplesPerTimescale,
+  timescaleDays,
+  verdictThresholds,
+  type CycleDarkHours,
+  type FeasibilityColumns,
+  type FeasibilityItem,
+  type Verdict,
+} from "@/lib/workspace/verdicts";
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -64,42 +76,32 @@ function geometryOf(h: LensHypothesis): Geometry | null {
   return null;
 }
 
-/** Ratio thresholds: at least `feasibleAt` is feasible, at least `marginalAt` marginal. */
-function grade(ratio: number | null, feasibleAt: number, marginalAt: number): Verdict {
-  if (ratio === null || !Number.isFinite(ratio)) return "unknown";
-  if (ratio >= feasibleAt) return "feasible";
-  if (ratio >= marginalAt) return "marginal";
-  return "infeasible";
-}
-
 function crossingTimeDaysOf(thetaERad: number, muMasPerYr: number | null | undefined): number | null {
   if (muMasPerYr == null) return null;
   return einsteinCrossingTime(thetaERad, (muMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S) / DAY_S;
 }
 
 /**
- * The verdicts against the instrument defaults:
+ * The stored verdicts against the instrument defaults (thresholds and spans in `verdicts.ts`):
  * - resolution: the largest angular feature (image separation, or a compact lens's shadow) over the
- *   resolution; ≥ 1 resolves it, ≥ 0.5 is marginal (super-resolution or model fitting needed);
+ *   resolution;
  * - cadence: samples per variability timescale (Einstein crossing time for a point lens, the image
- *   time delay for an isothermal galaxy); ≥ 10 samples the light curve, ≥ 3 is marginal;
+ *   time delay for an isothermal galaxy);
  * - campaign: campaign length over the span to cover (2 t_E for an event's rise and fall, 1.5 × the
- *   delay to see a feature in both images); ≥ 1 covers it, ≥ 0.5 is marginal.
+ *   delay to see a feature in both images).
  */
 function verdictsFor(
   columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict">,
   lensModel: LensHypothesis["lensModel"],
   instrument: InstrumentDefaults,
 ) {
-  const features = [columns.imageSeparationMas, columns.shadowDiameterMicroarcsec === null ? null : columns.shadowDiameterMicroarcsec / 1000];
-  const knownFeatures = features.filter((f): f is number => f !== null);
-  const largestFeatureMas = knownFeatures.length > 0 ? Math.max(...knownFeatures) : null;
-  const timescaleDays = lensModel === "point" ? columns.crossingTimeDays : columns.timeDelayDays;
-  const spanDays = timescaleDays === null ? null : lensModel === "point" ? 2 * timescaleDays : 1.5 * timescaleDays;
+  const feature = largestFeatureMas(columns);
+  const timescale = timescaleDays({ ...columns, lensModel });
+  const { resolution, sampling, campaign } = verdictThresholds;
   return {
-    resolutionVerdict: grade(largestFeatureMas === null ? null : largestFeatureMas / instrument.resolutionMas, 1, 0.5),
-    cadenceVerdict: grade(timescaleDays === null ? null : (timescaleDays * 24) / instrument.cadenceHours, 10, 3),
-    campaignVerdict: grade(spanDays === null ? null : instrument.campaignLengthDays / spanDays, 1, 0.5),
+    resolutionVerdict: gradeRatio(feature === null ? null : feature / instrument.resolutionMas, resolution.feasibleAt, resolution.marginalAt),
+    cadenceVerdict: gradeRatio(samplesPerTimescale(timescale, instrument.cadenceHours), sampling.feasibleAt, sampling.marginalAt),
+    campaignVerdict: gradeRatio(campaignCoverage(lensModel, timescale, instrument.campaignLengthDays), campaign.feasibleAt, campaign.marginalAt),
   };
 }
 
@@ -153,4 +155,38 @@ export function deriveTargetColumns(h: LensHypothesis, instrument: InstrumentDef
     };
   }
   return { ...columns, ...verdictsFor(columns, h.lensModel, instrument) };
+}
+
+/** What the feasibility report needs of a proposal: its scales, λ and B, site and cycle. */
+export type FeasibilitySettings = Pick<ProposalInput, "site" | "instrument" | "cycleStartDate" | "cycleEndDate">;
+
+/**
+ * Usable dark hours of one target (ICRS degrees) over the proposal's cycle from its site under its
+ * airmass limit (`seasonWindows`: astronomical darkness, above the limit, nights closer to the Sun
+ * than the safe elongation counted as 0 h). Null when the cycle dates are not set. ~60 ms for 183 nights.
+ */
+export function cycleDarkHours(settings: FeasibilitySettings, target: { raDeg: number; decDeg: number }): CycleDarkHours | null {
+  const { cycleStartDate: start, cycleEndDate: end } = settings;
+  if (start === null || end === null) return null;
+  const season = seasonWindows({
+    site: skySiteOf(settings.site),
+    targets: [{ raDeg: target.raDeg, decDeg: target.decDeg }],
+    startNightIso: start,
+    nightCount: cycleNightCount(start, end),
+    limits: { airmassLimit: settings.instrument.airmassLimit },
+  });
+  return darkHoursOfSeason(season, 0);
+}
+
+/** The dark-hours figures of target `index` of a computed season. */
+export function darkHoursOfSeason(season: SeasonWindows, index: number): CycleDarkHours {
+  const t = season.targets[index];
+  let sunNightCount = 0;
+  for (const flag of t.tooCloseToSunPerNight) sunNightCount += flag;
+  return { totalHoursDark: t.totalHoursDark, nightCount: season.nightDatesIso.length, sunNightCount };
+}
+
+/** A target's five feasibility verdicts against its proposal (`feasibilityReport`), dark hours computed here. */
+export function targetFeasibility(target: FeasibilityColumns & { raDeg: number; decDeg: number }, settings: FeasibilitySettings): FeasibilityItem[] {
+  return feasibilityReport(target, settings.instrument, cycleDarkHours(settings, target));
 }

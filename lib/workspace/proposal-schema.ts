@@ -1,4 +1,8 @@
 import { z } from "zod";
+import type { FieldErrors } from "@/lib/errors";
+import { nightDateSchema, type SkySiteInput } from "@/lib/astro/inputs";
+import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
+import { addDaysIso } from "@/lib/astro/time";
 
 /** The observing site: where the telescope stands and how low it can point. */
 export const siteSchema = z.object({
@@ -9,24 +13,99 @@ export const siteSchema = z.object({
   horizonLimitDeg: z.number().min(0, "The horizon limit is 0 to 60 degrees of altitude.").max(60, "The horizon limit is 0 to 60 degrees of altitude."),
 });
 
-/** The instrument defaults the feasibility verdicts compare each target with. */
-export const instrumentSchema = z.object({
+/** The lensing scales the stored verdicts compare each target with. */
+const lensingInstrumentSchema = z.object({
   resolutionMas: z.number().positive("Resolution must be a positive angle in milliarcseconds.").max(3.6e6),
   cadenceHours: z.number().positive("Cadence must be a positive number of hours.").max(24 * 365),
   campaignLengthDays: z.number().positive("Campaign length must be a positive number of days.").max(3653),
 });
 
-export const proposalSchema = z.object({
+/**
+ * All instrument defaults: the lensing scales, the airmass limit of the sky windows and, for a
+ * shadow-imaging proposal, the interferometer's wavelength and longest baseline (both or neither).
+ */
+export const instrumentSchema = lensingInstrumentSchema.extend({
+  airmassLimit: z
+    .number("The airmass limit must be a number.")
+    .min(1, "The airmass limit is at least 1 (the zenith).")
+    .max(10, "The airmass limit is at most 10.")
+    .default(2),
+  interferometerWavelengthMm: z
+    .number("The wavelength must be a number of millimetres.")
+    .positive("The wavelength must be a positive number of millimetres.")
+    .max(1000, "The wavelength is at most 1000 mm.")
+    .nullable()
+    .default(null),
+  interferometerBaselineKm: z
+    .number("The baseline must be a number of kilometres.")
+    .positive("The baseline must be a positive number of kilometres.")
+    .max(1e6, "The baseline is at most 1,000,000 km.")
+    .nullable()
+    .default(null),
+});
+
+const cycleDateSchema = nightDateSchema.nullable();
+
+const proposalFields = {
   title: z.string().trim().min(1, "Give the proposal a title.").max(200),
   cycle: z.string().trim().min(1, "Name the observing cycle (e.g. 2027B).").max(40),
-  abstract: z.string().max(5000, "The abstract is at most 5000 characters.").default(""),
+  abstract: z.string().max(5000, "The abstract is at most 5000 characters."),
+  /** First and last night of the cycle (local evening dates, inclusive); both or neither. */
+  cycleStartDate: cycleDateSchema,
+  cycleEndDate: cycleDateSchema,
   site: siteSchema,
   instrument: instrumentSchema,
+};
+
+export const proposalSchema = z.object({
+  ...proposalFields,
+  abstract: proposalFields.abstract.default(""),
+  cycleStartDate: cycleDateSchema.default(null),
+  cycleEndDate: cycleDateSchema.default(null),
 });
 
 export type ProposalInput = z.infer<typeof proposalSchema>;
-export type InstrumentDefaults = z.infer<typeof instrumentSchema>;
+/** The lensing scales `deriveTargetColumns` grades against. */
+export type InstrumentDefaults = z.infer<typeof lensingInstrumentSchema>;
+export type InstrumentSettings = z.infer<typeof instrumentSchema>;
 
 export const createProposalSchema = proposalSchema;
-/** A PATCH replaces whole groups: `site` and `instrument` are sent complete or not at all. */
-export const updateProposalSchema = proposalSchema.partial();
+/**
+ * A PATCH changes only the fields it sends (no defaults here, so an omitted abstract is kept, not
+ * emptied); `site` and `instrument` are sent complete or not at all.
+ */
+export const updateProposalSchema = z.object(proposalFields).partial();
+
+/** Nights from `startIso` to `endIso` inclusive (both evening dates, `YYYY-MM-DD`). */
+export function cycleNightCount(startIso: string, endIso: string): number {
+  return Math.round((Date.parse(`${endIso}T00:00:00Z`) - Date.parse(`${startIso}T00:00:00Z`)) / 86_400_000) + 1;
+}
+
+/**
+ * The checks across fields, on the proposal as it will be stored: cycle dates both or neither, in
+ * order and at most `SEASON_MAX_NIGHTS` nights long (what the season view computes); wavelength and
+ * baseline both or neither. Empty when all hold.
+ */
+export function proposalSettingsErrors(p: Pick<ProposalInput, "cycleStartDate" | "cycleEndDate"> & { instrument: Pick<InstrumentSettings, "interferometerWavelengthMm" | "interferometerBaselineKm"> }): FieldErrors {
+  const fields: FieldErrors = {};
+  const { cycleStartDate: start, cycleEndDate: end } = p;
+  if ((start === null) !== (end === null)) {
+    fields[start === null ? "cycleStartDate" : "cycleEndDate"] = ["Give both the first and the last night of the cycle, or neither."];
+  } else if (start !== null && end !== null) {
+    const nights = cycleNightCount(start, end);
+    if (nights < 1) fields.cycleEndDate = ["The last night comes on or after the first."];
+    else if (nights > SEASON_MAX_NIGHTS) fields.cycleEndDate = [`The cycle is at most ${SEASON_MAX_NIGHTS} nights (last night ${addDaysIso(start, SEASON_MAX_NIGHTS - 1)} at the latest).`];
+  }
+  const { interferometerWavelengthMm: wavelength, interferometerBaselineKm: baseline } = p.instrument;
+  if ((wavelength === null) !== (baseline === null)) {
+    fields[wavelength === null ? "instrument.interferometerWavelengthMm" : "instrument.interferometerBaselineKm"] = [
+      "Give both the interferometer's wavelength and its baseline, or neither.",
+    ];
+  }
+  return fields;
+}
+
+/** The proposal's site in the sky-windows core's terms (the stored longitude is east-positive). */
+export function skySiteOf(site: ProposalInput["site"]): SkySiteInput {
+  return { name: site.name, latitudeDeg: site.latitudeDeg, longitudeEastDeg: site.longitudeDeg, elevationM: site.elevationM, horizonLimitDeg: site.horizonLimitDeg };
+}
