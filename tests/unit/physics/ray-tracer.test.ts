@@ -55,6 +55,18 @@ describe("traceRay", () => {
     expect(worst).toBeLessThan(1e-5);
   });
 
+  it("gives the coordinate travel time of the exact ray to 1e-9", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath quadrature of dt/dr along the ray
+    const travel = loadFixture<{ travelTimes: { b: number; startRadius: number; coordinateTime: string }[] }>("deflection.json").travelTimes;
+    let worst = 0;
+    for (const row of travel) {
+      const ray = traceRay(row.b, 1, { startRadius: row.startRadius });
+      worst = Math.max(worst, relativeError(ray.t[ray.count - 1], Number(row.coordinateTime)));
+    }
+    console.info(`traceRay: largest relative error of the travel time ${worst.toExponential(2)} at rtol 1e-10`);
+    expect(worst).toBeLessThan(1e-9);
+  });
+
   it("gives coordinate time close to the flat travel time far from the lens", () => {
     // weak field: t ~ path length + Shapiro excess 2M ln(...) (Shapiro 1964), order 10 M here
     const ray = traceRay(50, 1, { startRadius: 1000 });
