@@ -7,8 +7,10 @@ import { noteParamsSchema, targetParamsSchema } from "@/lib/workspace/ids";
 import { createNoteSchema, updateNoteSchema } from "@/lib/workspace/note-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
+import { forgetNoteFiles } from "@/lib/server/attachments";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
+import { deleteStoredFiles } from "@/lib/server/uploads";
 
 type Queryable = Pick<Database, "select">;
 
@@ -146,11 +148,15 @@ export async function updateNote(params: unknown, input: unknown, actor: Actor |
 export async function deleteNote(params: unknown, actor: Actor | null): Promise<void> {
   const { proposalId, targetId, noteId } = parseIds(noteParamsSchema, params, "note");
   const who = requireActor(actor);
-  await dbClient().db.transaction(async (tx) => {
+  const storedKeys = await dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "edit", "note");
     const targetName = await requireTarget(tx, proposalId, targetId);
     await loadNote(tx, targetId, noteId);
+    const keys = await forgetNoteFiles(tx, noteId);
     await tx.delete(notes).where(eq(notes.id, noteId));
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "note.removed", subject: `note on ${targetName}` });
+    return keys;
   });
+  // The attachments' bytes go only once the note is gone for certain.
+  await deleteStoredFiles(storedKeys);
 }

@@ -8,6 +8,7 @@ import { acceptInvitationRoutes, invitationCollectionRoutes, invitationRoutes, m
 import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
 import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { attachmentCollectionRoutes, attachmentFileRoutes, attachmentRoutes, importCollectionRoutes, importPreviewRoutes } from "@/lib/server/api/upload-routes";
 import { startMailCatcher } from "./support/mail-catcher";
 import { actorFor, callers, createWorld, pointTargetInput, proposalInput, type Caller, type World } from "./support/world";
 
@@ -27,6 +28,7 @@ const proposalParams = (w: World) => ({ proposalId: w.proposalId });
 const targetParams = (w: World) => ({ proposalId: w.proposalId, targetId: w.targetId });
 const noteParams = (w: World) => ({ ...targetParams(w), noteId: w.noteId });
 const base = (w: World) => `http://arcwright.test/api/proposals/${w.proposalId}`;
+const absentId = "00000000-0000-4000-8000-000000000000";
 const as = <T extends Record<string, unknown>>(routes: (g: GetActor) => T, method: keyof T) => (g: GetActor) => routes(g)[method] as unknown as Handler;
 
 const endpoints: Endpoint[] = [
@@ -78,6 +80,12 @@ const endpoints: Endpoint[] = [
   { name: "GET /notes/:id", handler: as(noteRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 200, 200, 200] },
   { name: "PATCH /notes/:id", handler: as(noteRoutes, "PATCH"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, body: () => ({ body: "Revised.", version: 1 }), expected: [401, 404, 403, 200, 200] },
   { name: "DELETE /notes/:id", handler: as(noteRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 403, 204, 204] },
+  // The role check comes before the file is looked up, so editors reach "no such file" (a random id).
+  { name: "POST /imports/preview", handler: as(importPreviewRoutes, "POST"), path: (w) => `${base(w)}/imports/preview`, params: proposalParams, body: () => ({ fileId: absentId }), expected: [401, 404, 403, 404, 404] },
+  { name: "POST /imports", handler: as(importCollectionRoutes, "POST"), path: (w) => `${base(w)}/imports`, params: proposalParams, body: () => ({ fileId: absentId, mapping: { name: { column: 0 }, ra: { column: 1 }, dec: { column: 2 } } }), expected: [401, 404, 403, 404, 404] },
+  { name: "GET /notes/:id/attachments", handler: as(attachmentCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments`, params: noteParams, expected: [401, 404, 200, 200, 200] },
+  { name: "DELETE /attachments/:id", handler: as(attachmentRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 403, 404, 404] },
+  { name: "GET /attachments/:id/file", handler: as(attachmentFileRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}/file`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 404, 404, 404] },
   { name: "GET /exports/targets", handler: as(targetTableExportRoutes, "GET"), path: (w) => `${base(w)}/exports/targets?format=json&columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
 ];
 

@@ -1,0 +1,284 @@
+import "server-only";
+import { and, eq } from "drizzle-orm";
+import { dbClient, type Database } from "@/db/client";
+import { imports, proposals, targets, uploadedFiles, type UploadedFile } from "@/db/schema";
+import { AppError } from "@/lib/errors";
+import { proposeColumnMapping, type ColumnMapping } from "@/lib/imports/columns";
+import { formatMebibytes, type ImportColumn, type ImportTable } from "@/lib/imports/import-table";
+import { MAX_IMPORT_BYTES } from "@/lib/imports/limits";
+import { mergedHypothesis, planImport, type ExistingTarget, type ImportPlan, type PlannedRow } from "@/lib/imports/plan";
+import { readImportFile } from "@/lib/imports/read-import-file";
+import { importCommitSchema, importPreviewSchema } from "@/lib/imports/request";
+import { validateImportRows, type ImportFill } from "@/lib/imports/rows";
+import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { proposalParamsSchema } from "@/lib/workspace/ids";
+import type { CreateTargetInput } from "@/lib/workspace/target-schema";
+import { authorize, parseIds } from "@/lib/server/access";
+import { recordActivity } from "@/lib/server/activity";
+import { requireActor, type Actor } from "@/lib/server/actor";
+import { instrumentOf } from "@/lib/server/derived-columns";
+import { parseOrThrow } from "@/lib/server/http";
+import { deleteRefusedUpload, fetchStoredBytes } from "@/lib/server/uploads";
+import { z } from "zod";
+
+type Queryable = Pick<Database, "select">;
+
+/** One row of the preview as the mapping step shows it. */
+export interface ImportRowView {
+  rowNumber: number;
+  cells: PlannedRow["cells"];
+  /** The parsed target (ra/dec in ICRS degrees); null for a row with errors. */
+  values: CreateTargetInput | null;
+  errors: string[];
+  action: PlannedRow["action"]["kind"];
+  /** What the action means for this row ("updates TB-ML-0001, matched by position 0.4″"). */
+  detail: string;
+}
+
+export interface ImportPreviewView {
+  file: { id: string; name: string; sizeBytes: number; format: ImportTable["format"] };
+  columns: ImportColumn[];
+  proposedMapping: ColumnMapping;
+  mapping: ColumnMapping;
+  fill: ImportFill;
+  toleranceArcsec: number;
+  rows: ImportRowView[];
+  counts: ImportPlan["counts"];
+}
+
+export interface ImportResult {
+  importId: string;
+  added: number;
+  updated: number;
+  skipped: number;
+}
+
+/** What a target-list upload's middleware hands to its completion step. */
+export type TargetListUploadMetadata = {
+  proposalId: string;
+  userId: string;
+};
+
+const uploadInputSchema = z.object({ proposalId: z.uuid() });
+
+/**
+ * Runs in the upload route's middleware, before any URL is signed: validate the input, then the
+ * session, then the actor's role (Co-I or PI) on the proposal, then the declared size.
+ */
+export async function authorizeTargetListUpload(input: unknown, actor: Actor | null, files: readonly { size: number }[]): Promise<TargetListUploadMetadata> {
+  const { proposalId } = parseIds(uploadInputSchema, input, "proposal");
+  const who = requireActor(actor);
+  await authorize(dbClient().db, proposalId, who, "edit", "import");
+  refuseOversize(files, MAX_IMPORT_BYTES, "payload_too_large:import", "a target list");
+  return { proposalId, userId: who.userId };
+}
+
+/** Refuses before upload a file whose declared size is over the limit (checked again on the bytes). */
+export function refuseOversize(files: readonly { size: number }[], maxBytes: number, code: `payload_too_large:${string}`, what: string): void {
+  const tooLarge = files.find((file) => file.size > maxBytes);
+  if (tooLarge) throw new AppError(code, `The file is larger than ${formatMebibytes(maxBytes)}, the limit for ${what}.`);
+  if (files.some((file) => file.size === 0)) throw new AppError(`bad_request:${code.split(":")[1]}`, "The file is empty.");
+}
+
+export type UploadOutcome = { ok: true; fileId: string } | { ok: false; message: string };
+
+/**
+ * The completion step of a target-list upload: fetch the stored bytes, read them as CSV or VOTable
+ * (which refuses binary, malformed, hostile, empty or header-only files), then record the file. A
+ * refused file is deleted from the upload service and leaves no row behind.
+ */
+export async function recordTargetListUpload(metadata: TargetListUploadMetadata, file: { key: string; name: string }): Promise<UploadOutcome> {
+  let table: ImportTable;
+  let sizeBytes: number;
+  try {
+    const bytes = await fetchStoredBytes(file.key, MAX_IMPORT_BYTES);
+    table = readImportFile(bytes);
+    sizeBytes = bytes.length;
+  } catch (error) {
+    if (!(error instanceof AppError)) throw error;
+    deleteRefusedUpload(file.key);
+    return { ok: false, message: error.message };
+  }
+  const [row] = await dbClient()
+    .db.insert(uploadedFiles)
+    .values({
+      key: file.key,
+      name: file.name.slice(0, 255),
+      sizeBytes,
+      contentType: table.format === "csv" ? "text/csv" : "application/x-votable+xml",
+      proposalId: metadata.proposalId,
+      uploadedBy: metadata.userId,
+      purpose: "target_list",
+    })
+    .returning({ id: uploadedFiles.id });
+  return { ok: true, fileId: row.id };
+}
+
+async function loadTargetList(db: Queryable, proposalId: string, fileId: string): Promise<UploadedFile> {
+  const [file] = await db
+    .select()
+    .from(uploadedFiles)
+    .where(and(eq(uploadedFiles.id, fileId), eq(uploadedFiles.proposalId, proposalId), eq(uploadedFiles.purpose, "target_list")))
+    .limit(1);
+  if (!file) throw new AppError("not_found:file", "No such uploaded target list in this proposal.", { fileId: ["Upload the target list again."] });
+  return file;
+}
+
+async function existingTargets(db: Queryable, proposalId: string): Promise<ExistingTarget[]> {
+  const rows = await db.select().from(targets).where(eq(targets.proposalId, proposalId));
+  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, priority, tags }) => ({
+    id,
+    name,
+    raDeg,
+    decDeg,
+    lensModel,
+    lensMassSolar,
+    velocityDispersionKmPerS,
+    lensDistancePc,
+    sourceDistancePc,
+    lensRedshift,
+    sourceRedshift,
+    sourceOffsetThetaE,
+    properMotionMasPerYr,
+    priority,
+    tags,
+  }));
+}
+
+/** Role check (Co-I or PI), then the proposal's uploaded list read from the upload service. */
+async function readUploadedList(proposalId: string, fileId: string, who: Actor) {
+  const { db } = dbClient();
+  await authorize(db, proposalId, who, "edit", "import");
+  const file = await loadTargetList(db, proposalId, fileId);
+  const table = readImportFile(await fetchStoredBytes(file.key, MAX_IMPORT_BYTES));
+  return { db, file, table };
+}
+
+function detailOf(action: PlannedRow["action"]): string {
+  switch (action.kind) {
+    case "add":
+      return "new target";
+    case "update":
+      return action.by === "name"
+        ? `updates ${action.targetName} (same name)`
+        : `updates ${action.targetName} (${action.separationArcsec?.toFixed(2)}″ away)`;
+    case "skip":
+      return action.targetName ? `${action.reason}: ${action.targetName}` : action.reason;
+    case "error":
+      return "cannot be imported";
+  }
+}
+
+function readPlan(table: ImportTable, mapping: ColumnMapping, fill: ImportFill, existing: ExistingTarget[], toleranceArcsec: number): ImportPlan {
+  return planImport(validateImportRows(table, mapping, fill), mapping, existing, toleranceArcsec);
+}
+
+/**
+ * Co-I or PI. Reads the uploaded file with the mapping given (or the proposed one) and shows what a
+ * commit would do with every row, changing nothing.
+ */
+export async function previewImport(params: unknown, input: unknown, actor: Actor | null): Promise<ImportPreviewView> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const request = parseOrThrow(importPreviewSchema, input, "import");
+  const { db, file, table } = await readUploadedList(proposalId, request.fileId, requireActor(actor));
+  const proposedMapping = proposeColumnMapping(table.columns);
+  const mapping = request.mapping ?? proposedMapping;
+  const plan = readPlan(table, mapping, request.fill, await existingTargets(db, proposalId), request.toleranceArcsec);
+  return {
+    file: { id: file.id, name: file.name, sizeBytes: file.sizeBytes, format: table.format },
+    columns: table.columns,
+    proposedMapping,
+    mapping,
+    fill: request.fill,
+    toleranceArcsec: request.toleranceArcsec,
+    rows: plan.rows.map((row) => ({ rowNumber: row.rowNumber, cells: row.cells, values: row.target ?? null, errors: row.errors, action: row.action.kind, detail: detailOf(row.action) })),
+    counts: plan.counts,
+  };
+}
+
+/** Rows per INSERT: 10,000 targets × 25 columns would pass PostgreSQL's 65,535 parameters. */
+const INSERT_CHUNK_ROWS = 500;
+
+/**
+ * Co-I or PI. Commits the import in one transaction: every row is added, updated or skipped, or —
+ * when any row cannot be imported — nothing is written at all and the answer lists the row errors.
+ * The targets' derived columns are computed as for a target added by hand; the original file stays
+ * attached to the import record; one activity entry tells the team.
+ */
+export async function commitImport(params: unknown, input: unknown, actor: Actor | null): Promise<ImportResult> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const request = parseOrThrow(importCommitSchema, input, "import");
+  const who = requireActor(actor);
+  // Read before the transaction opens, so no lock is held while the upload service answers.
+  const { db, file, table } = await readUploadedList(proposalId, request.fileId, who);
+  return db.transaction(async (tx) => {
+    const access = await authorize(tx, proposalId, who, "edit", "import");
+    // One import at a time per proposal: two commits of the same file must not both add its rows.
+    await tx.select({ id: proposals.id }).from(proposals).where(eq(proposals.id, proposalId)).for("update");
+    const existing = await existingTargets(tx, proposalId);
+    const plan = readPlan(table, request.mapping, request.fill, existing, request.toleranceArcsec);
+    if (plan.counts.invalid > 0) {
+      const rowErrors = plan.rows.flatMap((row) => row.errors);
+      throw new AppError(
+        "bad_request:import",
+        `${plan.counts.invalid} of ${plan.rows.length} rows cannot be imported, so nothing was imported. ${rowErrors.slice(0, 3).join(" ")}`,
+        undefined,
+        { rowErrors: rowErrors.slice(0, 200) },
+      );
+    }
+    const instrument = instrumentOf(access.proposal);
+    const byId = new Map(existing.map((target) => [target.id, target]));
+    const added = plan.rows.flatMap((row) => (row.action.kind === "add" ? [row.action.target] : []));
+    for (let start = 0; start < added.length; start += INSERT_CHUNK_ROWS) {
+      const values = added.slice(start, start + INSERT_CHUNK_ROWS).map(({ ra, dec, ...target }) => ({
+        ...target,
+        raDeg: ra,
+        decDeg: dec,
+        ...deriveTargetColumns(target, instrument),
+        proposalId,
+        createdBy: who.userId,
+      }));
+      await tx.insert(targets).values(values);
+    }
+    for (const row of plan.rows) {
+      if (row.action.kind !== "update") continue;
+      const { ra, dec, ...patch } = row.action.patch;
+      const merged = mergedHypothesis(byId.get(row.action.targetId)!, row.action.patch);
+      await tx
+        .update(targets)
+        .set({
+          ...patch,
+          ...(ra !== undefined ? { raDeg: ra } : {}),
+          ...(dec !== undefined ? { decDeg: dec } : {}),
+          ...deriveTargetColumns(merged, instrument),
+          updatedAt: new Date(),
+        })
+        .where(eq(targets.id, row.action.targetId));
+    }
+    const { added: addedCount, updated, skipped } = plan.counts;
+    const [record] = await tx
+      .insert(imports)
+      .values({
+        proposalId,
+        fileId: file.id,
+        format: table.format,
+        mapping: request.mapping,
+        fill: request.fill,
+        toleranceArcsec: request.toleranceArcsec,
+        addedCount,
+        updatedCount: updated,
+        skippedCount: skipped,
+        importedBy: who.userId,
+      })
+      .returning({ id: imports.id });
+    await tx.update(proposals).set({ updatedAt: new Date() }).where(eq(proposals.id, proposalId));
+    const counted = (n: number) => n.toLocaleString("en-US");
+    await recordActivity(tx, {
+      proposalId,
+      actorId: who.userId,
+      action: "target.added",
+      subject: `targets from ${file.name} (${counted(addedCount)} added, ${counted(updated)} updated, ${counted(skipped)} skipped)`,
+    });
+    return { importId: record.id, added: addedCount, updated, skipped };
+  });
+}
