@@ -57,6 +57,11 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
         </h2>
         <TargetTable proposalId={proposalId} initialPage={targets} />
         {permissions.canEdit && <TargetForm proposalId={proposalId} />}
+        {permissions.canEdit && (
+          <Link href={`/proposals/${proposalId}/import`} className="inline-block text-sm">
+            Import a target list (CSV or VOTable)
+          </Link>
+        )}
       </section>
       <div className="grid gap-8 md:grid-cols-2">
         <MembersPanel proposalId={proposalId} initialMembers={members} canManage={permissions.canManage} />

@@ -1,0 +1,257 @@
+"use client";
+
+import Link from "next/link";
+import { useRef, useState } from "react";
+import { useVirtualizer } from "@tanstack/react-virtual";
+import { defaultUnits, importFieldKinds, importFieldLabels, importFields, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
+import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill } from "@/lib/imports/request";
+import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
+import { apiFetch } from "@/components/workspace/api-client";
+import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
+import { formatQuantity } from "@/components/workspace/format";
+import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
+
+const inputClass = "rounded-md border border-void-edge bg-void px-2 py-1 text-sm";
+const actionLabels: Record<ImportRowView["action"], string> = { add: "Add", update: "Update", skip: "Skip", error: "Error" };
+const actionClass: Record<ImportRowView["action"], string> = { add: "text-glint", update: "text-ember", skip: "text-dusk-dim", error: "text-alarm" };
+
+/** Fields whose bare numbers are read in a unit the user can change. */
+const hasUnit = (field: ImportField) => field === "ra" || defaultUnits[importFieldKinds[field]] !== undefined;
+
+/**
+ * The target-list import: upload a CSV or VOTable through the upload service's dropzone, check the
+ * proposed column mapping (column and unit per field), see every row as it will be read, then commit.
+ */
+export function ImportWizard({ proposalId }: { proposalId: string }) {
+  const [fileId, setFileId] = useState<string | null>(null);
+  const [uploadError, setUploadError] = useState<string | null>(null);
+  const [preview, setPreview] = useState<ImportPreviewView | null>(null);
+  const [mapping, setMapping] = useState<ColumnMapping>({});
+  const [toleranceText, setToleranceText] = useState(String(DEFAULT_MATCH_TOLERANCE_ARCSEC));
+  const [priorityText, setPriorityText] = useState(String(defaultImportFill.priority));
+  const [offsetText, setOffsetText] = useState(String(defaultImportFill.sourceOffsetThetaE));
+  const [result, setResult] = useState<ImportResult | null>(null);
+  const previewing = useFormSubmit();
+  const committing = useFormSubmit();
+  const base = `/api/proposals/${proposalId}/imports`;
+
+  const requestBody = (id: string, chosen: ColumnMapping | undefined) => ({
+    fileId: id,
+    mapping: chosen,
+    toleranceArcsec: Number(toleranceText),
+    fill: { priority: Number(priorityText), sourceOffsetThetaE: Number(offsetText) },
+  });
+
+  function runPreview(id: string, chosen: ColumnMapping | undefined) {
+    void previewing.run(async () => {
+      const next = await apiFetch<ImportPreviewView>(`${base}/preview`, { method: "POST", body: requestBody(id, chosen) });
+      setPreview(next);
+      setMapping(next.mapping);
+      setResult(null);
+    });
+  }
+
+  function setColumn(field: ImportField, columnText: string) {
+    const next = { ...mapping };
+    if (columnText === "") delete next[field];
+    else next[field] = { column: Number(columnText), ...(hasUnit(field) ? { unit: mapping[field]?.unit ?? defaultUnits[importFieldKinds[field]] } : {}) };
+    setMapping(next);
+  }
+
+  function setUnit(field: ImportField, unit: string) {
+    const current = mapping[field];
+    if (current) setMapping({ ...mapping, [field]: { column: current.column, ...(unit.trim() ? { unit: unit.trim() } : {}) } });
+  }
+
+  return (
+    <div className="space-y-8">
+      <section aria-labelledby="upload-heading" className="space-y-3">
+        <h2 id="upload-heading" className="text-xl font-semibold">
+          1. Target list
+        </h2>
+        <p className="text-sm text-dusk-dim">A CSV (header row first) or a VOTable with TABLEDATA, up to 5 MB and 10,000 rows.</p>
+        <div data-testid="list-dropzone">
+          <UploadDropzone
+            endpoint="targetList"
+            input={{ proposalId }}
+            config={{ mode: "auto" }}
+            appearance={dropzoneAppearance}
+            content={{ label: "Drop a CSV or VOTable here, or choose a file", allowedContent: "CSV or VOTable, at most 5 MB" }}
+            onUploadBegin={() => setUploadError(null)}
+            onClientUploadComplete={(uploaded) => {
+              const refusal = refusalOf(uploaded);
+              if (refusal) return setUploadError(refusal);
+              const outcome = uploaded[0].serverData;
+              if (!outcome.ok) return;
+              setFileId(outcome.fileId);
+              setPreview(null);
+              runPreview(outcome.fileId, undefined);
+            }}
+            onUploadError={(error) => setUploadError(error.message)}
+          />
+        </div>
+        <FormError message={uploadError} />
+        {preview && (
+          <p className="text-sm" data-testid="uploaded-list">
+            {preview.file.name} · {preview.file.format === "csv" ? "CSV" : "VOTable"} · {preview.rows.length.toLocaleString("en-US")} rows
+          </p>
+        )}
+      </section>
+
+      {preview && fileId && (
+        <form
+          aria-label="Column mapping"
+          className="space-y-4"
+          onSubmit={(event) => {
+            event.preventDefault();
+            runPreview(fileId, mapping);
+          }}
+        >
+          <h2 className="text-xl font-semibold">2. Columns</h2>
+          <p className="text-sm text-dusk-dim">Proposed from the file&apos;s headers and units; change any field&apos;s column or the unit its bare numbers are read in.</p>
+          <div className="grid gap-x-6 gap-y-2 md:grid-cols-2">
+            {importFields.map((field) => {
+              const assignment = mapping[field];
+              return (
+                <div key={field} className="flex flex-wrap items-center gap-2 text-sm">
+                  <label className="flex items-center gap-2">
+                    <span className="w-40">
+                      {importFieldLabels[field]}
+                      {requiredImportFields.includes(field) && " *"}
+                    </span>
+                    <select className={inputClass} value={assignment?.column ?? ""} onChange={(e) => setColumn(field, e.target.value)}>
+                      <option value="">— not in the file —</option>
+                      {preview.columns.map((column, index) => (
+                        <option key={index} value={index}>
+                          {column.name}
+                          {column.unit ? ` [${column.unit}]` : ""}
+                        </option>
+                      ))}
+                    </select>
+                  </label>
+                  {assignment && hasUnit(field) && (
+                    <label className="flex items-center gap-1">
+                      <span className="text-dusk-dim">unit</span>
+                      <input className={`${inputClass} w-20`} aria-label={`${importFieldLabels[field]} unit`} value={assignment.unit ?? ""} onChange={(e) => setUnit(field, e.target.value)} />
+                    </label>
+                  )}
+                </div>
+              );
+            })}
+          </div>
+          <div className="flex flex-wrap gap-6 text-sm">
+            <label className="flex items-center gap-2">
+              Position tolerance for matching existing targets (″)
+              <input className={`${inputClass} w-20`} inputMode="decimal" value={toleranceText} onChange={(e) => setToleranceText(e.target.value)} />
+            </label>
+            <label className="flex items-center gap-2">
+              Priority where the file has none
+              <input className={`${inputClass} w-14`} inputMode="numeric" value={priorityText} onChange={(e) => setPriorityText(e.target.value)} />
+            </label>
+            <label className="flex items-center gap-2">
+              Source offset (θE) where the file has none
+              <input className={`${inputClass} w-20`} inputMode="decimal" value={offsetText} onChange={(e) => setOffsetText(e.target.value)} />
+            </label>
+          </div>
+          <FormError message={previewing.message} />
+          <button type="submit" className={quietButtonClass} disabled={previewing.isBusy}>
+            Read the rows again
+          </button>
+        </form>
+      )}
+
+      {preview && fileId && (
+        <section aria-labelledby="preview-heading" className="space-y-3">
+          <h2 id="preview-heading" className="text-xl font-semibold">
+            3. Rows
+          </h2>
+          <p className="text-sm" data-testid="import-counts">
+            {preview.counts.added} to add · {preview.counts.updated} to update · {preview.counts.skipped} to skip · {preview.counts.invalid} with errors
+          </p>
+          <PreviewRows rows={preview.rows} />
+          {result ? (
+            <p className="text-sm" role="status" data-testid="import-result">
+              Imported: {result.added} added, {result.updated} updated, {result.skipped} skipped.{" "}
+              <Link href={`/proposals/${proposalId}`}>Back to the proposal</Link>
+            </p>
+          ) : (
+            <>
+              <FormError message={committing.message} />
+              <button
+                type="button"
+                className={buttonClass}
+                disabled={committing.isBusy || previewing.isBusy || preview.counts.invalid > 0}
+                onClick={() =>
+                  void committing.run(async () => {
+                    const { import: done } = await apiFetch<{ import: ImportResult }>(base, { method: "POST", body: requestBody(fileId, mapping) });
+                    setResult(done);
+                  })
+                }
+              >
+                Import {(preview.counts.added + preview.counts.updated).toLocaleString("en-US")} targets
+              </button>
+              {preview.counts.invalid > 0 && <p className="text-sm text-alarm">Fix the rows with errors in the file (or the mapping) first: an import is all rows or none.</p>}
+            </>
+          )}
+        </section>
+      )}
+    </div>
+  );
+}
+
+const ROW_HEIGHT_PX = 44;
+
+function valueText(row: ImportRowView): string {
+  const v = row.values;
+  if (!v) return "";
+  const parts = [`RA ${formatQuantity(v.ra, 7)}°`, `Dec ${formatQuantity(v.dec, 7)}°`, v.lensModel === "point" ? "point" : "SIS"];
+  if (v.lensMassSolar != null) parts.push(`${formatQuantity(v.lensMassSolar)} M☉`);
+  if (v.velocityDispersionKmPerS != null) parts.push(`σ ${formatQuantity(v.velocityDispersionKmPerS)} km/s`);
+  if (v.lensDistancePc != null) parts.push(`D_L ${formatQuantity(v.lensDistancePc)} pc`);
+  if (v.sourceDistancePc != null) parts.push(`D_S ${formatQuantity(v.sourceDistancePc)} pc`);
+  if (v.lensRedshift != null) parts.push(`z_L ${v.lensRedshift}`);
+  if (v.sourceRedshift != null) parts.push(`z_S ${v.sourceRedshift}`);
+  return parts.join(" · ");
+}
+
+/** Every row, virtualized so a 10,000-row file scrolls smoothly. */
+function PreviewRows({ rows }: { rows: ImportRowView[] }) {
+  const scroller = useRef<HTMLDivElement>(null);
+  const virtualizer = useVirtualizer({ count: rows.length, getScrollElement: () => scroller.current, estimateSize: () => ROW_HEIGHT_PX, overscan: 12 });
+  return (
+    <div ref={scroller} className="h-96 overflow-auto rounded-lg border border-void-edge" role="table" aria-label="Rows as read">
+      <div style={{ height: virtualizer.getTotalSize(), position: "relative" }}>
+        {virtualizer.getVirtualItems().map((item) => {
+          const row = rows[item.index];
+          return (
+            <div
+              key={row.rowNumber}
+              role="row"
+              data-testid="preview-row"
+              data-action={row.action}
+              className="absolute left-0 right-0 flex gap-3 border-b border-void-edge px-3 py-1 text-sm"
+              style={{ top: item.start, minHeight: ROW_HEIGHT_PX }}
+              ref={virtualizer.measureElement}
+              data-index={item.index}
+            >
+              <span role="cell" className="w-12 shrink-0 tabular-nums text-dusk-dim">
+                {row.rowNumber}
+              </span>
+              <span role="cell" className={`w-16 shrink-0 ${actionClass[row.action]}`}>
+                {actionLabels[row.action]}
+              </span>
+              <span role="cell" className="w-40 shrink-0 truncate font-semibold">
+                {row.cells.name}
+              </span>
+              <span role="cell" className="min-w-0 flex-1">
+                {row.errors.length > 0 ? <span className="text-alarm">{row.errors.join(" ")}</span> : <span className="tabular-nums">{valueText(row)}</span>}
+                <span className="ml-2 text-xs text-dusk-dim">{row.detail}</span>
+              </span>
+            </div>
+          );
+        })}
+      </div>
+    </div>
+  );
+}
