@@ -2,13 +2,14 @@
  * A pool of ray-tracing workers, sized from navigator.hardwareConcurrency. A bundle is cut into
  * chunks that idle workers take in turn, which gives progress and bounds the work wasted on a bundle
  * that is cancelled: a newer request makes every older one stale, stale chunks are not started, and a
- * stale result is dropped, so it can never replace a newer bundle.
+ * stale result is dropped, so it can never replace a newer bundle. The traced chunks are then joined
+ * into one bundle in a worker too.
  */
 
-import { wrap, type Remote } from "comlink";
-import { assembleBundle, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
+import { transfer, wrap, type Remote } from "comlink";
+import { chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
 import type { BundleLayout } from "@/lib/bench/bundle-layout";
-import type { ChunkRequest, RayTraceWorkerApi } from "./ray-trace.worker";
+import type { AssembleRequest, ChunkRequest, RayTraceWorkerApi } from "./ray-trace.worker";
 
 /** Rays per chunk: small enough for smooth progress and quick cancellation, large enough to amortize messaging. */
 const CHUNK_RAYS = 200;
@@ -75,10 +76,10 @@ export class RayTracePool {
       throw error;
     }
     if (isStale()) return { status: "cancelled" };
-    return {
-      status: "done",
-      bundle: assembleBundle(chunks, rayCount, layout.samples, layout.planes, layout.wavefrontTimesM.length, layout.startRadiusM),
-    };
+    const assembleRequest: AssembleRequest = { chunks, rayCount, planes: layout.planes, wavefrontCount: layout.wavefrontTimesM.length, startRadiusM: layout.startRadiusM };
+    const bundle = await this.remotes[0].assemble(transfer(assembleRequest, chunks.flatMap(chunkBuffers)));
+    if (isStale()) return { status: "cancelled" };
+    return { status: "done", bundle };
   }
 
   dispose(): void {

@@ -1,8 +1,12 @@
 /**
- * Joins the traced chunks of a bundle into one set of GPU buffers: every ray's vertices in one array,
- * a segment index ordered by fate (so one BufferGeometry draws the whole bundle with one group per
- * fate), and the wavefront segments between neighbouring rays of each half-plane.
+ * Joins the traced chunks of a bundle into one set of GPU buffers: every ray's (thinned) vertices in
+ * one array, a segment index ordered by fate (so one BufferGeometry draws the whole bundle with one
+ * group per fate), and the wavefront segments between neighbouring rays of each half-plane, thinned
+ * like the rays. Within a fate the rays are indexed in interleaved passes, so drawing any leading
+ * part of a group (as the progressive draw does) shows rays spread over the whole bundle.
  */
+
+import { keptSamples } from "./polyline-decimation";
 
 /** Fates as lib/physics codes them in `traceRayBundle`: 0 escaped, 1 captured, 2 winding. */
 export const RAY_FATES = ["escaped", "captured", "winding"] as const;
@@ -14,13 +18,20 @@ export interface TracedChunk {
   rayCount: number;
   vertices: Float32Array;
   lineDistances: Float32Array;
+  /** Drawn points per ray (rays are thinned, so their lengths differ). */
+  pointCounts: Uint32Array;
   fates: Uint8Array;
+  /** Every ray's point at every front, [ray][front][x, y, z]; NaN where the ray never got there. */
   wavefronts: Float32Array;
+}
+
+/** The buffers of a chunk, to transfer between threads rather than copy. */
+export function chunkBuffers(chunk: TracedChunk): ArrayBuffer[] {
+  return [chunk.vertices.buffer, chunk.lineDistances.buffer, chunk.pointCounts.buffer, chunk.fates.buffer, chunk.wavefronts.buffer] as ArrayBuffer[];
 }
 
 export interface AssembledBundle {
   rayCount: number;
-  samples: number;
   vertices: Float32Array;
   lineDistances: Float32Array;
   /** Pairs of vertex indices, escaped rays first, then captured, then winding. */
@@ -39,40 +50,48 @@ export interface AssembledBundle {
  */
 const MAX_FRONT_GAP_OF_START_RADIUS = 0.1;
 
-export function assembleBundle(
-  chunks: TracedChunk[],
-  rayCount: number,
-  samples: number,
-  planes: number,
-  wavefrontCount: number,
-  startRadiusM: number,
-): AssembledBundle {
-  const vertices = new Float32Array(rayCount * samples * 3);
-  const lineDistances = new Float32Array(rayCount * samples);
+/** Passes the rays of one fate are indexed in: pass p holds every SPREAD_PASSES-th ray from the p-th. */
+export const SPREAD_PASSES = 8;
+
+export function assembleBundle(chunks: TracedChunk[], rayCount: number, planes: number, wavefrontCount: number, startRadiusM: number): AssembledBundle {
+  const ordered = [...chunks].sort((a, b) => a.firstRay - b.firstRay);
+  let pointTotal = 0;
+  for (const chunk of ordered) pointTotal += chunk.lineDistances.length;
+  const vertices = new Float32Array(pointTotal * 3);
+  const lineDistances = new Float32Array(pointTotal);
+  const rayFirstPoint = new Uint32Array(rayCount + 1);
   const fates = new Uint8Array(rayCount);
   const wavefronts = new Float32Array(rayCount * wavefrontCount * 3);
-  for (const chunk of chunks) {
-    vertices.set(chunk.vertices, chunk.firstRay * samples * 3);
-    lineDistances.set(chunk.lineDistances, chunk.firstRay * samples);
+  let point = 0;
+  for (const chunk of ordered) {
+    vertices.set(chunk.vertices, point * 3);
+    lineDistances.set(chunk.lineDistances, point);
+    for (let k = 0; k < chunk.rayCount; k++) {
+      rayFirstPoint[chunk.firstRay + k] = point;
+      point += chunk.pointCounts[k];
+    }
     fates.set(chunk.fates, chunk.firstRay);
     wavefronts.set(chunk.wavefronts, chunk.firstRay * wavefrontCount * 3);
   }
+  rayFirstPoint[rayCount] = point;
 
   const fateCounts: Record<RayFate, number> = { escaped: 0, captured: 0, winding: 0 };
   for (let ray = 0; ray < rayCount; ray++) fateCounts[RAY_FATES[fates[ray]]] += 1;
 
-  const segmentsPerRay = samples - 1;
-  const segmentIndex = new Uint32Array(rayCount * segmentsPerRay * 2);
+  const segmentIndex = new Uint32Array(2 * Math.max(0, pointTotal - rayCount));
   const fateGroups: AssembledBundle["fateGroups"] = [];
   let cursor = 0;
   for (let code = 0; code < RAY_FATES.length; code++) {
     const start = cursor;
-    for (let ray = 0; ray < rayCount; ray++) {
-      if (fates[ray] !== code) continue;
-      const base = ray * samples;
-      for (let s = 0; s < segmentsPerRay; s++) {
-        segmentIndex[cursor++] = base + s;
-        segmentIndex[cursor++] = base + s + 1;
+    const raysOfFate: number[] = [];
+    for (let ray = 0; ray < rayCount; ray++) if (fates[ray] === code) raysOfFate.push(ray);
+    for (let pass = 0; pass < SPREAD_PASSES; pass++) {
+      for (let rank = pass; rank < raysOfFate.length; rank += SPREAD_PASSES) {
+        const ray = raysOfFate[rank];
+        for (let p = rayFirstPoint[ray]; p + 1 < rayFirstPoint[ray + 1]; p++) {
+          segmentIndex[cursor++] = p;
+          segmentIndex[cursor++] = p + 1;
+        }
       }
     }
     fateGroups.push({ start, count: cursor - start, fate: RAY_FATES[code] });
@@ -80,7 +99,6 @@ export function assembleBundle(
 
   return {
     rayCount,
-    samples,
     vertices,
     lineDistances,
     segmentIndex,
@@ -91,21 +109,43 @@ export function assembleBundle(
   };
 }
 
-/** Segments joining ray i and ray i + planes (neighbours in one half-plane) at each front. */
+/**
+ * Segments along each front in each half-plane (rays i, i + planes, i + 2 planes, … are neighbours),
+ * broken where neighbours are too far apart, each unbroken run thinned like a ray.
+ */
 function wavefrontSegments(wavefronts: Float32Array, rayCount: number, planes: number, fronts: number, maxGapM: number): Float32Array {
-  const out = new Float32Array(Math.max(0, rayCount - planes) * fronts * 6);
-  let cursor = 0;
-  for (let ray = 0; ray + planes < rayCount; ray++) {
+  const out: number[] = [];
+  const kept = new Uint32Array(Math.ceil(rayCount / planes) + 1);
+  const pointOffset = (ray: number, front: number) => 3 * (ray * fronts + front);
+  const emitRun = (firstRay: number, points: number, front: number) => {
+    if (points < 2) return;
+    const path = { coords: wavefronts, offset: pointOffset(firstRay, front), stride: 3 * planes * fronts, dims: 3 as const, count: points };
+    const count = keptSamples(path, kept);
+    for (let k = 0; k + 1 < count; k++) {
+      const a = path.offset + kept[k] * path.stride;
+      const b = path.offset + kept[k + 1] * path.stride;
+      out.push(wavefronts[a], wavefronts[a + 1], wavefronts[a + 2], wavefronts[b], wavefronts[b + 1], wavefronts[b + 2]);
+    }
+  };
+  for (let plane = 0; plane < planes; plane++) {
     for (let front = 0; front < fronts; front++) {
-      const a = 3 * (ray * fronts + front);
-      const b = 3 * ((ray + planes) * fronts + front);
-      const gap = Math.hypot(wavefronts[a] - wavefronts[b], wavefronts[a + 1] - wavefronts[b + 1], wavefronts[a + 2] - wavefronts[b + 2]);
-      // NaN (a ray that never got there) fails this test too, so the line breaks there.
-      if (!(gap <= maxGapM)) continue;
-      out.set(wavefronts.subarray(a, a + 3), cursor);
-      out.set(wavefronts.subarray(b, b + 3), cursor + 3);
-      cursor += 6;
+      let runStart = plane;
+      let runPoints = 1;
+      for (let ray = plane; ray + planes < rayCount; ray += planes) {
+        const a = pointOffset(ray, front);
+        const b = pointOffset(ray + planes, front);
+        const gap = Math.hypot(wavefronts[a] - wavefronts[b], wavefronts[a + 1] - wavefronts[b + 1], wavefronts[a + 2] - wavefronts[b + 2]);
+        // NaN (a ray that never got there) fails this test too, so the line breaks there.
+        if (gap <= maxGapM) {
+          runPoints += 1;
+          continue;
+        }
+        emitRun(runStart, runPoints, front);
+        runStart = ray + planes;
+        runPoints = 1;
+      }
+      emitRun(runStart, runPoints, front);
     }
   }
-  return out.slice(0, cursor);
+  return new Float32Array(out);
 }

@@ -1,44 +1,60 @@
 /**
- * Turns traced rays (planar paths from lib/physics) into what the GPU draws: 3D vertices rotated into
- * each ray's half-plane, the distance along each ray (for dash patterns), and the point each ray has
- * reached at each wavefront time. Runs inside the ray workers so the main thread only concatenates.
+ * Turns traced rays (planar paths from lib/physics) into what the GPU draws: each ray's path thinned
+ * to the points the eye needs (see polyline-decimation), rotated into its half-plane, with the
+ * distance along the full path (for dash patterns); and the point each ray has reached at each
+ * wavefront time, interpolated from the full-resolution samples. Runs inside the ray workers so the
+ * main thread only concatenates.
  */
 
-/** Rotates the planar path (x, y) about the x axis by φ: (x, y cos φ, y sin φ). Float32 for the GPU. */
-export function rayVertices(xy: Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): Float32Array {
-  const vertices = new Float32Array(rayCount * samples * 3);
-  for (let ray = 0; ray < rayCount; ray++) {
-    const cos = Math.cos(azimuthsRad[ray]);
-    const sin = Math.sin(azimuthsRad[ray]);
-    for (let s = 0; s < samples; s++) {
-      const point = ray * samples + s;
-      const y = xy[2 * point + 1];
-      vertices[3 * point] = xy[2 * point];
-      vertices[3 * point + 1] = y * cos;
-      vertices[3 * point + 2] = y * sin;
-    }
-  }
-  return vertices;
+import { keptSamples } from "./polyline-decimation";
+
+export interface DrawnRays {
+  /** Kept points of every ray in turn, [x, y, z] in units of M, Float32 for the GPU. */
+  vertices: Float32Array;
+  /** Path length (units of M) along the full traced ray from its first sample, at each kept point. */
+  lineDistances: Float32Array;
+  /** Kept points per ray. */
+  pointCounts: Uint32Array;
 }
 
-/** Cumulative path length along each ray from its first sample (units of M), for dashed lines. */
-export function rayLineDistances(xy: Float64Array, rayCount: number, samples: number): Float32Array {
-  const distances = new Float32Array(rayCount * samples);
+/** Thins each ray and rotates its planar path (x, y) about the x axis by φ: (x, y cos φ, y sin φ). */
+export function drawnRays(xy: Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): DrawnRays {
+  const pointCounts = new Uint32Array(rayCount);
+  const kept = new Uint32Array(rayCount * samples);
+  const arcLengths = new Float64Array(samples);
+  const vertices = new Float32Array(rayCount * samples * 3);
+  const lineDistances = new Float32Array(rayCount * samples);
+  let out = 0;
   for (let ray = 0; ray < rayCount; ray++) {
-    let length = 0;
+    const first = ray * samples;
     for (let s = 1; s < samples; s++) {
-      const point = ray * samples + s;
-      length += Math.hypot(xy[2 * point] - xy[2 * point - 2], xy[2 * point + 1] - xy[2 * point - 1]);
-      distances[point] = length;
+      const p = 2 * (first + s);
+      arcLengths[s] = arcLengths[s - 1] + Math.hypot(xy[p] - xy[p - 2], xy[p + 1] - xy[p - 1]);
+    }
+    const keptOfRay = kept.subarray(out);
+    const count = keptSamples({ coords: xy, offset: 2 * first, stride: 2, dims: 2, count: samples }, keptOfRay);
+    pointCounts[ray] = count;
+    const cos = Math.cos(azimuthsRad[ray]);
+    const sin = Math.sin(azimuthsRad[ray]);
+    for (let k = 0; k < count; k++) {
+      const s = keptOfRay[k];
+      const point = first + s;
+      const y = xy[2 * point + 1];
+      vertices[3 * out] = xy[2 * point];
+      vertices[3 * out + 1] = y * cos;
+      vertices[3 * out + 2] = y * sin;
+      lineDistances[out] = arcLengths[s];
+      out += 1;
     }
   }
-  return distances;
+  // Copies, so only the kept points cross to the page.
+  return { vertices: vertices.slice(0, 3 * out), lineDistances: lineDistances.slice(0, out), pointCounts };
 }
 
 /**
  * Where each ray is at each of `timesM` (coordinate time since the ray left the start plane), by
  * linear interpolation between samples; NaN where the ray's path ended earlier (captured, or out of
- * the traced region). Layout: [ray][front][x, y, z], rotated like `rayVertices`. `timesM` ascending.
+ * the traced region). Layout: [ray][front][x, y, z], rotated like `drawnRays`. `timesM` ascending.
  */
 export function wavefrontPoints(
   xy: Float64Array,

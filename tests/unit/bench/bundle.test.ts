@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { assembleBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
+import { assembleBundle, SPREAD_PASSES, type TracedChunk } from "@/lib/bench/assemble-bundle";
 import { bundleLayout, CYLINDER_PLANES } from "@/lib/bench/bundle-layout";
-import { rayLineDistances, rayVertices, wavefrontPoints } from "@/lib/bench/bundle-vertices";
+import { drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
 
 describe("bundle layout", () => {
   it("gives every ray its own impact parameter, alternating sides in a fan", () => {
@@ -26,15 +26,27 @@ describe("bundle vertices and wavefronts", () => {
   const t = new Float64Array([0, 2, 4, 0, 2, 4]);
   const azimuths = new Float64Array([0, Math.PI / 2]);
 
-  it("rotates each ray into its half-plane", () => {
-    const vertices = rayVertices(xy, 2, 3, azimuths);
-    expect(Array.from(vertices.slice(0, 3))).toEqual([-2, 1, 0]);
-    expect(vertices[3 * 3 + 1]).toBeCloseTo(0, 6);
-    expect(vertices[3 * 3 + 2]).toBe(3);
+  // The same rays clear of the photon sphere (where every point is kept).
+  const farXy = new Float64Array([-2, 10, 0, 10, 2, 10, -2, 12, 0, 12, 2, 12]);
+
+  it("draws a straight ray as its two end points, rotated into its half-plane", () => {
+    const { vertices, pointCounts } = drawnRays(farXy, 2, 3, azimuths);
+    expect(Array.from(pointCounts)).toEqual([2, 2]);
+    expect(Array.from(vertices.slice(0, 6))).toEqual([-2, 10, 0, 2, 10, 0]);
+    expect(vertices[2 * 3 + 1]).toBeCloseTo(0, 6);
+    expect(vertices[2 * 3 + 2]).toBe(12);
   });
 
-  it("measures the distance along each ray from its own start", () => {
-    expect(Array.from(rayLineDistances(xy, 2, 3))).toEqual([0, 2, 4, 0, 2, 4]);
+  it("keeps every point on the photon sphere", () => {
+    const grazing = new Float64Array([-2, 3, 0, 3, 2, 3]);
+    expect(Array.from(drawnRays(grazing, 1, 3, azimuths).pointCounts)).toEqual([3]);
+  });
+
+  it("measures the distance along each ray from its own start, over the full path", () => {
+    // A bent ray: (0,10) → (1,10) → (1,11): the corner is kept and the distances are along the path.
+    const bent = drawnRays(new Float64Array([0, 10, 1, 10, 1, 11]), 1, 3, new Float64Array([0]));
+    expect(Array.from(bent.lineDistances)).toEqual([0, 1, 2]);
+    expect(Array.from(drawnRays(farXy, 2, 3, azimuths).lineDistances)).toEqual([0, 4, 0, 4]);
   });
 
   it("interpolates where each ray is at each front time, and marks fronts a ray never reaches", () => {
@@ -46,16 +58,16 @@ describe("bundle vertices and wavefronts", () => {
 
 describe("assembleBundle", () => {
   it("orders segments by fate, counts fates and joins fronts only between reached neighbours", () => {
-    const samples = 2;
     const chunk: TracedChunk = {
       firstRay: 0,
       rayCount: 3,
-      vertices: new Float32Array(3 * samples * 3),
-      lineDistances: new Float32Array(3 * samples),
+      vertices: new Float32Array(3 * 2 * 3),
+      lineDistances: new Float32Array(3 * 2),
+      pointCounts: new Uint32Array([2, 2, 2]),
       fates: new Uint8Array([1, 0, 0]),
       wavefronts: new Float32Array([0, 0, 0, 0, 1, 0, NaN, NaN, NaN]),
     };
-    const bundle = assembleBundle([chunk], 3, samples, 1, 1, 30);
+    const bundle = assembleBundle([chunk], 3, 1, 1, 30);
     expect(bundle.fateCounts).toEqual({ escaped: 2, captured: 1, winding: 0 });
     expect(bundle.fateGroups).toEqual([
       { start: 0, count: 4, fate: "escaped" },
@@ -64,5 +76,53 @@ describe("assembleBundle", () => {
     ]);
     expect(Array.from(bundle.segmentIndex)).toEqual([2, 3, 4, 5, 0, 1]);
     expect(Array.from(bundle.wavefrontVertices)).toEqual([0, 0, 0, 0, 1, 0]);
+  });
+
+  it("joins chunks of thinned rays in ray order whatever order they arrive in", () => {
+    const chunk = (firstRay: number, pointCounts: number[]): TracedChunk => {
+      const points = pointCounts.reduce((sum, count) => sum + count, 0);
+      return {
+        firstRay,
+        rayCount: pointCounts.length,
+        vertices: new Float32Array(points * 3).map((_, i) => firstRay * 100 + Math.floor(i / 3)),
+        lineDistances: new Float32Array(points),
+        pointCounts: new Uint32Array(pointCounts),
+        fates: new Uint8Array(pointCounts.length),
+        wavefronts: new Float32Array(0),
+      };
+    };
+    const bundle = assembleBundle([chunk(2, [2]), chunk(0, [3, 2])], 3, 1, 0, 30);
+    expect(Array.from(bundle.vertices.filter((_, i) => i % 3 === 0))).toEqual([0, 1, 2, 3, 4, 200, 201]);
+    expect(Array.from(bundle.segmentIndex)).toEqual([0, 1, 1, 2, 3, 4, 5, 6]);
+  });
+
+  it("indexes the rays of a fate in interleaved passes", () => {
+    const rays = 2 * SPREAD_PASSES;
+    const chunk: TracedChunk = {
+      firstRay: 0,
+      rayCount: rays,
+      vertices: new Float32Array(rays * 2 * 3),
+      lineDistances: new Float32Array(rays * 2),
+      pointCounts: new Uint32Array(rays).fill(2),
+      fates: new Uint8Array(rays),
+      wavefronts: new Float32Array(0),
+    };
+    const firstPoints = Array.from(assembleBundle([chunk], rays, 1, 0, 30).segmentIndex.filter((_, i) => i % 2 === 0));
+    expect(firstPoints.slice(0, 4).map((point) => point / 2)).toEqual([0, SPREAD_PASSES, 1, SPREAD_PASSES + 1]);
+  });
+
+  it("thins a straight wavefront to its ends and breaks it where a ray never got there", () => {
+    // One front, one half-plane: five rays on the line y = x + 10, then one that never reached the front.
+    const fronts = new Float32Array([0, 10, 0, 1, 11, 0, 2, 12, 0, 3, 13, 0, 4, 14, 0, NaN, NaN, NaN]);
+    const chunk: TracedChunk = {
+      firstRay: 0,
+      rayCount: 6,
+      vertices: new Float32Array(6 * 2 * 3),
+      lineDistances: new Float32Array(6 * 2),
+      pointCounts: new Uint32Array(6).fill(2),
+      fates: new Uint8Array(6),
+      wavefronts: fronts,
+    };
+    expect(Array.from(assembleBundle([chunk], 6, 1, 1, 30).wavefrontVertices)).toEqual([0, 10, 0, 4, 14, 0]);
   });
 });
