@@ -6,6 +6,7 @@ import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { parseBundle } from "@/lib/bench/parse-sketch";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
+import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
 
@@ -56,7 +57,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
   const parsed = useMemo(() => parseBundle(sketch), [sketch]);
   const fieldErrors = parsed.ok ? {} : parsed.fieldErrors;
   const { bundle, isTracing, progress, error, trace, cancel } = useRayTrace();
-  const canvasRef = useRef<HTMLCanvasElement | undefined>(undefined);
+  const viewRef = useRef<RayBundleView | undefined>(undefined);
   const [drawnBundle, setDrawnBundle] = useState<AssembledBundle | undefined>(undefined);
 
   const parsedBundle = parsed.ok ? parsed.bundle : undefined;
@@ -87,11 +88,15 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     setDrawnBundle(drawn);
   }, []);
 
+  const onViewReady = useCallback((view: RayBundleView) => {
+    viewRef.current = view;
+  }, []);
+
   const savePng = () => {
-    const canvas = canvasRef.current;
-    if (canvas === undefined) return;
+    const view = viewRef.current;
+    if (view === undefined) return;
     const link = document.createElement("a");
-    link.href = canvas.toDataURL("image/png");
+    link.href = view.toPngDataUrl();
     link.download = `arcwright-ray-bundle-${bundle?.rayCount ?? 0}-rays.png`;
     link.click();
   };
@@ -153,9 +158,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
         <RayBundleCanvas
           bundle={bundle}
           startRadiusM={INITIAL_START_RADIUS_M}
-          onCanvasReady={(canvas) => {
-            canvasRef.current = canvas;
-          }}
+          onViewReady={onViewReady}
           onBundleDrawn={onBundleDrawn}
         />
       </div>

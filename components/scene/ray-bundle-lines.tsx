@@ -1,18 +1,20 @@
 "use client";
 
-import { useEffect, useMemo } from "react";
+import { useEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
 import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { fateStyles } from "./fate-styles";
 
-/** The whole bundle as one BufferGeometry of line segments, one draw group (and material) per fate. */
-export function RayBundleLines({ bundle }: { bundle: AssembledBundle }) {
+/**
+ * The whole bundle as one BufferGeometry of line segments, one material per fate; which parts of the
+ * index are drawn (the geometry's groups) is set frame by frame by the progressive draw.
+ */
+export function RayBundleLines({ bundle, ref }: { bundle: AssembledBundle; ref: Ref<THREE.LineSegments> }) {
   const geometry = useMemo(() => {
     const built = new THREE.BufferGeometry();
     built.setAttribute("position", new THREE.BufferAttribute(bundle.vertices, 3));
     built.setAttribute("lineDistance", new THREE.BufferAttribute(bundle.lineDistances, 1));
     built.setIndex(new THREE.BufferAttribute(bundle.segmentIndex, 1));
-    bundle.fateGroups.forEach((group, materialIndex) => built.addGroup(group.start, group.count, materialIndex));
     return built;
   }, [bundle]);
 
@@ -31,11 +33,11 @@ export function RayBundleLines({ bundle }: { bundle: AssembledBundle }) {
   useEffect(() => () => materials.forEach((material) => material.dispose()), [materials]);
 
   // The bundle spans the whole view; culling would only cost a bounding-sphere pass over every vertex.
-  return <lineSegments geometry={geometry} material={materials} frustumCulled={false} />;
+  return <lineSegments ref={ref} geometry={geometry} material={materials} frustumCulled={false} />;
 }
 
 /** Lines joining the points every ray reaches at the same coordinate time. */
-export function WavefrontLines({ vertices }: { vertices: Float32Array }) {
+export function WavefrontLines({ vertices, ref }: { vertices: Float32Array; ref: Ref<THREE.LineSegments> }) {
   const geometry = useMemo(() => {
     const built = new THREE.BufferGeometry();
     built.setAttribute("position", new THREE.BufferAttribute(vertices, 3));
@@ -44,7 +46,7 @@ export function WavefrontLines({ vertices }: { vertices: Float32Array }) {
   useEffect(() => () => geometry.dispose(), [geometry]);
   return (
     // Drawn last and over the rays, so the fronts stay visible inside a dense bundle.
-    <lineSegments geometry={geometry} frustumCulled={false} renderOrder={1}>
+    <lineSegments ref={ref} geometry={geometry} frustumCulled={false}>
       <lineBasicMaterial color="#f4f1ea" depthTest={false} />
     </lineSegments>
   );

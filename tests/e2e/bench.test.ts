@@ -1,3 +1,4 @@
+import { readFile } from "node:fs/promises";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoSketch, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
@@ -118,6 +119,15 @@ describe("lens bench", () => {
     expect(pixels.lit / pixels.total).toBeGreaterThan(0.1);
     // The escaped rays (sky blue) are the larger part of the picture.
     expect(pixels.blue / pixels.total).toBeGreaterThan(0.05);
+
+    // The view saves as a PNG of the drawn bundle (a blank canvas compresses to a few kB).
+    const download = page.waitForEvent("download");
+    await page.getByRole("button", { name: "Save view as PNG" }).click();
+    const saved = await download;
+    expect(saved.suggestedFilename()).toBe("arcwright-ray-bundle-2000-rays.png");
+    const png = await readFile(await saved.path());
+    expect(Array.from(png.subarray(0, 8))).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+    expect(png.length).toBeGreaterThan(20_000);
     await context.close();
   });
 
