@@ -2,11 +2,15 @@
 
 import { rowSortingFeature, tableFeatures, useTable, type ColumnDef, type SortingState } from "@tanstack/react-table";
 import Link from "next/link";
-import { useState } from "react";
+import { useMemo, useState } from "react";
 import useSWR from "swr";
 import { statusLabels, targetStatuses } from "@/lib/workspace/status";
 import { lensModelLabels, lensModels } from "@/lib/workspace/target-schema";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
+import { cycleNightCount, skySiteOf } from "@/lib/workspace/proposal-schema";
+import { darkHoursOfSeason, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { feasibilityReport, interferometerBeamMicroarcsec, type CycleDarkHours } from "@/lib/workspace/verdicts";
+import { useSeason } from "@/components/sky/use-season";
 import { swrFetcher } from "@/components/workspace/api-client";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
@@ -18,7 +22,30 @@ const numberCell = (digits = 4) => (info: { getValue: () => unknown }) => (
   <span className="tabular-nums">{formatQuantity(info.getValue() as number | null, digits)}</span>
 );
 
-function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[] {
+/** Shadow against λ/B and dark hours in the cycle, graded on read (no stored column yet). */
+function onReadVerdictsCell(settings: FeasibilitySettings, darkHoursById: Map<string, CycleDarkHours> | null, isComputing: boolean) {
+  return (info: { row: { original: TargetView } }) => {
+    const t = info.row.original;
+    const dark = darkHoursById?.get(t.id) ?? null;
+    const [, , , shadow, darkHours] = feasibilityReport(t, settings.instrument, dark);
+    const isCyclePending = settings.cycleStartDate !== null && dark === null;
+    const beam = interferometerBeamMicroarcsec(settings.instrument.interferometerWavelengthMm, settings.instrument.interferometerBaselineKm);
+    const shadowRatio = beam !== null && t.shadowDiameterMicroarcsec !== null ? ` (${formatQuantity(t.shadowDiameterMicroarcsec / beam, 3)}×)` : "";
+    return (
+      <span className="whitespace-nowrap text-xs" data-testid="on-read-verdicts">
+        <span className={`${verdictClass[shadow.verdict]} mr-2`} title={shadow.figure}>
+          {verdictLabels[shadow.verdict]}
+          {shadowRatio}
+        </span>
+        <span className={isCyclePending ? "text-dusk-dim" : verdictClass[darkHours.verdict]} title={darkHours.figure}>
+          {isCyclePending ? (isComputing ? "computing…" : "—") : dark === null ? verdictLabels[darkHours.verdict] : `${verdictLabels[darkHours.verdict]} (${dark.totalHoursDark.toFixed(0)} h)`}
+        </span>
+      </span>
+    );
+  };
+}
+
+function columnsFor(proposalId: string, onRead: ReturnType<typeof onReadVerdictsCell> | null): ColumnDef<typeof features, TargetView>[] {
   return [
     {
       accessorKey: "name",
@@ -56,14 +83,38 @@ function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[
         );
       },
     },
+    ...(onRead ? [{ id: "onReadVerdicts", header: "Shadow vs λ/B · dark hours", enableSorting: false, cell: onRead } satisfies ColumnDef<typeof features, TargetView>] : []),
   ];
+}
+
+/** The season of one page of rows over the proposal's cycle, in the sky worker; null without a cycle. */
+function usePageDarkHours(rows: TargetView[], settings: FeasibilitySettings | undefined) {
+  const request = useMemo(() => {
+    if (!settings || settings.cycleStartDate === null || settings.cycleEndDate === null || rows.length === 0) return null;
+    return {
+      site: skySiteOf(settings.site),
+      targets: rows.map((r) => ({ raDeg: r.raDeg, decDeg: r.decDeg })),
+      startNightIso: settings.cycleStartDate,
+      nightCount: cycleNightCount(settings.cycleStartDate, settings.cycleEndDate),
+      limits: { airmassLimit: settings.instrument.airmassLimit },
+    };
+  }, [rows, settings]);
+  const season = useSeason(request);
+  const byId = useMemo(() => {
+    if (!season.season || season.season.targets.length !== rows.length) return null;
+    const computed = season.season;
+    // A season answer belongs to these rows only when every position matches (stale pages are dropped).
+    if (!rows.every((r, i) => computed.targets[i].raDeg === r.raDeg && computed.targets[i].decDeg === r.decDeg)) return null;
+    return new Map(rows.map((r, i) => [r.id, darkHoursOfSeason(computed, i)]));
+  }, [season.season, rows]);
+  return { byId, isComputing: season.status === "computing" };
 }
 
 /**
  * The proposal's targets: sorted, filtered and paged on the server (so 10,000 targets cost one page
  * of rows here), with the computed lensing columns and feasibility verdicts.
  */
-export function TargetTable({ proposalId, initialPage }: { proposalId: string; initialPage: TargetPage }) {
+export function TargetTable({ proposalId, initialPage, settings }: { proposalId: string; initialPage: TargetPage; settings?: FeasibilitySettings }) {
   const [sorting, setSorting] = useState<SortingState>(initialTargetSorting);
   const [page, setPage] = useState(1);
   const [filters, setFilters] = useState<TargetFilters>(emptyFilters);
@@ -73,10 +124,11 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
     fallbackData: url === initialUrl ? initialPage : undefined,
     keepPreviousData: true,
   });
-  const rows = data?.rows ?? [];
+  const rows = useMemo(() => data?.rows ?? [], [data]);
+  const darkHours = usePageDarkHours(rows, settings);
   const table = useTable({
     features,
-    columns: columnsFor(proposalId),
+    columns: columnsFor(proposalId, settings ? onReadVerdictsCell(settings, darkHours.byId, darkHours.isComputing) : null),
     data: rows,
     manualSorting: true,
     enableMultiSort: false,
@@ -159,7 +211,7 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
             ))}
             {rows.length === 0 && data && (
               <tr>
-                <td colSpan={12} className="px-3 py-6 text-center text-dusk-dim">
+                <td colSpan={13} className="px-3 py-6 text-center text-dusk-dim">
                   No targets match.
                 </td>
               </tr>

@@ -39,3 +39,15 @@ export function addDaysIso(nightDateIso: string, days: number): string {
   const [year, month, day] = nightDateIso.split("-").map(Number);
   return new Date(Date.UTC(year, month - 1, day + days)).toISOString().slice(0, 10);
 }
+
+/**
+ * The evening date (`YYYY-MM-DD`) of the night under way or coming next at `now` for a site at
+ * `longitudeEastDeg`: the date in local mean solar time (UTC + longitude/15 h), minus one day
+ * before local noon, so that 03:00 belongs to the night that began the evening before.
+ */
+export function currentNightIso(now: Date, longitudeEastDeg: number): string {
+  const localMs = now.getTime() + (longitudeEastDeg / 15) * 3_600_000;
+  const local = new Date(localMs);
+  const dateIso = local.toISOString().slice(0, 10);
+  return local.getUTCHours() < 12 ? addDaysIso(dateIso, -1) : dateIso;
+}

@@ -36,6 +36,16 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
           Your role: <span className="font-semibold" data-testid="my-role">{roleLabels[proposal.role]}</span>
         </p>
         {proposal.abstract && <p className="max-w-3xl leading-relaxed text-dusk-dim">{proposal.abstract}</p>}
+        <nav aria-label="Proposal views" className="flex flex-wrap gap-3 text-sm">
+          <Link href={`/proposals/${proposalId}/sky`} className="rounded-md border border-void-edge px-3 py-1.5 no-underline">
+            Season view (sky windows)
+          </Link>
+          {permissions.canManage && (
+            <Link href={`/proposals/${proposalId}/settings`} className="rounded-md border border-void-edge px-3 py-1.5 no-underline">
+              Proposal settings
+            </Link>
+          )}
+        </nav>
         <dl className="flex flex-wrap gap-x-8 gap-y-1 text-sm">
           <div>
             <dt className="inline text-dusk-dim">Site </dt>
@@ -49,13 +59,22 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
               resolution {instrument.resolutionMas} mas · cadence {instrument.cadenceHours} h · campaign {instrument.campaignLengthDays} d
             </dd>
           </div>
+          <div>
+            <dt className="inline text-dusk-dim">Cycle nights </dt>
+            <dd className="inline" data-testid="cycle-dates">
+              {proposal.cycleStartDate && proposal.cycleEndDate ? `${proposal.cycleStartDate} – ${proposal.cycleEndDate}` : "not set"} · airmass ≤ {instrument.airmassLimit}
+              {instrument.interferometerWavelengthMm !== null && instrument.interferometerBaselineKm !== null
+                ? ` · λ ${instrument.interferometerWavelengthMm} mm, B ${instrument.interferometerBaselineKm} km`
+                : ""}
+            </dd>
+          </div>
         </dl>
       </header>
       <section aria-labelledby="targets-heading" className="space-y-4">
         <h2 id="targets-heading" className="text-2xl font-semibold">
           Targets
         </h2>
-        <TargetTable proposalId={proposalId} initialPage={targets} />
+        <TargetTable proposalId={proposalId} initialPage={targets} settings={proposal} />
         {permissions.canEdit && <TargetForm proposalId={proposalId} />}
         {permissions.canEdit && (
           <Link href={`/proposals/${proposalId}/import`} className="inline-block text-sm">

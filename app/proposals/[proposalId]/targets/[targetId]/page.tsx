@@ -1,9 +1,15 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { formatQuantity, formatWithUnit, verdictClass, verdictLabels } from "@/components/workspace/format";
+import { FeasibilityList } from "@/components/sky/feasibility-list";
+import { TargetNightPanel } from "@/components/sky/target-night-panel";
+import { formatQuantity, formatWithUnit } from "@/components/workspace/format";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
+import { nightDateSchema } from "@/lib/astro/inputs";
+import { currentNightIso } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
+import { targetFeasibility } from "@/lib/workspace/derived";
+import { skySiteOf } from "@/lib/workspace/proposal-schema";
 import { statusLabels } from "@/lib/workspace/status";
 import { lensModelLabels } from "@/lib/workspace/target-schema";
 import { listNotes } from "@/lib/server/notes";
@@ -13,8 +19,15 @@ import { getTarget } from "@/lib/server/targets";
 
 export const metadata: Metadata = { title: "Target" };
 
-export default async function TargetPage({ params }: { params: Promise<{ proposalId: string; targetId: string }> }) {
+export default async function TargetPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ proposalId: string; targetId: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const ids = await params;
+  const nightParam = nightDateSchema.safeParse((await searchParams).night);
   const { proposal, target, notes } = await loadForPage(`/proposals/${ids.proposalId}/targets/${ids.targetId}`, async (actor) => {
     const [proposal, target, notes] = await Promise.all([getProposal(ids, actor), getTarget(ids, actor), listNotes(ids, actor)]);
     return { proposal, target, notes };
@@ -48,11 +61,15 @@ export default async function TargetPage({ params }: { params: Promise<{ proposa
         : "—",
     ],
   ];
-  const verdicts = [
-    ["Resolution", target.resolutionVerdict, `${instrument.resolutionMas} mas`],
-    ["Cadence", target.cadenceVerdict, `${instrument.cadenceHours} h`],
-    ["Campaign", target.campaignVerdict, `${instrument.campaignLengthDays} d`],
-  ] as const;
+  const feasibility = targetFeasibility(target, proposal);
+  const site = skySiteOf(proposal.site);
+  // The night in the address bar, else tonight at the site, or the cycle's first night while it is ahead.
+  const tonightIso = currentNightIso(new Date(), site.longitudeEastDeg);
+  const initialNightIso = nightParam.success
+    ? nightParam.data
+    : proposal.cycleStartDate !== null && proposal.cycleStartDate > tonightIso
+      ? proposal.cycleStartDate
+      : tonightIso;
 
   return (
     <div className="space-y-8">
@@ -99,17 +116,21 @@ export default async function TargetPage({ params }: { params: Promise<{ proposa
                 </dd>
               </div>
             ))}
-            {verdicts.map(([label, verdict, against]) => (
-              <div key={label} className="contents">
-                <dt className="text-dusk-dim">{label} verdict</dt>
-                <dd className={verdictClass[verdict]}>
-                  {verdictLabels[verdict]} <span className="text-dusk-dim">(against {against})</span>
-                </dd>
-              </div>
-            ))}
           </dl>
         </section>
       </div>
+      <section aria-labelledby="feasibility-heading">
+        <h2 id="feasibility-heading" className="mb-2 text-xl font-semibold">
+          Feasibility
+        </h2>
+        <FeasibilityList items={feasibility} />
+      </section>
+      <TargetNightPanel
+        site={site}
+        target={{ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }}
+        airmassLimit={instrument.airmassLimit}
+        initialNightIso={initialNightIso}
+      />
       <TargetNotes notesUrl={`${apiBase}/notes`} initialNotes={notes} canEdit={proposal.permissions.canEdit} />
     </div>
   );

@@ -1,0 +1,70 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, newPage } from "./support/browser";
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+async function signInAsCoI(page: Page) {
+  await page.goto("/sign-in");
+  const form = page.getByRole("form", { name: "Sign in with password" });
+  await form.getByLabel("E-mail").fill("tomas.brenneke@tessellate.example");
+  await form.getByLabel("Password").fill("brenneke-demo-arcs");
+  await form.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL("**/proposals");
+}
+
+const nightOf = (page: Page) => page.getByTestId("night-chart").getAttribute("data-night");
+
+describe("sky windows of a proposal's targets", () => {
+  it("a Co-I opens a demo target, sees its night and feasibility, changes the date, then opens the season view", async () => {
+    const { page, consoleErrors } = await newPage(browser);
+    await signInAsCoI(page);
+    await page.getByRole("link", { name: "Bending starlight in the Cinder bulge window" }).click();
+    await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
+    const proposalUrl = page.url();
+    // The demo cycle (seed set demo-sky-cycle-v1) is shown with the proposal.
+    expect(await page.getByTestId("cycle-dates").textContent()).toContain("2031-02-01 – 2031-08-02");
+
+    await page.getByRole("link", { name: "K-17 core" }).click();
+    await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
+    // The cycle lies ahead, so the first night shown is its first night.
+    await page.getByTestId("night-chart").waitFor();
+    expect(await nightOf(page)).toBe("2031-02-01");
+    // Shadow ≈ 42 µas against λ/B = 1.3 mm / 10,700 km ≈ 25.1 µas (demo seed).
+    expect(await page.getByTestId("feasibility-shadow").textContent()).toMatch(/Feasible.*× λ\/B \(25\.1 µas\)/);
+    expect(await page.getByTestId("feasibility-dark-hours").textContent()).toMatch(/\d+\.\d h over 183 nights/);
+
+    const firstHours = await page.getByTestId("hours-dark-above-limit").textContent();
+    const firstTransit = await page.getByTestId("transit-time").textContent();
+    await page.getByLabel("Night of (evening date)").fill("2031-06-15");
+    await page.waitForFunction(() => document.querySelector("[data-testid=night-chart]")?.getAttribute("data-night") === "2031-06-15");
+    // Mid-June the bulge transits near local midnight: the transit moves by hours and the dark hours grow.
+    expect(await page.getByTestId("transit-time").textContent()).not.toBe(firstTransit);
+    expect(await page.getByTestId("hours-dark-above-limit").textContent()).not.toBe(firstHours);
+    expect(new URL(page.url()).searchParams.get("night")).toBe("2031-06-15");
+    await page.getByRole("button", { name: "Next night" }).click();
+    await page.waitForFunction(() => document.querySelector("[data-testid=night-chart]")?.getAttribute("data-night") === "2031-06-16");
+
+    await page.goto(proposalUrl);
+    await page.getByRole("link", { name: "Season view (sky windows)" }).click();
+    await page.waitForURL(/\/sky$/);
+    const table = page.getByTestId("season-table");
+    await table.waitFor();
+    // 13 demo targets on one page, plus the header row.
+    expect(await table.getByRole("row").count()).toBe(14);
+    const k17 = table.getByRole("row", { name: /K-17 core/ });
+    // Best weeks of the bulge from 31° S in a February–August cycle fall in the southern winter.
+    expect(await k17.textContent()).toMatch(/2031-0[5-7]-\d\d – 2031-0[5-8]-\d\d/);
+    expect(await page.getByTestId("never-observable").textContent()).toBe("none");
+    expect(await page.getByTestId("best-week-overall").textContent()).toMatch(/^2031-\d\d-\d\d – 2031-\d\d-\d\d \(\d+\.\d h over all targets\)$/);
+    expect(consoleErrors.filter((message) => !message.includes("Failed to load resource"))).toEqual([]);
+  });
+});
