@@ -8,6 +8,7 @@ import { AstrometricTrackPlot } from "@/components/plots/astrometric-track-plot"
 import { DeflectionPlot } from "@/components/plots/deflection-plot";
 import { LensPlaneDiagram } from "@/components/plots/lens-plane-diagram";
 import { LightCurvePlot } from "@/components/plots/light-curve-plot";
+import { FigureDownloads } from "@/components/exports/figure-downloads";
 
 const PLOT_WIDTH = 540;
 const PLOT_HEIGHT = 340;
@@ -34,17 +35,21 @@ export function BenchPlots({ results }: { results: BenchResults }) {
     <section aria-label="Plots" className="grid gap-4 xl:grid-cols-2">
       <PlotCard testId="plot-lens-plane">
         <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={thetaEInUnit} unitLabel={unitLabel(angleUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+        <FigureDownloads path="/api/bench/exports/lens-plane" isSketchFromAddress figureName="lens-plane diagram" />
       </PlotCard>
       <PlotCard testId="plot-deflection">
         <DeflectionPlot curves={curves} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+        <FigureDownloads path="/api/bench/exports/deflection" isSketchFromAddress figureName="deflection plot" />
       </PlotCard>
       {eventPlots !== undefined ? (
         <>
           <PlotCard testId="plot-light-curve">
             <LightCurvePlot lightCurve={eventPlots.light} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+            <FigureDownloads path="/api/bench/exports/light-curve" isSketchFromAddress figureName="light curve" />
           </PlotCard>
           <PlotCard testId="plot-astrometric-track">
             <AstrometricTrackPlot track={eventPlots.track} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+            <FigureDownloads path="/api/bench/exports/astrometric-track" isSketchFromAddress figureName="astrometric track" />
           </PlotCard>
         </>
       ) : (

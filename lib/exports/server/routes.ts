@@ -3,6 +3,7 @@ import type { GetActor } from "@/lib/server/actor";
 import { endpoint, queryOf } from "@/lib/server/api/endpoint";
 import { attachmentHeaders, fileSlug } from "@/lib/exports/download";
 import { tableWriters } from "@/lib/exports/tables/formats";
+import { technicalSummary } from "./summary";
 import { loadTargetTable } from "./target-table";
 
 type ProposalParams = { proposalId: string };
@@ -15,6 +16,16 @@ export function targetTableExportRoutes(getActor: GetActor) {
       const writer = tableWriters[format];
       const fileName = `${fileSlug(table.title)}-targets.${writer.extension}`;
       return new Response(writer.write(table), { headers: attachmentHeaders(fileName, writer.contentType) });
+    }),
+  };
+}
+
+/** /api/proposals/[proposalId]/exports/summary?figures=season&columns=…&digits=…: the technical summary PDF. */
+export function technicalSummaryRoutes(getActor: GetActor) {
+  return {
+    GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
+      const { pdf, title } = await technicalSummary(params, queryOf(request), actor);
+      return new Response(Buffer.from(pdf), { headers: attachmentHeaders(`${fileSlug(title)}-technical-summary.pdf`, "application/pdf") });
     }),
   };
 }

@@ -1,0 +1,3 @@
+import { benchFigureRoutes } from "@/lib/exports/server/figure-routes";
+
+export const { GET } = benchFigureRoutes();

@@ -1,0 +1,68 @@
+import { renderStaticSvg } from "./static-markup";
+import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
+import { angleInUnit, naturalAngleUnit, unitLabel } from "@/lib/bench/display-units";
+import { parsePlainNumber, parseSketch } from "@/lib/bench/parse-sketch";
+import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
+import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
+import { AppError } from "@/lib/errors";
+import { buildProvenance } from "@/lib/exports/provenance";
+import { AstrometricTrackPlot } from "@/components/plots/astrometric-track-plot";
+import { DeflectionPlot } from "@/components/plots/deflection-plot";
+import { LensPlaneDiagram } from "@/components/plots/lens-plane-diagram";
+import { LightCurvePlot } from "@/components/plots/light-curve-plot";
+import type { PlotExport } from "./figure-response";
+
+export const benchFigureKinds = ["lens-plane", "deflection", "light-curve", "astrometric-track"] as const;
+export type BenchFigureKind = (typeof benchFigureKinds)[number];
+
+/** The bench draws its plots at this size (CSS px); exports keep it so labels sit as on screen. */
+export const BENCH_PLOT_WIDTH_PX = 540;
+export const BENCH_PLOT_HEIGHT_PX = 340;
+
+const titles: Record<BenchFigureKind, string> = {
+  "lens-plane": "Lens plane: source, images and Einstein ring",
+  deflection: "Deflection angle against impact parameter",
+  "light-curve": "Microlensing light curve with the campaign epochs",
+  "astrometric-track": "Astrometric centroid track",
+};
+
+function plotElement(kind: BenchFigureKind, results: BenchResults) {
+  const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX };
+  const thetaERad = results.lensPlane.thetaERad;
+  if (kind === "deflection") return <DeflectionPlot curves={deflectionCurves()} {...size} />;
+  if (kind === "lens-plane") {
+    const unit = naturalAngleUnit(thetaERad);
+    return <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={angleInUnit(thetaERad, unit)} unitLabel={unitLabel(unit)} {...size} />;
+  }
+  const event = results.event;
+  if (event === undefined) throw new AppError("bad_request:figure", "The light curve and astrometric track are drawn for a compact (point) lens.", { lens: ["Choose the point lens for this figure."] });
+  if (kind === "light-curve") return <LightCurvePlot lightCurve={lightCurve(event)} {...size} />;
+  // The same unit choice as the bench: the centroid shift is ~θ_E/3.
+  const shiftUnit = naturalAngleUnit(thetaERad / 3);
+  return <AstrometricTrackPlot track={astrometricTrack(event)} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />;
+}
+
+/**
+ * A bench plot regenerated on the server from the bench's URL parameters: the same parsing and
+ * computation as the page (`lib/bench`) and the same plot component, rendered to static SVG markup.
+ * A sketch that does not parse is refused with the bench's own message for each field.
+ */
+export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin: string, exportedAt?: Date): PlotExport {
+  const parsed = parseSketch(sketch);
+  if (!parsed.ok) {
+    const fields = Object.fromEntries(Object.entries(parsed.fieldErrors).map(([field, message]) => [field, [message as string]]));
+    throw new AppError("bad_request:figure", `Invalid sketch: check ${Object.keys(fields).join(", ")}.`, fields);
+  }
+  const computed = computeResults(parsed.inputs);
+  if (!computed.ok) throw new AppError("bad_request:figure", `This sketch cannot be computed: ${computed.message}`);
+  const markup = renderStaticSvg(plotElement(kind, computed.results));
+  const cosmology = sketch.geometry === "redshift" ? { H0: parsePlainNumber(sketch.h0), Om0: parsePlainNumber(sketch.om0) } : undefined;
+  const provenance = buildProvenance({
+    subject: `Lens bench figure: ${titles[kind]}`,
+    reproduceUrl: new URL(`/bench?${sketchToQueryString(sketch)}`, appOrigin).toString(),
+    inputs: { figure: kind, ...sketch },
+    cosmology,
+    exportedAt,
+  });
+  return { markup, title: titles[kind], fileStem: `bench-${kind}`, provenance };
+}

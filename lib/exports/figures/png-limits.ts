@@ -1,0 +1,5 @@
+/** Bounds of a PNG export: wide enough for a poster at 300 DPI, small enough to render in about a second. */
+export const MIN_PNG_WIDTH_PX = 200;
+export const MAX_PNG_WIDTH_PX = 8000;
+export const MIN_PNG_DPI = 72;
+export const MAX_PNG_DPI = 1200;

@@ -1,0 +1,90 @@
+import { renderStaticSvg } from "./static-markup";
+import type { SkyLimitsInput, SkySiteInput, SkyTarget } from "@/lib/astro/inputs";
+import { seasonWindows } from "@/lib/astro/season";
+import { nightlyVisibility } from "@/lib/astro/visibility";
+import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
+import { NightChart } from "@/components/sky/night-chart";
+import { SeasonChart } from "@/components/sky/season-chart";
+import { skyQueryToString } from "@/components/sky/sky-query";
+import type { PlotExport } from "./figure-response";
+
+export const skyFigureKinds = ["night", "season"] as const;
+export type SkyFigureKind = (typeof skyFigureKinds)[number];
+
+/** The sky views draw at these sizes (CSS px); the season chart grows one row per target. */
+export const NIGHT_CHART_WIDTH_PX = 760;
+export const NIGHT_CHART_HEIGHT_PX = 360;
+export const SEASON_CHART_WIDTH_PX = 900;
+/** Rows the season figure draws at most: beyond a few dozen the names stop being legible on a page. */
+export const SEASON_FIGURE_MAX_ROWS = 60;
+
+interface SkyContext {
+  site: SkySiteInput & { name: string };
+  limits: SkyLimitsInput & { airmassLimit: number };
+  appOrigin: string;
+  /** What the figure belongs to, for the provenance ("proposal 1234…: Arcs over the bulge"). */
+  inputs: Record<string, ProvenanceValue>;
+  exportedAt?: Date;
+}
+
+const siteInputs = ({ site, limits }: SkyContext) => ({
+  site: site.name,
+  latitudeDeg: site.latitudeDeg,
+  longitudeEastDeg: site.longitudeEastDeg,
+  elevationM: site.elevationM,
+  horizonLimitDeg: site.horizonLimitDeg ?? 0,
+  airmassLimit: limits.airmassLimit,
+});
+
+/**
+ * The night chart of one target on one night, drawn by the sky view's own component; the link back
+ * opens the sky-windows page with the same site, target, night and limit.
+ */
+export function nightPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, context: SkyContext): PlotExport {
+  const visibility = nightlyVisibility(context.site, target, nightDateIso, context.limits);
+  const markup = renderStaticSvg(<NightChart visibility={visibility} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_CHART_HEIGHT_PX} />);
+  const s = siteInputs(context);
+  const query = skyQueryToString({
+    site: s.site,
+    lat: String(s.latitudeDeg),
+    lon: String(s.longitudeEastDeg),
+    elev: String(s.elevationM),
+    horizon: String(s.horizonLimitDeg),
+    ra: String(target.raDeg),
+    dec: String(target.decDeg),
+    date: nightDateIso,
+    airmass: String(s.airmassLimit),
+    nights: "183",
+  });
+  const title = `Altitude and air mass of ${target.name} through the night of ${nightDateIso}`;
+  const provenance = buildProvenance({
+    subject: `Night visibility: ${title}`,
+    reproduceUrl: new URL(`/sky?${query}`, context.appOrigin).toString(),
+    inputs: { figure: "night", ...context.inputs, target: target.name, raDeg: target.raDeg, decDeg: target.decDeg, nightDateIso, ...s, method: "astronomy-engine 2.1 Sun and Moon; Pickering 2002 air mass" },
+    exportedAt: context.exportedAt,
+  });
+  return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance };
+}
+
+/** Usable dark hours per night for up to `SEASON_FIGURE_MAX_ROWS` targets from `startNightIso`. */
+export function seasonPlotExport(targets: (SkyTarget & { name: string })[], startNightIso: string, nightCount: number, context: SkyContext & { reproducePath: string }): PlotExport {
+  const shown = targets.slice(0, SEASON_FIGURE_MAX_ROWS);
+  const season = seasonWindows({ site: context.site, targets: shown, startNightIso, nightCount, limits: context.limits });
+  const markup = renderStaticSvg(<SeasonChart season={season} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
+  const title = `Usable dark hours per night from ${startNightIso} (${nightCount} nights)`;
+  const provenance = buildProvenance({
+    subject: `Season chart: ${title}`,
+    reproduceUrl: new URL(context.reproducePath, context.appOrigin).toString(),
+    inputs: {
+      figure: "season",
+      ...context.inputs,
+      startNightIso,
+      nightCount,
+      ...siteInputs(context),
+      targets: shown.map((t) => `${t.name} (${t.raDeg}, ${t.decDeg})`).join("; "),
+      targetsLeftOut: targets.length - shown.length,
+    },
+    exportedAt: context.exportedAt,
+  });
+  return { markup, title, fileStem: `season-${startNightIso}`, provenance };
+}

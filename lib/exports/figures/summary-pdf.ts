@@ -1,0 +1,51 @@
+import "server-only";
+import { provenanceLines, type Provenance } from "@/lib/exports/provenance";
+import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
+import type { TargetTable } from "@/lib/exports/tables/table";
+import type { PlotExport } from "./figure-response";
+import { drawFigure, PDF_FONT, PDF_FONT_SEMIBOLD, pdfBytes, provenancePdf } from "./pdf";
+import { standaloneSvg } from "./svg-document";
+
+/** Rows of the table printed in the summary; the full list is in the table exports. */
+export const SUMMARY_MAX_ROWS = 200;
+
+/**
+ * The proposal's technical summary as an A4 PDF (pdfkit, Source Sans 3 embedded): the target table
+ * with the chosen columns, then each chosen figure on its own page, then the provenance of each part.
+ */
+export async function technicalSummaryPdf(table: TargetTable, figures: PlotExport[], provenance: Provenance): Promise<Uint8Array> {
+  const doc = provenancePdf(provenance, `Technical summary: ${table.title}`);
+  const width = doc.page.width - 2 * doc.page.margins.left;
+  doc.font(PDF_FONT_SEMIBOLD).fontSize(16).fillColor("#000000").text(`Technical summary: ${table.title}`);
+  doc.moveDown(0.5).font(PDF_FONT).fontSize(9).text(provenance.subject);
+  doc.moveDown();
+  const columnWidth = width / table.columns.length;
+  const drawRow = (cells: string[], isHeader: boolean) => {
+    const y = doc.y;
+    doc.font(isHeader ? PDF_FONT_SEMIBOLD : PDF_FONT).fontSize(7);
+    const heights = cells.map((cell, i) => doc.heightOfString(cell, { width: columnWidth - 4 }));
+    if (y + Math.max(...heights) > doc.page.height - doc.page.margins.bottom) doc.addPage();
+    const top = doc.y;
+    cells.forEach((cell, i) => doc.text(cell, doc.page.margins.left + i * columnWidth, top, { width: columnWidth - 4 }));
+    doc.x = doc.page.margins.left;
+    doc.y = top + Math.max(...heights) + 3;
+    doc.moveTo(doc.page.margins.left, doc.y - 1.5).lineTo(doc.page.margins.left + width, doc.y - 1.5).lineWidth(0.3).stroke("#888888");
+  };
+  drawRow(table.columns.map(({ column }) => headerOf(column)), true);
+  for (const row of table.rows.slice(0, SUMMARY_MAX_ROWS)) drawRow(table.columns.map((chosen) => cellText(cellOf(row, chosen.column), chosen) || "–"), false);
+  if (table.rows.length > SUMMARY_MAX_ROWS) doc.moveDown().text(`${table.rows.length - SUMMARY_MAX_ROWS} more targets are in the table exports.`);
+  for (const plot of figures) {
+    doc.addPage();
+    doc.font(PDF_FONT_SEMIBOLD).fontSize(11).text(plot.title);
+    doc.moveDown(0.5);
+    const height = drawFigure(doc, standaloneSvg(plot.markup, { title: plot.title, provenance: plot.provenance }), doc.page.margins.left, doc.y, width);
+    doc.y += height + 8;
+    doc.font(PDF_FONT).fontSize(7).text(`Reproduce: ${plot.provenance.reproduceUrl}`, doc.page.margins.left, doc.y, { width });
+  }
+  doc.addPage();
+  doc.font(PDF_FONT_SEMIBOLD).fontSize(11).text("Provenance");
+  for (const record of [table.provenance, ...figures.map((f) => f.provenance)]) {
+    doc.moveDown().font(PDF_FONT).fontSize(7).text(provenanceLines(record).join("\n"), { width });
+  }
+  return pdfBytes(doc);
+}

@@ -1,0 +1,79 @@
+import "server-only";
+import { and, asc, eq } from "drizzle-orm";
+import { z } from "zod";
+import { dbClient } from "@/db/client";
+import { targets, type Proposal } from "@/db/schema";
+import { nightDateSchema } from "@/lib/astro/inputs";
+import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
+import { AppError } from "@/lib/errors";
+import { serverEnv } from "@/lib/env";
+import type { PlotExport } from "@/lib/exports/figures/figure-response";
+import { nightPlotExport, seasonPlotExport, skyFigureKinds } from "@/lib/exports/figures/sky-figures";
+import { authorize, parseIds } from "@/lib/server/access";
+import { requireActor, type Actor } from "@/lib/server/actor";
+import { parseOrThrow } from "@/lib/server/http";
+
+const skyFigureParamsSchema = z.object({ proposalId: z.uuid(), figure: z.enum(skyFigureKinds) });
+
+const nightQuerySchema = z.object({
+  targetId: z.uuid({ error: "Name the target by its id." }),
+  date: nightDateSchema,
+});
+
+const seasonQuerySchema = z.object({
+  start: nightDateSchema.optional(),
+  nights: z.coerce
+    .number({ error: "The number of nights must be a whole number." })
+    .int("The number of nights must be a whole number.")
+    .min(1, "The number of nights is at least 1.")
+    .max(SEASON_MAX_NIGHTS, `The number of nights is at most ${SEASON_MAX_NIGHTS}.`)
+    .optional(),
+});
+
+function skyContextOf(p: Proposal) {
+  return {
+    site: { name: p.siteName, latitudeDeg: p.siteLatitudeDeg, longitudeEastDeg: p.siteLongitudeDeg, elevationM: p.siteElevationM, horizonLimitDeg: p.siteHorizonLimitDeg },
+    limits: { airmassLimit: p.airmassLimit },
+    appOrigin: serverEnv().NEXTAUTH_URL,
+    inputs: { proposalId: p.id, proposal: p.title, cycle: p.cycle },
+  };
+}
+
+const DAY_MS = 86_400_000;
+const DEFAULT_SEASON_NIGHTS = 183;
+
+/** Nights from the cycle's first to last night inclusive, bounded by the season limit. */
+function cycleNights(p: Proposal): number | undefined {
+  if (!p.cycleStartDate || !p.cycleEndDate) return undefined;
+  const nights = Math.round((Date.parse(p.cycleEndDate) - Date.parse(p.cycleStartDate)) / DAY_MS) + 1;
+  return Math.min(SEASON_MAX_NIGHTS, Math.max(1, nights));
+}
+
+/**
+ * A proposal's sky figure as any member sees it: `night` (one target, `targetId` and `date`) or
+ * `season` (every target, from `start` for `nights` nights; defaults: the proposal's cycle, else
+ * today for 183 nights). Order: validate → session → load and role → compute.
+ */
+export async function loadSkyFigure(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<PlotExport> {
+  const { proposalId, figure } = parseIds(skyFigureParamsSchema, params, "figure");
+  const night = figure === "night" ? parseOrThrow(nightQuerySchema, { targetId: query.targetId, date: query.date }, "figure") : undefined;
+  const season = figure === "season" ? parseOrThrow(seasonQuerySchema, { start: query.start, nights: query.nights }, "figure") : undefined;
+  const who = requireActor(actor);
+  const { db } = dbClient();
+  const { proposal } = await authorize(db, proposalId, who, "read", "figure");
+  const context = skyContextOf(proposal);
+  if (night) {
+    const [target] = await db.select().from(targets).where(and(eq(targets.id, night.targetId), eq(targets.proposalId, proposalId))).limit(1);
+    if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
+    return nightPlotExport({ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }, night.date, { ...context, inputs: { ...context.inputs, targetId: target.id } });
+  }
+  const rows = await db
+    .select({ name: targets.name, raDeg: targets.raDeg, decDeg: targets.decDeg })
+    .from(targets)
+    .where(eq(targets.proposalId, proposalId))
+    .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id));
+  if (rows.length === 0) throw new AppError("bad_request:figure", "This proposal has no targets to chart yet.");
+  const start = season?.start ?? proposal.cycleStartDate ?? new Date().toISOString().slice(0, 10);
+  const nights = season?.nights ?? cycleNights(proposal) ?? DEFAULT_SEASON_NIGHTS;
+  return seasonPlotExport(rows, start, nights, { ...context, reproducePath: `/proposals/${proposal.id}` });
+}

@@ -1,0 +1,89 @@
+import extractChunks from "png-chunks-extract";
+import { PDFParse } from "pdf-parse";
+import { afterAll, describe, expect, it } from "vitest";
+import { dbClient } from "@/db/client";
+import type { Actor } from "@/lib/server/actor";
+import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { technicalSummaryRoutes } from "@/lib/exports/server/routes";
+import { createWorld } from "./support/world";
+
+afterAll(async () => {
+  await dbClient().sql.end();
+});
+
+const base = (proposalId: string) => `http://arcwright.test/api/proposals/${proposalId}/exports`;
+
+function skyFigure(actor: Actor | null, proposalId: string, figure: string, query: string) {
+  return skyFigureRoutes(async () => actor).GET(new Request(`${base(proposalId)}/figures/${figure}?${query}`), { params: Promise.resolve({ proposalId, figure }) });
+}
+
+function summary(actor: Actor | null, proposalId: string, query = "") {
+  return technicalSummaryRoutes(async () => actor).GET(new Request(`${base(proposalId)}/summary?${query}`), { params: Promise.resolve({ proposalId }) });
+}
+
+describe("figure and summary exports: the same role rules as the views", () => {
+  it("night chart: signed out 401, non-member 404, viewer gets the SVG with the target and night in its provenance", async () => {
+    const world = await createWorld();
+    const query = `targetId=${world.targetId}&date=2031-06-15&format=svg`;
+    expect((await skyFigure(null, world.proposalId, "night", query)).status).toBe(401);
+    expect((await skyFigure(world.actors.outsider, world.proposalId, "night", query)).status).toBe(404);
+    const response = await skyFigure(world.actors.viewer, world.proposalId, "night", query);
+    expect(response.status).toBe(200);
+    expect(response.headers.get("content-disposition")).toBe('attachment; filename="night-tb-ml-0001-2031-06-15.svg"');
+    const svg = await response.text();
+    expect(svg).toContain("Night of 2031-06-15");
+    const reproduce = /&quot;reproduceUrl&quot;:&quot;([^&]+(?:&amp;[^&]+)*)&quot;/.exec(svg)?.[1].replace(/&amp;/g, "&");
+    const url = new URL(reproduce!);
+    expect(url.pathname).toBe("/sky");
+    // The site of the test proposal (world.ts): latitude −24.6°, horizon 20°.
+    expect(url.searchParams.get("lat")).toBe("-24.6");
+    expect(url.searchParams.get("date")).toBe("2031-06-15");
+  });
+
+  it("a bad night or a target of another proposal is refused by name", async () => {
+    const world = await createWorld();
+    const other = await createWorld();
+    const bad = await skyFigure(world.actors.pi, world.proposalId, "night", `targetId=${world.targetId}&date=2031-02-30`);
+    expect(bad.status).toBe(400);
+    expect(Object.keys((await bad.json()).error.fields)).toEqual(["date"]);
+    expect((await skyFigure(world.actors.pi, world.proposalId, "night", `targetId=${other.targetId}&date=2031-06-15`)).status).toBe(404);
+    expect((await skyFigure(world.actors.pi, world.proposalId, "sunrise", "")).status).toBe(404);
+  });
+
+  it("season chart as PNG at the chosen width", async () => {
+    const world = await createWorld();
+    const response = await skyFigure(world.actors.coi, world.proposalId, "season", "start=2031-03-01&nights=60&format=png&width=900&dpi=150");
+    expect(response.status).toBe(200);
+    const chunks = extractChunks(new Uint8Array(await response.arrayBuffer()));
+    expect(Buffer.from(chunks[0].data).readUInt32BE(0)).toBe(900);
+  });
+
+  it("bench figure: open without signing in, like the bench; a bad sketch field is named", async () => {
+    const ok = await benchFigureRoutes().GET(new Request("http://arcwright.test/api/bench/exports/light-curve?format=svg&mass=0.3%20Msun"), { params: Promise.resolve({ figure: "light-curve" }) });
+    expect(ok.status).toBe(200);
+    expect(await ok.text()).toContain("magnification");
+    const bad = await benchFigureRoutes().GET(new Request("http://arcwright.test/api/bench/exports/lens-plane?format=svg&dl=far"), { params: Promise.resolve({ figure: "lens-plane" }) });
+    expect(bad.status).toBe(400);
+    expect(Object.keys((await bad.json()).error.fields)).toEqual(["dl"]);
+  });
+
+  it("technical summary PDF: viewer may download it; it holds the target table and the season figure", async () => {
+    const world = await createWorld();
+    expect((await summary(null, world.proposalId)).status).toBe(401);
+    expect((await summary(world.actors.outsider, world.proposalId)).status).toBe(404);
+    expect((await summary(world.actors.pi, world.proposalId, "figures=sky")).status).toBe(400);
+    const response = await summary(world.actors.viewer, world.proposalId, "columns=name,einsteinRadiusMas&digits=einsteinRadiusMas:3");
+    expect(response.status).toBe(200);
+    expect(response.headers.get("content-type")).toBe("application/pdf");
+    const parser = new PDFParse({ data: new Uint8Array(await response.arrayBuffer()) });
+    const { text, total } = await parser.getText();
+    expect(total).toBe(3);
+    expect(text).toContain("Einstein radius [mas]");
+    // θ_E of the world's point lens (0.4 M☉, 4 kpc / 8 kpc): 0.6381 mas, at 3 digits.
+    expect(text).toContain("TB-ML-0001");
+    expect(text).toContain("0.638");
+    expect(text).toContain("Usable dark hours per night");
+    expect(text).toContain("Constant GM_sun");
+    await parser.destroy();
+  });
+});
