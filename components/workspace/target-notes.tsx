@@ -8,6 +8,7 @@ import { FormError, buttonClass, quietButtonClass } from "@/components/workspace
 import { formatDateTime } from "@/components/workspace/format";
 import { Markdown } from "@/components/workspace/markdown";
 import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { NoteAttachments } from "@/components/uploads/note-attachments";
 
 interface TargetNotesProps {
   notesUrl: string;
@@ -150,6 +151,7 @@ function NoteCard({ note, noteUrl, canEdit, onSaved }: { note: NoteView; noteUrl
         )}
       </div>
       {showHistory && <NoteHistory noteUrl={noteUrl} />}
+      <NoteAttachments noteUrl={noteUrl} canEdit={canEdit} />
     </article>
   );
 }

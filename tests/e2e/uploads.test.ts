@@ -1,0 +1,118 @@
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, newPage } from "./support/browser";
+
+let browser: Browser;
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+const run = Date.now().toString(36);
+const proposalTitle = "Bending starlight in the Cinder bulge window";
+// A valid 1×1 PNG (one opaque pixel), so the browser can decode and lay it out.
+const onePixelPng = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==", "base64");
+
+async function signIn(page: Page, email: string, password: string) {
+  await page.goto("/sign-in");
+  const form = page.getByRole("form", { name: "Sign in with password" });
+  await form.getByLabel("E-mail").fill(email);
+  await form.getByLabel("Password").fill(password);
+  await form.getByRole("button", { name: "Sign in" }).click();
+  await page.waitForURL("**/proposals");
+}
+
+async function openProposal(page: Page): Promise<string> {
+  await page.getByRole("link", { name: proposalTitle }).click();
+  await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
+  return page.url().split("/").pop()!;
+}
+
+let proposalId = "";
+
+describe("uploads in the browser through the upload service fake", () => {
+  it("a Co-I imports a CSV through the dropzone, maps a unit, previews, commits and sees the computed columns", async () => {
+    const { page, consoleErrors } = await newPage(browser);
+    await signIn(page, "tomas.brenneke@tessellate.example", "brenneke-demo-arcs");
+    proposalId = await openProposal(page);
+    await page.getByRole("link", { name: "Import a target list (CSV or VOTable)" }).click();
+    await page.waitForURL(`**/proposals/${proposalId}/import`);
+
+    // D_L and D_S are in kpc without saying so: the mapping step assumes pc until the unit is changed.
+    const csv = [`name,ra,dec,mass,D_L,D_S`, `UP-${run}-1,17:56:40.0,-29:30:00,0.5,4,8`, `UP-${run}-2,17:58:01.0,-29:20:00,0.3,3,8`].join("\n");
+    await page.getByTestId("list-dropzone").locator('input[type="file"]').setInputFiles({ name: `list-${run}.csv`, mimeType: "text/csv", buffer: Buffer.from(csv) });
+    await page.getByTestId("uploaded-list").waitFor();
+    expect(await page.getByTestId("uploaded-list").textContent()).toBe(`list-${run}.csv · CSV · 2 rows`);
+    expect(await page.getByTestId("preview-row").count()).toBe(2);
+    expect(await page.getByTestId("preview-row").first().textContent()).toContain("D_L 4 pc");
+
+    const mapping = page.getByRole("form", { name: "Column mapping" });
+    await mapping.getByLabel("Lens distance unit").fill("kpc");
+    await mapping.getByLabel("Source distance unit").fill("kpc");
+    await mapping.getByRole("button", { name: "Read the rows again" }).click();
+    await page.getByTestId("preview-row").first().filter({ hasText: "D_L 4000 pc" }).waitFor();
+    expect(await page.getByTestId("import-counts").textContent()).toBe("2 to add · 0 to update · 0 to skip · 0 with errors");
+
+    await page.getByRole("button", { name: "Import 2 targets" }).click();
+    await page.getByTestId("import-result").waitFor();
+    expect(await page.getByTestId("import-result").textContent()).toContain("Imported: 2 added, 0 updated, 0 skipped.");
+
+    await page.getByRole("link", { name: "Back to the proposal" }).click();
+    await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
+    await page.getByRole("search", { name: "Filter targets" }).getByLabel("Name contains").fill(`UP-${run}-1`);
+    // θ_E for 0.5 M☉ at 4 kpc, source at 8 kpc = 0.7134 mas (derivation in tests/e2e/workspace.test.ts).
+    const radius = page.getByTestId("target-row").filter({ hasText: `UP-${run}-1` }).locator('[data-column="einsteinRadiusMas"]');
+    await radius.waitFor();
+    expect(await radius.textContent()).toBe("0.7134");
+    // The app has no favicon yet (a 404 the browser logs); any other error in the console fails the test.
+    const scriptErrors = consoleErrors.filter((text) => !text.startsWith("Failed to load resource: the server responded with a status of 404"));
+    expect(scriptErrors, scriptErrors.join("\n")).toEqual([]);
+  });
+
+  it("a Co-I attaches a PNG to a new note and sees it previewed", async () => {
+    const { page } = await newPage(browser);
+    await signIn(page, "tomas.brenneke@tessellate.example", "brenneke-demo-arcs");
+    await openProposal(page);
+    await page.getByRole("link", { name: "K-17 core" }).click();
+    await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
+    const noteText = `Finding chart ${run}`;
+    const add = page.getByRole("form", { name: "Add a note" });
+    await add.getByLabel("New note (Markdown)").fill(noteText);
+    await add.getByRole("button", { name: "Add note" }).click();
+    const note = page.getByTestId("note").filter({ hasText: noteText });
+    await note.waitFor();
+    await note.getByTestId("note-attachments").locator('input[type="file"]').setInputFiles({ name: `chart-${run}.png`, mimeType: "image/png", buffer: onePixelPng });
+    const image = note.getByRole("img", { name: `Attachment chart-${run}.png` });
+    await image.waitFor();
+    await page.waitForFunction((alt) => (document.querySelector(`img[alt="${alt}"]`) as HTMLImageElement | null)?.naturalWidth === 1, `Attachment chart-${run}.png`);
+    expect(await note.getByTestId("attachment").getAttribute("data-kind")).toBe("png");
+  });
+
+  it("the demo viewer sees no upload controls and the API answers 403", async () => {
+    const { page } = await newPage(browser);
+    await signIn(page, "priya.delacourt@tessellate.example", "delacourt-demo-arcs");
+    const id = await openProposal(page);
+    expect(await page.getByRole("link", { name: "Import a target list (CSV or VOTable)" }).count()).toBe(0);
+    await page.goto(`/proposals/${id}/import`);
+    await page.getByTestId("import-not-allowed").waitFor();
+    expect(await page.getByTestId("list-dropzone").count()).toBe(0);
+
+    const preview = await page.request.post(`/api/proposals/${id}/imports/preview`, { data: { fileId: "00000000-0000-4000-8000-000000000000" } });
+    expect(preview.status()).toBe(403);
+    expect(((await preview.json()) as { error: { code: string } }).error.code).toBe("forbidden:import");
+    const presign = await page.request.post("/api/uploadthing?actionType=upload&slug=targetList", {
+      data: { input: { proposalId: id }, files: [{ name: "x.csv", size: 10, type: "text/csv", lastModified: Date.now() }] },
+    });
+    expect(presign.status()).toBe(403);
+
+    await page.goto(`/proposals/${id}`);
+    await page.getByRole("link", { name: "K-17 core" }).click();
+    await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
+    await page.getByRole("heading", { name: "Observation notes" }).waitFor();
+    expect(await page.getByText("Attach a PNG, JPEG, PDF or FITS file").count()).toBe(0);
+  });
+});
