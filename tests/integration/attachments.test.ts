@@ -1,0 +1,92 @@
+import { count, eq } from "drizzle-orm";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { dbClient } from "@/db/client";
+import { noteAttachments, uploadedFiles } from "@/db/schema";
+import { deleteAttachment, listAttachments } from "@/lib/server/attachments";
+import { deleteNote } from "@/lib/server/notes";
+import { card, fitsFile } from "../unit/imports/fits";
+import { createWorld, type World } from "./support/world";
+import { startUploadService, type UploadService } from "./support/upload-service";
+
+const { db, sql: connection } = dbClient();
+let service: UploadService;
+
+beforeAll(async () => {
+  service = await startUploadService();
+});
+
+afterAll(async () => {
+  await service.stop();
+  await connection.end();
+});
+
+// PNG signature (PNG Specification 3rd ed. §5.2) followed by arbitrary bytes: the type is read from content.
+const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3, 4]);
+const noteInput = (w: World) => ({ proposalId: w.proposalId, targetId: w.targetId, noteId: w.noteId });
+
+
+async function attach(world: World, name: string, bytes: Uint8Array) {
+  const attempt = await service.uploadAs(world.actors.coi, "noteAttachment", noteInput(world), { name, bytes });
+  if (attempt.stage !== "stored") throw new Error(`refused before upload: ${attempt.message}`);
+  return attempt;
+}
+
+async function fileRows(proposalId: string) {
+  const [row] = await db.select({ n: count() }).from(uploadedFiles).where(eq(uploadedFiles.proposalId, proposalId));
+  return row.n;
+}
+
+describe("note attachments through the upload service", () => {
+  it("records a PNG and a FITS file by content, with the FITS header keywords and data size", async () => {
+    const world = await createWorld();
+    await attach(world, "chart.png", png);
+    // FITS Standard 4.0 §4.4.1.1: data bytes = |BITPIX|/8 × NAXIS1 × NAXIS2 = 2 × 10 × 20 = 400.
+    const fits = fitsFile([card("SIMPLE", "T"), card("BITPIX", "16"), card("NAXIS", "2"), card("NAXIS1", "10"), card("NAXIS2", "20"), card("OBJECT", "'K-17 core'")], 400);
+    await attach(world, "spectrum.fits", fits);
+    const attachments = await listAttachments(noteInput(world), world.actors.viewer);
+    expect(attachments.map((a) => [a.name, a.kind, a.sizeBytes])).toEqual([
+      ["chart.png", "png", png.length],
+      ["spectrum.fits", "fits", fits.length],
+    ]);
+    const header = attachments[1].fitsHeader!;
+    expect(header.dataBytes).toBe(400);
+    expect(header.axes).toEqual([10, 20]);
+    expect(header.keywords.find((k) => k.key === "OBJECT")?.value).toBe("K-17 core");
+  });
+
+  it("refuses a file whose content is no attachment type, deletes it and records nothing", async () => {
+    const world = await createWorld();
+    const before = await fileRows(world.proposalId);
+    const attempt = await attach(world, "looks-like.png", new TextEncoder().encode("GIF89a not a png"));
+    expect(attempt.serverData).toEqual({ ok: false, message: "Attach a PNG or JPEG image, a PDF or a FITS file; this file's content is none of them." });
+    expect(await service.isStored(attempt.key, 3_000)).toBe(false);
+    expect(await fileRows(world.proposalId)).toBe(before);
+  });
+
+  it("refuses a viewer (403) and a non-member (404) at the upload middleware, and an oversize file (413)", async () => {
+    const world = await createWorld();
+    const file = { name: "chart.png", bytes: png };
+    expect(await service.uploadAs(world.actors.viewer, "noteAttachment", noteInput(world), file)).toMatchObject({ stage: "presign", status: 403 });
+    expect(await service.uploadAs(world.actors.outsider, "noteAttachment", noteInput(world), file)).toMatchObject({ stage: "presign", status: 404 });
+    const big = await service.uploadAs(world.actors.coi, "noteAttachment", noteInput(world), { ...file, declaredSize: 16 * 1024 * 1024 + 1 });
+    expect(big).toEqual({ stage: "presign", status: 413, message: "The file is larger than 16 MB, the limit for an attachment." });
+  });
+
+  it("deleting an attachment, or its note, deletes the stored bytes through the upload service", async () => {
+    const world = await createWorld();
+    const first = await attach(world, "one.png", png);
+    const second = await attach(world, "two.png", png);
+    const [one] = await listAttachments(noteInput(world), world.actors.coi);
+    await expect(deleteAttachment({ ...noteInput(world), attachmentId: one.id }, world.actors.viewer)).rejects.toMatchObject({ code: "forbidden:attachment" });
+    expect(await service.isStored(first.key)).toBe(true);
+    await deleteAttachment({ ...noteInput(world), attachmentId: one.id }, world.actors.coi);
+    expect(await service.isStored(first.key)).toBe(false);
+    expect(await service.isStored(second.key)).toBe(true);
+
+    await deleteNote(noteInput(world), world.actors.coi);
+    expect(await service.isStored(second.key)).toBe(false);
+    const [left] = await db.select({ n: count() }).from(noteAttachments).where(eq(noteAttachments.noteId, world.noteId));
+    expect(left.n).toBe(0);
+    expect(await fileRows(world.proposalId)).toBe(0);
+  });
+});
