@@ -24,7 +24,6 @@ afterAll(async () => {
 const png = new Uint8Array([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 1, 2, 3, 4]);
 const noteInput = (w: World) => ({ proposalId: w.proposalId, targetId: w.targetId, noteId: w.noteId });
 
-
 async function attach(world: World, name: string, bytes: Uint8Array) {
   const attempt = await service.uploadAs(world.actors.coi, "noteAttachment", noteInput(world), { name, bytes });
   if (attempt.stage !== "stored") throw new Error(`refused before upload: ${attempt.message}`);
