@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ActivityFeed } from "@/components/workspace/activity-feed";
+import { ConfirmDelete } from "@/components/workspace/confirm-delete";
 import { MembersPanel } from "@/components/workspace/members-panel";
 import { TargetForm } from "@/components/workspace/target-form";
 import { TargetTable } from "@/components/workspace/target-table";
@@ -69,13 +70,23 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
             </dd>
           </div>
         </dl>
+        {permissions.canDelete && (
+          <ConfirmDelete
+            label="Delete proposal"
+            consequence={`“${proposal.title}” goes with all its targets, notes, members, invitations and activity.`}
+            url={`/api/proposals/${proposalId}`}
+            afterUrl="/proposals"
+            typeToConfirm={proposal.title}
+            staleKeyPrefix={`/api/proposals/${proposalId}`}
+          />
+        )}
       </header>
       <section aria-labelledby="targets-heading" className="space-y-4">
         <h2 id="targets-heading" className="text-2xl font-semibold">
           Targets
         </h2>
         <TargetTable proposalId={proposalId} initialPage={targets} settings={proposal} />
-        {permissions.canEdit && <TargetForm proposalId={proposalId} />}
+        {permissions.canEdit && <TargetForm proposalId={proposalId} initialPage={targets} />}
         {permissions.canEdit && (
           <Link href={`/proposals/${proposalId}/import`} className="inline-block text-sm">
             Import a target list (CSV or VOTable)

@@ -1,8 +1,10 @@
 import type { Metadata } from "next";
 import Link from "next/link";
+import { ConfirmDelete } from "@/components/workspace/confirm-delete";
 import { FeasibilityList } from "@/components/sky/feasibility-list";
 import { TargetNightPanel } from "@/components/sky/target-night-panel";
 import { formatQuantity, formatWithUnit } from "@/components/workspace/format";
+import { TargetEditForm } from "@/components/workspace/target-edit-form";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
 import { nightDateSchema } from "@/lib/astro/inputs";
@@ -87,7 +89,17 @@ export default async function TargetPage({
           <Link href={benchLink(target, instrument)} className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
             Open in the lens bench
           </Link>
+          {proposal.permissions.canEdit && (
+            <ConfirmDelete
+              label="Delete target"
+              consequence={`${target.name} and all its observation notes will be removed from the proposal.`}
+              url={apiBase}
+              afterUrl={`/proposals/${proposal.id}`}
+              staleKeyPrefix={`/api/proposals/${proposal.id}/`}
+            />
+          )}
         </div>
+        {proposal.permissions.canEdit && <TargetEditForm target={target} targetUrl={apiBase} />}
       </header>
       <div className="grid gap-8 md:grid-cols-2">
         <section aria-labelledby="hypothesis-heading">

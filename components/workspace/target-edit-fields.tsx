@@ -1,0 +1,111 @@
+"use client";
+
+import type { FieldErrors } from "@/lib/errors";
+import { lensModelLabels, lensModels, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
+import { ChoiceOptions } from "@/components/workspace/choice-options";
+import { Field } from "@/components/workspace/field";
+
+/** Where a target's geometry comes from: Galactic distances or cosmological redshifts. */
+export type GeometrySource = "distance" | "redshift";
+
+/** What the fieldset starts with: each input's text by name (empty where the target has no value). */
+export type TargetFieldTexts = Partial<Record<TargetFieldName, string>>;
+
+/** The text inputs: every field of a new target but the lens model, which is a select. */
+type TargetFieldName = Exclude<keyof CreateTargetInput, "lensModel">;
+
+/** Empty → absent, a number → a number, anything else is sent as typed so the server names the field. */
+export function optionalNumber(text: string | undefined): number | string | null {
+  if (text === undefined || text.trim() === "") return null;
+  return Number.isFinite(Number(text)) ? Number(text) : text;
+}
+
+/**
+ * The request body for the fieldset's inputs. The parameter of the model not chosen and the geometry
+ * not chosen are sent as null, so switching a target from distances to redshifts clears the distances.
+ */
+export function targetBodyOf(v: Record<string, string>, model: LensModel, geometry: GeometrySource) {
+  return {
+    name: v.name,
+    ra: v.ra,
+    dec: v.dec,
+    lensModel: model,
+    lensMassSolar: model === "point" ? optionalNumber(v.lensMassSolar) : null,
+    velocityDispersionKmPerS: model === "sis" ? optionalNumber(v.velocityDispersionKmPerS) : null,
+    lensDistancePc: geometry === "distance" ? optionalNumber(v.lensDistancePc) : null,
+    sourceDistancePc: geometry === "distance" ? optionalNumber(v.sourceDistancePc) : null,
+    lensRedshift: geometry === "redshift" ? optionalNumber(v.lensRedshift) : null,
+    sourceRedshift: geometry === "redshift" ? optionalNumber(v.sourceRedshift) : null,
+    sourceOffsetThetaE: optionalNumber(v.sourceOffsetThetaE),
+    properMotionMasPerYr: optionalNumber(v.properMotionMasPerYr),
+    priority: optionalNumber(v.priority),
+    tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
+  };
+}
+
+/** The server names a bad tag by its index ("tags.2"); the form shows them all beside the one input. */
+function tagErrors(fields: FieldErrors): string[] | undefined {
+  const messages = Object.entries(fields).flatMap(([key, list]) => (key === "tags" || key.startsWith("tags.") ? list : []));
+  return messages.length > 0 ? messages : undefined;
+}
+
+interface TargetFieldsetProps {
+  fields: FieldErrors;
+  initial: TargetFieldTexts;
+  model: LensModel;
+  geometry: GeometrySource;
+  onModelChange: (model: LensModel) => void;
+  onGeometryChange: (geometry: GeometrySource) => void;
+  /** Shown under the coordinates, e.g. the stored position in sexagesimal form. */
+  coordinateHints?: { ra?: string; dec?: string };
+}
+
+/** Every input of a target but its status, with the server's field errors beside each one. */
+export function TargetFieldset({ fields, initial, model, geometry, onModelChange, onGeometryChange, coordinateHints }: TargetFieldsetProps) {
+  return (
+    <>
+      <div className="grid gap-4 md:grid-cols-3">
+        <Field label="Target name" name="name" required defaultValue={initial.name} errors={fields.name} />
+        <Field label="Right ascension" name="ra" placeholder="17 57 12.4 or 269.30" required defaultValue={initial.ra} hint={coordinateHints?.ra} errors={fields.ra} />
+        <Field label="Declination" name="dec" placeholder="-29 12 05 or -29.20" required defaultValue={initial.dec} hint={coordinateHints?.dec} errors={fields.dec} />
+      </div>
+      <div className="flex flex-wrap gap-6 text-sm">
+        <label className="flex flex-col">
+          Lens model
+          <select name="lensModel" value={model} onChange={(e) => onModelChange(e.target.value as LensModel)} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+            <ChoiceOptions values={lensModels} labels={lensModelLabels} />
+          </select>
+        </label>
+        <label className="flex flex-col">
+          Geometry from
+          <select value={geometry} onChange={(e) => onGeometryChange(e.target.value as GeometrySource)} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+            <option value="distance">Distances (pc)</option>
+            <option value="redshift">Redshifts</option>
+          </select>
+        </label>
+      </div>
+      <div className="grid gap-4 md:grid-cols-3">
+        {model === "point" ? (
+          <Field label="Lens mass (M☉)" name="lensMassSolar" inputMode="decimal" defaultValue={initial.lensMassSolar} errors={fields.lensMassSolar} />
+        ) : (
+          <Field label="Velocity dispersion (km/s)" name="velocityDispersionKmPerS" inputMode="decimal" defaultValue={initial.velocityDispersionKmPerS} errors={fields.velocityDispersionKmPerS} />
+        )}
+        {geometry === "distance" ? (
+          <>
+            <Field label="Lens distance (pc)" name="lensDistancePc" inputMode="decimal" defaultValue={initial.lensDistancePc} errors={fields.lensDistancePc} />
+            <Field label="Source distance (pc)" name="sourceDistancePc" inputMode="decimal" defaultValue={initial.sourceDistancePc} errors={fields.sourceDistancePc} />
+          </>
+        ) : (
+          <>
+            <Field label="Lens redshift" name="lensRedshift" inputMode="decimal" defaultValue={initial.lensRedshift} errors={fields.lensRedshift} />
+            <Field label="Source redshift" name="sourceRedshift" inputMode="decimal" defaultValue={initial.sourceRedshift} errors={fields.sourceRedshift} />
+          </>
+        )}
+        <Field label="Source offset (θE)" name="sourceOffsetThetaE" inputMode="decimal" required defaultValue={initial.sourceOffsetThetaE} errors={fields.sourceOffsetThetaE} />
+        <Field label="Relative proper motion (mas/yr)" name="properMotionMasPerYr" inputMode="decimal" defaultValue={initial.properMotionMasPerYr} errors={fields.properMotionMasPerYr} />
+        <Field label="Priority (1–5)" name="priority" inputMode="numeric" required defaultValue={initial.priority} errors={fields.priority} />
+        <Field label="Tags" name="tags" placeholder="bulge, high-mag" defaultValue={initial.tags} errors={tagErrors(fields)} />
+      </div>
+    </>
+  );
+}
