@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { ArcwrightMark } from "@/components/arcwright-mark";
 import { AccountMenu } from "@/components/workspace/account-menu";
+import { AdminNavLink } from "@/components/workspace/admin-nav-link";
 import { primaryNavigation } from "@/components/navigation";
 
 /** The frame around every page: product name, the areas of the product, and the page itself. */
@@ -19,6 +20,7 @@ export function AppShell({ children }: { children: React.ReactNode }) {
                 {item.label}
               </Link>
             ))}
+            <AdminNavLink className="text-dusk-dim hover:text-dusk" />
           </nav>
           <AccountMenu />
         </div>

@@ -90,7 +90,8 @@ const sortableColumns = {
   updatedAt: targets.updatedAt,
 } satisfies Record<TargetSortColumn, unknown>;
 
-const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+/** An ILIKE pattern matching `text` anywhere, with its own %, _ and backslash taken literally. */
+export const likePattern = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
 
 /** One page of a proposal's targets, sorted and filtered in SQL on known columns only. */
 export async function listTargets(params: unknown, query: unknown, actor: Actor | null): Promise<TargetPage> {

@@ -5,12 +5,14 @@ vi.mock("server-only", () => ({}));
 import { dbClient } from "@/db/client";
 import type { GetActor } from "@/lib/server/actor";
 import { acceptInvitationRoutes, invitationCollectionRoutes, invitationRoutes, memberCollectionRoutes, memberRoutes } from "@/lib/server/api/member-routes";
+import { accountCollectionRoutes, accountRoutes, siteAccessRoutes } from "@/lib/server/api/admin-routes";
 import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
 import { targetTableExportRoutes } from "@/lib/exports/server/routes";
 import { attachmentCollectionRoutes, attachmentFileRoutes, attachmentRoutes, importCollectionRoutes, importPreviewRoutes } from "@/lib/server/api/upload-routes";
 import { startMailCatcher } from "./support/mail-catcher";
-import { actorFor, callers, createWorld, pointTargetInput, proposalInput, type Caller, type World } from "./support/world";
+import { actorFor, callers, createUser, createWorld, pointTargetInput, proposalInput, type Caller, type World } from "./support/world";
+import type { Actor } from "@/lib/server/actor";
 
 type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>;
 
@@ -87,12 +89,65 @@ const endpoints: Endpoint[] = [
   { name: "DELETE /attachments/:id", handler: as(attachmentRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 403, 404, 404] },
   { name: "GET /attachments/:id/file", handler: as(attachmentFileRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}/file`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 404, 404, 404] },
   { name: "GET /exports/targets", handler: as(targetTableExportRoutes, "GET"), path: (w) => `${base(w)}/exports/targets?format=json&columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
+  // The site's own area: only a site admin lists accounts or changes a site role (see siteAdminExpected).
+  { name: "GET /admin/accounts", handler: as(accountCollectionRoutes, "GET"), path: () => "http://arcwright.test/api/admin/accounts?pageSize=5", params: () => ({}), expected: [401, 403, 403, 403, 403] },
+  {
+    name: "PATCH /admin/accounts/:userId",
+    handler: as(accountRoutes, "PATCH"),
+    path: (w) => `http://arcwright.test/api/admin/accounts/${w.actors.viewer.userId}`,
+    params: (w) => ({ userId: w.actors.viewer.userId }),
+    body: () => ({ siteRole: "member" }),
+    expected: [401, 403, 403, 403, 403],
+  },
+  { name: "GET /admin/access", handler: as(siteAccessRoutes, "GET"), path: () => "http://arcwright.test/api/admin/access", params: () => ({}), expected: [200, 200, 200, 200, 200] },
 ];
+
+/**
+ * The site-admin column: a site admin who is not a member of the proposal audits it with a viewer's
+ * rights (reads 200, every change 403, invitations 403 like any non-PI) and alone may use the admin
+ * endpoints. Every endpoint needs an entry; a missing one fails its test.
+ */
+const siteAdminExpected: Record<string, number> = {
+  "GET /proposals": 200,
+  "POST /proposals": 201,
+  "GET /proposals/:id": 200,
+  "PATCH /proposals/:id": 403,
+  "DELETE /proposals/:id": 403,
+  "GET /activity": 200,
+  "GET /members": 200,
+  "PATCH /members/:userId": 403,
+  "DELETE /members/:userId": 403,
+  "GET /invitations": 403,
+  "POST /invitations": 403,
+  "DELETE /invitations/:id": 403,
+  "GET /targets": 200,
+  "POST /targets": 403,
+  "GET /targets/:id": 200,
+  "PATCH /targets/:id": 403,
+  "DELETE /targets/:id": 403,
+  "GET /notes": 200,
+  "POST /notes": 403,
+  "GET /notes/:id": 200,
+  "PATCH /notes/:id": 403,
+  "DELETE /notes/:id": 403,
+  "POST /imports/preview": 403,
+  "POST /imports": 403,
+  "GET /notes/:id/attachments": 200,
+  "DELETE /attachments/:id": 403,
+  "GET /attachments/:id/file": 404,
+  "GET /exports/targets": 200,
+  "GET /admin/accounts": 200,
+  "PATCH /admin/accounts/:userId": 200,
+  "GET /admin/access": 200,
+};
 
 const methodOf = (name: string) => name.split(" ")[0];
 
 async function call(endpoint: Endpoint, world: World, caller: Caller): Promise<{ status: number; body: unknown }> {
-  const actor = actorFor(world, caller);
+  return callAs(endpoint, world, actorFor(world, caller));
+}
+
+async function callAs(endpoint: Endpoint, world: World, actor: Actor | null): Promise<{ status: number; body: unknown }> {
   const body = endpoint.body?.(world);
   const request = new Request(endpoint.path(world), {
     method: methodOf(endpoint.name),
@@ -111,6 +166,26 @@ beforeAll(async () => {
 afterAll(async () => {
   await mail.stop();
   await dbClient().sql.end();
+});
+
+const expectErrorCode = (status: number, body: unknown) => {
+  if (status < 400) return;
+  const code = (body as { error: { code: string } }).error.code;
+  expect(code).toMatch({ 401: /^unauthorized:/, 403: /^forbidden:/, 404: /^not_found:/ }[status as 401 | 403 | 404]);
+};
+
+describe("authorization matrix: the site-admin column (a site admin who is not on the proposal)", () => {
+  for (const endpoint of endpoints) {
+    const expected = siteAdminExpected[endpoint.name];
+    it(`${endpoint.name} as site admin → ${expected}`, async () => {
+      expect(expected, `siteAdminExpected has no entry for ${endpoint.name}`).toBeDefined();
+      const world = await createWorld();
+      const admin = await createUser("site-admin", "admin");
+      const { status, body } = await callAs(endpoint, world, admin);
+      expect(status, JSON.stringify(body)).toBe(expected);
+      expectErrorCode(status, body);
+    });
+  }
 });
 
 describe("authorization matrix: every endpoint × {signed out, non-member, viewer, Co-I, PI}", () => {
