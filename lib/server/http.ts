@@ -26,7 +26,10 @@ export function parseOrThrow<T extends z.ZodType>(schema: T, input: unknown, sub
 /** Maps any thrown value to the product's error answer. Unknown errors are logged, never echoed. */
 export function errorResponse(error: unknown): Response {
   if (error instanceof AppError) {
-    return Response.json(errorBody(error), { status: statusForCode(error.code) });
+    // A rate limit says when to come back (RFC 9110 §10.2.3), from the limiter's window.
+    const retryAfter = error.kind === "rate_limited" ? error.details?.retryAfterSeconds : undefined;
+    const headers = typeof retryAfter === "number" ? { "Retry-After": String(Math.ceil(retryAfter)) } : undefined;
+    return Response.json(errorBody(error), { status: statusForCode(error.code), headers });
   }
   if (isDatabaseUnavailable(error)) {
     console.error("database unavailable:", error);

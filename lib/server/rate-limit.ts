@@ -13,7 +13,7 @@ export interface RateLimit {
 
 /**
  * Counts one attempt in a fixed window and throws `rate_limited:<subject>` once the window's limit is
- * passed. The upsert is one statement, so concurrent attempts from several app instances all count.
+ * passed, with `details.retryAfterSeconds` (the rest of the window; the answer's Retry-After header). The upsert is one statement, so concurrent attempts from several app instances all count.
  */
 export async function consumeAttempt({ bucket, limit, windowSeconds }: RateLimit, subject: string): Promise<void> {
   const { db } = dbClient();
@@ -25,14 +25,18 @@ export async function consumeAttempt({ bucket, limit, windowSeconds }: RateLimit
       target: [rateLimitCounters.bucket, rateLimitCounters.windowStart],
       set: { hits: sql`${rateLimitCounters.hits} + 1` },
     })
-    .returning({ hits: rateLimitCounters.hits });
+    .returning({
+      hits: rateLimitCounters.hits,
+      // Seconds until this window closes, by the database clock that placed the window.
+      secondsLeft: sql<number>`greatest(1, ceil(extract(epoch from ${rateLimitCounters.windowStart}) + ${windowSeconds} - extract(epoch from now())))::int`,
+    });
   // The first attempt of a new window drops this bucket's older windows, so counters do not pile up.
   if (row.hits === 1) {
     await db.delete(rateLimitCounters).where(and(eq(rateLimitCounters.bucket, bucket), lt(rateLimitCounters.windowStart, windowStartSql)));
   }
   if (row.hits > limit) {
     throw new AppError(`rate_limited:${subject}`, "Too many attempts; wait a few minutes and try again.", undefined, {
-      retryAfterSeconds: windowSeconds,
+      retryAfterSeconds: row.secondsLeft,
     });
   }
 }
