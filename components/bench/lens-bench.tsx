@@ -8,6 +8,7 @@ import { isSolarSketch, solarCautionText } from "@/lib/bench/solar-caution";
 import { BenchPlots } from "./bench-plots";
 import { RayBundlePanel } from "./ray-bundle-panel";
 import { ResultsPanel } from "./results-panel";
+import { SaveTarget } from "./save-target";
 import { SketchForm } from "./sketch-form";
 import { useSketchUrl } from "./use-sketch-url";
 import { VerdictList } from "./verdict-list";
@@ -69,6 +70,7 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
               <ResultsPanel results={lastGood.results} />
             </>
           ) : null}
+          <SaveTarget sketch={sketch} parsed={parsed} betaThetaE={isStale ? undefined : lastGood?.results.lensPlane.betaThetaE} />
         </div>
       </div>
 

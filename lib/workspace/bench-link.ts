@@ -1,3 +1,6 @@
+import { parsePlainNumber, type SketchInputs } from "@/lib/bench/parse-sketch";
+import type { Sketch } from "@/lib/bench/sketch-state";
+import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics";
 import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
 
@@ -24,4 +27,30 @@ export function benchLink(h: LensHypothesis, instrument: InstrumentDefaults): st
   query.set("cadence", `${instrument.cadenceHours} h`);
   query.set("campaign", `${instrument.campaignLengthDays} d`);
   return `/bench?${query}`;
+}
+
+/** Twelve significant digits: unit conversions ("4 kpc" → 3999.9999999999995 pc) come back as typed. */
+const tidy = (value: number) => Number(value.toPrecision(12));
+
+/**
+ * The reverse of `benchLink`: the hypothesis a bench sketch describes, for saving it as a target. It
+ * reads the same keys (`lens`, `mass`/`sigma`, `geometry` with `dl`/`ds` or `zl`/`zs`, `beta`, `mu`)
+ * after the bench has parsed them with their units. `betaThetaE` is β in units of θ_E as the bench
+ * computed it, since a β typed as an angle needs the lens solved first. A redshift sketch keeps its
+ * redshifts; the target then uses the physics module's default cosmology, whatever H0 and Ωm the
+ * sketch had.
+ */
+export function hypothesisFromSketch(sketch: Sketch, inputs: SketchInputs, betaThetaE: number): LensHypothesis {
+  const isRedshift = sketch.geometry === "redshift";
+  return {
+    lensModel: inputs.lens.model,
+    lensMassSolar: inputs.lens.model === "point" ? tidy(inputs.lens.massSolar) : null,
+    velocityDispersionKmPerS: inputs.lens.model === "sis" ? tidy(inputs.lens.sigmaKmPerS) : null,
+    lensDistancePc: isRedshift ? null : tidy(inputs.geometry.dLensPc),
+    sourceDistancePc: isRedshift ? null : tidy(inputs.geometry.dSourcePc),
+    lensRedshift: isRedshift ? inputs.geometry.zLens : null,
+    sourceRedshift: isRedshift ? parsePlainNumber(sketch.zs) : null,
+    sourceOffsetThetaE: tidy(betaThetaE),
+    properMotionMasPerYr: tidy((inputs.lightCurve.muRelRadPerS * JULIAN_YEAR_S) / MILLIARCSECOND_RAD),
+  };
 }
