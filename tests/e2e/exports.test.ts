@@ -1,7 +1,8 @@
 import { readFile } from "node:fs/promises";
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, newPage } from "./support/browser";
+import { launchBrowser, newPage } from "./support/browser";
+import { demoProposalTitle, signInAsDemo } from "./support/demo";
 
 let browser: Browser;
 
@@ -13,21 +14,10 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const demoProposalTitle = "Bending starlight in the Cinder bulge window";
-
-async function signInAsDemoPi(page: Page) {
-  await page.goto("/sign-in");
-  const form = page.getByRole("form", { name: "Sign in with password" });
-  await form.getByLabel("E-mail").fill("ilse.varrow@tessellate.example");
-  await form.getByLabel("Password").fill("varrow-demo-arcs");
-  await form.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL("**/proposals");
-}
-
 describe("exports in the browser", () => {
   it("the demo PI downloads a bench figure as PNG and the target table as VOTable from the summary page", async () => {
     const { page } = await newPage(browser);
-    await signInAsDemoPi(page);
+    await signInAsDemo(page, "pi");
 
     await page.goto("/bench?mass=0.8%20Msun");
     const [figure] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Download the deflection plot as PNG" }).click()]);
@@ -42,7 +32,8 @@ describe("exports in the browser", () => {
     await page.getByRole("link", { name: demoProposalTitle }).click();
     await page.getByTestId("my-role").waitFor();
     const proposalPath = new URL(page.url()).pathname;
-    await page.goto(`${baseUrl}${proposalPath}/summary`);
+    await page.getByRole("link", { name: "Technical summary and exports" }).click();
+    await page.waitForURL(`**${proposalPath}/summary`);
     await page.getByTestId("summary-table").waitFor();
     await page.getByLabel("Table format").selectOption("votable");
     const [table] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Download target table" }).click()]);

@@ -1,6 +1,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, newPage } from "./support/browser";
+import { signInAsDemo } from "./support/demo";
 
 let browser: Browser;
 
@@ -12,21 +13,12 @@ afterAll(async () => {
   await browser?.close();
 });
 
-async function signInAsCoI(page: Page) {
-  await page.goto("/sign-in");
-  const form = page.getByRole("form", { name: "Sign in with password" });
-  await form.getByLabel("E-mail").fill("tomas.brenneke@tessellate.example");
-  await form.getByLabel("Password").fill("brenneke-demo-arcs");
-  await form.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL("**/proposals");
-}
-
 const nightOf = (page: Page) => page.getByTestId("night-chart").getAttribute("data-night");
 
 describe("sky windows of a proposal's targets", () => {
   it("a Co-I opens a demo target, sees its night and feasibility, changes the date, then opens the season view", async () => {
     const { page, consoleErrors } = await newPage(browser);
-    await signInAsCoI(page);
+    await signInAsDemo(page, "coi");
     await page.getByRole("link", { name: "Bending starlight in the Cinder bulge window" }).click();
     await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
     const proposalUrl = page.url();

@@ -1,6 +1,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { baseUrl, launchBrowser, newPage } from "./support/browser";
+import { demoProposalTitle, signInAsDemo } from "./support/demo";
 
 let browser: Browser;
 
@@ -13,16 +14,6 @@ afterAll(async () => {
 });
 
 const run = Date.now().toString(36);
-const demoProposalTitle = "Bending starlight in the Cinder bulge window";
-
-async function signIn(page: Page, email: string, password: string) {
-  await page.goto("/sign-in");
-  const form = page.getByRole("form", { name: "Sign in with password" });
-  await form.getByLabel("E-mail").fill(email);
-  await form.getByLabel("Password").fill(password);
-  await form.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL("**/proposals");
-}
 
 /** Holds every target POST back for a moment, so the optimistic row can be seen before the answer. */
 async function delayTargetPosts(page: Page, delayMs: number) {
@@ -35,7 +26,7 @@ async function delayTargetPosts(page: Page, delayMs: number) {
 describe("editing and deleting targets and proposals in the browser", () => {
   it("a Co-I adds a target optimistically, sees a refused one rolled back, edits and deletes a target", async () => {
     const { page, context, consoleErrors } = await newPage(browser);
-    await signIn(page, "tomas.brenneke@tessellate.example", "brenneke-demo-arcs");
+    await signInAsDemo(page, "coi");
     await page.getByRole("link", { name: demoProposalTitle }).click();
     await page.getByTestId("my-role").waitFor();
     // Deleting a proposal is the PI's alone.
@@ -118,7 +109,7 @@ describe("editing and deleting targets and proposals in the browser", () => {
 
   it("the PI deletes a proposal only after typing its title", async () => {
     const { page, context } = await newPage(browser);
-    await signIn(page, "ilse.varrow@tessellate.example", "varrow-demo-arcs");
+    await signInAsDemo(page, "pi");
     const title = `Short-lived proposal ${run}`;
     const created = await context.request.post(`${baseUrl}/api/proposals`, {
       data: {

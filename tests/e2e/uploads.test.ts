@@ -1,6 +1,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, newPage } from "./support/browser";
+import { demoProposalTitle, signInAsDemo } from "./support/demo";
 
 let browser: Browser;
 
@@ -13,21 +14,11 @@ afterAll(async () => {
 });
 
 const run = Date.now().toString(36);
-const proposalTitle = "Bending starlight in the Cinder bulge window";
 // A valid 1×1 PNG (one opaque pixel), so the browser can decode and lay it out.
 const onePixelPng = Buffer.from("iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8BQDwAEhQGAhKmMIQAAAABJRU5ErkJggg==", "base64");
 
-async function signIn(page: Page, email: string, password: string) {
-  await page.goto("/sign-in");
-  const form = page.getByRole("form", { name: "Sign in with password" });
-  await form.getByLabel("E-mail").fill(email);
-  await form.getByLabel("Password").fill(password);
-  await form.getByRole("button", { name: "Sign in" }).click();
-  await page.waitForURL("**/proposals");
-}
-
 async function openProposal(page: Page): Promise<string> {
-  await page.getByRole("link", { name: proposalTitle }).click();
+  await page.getByRole("link", { name: demoProposalTitle }).click();
   await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
   return page.url().split("/").pop()!;
 }
@@ -37,7 +28,7 @@ let proposalId = "";
 describe("uploads in the browser through the upload service fake", () => {
   it("a Co-I imports a CSV through the dropzone, maps a unit, previews, commits and sees the computed columns", async () => {
     const { page, consoleErrors } = await newPage(browser);
-    await signIn(page, "tomas.brenneke@tessellate.example", "brenneke-demo-arcs");
+    await signInAsDemo(page, "coi");
     proposalId = await openProposal(page);
     await page.getByRole("link", { name: "Import a target list (CSV or VOTable)" }).click();
     await page.waitForURL(`**/proposals/${proposalId}/import`);
@@ -75,7 +66,7 @@ describe("uploads in the browser through the upload service fake", () => {
 
   it("a Co-I attaches a PNG to a new note and sees it previewed", async () => {
     const { page } = await newPage(browser);
-    await signIn(page, "tomas.brenneke@tessellate.example", "brenneke-demo-arcs");
+    await signInAsDemo(page, "coi");
     await openProposal(page);
     await page.getByRole("link", { name: "K-17 core" }).click();
     await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
@@ -94,7 +85,7 @@ describe("uploads in the browser through the upload service fake", () => {
 
   it("the demo viewer sees no upload controls and the API answers 403", async () => {
     const { page } = await newPage(browser);
-    await signIn(page, "priya.delacourt@tessellate.example", "delacourt-demo-arcs");
+    await signInAsDemo(page, "viewer");
     const id = await openProposal(page);
     expect(await page.getByRole("link", { name: "Import a target list (CSV or VOTable)" }).count()).toBe(0);
     await page.goto(`/proposals/${id}/import`);

@@ -41,6 +41,9 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
           <Link href={`/proposals/${proposalId}/sky`} className="rounded-md border border-void-edge px-3 py-1.5 no-underline">
             Season view (sky windows)
           </Link>
+          <Link href={`/proposals/${proposalId}/summary`} className="rounded-md border border-void-edge px-3 py-1.5 no-underline">
+            Technical summary and exports
+          </Link>
           {permissions.canManage && (
             <Link href={`/proposals/${proposalId}/settings`} className="rounded-md border border-void-edge px-3 py-1.5 no-underline">
               Proposal settings
