@@ -49,8 +49,8 @@ describe("editing and deleting targets and proposals in the browser", () => {
     // Then the server's row replaces it: θ_E for 0.5 M☉ at 4 kpc, source at 8 kpc is 0.7134 mas
     // (sqrt(4 GM/c² · D_LS/(D_L D_S)) with IAU 2015 GM☉ and the IAU 2012 au; see workspace.test.ts).
     await page.getByTestId("added-target").waitFor();
-    const savedRow = page.getByTestId("target-row").filter({ hasText: name });
-    await expect(savedRow.locator('[data-column="einsteinRadiusMas"]').textContent()).resolves.toBe("0.7134");
+    const savedRow = page.getByTestId("target-row").filter({ hasText: name, hasNotText: "saving…" });
+    await expect.poll(() => savedRow.locator('[data-column="einsteinRadiusMas"]').textContent(), { timeout: 10_000 }).toBe("0.7134");
     expect(await page.getByTestId("target-row").filter({ hasText: "(saving…)" }).count()).toBe(0);
 
     // A declination past the pole: the row shows, then goes again when the server refuses it.

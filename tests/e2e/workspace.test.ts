@@ -62,9 +62,12 @@ describe("team workspace in the browser", () => {
     // 4 · 1476.625 m · 0.5 / 3.0857e16 m / 8000 = 1.1964e-17, sqrt → 3.4588e-9 rad = 0.7134 mas.
     await page.getByTestId("added-target").waitFor();
     await expect(page.getByTestId("added-target").textContent()).resolves.toContain("Einstein radius 0.7134 mas");
-    const radiusCell = page.getByTestId("target-row").filter({ hasText: "ASH-32-0001" }).locator('[data-column="einsteinRadiusMas"]');
-    await radiusCell.waitFor();
-    await expect(radiusCell.textContent()).resolves.toBe("0.7134");
+    // The optimistic "(saving…)" row shows no computed value; the server's row that replaces it does.
+    const radiusCell = page
+      .getByTestId("target-row")
+      .filter({ hasText: "ASH-32-0001", hasNotText: "saving…" })
+      .locator('[data-column="einsteinRadiusMas"]');
+    await expect.poll(() => radiusCell.textContent(), { timeout: 10_000 }).toBe("0.7134");
 
     const invite = page.getByRole("form", { name: "Invite a colleague" });
     await invite.getByLabel("Invite by e-mail").fill(colleagueEmail);
