@@ -9,6 +9,7 @@ import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { FormError } from "@/components/workspace/field";
 import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { PageStepper } from "@/components/page-stepper";
 
 const accountsUrl = (page: number, q: string) => `/api/admin/accounts?${new URLSearchParams({ page: String(page), pageSize: "50", ...(q ? { q } : {}) })}`;
 
@@ -114,17 +115,7 @@ export function AdminAccounts({ initialPage, selfId }: { initialPage: AccountPag
           </tbody>
         </table>
       </div>
-      <nav aria-label="Account pages" className="flex items-center gap-3 text-sm">
-        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
-          Previous
-        </button>
-        <span>
-          Page {page} of {pageCount}
-        </span>
-        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page >= pageCount} onClick={() => setPage((p) => p + 1)}>
-          Next
-        </button>
-      </nav>
+      <PageStepper label="Account pages" page={page} pageCount={pageCount} onPageChange={setPage} />
     </div>
   );
 }

@@ -15,6 +15,7 @@ import { swrFetcher } from "@/components/workspace/api-client";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
 import { emptyFilters, initialTargetSorting, targetListUrl, targetPageSize, type TargetFilters } from "@/components/workspace/target-table-state";
+import { PageStepper } from "@/components/page-stepper";
 
 const features = tableFeatures({ rowSortingFeature });
 
@@ -219,17 +220,7 @@ export function TargetTable({ proposalId, initialPage, settings }: { proposalId:
           </tbody>
         </table>
       </div>
-      <nav aria-label="Target pages" className="flex items-center gap-3 text-sm">
-        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page <= 1} onClick={() => setPage((p) => p - 1)}>
-          Previous
-        </button>
-        <span>
-          Page {page} of {pageCount}
-        </span>
-        <button type="button" className="rounded border border-void-edge px-2 py-1 disabled:opacity-40" disabled={page >= pageCount} onClick={() => setPage((p) => p + 1)}>
-          Next
-        </button>
-      </nav>
+      <PageStepper label="Target pages" page={page} pageCount={pageCount} onPageChange={setPage} />
     </div>
   );
 }
