@@ -6,6 +6,7 @@ import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { parseBundle } from "@/lib/bench/parse-sketch";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
+import { PNG_SCALES, type PngScale } from "@/components/scene/png-scale";
 import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
@@ -59,6 +60,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
   const { bundle, isTracing, progress, error, trace, cancel } = useRayTrace();
   const viewRef = useRef<RayBundleView | undefined>(undefined);
   const [drawnBundle, setDrawnBundle] = useState<AssembledBundle | undefined>(undefined);
+  const [pngScale, setPngScale] = useState<PngScale>(2);
 
   const parsedBundle = parsed.ok ? parsed.bundle : undefined;
   const startTrace = useCallback(() => {
@@ -96,8 +98,9 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     const view = viewRef.current;
     if (view === undefined) return;
     const link = document.createElement("a");
-    link.href = view.toPngDataUrl();
-    link.download = `arcwright-ray-bundle-${bundle?.rayCount ?? 0}-rays.png`;
+    link.href = view.toPngDataUrl(pngScale);
+    const scaleSuffix = pngScale === 1 ? "" : `-${pngScale}x`;
+    link.download = `arcwright-ray-bundle-${bundle?.rayCount ?? 0}-rays${scaleSuffix}.png`;
     link.click();
   };
 
@@ -141,6 +144,21 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
         >
           Save view as PNG
         </button>
+        <label className="flex items-center gap-1 text-sm text-dusk-dim">
+          at
+          <select
+            aria-label="PNG resolution"
+            value={pngScale}
+            onChange={(event) => setPngScale(Number(event.target.value) as PngScale)}
+            className="rounded border border-void-edge bg-void px-1 py-1 text-dusk"
+          >
+            {PNG_SCALES.map((scale) => (
+              <option key={scale} value={scale}>
+                {scale}× screen size
+              </option>
+            ))}
+          </select>
+        </label>
         <span role="status" aria-live="polite" className="text-sm text-dusk-dim" data-testid="trace-status" data-drawn-rays={drawnBundle?.rayCount ?? 0}>
           {isTracing ? "Tracing…" : drawnBundle !== undefined ? `${drawnBundle.rayCount} rays drawn` : ""}
         </span>

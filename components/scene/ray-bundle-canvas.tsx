@@ -5,6 +5,7 @@ import { Canvas } from "@react-three/fiber";
 import { useCallback, useRef } from "react";
 import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { LensMass } from "./lens-mass";
+import type { PngScale } from "./png-scale";
 import { ProgressiveBundle } from "./progressive-bundle";
 
 /** Vertical field of view, degrees. */
@@ -12,7 +13,7 @@ const FIELD_OF_VIEW_DEG = 45;
 
 /** What the page may do with the view: a PNG of it, with any bundle still being drawn completed first. */
 export interface RayBundleView {
-  toPngDataUrl: () => string;
+  toPngDataUrl: (scale: PngScale) => string;
 }
 
 export interface RayBundleCanvasProps {
@@ -47,9 +48,18 @@ export default function RayBundleCanvas({ bundle, startRadiusM, onViewReady, onB
       gl={{ preserveDrawingBuffer: true, antialias: false }}
       onCreated={({ gl }) =>
         onViewReady({
-          toPngDataUrl: () => {
+          toPngDataUrl: (scale) => {
+            // A larger drawing buffer for the snapshot only: the bundle is redrawn into it at once
+            // (one long task, on the user's click), read out, and the view goes back to screen size.
+            const screenRatio = gl.getPixelRatio();
+            if (scale !== screenRatio) gl.setPixelRatio(scale);
             drawRemaining.current();
-            return gl.domElement.toDataURL("image/png");
+            const dataUrl = gl.domElement.toDataURL("image/png");
+            if (scale !== screenRatio) {
+              gl.setPixelRatio(screenRatio);
+              drawRemaining.current();
+            }
+            return dataUrl;
           },
         })
       }

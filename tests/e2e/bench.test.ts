@@ -120,14 +120,22 @@ describe("lens bench", () => {
     // The escaped rays (sky blue) are the larger part of the picture.
     expect(pixels.blue / pixels.total).toBeGreaterThan(0.05);
 
-    // The view saves as a PNG of the drawn bundle (a blank canvas compresses to a few kB).
-    const download = page.waitForEvent("download");
-    await page.getByRole("button", { name: "Save view as PNG" }).click();
-    const saved = await download;
-    expect(saved.suggestedFilename()).toBe("arcwright-ray-bundle-2000-rays.png");
-    const png = await readFile(await saved.path());
-    expect(Array.from(png.subarray(0, 8))).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
-    expect(png.length).toBeGreaterThan(20_000);
+    // The view saves as a PNG of the drawn bundle (a blank canvas compresses to a few kB), at 1×
+    // and at 4× the canvas size on screen (IHDR width, PNG 3rd ed. §11.2.1, is bytes 16..19).
+    const canvasWidthPx = await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.width);
+    for (const [scale, suffix] of [[1, ""], [4, "-4x"]] as const) {
+      await page.getByLabel("PNG resolution").selectOption(String(scale));
+      const download = page.waitForEvent("download");
+      await page.getByRole("button", { name: "Save view as PNG" }).click();
+      const saved = await download;
+      expect(saved.suggestedFilename()).toBe(`arcwright-ray-bundle-2000-rays${suffix}.png`);
+      const png = await readFile(await saved.path());
+      expect(Array.from(png.subarray(0, 8))).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
+      expect(png.readUInt32BE(16)).toBe(canvasWidthPx * scale);
+      expect(png.length).toBeGreaterThan(20_000);
+    }
+    // Back at screen size afterwards.
+    expect(await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.width)).toBe(canvasWidthPx);
     await context.close();
   });
 
