@@ -7,6 +7,7 @@ import { parseBundle } from "@/lib/bench/parse-sketch";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
 import { PNG_SCALES, type PngScale } from "@/components/scene/png-scale";
+import { withRayViewProvenance } from "@/lib/bench/ray-view-png";
 import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
@@ -98,10 +99,19 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     const view = viewRef.current;
     if (view === undefined) return;
     const link = document.createElement("a");
-    link.href = view.toPngDataUrl(pngScale);
+    const rayCount = drawnBundle?.rayCount ?? 0;
+    const png = withRayViewProvenance(view.toPngDataUrl(pngScale), {
+      rayCount,
+      scale: pngScale,
+      sketchInputs: { rays: sketch.rays, bminM: sketch.bmin, bmaxM: sketch.bmax, layout: sketch.layout },
+      reproduceUrl: window.location.href,
+    });
+    const url = URL.createObjectURL(new Blob([png], { type: "image/png" }));
     const scaleSuffix = pngScale === 1 ? "" : `-${pngScale}x`;
-    link.download = `arcwright-ray-bundle-${bundle?.rayCount ?? 0}-rays${scaleSuffix}.png`;
+    link.href = url;
+    link.download = `arcwright-ray-bundle-${rayCount}-rays${scaleSuffix}.png`;
     link.click();
+    setTimeout(() => URL.revokeObjectURL(url), 10_000);
   };
 
   const text = sketchTextFields(sketch, fieldErrors, onFieldChange);

@@ -4,6 +4,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoSketch, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { criticalImpactParameter, einsteinRadius, MILLIARCSECOND_RAD } from "@/lib/physics";
 import { launchBrowser, newPage } from "./support/browser";
+import extractChunks from "png-chunks-extract";
+import { decode as decodeText } from "png-chunk-text";
+import { PNG_PROVENANCE_KEYWORD } from "@/lib/exports/png-text";
 
 let browser: Browser;
 
@@ -133,6 +136,15 @@ describe("lens bench", () => {
       expect(Array.from(png.subarray(0, 8))).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]);
       expect(png.readUInt32BE(16)).toBe(canvasWidthPx * scale);
       expect(png.length).toBeGreaterThan(20_000);
+      // Provenance travels in the file like every exported figure's: tEXt Source is the bench link
+      // that reproduces the view, and the iTXt record names the inputs (PNG 3rd ed. §11.3.4).
+      const chunks = extractChunks(png);
+      const texts = Object.fromEntries(chunks.filter((c) => c.name === "tEXt").map((c) => [decodeText(c.data).keyword, decodeText(c.data).text]));
+      expect(new URL(texts.Source).pathname).toBe("/bench");
+      expect(texts.Software).toMatch(/^Arcwright \d+\.\d+\.\d+$/);
+      const record = chunks.find((c) => c.name === "iTXt" && Buffer.from(c.data).toString("latin1").startsWith(PNG_PROVENANCE_KEYWORD));
+      const json = Buffer.from(record!.data).subarray(PNG_PROVENANCE_KEYWORD.length + 5).toString("utf8");
+      expect(JSON.parse(json).inputs).toMatchObject({ drawnRays: 2000, pngScale: scale });
     }
     // Back at screen size afterwards.
     expect(await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.width)).toBe(canvasWidthPx);

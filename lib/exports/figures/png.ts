@@ -1,26 +1,15 @@
 import "server-only";
 import type { Resvg as ResvgClass } from "@resvg/resvg-js";
 import { nodeRequire } from "./node-require";
-import extractChunks from "png-chunks-extract";
-import encodeChunks from "png-chunks-encode";
-import { encode as encodeText } from "png-chunk-text";
-import { provenanceLines, type Provenance } from "@/lib/exports/provenance";
+import { provenanceChunks, withPngChunks } from "@/lib/exports/png-text";
+import type { Provenance } from "@/lib/exports/provenance";
 import { BUNDLED_FONT_FAMILY, bundledSfntFiles } from "./bundled-font";
 import type { SvgFigure } from "./svg-document";
-
-/** Keyword of the iTXt chunk that holds the provenance as JSON (PNG 3rd ed. §11.3.3.4: 1–79 Latin-1 bytes). */
-export const PNG_PROVENANCE_KEYWORD = "arcwright:provenance";
 
 /** Kept in a value so the bundler does not try to place resvg's native addon. */
 export const RESVG_PACKAGE = ["@resvg", "resvg-js"].join("/");
 
 const METRES_PER_INCH = 0.0254;
-
-/** An iTXt chunk, uncompressed, no language tag (PNG 3rd ed. §11.3.3.4), for UTF-8 text. */
-function internationalText(keyword: string, text: string): { name: string; data: Uint8Array } {
-  const head = Buffer.from(`${keyword}\0\0\0\0\0`, "latin1");
-  return { name: "iTXt", data: Buffer.concat([head, Buffer.from(text, "utf8")]) };
-}
 
 /** pHYs: pixels per metre on both axes, unit metre (PNG 3rd ed. §11.3.5.3), so the DPI travels with the file. */
 function physicalSize(dpi: number): { name: string; data: Uint8Array } {
@@ -31,9 +20,6 @@ function physicalSize(dpi: number): { name: string; data: Uint8Array } {
   data.writeUInt8(1, 8);
   return { name: "pHYs", data };
 }
-
-/** Latin-1 only, as tEXt requires: other characters become "?" (the iTXt copy keeps them). */
-const latin1 = (text: string) => text.replace(/[^\x20-\x7E\xA0-\xFF\n]/g, "?");
 
 /**
  * Renders a figure to PNG with resvg at `widthPx` (height in proportion), drawing text in the bundled
@@ -48,16 +34,5 @@ export function figurePng(figure: SvgFigure, { widthPx, dpi, title, provenance }
     font: { loadSystemFonts: false, fontFiles: bundledSfntFiles(), defaultFontFamily: BUNDLED_FONT_FAMILY, sansSerifFamily: BUNDLED_FONT_FAMILY },
     background: undefined,
   }).render();
-  const chunks = extractChunks(rendered.asPng());
-  const metadata = [
-    physicalSize(dpi),
-    encodeText("Title", latin1(title)),
-    encodeText("Software", `${provenance.product} ${provenance.version}`),
-    encodeText("Creation Time", provenance.exportedAt),
-    encodeText("Source", provenance.reproduceUrl),
-    encodeText("Comment", latin1(provenanceLines(provenance).join("\n"))),
-    internationalText(PNG_PROVENANCE_KEYWORD, JSON.stringify(provenance)),
-  ];
-  const withoutPhys = chunks.filter((chunk) => chunk.name !== "pHYs");
-  return encodeChunks([withoutPhys[0], ...metadata, ...withoutPhys.slice(1)]);
+  return withPngChunks(rendered.asPng(), [physicalSize(dpi), ...provenanceChunks(title, provenance)], ["pHYs"]);
 }

@@ -8,7 +8,7 @@ import { AppError } from "@/lib/errors";
 import { benchPlotExport, BENCH_PLOT_HEIGHT_PX, BENCH_PLOT_WIDTH_PX } from "@/lib/exports/figures/bench-figures";
 import { figureResponse } from "@/lib/exports/figures/figure-response";
 import { figureFormatQuerySchema } from "@/lib/exports/figures/figure-format";
-import { PNG_PROVENANCE_KEYWORD } from "@/lib/exports/figures/png";
+import { PNG_PROVENANCE_KEYWORD } from "@/lib/exports/png-text";
 import packageJson from "@/package.json";
 
 const exportedAt = new Date("2031-02-03T04:05:06.000Z");
