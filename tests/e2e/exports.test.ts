@@ -42,5 +42,13 @@ describe("exports in the browser", () => {
     expect(xml).toContain('<VOTABLE version="1.4"');
     expect(xml).toContain('unit="mas" ucd="phys.angSize"');
     expect(xml).toContain(`${proposalPath}"/>`);
+
+    // The summary PDF with a chosen target's night chart besides the season chart (ISO 32000-1 §7.5.2: "%PDF-").
+    await page.getByLabel("Targets for night charts").selectOption({ label: "K-17 core" });
+    const [summaryPdf] = await Promise.all([page.waitForEvent("download"), page.getByRole("button", { name: "Download the technical summary (PDF)" }).click()]);
+    expect(summaryPdf.suggestedFilename()).toMatch(/\.pdf$/);
+    const pdf = await readFile((await summaryPdf.path())!);
+    expect(pdf.subarray(0, 5).toString("latin1")).toBe("%PDF-");
+    expect(pdf.length).toBeGreaterThan(50_000);
   });
 });

@@ -86,4 +86,24 @@ describe("figure and summary exports: the same role rules as the views", () => {
     expect(text).toContain("Constant GM_sun");
     await parser.destroy();
   });
+
+  it("technical summary PDF bundles the night charts of chosen targets, and names a bad choice", async () => {
+    const world = await createWorld();
+    const chosen = `figures=season,night&nightTargets=${world.targetId}&night=2031-06-15`;
+    const response = await summary(world.actors.viewer, world.proposalId, chosen);
+    expect(response.status).toBe(200);
+    const parser = new PDFParse({ data: new Uint8Array(await response.arrayBuffer()) });
+    const { text, total } = await parser.getText();
+    // More pages than the table + season + provenance summary (3): the night chart is in it too.
+    expect(total).toBeGreaterThan(3);
+    expect(text).toContain("Altitude and air mass of TB-ML-0001 through the night of 2031-06-15");
+    expect(text).toContain("Usable dark hours per night");
+    await parser.destroy();
+
+    const missingTargets = await summary(world.actors.viewer, world.proposalId, "figures=night");
+    expect(missingTargets.status).toBe(400);
+    expect(((await missingTargets.json()) as { error: { fields: Record<string, string[]> } }).error.fields.nightTargets).toEqual(["Choose at least one target for the night charts."]);
+    const badId = await summary(world.actors.viewer, world.proposalId, "figures=night&nightTargets=nope");
+    expect(badId.status).toBe(400);
+  });
 });

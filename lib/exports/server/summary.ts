@@ -9,14 +9,18 @@ import { parseOrThrow } from "@/lib/server/http";
 import { loadSkyFigure } from "./sky-figures";
 import { loadTargetTable } from "./target-table";
 
-const summaryFigures = ["season"] as const;
+const summaryFigures = ["season", "night"] as const;
+
+/** Night charts in one summary at most: a page each. */
+const MAX_NIGHT_CHARTS = 6;
 
 const summaryQuerySchema = z.object({
   figures: z
     .string()
     .optional()
     .transform((text, ctx) => {
-      const names = text === undefined || text.trim() === "" ? [...summaryFigures] : text.split(",").map((n) => n.trim());
+      // The season chart by default; night charts only when asked for, since they need chosen targets.
+      const names = text === undefined || text.trim() === "" ? ["season"] : text.split(",").map((n) => n.trim());
       const unknown = names.filter((n) => !(summaryFigures as readonly string[]).includes(n));
       if (unknown.length > 0) {
         ctx.addIssue({ code: "custom", message: `Unknown figure: ${unknown.join(", ")}. Known: ${summaryFigures.join(", ")}.` });
@@ -24,27 +28,48 @@ const summaryQuerySchema = z.object({
       }
       return names as (typeof summaryFigures)[number][];
     }),
+  /** Targets (ids, comma-separated) whose night charts the summary carries, with `figures=night`. */
+  nightTargets: z
+    .string()
+    .optional()
+    .transform((text) => (text === undefined || text.trim() === "" ? [] : text.split(",").map((id) => id.trim())))
+    .pipe(z.array(z.uuid({ error: "Name each target by its id." })).max(MAX_NIGHT_CHARTS, `At most ${MAX_NIGHT_CHARTS} night charts.`)),
+  /** The night (evening date) of those charts; the figure route applies its own default and checks. */
+  night: z.string().optional(),
   columns: z.string().optional(),
   digits: z.string().optional(),
+}).refine((q) => !q.figures.includes("night") || q.nightTargets.length > 0, {
+  path: ["nightTargets"],
+  message: "Choose at least one target for the night charts.",
 });
+
+/** The cycle's first night when the proposal has one, else tonight (UTC date). */
+function defaultNightOf(inputs: Record<string, unknown>): string {
+  const cycleStart = inputs.cycleStartDate;
+  return typeof cycleStart === "string" && cycleStart !== "" ? cycleStart : new Date().toISOString().slice(0, 10);
+}
 
 /**
  * The technical summary PDF of a proposal: the target table (chosen columns) and the chosen figures.
  * Each part is loaded through its own authorized data-access function, so the same role rules hold.
  */
 export async function technicalSummary(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<{ pdf: Uint8Array; title: string }> {
-  const { figures, columns, digits } = parseOrThrow(summaryQuerySchema, query, "summary");
+  const { figures, nightTargets, night, columns, digits } = parseOrThrow(summaryQuerySchema, query, "summary");
   const { table } = await loadTargetTable(params, { format: "json", columns, digits }, actor);
   const plots: PlotExport[] = [];
   for (const figure of figures) {
     // A proposal without targets has no season to chart; the summary still carries its (empty) table.
     if (figure === "season" && table.rows.length > 0) plots.push(await loadSkyFigure({ ...(params as object), figure }, {}, actor));
+    if (figure === "night") {
+      const date = night ?? defaultNightOf(table.provenance.inputs);
+      for (const targetId of nightTargets) plots.push(await loadSkyFigure({ ...(params as object), figure }, { targetId, date }, actor));
+    }
   }
   const proposalId = String(table.provenance.inputs.proposalId);
   const provenance = buildProvenance({
     subject: `Technical summary of the proposal "${table.title}"`,
     reproduceUrl: new URL(`/proposals/${proposalId}/summary`, serverEnv().NEXTAUTH_URL).toString(),
-    inputs: { ...table.provenance.inputs, figures: figures.join(",") },
+    inputs: { ...table.provenance.inputs, figures: figures.join(","), nightTargets: nightTargets.join(",") || null, night: night ?? null },
   });
   return { pdf: await technicalSummaryPdf(table, plots, provenance), title: table.title };
 }

@@ -53,6 +53,7 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
       resolutionMas: instrument.resolutionMas,
       cadenceHours: instrument.cadenceHours,
       campaignLengthDays: instrument.campaignLengthDays,
+      cycleStartDate: proposal.cycleStartDate ?? null,
       columns: columns.map((c) => c.column.key).join(","),
       digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${c.digits}`).join(","),
       rowCount: rows.length,

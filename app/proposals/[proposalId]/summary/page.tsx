@@ -6,6 +6,7 @@ import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import { provenanceLines } from "@/lib/exports/provenance";
 import { loadTargetTable } from "@/lib/exports/server/target-table";
 import { loadForPage } from "@/lib/server/page-access";
+import { SummaryPdfDownload } from "@/components/exports/summary-pdf-download";
 
 export const metadata: Metadata = { title: "Technical summary" };
 
@@ -36,13 +37,7 @@ export default async function SummaryPage({ params }: { params: Promise<{ propos
         <p className="text-sm text-dusk-dim">{table.provenance.inputs.site} · resolution {table.provenance.inputs.resolutionMas} mas · cadence {table.provenance.inputs.cadenceHours} h · campaign {table.provenance.inputs.campaignLengthDays} d</p>
       </header>
       <div className="summary-controls space-y-3">
-        <a
-          href={`/api/proposals/${proposalId}/exports/summary?figures=season`}
-          download
-          className="inline-block rounded-md bg-ember px-3 py-1.5 font-semibold text-void no-underline"
-        >
-          Download the technical summary (PDF)
-        </a>
+        <SummaryPdfDownload proposalId={proposalId} targets={table.rows.map((row) => ({ id: row.id, name: row.name }))} initialNightIso={today} />
         <TableDownloads proposalId={proposalId} />
         <SeasonFigureDownloads proposalId={proposalId} />
         {table.rows[0] ? <NightFigureDownloads proposalId={proposalId} targetId={table.rows[0].id} initialDateIso={today} /> : null}
