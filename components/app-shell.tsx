@@ -8,7 +8,7 @@ import { primaryNavigation } from "@/components/navigation";
 export function AppShell({ children }: { children: React.ReactNode }) {
   return (
     <div className="flex min-h-screen flex-col">
-      <header className="border-b border-void-edge bg-void-raised">
+      <header className="border-b border-void-edge bg-void-raised print:hidden">
         <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-8 gap-y-2 px-4 py-3">
           <Link href="/" className="flex items-center gap-2 text-lg font-semibold text-dusk no-underline">
             <ArcwrightMark className="h-7 w-7" />
@@ -26,7 +26,7 @@ export function AppShell({ children }: { children: React.ReactNode }) {
         </div>
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-8">{children}</main>
-      <footer className="border-t border-void-edge px-4 py-4 text-center text-sm text-dusk-dim">
+      <footer className="border-t border-void-edge px-4 py-4 text-center text-sm text-dusk-dim print:hidden">
         Arcwright · exact light paths for lensing proposals
       </footer>
     </div>
