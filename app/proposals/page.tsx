@@ -22,7 +22,7 @@ export default async function ProposalsPage() {
                 {p.title}
               </Link>
               <span className="text-sm text-dusk-dim">{p.cycle}</span>
-              <span className="text-sm text-dusk-dim">{p.targetCount} targets</span>
+              <span className="text-sm text-dusk-dim">{p.targetCount} {p.targetCount === 1 ? "target" : "targets"}</span>
               <span className="ml-auto rounded bg-void-raised px-2 py-0.5 text-sm">{roleLabels[p.role]}</span>
             </li>
           ))}
