@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
 import { ImportWizard } from "@/components/uploads/import-wizard";
 import { roleLabels } from "@/lib/workspace/roles";
 import { loadForPage } from "@/lib/server/page-access";
@@ -13,12 +13,7 @@ export default async function ImportPage({ params }: { params: Promise<{ proposa
   const proposal = await loadForPage(`/proposals/${proposalId}/import`, (actor) => getProposal({ proposalId }, actor));
   return (
     <div className="space-y-6">
-      <header className="space-y-2">
-        <p className="text-sm text-dusk-dim">
-          <Link href="/proposals">Proposals</Link> / <Link href={`/proposals/${proposal.id}`}>{proposal.title}</Link>
-        </p>
-        <h1 className="text-3xl font-bold">Import targets</h1>
-      </header>
+      <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Import targets" />
       {proposal.permissions.canEdit ? (
         <ImportWizard proposalId={proposal.id} />
       ) : (

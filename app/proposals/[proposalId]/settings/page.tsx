@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import Link from "next/link";
+import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
 import { ProposalSettingsForm } from "@/components/workspace/proposal-settings-form";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposal } from "@/lib/server/proposals";
@@ -12,16 +12,12 @@ export default async function ProposalSettingsPage({ params }: { params: Promise
   const proposal = await loadForPage(`/proposals/${proposalId}/settings`, (actor) => getProposal({ proposalId }, actor));
   return (
     <div className="space-y-6">
-      <header className="space-y-2">
-        <p className="text-sm text-dusk-dim">
-          <Link href="/proposals">Proposals</Link> / <Link href={`/proposals/${proposal.id}`}>{proposal.title}</Link>
-        </p>
-        <h1 className="text-3xl font-bold">Proposal settings</h1>
+      <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Proposal settings">
         <p className="max-w-3xl text-sm text-dusk-dim">
           The cycle dates span the season view and the dark-hours verdict; the site and airmass limit decide
           when a target counts as observable; the instrument defaults grade every target.
         </p>
-      </header>
+      </ProposalPageHeader>
       {proposal.permissions.canManage ? (
         <ProposalSettingsForm proposalId={proposal.id} initial={proposal} />
       ) : (

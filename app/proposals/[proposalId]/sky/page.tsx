@@ -1,5 +1,6 @@
-import type { Metadata } from "next";
 import Link from "next/link";
+import type { Metadata } from "next";
+import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
 import { ProposalSeason } from "@/components/sky/proposal-season";
 import { cycleNightCount, skySiteOf } from "@/lib/workspace/proposal-schema";
 import { loadForPage } from "@/lib/server/page-access";
@@ -14,17 +15,13 @@ export default async function ProposalSkyPage({ params }: { params: Promise<{ pr
   const { cycleStartDate: start, cycleEndDate: end, site, instrument } = proposal;
   return (
     <div className="space-y-6">
-      <header className="space-y-2">
-        <p className="text-sm text-dusk-dim">
-          <Link href="/proposals">Proposals</Link> / <Link href={`/proposals/${proposal.id}`}>{proposal.title}</Link>
-        </p>
-        <h1 className="text-3xl font-bold">Season view</h1>
+      <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Season view">
         <p className="max-w-3xl text-sm text-dusk-dim">
           From {site.name} ({site.latitudeDeg}°, {site.longitudeDeg}° east, {site.elevationM} m; horizon {site.horizonLimitDeg}°), air mass ≤{" "}
           {instrument.airmassLimit}: the hours each night in astronomical darkness with the target above the limit and at least the
           safe elongation from the Sun (closer nights count as unusable).
         </p>
-      </header>
+      </ProposalPageHeader>
       {start === null || end === null ? (
         <p role="alert" className="text-ember">
           This proposal has no cycle dates yet.{" "}
