@@ -29,7 +29,7 @@ const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull(
 
 export const siteRole = pgEnum("site_role", ["admin", "member"]);
 export const proposalRole = pgEnum("proposal_role", ["pi", "coi", "viewer"]);
-export const authTokenPurpose = pgEnum("auth_token_purpose", ["password_reset", "sign_in_link"]);
+export const authTokenPurpose = pgEnum("auth_token_purpose", ["password_reset", "sign_in_link", "account_confirmation"]);
 export const lensModel = pgEnum("lens_model", ["point", "sis"]);
 export const targetStatus = pgEnum("target_status", ["candidate", "accepted", "scheduled", "observed", "dropped"]);
 export const verdict = pgEnum("feasibility_verdict", ["feasible", "marginal", "infeasible", "unknown"]);
@@ -44,6 +44,12 @@ export const users = pgTable(
     /** bcrypt hash; null for an account that has only ever signed in by e-mailed link. */
     passwordHash: text("password_hash"),
     siteRole: siteRole("site_role").notNull().default("member"),
+    /**
+     * When the owner of the address proved they read its mail (followed a link sent there). Null for a
+     * sign-up that was not confirmed yet, which cannot sign in with its password. Accounts made any
+     * other way (invitation links, the seed, an admin) count as confirmed when created.
+     */
+    emailConfirmedAt: timestamp("email_confirmed_at", { withTimezone: true }).defaultNow(),
     createdAt: createdAt(),
   },
   (t) => [uniqueIndex("users_email_key").on(t.email), check("users_email_lower", sql`${t.email} = lower(${t.email})`)],
@@ -52,8 +58,8 @@ export const users = pgTable(
 export type User = typeof users.$inferSelect;
 
 /**
- * Single-use secrets sent by e-mail (password reset, sign-in link). Only the SHA-256 of the token is
- * kept, so a leaked database cannot be replayed as links.
+ * Single-use secrets sent by e-mail (password reset, sign-in link, confirmation of a new account).
+ * Only the SHA-256 of the token is kept, so a leaked database cannot be replayed as links.
  */
 export const authTokens = pgTable(
   "auth_tokens",

@@ -32,7 +32,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl?: string }) {
           void password.run(async () => {
             const result = await signIn("password", { email, password: secret, redirect: false });
             if (!result || result.error) {
-              throw new Error(result?.error && result.error !== "CredentialsSignin" ? result.error : "Wrong e-mail or password.");
+              throw new Error(result?.error && result.error !== "CredentialsSignin" ? result.error : "Wrong e-mail or password, or the account is waiting for its e-mailed confirmation.");
             }
             await mutate("/api/auth/session");
             router.push(next);
@@ -78,7 +78,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl?: string }) {
 }
 
 /** The page a sign-in link opens: one click spends the link (mail scanners that prefetch do not). */
-export function LinkSignIn({ token }: { token: string }) {
+export function LinkSignIn({ token, callbackUrl }: { token: string; callbackUrl?: string }) {
   const router = useRouter();
   const { message, isBusy, run } = useFormSubmit();
   return (
@@ -92,7 +92,7 @@ export function LinkSignIn({ token }: { token: string }) {
             const result = await signIn("link", { token, redirect: false });
             if (!result || result.error) throw new Error(result?.error && result.error !== "CredentialsSignin" ? result.error : "This link has expired or was already used.");
             await mutate("/api/auth/session");
-            router.push("/proposals");
+            router.push(safeCallback(callbackUrl));
             router.refresh();
           })
         }

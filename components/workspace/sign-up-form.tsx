@@ -1,16 +1,28 @@
 "use client";
 
-import { useRouter } from "next/navigation";
-import { signIn } from "next-auth/react";
-import { mutate } from "swr";
+import { useState } from "react";
 import { apiFetch } from "@/components/workspace/api-client";
 import { Field, FormError, buttonClass } from "@/components/workspace/field";
 import { safeCallback } from "@/components/workspace/sign-in-form";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
 
+/**
+ * Sign-up asks for the account and then for the e-mailed confirmation: the link in that message signs
+ * the new member in and goes on to `callbackUrl` (an invitation, for instance).
+ */
 export function SignUpForm({ callbackUrl, email }: { callbackUrl?: string; email?: string }) {
-  const router = useRouter();
   const { fields, message, isBusy, run } = useFormSubmit();
+  const [sent, setSent] = useState<{ email: string; message: string } | null>(null);
+  if (sent) {
+    return (
+      <div role="status" className="max-w-md space-y-3">
+        <p className="text-glint">{sent.message}</p>
+        <p className="text-sm text-dusk-dim">
+          It went to <strong>{sent.email}</strong>. The link works once, within a day; until then the account cannot sign in with its password.
+        </p>
+      </div>
+    );
+  }
   return (
     <form
       aria-label="Create an account"
@@ -19,18 +31,22 @@ export function SignUpForm({ callbackUrl, email }: { callbackUrl?: string; email
         event.preventDefault();
         const values = formValues(event.currentTarget);
         void run(async () => {
-          await apiFetch("/api/account/sign-up", { method: "POST", body: values });
-          const result = await signIn("password", { email: values.email, password: values.password, redirect: false });
-          if (!result || result.error) throw new Error("The account was created, but signing in failed; try the sign-in page.");
-          await mutate("/api/auth/session");
-          router.push(safeCallback(callbackUrl));
-          router.refresh();
+          const answer = await apiFetch<{ message: string }>("/api/account/sign-up", { method: "POST", body: { ...values, callbackUrl: safeCallback(callbackUrl) } });
+          setSent({ email: values.email, message: answer.message });
         });
       }}
     >
       <Field label="Name" name="name" autoComplete="name" required errors={fields.name} />
       <Field label="E-mail" name="email" type="email" autoComplete="email" required defaultValue={email} errors={fields.email} />
-      <Field label="Password" name="password" type="password" autoComplete="new-password" required hint="At least 10 characters." errors={fields.password} />
+      <Field
+        label="Password"
+        name="password"
+        type="password"
+        autoComplete="new-password"
+        required
+        hint="At least 10 characters; not a common password, nor one made of your name or address."
+        errors={fields.password}
+      />
       <FormError message={message} />
       <button type="submit" className={buttonClass} disabled={isBusy}>
         Create account

@@ -12,7 +12,13 @@ export const accountSchema = z.object({
   password: passwordSchema,
 });
 
-export const signUpSchema = accountSchema;
+/** Where to go after the e-mailed confirmation link: a path on this site only, never another origin. */
+const callbackPathSchema = z
+  .string()
+  .max(500)
+  .regex(/^\/(?![\/\\])/, "Give a path on this site, starting with a single /.");
+
+export const signUpSchema = accountSchema.extend({ callbackUrl: callbackPathSchema.optional() });
 /** Sign-in checks only the shape: a wrong length must cost as much as a wrong password. */
 export const signInSchema = accountSchema.pick({ email: true }).extend({ password: z.string().min(1, "Enter your password.").max(200) });
 export const emailOnlySchema = accountSchema.pick({ email: true });

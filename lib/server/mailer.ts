@@ -41,6 +41,26 @@ export async function sendMail(mail: OutgoingMail): Promise<void> {
   }
 }
 
+const deliveries = new Set<Promise<void>>();
+
+/**
+ * Hands a message to the mail server without making the request wait. Account e-mails (links, sign-up
+ * confirmations) go this way so that the answer takes as long whether or not a message was sent: its
+ * timing cannot tell whether an address has an account. A failed delivery is logged; the person asks
+ * again.
+ */
+export function sendMailInBackground(mail: OutgoingMail): void {
+  const delivery: Promise<void> = sendMail(mail)
+    .catch((error) => console.error(`background mail "${mail.subject}" failed:`, error))
+    .finally(() => deliveries.delete(delivery));
+  deliveries.add(delivery);
+}
+
+/** Resolves once every message handed over in the background was delivered or failed. */
+export async function backgroundMailSettled(): Promise<void> {
+  await Promise.all([...deliveries]);
+}
+
 /** An absolute link into the app, for e-mails. */
 export function appLink(path: string): string {
   return new URL(path, serverEnv().NEXTAUTH_URL).toString();

@@ -16,10 +16,23 @@ const run = Date.now().toString(36);
 const piEmail = `pi-${run}@example.org`;
 const colleagueEmail = `colleague-${run}@example.org`;
 
+/** Fills the sign-up form, then follows the confirmation link from the local mailbox, as a new member does. */
 async function signUp(page: Page, name: string, password: string) {
+  const email = await page.getByLabel("E-mail").inputValue();
   await page.getByLabel("Name").fill(name);
   await page.getByLabel("Password").fill(password);
   await page.getByRole("button", { name: "Create account" }).click();
+  await page.getByRole("status").getByText("Check your e-mail").waitFor();
+  // The message leaves in the background; the mailbox shows it a moment later.
+  const mail = page.getByTestId("mail").filter({ hasText: email }).filter({ hasText: "Confirm your Arcwright account" });
+  await expect
+    .poll(async () => {
+      await page.goto("/dev/mailbox");
+      return mail.count();
+    })
+    .toBe(1);
+  await mail.getByRole("link", { name: /\/sign-in\/link\?token=/ }).click();
+  await page.getByRole("button", { name: "Sign in to Arcwright" }).click();
 }
 
 describe("team workspace in the browser", () => {
@@ -127,7 +140,7 @@ describe("team workspace in the browser", () => {
     await form.getByLabel("E-mail").fill("tomas.brenneke@tessellate.example");
     await form.getByLabel("Password").fill("not-the-password");
     await form.getByRole("button", { name: "Sign in" }).click();
-    await expect(form.getByRole("alert").textContent()).resolves.toBe("Wrong e-mail or password.");
+    await expect(form.getByRole("alert").textContent()).resolves.toBe("Wrong e-mail or password, or the account is waiting for its e-mailed confirmation.");
     await form.getByLabel("Password").fill("brenneke-demo-arcs");
     await form.getByRole("button", { name: "Sign in" }).click();
     await page.waitForURL("**/proposals");

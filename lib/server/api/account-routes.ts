@@ -15,8 +15,8 @@ const sameAnswerEitherWay = () =>
 export const accountRoutes = {
   /** POST /api/account/sign-up */
   signUp: endpoint(signedOut, async ({ request }) => {
-    const actor = await signUp(await readJson(request), clientAddress(request));
-    return Response.json({ account: { email: actor.email, name: actor.name } }, { status: 201 });
+    await signUp(await readJson(request), clientAddress(request));
+    return Response.json({ ok: true, message: "Check your e-mail: the message we sent finishes creating your account." }, { status: 202 });
   }),
   /** POST /api/account/reset-request */
   requestReset: endpoint(signedOut, async ({ request }) => {
