@@ -5,14 +5,10 @@ import { useRouter } from "next/navigation";
 import { signIn } from "next-auth/react";
 import { mutate } from "swr";
 import { useState } from "react";
+import { safeCallback } from "@/lib/auth/callback-path";
 import { apiFetch } from "@/components/workspace/api-client";
 import { Field, FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
-
-/** Only same-site paths are followed after signing in, never an absolute URL from the query string. */
-export function safeCallback(callbackUrl: string | undefined): string {
-  return callbackUrl && callbackUrl.startsWith("/") && !callbackUrl.startsWith("//") ? callbackUrl : "/proposals";
-}
 
 export function SignInForm({ callbackUrl }: { callbackUrl?: string }) {
   const router = useRouter();

@@ -3,7 +3,7 @@
 import { useState } from "react";
 import { apiFetch } from "@/components/workspace/api-client";
 import { Field, FormError, buttonClass } from "@/components/workspace/field";
-import { safeCallback } from "@/components/workspace/sign-in-form";
+import { safeCallback } from "@/lib/auth/callback-path";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
 
 /**

@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { sameSitePath } from "@/lib/auth/callback-path";
 import { emailSchema, tokenSchema } from "@/lib/workspace/member-schema";
 
 export const passwordSchema = z
@@ -16,7 +17,7 @@ export const accountSchema = z.object({
 const callbackPathSchema = z
   .string()
   .max(500)
-  .regex(/^\/(?![\/\\])/, "Give a path on this site, starting with a single /.");
+  .refine((path) => sameSitePath(path) !== null, "Give a path on this site, starting with a single /.");
 
 export const signUpSchema = accountSchema.extend({ callbackUrl: callbackPathSchema.optional() });
 /** Sign-in checks only the shape: a wrong length must cost as much as a wrong password. */
