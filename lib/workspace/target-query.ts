@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { storedText } from "@/lib/workspace/stored-text";
 import { lensModels } from "@/lib/workspace/target-schema";
 import { targetStatuses } from "@/lib/workspace/status";
 import { verdicts } from "@/lib/workspace/verdicts";
@@ -27,10 +28,10 @@ export const targetListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(maxTargetPageSize, `At most ${maxTargetPageSize} rows per page.`).default(50),
   sort: z.enum(targetSortColumns).default("priority"),
   direction: z.enum(["asc", "desc"]).default("asc"),
-  q: z.string().trim().max(100).optional(),
+  q: storedText().trim().max(100).optional(),
   status: z.enum(targetStatuses).optional(),
   lensModel: z.enum(lensModels).optional(),
-  tag: z.string().trim().max(32).optional(),
+  tag: storedText().trim().max(32).optional(),
   resolutionVerdict: z.enum(verdicts).optional(),
 });
 

@@ -1,0 +1,47 @@
+import { describe, expect, it } from "vitest";
+import { accountSchema } from "@/lib/auth/schemas";
+import { accountListQuerySchema } from "@/lib/workspace/admin-schema";
+import { createNoteSchema } from "@/lib/workspace/note-schema";
+import { createProposalSchema } from "@/lib/workspace/proposal-schema";
+import { createTargetSchema } from "@/lib/workspace/target-schema";
+import { targetListQuerySchema } from "@/lib/workspace/target-query";
+
+const nul = "\u0000";
+const proposal = {
+  title: "Arcs",
+  cycle: "2033A",
+  site: { name: "Mesa Lucerna Station", latitudeDeg: -31.27, longitudeDeg: -68.93, elevationM: 2480, horizonLimitDeg: 20 },
+  instrument: { resolutionMas: 50, cadenceHours: 12, campaignLengthDays: 90 },
+};
+const target = { name: "CBW-24-0117", ra: "17 52 31.8", dec: "-29 41 07", lensModel: "point", lensMassSolar: 0.32, lensDistancePc: 5200, sourceDistancePc: 8100, sourceOffsetThetaE: 0.12, priority: 1 };
+
+/** The path of every issue, joined with dots (the form's field names). */
+function refusedFields(result: { success: boolean; error?: { issues: { path: PropertyKey[] }[] } }): string[] {
+  return result.success ? [] : result.error!.issues.map((issue) => issue.path.join("."));
+}
+
+// PostgreSQL's text type cannot hold U+0000 (PostgreSQL manual, "Character Types"): the schema
+// refuses it by field, so the database never sees it and the caller gets a 400, not a 500.
+describe("text fields refuse the NUL character before it reaches the database", () => {
+  it("in a proposal's title, cycle, abstract and site name", () => {
+    expect(refusedFields(createProposalSchema.safeParse(proposal))).toEqual([]);
+    const hostile = { ...proposal, title: `A${nul}`, cycle: `B${nul}`, abstract: `C${nul}`, site: { ...proposal.site, name: `D${nul}` } };
+    expect(refusedFields(createProposalSchema.safeParse(hostile)).sort()).toEqual(["abstract", "cycle", "site.name", "title"]);
+  });
+
+  it("in a target's name, a note's body and an account's name", () => {
+    expect(refusedFields(createTargetSchema.safeParse({ ...target, name: `x${nul}y` }))).toEqual(["name"]);
+    expect(refusedFields(createNoteSchema.safeParse({ body: `x${nul}y` }))).toEqual(["body"]);
+    expect(refusedFields(accountSchema.safeParse({ email: "a@example.org", name: `x${nul}`, password: "long-enough-password" }))).toEqual(["name"]);
+  });
+
+  it("in the searches of the target table and the accounts list", () => {
+    expect(refusedFields(targetListQuerySchema.safeParse({ q: `x${nul}`, tag: `y${nul}` })).sort()).toEqual(["q", "tag"]);
+    expect(refusedFields(accountListQuerySchema.safeParse({ q: `x${nul}` }))).toEqual(["q"]);
+  });
+
+  it("keeps every other character, SQL-looking text included", () => {
+    const name = "'); DROP TABLE targets; -- \u202E \t";
+    expect(createTargetSchema.parse({ ...target, name }).name).toBe(name.trim());
+  });
+});
