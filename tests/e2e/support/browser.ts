@@ -1,4 +1,4 @@
-import { chromium, type Browser, type BrowserContext, type Page } from "playwright-core";
+import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from "playwright-core";
 
 /** The built app that `npm test` serves for these tests. */
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000";
@@ -24,9 +24,12 @@ export function launchBrowser(): Promise<Browser> {
   });
 }
 
-/** A fresh context (own cookies) and page; console errors are collected for assertions. */
-export async function newPage(browser: Browser): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
-  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 900 } });
+/**
+ * A fresh context (own cookies) and page; console errors are collected for assertions. `options` add
+ * to or override the defaults (e.g. `bypassCSP` to test what the markup alone allows).
+ */
+export async function newPage(browser: Browser, options: BrowserContextOptions = {}): Promise<{ context: BrowserContext; page: Page; consoleErrors: string[] }> {
+  const context = await browser.newContext({ baseURL: baseUrl, viewport: { width: 1280, height: 900 }, ...options });
   const page = await context.newPage();
   const consoleErrors: string[] = [];
   page.on("console", (message) => {
