@@ -1,3 +1,5 @@
+import { AppError } from "@/lib/errors";
+
 /**
  * Cross-site request refusal for state-changing requests (OWASP CSRF Prevention Cheat Sheet:
  * "verifying origin with standard headers" and Fetch Metadata). Browsers send `Origin` on every
@@ -6,8 +8,11 @@
  * service's signed callbacks) and cannot carry a victim's cookies by accident, so it is let through.
  */
 
-/** Methods that only read (RFC 9110 §9.2.1 safe methods). */
-const safeMethods = new Set(["GET", "HEAD", "OPTIONS"]);
+/**
+ * Methods that only read (RFC 9110 §9.2.1 safe methods). OPTIONS is safe too, but a browser sends it
+ * only as another origin's CORS preflight, which this app never grants: it is refused like a write.
+ */
+const safeMethods = new Set(["GET", "HEAD"]);
 
 export interface RequestFacts {
   method: string;
@@ -36,4 +41,15 @@ export function crossSiteRefusal(request: RequestFacts): string | null {
     return `requests that change data must come from this site; this one was ${request.secFetchSite}.`;
   }
   return null;
+}
+
+/** The refusal of a fetch `Request` as the product's error (403 `forbidden:origin`), or null. */
+export function crossSiteError(request: Request): AppError | null {
+  const refusal = crossSiteRefusal({
+    method: request.method,
+    host: request.headers.get("x-forwarded-host") ?? request.headers.get("host") ?? new URL(request.url).host,
+    origin: request.headers.get("origin"),
+    secFetchSite: request.headers.get("sec-fetch-site"),
+  });
+  return refusal === null ? null : new AppError("forbidden:origin", `Refused: ${refusal}`);
 }

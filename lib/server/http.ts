@@ -1,6 +1,7 @@
 import "server-only";
 import { z } from "zod";
 import { AppError, errorBody, statusForCode, type FieldErrors } from "@/lib/errors";
+import { crossSiteError } from "@/lib/security/same-origin";
 
 /** Field errors from a zod failure, keyed by dotted path ("site.latitudeDeg"). */
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
@@ -55,10 +56,15 @@ export function isDatabaseUnavailable(error: unknown): boolean {
   return false;
 }
 
-/** Wraps a route handler so every failure becomes the documented error shape. */
+/**
+ * Wraps a route handler so every failure becomes the documented error shape, and a cross-site request
+ * that would change data is refused (403 `forbidden:origin`) before the handler runs.
+ */
 export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
   return async (...args: A): Promise<Response> => {
     try {
+      const refusal = args[0] instanceof Request ? crossSiteError(args[0]) : null;
+      if (refusal) throw refusal;
       return await fn(...args);
     } catch (error) {
       return errorResponse(error);

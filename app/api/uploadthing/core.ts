@@ -5,6 +5,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { GetActor } from "@/lib/server/actor";
 import { authorizeAttachmentUpload, recordAttachmentUpload } from "@/lib/server/attachments";
+import { crossSiteError } from "@/lib/security/same-origin";
 import { errorResponse } from "@/lib/server/http";
 import { authorizeTargetListUpload, recordTargetListUpload } from "@/lib/server/imports";
 import { sessionActor } from "@/lib/server/session";
@@ -52,12 +53,14 @@ export const uploadRouter = makeUploadRouter(sessionActor);
 export type UploadRouter = typeof uploadRouter;
 
 /**
- * A signed-out upload request answers 401 in the product's error shape before the SDK runs (the SDK
- * has no 401). The service's signed callbacks carry no session and pass through to the SDK, which
+ * A cross-site request answers 403 and a signed-out upload request 401, in the product's error shape,
+ * before the SDK runs (the SDK has no 401). The service's signed callbacks carry no session and pass through to the SDK, which
  * verifies their signature.
  */
 export function withSignInCheck<R extends Request>(getActor: GetActor, handler: (request: R) => Promise<Response>) {
   return async (request: R): Promise<Response> => {
+    const refusal = crossSiteError(request);
+    if (refusal) return errorResponse(refusal);
     if (new URL(request.url).searchParams.get("actionType") === "upload" && !(await getActor(request))) {
       return errorResponse(new AppError("unauthorized:session", "Sign in to continue."));
     }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { crossSiteRefusal } from "@/lib/security/same-origin";
+import { crossSiteError, crossSiteRefusal } from "@/lib/security/same-origin";
 
 // Expected answers follow the OWASP CSRF Prevention Cheat Sheet (standard-header origin check and
 // Fetch Metadata) and RFC 9110 §9.2.1 (safe methods change nothing).
@@ -7,10 +7,15 @@ const post = (facts: Partial<Parameters<typeof crossSiteRefusal>[0]>) =>
   crossSiteRefusal({ method: "POST", host: "arcwright.example:3000", origin: null, secFetchSite: null, ...facts });
 
 describe("cross-site refusal of state-changing requests", () => {
-  it("lets safe methods through whatever their origin", () => {
-    for (const method of ["GET", "HEAD", "OPTIONS", "get"]) {
+  it("lets reads through whatever their origin", () => {
+    for (const method of ["GET", "HEAD", "get"]) {
       expect(crossSiteRefusal({ method, host: "a.example", origin: "https://evil.example", secFetchSite: "cross-site" })).toBeNull();
     }
+  });
+
+  it("refuses another origin's CORS preflight (the app grants no cross-origin access)", () => {
+    expect(crossSiteRefusal({ method: "OPTIONS", host: "a.example", origin: "https://evil.example", secFetchSite: "cross-site" })).not.toBeNull();
+    expect(crossSiteRefusal({ method: "OPTIONS", host: "a.example", origin: null, secFetchSite: null })).toBeNull();
   });
 
   it("accepts a same-origin Origin, host compared without case", () => {
@@ -39,5 +44,13 @@ describe("cross-site refusal of state-changing requests", () => {
 
   it("lets through a request with neither header (not sent by a browser page, so no ambient cookies by accident)", () => {
     expect(post({})).toBeNull();
+  });
+});
+
+describe("crossSiteError on a fetch Request", () => {
+  it("answers a foreign Origin with forbidden:origin and lets the app's own origin through", () => {
+    const foreign = crossSiteError(new Request("http://arcwright.example/api/proposals", { method: "POST", headers: { origin: "https://elsewhere.example", host: "arcwright.example" } }));
+    expect(foreign?.code).toBe("forbidden:origin");
+    expect(crossSiteError(new Request("http://arcwright.example/api/proposals", { method: "POST", headers: { origin: "http://arcwright.example" } }))).toBeNull();
   });
 });
