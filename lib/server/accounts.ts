@@ -10,7 +10,7 @@ import { AppError } from "@/lib/errors";
 import type { Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
 import { appLink, linkMail, sendMailInBackground } from "@/lib/server/mailer";
-import { consumeAttempt } from "@/lib/server/rate-limit";
+import { consumeAttempt, forgiveAttempts } from "@/lib/server/rate-limit";
 
 /** Sign-in attempts allowed per account and per client address in each 15-minute window. */
 export const signInLimits = { perAccount: 8, perAddress: 40, windowSeconds: 15 * 60 } as const;
@@ -79,10 +79,13 @@ export async function authenticateWithPassword(input: unknown, clientAddress: st
   const { email, password } = parseOrThrow(signInSchema, input, "sign-in");
   const window = signInLimits.windowSeconds;
   await consumeAttempt({ bucket: `sign-in:address:${clientAddress}`, limit: signInLimits.perAddress, windowSeconds: window }, "sign-in");
-  await consumeAttempt({ bucket: `sign-in:account:${email}`, limit: signInLimits.perAccount, windowSeconds: window }, "sign-in");
+  const accountBucket = `sign-in:account:${email}`;
+  await consumeAttempt({ bucket: accountBucket, limit: signInLimits.perAccount, windowSeconds: window }, "sign-in");
   const user = await findUserByEmail(email);
   const matches = await verifyPassword(password, user?.passwordHash ?? null);
-  return user && matches && user.emailConfirmedAt !== null ? actorOf(user) : null;
+  if (!user || !matches || user.emailConfirmedAt === null) return null;
+  await forgiveAttempts(accountBucket);
+  return actorOf(user);
 }
 
 async function issueToken(userId: string, purpose: keyof typeof linkLifetimeMinutes): Promise<string> {

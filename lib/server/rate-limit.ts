@@ -40,3 +40,12 @@ export async function consumeAttempt({ bucket, limit, windowSeconds }: RateLimit
     });
   }
 }
+
+/**
+ * Clears a bucket's counts, for a limit that guards against guessing: after a successful sign-in the
+ * account's failed attempts no longer count (common practice, so a team signing in all evening is
+ * never locked out by its own successes).
+ */
+export async function forgiveAttempts(bucket: string): Promise<void> {
+  await dbClient().db.delete(rateLimitCounters).where(eq(rateLimitCounters.bucket, bucket));
+}

@@ -173,6 +173,18 @@ describe("accounts", () => {
     await expect(authenticateWithPassword({ email, password: "long-enough-pass" }, address())).rejects.toMatchObject({ code: "rate_limited:sign-in" });
   });
 
+  it("a successful sign-in clears the account's count, so members who sign in often are never locked out", async () => {
+    const email = freshEmail("frequent");
+    await signUpConfirmed(email, "Frequent Visitor", "long-enough-pass");
+    for (let i = 0; i < signInLimits.perAccount + 4; i++) {
+      await expect(authenticateWithPassword({ email, password: "long-enough-pass" }, address())).resolves.not.toBeNull();
+    }
+    for (let i = 0; i < signInLimits.perAccount; i++) {
+      await expect(authenticateWithPassword({ email, password: "nope" }, address())).resolves.toBeNull();
+    }
+    await expect(authenticateWithPassword({ email, password: "nope" }, address())).rejects.toMatchObject({ code: "rate_limited:sign-in" });
+  });
+
   it("limits sign-in attempts per address across accounts", async () => {
     const from = address();
     for (let i = 0; i < signInLimits.perAddress; i++) {
