@@ -1,6 +1,7 @@
 import "server-only";
 import type { NextAuthOptions, User } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 import type { Actor } from "@/lib/server/actor";
 import { authenticateWithLink, authenticateWithPassword } from "@/lib/server/accounts";
@@ -31,6 +32,9 @@ async function authorizeWith(run: () => Promise<Actor | null>): Promise<User | n
  */
 export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
+  // Cookies are httpOnly and SameSite=Lax (next-auth's defaults); behind HTTPS they are also Secure
+  // and carry the __Secure- / __Host- prefixes. Said here rather than left to the default.
+  useSecureCookies: serverEnv().NEXTAUTH_URL.startsWith("https://"),
   pages: { signIn: "/sign-in", error: "/sign-in" },
   providers: [
     CredentialsProvider({
