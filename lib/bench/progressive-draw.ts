@@ -1,10 +1,11 @@
 /**
- * Splits drawing a bundle across animation frames. Under software WebGL (headless Chromium), the
- * compositor reads the canvas back on the main thread at every commit and so waits there for all the
- * frame's GPU work: drawing a whole 5,000-ray bundle in one frame blocked the page for over a second.
- * Drawn a bounded number of segments per frame onto the preserved drawing buffer, no frame waits long.
- * Each frame takes the same share of every fate's group, so a partly drawn bundle (or the first frame
- * alone, redrawn while the view is dragged) shows every fate spread over the whole bundle.
+ * Splits drawing a bundle across animation frames. Under software WebGL (headless Chromium), a WebGL
+ * canvas is read back at every frame shown, on the thread that draws it (the view's worker), which so
+ * waits there for all the frame's GPU work: drawn whole in one frame, a 5,000-ray bundle held that
+ * thread for over a second, and the view could not follow a drag meanwhile. Drawn a bounded number of
+ * segments per frame onto the preserved drawing buffer, no frame waits long. Each frame takes the same
+ * share of every fate's group, so a partly drawn bundle (or the first frame alone, redrawn while the
+ * view is dragged) shows every fate spread over the whole bundle.
  */
 
 /** A range of index entries drawn with one material, as three.js's BufferGeometry groups take it. */
