@@ -32,7 +32,7 @@ export const loadProposal = {
   instrument: { resolutionMas: 50, cadenceHours: 6, campaignLengthDays: 120 },
 };
 
-export const loadTargetCount = 1000;
+const loadTargetCount = 1000;
 /** One target in this many is a galaxy-scale (isothermal) lens; the rest are stellar lenses in the bulge. */
 const galaxyEvery = 5;
 

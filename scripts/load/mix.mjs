@@ -2,7 +2,7 @@
 // so every connection carries one member's session and every answer is counted under its kind.
 import autocannon from "autocannon";
 
-/** The table's page size (components/workspace/target-table-state.ts) and the target count seeded. */
+/** The target table's page size (components/workspace/target-table-state.ts). */
 const pageSizeRows = 50;
 /** Computed columns the table sorts by on the server (lib/workspace/target-query.ts). */
 const computedSortColumns = ["einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays"];
@@ -62,7 +62,7 @@ export function requestKinds({ proposalId, targetIds }) {
 }
 
 /** Splits `total` connections over the kinds by share, at least one each. */
-export function connectionsByKind(kinds, total) {
+function connectionsByKind(kinds, total) {
   if (total < kinds.length) throw new Error(`--connections must be at least ${kinds.length} (one per request kind)`);
   const counts = kinds.map((kind) => Math.max(1, Math.round(total * kind.share)));
   counts[0] += total - counts.reduce((sum, n) => sum + n, 0);
@@ -76,7 +76,7 @@ function dealConnections(count, members) {
 }
 
 /** Headers every request of a member carries: its session and the app's own origin, as a browser page's. */
-export const memberHeaders = (appUrl, member, isWrite) => ({
+const memberHeaders = (appUrl, member, isWrite) => ({
   Origin: appUrl,
   Cookie: member.cookie,
   Accept: "application/json",

@@ -33,7 +33,7 @@ export class Recorder {
 }
 
 /** Nearest-rank percentile of sorted values (the common-practice definition: no interpolation). */
-export function percentile(sorted, p) {
+function percentile(sorted, p) {
   if (sorted.length === 0) return NaN;
   const rank = Math.ceil((p / 100) * sorted.length);
   return sorted[Math.min(sorted.length, Math.max(1, rank)) - 1];
