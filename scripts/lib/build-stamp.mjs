@@ -4,7 +4,7 @@ import { existsSync, readFileSync, readdirSync, statSync, writeFileSync } from "
 import { join, relative } from "node:path";
 
 const sourceRoots = ["app", "components", "lib", "workers", "db", "public"];
-const sourceFiles = ["package-lock.json", "next.config.mjs", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json"];
+const sourceFiles = ["package-lock.json", "next.config.mjs", "proxy.ts", "tailwind.config.ts", "postcss.config.mjs", "tsconfig.json"];
 
 function walk(dir, out) {
   if (!existsSync(dir)) return;
