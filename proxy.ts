@@ -2,7 +2,7 @@ import { NextResponse, type NextRequest } from "next/server";
 import { contentSecurityPolicy, originOf } from "@/lib/security/content-security-policy";
 
 /**
- * Runs before every page and route handler: gives each page a fresh script nonce and the
+ * Runs before every page: gives each page a fresh script nonce and the
  * Content-Security-Policy that names it. Next reads the policy from the request headers and puts the
  * nonce on its own scripts. (Cross-site writes are refused in the route handlers themselves, see
  * lib/security/same-origin.ts: a refusal answered from here leaves Next an aborted request body when
@@ -34,6 +34,7 @@ function uploadFileOrigins(): string[] {
 }
 
 export const config = {
-  // Everything but the build's static files, which carry no data and need no nonce.
-  matcher: [{ source: "/((?!_next/static|_next/image|favicon.ico|icon.svg).*)" }],
+  // Pages only: the build's static files carry no script to allow, and the API answers JSON, files and
+  // redirects (never HTML), so neither needs a nonce; skipping them keeps the proxy off the API's path.
+  matcher: [{ source: "/((?!api/|_next/static|_next/image|favicon.ico|icon.svg).*)" }],
 };

@@ -13,13 +13,17 @@ const maxBodyBytes = 256 * 1024;
 
 /** The body as unknown JSON; the data-access function validates it with its schema. */
 export async function readJson(request: Request): Promise<unknown> {
-  const text = await request.text();
+  // A client that hangs up mid-body (ECONNRESET on the request stream) is not a database outage.
+  const text = await request.text().catch(() => {
+    throw new AppError("bad_request:body", "The request body could not be read to its end.");
+  });
   if (text.length > maxBodyBytes) throw new AppError("payload_too_large:body", "The request body is too large.");
   if (text.trim() === "") return {};
   try {
     return JSON.parse(text);
   } catch {
-    throw new AppError("bad_request:body", "The request body is not valid JSON.");
+    // "_" is the key of the request as a whole, as for a zod issue without a path.
+    throw new AppError("bad_request:body", "The request body is not valid JSON.", { _: ["Send the body as JSON (RFC 8259)."] });
   }
 }
 
