@@ -16,12 +16,14 @@ export interface DrawGroup {
 }
 
 /**
- * Line segments drawn per frame. On the 2-core test machine (under load) a frame of the 5,000-ray demo
- * bundle took 26–123 ms of software rasterizing at 16,000 segments and 38–67 ms at 8,000: filling the
- * blended pixels costs more than setting up the segments. Each frame holds a spread-out share of the
+ * Line segments drawn per frame (in the view's worker). On the 2-core test machine under load (load
+ * average 6-9), a frame of the 5,000-ray demo bundle took the worker 23–51 ms at 8,000 segments (the
+ * first, which also uploads the bundle, about 120 ms) and 64–187 ms at 16,000, too slow to follow a
+ * drag; at 4,000 every frame's fixed cost (readback, frame pacing) made the whole drawing slower
+ * (median click to drawn 1.26–1.35 s against 1.02 s). Each frame holds a spread-out share of the
  * rays (see assemble-bundle), so its pixels, like its segments, are about the bundle's over the frames.
  */
-export const SEGMENTS_PER_FRAME = 4000;
+export const SEGMENTS_PER_FRAME = 8000;
 
 /** Index entries per line segment. */
 const ENTRIES_PER_SEGMENT = 2;
