@@ -95,12 +95,12 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     viewRef.current = view;
   }, []);
 
-  const savePng = async () => {
+  const savePng = () => {
     const view = viewRef.current;
     if (view === undefined) return;
     const link = document.createElement("a");
     const rayCount = drawnBundle?.rayCount ?? 0;
-    const png = withRayViewProvenance(await view.toPngDataUrl(pngScale), {
+    const png = withRayViewProvenance(view.toPngDataUrl(pngScale), {
       rayCount,
       scale: pngScale,
       sketchInputs: { rays: sketch.rays, bminM: sketch.bmin, bmaxM: sketch.bmax, layout: sketch.layout },
@@ -148,7 +148,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
         </button>
         <button
           type="button"
-          onClick={() => void savePng()}
+          onClick={savePng}
           disabled={drawnBundle === undefined}
           className="rounded-md border border-void-edge px-3 py-1.5 text-sm text-dusk hover:border-ember disabled:opacity-50"
         >

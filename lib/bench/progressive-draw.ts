@@ -1,11 +1,10 @@
 /**
- * Splits drawing a bundle across animation frames. Under software WebGL (headless Chromium), a WebGL
- * canvas is read back at every frame shown, on the thread that draws it (the view's worker), which so
- * waits there for all the frame's GPU work: drawn whole in one frame, a 5,000-ray bundle held that
- * thread for over a second, and the view could not follow a drag meanwhile. Drawn a bounded number of
- * segments per frame onto the preserved drawing buffer, no frame waits long. Each frame takes the same
- * share of every fate's group, so a partly drawn bundle (or the first frame alone, redrawn while the
- * view is dragged) shows every fate spread over the whole bundle.
+ * Splits drawing a bundle across animation frames. Under software WebGL (headless Chromium), the
+ * compositor reads the canvas back on the main thread at every commit and so waits there for all the
+ * frame's GPU work: drawing a whole 5,000-ray bundle in one frame blocked the page for over a second.
+ * Drawn a bounded number of segments per frame onto the preserved drawing buffer, no frame waits long.
+ * Each frame takes the same share of every fate's group, so a partly drawn bundle (or the first frame
+ * alone, redrawn while the view is dragged) shows every fate spread over the whole bundle.
  */
 
 /** A range of index entries drawn with one material, as three.js's BufferGeometry groups take it. */
@@ -16,14 +15,12 @@ export interface DrawGroup {
 }
 
 /**
- * Line segments drawn per frame (in the view's worker). On the 2-core test machine under load (load
- * average 6-9), a frame of the 5,000-ray demo bundle took the worker 23–51 ms at 8,000 segments (the
- * first, which also uploads the bundle, about 120 ms) and 64–187 ms at 16,000, too slow to follow a
- * drag; at 4,000 every frame's fixed cost (readback, frame pacing) made the whole drawing slower
- * (median click to drawn 1.26–1.35 s against 1.02 s). Each frame holds a spread-out share of the
+ * Line segments drawn per frame. On the 2-core test machine (under load) a frame of the 5,000-ray demo
+ * bundle took 26–123 ms of software rasterizing at 16,000 segments and 38–67 ms at 8,000: filling the
+ * blended pixels costs more than setting up the segments. Each frame holds a spread-out share of the
  * rays (see assemble-bundle), so its pixels, like its segments, are about the bundle's over the frames.
  */
-export const SEGMENTS_PER_FRAME = 8000;
+export const SEGMENTS_PER_FRAME = 4000;
 
 /** Index entries per line segment. */
 const ENTRIES_PER_SEGMENT = 2;

@@ -1,0 +1,53 @@
+"use client";
+
+import { useEffect, useMemo, type Ref } from "react";
+import * as THREE from "three";
+import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
+import { fateStyles } from "./fate-styles";
+
+/**
+ * The whole bundle as one BufferGeometry of line segments, one material per fate; which parts of the
+ * index are drawn (the geometry's groups) is set frame by frame by the progressive draw.
+ */
+export function RayBundleLines({ bundle, ref }: { bundle: AssembledBundle; ref: Ref<THREE.LineSegments> }) {
+  const geometry = useMemo(() => {
+    const built = new THREE.BufferGeometry();
+    built.setAttribute("position", new THREE.BufferAttribute(bundle.vertices, 3));
+    built.setAttribute("lineDistance", new THREE.BufferAttribute(bundle.lineDistances, 1));
+    built.setIndex(new THREE.BufferAttribute(bundle.segmentIndex, 1));
+    return built;
+  }, [bundle]);
+
+  const materials = useMemo(
+    () =>
+      bundle.fateGroups.map(({ fate }) => {
+        const style = fateStyles[fate];
+        return style.dashM === undefined
+          ? new THREE.LineBasicMaterial({ color: style.color, transparent: true, opacity: style.opacity, depthWrite: false })
+          : new THREE.LineDashedMaterial({ color: style.color, dashSize: style.dashM, gapSize: style.gapM, transparent: true, opacity: style.opacity, depthWrite: false });
+      }),
+    [bundle],
+  );
+
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  useEffect(() => () => materials.forEach((material) => material.dispose()), [materials]);
+
+  // The bundle spans the whole view; culling would only cost a bounding-sphere pass over every vertex.
+  return <lineSegments ref={ref} geometry={geometry} material={materials} frustumCulled={false} />;
+}
+
+/** Lines joining the points every ray reaches at the same coordinate time. */
+export function WavefrontLines({ vertices, ref }: { vertices: Float32Array; ref: Ref<THREE.LineSegments> }) {
+  const geometry = useMemo(() => {
+    const built = new THREE.BufferGeometry();
+    built.setAttribute("position", new THREE.BufferAttribute(vertices, 3));
+    return built;
+  }, [vertices]);
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  return (
+    // Drawn last and over the rays, so the fronts stay visible inside a dense bundle.
+    <lineSegments ref={ref} geometry={geometry} frustumCulled={false}>
+      <lineBasicMaterial color="#f4f1ea" depthTest={false} />
+    </lineSegments>
+  );
+}
