@@ -2,8 +2,18 @@
 
 import { useEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
-import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
+import type { AssembledBundle, RayFate } from "@/lib/bench/assemble-bundle";
 import { fateStyles } from "./fate-styles";
+
+function fateMaterials(): Record<RayFate, THREE.Material> {
+  const entries = Object.entries(fateStyles).map(([fate, style]) => [
+    fate,
+    style.dashM === undefined
+      ? new THREE.LineBasicMaterial({ color: style.color, transparent: true, opacity: style.opacity, depthWrite: false })
+      : new THREE.LineDashedMaterial({ color: style.color, dashSize: style.dashM, gapSize: style.gapM, transparent: true, opacity: style.opacity, depthWrite: false }),
+  ]);
+  return Object.fromEntries(entries) as Record<RayFate, THREE.Material>;
+}
 
 /**
  * The whole bundle as one BufferGeometry of line segments, one material per fate; which parts of the
@@ -18,19 +28,13 @@ export function RayBundleLines({ bundle, ref }: { bundle: AssembledBundle; ref: 
     return built;
   }, [bundle]);
 
-  const materials = useMemo(
-    () =>
-      bundle.fateGroups.map(({ fate }) => {
-        const style = fateStyles[fate];
-        return style.dashM === undefined
-          ? new THREE.LineBasicMaterial({ color: style.color, transparent: true, opacity: style.opacity, depthWrite: false })
-          : new THREE.LineDashedMaterial({ color: style.color, dashSize: style.dashM, gapSize: style.gapM, transparent: true, opacity: style.opacity, depthWrite: false });
-      }),
-    [bundle],
-  );
+  // One material per fate for the life of the view: a new bundle reuses them, so three.js keeps its
+  // compiled line shaders (rebuilding them made the first frame of every bundle a 77–131 ms task).
+  const materialsByFate = useMemo(() => fateMaterials(), []);
+  const materials = useMemo(() => bundle.fateGroups.map(({ fate }) => materialsByFate[fate]), [bundle, materialsByFate]);
 
   useEffect(() => () => geometry.dispose(), [geometry]);
-  useEffect(() => () => materials.forEach((material) => material.dispose()), [materials]);
+  useEffect(() => () => Object.values(materialsByFate).forEach((material) => material.dispose()), [materialsByFate]);
 
   // The bundle spans the whole view; culling would only cost a bounding-sphere pass over every vertex.
   return <lineSegments ref={ref} geometry={geometry} material={materials} frustumCulled={false} />;

@@ -34,7 +34,10 @@ export const authOptions: NextAuthOptions = {
   session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
   // Cookies are httpOnly and SameSite=Lax (next-auth's defaults); behind HTTPS they are also Secure
   // and carry the __Secure- / __Host- prefixes. Said here rather than left to the default.
-  useSecureCookies: serverEnv().NEXTAUTH_URL.startsWith("https://"),
+  // A getter: read per request, so building the app needs no environment.
+  get useSecureCookies() {
+    return serverEnv().NEXTAUTH_URL.startsWith("https://");
+  },
   pages: { signIn: "/sign-in", error: "/sign-in" },
   providers: [
     CredentialsProvider({
