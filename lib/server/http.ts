@@ -33,7 +33,7 @@ export function errorResponse(error: unknown): Response {
     return Response.json(errorBody(error), { status: statusForCode(error.code), headers });
   }
   if (isDatabaseUnavailable(error)) {
-    console.error("database unavailable:", error);
+    logUnavailable(error);
     const unavailable = new AppError("unavailable:database", "The database is not reachable right now; try again shortly.");
     return Response.json(errorBody(unavailable), { status: 503, headers: { "Retry-After": "5" } });
   }
@@ -41,6 +41,22 @@ export function errorResponse(error: unknown): Response {
   return Response.json(errorBody(new AppError("internal:server", "Something went wrong on our side.")), {
     status: 500,
   });
+}
+
+/** During an outage every request fails alike: the log gets the first failure and then one line per interval. */
+const unavailableLogIntervalMs = 10_000;
+const unavailableLog = { lastAt: 0, suppressed: 0 };
+
+function logUnavailable(error: unknown): void {
+  const now = Date.now();
+  if (now - unavailableLog.lastAt < unavailableLogIntervalMs) {
+    unavailableLog.suppressed += 1;
+    return;
+  }
+  const repeats = unavailableLog.suppressed > 0 ? ` (${unavailableLog.suppressed} more like it since the last report)` : "";
+  console.error(`database unavailable${repeats}:`, error);
+  unavailableLog.lastAt = now;
+  unavailableLog.suppressed = 0;
 }
 
 const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P03", "57014"]);
