@@ -9,7 +9,7 @@ import { MAX_IMPORT_BYTES } from "@/lib/imports/limits";
 import { mergedHypothesis, planImport, type ExistingTarget, type ImportPlan, type PlannedRow } from "@/lib/imports/plan";
 import { readImportFile } from "@/lib/imports/read-import-file";
 import { importCommitSchema, importPreviewSchema } from "@/lib/imports/request";
-import { validateImportRows, type ImportFill } from "@/lib/imports/rows";
+import { checkColumnMapping, validateImportRows, type ImportFill } from "@/lib/imports/rows";
 import { deriveTargetColumns } from "@/lib/workspace/derived";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
 import type { CreateTargetInput } from "@/lib/workspace/target-schema";
@@ -169,7 +169,18 @@ function detailOf(action: PlannedRow["action"]): string {
   }
 }
 
+/** `checkColumnMapping`, its refusal naming each field as the request does ("mapping.ra"), since the mapping is one input of it. */
+function checkRequestMapping(table: ImportTable, mapping: ColumnMapping): void {
+  try {
+    checkColumnMapping(table, mapping);
+  } catch (error) {
+    if (!(error instanceof AppError) || !error.fields) throw error;
+    throw new AppError(error.code, error.message, Object.fromEntries(Object.entries(error.fields).map(([field, messages]) => [`mapping.${field}`, messages])));
+  }
+}
+
 function readPlan(table: ImportTable, mapping: ColumnMapping, fill: ImportFill, existing: ExistingTarget[], toleranceArcsec: number): ImportPlan {
+  checkRequestMapping(table, mapping);
   return planImport(validateImportRows(table, mapping, fill), mapping, existing, toleranceArcsec);
 }
 
@@ -219,12 +230,9 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
     const plan = readPlan(table, request.mapping, request.fill, existing, request.toleranceArcsec);
     if (plan.counts.invalid > 0) {
       const rowErrors = plan.rows.flatMap((row) => row.errors);
-      throw new AppError(
-        "bad_request:import",
-        `${plan.counts.invalid} of ${plan.rows.length} rows cannot be imported, so nothing was imported. ${rowErrors.slice(0, 3).join(" ")}`,
-        undefined,
-        { rowErrors: rowErrors.slice(0, 200) },
-      );
+      const summary = `${plan.counts.invalid} of ${plan.rows.length} rows cannot be imported, so nothing was imported.`;
+      // The rows of the file under this mapping are at fault, not one field: "_", the request as a whole.
+      throw new AppError("bad_request:import", `${summary} ${rowErrors.slice(0, 3).join(" ")}`, { _: [summary] }, { rowErrors: rowErrors.slice(0, 200) });
     }
     const instrument = instrumentOf(access.proposal);
     const byId = new Map(existing.map((target) => [target.id, target]));

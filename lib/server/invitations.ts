@@ -164,7 +164,10 @@ export async function acceptInvitation(input: unknown, actor: Actor | null): Pro
       .where(and(eq(invitations.tokenHash, hashLinkToken(token)), open))
       .for("update")
       .limit(1);
-    if (!invitation) throw new AppError("bad_request:invitation", "This invitation has expired, was revoked or was already used.");
+    if (!invitation) {
+      const message = "This invitation has expired, was revoked or was already used.";
+      throw new AppError("bad_request:invitation", message, { token: [message] });
+    }
     if (invitation.email !== who.email) {
       throw new AppError("forbidden:invitation", `This invitation was sent to ${invitation.email}; sign in with that address to accept it.`);
     }

@@ -72,7 +72,10 @@ export async function loadSkyFigure(params: unknown, query: Record<string, strin
     .from(targets)
     .where(eq(targets.proposalId, proposalId))
     .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id));
-  if (rows.length === 0) throw new AppError("bad_request:figure", "This proposal has no targets to chart yet.");
+  if (rows.length === 0) {
+    const message = "This proposal has no targets to chart yet.";
+    throw new AppError("bad_request:figure", message, { _: [message] });
+  }
   const start = season?.start ?? proposal.cycleStartDate ?? new Date().toISOString().slice(0, 10);
   const nights = season?.nights ?? cycleNights(proposal) ?? DEFAULT_SEASON_NIGHTS;
   return seasonPlotExport(rows, start, nights, { ...context, reproducePath: `/proposals/${proposal.id}` });

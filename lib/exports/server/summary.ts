@@ -1,5 +1,6 @@
 import "server-only";
 import { z } from "zod";
+import { nightDateSchema } from "@/lib/astro/inputs";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
 import { technicalSummaryPdf } from "@/lib/exports/figures/summary-pdf";
@@ -34,8 +35,8 @@ const summaryQuerySchema = z.object({
     .optional()
     .transform((text) => (text === undefined || text.trim() === "" ? [] : text.split(",").map((id) => id.trim())))
     .pipe(z.array(z.uuid({ error: "Name each target by its id." })).max(MAX_NIGHT_CHARTS, `At most ${MAX_NIGHT_CHARTS} night charts.`)),
-  /** The night (evening date) of those charts; the figure route applies its own default and checks. */
-  night: z.string().optional(),
+  /** The night (evening date) of those charts; checked here, so a bad one is refused under its own name. */
+  night: nightDateSchema.optional(),
   columns: z.string().optional(),
   digits: z.string().optional(),
 }).refine((q) => !q.figures.includes("night") || q.nightTargets.length > 0, {

@@ -15,7 +15,7 @@ const maxBodyBytes = 256 * 1024;
 export async function readJson(request: Request): Promise<unknown> {
   // A client that hangs up mid-body (ECONNRESET on the request stream) is not a database outage.
   const text = await request.text().catch(() => {
-    throw new AppError("bad_request:body", "The request body could not be read to its end.");
+    throw new AppError("bad_request:body", "The request body could not be read to its end.", { _: ["Send the whole body again."] });
   });
   if (text.length > maxBodyBytes) throw new AppError("payload_too_large:body", "The request body is too large.");
   if (text.trim() === "") return {};
