@@ -113,7 +113,10 @@ async function consumeToken(token: string, purposes: (keyof typeof linkLifetimeM
       ),
     )
     .returning({ userId: authTokens.userId });
-  if (!row) throw new AppError("bad_request:link", "This link has expired or was already used; ask for a new one.");
+  if (!row) {
+    const message = "This link has expired or was already used; ask for a new one.";
+    throw new AppError("bad_request:link", message, { token: [message] });
+  }
   await dbClient()
     .db.update(users)
     .set({ emailConfirmedAt: sql`now()` })
