@@ -6,12 +6,12 @@
 //   npm test                                  every phase
 //   npm test -- --phase unit,integration      only some phases (typecheck, unit, integration, e2e)
 //   npm test -- tests/unit/env.test.ts        extra arguments are vitest file filters
-import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { chmodSync, existsSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { appEnvironment } from "./lib/app-env.mjs";
-import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
+import { ensureBuild } from "./lib/build.mjs";
 import { ensureDebianPackages } from "./lib/debian.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
@@ -46,16 +46,6 @@ async function runCleanups() {
   while (cleanups.length > 0) await cleanups.pop()();
 }
 
-/** `next build` adds its build folder's types to tsconfig.json; a throwaway folder must not stay there. */
-async function buildKeepingTsconfig(env) {
-  const tsconfigPath = join(repoRoot, "tsconfig.json");
-  const tsconfig = readFileSync(tsconfigPath, "utf8");
-  try {
-    await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
-  } finally {
-    if (readFileSync(tsconfigPath, "utf8") !== tsconfig) writeFileSync(tsconfigPath, tsconfig);
-  }
-}
 const totals = { passed: 0, failed: 0, skipped: 0 };
 const failures = [];
 
@@ -120,13 +110,7 @@ async function main() {
       const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
       cleanups.push(fakes.stop);
       const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
-      const digest = sourceDigest(repoRoot);
-      if (!isBuildCurrent(join(repoRoot, distDir), digest)) {
-        await buildKeepingTsconfig(env);
-        markBuild(join(repoRoot, distDir), digest);
-      } else {
-        log("build", "test build is current; not rebuilding");
-      }
+      await ensureBuild(repoRoot, distDir, env);
       await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
       startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
       await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 });

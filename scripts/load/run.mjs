@@ -11,12 +11,12 @@
 //
 // Exits 0 when every request answered 2xx (timing targets are printed as met/missed, never fail it),
 // 1 when a request errored or answered otherwise, or when the run itself broke.
-import { chmodSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { appEnvironment } from "../lib/app-env.mjs";
-import { isBuildCurrent, markBuild, sourceDigest } from "../lib/build-stamp.mjs";
+import { ensureBuild } from "../lib/build.mjs";
 import { ensureDebianPackages } from "../lib/debian.mjs";
 import { ensureNodeModules } from "../lib/deps.mjs";
 import { startFakes } from "../lib/fakes.mjs";
@@ -65,26 +65,6 @@ function tearDown() {
   return tornDown;
 }
 
-/**
- * Builds into `distDir` unless its build came from these very sources. `next build` adds its build
- * folder's types to tsconfig.json; a folder of the load run's own must not stay there.
- */
-async function ensureBuild(distDir, env) {
-  const digest = sourceDigest(repoRoot);
-  if (isBuildCurrent(join(repoRoot, distDir), digest)) {
-    log("build", `${distDir} is current; not rebuilding`);
-    return;
-  }
-  const tsconfigPath = join(repoRoot, "tsconfig.json");
-  const tsconfig = readFileSync(tsconfigPath, "utf8");
-  try {
-    await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
-  } finally {
-    if (readFileSync(tsconfigPath, "utf8") !== tsconfig) writeFileSync(tsconfigPath, tsconfig);
-  }
-  markBuild(join(repoRoot, distDir), digest);
-}
-
 async function main() {
   const { durationSeconds, connections, requestsPerSecondPerConnection } = parseArgs(process.argv.slice(2));
   ensureNodeModules(repoRoot);
@@ -118,7 +98,7 @@ async function main() {
     extra: { ...fakes.env, ARCWRIGHT_DIST_DIR: distDir },
   });
   await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env });
-  await ensureBuild(distDir, env);
+  await ensureBuild(repoRoot, distDir, env);
   const seedFile = join(tmp, "load-seed.json");
   await runOrThrow("load seed", bin("tsx"), ["scripts/load/seed-load.ts", "--out", seedFile], { cwd: repoRoot, env });
   const seed = JSON.parse(readFileSync(seedFile, "utf8"));
