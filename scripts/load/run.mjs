@@ -29,7 +29,7 @@ import { throwawaySecrets } from "../lib/secrets.mjs";
 import { postgresPid, startCpuCount } from "./cpu-time.mjs";
 import { preflight, requestKinds, runMix } from "./mix.mjs";
 import { machineLine, printReport, Recorder } from "./report.mjs";
-import { signIn } from "./sign-in.mjs";
+import { signIn } from "../lib/sign-in.mjs";
 
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../../..");
 const bin = (name) => join(repoRoot, "node_modules", ".bin", name);

@@ -1,9 +1,8 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from "vitest";
+import { describe, expect, it, vi } from "vitest";
 
 vi.mock("server-only", () => ({}));
 
 import { randomUUID } from "node:crypto";
-import { dbClient } from "@/db/client";
 import { accountRoutes } from "@/lib/server/api/account-routes";
 import {
   authenticateWithLink,
@@ -15,18 +14,9 @@ import {
   signUp,
 } from "@/lib/server/accounts";
 import { backgroundMailSettled } from "@/lib/server/mailer";
-import { linkIn, startMailCatcher } from "./support/mail-catcher";
+import { catchMailDuringFile, linkIn } from "./support/mail-catcher";
 
-let mail: Awaited<ReturnType<typeof startMailCatcher>>;
-
-beforeAll(async () => {
-  mail = await startMailCatcher();
-});
-
-afterAll(async () => {
-  await mail.stop();
-  await dbClient().sql.end();
-});
+const mail = catchMailDuringFile();
 
 /** The newest message to an address, after the background deliveries finished. */
 async function lastMailTo(email: string, subject: string) {

@@ -20,7 +20,7 @@ beforeAll(async () => {
   databaseUrl = await cluster.prepareDatabase("arcwright_crash", { seedDemo: true });
   app = await startInstance({ databaseUrl, logDir: cluster.root, name: "instance" });
   const coi = demoAccounts.find((demo) => demo.key === "coi")!;
-  cookie = await signIn(app.url, coi.email, coi.password);
+  cookie = await signIn(app.url, coi);
   proposalId = await proposalIdByTitle(app.url, cookie, demoProposal.title);
   sql = postgres(databaseUrl, { max: 2, onnotice: () => {} });
 }, 120_000);

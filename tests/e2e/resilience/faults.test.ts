@@ -48,7 +48,7 @@ beforeAll(async () => {
   app = await startInstance({ databaseUrl, logDir: cluster.root, name: "instance" });
   for (const key of ["pi", "coi", "viewer"] as const) {
     const account = demoAccounts.find((demo) => demo.key === key)!;
-    cookies[key] = await signIn(app.url, account.email, account.password);
+    cookies[key] = await signIn(app.url, account);
   }
   proposalId = await proposalIdByTitle(app.url, cookies.coi, demoProposal.title);
   const { rows } = await callOk<{ rows: { id: string }[] }>(app.url, cookies.coi, `/api/proposals/${proposalId}/targets?pageSize=50`);

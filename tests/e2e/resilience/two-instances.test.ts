@@ -24,7 +24,7 @@ beforeAll(async () => {
     startInstance({ databaseUrl, logDir: cluster.root, name: "instance-b" }),
   ]);
   const pi = account("pi");
-  proposalId = await proposalIdByTitle(a.url, await signIn(a.url, pi.email, pi.password), demoProposal.title);
+  proposalId = await proposalIdByTitle(a.url, await signIn(a.url, pi), demoProposal.title);
 });
 
 afterAll(async () => {
@@ -50,7 +50,7 @@ async function invitationMailTo(email: string, since: number): Promise<{ text: s
 describe("two app instances over one database behave as one", () => {
   it("a session cookie from instance A signs the member in on instance B", async () => {
     const coi = account("coi");
-    const cookie = await signIn(a!.url, coi.email, coi.password);
+    const cookie = await signIn(a!.url, coi);
     const session = await callOk<{ user?: { email?: string } }>(b!.url, cookie, "/api/auth/session");
     expect(session.user?.email).toBe(coi.email);
     // Not only the cookie's signature: B loads the member's proposals with it.
@@ -63,13 +63,13 @@ describe("two app instances over one database behave as one", () => {
     // Alternate instances: the limit is reached together only if both count in the same place.
     for (let attempt = 0; attempt < signInLimits.perAccount; attempt += 1) {
       const instance = attempt % 2 === 0 ? a! : b!;
-      errors.push((await attemptSignIn(instance.url, viewer.email, "not-the-password-at-all")).error);
+      errors.push((await attemptSignIn(instance.url, { email: viewer.email, password: "not-the-password-at-all" })).error);
     }
     expect(errors).toEqual(Array(signInLimits.perAccount).fill("CredentialsSignin"));
-    const overA = await attemptSignIn(a!.url, viewer.email, "not-the-password-at-all");
+    const overA = await attemptSignIn(a!.url, { email: viewer.email, password: "not-the-password-at-all" });
     expect(overA.error).toMatch(/^Too many attempts/);
     // Past the limit even the right password is refused, on the other instance too.
-    const overB = await attemptSignIn(b!.url, viewer.email, viewer.password);
+    const overB = await attemptSignIn(b!.url, viewer);
     expect(overB.cookie).toBeNull();
     expect(overB.error).toMatch(/^Too many attempts/);
   });
@@ -77,7 +77,7 @@ describe("two app instances over one database behave as one", () => {
   it("an invitation sent from A is accepted on B", async () => {
     const pi = account("pi");
     const invitee = account("admin");
-    const piCookie = await signIn(a!.url, pi.email, pi.password);
+    const piCookie = await signIn(a!.url, pi);
     const sentAt = Date.now() - 1_000;
     await callOk(a!.url, piCookie, `/api/proposals/${proposalId}/invitations`, { method: "POST", body: { email: invitee.email, role: "viewer" }, status: 201 });
     const mail = await invitationMailTo(invitee.email, sentAt);
@@ -85,7 +85,7 @@ describe("two app instances over one database behave as one", () => {
     expect(link.origin).toBe(a!.url);
     const token = link.pathname.split("/").pop()!;
 
-    const inviteeCookie = await signIn(b!.url, invitee.email, invitee.password);
+    const inviteeCookie = await signIn(b!.url, invitee);
     const accepted = await callOk<{ proposalId: string; role: string }>(b!.url, inviteeCookie, "/api/invitations/accept", { method: "POST", body: { token } });
     expect(accepted).toMatchObject({ proposalId, role: "viewer" });
     const { members } = await callOk<{ members: { email: string; role: string }[] }>(a!.url, piCookie, `/api/proposals/${proposalId}/members`);
@@ -98,8 +98,8 @@ describe("two app instances over one database behave as one", () => {
   it("a note written on A is read on B, and a stale edit on B gets 409 after an edit on A", async () => {
     const coi = account("coi");
     const pi = account("pi");
-    const coiOnA = await signIn(a!.url, coi.email, coi.password);
-    const piOnB = await signIn(b!.url, pi.email, pi.password);
+    const coiOnA = await signIn(a!.url, coi);
+    const piOnB = await signIn(b!.url, pi);
     const { rows } = await callOk<{ rows: { id: string }[] }>(a!.url, coiOnA, `/api/proposals/${proposalId}/targets?pageSize=1`);
     const notesPath = `/api/proposals/${proposalId}/targets/${rows[0].id}/notes`;
     const body = `Seeing log from instance A ${Date.now().toString(36)}`;

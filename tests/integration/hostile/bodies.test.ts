@@ -1,19 +1,8 @@
-import { afterAll, beforeAll } from "vitest";
-import { dbClient } from "@/db/client";
 import { acceptedQueryOf, describeEveryEndpoint } from "../support/hostile-endpoints";
 import { hostileBodyText } from "../support/hostile-input";
-import { startMailCatcher } from "../support/mail-catcher";
+import { catchMailDuringFile } from "../support/mail-catcher";
 
-let mail: Awaited<ReturnType<typeof startMailCatcher>>;
-
-beforeAll(async () => {
-  mail = await startMailCatcher();
-});
-
-afterAll(async () => {
-  await mail.stop();
-  await dbClient().sql.end();
-});
+catchMailDuringFile();
 
 describeEveryEndpoint("hostile request bodies: never a 5xx, every refusal in the documented shape, 400s name their fields, a refusal writes nothing", {
   // Endpoints that read no body get a few runs, to show they ignore one.

@@ -1,20 +1,10 @@
 import fc from "fast-check";
-import { afterAll, beforeAll, expect } from "vitest";
-import { dbClient } from "@/db/client";
+import { expect } from "vitest";
 import { acceptedBodyOf, acceptedQueryOf, describeEveryEndpoint, type HostileCaller, type HostileEndpoint, type HostileWorld } from "../support/hostile-endpoints";
 import { hostileId, hostileText, isUuid } from "../support/hostile-input";
-import { startMailCatcher } from "../support/mail-catcher";
+import { catchMailDuringFile } from "../support/mail-catcher";
 
-let mail: Awaited<ReturnType<typeof startMailCatcher>>;
-
-beforeAll(async () => {
-  mail = await startMailCatcher();
-});
-
-afterAll(async () => {
-  await mail.stop();
-  await dbClient().sql.end();
-});
+catchMailDuringFile();
 
 /** Route params with at least one of them replaced by a hostile value. */
 function hostileParams(endpoint: HostileEndpoint, w: HostileWorld): fc.Arbitrary<Record<string, string>> {

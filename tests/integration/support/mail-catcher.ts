@@ -1,6 +1,8 @@
 import type { AddressInfo } from "node:net";
 import { simpleParser } from "mailparser";
 import { SMTPServer } from "smtp-server";
+import { afterAll, beforeAll } from "vitest";
+import { dbClient } from "@/db/client";
 
 export interface CaughtMail {
   to: string[];
@@ -37,4 +39,23 @@ export function linkIn(mail: CaughtMail): URL {
   const match = /https?:\/\/\S+/.exec(mail.text);
   if (!match) throw new Error(`no link in "${mail.subject}"`);
   return new URL(match[0]);
+}
+
+/**
+ * For a test file that sends mail: starts the catcher before its tests, and after them stops it and
+ * ends the database client. `messages` is the catcher's list once the file's tests run.
+ */
+export function catchMailDuringFile(): { messages: CaughtMail[] } {
+  const caught: { messages: CaughtMail[] } = { messages: [] };
+  let stop: (() => Promise<void>) | undefined;
+  beforeAll(async () => {
+    const catcher = await startMailCatcher();
+    caught.messages = catcher.messages;
+    stop = catcher.stop;
+  });
+  afterAll(async () => {
+    await stop?.();
+    await dbClient().sql.end();
+  });
+  return caught;
 }

@@ -3,55 +3,7 @@
  * the `Origin` a browser page of that instance would send (the app refuses cross-site writes).
  */
 
-export interface SignInAnswer {
-  /** The Cookie header to send, when a session cookie was set. */
-  cookie: string | null;
-  /** The error next-auth put in the URL it sends the browser to (the sign-in form shows it). */
-  error: string | null;
-}
-
-/** Folds a response's Set-Cookie headers into `jar` (name → value); an emptied cookie is dropped. */
-function keepCookies(jar: Map<string, string>, response: Response): void {
-  for (const line of response.headers.getSetCookie()) {
-    const [pair] = line.split(";");
-    const at = pair.indexOf("=");
-    const value = pair.slice(at + 1).trim();
-    if (value === "") jar.delete(pair.slice(0, at).trim());
-    else jar.set(pair.slice(0, at).trim(), value);
-  }
-}
-
-const cookieHeaderOf = (jar: Map<string, string>) => [...jar].map(([name, value]) => `${name}=${value}`).join("; ");
-
-/**
- * next-auth's credentials flow as the sign-in form drives it: GET /api/auth/csrf (token and its
- * cookie), then POST /api/auth/callback/password form-encoded with the token, e-mail and password.
- */
-export async function attemptSignIn(appUrl: string, email: string, password: string): Promise<SignInAnswer> {
-  const jar = new Map<string, string>();
-  const csrf = await fetch(`${appUrl}/api/auth/csrf`, { headers: { Origin: appUrl } });
-  if (!csrf.ok) throw new Error(`GET /api/auth/csrf answered ${csrf.status}`);
-  keepCookies(jar, csrf);
-  const { csrfToken } = (await csrf.json()) as { csrfToken: string };
-  const callback = await fetch(`${appUrl}/api/auth/callback/password`, {
-    method: "POST",
-    redirect: "manual",
-    headers: { Origin: appUrl, Cookie: cookieHeaderOf(jar), "Content-Type": "application/x-www-form-urlencoded" },
-    body: new URLSearchParams({ csrfToken, email, password, callbackUrl: `${appUrl}/proposals`, json: "true" }),
-  });
-  keepCookies(jar, callback);
-  const hasSession = [...jar.keys()].some((name) => name.startsWith("next-auth.session-token"));
-  const redirectTo = callback.headers.get("location") ?? ((await callback.json().catch(() => ({}))) as { url?: string }).url ?? "";
-  const error = redirectTo ? new URL(redirectTo, appUrl).searchParams.get("error") : null;
-  return { cookie: hasSession ? cookieHeaderOf(jar) : null, error };
-}
-
-/** Signs in or throws; the answer is the Cookie header. */
-export async function signIn(appUrl: string, email: string, password: string): Promise<string> {
-  const answer = await attemptSignIn(appUrl, email, password);
-  if (!answer.cookie) throw new Error(`sign-in of ${email} on ${appUrl} failed: ${answer.error ?? "no session cookie"}`);
-  return answer.cookie;
-}
+export { attemptSignIn, signIn } from "@/scripts/lib/sign-in.mjs";
 
 export interface CallOptions {
   method?: "GET" | "POST" | "PATCH" | "DELETE";
