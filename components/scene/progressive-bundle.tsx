@@ -4,7 +4,7 @@ import { useFrame, useThree, type RootState } from "@react-three/fiber";
 import { useCallback, useEffect, useMemo, useRef } from "react";
 import type * as THREE from "three";
 import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { progressiveFrames } from "@/lib/bench/progressive-draw";
+import { FIRST_FRAME_SEGMENTS, UPLOAD_FRAME_SEGMENTS, nextFrameSegments, segmentTotal, shareOfGroups } from "@/lib/bench/progressive-draw";
 import { RayBundleLines, WavefrontLines } from "./ray-bundle-lines";
 
 /** Camera world matrix, projection matrix and drawing-buffer size: what a drawn picture depends on. */
@@ -21,49 +21,72 @@ export interface ProgressiveBundleProps {
 /**
  * Draws the bundle over several frames onto the preserved drawing buffer (see progressive-draw): the
  * first frame clears and draws the scene without the bundle plus the first share of the rays, each
- * later frame adds one share without clearing, the last adds the wavefronts. A change of view or of
- * bundle starts again from the first frame. Takes over rendering from the canvas (useFrame priority 1).
+ * later frame adds one share without clearing, the last adds the wavefronts. Each share's size is
+ * steered by how long the frame before took. A change of view or of bundle starts again from the first
+ * frame. Takes over rendering from the canvas (useFrame priority 1).
  */
 export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawRemaining }: ProgressiveBundleProps) {
   const rays = useRef<THREE.LineSegments>(null);
   const fronts = useRef<THREE.LineSegments>(null);
-  const frames = useMemo(() => progressiveFrames(bundle.fateGroups), [bundle]);
+  const totalSegments = useMemo(() => segmentTotal(bundle.fateGroups), [bundle]);
   const progress = useRef({
     bundle: undefined as AssembledBundle | undefined,
-    frame: 0,
+    /** Segments on the buffer; undefined until the frame that clears it has been drawn. */
+    drawnSegments: undefined as number | undefined,
     view: new Float64Array(VIEW_KEY_LENGTH),
     // Redrawing after a turn of the view is not news: only the first completion is reported.
     reported: undefined as AssembledBundle | undefined,
+    // The share is kept from bundle to bundle: what the machine managed last time is the best guess.
+    frameSegments: FIRST_FRAME_SEGMENTS,
+    /** The frame being timed: when it started (performance.now(), ms), the segments it drew, and its cost once known. */
+    timed: undefined as { startedAtMs: number; segments: number; costMs?: number } | undefined,
   });
+  // A message posted during a frame is handled once that frame's task is over (rendering and, under
+  // software WebGL, the compositor's wait for the GPU): its arrival closes the frame's cost.
+  const taskEndPort = useRef<MessagePort | undefined>(undefined);
+  useEffect(() => {
+    const channel = new MessageChannel();
+    channel.port1.onmessage = () => {
+      const timed = progress.current.timed;
+      if (timed !== undefined && timed.costMs === undefined) timed.costMs = performance.now() - timed.startedAtMs;
+    };
+    taskEndPort.current = channel.port2;
+    return () => {
+      channel.port1.close();
+      taskEndPort.current = undefined;
+    };
+  }, []);
   const reportDrawn = useRef(onBundleDrawn);
   useEffect(() => {
     reportDrawn.current = onBundleDrawn;
   }, [onBundleDrawn]);
 
-  /** Draws the next frame's share; false once the whole bundle is on the buffer. */
+  /** Draws up to `segments` more of the bundle; false once the whole bundle is on the buffer. */
   const drawStep = useCallback(
-    ({ gl, scene, camera }: Pick<RootState, "gl" | "scene" | "camera">): boolean => {
+    ({ gl, scene, camera }: Pick<RootState, "gl" | "scene" | "camera">, segments: number): boolean => {
       const raysObject = rays.current;
       const frontsObject = fronts.current;
       if (raysObject === null || frontsObject === null) return false;
       const state = progress.current;
       if (state.bundle !== bundle || viewChanged(state.view, camera, gl.domElement)) {
         state.bundle = bundle;
-        state.frame = 0;
+        state.drawnSegments = undefined;
       }
-      if (state.frame >= frames.length) return false;
+      if (state.drawnSegments === totalSegments) return false;
       const autoClear = gl.autoClear;
-      if (state.frame === 0) {
+      if (state.drawnSegments === undefined) {
         raysObject.visible = false;
         frontsObject.visible = false;
         gl.render(scene, camera);
       }
       gl.autoClear = false;
       raysObject.visible = true;
-      raysObject.geometry.groups = frames[state.frame];
+      const from = state.drawnSegments ?? 0;
+      const to = Math.min(totalSegments, from + segments);
+      raysObject.geometry.groups = shareOfGroups(bundle.fateGroups, from, to, totalSegments);
       gl.render(raysObject, camera);
-      state.frame += 1;
-      const done = state.frame === frames.length;
+      state.drawnSegments = to;
+      const done = to === totalSegments;
       if (done) {
         frontsObject.visible = true;
         gl.render(frontsObject, camera);
@@ -75,11 +98,24 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawRemaining }: Pr
       }
       return !done;
     },
-    [bundle, frames],
+    [bundle, totalSegments],
   );
 
-  useFrame((state) => {
-    if (drawStep(state)) state.invalidate();
+  useFrame((rootState) => {
+    const state = progress.current;
+    const startedAtMs = performance.now();
+    const timed = state.timed;
+    // Without the message (not delivered yet), the interval since the timed frame bounds its cost.
+    if (timed !== undefined) state.frameSegments = nextFrameSegments(timed.segments, timed.costMs ?? startedAtMs - timed.startedAtMs);
+    const isUploadFrame = state.bundle !== bundle;
+    const isDrawing = drawStep(rootState, isUploadFrame ? UPLOAD_FRAME_SEGMENTS : state.frameSegments);
+    // Sent now, the frame's GL commands run in the GPU process while the page is painted, not after.
+    rootState.gl.getContext().flush();
+    state.timed = isDrawing && !isUploadFrame ? { startedAtMs, segments: state.frameSegments } : undefined;
+    if (isDrawing) {
+      taskEndPort.current?.postMessage(null);
+      rootState.invalidate();
+    }
   }, 1);
 
   const getState = useThree((state) => state.get);
@@ -87,7 +123,7 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawRemaining }: Pr
   useEffect(() => {
     invalidate();
     onDrawRemaining(() => {
-      while (drawStep(getState()));
+      while (drawStep(getState(), Number.POSITIVE_INFINITY));
     });
     return () => onDrawRemaining(() => {});
   }, [drawStep, getState, invalidate, onDrawRemaining]);
