@@ -88,13 +88,14 @@ try {
       await runOrThrow("next build", bin("next"), ["build"], { cwd: repoRoot, env });
       markBuild(distDir, digest);
     }
-    const server = startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], {
+    // One `next start` per core on the one port (scripts/serve.mjs).
+    const server = startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], {
       cwd: repoRoot,
       env,
     });
     server.on("exit", (code) => {
       if (!stopping) {
-        log("app", `next start exited (${code}); stopping`);
+        log("app", `the app (scripts/serve.mjs) exited (${code}); stopping`);
         shutdown(code ?? 1);
       }
     });

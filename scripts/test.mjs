@@ -112,7 +112,8 @@ async function main() {
       const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
       await ensureBuild(repoRoot, distDir, env);
       await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
-      startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
+      // Served as `npm start` serves it: one `next start` per core (scripts/serve.mjs).
+      startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
       await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 });
       await vitestProject("e2e", { ...env, E2E_BASE_URL: appUrl }, tmp, filters);
     }

@@ -115,22 +115,30 @@ export interface InstanceOptions {
   name: string;
   /** A fixed port, e.g. to restart an instance where it was; a free one when omitted. */
   port?: number;
+  /**
+   * Served by scripts/serve.mjs with this many `next start` processes (as `npm start` serves it)
+   * instead of one `next start`; `process` is then the launcher.
+   */
+  webProcesses?: number;
 }
 
 /**
- * `next start` of the test build (ARCWRIGHT_DIST_DIR) on 127.0.0.1, with the test process's
+ * `next start` (or scripts/serve.mjs) of the test build (ARCWRIGHT_DIST_DIR) on 127.0.0.1, with the test process's
  * environment except the database, its own public URL (links in mail point at it) and the upload
  * service's callback, which goes to this instance. Resolves once /api/health answers 200.
  */
-export async function startInstance({ databaseUrl, logDir, name, port }: InstanceOptions): Promise<AppInstance> {
+export async function startInstance({ databaseUrl, logDir, name, port, webProcesses }: InstanceOptions): Promise<AppInstance> {
   const chosenPort = port ?? (await freePort());
   const url = `http://127.0.0.1:${chosenPort}`;
   const logFile = join(logDir, `${name}.log`);
   const log = createWriteStream(logFile, { flags: "a" });
-  const child = spawn(bin("next"), ["start", "-H", "127.0.0.1", "-p", String(chosenPort)], {
+  const address = ["-H", "127.0.0.1", "-p", String(chosenPort)];
+  const [command, args] = webProcesses === undefined ? [bin("next"), ["start", ...address]] : [process.execPath, [join(repoRoot, "scripts", "serve.mjs"), ...address]];
+  const child = spawn(command, args, {
     cwd: repoRoot,
     env: {
       ...process.env,
+      ...(webProcesses === undefined ? {} : { ARCWRIGHT_WEB_PROCESSES: String(webProcesses) }),
       NODE_ENV: "production",
       DATABASE_URL: databaseUrl,
       NEXTAUTH_URL: url,
