@@ -18,7 +18,7 @@ function statOf(pid) {
   }
 }
 
-/** CPU ms of a process and of its direct children (a PostgreSQL server and its backends). */
+/** CPU ms of a process and of its direct children (a PostgreSQL server and its backends; the app's `next start` processes). */
 function cpuMsWithChildren(pid) {
   let total = statOf(pid)?.cpuMs ?? 0;
   for (const entry of readdirSync("/proc")) {
@@ -38,7 +38,7 @@ export const postgresPid = (dataDir) => Number(readFileSync(join(dataDir, "postm
  */
 export function startCpuCount({ appPid, databasePid }) {
   if (process.platform !== "linux") return () => null;
-  const read = () => ({ app: statOf(appPid)?.cpuMs ?? 0, database: cpuMsWithChildren(databasePid), generator: process.cpuUsage() });
+  const read = () => ({ app: cpuMsWithChildren(appPid), database: cpuMsWithChildren(databasePid), generator: process.cpuUsage() });
   const before = read();
   return () => {
     const after = read();

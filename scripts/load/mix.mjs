@@ -104,36 +104,59 @@ export async function preflight(appUrl, kinds, members) {
  * `recorder` (kind, status, latency in ms, bytes) and every failed request to `recorder.error`.
  * Connections send back to back unless `requestsPerSecondPerConnection` paces them (a person at a
  * page rather than a script). `onStart` receives a stop function (for Ctrl-C).
+ *
+ * A paced connection is an autocannon instance of its own, started at a random moment within its
+ * first period: autocannon paces a connection by a timer started with it, so connections started
+ * together would all send in the same instant every period, a burst no team of people makes.
  */
 export async function runMix({ appUrl, kinds, members, durationSeconds, totalConnections, requestsPerSecondPerConnection, recorder, onStart }) {
   const instances = [];
+  const starts = [];
+  let isStopped = false;
+  const launch = (kind, member, connections) => {
+    const instance = autocannon({
+      url: appUrl,
+      connections,
+      duration: durationSeconds,
+      timeout: requestTimeoutSeconds,
+      ...(requestsPerSecondPerConnection ? { connectionRate: requestsPerSecondPerConnection } : {}),
+      headers: memberHeaders(appUrl, member, kind.isWrite),
+      requests: [
+        {
+          setupRequest: (request) => ({ ...request, ...kind.next() }),
+          onResponse: (status, body) => {
+            if (status < 200 || status >= 300) recorder.sample(kind.name, `${status} as ${member.role}: ${String(body).slice(0, 200)}`);
+          },
+        },
+      ],
+    });
+    instance.on("response", (_client, status, bytes, latencyMs) => recorder.response(kind.name, status, latencyMs, bytes));
+    instance.on("reqError", (error) => recorder.error(kind.name, error));
+    instances.push(instance);
+    return instance;
+  };
+  const periodMs = requestsPerSecondPerConnection ? 1000 / requestsPerSecondPerConnection : 0;
   connectionsByKind(kinds, totalConnections).forEach((count, k) => {
     const kind = kinds[k];
     const senders = members.filter((m) => !kind.isWrite || m.role !== "viewer");
     for (const { member, connections } of dealConnections(count, senders)) {
-      const instance = autocannon({
-        url: appUrl,
-        connections,
-        duration: durationSeconds,
-        timeout: requestTimeoutSeconds,
-        ...(requestsPerSecondPerConnection ? { connectionRate: requestsPerSecondPerConnection } : {}),
-        headers: memberHeaders(appUrl, member, kind.isWrite),
-        requests: [
-          {
-            setupRequest: (request) => ({ ...request, ...kind.next() }),
-            onResponse: (status, body) => {
-              if (status < 200 || status >= 300) recorder.sample(kind.name, `${status} as ${member.role}: ${String(body).slice(0, 200)}`);
-            },
-          },
-        ],
-      });
-      instance.on("response", (_client, status, bytes, latencyMs) => recorder.response(kind.name, status, latencyMs, bytes));
-      instance.on("reqError", (error) => recorder.error(kind.name, error));
-      instances.push(instance);
+      if (periodMs === 0) {
+        starts.push(launch(kind, member, connections));
+        continue;
+      }
+      for (let c = 0; c < connections; c++) {
+        starts.push(
+          new Promise((resolve) => setTimeout(resolve, Math.random() * periodMs)).then(() => (isStopped ? undefined : launch(kind, member, 1))),
+        );
+      }
     }
   });
-  onStart?.(() => instances.forEach((instance) => instance.stop()));
+  onStart?.(() => {
+    isStopped = true;
+    instances.forEach((instance) => instance.stop());
+  });
   const startedAt = performance.now();
+  await Promise.all(starts);
   await Promise.all(instances);
   return { elapsedSeconds: (performance.now() - startedAt) / 1000, instanceCount: instances.length };
 }

@@ -1,18 +1,23 @@
 #!/usr/bin/env node
 // `npm run bench:load`: the load run, self-contained on a fresh clone. Starts a throwaway PostgreSQL
 // cluster, migrates it, builds the app into .next-load/ (reused while the sources are unchanged),
-// seeds one proposal with 1,000 targets and a team of five, serves it with `next start`, signs every
+// seeds one proposal with 1,000 targets and a team of five, serves it with scripts/serve.mjs (one `next start` per core), signs every
 // member in, drives it with autocannon (target-list reads, target edits, note writes) and prints
 // throughput and latency per request kind. Everything it started is stopped however it ends.
 //
-//   npm run bench:load                                    100 connections for 60 s
-//   npm run bench:load -- --duration 10 --connections 20  a quick run
-//   npm run bench:load -- --rate 1                        each connection paced to 1 request/s
+//   npm run bench:load                         100 clients, each sending 1 request/s, for 60 s
+//   npm run bench:load -- --rate 2             each client sends 2 requests/s
+//   npm run bench:load -- --closed-loop        each client sends its next request as soon as the
+//                                              last is answered: the app's saturation throughput
+//   npm run bench:load -- --duration 10 --connections 20 --warmup 3   a quick run
+//
+// The measured run follows a warm-up (default 10 s) of the same load whose answers are not counted:
+// every `next start` process compiles each route on first use, and the first requests would measure that.
 //
 // Exits 0 when every request answered 2xx (timing targets are printed as met/missed, never fail it),
 // 1 when a request errored or answered otherwise, or when the run itself broke.
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { tmpdir } from "node:os";
+import { availableParallelism, tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { appEnvironment } from "../lib/app-env.mjs";
@@ -35,13 +40,20 @@ const repoRoot = resolve(fileURLToPath(import.meta.url), "../../..");
 const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
 
 function parseArgs(argv) {
-  const options = { durationSeconds: 60, connections: 100, requestsPerSecondPerConnection: undefined };
-  const flags = { "--duration": "durationSeconds", "--connections": "connections", "--rate": "requestsPerSecondPerConnection" };
+  const options = { durationSeconds: 60, connections: 100, requestsPerSecondPerConnection: 1, warmupSeconds: 10 };
+  const flags = { "--duration": "durationSeconds", "--connections": "connections", "--rate": "requestsPerSecondPerConnection", "--warmup": "warmupSeconds" };
+  const known = "known: --duration <s>, --connections <n>, --rate <requests/s per client>, --closed-loop, --warmup <s>";
   for (let i = 0; i < argv.length; i += 2) {
+    if (argv[i] === "--closed-loop") {
+      options.requestsPerSecondPerConnection = undefined;
+      i -= 1;
+      continue;
+    }
     const key = flags[argv[i]];
     const value = Number(argv[i + 1]);
-    if (!key) throw new Error(`unknown argument ${argv[i]} (known: --duration <s>, --connections <n>, --rate <requests/s per connection>)`);
-    if (!Number.isInteger(value) || value < 1) throw new Error(`${argv[i]} needs a positive whole number, got ${argv[i + 1]}`);
+    if (!key) throw new Error(`unknown argument ${argv[i]} (${known})`);
+    const least = key === "warmupSeconds" ? 0 : 1;
+    if (!Number.isInteger(value) || value < least) throw new Error(`${argv[i]} needs a whole number of at least ${least}, got ${argv[i + 1]}`);
     options[key] = value;
   }
   return options;
@@ -66,7 +78,7 @@ function tearDown() {
 }
 
 async function main() {
-  const { durationSeconds, connections, requestsPerSecondPerConnection } = parseArgs(process.argv.slice(2));
+  const { durationSeconds, connections, requestsPerSecondPerConnection, warmupSeconds } = parseArgs(process.argv.slice(2));
   ensureNodeModules(repoRoot);
   ensureDebianPackages(["postgresql"]);
 
@@ -103,10 +115,11 @@ async function main() {
   await runOrThrow("load seed", bin("tsx"), ["scripts/load/seed-load.ts", "--out", seedFile], { cwd: repoRoot, env });
   const seed = JSON.parse(readFileSync(seedFile, "utf8"));
 
+  const appProcesses = Number(env.ARCWRIGHT_WEB_PROCESSES || availableParallelism());
   let isRunning = true;
-  const server = startChild("next start", bin("next"), ["start", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
+  const server = startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
   const serverExit = new Promise((_, reject) => {
-    server.once("exit", (code) => isRunning && reject(new Error(`next start exited (${code}) during the load run`)));
+    server.once("exit", (code) => isRunning && reject(new Error(`the app (scripts/serve.mjs) exited (${code}) during the load run`)));
   });
   serverExit.catch(() => {});
   await Promise.race([waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 }), serverExit]);
@@ -117,27 +130,25 @@ async function main() {
   const kinds = requestKinds(seed);
   await preflight(appUrl, kinds, members);
 
+  let warmupFailures = 0;
+  const mix = { appUrl, kinds, members, totalConnections: connections, requestsPerSecondPerConnection, onStart: (stop) => (stopLoad = stop) };
+  if (warmupSeconds > 0) {
+    log("load", `warm-up: ${warmupSeconds} s of the same load, not counted`);
+    const warmup = new Recorder(kinds.map((kind) => kind.name));
+    await Promise.race([runMix({ ...mix, durationSeconds: warmupSeconds, recorder: warmup }), serverExit]);
+    warmupFailures = warmup.failures();
+    if (warmupFailures > 0) log("load", `warm-up: ${warmupFailures} requests errored or answered non-2xx (they fail the run too)`);
+  }
   const recorder = new Recorder(kinds.map((kind) => kind.name));
   const machineBefore = machineLine();
   log("load", `${connections} connections for ${durationSeconds} s against ${appUrl}`);
   const cpuSinceStart = startCpuCount({ appPid: server.pid, databasePid: postgresPid(cluster.dataDir) });
-  const { elapsedSeconds, instanceCount } = await Promise.race([
-    runMix({
-      appUrl,
-      kinds,
-      members,
-      durationSeconds,
-      totalConnections: connections,
-      requestsPerSecondPerConnection,
-      recorder,
-      onStart: (stop) => (stopLoad = stop),
-    }),
-    serverExit,
-  ]);
+  const { elapsedSeconds, instanceCount } = await Promise.race([runMix({ ...mix, durationSeconds, recorder }), serverExit]);
   const cpuMs = cpuSinceStart();
   isRunning = false;
   const pacing = requestsPerSecondPerConnection ? `each paced to ${requestsPerSecondPerConnection} request/s` : "each sending its next request as soon as the last is answered";
-  const settings = `${connections} connections ${pacing} (${instanceCount} autocannon instances, one per kind and member), DATABASE_POOL_MAX=${env.DATABASE_POOL_MAX ?? "unset (lib/env.ts default)"}`;
+  const instancesOf = requestsPerSecondPerConnection ? "one per connection" : "one per kind and member";
+  const settings = `${connections} connections ${pacing} (${instanceCount} autocannon instances, ${instancesOf}), ${appProcesses} app processes, DATABASE_POOL_MAX=${env.DATABASE_POOL_MAX ?? "unset (lib/env.ts default)"} each`;
   const failed = printReport({
     kinds,
     recorder,
@@ -145,10 +156,11 @@ async function main() {
     connections,
     isPaced: requestsPerSecondPerConnection !== undefined,
     cpuMs,
+    appProcesses,
     settings,
     machineBefore,
   });
-  return failed === 0 ? 0 : 1;
+  return failed + warmupFailures === 0 ? 0 : 1;
 }
 
 let exitCode = 1;
