@@ -30,12 +30,14 @@ export interface ProposalSummary {
 export interface ProposalDetail extends ProposalInput {
   id: string;
   role: ProposalRole;
+  /** A site admin reading a proposal they are not on (with a viewer's rights). */
+  isAudit: boolean;
   permissions: Permissions;
   createdAt: string;
   updatedAt: string;
 }
 
-function detailOf(p: Proposal, role: ProposalRole): ProposalDetail {
+function detailOf(p: Proposal, { role, isAudit }: { role: ProposalRole; isAudit: boolean }): ProposalDetail {
   return {
     id: p.id,
     title: p.title,
@@ -52,6 +54,7 @@ function detailOf(p: Proposal, role: ProposalRole): ProposalDetail {
     },
     instrument: instrumentSettingsOf(p),
     role,
+    isAudit,
     permissions: permissionsFor(role),
     createdAt: p.createdAt.toISOString(),
     updatedAt: p.updatedAt.toISOString(),
@@ -113,14 +116,14 @@ export async function createProposal(input: unknown, actor: Actor | null): Promi
       .returning();
     await tx.insert(proposalMembers).values({ proposalId: proposal.id, userId, role: "pi" });
     await recordActivity(tx, { proposalId: proposal.id, actorId: userId, action: "proposal.created", subject: proposal.title });
-    return detailOf(proposal, "pi");
+    return detailOf(proposal, { role: "pi", isAudit: false });
   });
 }
 
 export async function getProposal(params: unknown, actor: Actor | null): Promise<ProposalDetail> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
   const access = await loadAccess(dbClient().db, proposalId, requireActor(actor));
-  return detailOf(access.proposal, access.role);
+  return detailOf(access.proposal, access);
 }
 
 function requireConsistentSettings(fields: FieldErrors): void {
@@ -139,7 +142,7 @@ export async function updateProposal(params: unknown, input: unknown, actor: Act
   const who = requireActor(actor);
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "manage", "proposal");
-    const current = detailOf(access.proposal, access.role);
+    const current = detailOf(access.proposal, access);
     requireConsistentSettings(
       proposalSettingsErrors({
         cycleStartDate: data.cycleStartDate === undefined ? current.cycleStartDate : data.cycleStartDate,
@@ -154,7 +157,7 @@ export async function updateProposal(params: unknown, input: unknown, actor: Act
       .returning();
     if (data.instrument && changesLensingScales(current.instrument, data.instrument)) await rederiveTargets(tx, proposalId, instrumentOf(proposal));
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "proposal.updated", subject: proposal.title });
-    return detailOf(proposal, access.role);
+    return detailOf(proposal, access);
   });
 }
 
@@ -183,7 +186,7 @@ export async function getProposalSky(params: unknown, actor: Actor | null): Prom
       .limit(SEASON_MAX_TARGETS),
     db.select({ total: count() }).from(targets).where(eq(targets.proposalId, proposalId)),
   ]);
-  return { proposal: detailOf(access.proposal, access.role), targets: rows, total };
+  return { proposal: detailOf(access.proposal, access), targets: rows, total };
 }
 
 /** PI only; targets, notes, members and the feed go with it. */

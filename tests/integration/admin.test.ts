@@ -64,6 +64,9 @@ describe("site admin: auditing proposals", () => {
     const admin = await createUser("auditor", "admin");
     const proposal = await getProposal({ proposalId: world.proposalId }, admin);
     expect(proposal.role).toBe("viewer");
+    // The page says so rather than calling the admin a viewer of the team (a regression: it did).
+    expect(proposal.isAudit).toBe(true);
+    expect((await getProposal({ proposalId: world.proposalId }, world.actors.viewer)).isAudit).toBe(false);
     expect(proposal.permissions).toEqual({ canEdit: false, canManage: false, canDelete: false });
     expect((await listTargets({ proposalId: world.proposalId }, {}, admin)).total).toBe(1);
     const refused = await updateTarget({ proposalId: world.proposalId, targetId: world.targetId }, { priority: 1 }, admin).catch((e: AppError) => e);

@@ -34,7 +34,10 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
         </p>
         <h1 className="text-3xl font-bold">{proposal.title}</h1>
         <p className="text-sm">
-          Your role: <span className="font-semibold" data-testid="my-role">{roleLabels[proposal.role]}</span>
+          Your role:{" "}
+          <span className="font-semibold" data-testid="my-role">
+            {proposal.isAudit ? "Site admin, auditing (read only)" : roleLabels[proposal.role]}
+          </span>
         </p>
         {proposal.abstract && <p className="max-w-3xl leading-relaxed text-dusk-dim">{proposal.abstract}</p>}
         <nav aria-label="Proposal views" className="flex flex-wrap gap-3 text-sm">
