@@ -1,5 +1,5 @@
 import "server-only";
-import { and, asc, eq, inArray } from "drizzle-orm";
+import { and, asc, eq, inArray, type SQL } from "drizzle-orm";
 import { z } from "zod";
 import { dbClient, type Database } from "@/db/client";
 import { noteAttachments, notes, targets, uploadedFiles } from "@/db/schema";
@@ -182,12 +182,24 @@ export async function deleteAttachment(params: unknown, actor: Actor | null): Pr
  * Inside the transaction that deletes a note: forgets the file records of its attachments and
  * returns their keys, for `deleteStoredFiles` once that transaction has committed.
  */
-export async function forgetNoteFiles(tx: Pick<Database, "select" | "delete">, noteId: string): Promise<string[]> {
+export function forgetNoteFiles(tx: FileForgetter, noteId: string): Promise<string[]> {
+  return forgetAttachedFiles(tx, eq(noteAttachments.noteId, noteId));
+}
+
+/** The same for every note of a target, inside the transaction that deletes the target. */
+export function forgetTargetFiles(tx: FileForgetter, targetId: string): Promise<string[]> {
+  return forgetAttachedFiles(tx, eq(notes.targetId, targetId));
+}
+
+type FileForgetter = Pick<Database, "select" | "delete">;
+
+async function forgetAttachedFiles(tx: FileForgetter, which: SQL): Promise<string[]> {
   const rows = await tx
     .select({ id: uploadedFiles.id, key: uploadedFiles.key })
     .from(noteAttachments)
     .innerJoin(uploadedFiles, eq(uploadedFiles.id, noteAttachments.fileId))
-    .where(eq(noteAttachments.noteId, noteId));
+    .innerJoin(notes, eq(notes.id, noteAttachments.noteId))
+    .where(which);
   if (rows.length > 0) await tx.delete(uploadedFiles).where(inArray(uploadedFiles.id, rows.map((row) => row.id)));
   return rows.map((row) => row.key);
 }

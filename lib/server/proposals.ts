@@ -1,7 +1,7 @@
 import "server-only";
 import { asc, count, desc, eq } from "drizzle-orm";
 import { dbClient } from "@/db/client";
-import { proposalMembers, proposals, targets, type Proposal } from "@/db/schema";
+import { proposalMembers, proposals, targets, uploadedFiles, type Proposal } from "@/db/schema";
 import { SEASON_MAX_TARGETS } from "@/lib/astro/season";
 import { AppError, type FieldErrors } from "@/lib/errors";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
@@ -17,6 +17,7 @@ import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { changesLensingScales, instrumentOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
+import { deleteStoredFiles } from "@/lib/server/uploads";
 
 export interface ProposalSummary {
   id: string;
@@ -193,8 +194,13 @@ export async function getProposalSky(params: unknown, actor: Actor | null): Prom
 export async function deleteProposal(params: unknown, actor: Actor | null): Promise<void> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
   const who = requireActor(actor);
-  await dbClient().db.transaction(async (tx) => {
+  const storedKeys = await dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "delete", "proposal");
+    // Every file record (note attachments, imported target lists) goes with the proposal (cascade).
+    const files = await tx.select({ key: uploadedFiles.key }).from(uploadedFiles).where(eq(uploadedFiles.proposalId, proposalId));
     await tx.delete(proposals).where(eq(proposals.id, proposalId));
+    return files.map((file) => file.key);
   });
+  // The stored bytes go only once the proposal is gone for certain.
+  await deleteStoredFiles(storedKeys);
 }

@@ -16,9 +16,11 @@ import {
 } from "@/lib/workspace/target-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
+import { forgetTargetFiles } from "@/lib/server/attachments";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { instrumentOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
+import { deleteStoredFiles } from "@/lib/server/uploads";
 
 /** A target as the API and the pages see it. */
 export interface TargetView extends LensHypothesis, DerivedColumns {
@@ -199,10 +201,15 @@ export async function updateTarget(params: unknown, input: unknown, actor: Actor
 export async function deleteTarget(params: unknown, actor: Actor | null): Promise<void> {
   const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
   const who = requireActor(actor);
-  await dbClient().db.transaction(async (tx) => {
+  const storedKeys = await dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "edit", "target");
     const target = await loadTarget(tx, proposalId, targetId);
+    // Its notes and their attachments go with it (cascade); the file records are the proposal's, so they are forgotten here.
+    const keys = await forgetTargetFiles(tx, targetId);
     await tx.delete(targets).where(eq(targets.id, targetId));
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "target.removed", subject: target.name });
+    return keys;
   });
+  // The attachments' bytes go only once the target is gone for certain.
+  await deleteStoredFiles(storedKeys);
 }

@@ -3,7 +3,9 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { noteAttachments, uploadedFiles } from "@/db/schema";
 import { deleteAttachment, listAttachments } from "@/lib/server/attachments";
-import { deleteNote } from "@/lib/server/notes";
+import { createNote, deleteNote } from "@/lib/server/notes";
+import { deleteProposal } from "@/lib/server/proposals";
+import { deleteTarget } from "@/lib/server/targets";
 import { card, fitsFile } from "../unit/imports/fits";
 import { createWorld, type World } from "./support/world";
 import { startUploadService, type UploadService } from "./support/upload-service";
@@ -87,5 +89,41 @@ describe("note attachments through the upload service", () => {
     const [left] = await db.select({ n: count() }).from(noteAttachments).where(eq(noteAttachments.noteId, world.noteId));
     expect(left.n).toBe(0);
     expect(await fileRows(world.proposalId)).toBe(0);
+  });
+
+  it("deleting a target deletes the stored bytes of its notes' attachments, and only those (a regression: they were left behind)", async () => {
+    const world = await createWorld();
+    const onNote = await attach(world, "on-note.png", png);
+    // A second note on the same target.
+    const other = await createNote({ proposalId: world.proposalId, targetId: world.targetId }, { body: "Second look." }, world.actors.coi);
+    const onOther = await service.uploadAs(world.actors.coi, "noteAttachment", { ...noteInput(world), noteId: other.id }, { name: "other.png", bytes: png });
+    if (onOther.stage !== "stored") throw new Error(`refused before upload: ${onOther.message}`);
+    const elsewhere = await createWorld();
+    const kept = await attach(elsewhere, "kept.png", png);
+
+    await expect(deleteTarget({ proposalId: world.proposalId, targetId: world.targetId }, world.actors.viewer)).rejects.toMatchObject({ code: "forbidden:target" });
+    expect(await service.isStored(onNote.key)).toBe(true);
+    await deleteTarget({ proposalId: world.proposalId, targetId: world.targetId }, world.actors.coi);
+    expect(await service.isStored(onNote.key)).toBe(false);
+    expect(await service.isStored(onOther.key)).toBe(false);
+    expect(await fileRows(world.proposalId)).toBe(0);
+    expect(await service.isStored(kept.key)).toBe(true);
+  });
+
+  it("deleting a proposal deletes the stored bytes of every file it held", async () => {
+    const world = await createWorld();
+    const attached = await attach(world, "attached.png", png);
+    // A target list held for its import record (PI or Co-I upload it; the import itself is not needed).
+    const list = await service.uploadAs(world.actors.coi, "targetList", { proposalId: world.proposalId }, { name: "list.csv", bytes: new TextEncoder().encode("name,ra,dec\nK-1,10.0,-20.0\n"), type: "text/csv" });
+    if (list.stage !== "stored") throw new Error(`refused before upload: ${list.message}`);
+    const elsewhere = await createWorld();
+    const kept = await attach(elsewhere, "kept.png", png);
+    await expect(deleteProposal({ proposalId: world.proposalId }, world.actors.coi)).rejects.toMatchObject({ code: "forbidden:proposal" });
+    expect(await service.isStored(attached.key)).toBe(true);
+    await deleteProposal({ proposalId: world.proposalId }, world.actors.pi);
+    expect(await service.isStored(attached.key)).toBe(false);
+    expect(await service.isStored(list.key)).toBe(false);
+    expect(await fileRows(world.proposalId)).toBe(0);
+    expect(await service.isStored(kept.key)).toBe(true);
   });
 });
