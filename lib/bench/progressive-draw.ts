@@ -8,7 +8,7 @@
  *
  * How many segments a frame can hold depends on the machine and on what else runs on it: on the
  * 2-core test machine a frame of the demo bundle took 38–67 ms at 8,000 segments when quiet, and
- * 4,000-segment frames took 55–77 ms while a second browser rasterized beside it. So the share is
+ * 4,000-segment frames took 51–117 ms while a second browser rasterized beside it. So the share is
  * steered by the measured cost of each frame (`nextFrameSegments`) rather than fixed.
  */
 
@@ -23,14 +23,18 @@ export interface DrawGroup {
 export const FIRST_FRAME_SEGMENTS = 4000;
 
 /**
- * Segments in the first frame of a new bundle, which also copies the bundle's buffers to the GPU: in
- * a Chromium trace of the 5,000-ray demo bundle on a busy machine, that frame waited 55 ms for the GPU
- * process when it also drew a full share. It is not timed, so it does not shrink the shares after it.
+ * Segments in the first frame of a new bundle, which also copies the bundle's buffers to the GPU
+ * (3.4 MB of vertices, line distances and index for the demo bundle): in a Chromium trace on a busy
+ * machine, that frame waited 55 ms for the GPU process when it also drew a full share. It is not
+ * timed, so it does not shrink the shares after it.
  */
 export const UPLOAD_FRAME_SEGMENTS = 500;
 
-/** Bounds of a frame's share, segments: at least enough to finish 5,000 rays in about a second. */
-export const MIN_FRAME_SEGMENTS = 500;
+/**
+ * Bounds of a frame's share, segments. The 5,000-ray demo bundle has 136,845 segments: however slow
+ * the machine, it is drawn in at most 137 frames (about 2.3 s at 60 Hz).
+ */
+export const MIN_FRAME_SEGMENTS = 1000;
 export const MAX_FRAME_SEGMENTS = 64_000;
 
 /**
