@@ -20,4 +20,16 @@ describe("note Markdown", () => {
     expect(html).not.toMatch(/href="javascript:/i);
     expect(html).not.toMatch(/<img/i);
   });
+
+  it("shows an image from another site as a link to it (the CSP would block it), and the app's own image as an image", () => {
+    const html = render("![finder chart](https://archive.example.org/k17.png)\n\n![](//cdn.example.org/a.png)\n\n![local chart](/charts/k17.png)");
+    expect(html).toContain('<a href="https://archive.example.org/k17.png" target="_blank" rel="noopener noreferrer nofollow">Image: finder chart</a>');
+    expect(html).toContain('<a href="//cdn.example.org/a.png" target="_blank" rel="noopener noreferrer nofollow">Image: //cdn.example.org/a.png</a>');
+    expect(html).toContain('<img src="/charts/k17.png" alt="local chart"/>');
+    expect(html.match(/<img/g)).toHaveLength(1);
+    // A source the sanitizer refuses keeps only the words.
+    const refused = render("![a chart](javascript:alert(1))");
+    expect(refused).toContain("<p><span>a chart</span></p>");
+    expect(refused).not.toMatch(/<img|javascript:/);
+  });
 });
