@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { sameSitePath } from "@/lib/auth/callback-path";
-import { storedText } from "@/lib/workspace/stored-text";
+import { nameText } from "@/lib/workspace/stored-text";
 import { emailSchema, tokenSchema } from "@/lib/workspace/member-schema";
 
 export const passwordSchema = z
@@ -10,7 +10,7 @@ export const passwordSchema = z
 
 export const accountSchema = z.object({
   email: emailSchema,
-  name: storedText().trim().min(1, "Tell your team what to call you.").max(100),
+  name: nameText().trim().min(1, "Tell your team what to call you.").max(100),
   password: passwordSchema,
 });
 

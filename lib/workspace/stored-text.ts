@@ -13,3 +13,21 @@ export function storedText() {
     .refine((text) => !text.includes("\u0000"), "Text cannot contain the NUL character (U+0000).")
     .refine((text) => !/\p{Cs}/u.test(text), "Text cannot contain half of a surrogate pair (U+D800–U+DFFF): it is not valid Unicode.");
 }
+
+/**
+ * Unicode's explicit direction controls: embeddings and overrides (U+202A–U+202E) and isolates
+ * (U+2066–U+2069). In a name they make it display in another order than it is stored, so two
+ * targets or people can look alike in a list while differing (Unicode Technical Report #36,
+ * "Unicode Security Considerations", bidirectional text spoofing; the "Trojan Source" attack,
+ * CVE-2021-42574). The implicit marks (U+200E, U+200F, U+061C), which right-to-left writing
+ * needs, stay allowed.
+ */
+const directionControls = /[\u202A-\u202E\u2066-\u2069]/u;
+
+/** A name the team reads in lists (a target, a proposal, a cycle, a site, a person): stored text without direction controls. */
+export function nameText() {
+  return storedText().refine(
+    (text) => !directionControls.test(text),
+    "Names cannot contain Unicode direction controls (U+202A–U+202E, U+2066–U+2069): they show a name in another order than it is stored.",
+  );
+}

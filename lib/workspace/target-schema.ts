@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { storedText } from "@/lib/workspace/stored-text";
+import { nameText } from "@/lib/workspace/stored-text";
 import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
@@ -33,7 +33,7 @@ const tagSchema = z.string().trim().min(1).max(32, "A tag is at most 32 characte
  * come in as typed (`ra`, `dec`) and leave as ICRS degrees.
  */
 export const targetFieldsSchema = z.object({
-  name: storedText().trim().min(1, "Name the target.").max(120),
+  name: nameText().trim().min(1, "Name the target.").max(120),
   ra: coordinate(parseRightAscensionDeg),
   dec: coordinate(parseDeclinationDeg),
   lensModel: z.enum(lensModels, { error: "The lens model is point or sis." }),

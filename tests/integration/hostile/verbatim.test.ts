@@ -36,6 +36,8 @@ const verbatimText = (maxLength: number) =>
     .oneof(fc.constantFrom(...sqlLookingTexts), fc.array(fc.oneof(sqlFragment, anyText), { minLength: 1, maxLength: 6 }).map((parts) => parts.join("")))
     .map((text) => cutAt(text.trim(), maxLength).trim())
     .filter((text) => text.length > 0 && !text.includes("\u0000") && !/\p{Cs}/u.test(text));
+// Names also refuse Unicode's direction controls by design (nameText in lib/workspace/stored-text.ts).
+const verbatimName = (maxLength: number) => verbatimText(maxLength).filter((text) => !/[\u202A-\u202E\u2066-\u2069]/u.test(text));
 
 /** The first `length` UTF-16 units of `text`, never ending in half of a surrogate pair. */
 const cutAt = (text: string, length: number) => text.slice(0, /[\uD800-\uDBFF]/.test(text.charAt(length - 1)) ? length - 1 : length);
@@ -56,7 +58,7 @@ describe("SQL-looking text is stored and shown verbatim", () => {
 
   it("target names: read back byte for byte, and a search for the name finds the target", async () => {
     await fc.assert(
-      fc.asyncProperty(verbatimText(120), async (name) => {
+      fc.asyncProperty(verbatimName(120), async (name) => {
         const created = await expectAccepted(await targetCollectionRoutes(asPi).POST(json("POST", `${base()}/targets`, { ...pointTargetInput, name }), context({ proposalId: world.proposalId })), 201);
         const id = (created.body as { target: { id: string; name: string } }).target.id;
         expect((created.body as { target: { name: string } }).target.name).toBe(name);
@@ -94,7 +96,7 @@ describe("SQL-looking text is stored and shown verbatim", () => {
   it("proposal titles, cycles and abstracts: read back byte for byte", async () => {
     const params = { proposalId: world.proposalId };
     await fc.assert(
-      fc.asyncProperty(verbatimText(200), verbatimText(40), verbatimText(5000), async (title, cycle, abstract) => {
+      fc.asyncProperty(verbatimName(200), verbatimName(40), verbatimText(5000), async (title, cycle, abstract) => {
         const saved = await expectAccepted(await proposalRoutes(asPi).PATCH(json("PATCH", base(), { title, cycle, abstract }), context(params)), 200);
         expect((saved.body as { proposal: { title: string } }).proposal.title).toBe(title);
         const read = await expectAccepted(await proposalRoutes(asPi).GET(new Request(base()), context(params)), 200);
@@ -102,6 +104,18 @@ describe("SQL-looking text is stored and shown verbatim", () => {
       }),
       { numRuns: runs },
     );
+  });
+
+  // Unicode TR #36 (bidirectional spoofing), CVE-2021-42574: a name must read in the order it is stored.
+  it("a direction override in a target name is a 400 naming the field, and nothing is stored; a note keeps it", async () => {
+    const before = await dbClient().sql`select count(*)::int as n from targets where proposal_id = ${world.proposalId}`;
+    const target = await answerOf(await targetCollectionRoutes(asPi).POST(json("POST", `${base()}/targets`, { ...pointTargetInput, name: "TB-ML\u202E71-1" }), context({ proposalId: world.proposalId })));
+    expectDocumentedAnswer(target, { inputNames: ["name"] });
+    expect(target.status).toBe(400);
+    expect(Object.keys((target.body as { error: { fields: object } }).error.fields)).toEqual(["name"]);
+    expect(await dbClient().sql`select count(*)::int as n from targets where proposal_id = ${world.proposalId}`).toEqual(before);
+    const note = await expectAccepted(await noteCollectionRoutes(asPi).POST(json("POST", `${base()}/targets/${world.targetId}/notes`, { body: "seeing \u202E0.8" }), context({ proposalId: world.proposalId, targetId: world.targetId })), 201);
+    expect((note.body as { note: { body: string } }).note.body).toBe("seeing \u202E0.8");
   });
 
   // Neither can be stored as sent: PostgreSQL text has no U+0000 (manual, "Character Types") and UTF-8

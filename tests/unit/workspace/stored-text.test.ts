@@ -41,7 +41,29 @@ describe("text fields refuse the NUL character before it reaches the database", 
   });
 
   it("keeps every other character, SQL-looking text included", () => {
-    const name = "'); DROP TABLE targets; -- \u202E \t";
+    const name = "'); DROP TABLE targets; -- \t ٢٣ \u200F";
     expect(createTargetSchema.parse({ ...target, name }).name).toBe(name.trim());
+  });
+});
+
+// Unicode Technical Report #36 (bidirectional text spoofing) and CVE-2021-42574 ("Trojan Source"):
+// an override such as U+202E shows "TB-ML\u202E71-1" in another order than it is stored.
+describe("names refuse Unicode direction controls; the implicit marks and free text keep them", () => {
+  const controls = ["\u202A", "\u202B", "\u202C", "\u202D", "\u202E", "\u2066", "\u2067", "\u2068", "\u2069"];
+
+  it("in a target's name, a proposal's title, cycle and site name, and an account's name", () => {
+    for (const control of controls) {
+      expect(refusedFields(createTargetSchema.safeParse({ ...target, name: `CBW${control}-17` }))).toEqual(["name"]);
+      const hostile = { ...proposal, title: `A${control}b`, cycle: `20${control}33A`, site: { ...proposal.site, name: `Mesa${control} Lucerna` } };
+      expect(refusedFields(createProposalSchema.safeParse(hostile)).sort()).toEqual(["cycle", "site.name", "title"]);
+      expect(refusedFields(accountSchema.safeParse({ email: "a@example.org", name: `Ilse${control}`, password: "long-enough-password" }))).toEqual(["name"]);
+    }
+  });
+
+  it("keeps the left-to-right, right-to-left and Arabic letter marks in names, and every control in a note or an abstract", () => {
+    const name = "\u05D0\u200E-17 \u200F \u061C";
+    expect(createTargetSchema.parse({ ...target, name }).name).toBe(name);
+    expect(createNoteSchema.parse({ body: "seeing \u202E0.8" }).body).toBe("seeing \u202E0.8");
+    expect(createProposalSchema.parse({ ...proposal, abstract: "\u2067rtl\u2069" }).abstract).toBe("\u2067rtl\u2069");
   });
 });
