@@ -1,32 +1,12 @@
 // CPU time spent by the processes of a run, read from Linux's /proc. On a machine shared with other
 // work, latency says how busy the machine was; CPU time per request says what a request costs.
-import { readdirSync, readFileSync } from "node:fs";
+import { readFileSync } from "node:fs";
 import { join } from "node:path";
-
-/** /proc/<pid>/stat counts in clock ticks; Linux reports them at USER_HZ = 100 on every common build. */
-const msPerTick = 10;
-
-/** utime + stime of one process in ms, and its parent's pid; undefined once it has exited. */
-function statOf(pid) {
-  try {
-    // The command name (field 2) may hold spaces and parentheses: the fields that follow come after the last ")".
-    const text = readFileSync(`/proc/${pid}/stat`, "utf8");
-    const fields = text.slice(text.lastIndexOf(")") + 2).split(" ");
-    return { parentPid: Number(fields[1]), cpuMs: (Number(fields[11]) + Number(fields[12])) * msPerTick };
-  } catch {
-    return undefined;
-  }
-}
+import { childPids, processStat } from "../lib/proc.mjs";
 
 /** CPU ms of a process and of its direct children (a PostgreSQL server and its backends; the app's `next start` processes). */
 function cpuMsWithChildren(pid) {
-  let total = statOf(pid)?.cpuMs ?? 0;
-  for (const entry of readdirSync("/proc")) {
-    if (!/^\d+$/.test(entry)) continue;
-    const stat = statOf(entry);
-    if (stat?.parentPid === pid) total += stat.cpuMs;
-  }
-  return total;
+  return [pid, ...childPids(pid)].reduce((total, each) => total + (processStat(each)?.cpuMs ?? 0), 0);
 }
 
 /** The server's pid from its data folder (first line of postmaster.pid). */

@@ -1,6 +1,6 @@
-import { readdirSync, readFileSync } from "node:fs";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoAccounts, demoProposal } from "@/db/seed/demo-scenario";
+import { childPids } from "@/scripts/lib/proc.mjs";
 import { startCluster, startInstance, tailOf, type AppInstance, type TestCluster } from "./support/instances";
 import { proposalIdByTitle, signIn } from "./support/members";
 
@@ -26,21 +26,6 @@ async function launch(name: string): Promise<AppInstance> {
   const instance = await startInstance({ databaseUrl, logDir: cluster!.root, name, webProcesses: 2 });
   launched.push(instance);
   return instance;
-}
-
-/** Live processes whose parent is `pid` (Linux /proc; field 4 of stat is the parent's pid). */
-function childPids(pid: number): number[] {
-  const children: number[] = [];
-  for (const entry of readdirSync("/proc").filter((name) => /^\d+$/.test(name))) {
-    try {
-      const stat = readFileSync(`/proc/${entry}/stat`, "utf8");
-      const fields = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
-      if (Number(fields[1]) === pid && fields[0] !== "Z") children.push(Number(entry));
-    } catch {
-      // exited while being read
-    }
-  }
-  return children;
 }
 
 const isAlive = (pid: number) => {

@@ -32,3 +32,10 @@ declare module "@/scripts/lib/ports.mjs" {
   /** Polls `url` until it answers `expectStatus` (200), or throws after `timeoutMs`. */
   export function waitForHttp(url: string, options?: { timeoutMs?: number; expectStatus?: number }): Promise<void>;
 }
+
+declare module "@/scripts/lib/proc.mjs" {
+  /** A process's state letter, parent's pid and CPU time (ms) from /proc/<pid>/stat; undefined once it has exited. */
+  export function processStat(pid: number | string): { state: string; parentPid: number; cpuMs: number } | undefined;
+  /** The pids of the children of `pid` that are alive (zombies, exited but not yet reaped, left out). */
+  export function childPids(pid: number): number[];
+}
