@@ -1,9 +1,10 @@
 #!/usr/bin/env node
 // `npm run bench:load`: the load run, self-contained on a fresh clone. Starts a throwaway PostgreSQL
 // cluster, migrates it, builds the app into .next-load/ (reused while the sources are unchanged),
-// seeds one proposal with 1,000 targets and a team of five, serves it with scripts/serve.mjs (one `next start` per core), signs every
-// member in, drives it with autocannon (target-list reads, target edits, note writes) and prints
-// throughput and latency per request kind. Everything it started is stopped however it ends.
+// seeds one proposal with 1,000 targets and a team of five, serves it with scripts/serve.mjs (one
+// `next start` per core), signs every member in, drives it with autocannon (target-list reads,
+// target edits, note writes) and prints throughput and latency per request kind. Everything it
+// started is stopped however it ends.
 //
 //   npm run bench:load                         100 clients, each sending 1 request/s, for 60 s
 //   npm run bench:load -- --rate 2             each client sends 2 requests/s
