@@ -111,6 +111,7 @@ export async function preflight(appUrl, kinds, members) {
  */
 export async function runMix({ appUrl, kinds, members, durationSeconds, totalConnections, requestsPerSecondPerConnection, recorder, onStart }) {
   const instances = [];
+  /** Paced connections still waiting for their moment to start. */
   const starts = [];
   let isStopped = false;
   const launch = (kind, member, connections) => {
@@ -141,7 +142,7 @@ export async function runMix({ appUrl, kinds, members, durationSeconds, totalCon
     const senders = members.filter((m) => !kind.isWrite || m.role !== "viewer");
     for (const { member, connections } of dealConnections(count, senders)) {
       if (periodMs === 0) {
-        starts.push(launch(kind, member, connections));
+        launch(kind, member, connections);
         continue;
       }
       for (let c = 0; c < connections; c++) {
