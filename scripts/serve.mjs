@@ -9,24 +9,16 @@
 // ARCWRIGHT_WEB_PROCESSES sets how many (default: the cores Node may use). A process that dies after
 // it was serving is replaced; one that dies before it listened (a broken build, a bad environment)
 // stops them all, rather than restarting in a loop. SIGTERM or SIGINT stops them all and exits once
-// they have. When this process itself is
-// killed, each `next start` exits on losing its link to it (node:cluster's rule for an orphaned worker).
+// they have. When this process itself is killed, each `next start` exits on losing its link to it
+// (node:cluster's rule for an orphaned worker).
 import cluster from "node:cluster";
-import { availableParallelism } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
+import { webProcessCount } from "./lib/web-processes.mjs";
 
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
 
-function processCount() {
-  const given = process.env.ARCWRIGHT_WEB_PROCESSES;
-  if (given === undefined || given === "") return availableParallelism();
-  const count = Number(given);
-  if (!Number.isInteger(count) || count < 1) throw new Error(`ARCWRIGHT_WEB_PROCESSES must be a whole number of at least 1, got ${given}`);
-  return count;
-}
-
-const count = processCount();
+const count = webProcessCount();
 cluster.setupPrimary({ exec: join(repoRoot, "node_modules", "next", "dist", "bin", "next"), args: ["start", ...process.argv.slice(2)] });
 const listened = new Set();
 cluster.on("listening", (worker) => listened.add(worker.id));
@@ -40,7 +32,8 @@ cluster.on("exit", (worker, code, signal) => {
     return;
   }
   const what = `next start (pid ${worker.process.pid}) exited (${signal ?? code})`;
-  if (!listened.has(worker.id)) {
+  const hadListened = listened.delete(worker.id);
+  if (!hadListened) {
     console.error(`[serve] ${what} before it listened; stopping`);
     stop(1);
     return;

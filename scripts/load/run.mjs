@@ -18,7 +18,7 @@
 // Exits 0 when every request answered 2xx (timing targets are printed as met/missed, never fail it),
 // 1 when a request errored or answered otherwise, or when the run itself broke.
 import { chmodSync, mkdtempSync, readFileSync, rmSync } from "node:fs";
-import { availableParallelism, tmpdir } from "node:os";
+import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { appEnvironment } from "../lib/app-env.mjs";
@@ -36,6 +36,7 @@ import { postgresPid, startCpuCount } from "./cpu-time.mjs";
 import { preflight, requestKinds, runMix } from "./mix.mjs";
 import { machineLine, printReport, Recorder } from "./report.mjs";
 import { signIn } from "../lib/sign-in.mjs";
+import { webProcessCount } from "../lib/web-processes.mjs";
 
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../../..");
 const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
@@ -116,7 +117,7 @@ async function main() {
   await runOrThrow("load seed", bin("tsx"), ["scripts/load/seed-load.ts", "--out", seedFile], { cwd: repoRoot, env });
   const seed = JSON.parse(readFileSync(seedFile, "utf8"));
 
-  const appProcesses = Number(env.ARCWRIGHT_WEB_PROCESSES || availableParallelism());
+  const appProcesses = webProcessCount(env);
   let isRunning = true;
   const server = startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
   const serverExit = new Promise((_, reject) => {
