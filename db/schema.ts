@@ -71,12 +71,39 @@ export const authTokens = pgTable(
     purpose: authTokenPurpose("purpose").notNull(),
     expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
     usedAt: timestamp("used_at", { withTimezone: true }),
+    /**
+     * A sign-up's password (bcrypt) and name, carried by the confirmation link issued with them: the
+     * account takes them only when that very link is followed, so nobody else's sign-up for the same
+     * address, and no other link, can set the password of an account that is not confirmed yet.
+     */
+    pendingPasswordHash: text("pending_password_hash"),
+    pendingName: text("pending_name"),
     createdAt: createdAt(),
   },
   (t) => [index("auth_tokens_user_idx").on(t.userId)],
 );
 
 export type AuthToken = typeof authTokens.$inferSelect;
+
+/**
+ * Signed-in sessions. The session cookie (a signed next-auth JWT) names one row, and a request counts
+ * as signed in only while that row exists: deleting it ends the session for every copy of the cookie
+ * (sign-out, "sign out everywhere", a password reset; removing the account removes its rows).
+ */
+export const userSessions = pgTable(
+  "user_sessions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    userId: uuid("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
+    createdAt: createdAt(),
+  },
+  (t) => [index("user_sessions_user_idx").on(t.userId)],
+);
+
+export type UserSession = typeof userSessions.$inferSelect;
 
 /**
  * Fixed-window attempt counters (sign-in per account and per address). Kept in PostgreSQL so every
