@@ -4,10 +4,10 @@ export function fileSlug(title: string): string {
     .normalize("NFKD")
     .replace(/[^\x00-\x7F]/g, "")
     .toLowerCase()
-    .replace(/[^a-z0-9]+/g, "-")
-    .replace(/^-+|-+$/g, "")
+    .replace(/[^a-z0-9]+/g, "-") // every run is one "-" from here on, so one at each end is all there is to drop
+    .replace(/^-|-$/g, "")
     .slice(0, 60)
-    .replace(/-+$/, "");
+    .replace(/-$/, "");
   return slug === "" ? "arcwright" : slug;
 }
 

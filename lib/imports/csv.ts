@@ -5,14 +5,34 @@ import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
 
 const importError = (message: string) => new AppError("bad_request:import", message);
 
-/** "mass [Msun]" or "D_L (kpc)": the unit in brackets at the end of a header, common practice in catalogues. */
-const HEADER_UNIT = /^(.*?)\s*[[(]\s*([^\])]+?)\s*[\])]\s*$/;
+/** The longest header read; a longer one is no column name a person wrote. */
+export const MAX_HEADER_CHARS = 200;
+
+/**
+ * "mass [Msun]" or "D_L (kpc)": the unit in brackets at the end of a header, common practice in
+ * catalogues. The opening bracket is the first one after the last closing bracket before the end.
+ * Found by index, not a pattern: a lazy name, spaces and a lazy unit in one pattern backtrack
+ * polynomially on a header of spaces and brackets (600 characters took seconds).
+ */
+function splitTrailingUnit(text: string): ImportColumn | undefined {
+  if (!text.endsWith("]") && !text.endsWith(")")) return undefined;
+  const body = text.slice(0, -1);
+  const unitStart = Math.max(body.lastIndexOf("]"), body.lastIndexOf(")")) + 1;
+  const openings = [body.indexOf("[", unitStart), body.indexOf("(", unitStart)].filter((at) => at >= 0);
+  if (openings.length === 0) return undefined;
+  const open = Math.min(...openings);
+  const name = body.slice(0, open).trimEnd();
+  const unit = body.slice(open + 1).trim();
+  return name !== "" && unit !== "" ? { name, unit } : undefined;
+}
 
 export function columnFromHeader(header: string, index: number): ImportColumn {
   const text = header.trim();
   if (text === "") return { name: `column ${index + 1}` };
-  const match = HEADER_UNIT.exec(text);
-  return match && match[1] !== "" ? { name: match[1], unit: match[2] } : { name: text };
+  if (text.length > MAX_HEADER_CHARS) {
+    throw importError(`The header of column ${index + 1} is longer than ${MAX_HEADER_CHARS} characters; shorten it to the column's name.`);
+  }
+  return splitTrailingUnit(text) ?? { name: text };
 }
 
 /**

@@ -41,7 +41,9 @@ function readString(field: string): { value: string; rest: string } {
         i += 1;
         continue;
       }
-      return { value: value.replace(/ +$/, ""), rest: field.slice(i + 1) };
+      // Trailing spaces are not significant (§4.2.1.1); the look-behind starts a match only at the first
+      // of them, so a long run of inner spaces is not rescanned from each of its positions.
+      return { value: value.replace(/(?<! ) +$/, ""), rest: field.slice(i + 1) };
     }
     value += field[i];
   }
@@ -57,7 +59,7 @@ function readValue(text: string): string | number | boolean | null {
     return Number.isSafeInteger(integer) ? integer : text;
   }
   // Real numbers may use D for the exponent (§4.2.4).
-  if (/^[+-]?(?:\d+\.?\d*|\.\d+)(?:[ED][+-]?\d+)?$/i.test(text)) return Number(text.replace(/d/i, "e"));
+  if (/^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[ED][+-]?\d+)?$/i.test(text)) return Number(text.replace(/d/i, "e"));
   if (/^\(.*\)$/.test(text)) return text;
   throw new Error(`the value ${text} is not a FITS value`);
 }

@@ -6,7 +6,7 @@
 
 const FORMULA_LEAD = /^[=+\-@\t\r]/;
 // A plain decimal number is inert in every spreadsheet, so "-12.5" is left as it is.
-const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?$/i;
+const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
 
 /** Whether a text cell would start a formula in a spreadsheet. */
 export function isFormulaLike(text: string): boolean {

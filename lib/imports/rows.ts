@@ -40,7 +40,7 @@ export interface ImportPreview {
 
 // Spellings of "no value" in exported tables (common practice); such a cell is empty.
 const MISSING = new Set(["", "nan", "null", "none", "--", "-", "n/a", "na"]);
-const PLAIN_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?$/i;
+const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
 const HOUR_UNITS = new Set(["h", "hr", "hour", "hours", "hourangle"]);
 const DEGREE_UNITS = new Set(["deg", "degree", "degrees", "°"]);
 

@@ -62,20 +62,28 @@ const DIMENSIONS: { unit: string; word: string; article: string }[] = [
   { unit: "rad/s", word: "proper motion", article: "a" },
 ];
 
-/** Rewrites the common typographic spellings into what mathjs reads. */
+/** The longest quantity text read: "4.2×10^6 M☉" is a dozen characters; anything this long is not a quantity. */
+export const MAX_QUANTITY_CHARS = 100;
+
+/**
+ * Rewrites the common typographic spellings into what mathjs reads. Runs of white space are folded
+ * first, so that no pattern below meets more than one space in a row: an unanchored `\s*` before a
+ * symbol rescans a run of spaces from each of its positions (quadratic time).
+ */
 function normalize(text: string): string {
   return text
     .trim()
+    .replace(/\s+/g, " ")
     .replace(/[\u00b5\u03bc]/g, "u") // micro sign and Greek mu
     .replace(/[\u2212\u2013]/g, "-") // minus sign, en dash
-    .replace(/M\s*[\u2609\u2299]/g, "Msun") // M☉, M⊙
+    .replace(/M ?[\u2609\u2299]/g, "Msun") // M☉, M⊙
     .replace(/\bM_(sun|sol)\b/g, "Msun")
     .replace(/(\d),(\d{3})(?!\d)/g, "$1$2") // thousands separator: 1,000 pc
     .replace(/(\d),(\d)/g, "$1.$2") // decimal comma: 8,1 kpc
-    .replace(/(\d)\s*[x\u00d7*]\s*10\s*\^\s*([+-]?\d+)/g, "$1e$2") // 4×10^6
-    .replace(/\s*(\u2033|")\s*/g, " arcsec ")
-    .replace(/\s*(\u2032|')\s*/g, " arcmin ")
-    .replace(/\s*\u00b0\s*/g, " deg ")
+    .replace(/(\d) ?[x\u00d7*] ?10 ?\^ ?([+-]?\d+)/g, "$1e$2") // 4×10^6
+    .replace(/ ?[\u2033"] ?/g, " arcsec ")
+    .replace(/ ?[\u2032'] ?/g, " arcmin ")
+    .replace(/ ?\u00b0 ?/g, " deg ")
     .trim();
 }
 
@@ -90,7 +98,8 @@ interface ParseOptions {
   defaultUnit?: string;
 }
 
-const NUMBER_THEN_UNIT = /^([+-]?(?:\d+\.?\d*|\.\d+)(?:e[+-]?\d+)?)\s*(.*)$/i;
+/** The number a quantity starts with; the rest of the text is its unit. */
+const LEADING_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?/i;
 
 interface ParsedQuantity {
   /** The number as typed. */
@@ -107,10 +116,13 @@ interface ParsedQuantity {
  */
 function parseQuantity(kind: QuantityKind, text: string, accepted: string[], options: ParseOptions | undefined): ParsedQuantity {
   if (typeof text !== "string" || text.trim() === "") throw new QuantityError(kind, String(text), "is empty; type a number and a unit");
-  const match = NUMBER_THEN_UNIT.exec(normalize(text));
-  if (match === null) throw new QuantityError(kind, text, "is not a number followed by a unit");
-  const value = Number(match[1]);
-  const unitText = match[2] === "" ? (options?.defaultUnit ?? "") : match[2];
+  if (text.length > MAX_QUANTITY_CHARS) throw new QuantityError(kind, `${text.slice(0, 20)}…`, `is longer than ${MAX_QUANTITY_CHARS} characters; type a number and a unit`);
+  const normalized = normalize(text);
+  const number = LEADING_NUMBER.exec(normalized);
+  if (number === null) throw new QuantityError(kind, text, "is not a number followed by a unit");
+  const value = Number(number[0]);
+  const typedUnit = normalized.slice(number[0].length).trim();
+  const unitText = typedUnit === "" ? (options?.defaultUnit ?? "") : typedUnit;
   if (unitText === "") throw new QuantityError(kind, text, `has no ${kind} unit`);
   let unit: Unit;
   try {

@@ -11,8 +11,14 @@ export class CoordinateError extends Error {
   }
 }
 
+/** The longest coordinate text read: a typed or pasted position with every decimal a catalogue gives is far shorter. */
+export const MAX_COORDINATE_CHARS = 64;
+
+// Each separator is a marker with optional spaces around it or spaces alone, never both ways: a
+// pattern where two space runs can take the same spaces backtracks polynomially on a long run of
+// spaces (a 3 KB body held a server process for seconds).
 const sexagesimalPattern =
-  /^([+-])?\s*(\d{1,3})\s*(?:[:\s]|[hd°])\s*(\d{1,2})\s*(?:[:\s]|[m'′])\s*(\d{1,2}(?:\.\d+)?)\s*[s"″]?$/i;
+  /^([+-])?\s*(\d{1,3})(?:\s*[:hd°]\s*|\s+)(\d{1,2})(?:\s*[:m'′]\s*|\s+)(\d{1,2}(?:\.\d+)?)\s*[s"″]?$/i;
 const decimalPattern = /^([+-]?\d{1,3}(?:\.\d+)?)\s*(?:d|deg|°)?$/i;
 
 interface Sexagesimal {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { parseCsvTable } from "@/lib/imports/csv";
+import { columnFromHeader, parseCsvTable } from "@/lib/imports/csv";
 import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { slowdown } from "../../support/timing";
 import { refusal } from "./refusal";
 
 describe("parseCsvTable", () => {
@@ -56,5 +57,29 @@ describe("parseCsvTable", () => {
     const body = (rows: number) => `name\n${"x\n".repeat(rows)}`;
     expect(parseCsvTable(body(MAX_IMPORT_ROWS)).rows).toHaveLength(MAX_IMPORT_ROWS);
     expect(refusal(() => parseCsvTable(body(MAX_IMPORT_ROWS + 1))).message).toBe("The file has more than 10,000 data rows; split it into smaller lists.");
+  });
+});
+
+describe("columnFromHeader", () => {
+  it("takes the unit from the last bracket pair, with brackets inside the unit kept", () => {
+    expect(columnFromHeader("  D_L   ( kpc )  ", 0)).toEqual({ name: "D_L", unit: "kpc" });
+    expect(columnFromHeader("flux (a) [mJy]", 0)).toEqual({ name: "flux (a)", unit: "mJy" });
+    expect(columnFromHeader("a (b (c)", 0)).toEqual({ name: "a", unit: "b (c" });
+    expect(columnFromHeader("[kpc]", 0)).toEqual({ name: "[kpc]" });
+    expect(columnFromHeader("note ( )", 0)).toEqual({ name: "note ( )" });
+  });
+
+  it("refuses a header longer than 200 characters, naming the column", () => {
+    expect(refusal(() => columnFromHeader(`name ${"x".repeat(200)}`, 2)).message).toBe(
+      "The header of column 3 is longer than 200 characters; shorten it to the column's name.",
+    );
+  });
+
+  it("answers a 600-character header of spaces and a bracket as fast as a normal one (regression: polynomial backtracking)", async () => {
+    const hostile = `a[${" ".repeat(596)}x`;
+    const readOrRefuse = () => expect(refusal(() => columnFromHeader(hostile, 0)).code).toBe("bad_request:import");
+    expect(await slowdown(readOrRefuse, () => columnFromHeader("mass [Msun]", 0), { repeat: 50 })).toBeLessThan(50);
+    const withinLimit = `a[${" ".repeat(196)}x`;
+    expect(await slowdown(() => columnFromHeader(withinLimit, 0), () => columnFromHeader("mass [Msun]", 0), { repeat: 50 })).toBeLessThan(50);
   });
 });

@@ -15,6 +15,7 @@ import {
   parseTime,
   parseVelocity,
 } from "@/lib/physics/units";
+import { slowdown } from "../../support/timing";
 import { loadFixture, relativeError } from "./fixtures";
 
 const { values, versions } = loadFixture<{ values: Record<string, number> }>("units.json");
@@ -110,6 +111,21 @@ describe("parsers", () => {
       expect(error).toBeInstanceOf(QuantityError);
       expect((error as QuantityError).quantity).toBe("velocity");
     }
+  });
+});
+
+describe("long input (regression: the unit clean-up took quadratic time on a run of spaces)", () => {
+  const refused = (parse: () => unknown) => () => expect(parse).toThrow(QuantityError);
+
+  it("refuses a unit text longer than 100 characters as fast as it reads a normal one", async () => {
+    const hostile = `1${" ".repeat(20_000)}x`;
+    expect(() => parseDistance(hostile)).toThrow("is longer than 100 characters");
+    expect(await slowdown(refused(() => parseDistance(hostile)), () => parseDistance("8.1 kpc"), { repeat: 20 })).toBeLessThan(20);
+  });
+
+  it("reads spaced typographic units up to the length limit", () => {
+    expect(parseAngle(`1.2${" ".repeat(40)}″`)).toBe(parseAngle("1.2″"));
+    expect(parseMass(`4 ${" ".repeat(30)}× 10^6 M ☉`).massSolar).toBe(4e6);
   });
 });
 

@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { slowdown } from "../../support/timing";
 import { CoordinateError, formatDeclination, formatRightAscension, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 
 describe("right ascension", () => {
@@ -58,5 +59,22 @@ describe("display", () => {
   it("never prints 60 seconds (regression: rounding carried into the next minute)", () => {
     expect(formatRightAscension(((59 * 60 + 59.999) / 3600) * 15)).toBe("01h00m00.00s");
     expect(formatDeclination(-(10 + 59 / 60 + 59.97 / 3600))).toBe("−11°00′00.0″");
+  });
+});
+
+describe("hostile text (regression: a 3 KB coordinate held a server process for seconds)", () => {
+  const refused = (parse: () => unknown) => () => expect(parse).toThrow(CoordinateError);
+
+  it("answers long runs of spaces between the fields in linear time", async () => {
+    const hostile = `1${" ".repeat(500)}1${" ".repeat(500)}x`;
+    const ratio = await slowdown(refused(() => parseDeclinationDeg(hostile)), () => parseDeclinationDeg("-29 00 28.1"), { repeat: 5 });
+    // Linear work on 1,003 characters against 11 stays well under this bound; the old pattern was 10^5 times slower.
+    expect(ratio).toBeLessThan(1000);
+  });
+
+  it("still reads any spacing around the separators", () => {
+    expect(parseRightAscensionDeg("17   45   40.04")).toBeCloseTo(266.41683333, 7);
+    expect(parseRightAscensionDeg("17 h 45 m 40.04 s")).toBeCloseTo(266.41683333, 7);
+    expect(parseDeclinationDeg("- 29 : 00 : 28.1")).toBeCloseTo(-29.00780556, 7);
   });
 });
