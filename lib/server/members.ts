@@ -47,6 +47,20 @@ async function loadMember(tx: Tx, proposalId: string, userId: string) {
   return member;
 }
 
+/**
+ * Locks the proposal's PI rows (in one order, so two callers cannot deadlock) before the caller's role
+ * is checked: a second PI demoting or removing the first waits here, then sees the first's change, so
+ * two PIs demoting each other at once cannot leave none (the loser is no longer PI: 403).
+ */
+async function lockPiRows(tx: Tx, proposalId: string): Promise<void> {
+  await tx
+    .select({ userId: proposalMembers.userId })
+    .from(proposalMembers)
+    .where(and(eq(proposalMembers.proposalId, proposalId), eq(proposalMembers.role, "pi")))
+    .orderBy(asc(proposalMembers.userId))
+    .for("update");
+}
+
 /** A proposal always keeps a PI: someone must be able to manage it. */
 async function requireAnotherPi(tx: Tx, proposalId: string): Promise<void> {
   const [{ pis }] = await tx
@@ -59,10 +73,10 @@ async function requireAnotherPi(tx: Tx, proposalId: string): Promise<void> {
 /** PI only. */
 export async function changeMemberRole(params: unknown, input: unknown, actor: Actor | null): Promise<MemberView[]> {
   const { proposalId, userId } = parseIds(memberParamsSchema, params, "member");
-  const { role } = parseOrThrow(changeRoleSchema, input, "member");
   const who = requireActor(actor);
+  const { role } = parseOrThrow(changeRoleSchema, input, "member");
   await dbClient().db.transaction(async (tx) => {
-    // Locks the proposal's PI rows so two PIs demoting each other at once cannot leave none.
+    await lockPiRows(tx, proposalId);
     await authorize(tx, proposalId, who, "manage", "member");
     const member = await loadMember(tx, proposalId, userId);
     if (member.role === role) return;
@@ -78,6 +92,7 @@ export async function removeMember(params: unknown, actor: Actor | null): Promis
   const { proposalId, userId } = parseIds(memberParamsSchema, params, "member");
   const who = requireActor(actor);
   await dbClient().db.transaction(async (tx) => {
+    await lockPiRows(tx, proposalId);
     await authorize(tx, proposalId, who, "manage", "member");
     const member = await loadMember(tx, proposalId, userId);
     if (member.role === "pi") await requireAnotherPi(tx, proposalId);
