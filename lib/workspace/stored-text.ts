@@ -24,10 +24,20 @@ export function storedText() {
  */
 const directionControls = /[\u202A-\u202E\u2066-\u2069]/u;
 
-/** A name the team reads in lists (a target, a proposal, a cycle, a site, a person): stored text without direction controls. */
+/**
+ * Control characters (Unicode category Cc: tab, line feed, carriage return, the rest of C0, DEL and
+ * C1; NUL has its own message above) and the line and paragraph separators (U+2028, U+2029). A name
+ * is one line: in a list, a mail or a log line a break would start what looks like another entry
+ * (CWE-93, CWE-117).
+ */
+const lineBreaksAndControls = /[\u0001-\u001F\u007F-\u009F\u2028\u2029]/u;
+
+/** A name the team reads in lists (a target, a proposal, a cycle, a site, a person): one line of stored text without direction controls. */
 export function nameText() {
-  return storedText().refine(
-    (text) => !directionControls.test(text),
-    "Names cannot contain Unicode direction controls (U+202A–U+202E, U+2066–U+2069): they show a name in another order than it is stored.",
-  );
+  return storedText()
+    .refine((text) => !lineBreaksAndControls.test(text), "Names are one line: they cannot contain line breaks, tabs or other control characters.")
+    .refine(
+      (text) => !directionControls.test(text),
+      "Names cannot contain Unicode direction controls (U+202A–U+202E, U+2066–U+2069): they show a name in another order than it is stored.",
+    );
 }

@@ -36,8 +36,9 @@ const verbatimText = (maxLength: number) =>
     .oneof(fc.constantFrom(...sqlLookingTexts), fc.array(fc.oneof(sqlFragment, anyText), { minLength: 1, maxLength: 6 }).map((parts) => parts.join("")))
     .map((text) => cutAt(text.trim(), maxLength).trim())
     .filter((text) => text.length > 0 && !text.includes("\u0000") && !/\p{Cs}/u.test(text));
-// Names also refuse Unicode's direction controls by design (nameText in lib/workspace/stored-text.ts).
-const verbatimName = (maxLength: number) => verbatimText(maxLength).filter((text) => !/[\u202A-\u202E\u2066-\u2069]/u.test(text));
+// Names also refuse Unicode's direction controls and, being one line, control characters and line
+// separators by design (nameText in lib/workspace/stored-text.ts).
+const verbatimName = (maxLength: number) => verbatimText(maxLength).filter((text) => !/[\u202A-\u202E\u2066-\u2069\u0001-\u001F\u007F-\u009F\u2028\u2029]/u.test(text));
 
 /** The first `length` UTF-16 units of `text`, never ending in half of a surrogate pair. */
 const cutAt = (text: string, length: number) => text.slice(0, /[\uD800-\uDBFF]/.test(text.charAt(length - 1)) ? length - 1 : length);
