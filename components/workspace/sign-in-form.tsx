@@ -6,6 +6,7 @@ import { signIn } from "next-auth/react";
 import { mutate } from "swr";
 import { useState } from "react";
 import { safeCallback } from "@/lib/auth/callback-path";
+import { signInErrorMessage, signInErrorMessages } from "@/lib/auth/sign-in-errors";
 import { apiFetch } from "@/components/workspace/api-client";
 import { Field, FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
@@ -28,7 +29,7 @@ export function SignInForm({ callbackUrl }: { callbackUrl?: string }) {
           void password.run(async () => {
             const result = await signIn("password", { email, password: secret, redirect: false });
             if (!result || result.error) {
-              throw new Error(result?.error && result.error !== "CredentialsSignin" ? result.error : "Wrong e-mail or password, or the account is waiting for its e-mailed confirmation.");
+              throw new Error(signInErrorMessage(result?.error) ?? signInErrorMessages.CredentialsSignin);
             }
             await mutate("/api/auth/session");
             router.push(next);
@@ -86,7 +87,11 @@ export function LinkSignIn({ token, callbackUrl }: { token: string; callbackUrl?
         onClick={() =>
           void run(async () => {
             const result = await signIn("link", { token, redirect: false });
-            if (!result || result.error) throw new Error(result?.error && result.error !== "CredentialsSignin" ? result.error : "This link has expired or was already used.");
+            if (!result || result.error) {
+              // A link that signs nobody in is a spent or unknown one, whatever next-auth calls it.
+              const code = result?.error === "CredentialsSignin" ? "LinkSpent" : result?.error;
+              throw new Error(signInErrorMessage(code) ?? signInErrorMessages.LinkSpent);
+            }
             await mutate("/api/auth/session");
             router.push(safeCallback(callbackUrl));
             router.refresh();
