@@ -27,6 +27,17 @@ export const serverEnvSchema = z.object({
    */
   ARCWRIGHT_DEV_MAILBOX: z.enum(["0", "1"]).default("0"),
   /**
+   * The reverse proxies in front of the app, as IP addresses separated by commas. Only a request that
+   * reaches the app from one of them has its X-Forwarded-For believed (the client is the nearest
+   * address there that is no listed proxy); from anyone else the header is ignored, since any client
+   * can write it. Unset (the default): the client is the socket's peer.
+   */
+  ARCWRIGHT_TRUSTED_PROXY: z
+    .string()
+    .default("")
+    .transform((list) => list.split(",").map((entry) => entry.trim()).filter((entry) => entry !== ""))
+    .pipe(z.array(z.union([z.ipv4(), z.ipv6()], { error: "ARCWRIGHT_TRUSTED_PROXY lists IP addresses separated by commas" }))),
+  /**
    * The upload service (UploadThing). The SDK reads these from the process environment itself; they
    * are validated here so a bad value fails at boot. `npm start` / `npm test` point them at the fake.
    * The token is base64 of JSON {apiKey: "sk_...", appId, regions: [...]}.

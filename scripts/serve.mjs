@@ -13,13 +13,20 @@
 // (node:cluster's rule for an orphaned worker).
 import cluster from "node:cluster";
 import { join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { fileURLToPath, pathToFileURL } from "node:url";
 import { webProcessCount } from "./lib/web-processes.mjs";
 
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
 
 const count = webProcessCount();
-cluster.setupPrimary({ exec: join(repoRoot, "node_modules", "next", "dist", "bin", "next"), args: ["start", ...process.argv.slice(2)] });
+// Each process preloads scripts/lib/socket-address.mjs, which gives the app the client's socket address
+// (rate limits are keyed on it) in a header no client can set.
+const socketAddressHook = pathToFileURL(join(repoRoot, "scripts", "lib", "socket-address.mjs")).href;
+cluster.setupPrimary({
+  exec: join(repoRoot, "node_modules", "next", "dist", "bin", "next"),
+  args: ["start", ...process.argv.slice(2)],
+  execArgv: [...process.execArgv, "--import", socketAddressHook],
+});
 const listened = new Set();
 cluster.on("listening", (worker) => listened.add(worker.id));
 for (let i = 0; i < count; i++) cluster.fork();

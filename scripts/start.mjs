@@ -3,7 +3,7 @@
 // running Arcwright with demo data. State lives in .data/ (git-ignored) and survives restarts.
 import { createHash } from "node:crypto";
 import { join, resolve } from "node:path";
-import { fileURLToPath } from "node:url";
+import { fileURLToPath, pathToFileURL } from "node:url";
 import { appEnvironment } from "./lib/app-env.mjs";
 import { isBuildCurrent, markBuild, sourceDigest } from "./lib/build-stamp.mjs";
 import { ensureNodeModules } from "./lib/deps.mjs";
@@ -78,7 +78,11 @@ try {
   const seedOutput = await runCapturing("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
 
   if (isDev) {
-    startChild("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
+    // The same client-address header as scripts/serve.mjs gives `next start` (NODE_OPTIONS reaches the
+    // server process next dev starts).
+    const hook = pathToFileURL(join(repoRoot, "scripts", "lib", "socket-address.mjs")).href;
+    const nodeOptions = [env.NODE_OPTIONS, `--import=${hook}`].filter(Boolean).join(" ");
+    startChild("next dev", bin("next"), ["dev", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env: { ...env, NODE_OPTIONS: nodeOptions } });
   } else {
     const distDir = join(repoRoot, ".next");
     const digest = sourceDigest(repoRoot);

@@ -1,37 +1,43 @@
 import "server-only";
 import type { NextAuthOptions, User } from "next-auth";
 import CredentialsProvider from "next-auth/providers/credentials";
+import type { SignInErrorCode } from "@/lib/auth/sign-in-errors";
 import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/errors";
+import { clientAddressOf } from "@/lib/security/client-address";
 import type { Actor } from "@/lib/server/actor";
 import { authenticateWithLink, authenticateWithPassword } from "@/lib/server/accounts";
-
-function clientAddressOf(headers: Record<string, unknown> | undefined): string {
-  const forwarded = headers?.["x-forwarded-for"];
-  const first = typeof forwarded === "string" ? forwarded.split(",")[0]?.trim() : undefined;
-  return first || "unknown";
-}
+import { endSession, sessionLifetimeSeconds, sessionOwner, startSession } from "@/lib/server/sessions";
 
 const asUser = (actor: Actor | null): User | null => (actor ? { id: actor.userId, email: actor.email, name: actor.name } : null);
 
-// next-auth turns a thrown Error's message into the `error` the sign-in form shows; AppErrors (rate
-// limits, spent links) carry a message meant for people, anything else is hidden behind a generic one.
+function signInErrorCodeOf(error: AppError): SignInErrorCode {
+  if (error.kind === "rate_limited") return "RateLimited";
+  if (error.code === "bad_request:link") return "LinkSpent";
+  return error.kind === "unavailable" ? "Unavailable" : "CredentialsSignin";
+}
+
+// next-auth turns a thrown Error's message into the `error` parameter of the sign-in page's URL; it
+// carries only one of our codes, which the page and the form turn into fixed text
+// (lib/auth/sign-in-errors.ts), so nothing in that URL is ever shown as written.
 async function authorizeWith(run: () => Promise<Actor | null>): Promise<User | null> {
   try {
     return asUser(await run());
   } catch (error) {
-    if (error instanceof AppError) throw new Error(error.message);
+    if (error instanceof AppError) throw new Error(signInErrorCodeOf(error));
     console.error("sign-in failed:", error);
-    throw new Error("Sign-in is not available right now; try again shortly.");
+    throw new Error("Unavailable" satisfies SignInErrorCode);
   }
 }
 
 /**
- * Sessions are signed JWT cookies (no session table): the token carries only the user id, and every
- * request reloads the account so a changed site role or a deleted account takes effect at once.
+ * Sessions are signed JWT cookies that name a row of `user_sessions` (lib/server/sessions.ts): the
+ * token carries the user id and that session id, and every request checks the row and reloads the
+ * account, so a sign-out, a password reset, a changed site role or a deleted account counts at once,
+ * for every copy of the cookie.
  */
 export const authOptions: NextAuthOptions = {
-  session: { strategy: "jwt", maxAge: 30 * 24 * 60 * 60 },
+  session: { strategy: "jwt", maxAge: sessionLifetimeSeconds },
   // Cookies are httpOnly and SameSite=Lax (next-auth's defaults); behind HTTPS they are also Secure
   // and carry the __Secure- / __Host- prefixes. Said here rather than left to the default.
   // A getter: read per request, so building the app needs no environment.
@@ -44,7 +50,7 @@ export const authOptions: NextAuthOptions = {
       id: "password",
       name: "E-mail and password",
       credentials: { email: { label: "E-mail", type: "email" }, password: { label: "Password", type: "password" } },
-      authorize: (credentials, req) => authorizeWith(() => authenticateWithPassword(credentials, clientAddressOf(req.headers))),
+      authorize: (credentials, req) => authorizeWith(() => authenticateWithPassword(credentials, clientAddressOf(req.headers, serverEnv().ARCWRIGHT_TRUSTED_PROXY))),
     }),
     CredentialsProvider({
       id: "link",
@@ -54,13 +60,28 @@ export const authOptions: NextAuthOptions = {
     }),
   ],
   callbacks: {
-    jwt({ token, user }) {
-      if (user) token.sub = user.id;
+    // `user` is there only at sign-in: each sign-in starts a session of its own.
+    async jwt({ token, user }) {
+      if (user) {
+        token.sub = user.id;
+        token.sid = await startSession(user.id);
+      }
       return token;
     },
-    session({ session, token }) {
-      if (session.user && token.sub) Object.assign(session.user, { id: token.sub });
+    // GET /api/auth/session, which the header asks: an ended session answers {} (signed out), as
+    // next-auth does for no cookie at all.
+    async session({ session, token }) {
+      const actor = await sessionOwner(token);
+      if (!actor) return {} as typeof session;
+      session.user = { name: actor.name, email: actor.email };
+      Object.assign(session.user, { id: actor.userId });
       return session;
+    },
+  },
+  events: {
+    // Awaited by next-auth before it clears the cookie: a copy of the cookie is dead too.
+    async signOut({ token }) {
+      await endSession(token);
     },
   },
 };

@@ -1,12 +1,14 @@
 import "server-only";
-import { endpoint, readJson } from "@/lib/server/api/endpoint";
+import { serverEnv } from "@/lib/env";
+import { clientAddressOf } from "@/lib/security/client-address";
+import type { GetActor } from "@/lib/server/actor";
+import { endpoint, noContent, readJson } from "@/lib/server/api/endpoint";
 import { requestPasswordReset, requestSignInLink, resetPassword, signUp } from "@/lib/server/accounts";
+import { signOutEverywhere } from "@/lib/server/sessions";
 
 const signedOut = async () => null;
 
-function clientAddress(request: Request): string {
-  return request.headers.get("x-forwarded-for")?.split(",")[0]?.trim() || "unknown";
-}
+const clientAddress = (request: Request) => clientAddressOf(request.headers, serverEnv().ARCWRIGHT_TRUSTED_PROXY);
 
 const sameAnswerEitherWay = () =>
   Response.json({ ok: true, message: "If an account uses this address, a message with a link is on its way." }, { status: 202 });
@@ -34,3 +36,14 @@ export const accountRoutes = {
     return sameAnswerEitherWay();
   }),
 };
+
+/** /api/account/sessions */
+export function sessionRoutes(getActor: GetActor) {
+  return {
+    /** "Sign out everywhere": ends every session of the signed-in account, this one included. */
+    DELETE: endpoint(getActor, async ({ actor }) => {
+      await signOutEverywhere(actor);
+      return noContent();
+    }),
+  };
+}

@@ -1,5 +1,6 @@
 import { invitationCollectionRoutes, invitationRoutes, memberCollectionRoutes, memberRoutes } from "@/lib/server/api/member-routes";
 import { accountCollectionRoutes, accountRoutes, siteAccessRoutes } from "@/lib/server/api/admin-routes";
+import { sessionRoutes } from "@/lib/server/api/account-routes";
 import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
 import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
@@ -122,6 +123,8 @@ export const endpoints: Endpoint[] = [
     expected: [401, 403, 403, 403, 403],
   },
   { name: "GET /admin/access", route: "/api/admin/access", siteAdmin: 200, handler: as(siteAccessRoutes, "GET"), path: () => "http://arcwright.test/api/admin/access", params: () => ({}), expected: [200, 200, 200, 200, 200] },
+  // "Sign out everywhere": anyone signed in ends their own sessions, and only their own.
+  { name: "DELETE /account/sessions", route: "/api/account/sessions", siteAdmin: 204, handler: as(sessionRoutes, "DELETE"), path: () => "http://arcwright.test/api/account/sessions", params: () => ({}), expected: [401, 204, 204, 204, 204] },
 ];
 
 /** The method and route of a handler in app/api. */

@@ -7,6 +7,7 @@ import { demoSketch } from "@/lib/bench/sketch-state";
 import { benchFigureKinds } from "@/lib/exports/figures/bench-figures";
 import { skyFigureKinds } from "@/lib/exports/figures/sky-figures";
 import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { socketAddressHeader } from "@/lib/security/client-address";
 import { accountRoutes as publicAccountRoutes } from "@/lib/server/api/account-routes";
 import { acceptInvitationRoutes } from "@/lib/server/api/member-routes";
 import type { Actor, GetActor } from "@/lib/server/actor";
@@ -189,7 +190,7 @@ export async function send(endpoint: HostileEndpoint, actor: Actor | null, parts
   requestCount += 1;
   const url = `${urlOf(endpoint.route, parts.params)}${parts.query ? `?${parts.query}` : ""}`;
   const hasBody = parts.body !== undefined && endpoint.method !== "GET";
-  const headers = { "x-forwarded-for": `198.51.${Math.floor(requestCount / 250) % 250}.${requestCount % 250}`, ...(hasBody ? { "content-type": "application/json" } : {}) };
+  const headers = { [socketAddressHeader]: `198.51.${Math.floor(requestCount / 250) % 250}.${requestCount % 250}`, ...(hasBody ? { "content-type": "application/json" } : {}) };
   const request = new Request(url, { method: endpoint.method, headers, ...(hasBody ? { body: parts.body } : {}) });
   return endpoint.handler(async () => actor)(request, { params: Promise.resolve(parts.params) });
 }
