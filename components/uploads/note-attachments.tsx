@@ -54,7 +54,7 @@ export function NoteAttachments({ noteUrl, canEdit }: { noteUrl: string; canEdit
                 )}
               </div>
               {(a.kind === "png" || a.kind === "jpeg") && (
-                // The stored bytes come from the upload service through the app's access-checked redirect.
+                // Same origin (CSP img-src 'self'): the app's route checks membership and streams the bytes.
                 // eslint-disable-next-line @next/next/no-img-element
                 <img src={a.fileUrl} alt={`Attachment ${a.name}`} className="max-h-64 rounded border border-void-edge" />
               )}

@@ -32,6 +32,27 @@ export function detectAttachmentKind(bytes: Uint8Array): AttachmentKind | null {
   return signatures.find(([, signature]) => startsWith(bytes, signature))?.[0] ?? null;
 }
 
+/** How the app serves a stored file: the media type its bytes show, and whether a browser may show it in the page. */
+export interface ServedForm {
+  mimeType: string;
+  /** Only the images the app renders itself (PNG, JPEG); everything else is a download. */
+  isInline: boolean;
+}
+
+/**
+ * The served form of a stored file, read from its first bytes again at every read (the type the
+ * uploader declared plays no part): PNG and JPEG inline, PDF and FITS as downloads of their own type,
+ * anything else (HTML, SVG, a file swapped behind the app's back) as an opaque download.
+ */
+export function servedFormOf(head: Uint8Array): ServedForm {
+  const kind = detectAttachmentKind(head);
+  if (kind === null) return { mimeType: "application/octet-stream", isInline: false };
+  return { mimeType: attachmentMimeTypes[kind], isInline: kind === "png" || kind === "jpeg" };
+}
+
+/** How many leading bytes `detectAttachmentKind` reads. */
+export const SIGNATURE_BYTES = Math.max(...signatures.map(([, signature]) => signature.length));
+
 export interface CheckedAttachment {
   kind: AttachmentKind;
   mimeType: string;

@@ -23,7 +23,14 @@ function decodeReferences(text: string): string {
   });
 }
 
+// How deeply elements may nest, the root counted as level 1. A VOTable's own structure is a handful of levels (VOTABLE > RESOURCE >
+// TABLE > DATA > TABLEDATA > TR > TD) plus nested RESOURCEs and GROUPs; 64 leaves ample room while a
+// file of nothing but nested tags is refused before it costs the parser (or `tablesIn`) anything.
+export const MAX_VOTABLE_DEPTH = 64;
+
 const parser = new XMLParser({
+  // The parser counts the levels below the root element.
+  maxNestedTags: MAX_VOTABLE_DEPTH - 1,
   ignoreAttributes: false,
   attributeNamePrefix: "@_",
   removeNSPrefix: true,
@@ -57,8 +64,9 @@ function cellText(td: unknown): string {
 /**
  * Reads a VOTable target list (IVOA VOTable 1.4): the one TABLE it holds, its FIELDs as columns (with
  * `unit` and `ucd`) and its TABLEDATA rows. A cell equal to its FIELD's VALUES/@null is read as empty
- * (§4.5). Refused with a clear message: a DOCTYPE or ENTITY declaration, malformed XML, a root other
- * than VOTABLE, more than one table, BINARY/BINARY2/FITS serializations, no rows, or too many rows.
+ * (§4.5). Refused with a clear message: a DOCTYPE or ENTITY declaration, malformed XML, elements nested
+ * more than MAX_VOTABLE_DEPTH deep, a root other than VOTABLE, more than one table,
+ * BINARY/BINARY2/FITS serializations, no rows, or too many rows.
  */
 export function parseVoTable(text: string): ImportTable {
   if (DECLARATION.test(text)) {
@@ -68,7 +76,17 @@ export function parseVoTable(text: string): ImportTable {
   if (validation !== true) {
     throw importError(`The XML is malformed at line ${validation.err.line}, column ${validation.err.col}: ${validation.err.msg}`);
   }
-  const document = parser.parse(text) as XmlNode;
+  let document: XmlNode;
+  try {
+    document = parser.parse(text) as XmlNode;
+  } catch (error) {
+    // The validator accepted the XML; the parser's own refusal is its nesting bound (its message is
+    // fast-xml-parser's "Maximum nested tags exceeded", never shown).
+    if (error instanceof Error && /nested/i.test(error.message)) {
+      throw importError(`The XML nests its elements more than ${MAX_VOTABLE_DEPTH} levels deep, far more than a VOTable needs; it is refused. Export the table again.`);
+    }
+    throw importError("The XML file could not be read as a VOTable. Export the table again.");
+  }
   const root = document.VOTABLE;
   if (typeof root !== "object" || root === null) throw importError("The XML file is not a VOTable (its root element is not VOTABLE).");
   const tables = tablesIn(asNodes((root as XmlNode).RESOURCE));

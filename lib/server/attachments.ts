@@ -4,14 +4,14 @@ import { z } from "zod";
 import { dbClient, type Database } from "@/db/client";
 import { noteAttachments, notes, targets, uploadedFiles } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import { checkAttachment, type AttachmentKind } from "@/lib/imports/attachment-type";
+import { checkAttachment, servedFormOf, SIGNATURE_BYTES, type AttachmentKind, type ServedForm } from "@/lib/imports/attachment-type";
 import type { FitsHeader } from "@/lib/imports/fits-header";
 import { MAX_ATTACHMENT_BYTES } from "@/lib/imports/limits";
 import { noteParamsSchema } from "@/lib/workspace/ids";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { refuseOversize, type UploadOutcome } from "@/lib/server/imports";
-import { deleteRefusedUpload, deleteStoredFiles, fetchStoredBytes, viewUrlOf } from "@/lib/server/uploads";
+import { deleteStoredFiles, fetchStoredBytes, openStoredFile } from "@/lib/server/uploads";
 
 type Queryable = Pick<Database, "select">;
 
@@ -23,7 +23,7 @@ export interface AttachmentView {
   sizeBytes: number;
   /** FITS only: the primary header (keywords, BITPIX, axes, header and data sizes). */
   fitsHeader: FitsHeader | null;
-  /** The app's own URL for the file; it checks access and then sends the browser to the stored bytes. */
+  /** The app's own URL for the file; it checks access at every read and sends the bytes itself. */
   fileUrl: string;
   createdAt: string;
 }
@@ -63,46 +63,34 @@ export async function authorizeAttachmentUpload(input: unknown, actor: Actor | n
 }
 
 /**
- * The completion step of an attachment upload: fetch the stored bytes, check the type by content
- * (PNG, JPEG, PDF, FITS with a readable header), then record the file and the attachment in one
- * transaction. A refused file is deleted from the upload service and leaves no row behind.
+ * The recording part of an attachment upload's completion step (`completeUpload` re-checks the
+ * uploader's role first and deletes the stored bytes when this throws): fetch the stored bytes, check
+ * the type by content (PNG, JPEG, PDF, FITS with a readable header), then record the file and the
+ * attachment in one transaction. A refusal throws an AppError with a message for the uploader.
  */
 export async function recordAttachmentUpload(metadata: AttachmentUploadMetadata, file: { key: string; name: string }): Promise<UploadOutcome> {
-  let checked: ReturnType<typeof checkAttachment>;
-  try {
-    checked = checkAttachment(await fetchStoredBytes(file.key, MAX_ATTACHMENT_BYTES));
-  } catch (error) {
-    if (!(error instanceof AppError)) throw error;
-    deleteRefusedUpload(file.key);
-    return { ok: false, message: error.message };
-  }
-  try {
-    return await dbClient().db.transaction(async (tx) => {
-      // The note may have been deleted while the file was in flight.
-      await requireNote(tx, metadata.proposalId, metadata.targetId, metadata.noteId);
-      const [stored] = await tx
-        .insert(uploadedFiles)
-        .values({
-          key: file.key,
-          name: file.name.slice(0, 255),
-          sizeBytes: checked.sizeBytes,
-          contentType: checked.mimeType,
-          proposalId: metadata.proposalId,
-          uploadedBy: metadata.userId,
-          purpose: "note_attachment",
-        })
-        .returning({ id: uploadedFiles.id });
-      const [attachment] = await tx
-        .insert(noteAttachments)
-        .values({ noteId: metadata.noteId, fileId: stored.id, kind: checked.kind, fitsHeader: checked.fitsHeader ?? null, sizeBytes: checked.sizeBytes })
-        .returning({ id: noteAttachments.id });
-      return { ok: true as const, fileId: attachment.id };
-    });
-  } catch (error) {
-    if (!(error instanceof AppError)) throw error;
-    deleteRefusedUpload(file.key);
-    return { ok: false, message: error.message };
-  }
+  const checked = checkAttachment(await fetchStoredBytes(file.key, MAX_ATTACHMENT_BYTES));
+  return dbClient().db.transaction(async (tx) => {
+    // The note may have been deleted while the file was in flight.
+    await requireNote(tx, metadata.proposalId, metadata.targetId, metadata.noteId);
+    const [stored] = await tx
+      .insert(uploadedFiles)
+      .values({
+        key: file.key,
+        name: file.name.slice(0, 255),
+        sizeBytes: checked.sizeBytes,
+        contentType: checked.mimeType,
+        proposalId: metadata.proposalId,
+        uploadedBy: metadata.userId,
+        purpose: "note_attachment",
+      })
+      .returning({ id: uploadedFiles.id });
+    const [attachment] = await tx
+      .insert(noteAttachments)
+      .values({ noteId: metadata.noteId, fileId: stored.id, kind: checked.kind, fitsHeader: checked.fitsHeader ?? null, sizeBytes: checked.sizeBytes })
+      .returning({ id: noteAttachments.id });
+    return { ok: true as const, fileId: attachment.id };
+  });
 }
 
 function selectAttachments(db: Queryable) {
@@ -154,12 +142,24 @@ async function loadAttachment(db: Queryable, ids: z.infer<typeof attachmentParam
   return row;
 }
 
-/** Any member: a short-lived URL of the stored bytes (the key is resolved here, never stored as a URL). */
-export async function attachmentFileUrl(params: unknown, actor: Actor | null): Promise<string> {
+export interface AttachmentFile extends ServedForm {
+  name: string;
+  body: ReadableStream<Uint8Array>;
+  sizeBytes: number | null;
+}
+
+/**
+ * Any member, or a site admin auditing: the stored bytes, streamed through the app. Membership is
+ * checked at every read (the file is private in the upload service, so no URL outlives a removal),
+ * and the type is read from the bytes themselves, never taken from the uploader.
+ */
+export async function openAttachmentFile(params: unknown, actor: Actor | null): Promise<AttachmentFile> {
   const ids = parseIds(attachmentParamsSchema, params, "attachment");
   const { db } = dbClient();
   await authorize(db, ids.proposalId, requireActor(actor), "read", "attachment");
-  return viewUrlOf((await loadAttachment(db, ids)).key);
+  const row = await loadAttachment(db, ids);
+  const { head, body, sizeBytes } = await openStoredFile(row.key, SIGNATURE_BYTES);
+  return { name: row.name, body, sizeBytes, ...servedFormOf(head) };
 }
 
 /**

@@ -15,17 +15,35 @@ export function uploadApi(): UTApi {
   return client;
 }
 
+// Files are stored private (the route config's `acl: "private"`): the service serves them only to a
+// URL signed with the api key, which the SDK's `generateSignedURL` makes locally as
+// `<file host>/a/<appId>/<key>?expires=<ms>&signature=hmac-sha256=<hex>`. Such a URL is used once, by
+// this server, right away; it never reaches a browser, so a minute is plenty.
+const SIGNED_URL_TTL_SECONDS = 60;
+
+const goneError = () => new AppError("not_found:file", "The uploaded file is no longer held by the upload service.");
+
+/** The service's answer for a stored file, fetched through a freshly signed, short-lived URL. */
+async function fetchStored(key: string): Promise<Response> {
+  const { ufsUrl } = await uploadApi().generateSignedURL(key, { expiresIn: SIGNED_URL_TTL_SECONDS });
+  let response: Response;
+  try {
+    response = await fetch(ufsUrl, { cache: "no-store" });
+  } catch (error) {
+    console.error(`upload service: could not fetch stored file ${key}.`, error);
+    throw new AppError("unavailable:uploads", "The upload service cannot be reached; try again shortly.");
+  }
+  if (response.status === 404) throw goneError();
+  if (!response.ok || !response.body) throw new AppError("unavailable:uploads", `The upload service answered ${response.status}; try again shortly.`);
+  return response;
+}
+
 /**
- * The bytes of a stored file, fetched by its key through the URL the SDK resolves (the service's
- * host is never stored). `maxBytes` bounds what is read, so a key cannot make the server buffer more.
+ * The bytes of a stored file, by its key (the service's host is never stored). `maxBytes` bounds what
+ * is read, so a key cannot make the server buffer more.
  */
 export async function fetchStoredBytes(key: string, maxBytes: number): Promise<Uint8Array> {
-  const { data } = await uploadApi().getFileUrls(key);
-  const url = data[0]?.url;
-  if (!url) throw new AppError("not_found:file", "The uploaded file is no longer held by the upload service.");
-  const response = await fetch(url);
-  if (response.status === 404) throw new AppError("not_found:file", "The uploaded file is no longer held by the upload service.");
-  if (!response.ok) throw new AppError("unavailable:uploads", `The upload service answered ${response.status}; try again shortly.`);
+  const response = await fetchStored(key);
   const declared = Number(response.headers.get("content-length") ?? "0");
   if (declared > maxBytes) throw new AppError("payload_too_large:file", "The stored file is larger than this kind of upload allows.");
   const bytes = new Uint8Array(await response.arrayBuffer());
@@ -33,10 +51,44 @@ export async function fetchStoredBytes(key: string, maxBytes: number): Promise<U
   return bytes;
 }
 
-/** A short-lived URL for showing a stored file in the browser (signed locally, no network call). */
-export async function viewUrlOf(key: string): Promise<string> {
-  const { ufsUrl } = await uploadApi().generateSignedURL(key, { expiresIn: 60 * 10 });
-  return ufsUrl;
+export interface StoredFileStream {
+  /** At least the first `headBytes` bytes (fewer only when the file is shorter), to read its type from. */
+  head: Uint8Array;
+  /** The whole file, head included, streamed from the service as it is read. */
+  body: ReadableStream<Uint8Array>;
+  /** As the service declared it; null when it did not. */
+  sizeBytes: number | null;
+}
+
+/** A stored file as a stream, after reading its first `headBytes` bytes (so its type can be told first). */
+export async function openStoredFile(key: string, headBytes: number): Promise<StoredFileStream> {
+  const response = await fetchStored(key);
+  const reader = response.body!.getReader();
+  const chunks: Uint8Array[] = [];
+  let length = 0;
+  while (length < headBytes) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    chunks.push(value);
+    length += value.length;
+  }
+  const head = new Uint8Array(length);
+  chunks.reduce((at, chunk) => (head.set(chunk, at), at + chunk.length), 0);
+  const body = new ReadableStream<Uint8Array>({
+    start(controller) {
+      for (const chunk of chunks) controller.enqueue(chunk);
+    },
+    async pull(controller) {
+      const { done, value } = await reader.read();
+      if (done) controller.close();
+      else controller.enqueue(value);
+    },
+    cancel(reason) {
+      return reader.cancel(reason);
+    },
+  });
+  const declared = response.headers.get("content-length");
+  return { head, body, sizeBytes: declared === null ? null : Number(declared) };
 }
 
 /**

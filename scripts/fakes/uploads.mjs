@@ -1,11 +1,25 @@
 // A local stand-in for the hosted file-upload service that the uploadthing SDK talks to. The app keeps
 // the real SDK on every path; the variables in `env` only change where it points. What the SDK sends
-// and expects (read from uploadthing 7.7.4) is described in ../../../shared/notes/uploads-fake.md.
+// and expects was read from the built code of uploadthing 7.7.4 and @uploadthing/shared 7.1.10:
 //
-// It speaks the service's production mode: the app registers file keys (`/route-metadata`), the
-// browser PUTs the bytes to a presigned URL, the fake calls the app back (signed) and waits for
-// `/callback-result` before it answers the PUT. Bytes and file records live under `stateDir`, so files
-// survive a restart; the fake's credentials are kept there too so that stored file URLs stay valid.
+// - It speaks the service's production mode: the app registers file keys (`POST /route-metadata`
+//   with `x-uploadthing-api-key`; dev mode, `isDev: true`, is refused), the browser HEADs then PUTs a
+//   multipart body (one field `file`) to a presigned URL, the fake calls the app back
+//   (`POST <callbackUrl>?slug=<slug>`, `uploadthing-hook: callback`, `x-uploadthing-signature:
+//   hmac-sha256=<hex of HMAC(apiKey, body)>`) and waits for `POST /callback-result` before it answers
+//   the PUT. A PUT may overtake the registration of its key; it waits for it, bounded.
+// - A presigned URL is `<ingest>/<key>?expires=<ms>&x-ut-identifier=<appId>&x-ut-file-name=..&
+//   x-ut-file-size=..&x-ut-file-type=..&x-ut-slug=..&x-ut-custom-id=..&x-ut-content-disposition=..&
+//   x-ut-acl=..&signature=hmac-sha256%3D<hex>`: the HMAC-SHA256, keyed by the api key, of the whole URL
+//   before `&signature=`; each x-ut-* value is URL-encoded twice. The ACL comes from the route config.
+// - Files are served at `/f/<key>` and `/a/<appId>/<key>`. A private file (`x-ut-acl=private`) is
+//   served only to a URL signed the same way (`UTApi.generateSignedURL` signs locally,
+//   `UTApi.getSignedURL` asks `/v6/requestFileAccess`) before its `expires`, and never as cacheable;
+//   without a valid signature, or after expiry, it answers 403. A public file is served to anyone.
+// - UTApi's calls are `POST /v6/<name>` with the api key header.
+//
+// Bytes and file records live under `stateDir`, so files survive a restart; the fake's credentials
+// are kept there too so that stored file URLs and keys stay valid.
 import { createHash, createHmac, randomBytes, randomUUID, timingSafeEqual } from "node:crypto";
 import { mkdirSync, readdirSync, readFileSync, renameSync, rmSync, writeFileSync } from "node:fs";
 import { createServer } from "node:http";

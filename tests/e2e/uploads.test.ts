@@ -81,6 +81,14 @@ describe("uploads in the browser through the upload service fake", () => {
     await image.waitFor();
     await page.waitForFunction((alt) => (document.querySelector(`img[alt="${alt}"]`) as HTMLImageElement | null)?.naturalWidth === 1, `Attachment chart-${run}.png`);
     expect(await note.getByTestId("attachment").getAttribute("data-kind")).toBe("png");
+    // The picture comes from the app's access-checked route (same origin), never from the upload service.
+    const source = (await image.getAttribute("src")) ?? "";
+    expect(source).toMatch(/^\/api\/proposals\/[0-9a-f-]{36}\/targets\/[0-9a-f-]{36}\/notes\/[0-9a-f-]{36}\/attachments\/[0-9a-f-]{36}\/file$/);
+    const served = await page.request.get(source);
+    expect(served.headers()["content-type"]).toBe("image/png");
+    expect(served.headers()["x-content-type-options"]).toBe("nosniff");
+    expect(served.headers()["cache-control"]).toBe("private, no-store");
+    expect(Buffer.from(await served.body()).equals(onePixelPng)).toBe(true);
   });
 
   it("the demo viewer sees no upload controls and the API answers 403", async () => {

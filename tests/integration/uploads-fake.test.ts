@@ -220,6 +220,33 @@ describe("upload through the route handler to the fake", () => {
     expect((await fetch(granted.ufsUrl)).status).toBe(200);
     expect((await fetch(`${signed.ufsUrl.slice(0, -1)}${signed.ufsUrl.at(-1) === "0" ? "1" : "0"}`)).status).toBe(403);
   });
+
+  it("refuses a private file to its raw URLs, to a signed URL without its signature and to an expired one, and never lets it be cached (a regression: files were public and immutable)", async () => {
+    const bytes = pngBytes(128);
+    const presigned = await requestPresigned("privateSpectrum", { name: "chart.png", size: bytes.length, type: "text/html" });
+    expect((await putFile(presigned.url, bytes, "chart.png", "text/html")).status).toBe(200);
+    const utapi = new UTApi();
+    const signed = (await utapi.generateSignedURL(presigned.key, { expiresIn: 60 })).ufsUrl;
+    const served = await fetch(signed);
+    expect(served.status).toBe(200);
+    expect(served.headers.get("cache-control")).toBe("private, no-store");
+
+    const unsigned = signed.slice(0, signed.lastIndexOf("&signature="));
+    const raw = [`http://127.0.0.1:${fake.port}/f/${presigned.key}`, `http://localhost:${fake.port}/f/${presigned.key}`, new URL(signed).origin + new URL(signed).pathname];
+    for (const url of [...raw, unsigned, `${unsigned}&signature=`]) {
+      const refused = await fetch(url);
+      expect(refused.status, url).toBe(403);
+      expect(refused.headers.get("cache-control") ?? "").not.toMatch(/public|immutable/);
+    }
+
+    // Signed ten minutes ago for one minute: the signature is the SDK's own, the time is past.
+    vi.useFakeTimers({ toFake: ["Date"], now: Date.now() - 10 * 60_000 });
+    const expired = (await utapi.generateSignedURL(presigned.key, { expiresIn: 60 })).ufsUrl;
+    vi.useRealTimers();
+    const late = await fetch(expired);
+    expect(late.status).toBe(403);
+    expect(((await late.json()) as { error: string }).error).toBe("The signed URL has expired.");
+  });
 });
 
 describe("UTApi file management against the fake", () => {

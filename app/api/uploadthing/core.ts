@@ -9,6 +9,7 @@ import { crossSiteError } from "@/lib/security/same-origin";
 import { errorResponse } from "@/lib/server/http";
 import { authorizeTargetListUpload, recordTargetListUpload } from "@/lib/server/imports";
 import { sessionActor } from "@/lib/server/session";
+import { completeUpload } from "@/lib/server/upload-completion";
 
 const f = createUploadthing();
 
@@ -28,24 +29,28 @@ async function asUploadError<T>(check: () => Promise<T>): Promise<T> {
 
 // The SDK's sizes are powers of two: these bound the signed size; the product's limits (5 MB for a
 // list, 16 MB for an attachment) are checked in the middleware on the declared size and on the bytes.
-const targetListConfig = { blob: { maxFileSize: "8MB", maxFileCount: 1 } } as const;
-const attachmentConfig = { blob: { maxFileSize: "16MB", maxFileCount: 1 } } as const;
+// Both kinds are stored private: the service serves them only to a URL signed with the api key, which
+// only this server makes (the hosted service must allow a route to set its ACL: the app's
+// "allow overriding ACL" setting). Members read attachments through the app's access-checked route.
+const targetListConfig = { blob: { maxFileSize: "8MB", maxFileCount: 1, acl: "private" } } as const;
+const attachmentConfig = { blob: { maxFileSize: "16MB", maxFileCount: 1, acl: "private" } } as const;
 
 /**
  * The upload routes. Each middleware checks session and role (Co-I or PI of the proposal) through the
- * data-access layer before the SDK signs any URL; each completion fetches the bytes, checks the type by
- * content and records the file, answering `{ ok: false, message }` (file deleted) when it is refused.
+ * data-access layer before the SDK signs any URL; each completion checks that role again (the URL may
+ * be used after a removal), fetches the bytes, checks the type by content and records the file,
+ * answering `{ ok: false, message }` (file deleted) when it is refused.
  */
 export function makeUploadRouter(getActor: GetActor) {
   return {
     targetList: f(targetListConfig)
       .input(z.object({ proposalId: z.string() }))
       .middleware(({ req, input, files }) => asUploadError(async () => authorizeTargetListUpload(input, await getActor(req), files)))
-      .onUploadComplete(({ metadata, file }) => recordTargetListUpload(metadata, file)),
+      .onUploadComplete(({ metadata, file }) => completeUpload(metadata, file, "import", recordTargetListUpload)),
     noteAttachment: f(attachmentConfig)
       .input(z.object({ proposalId: z.string(), targetId: z.string(), noteId: z.string() }))
       .middleware(({ req, input, files }) => asUploadError(async () => authorizeAttachmentUpload(input, await getActor(req), files)))
-      .onUploadComplete(({ metadata, file }) => recordAttachmentUpload(metadata, file)),
+      .onUploadComplete(({ metadata, file }) => completeUpload(metadata, file, "attachment", recordAttachmentUpload)),
   } satisfies FileRouter;
 }
 

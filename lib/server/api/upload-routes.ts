@@ -1,7 +1,7 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
 import { endpoint, noContent, readJson } from "@/lib/server/api/endpoint";
-import { attachmentFileUrl, deleteAttachment, listAttachments } from "@/lib/server/attachments";
+import { deleteAttachment, listAttachments, openAttachmentFile } from "@/lib/server/attachments";
 import { commitImport, previewImport } from "@/lib/server/imports";
 
 type ProposalParams = { proposalId: string };
@@ -41,11 +41,38 @@ export function attachmentRoutes(getActor: GetActor) {
   };
 }
 
-/** .../attachments/[attachmentId]/file — checks access, then sends the browser to the stored bytes. */
+/**
+ * `Content-Disposition` with the file's name (RFC 6266): an ASCII `filename` for old clients and the
+ * exact name as UTF-8 in `filename*` (RFC 8187; encodeURIComponent leaves `'()*` bare, which that
+ * grammar does not allow).
+ */
+function contentDisposition(disposition: "inline" | "attachment", fileName: string): string {
+  const ascii = fileName.replace(/[^\x20-\x7e]|["\\]/g, "_");
+  const encoded = encodeURIComponent(fileName).replace(/['()*]/g, (char) => `%${char.charCodeAt(0).toString(16).toUpperCase()}`);
+  return `${disposition}; filename="${ascii}"; filename*=UTF-8''${encoded}`;
+}
+
+/**
+ * .../attachments/[attachmentId]/file — the stored bytes, after the access check, as the type their
+ * content shows: PNG and JPEG inline (the note shows them), everything else a download. `nosniff`
+ * holds the browser to that type, and the sandbox policy keeps a body that a browser did render as a
+ * page from running script or loading anything; the answer is never cached, so a removed member
+ * cannot read it from a cache either.
+ */
 export function attachmentFileRoutes(getActor: GetActor) {
   return {
-    GET: endpoint<AttachmentParams>(getActor, async ({ params, actor }) =>
-      Response.redirect(await attachmentFileUrl(params, actor), 302),
-    ),
+    GET: endpoint<AttachmentParams>(getActor, async ({ params, actor }) => {
+      const file = await openAttachmentFile(params, actor);
+      return new Response(file.body, {
+        headers: {
+          "Content-Type": file.mimeType,
+          "Content-Disposition": contentDisposition(file.isInline ? "inline" : "attachment", file.name),
+          "X-Content-Type-Options": "nosniff",
+          "Cache-Control": "private, no-store",
+          "Content-Security-Policy": "default-src 'none'; sandbox",
+          ...(file.sizeBytes === null ? {} : { "Content-Length": String(file.sizeBytes) }),
+        },
+      });
+    }),
   };
 }

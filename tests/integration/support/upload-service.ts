@@ -3,7 +3,7 @@ import { createServer, type IncomingMessage, type Server } from "node:http";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { vi } from "vitest";
-import { createRouteHandler } from "uploadthing/server";
+import { createRouteHandler, UTApi } from "uploadthing/server";
 import { makeUploadRouter, withSignInCheck } from "@/app/api/uploadthing/core";
 import type { Actor } from "@/lib/server/actor";
 import { startUploadFake, type UploadFake } from "@/scripts/fakes/uploads.mjs";
@@ -15,8 +15,15 @@ import { startUploadFake, type UploadFake } from "@/scripts/fakes/uploads.mjs";
  */
 export interface UploadService {
   fake: UploadFake;
-  uploadAs(actor: Actor | null, slug: "targetList" | "noteAttachment", input: Record<string, string>, file: { name: string; bytes: Uint8Array; type?: string; declaredSize?: number }): Promise<UploadAttempt>;
-  /** Whether the fake still serves a stored key (a refused upload's bytes go a moment after the refusal). */
+  /** `beforePut` runs between the presign (middleware) and the PUT, e.g. to remove the uploader. */
+  uploadAs(
+    actor: Actor | null,
+    slug: "targetList" | "noteAttachment",
+    input: Record<string, string>,
+    file: { name: string; bytes: Uint8Array; type?: string; declaredSize?: number },
+    beforePut?: () => Promise<void>,
+  ): Promise<UploadAttempt>;
+  /** Whether the fake still holds a stored key (a refused upload's bytes go a moment after the refusal). */
   isStored(key: string, settleMs?: number): Promise<boolean>;
   stop(): Promise<void>;
 }
@@ -69,7 +76,7 @@ export async function startUploadService(): Promise<UploadService> {
 
   return {
     fake,
-    async uploadAs(actor, slug, input, file) {
+    async uploadAs(actor, slug, input, file, beforePut) {
       const type = file.type ?? "application/octet-stream";
       const size = file.declaredSize ?? file.bytes.length;
       const presign = await handlerFor(actor)(
@@ -84,6 +91,7 @@ export async function startUploadService(): Promise<UploadService> {
         return { stage: "presign", status: presign.status, message: body.message ?? body.error?.message ?? "" };
       }
       const [presigned] = (await presign.json()) as { url: string; key: string }[];
+      await beforePut?.();
       const form = new FormData();
       form.append("file", new File([new Uint8Array(file.bytes)], file.name, { type }));
       const put = await fetch(presigned.url, { method: "PUT", body: form, headers: { Range: "bytes=0-" } });
@@ -92,13 +100,15 @@ export async function startUploadService(): Promise<UploadService> {
       return { stage: "stored", key: presigned.key, serverData };
     },
     async isStored(key, settleMs = 0) {
+      // Stored files are private: only a URL signed with the api key reads them.
+      const isServed = async () => (await fetch((await new UTApi().generateSignedURL(key, { expiresIn: 60 })).ufsUrl)).status === 200;
       const deadline = Date.now() + settleMs;
-      let isServed = (await fetch(`http://127.0.0.1:${fake.port}/f/${key}`)).status === 200;
-      while (isServed && Date.now() < deadline) {
+      let isHeld = await isServed();
+      while (isHeld && Date.now() < deadline) {
         await new Promise((resolve) => setTimeout(resolve, 100));
-        isServed = (await fetch(`http://127.0.0.1:${fake.port}/f/${key}`)).status === 200;
+        isHeld = await isServed();
       }
-      return isServed;
+      return isHeld;
     },
     async stop() {
       vi.unstubAllEnvs();

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { checkAttachment, detectAttachmentKind } from "@/lib/imports/attachment-type";
+import { checkAttachment, detectAttachmentKind, servedFormOf, SIGNATURE_BYTES } from "@/lib/imports/attachment-type";
 import { MAX_ATTACHMENT_BYTES } from "@/lib/imports/limits";
 import { card, fitsFile } from "./fits";
 import { refusal } from "./refusal";
@@ -30,6 +30,27 @@ describe("detectAttachmentKind (by content)", () => {
     expect(detectAttachmentKind(new TextEncoder().encode("<html><script>alert(1)</script>"))).toBeNull();
     expect(detectAttachmentKind(new TextEncoder().encode("GIF89a"))).toBeNull();
     expect(detectAttachmentKind(new TextEncoder().encode("SIMPLE ="))).toBeNull();
+  });
+});
+
+describe("servedFormOf (what the file route answers with)", () => {
+  it("serves PNG and JPEG inline as images, PDF and FITS as downloads of their own type", () => {
+    expect(servedFormOf(PNG)).toEqual({ mimeType: "image/png", isInline: true });
+    expect(servedFormOf(JPEG)).toEqual({ mimeType: "image/jpeg", isInline: true });
+    expect(servedFormOf(PDF)).toEqual({ mimeType: "application/pdf", isInline: false });
+    expect(servedFormOf(fitsFile([card("SIMPLE", "T"), card("BITPIX", "8"), card("NAXIS", "0")]))).toEqual({ mimeType: "application/fits", isInline: false });
+  });
+
+  it("serves HTML, SVG and anything unknown as an opaque download, never as a page (a regression: the declared type was served)", () => {
+    for (const text of ["<!DOCTYPE html><script>alert(1)</script>", '<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>', ""]) {
+      expect(servedFormOf(new TextEncoder().encode(text))).toEqual({ mimeType: "application/octet-stream", isInline: false });
+    }
+  });
+
+  it("reads the type from no more than the SIGNATURE_BYTES leading bytes", () => {
+    expect(SIGNATURE_BYTES).toBe(9);
+    const fits = fitsFile([card("SIMPLE", "T"), card("BITPIX", "8"), card("NAXIS", "0")]);
+    expect(servedFormOf(fits.subarray(0, SIGNATURE_BYTES)).mimeType).toBe("application/fits");
   });
 });
 

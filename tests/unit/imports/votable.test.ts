@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
-import { parseVoTable } from "@/lib/imports/votable";
+import type { AppError } from "@/lib/errors";
+import { MAX_VOTABLE_DEPTH, parseVoTable } from "@/lib/imports/votable";
 import { refusal } from "./refusal";
 
 const FIELDS = `
@@ -95,6 +96,28 @@ describe("parseVoTable", () => {
 
   it("refuses a table with FIELDs but no rows (headers only)", () => {
     expect(refusal(() => parseVoTable(votable(""))).message).toBe("The VOTable has its columns but no data rows.");
+  });
+
+  it("refuses deeply nested elements with a clear import error, as fast as a table of the same size (a regression: the parser's own error escaped and the upload hung)", () => {
+    const nested = (depth: number) => `<VOTABLE>${"<RESOURCE>".repeat(depth)}${"</RESOURCE>".repeat(depth)}</VOTABLE>`;
+    // Nested to the bound it is still read (and has no table); one level more is refused.
+    expect(refusal(() => parseVoTable(nested(MAX_VOTABLE_DEPTH - 1))).message).toBe("The VOTable holds no TABLE.");
+    expect(refusal(() => parseVoTable(nested(MAX_VOTABLE_DEPTH))).message).toBe(
+      `The XML nests its elements more than ${MAX_VOTABLE_DEPTH} levels deep, far more than a VOTable needs; it is refused. Export the table again.`,
+    );
+    // 100,000 levels (2 MB, under the 5 MB list limit) against a flat table of as many bytes.
+    const deep = nested(100_000);
+    const flat = votable("<TR><TD>A</TD><TD>1</TD><TD>2</TD></TR>".repeat(Math.ceil(deep.length / 40))).slice(0, deep.length);
+    const time = (run: () => void) => {
+      const started = performance.now();
+      run();
+      return performance.now() - started;
+    };
+    let deepError: AppError | undefined;
+    const deepMs = time(() => (deepError = refusal(() => parseVoTable(deep))));
+    const flatMs = time(() => refusal(() => parseVoTable(flat)));
+    expect(deepError?.code).toBe("bad_request:import");
+    expect(deepMs / flatMs).toBeLessThan(5);
   });
 
   it(`refuses more than ${MAX_IMPORT_ROWS} rows`, () => {
