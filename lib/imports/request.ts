@@ -14,7 +14,7 @@ export const defaultImportFill = { priority: 3, sourceOffsetThetaE: 0.3 } as con
 
 const assignmentSchema = z.object({
   column: z.number().int().min(0, "Choose a column.").max(9_999),
-  unit: z.string().trim().min(1).max(40).optional(),
+  unit: z.string().trim().min(1, "Name the unit.").max(40, "A unit is at most 40 characters.").optional(),
   isUnitAssumed: z.boolean().optional(),
 });
 

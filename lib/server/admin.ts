@@ -91,8 +91,8 @@ export async function listAccounts(query: unknown, actor: Actor | null): Promise
  */
 export async function changeSiteRole(params: unknown, input: unknown, actor: Actor | null): Promise<AccountView> {
   const { userId } = parseIds(accountParamsSchema, params, "account");
-  const { siteRole } = parseOrThrow(changeSiteRoleSchema, input, "account");
   const who = requireSiteAdmin(actor);
+  const { siteRole } = parseOrThrow(changeSiteRoleSchema, input, "account");
   return dbClient().db.transaction(async (tx) => {
     // Re-check the caller inside the transaction: their own admin role may just have been taken away.
     const admins = await tx.select({ id: users.id }).from(users).where(eq(users.siteRole, "admin")).for("update");

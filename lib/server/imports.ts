@@ -190,8 +190,9 @@ function readPlan(table: ImportTable, mapping: ColumnMapping, fill: ImportFill, 
  */
 export async function previewImport(params: unknown, input: unknown, actor: Actor | null): Promise<ImportPreviewView> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const who = requireActor(actor);
   const request = parseOrThrow(importPreviewSchema, input, "import");
-  const { db, file, table } = await readUploadedList(proposalId, request.fileId, requireActor(actor));
+  const { db, file, table } = await readUploadedList(proposalId, request.fileId, who);
   const proposedMapping = proposeColumnMapping(table.columns);
   const mapping = request.mapping ?? proposedMapping;
   const plan = readPlan(table, mapping, request.fill, await existingTargets(db, proposalId), request.toleranceArcsec);
@@ -218,8 +219,8 @@ const INSERT_CHUNK_ROWS = 500;
  */
 export async function commitImport(params: unknown, input: unknown, actor: Actor | null): Promise<ImportResult> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
-  const request = parseOrThrow(importCommitSchema, input, "import");
   const who = requireActor(actor);
+  const request = parseOrThrow(importCommitSchema, input, "import");
   // Read before the transaction opens, so no lock is held while the upload service answers.
   const { db, file, table } = await readUploadedList(proposalId, request.fileId, who);
   return db.transaction(async (tx) => {

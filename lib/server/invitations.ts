@@ -65,8 +65,8 @@ export async function listInvitations(params: unknown, actor: Actor | null): Pro
  */
 export async function createInvitation(params: unknown, input: unknown, actor: Actor | null): Promise<InvitationView> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
-  const { email, role } = parseOrThrow(createInvitationSchema, input, "invitation");
   const who = requireActor(actor);
+  const { email, role } = parseOrThrow(createInvitationSchema, input, "invitation");
   return dbClient().db.transaction(async (tx) => {
     const { proposal } = await authorize(tx, proposalId, who, "manage", "invitation");
     const [existing] = await tx
@@ -155,8 +155,8 @@ export async function previewInvitation(token: unknown): Promise<InvitationPrevi
  * forwarded link does not let someone else in). Creates the membership; spends the invitation.
  */
 export async function acceptInvitation(input: unknown, actor: Actor | null): Promise<{ proposalId: string; role: ProposalRole }> {
-  const { token } = parseOrThrow(acceptInvitationSchema, input, "invitation");
   const who = requireActor(actor);
+  const { token } = parseOrThrow(acceptInvitationSchema, input, "invitation");
   return dbClient().db.transaction(async (tx) => {
     const [invitation] = await tx
       .select()

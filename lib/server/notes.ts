@@ -100,8 +100,8 @@ export async function getNoteHistory(params: unknown, actor: Actor | null): Prom
 /** Co-I or PI. The first text is kept as revision 1. */
 export async function createNote(params: unknown, input: unknown, actor: Actor | null): Promise<NoteView> {
   const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
-  const { body } = parseOrThrow(createNoteSchema, input, "note");
   const who = requireActor(actor);
+  const { body } = parseOrThrow(createNoteSchema, input, "note");
   return dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "edit", "note");
     const targetName = await requireTarget(tx, proposalId, targetId);
@@ -118,8 +118,8 @@ export async function createNote(params: unknown, input: unknown, actor: Actor |
  */
 export async function updateNote(params: unknown, input: unknown, actor: Actor | null): Promise<NoteView> {
   const { proposalId, targetId, noteId } = parseIds(noteParamsSchema, params, "note");
-  const { body, version } = parseOrThrow(updateNoteSchema, input, "note");
   const who = requireActor(actor);
+  const { body, version } = parseOrThrow(updateNoteSchema, input, "note");
   return dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "edit", "note");
     const targetName = await requireTarget(tx, proposalId, targetId);

@@ -107,9 +107,9 @@ export async function listProposals(actor: Actor | null): Promise<ProposalSummar
 
 /** Any signed-in person may start a proposal; they become its PI. */
 export async function createProposal(input: unknown, actor: Actor | null): Promise<ProposalDetail> {
+  const { userId } = requireActor(actor);
   const data = parseOrThrow(createProposalSchema, input, "proposal");
   requireConsistentSettings(proposalSettingsErrors(data));
-  const { userId } = requireActor(actor);
   return dbClient().db.transaction(async (tx) => {
     const [proposal] = await tx
       .insert(proposals)
@@ -139,8 +139,8 @@ function requireConsistentSettings(fields: FieldErrors): void {
  */
 export async function updateProposal(params: unknown, input: unknown, actor: Actor | null): Promise<ProposalDetail> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
-  const data = parseOrThrow(updateProposalSchema, input, "proposal");
   const who = requireActor(actor);
+  const data = parseOrThrow(updateProposalSchema, input, "proposal");
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "manage", "proposal");
     const current = detailOf(access.proposal, access);

@@ -142,9 +142,9 @@ function requireCompleteHypothesis(h: LensHypothesis): void {
 /** Co-I or PI. The derived columns are computed from the new target and the proposal's instrument. */
 export async function createTarget(params: unknown, input: unknown, actor: Actor | null): Promise<TargetView> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const who = requireActor(actor);
   const { ra, dec, ...data } = parseOrThrow(createTargetSchema, input, "target");
   requireCompleteHypothesis(data);
-  const who = requireActor(actor);
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "edit", "target");
     const derived = deriveTargetColumns(data, instrumentOf(access.proposal));
@@ -161,8 +161,8 @@ export async function createTarget(params: unknown, input: unknown, actor: Actor
 /** Co-I or PI. Status moves follow the allowed transitions; the hypothesis must stay complete. */
 export async function updateTarget(params: unknown, input: unknown, actor: Actor | null): Promise<TargetView> {
   const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");
-  const { ra, dec, ...patch } = parseOrThrow(updateTargetSchema, input, "target");
   const who = requireActor(actor);
+  const { ra, dec, ...patch } = parseOrThrow(updateTargetSchema, input, "target");
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "edit", "target");
     // Row lock: two concurrent edits of one target apply one after the other, never interleaved.

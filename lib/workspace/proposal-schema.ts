@@ -7,7 +7,7 @@ import { addDaysIso } from "@/lib/astro/time";
 
 /** The observing site: where the telescope stands and how low it can point. */
 export const siteSchema = z.object({
-  name: nameText().trim().min(1, "Name the site.").max(120),
+  name: nameText().trim().min(1, "Name the site.").max(120, "A site name is at most 120 characters."),
   latitudeDeg: z.number().min(-90, "Latitude is between -90 and 90 degrees.").max(90, "Latitude is between -90 and 90 degrees."),
   longitudeDeg: z.number().min(-180, "Longitude is between -180 and 180 degrees (east positive).").max(180, "Longitude is between -180 and 180 degrees (east positive)."),
   elevationM: z.number().min(-500, "Elevation is at least -500 m.").max(9000, "Elevation is at most 9000 m."),
@@ -48,8 +48,8 @@ export const instrumentSchema = lensingInstrumentSchema.extend({
 const cycleDateSchema = nightDateSchema.nullable();
 
 const proposalFields = {
-  title: nameText().trim().min(1, "Give the proposal a title.").max(200),
-  cycle: nameText().trim().min(1, "Name the observing cycle (e.g. 2027B).").max(40),
+  title: nameText().trim().min(1, "Give the proposal a title.").max(200, "A title is at most 200 characters."),
+  cycle: nameText().trim().min(1, "Name the observing cycle (e.g. 2027B).").max(40, "A cycle name is at most 40 characters."),
   abstract: storedText().max(5000, "The abstract is at most 5000 characters."),
   /** First and last night of the cycle (local evening dates, inclusive); both or neither. */
   cycleStartDate: cycleDateSchema,

@@ -28,10 +28,10 @@ export const targetListQuerySchema = z.object({
   pageSize: z.coerce.number().int().min(1).max(maxTargetPageSize, `At most ${maxTargetPageSize} rows per page.`).default(50),
   sort: z.enum(targetSortColumns).default("priority"),
   direction: z.enum(["asc", "desc"]).default("asc"),
-  q: storedText().trim().max(100).optional(),
+  q: storedText().trim().max(100, "Search for at most 100 characters.").optional(),
   status: z.enum(targetStatuses).optional(),
   lensModel: z.enum(lensModels).optional(),
-  tag: storedText().trim().max(32).optional(),
+  tag: storedText().trim().max(32, "A tag is at most 32 characters.").optional(),
   resolutionVerdict: z.enum(verdicts).optional(),
 });
 

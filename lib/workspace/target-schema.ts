@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { nameText } from "@/lib/workspace/stored-text";
-import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
 
@@ -12,7 +12,8 @@ export const lensModelLabels: Record<LensModel, string> = {
 };
 
 function coordinate(parse: (input: string | number) => number) {
-  return z.union([z.string(), z.number()]).transform((input, ctx) => {
+  const text = z.string().max(MAX_COORDINATE_CHARS, `A coordinate is at most ${MAX_COORDINATE_CHARS} characters.`);
+  return z.union([text, z.number()]).transform((input, ctx) => {
     try {
       return parse(input);
     } catch (error) {
@@ -26,14 +27,14 @@ function coordinate(parse: (input: string | number) => number) {
 const optionalPositive = (message: string) => z.number().positive(message).finite().nullable().optional();
 const optionalRedshift = z.number().min(0, "Redshift cannot be negative.").max(20, "Redshift is at most 20.").nullable().optional();
 
-const tagSchema = z.string().trim().min(1).max(32, "A tag is at most 32 characters.").regex(/^[\w.+-]+$/, "Tags use letters, digits, . + - _");
+const tagSchema = z.string().trim().min(1, "A tag cannot be empty.").max(32, "A tag is at most 32 characters.").regex(/^[\w.+-]+$/, "Tags use letters, digits, . + - _");
 
 /**
  * Every field of a target as it arrives from a form or the API. The right ascension and declination
  * come in as typed (`ra`, `dec`) and leave as ICRS degrees.
  */
 export const targetFieldsSchema = z.object({
-  name: nameText().trim().min(1, "Name the target.").max(120),
+  name: nameText().trim().min(1, "Name the target.").max(120, "A target name is at most 120 characters."),
   ra: coordinate(parseRightAscensionDeg),
   dec: coordinate(parseDeclinationDeg),
   lensModel: z.enum(lensModels, { error: "The lens model is point or sis." }),

@@ -1,7 +1,7 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
 import { changeSiteRole, listAccounts, siteAccessOf } from "@/lib/server/admin";
-import { endpoint, queryOf, readJson } from "@/lib/server/api/endpoint";
+import { endpoint, queryOf, readJsonOfSignedIn } from "@/lib/server/api/endpoint";
 
 /** /api/admin/accounts */
 export function accountCollectionRoutes(getActor: GetActor) {
@@ -14,7 +14,7 @@ export function accountCollectionRoutes(getActor: GetActor) {
 export function accountRoutes(getActor: GetActor) {
   return {
     PATCH: endpoint<{ userId: string }>(getActor, async ({ request, params, actor }) =>
-      Response.json({ account: await changeSiteRole(params, await readJson(request), actor) }),
+      Response.json({ account: await changeSiteRole(params, await readJsonOfSignedIn(request, actor), actor) }),
     ),
   };
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
-import { endpoint, noContent, readJson } from "@/lib/server/api/endpoint";
+import { endpoint, noContent, readJsonOfSignedIn } from "@/lib/server/api/endpoint";
 import { acceptInvitation, createInvitation, listInvitations, revokeInvitation } from "@/lib/server/invitations";
 import { changeMemberRole, listMembers, removeMember } from "@/lib/server/members";
 
@@ -18,7 +18,7 @@ export function memberRoutes(getActor: GetActor) {
   type Params = ProposalParams & { userId: string };
   return {
     PATCH: endpoint<Params>(getActor, async ({ request, params, actor }) =>
-      Response.json({ members: await changeMemberRole(params, await readJson(request), actor) }),
+      Response.json({ members: await changeMemberRole(params, await readJsonOfSignedIn(request, actor), actor) }),
     ),
     DELETE: endpoint<Params>(getActor, async ({ params, actor }) => {
       await removeMember(params, actor);
@@ -34,7 +34,7 @@ export function invitationCollectionRoutes(getActor: GetActor) {
       Response.json({ invitations: await listInvitations(params, actor) }),
     ),
     POST: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ invitation: await createInvitation(params, await readJson(request), actor) }, { status: 201 }),
+      Response.json({ invitation: await createInvitation(params, await readJsonOfSignedIn(request, actor), actor) }, { status: 201 }),
     ),
   };
 }
@@ -52,6 +52,6 @@ export function invitationRoutes(getActor: GetActor) {
 /** /api/invitations/accept */
 export function acceptInvitationRoutes(getActor: GetActor) {
   return {
-    POST: endpoint(getActor, async ({ request, actor }) => Response.json(await acceptInvitation(await readJson(request), actor))),
+    POST: endpoint(getActor, async ({ request, actor }) => Response.json(await acceptInvitation(await readJsonOfSignedIn(request, actor), actor))),
   };
 }

@@ -1,6 +1,6 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
-import { endpoint, noContent, queryOf, readJson } from "@/lib/server/api/endpoint";
+import { endpoint, noContent, queryOf, readJsonOfSignedIn } from "@/lib/server/api/endpoint";
 import { createNote, deleteNote, getNoteHistory, listNotes, updateNote } from "@/lib/server/notes";
 import { createTarget, deleteTarget, getTarget, listTargets, updateTarget } from "@/lib/server/targets";
 
@@ -15,7 +15,7 @@ export function targetCollectionRoutes(getActor: GetActor) {
       Response.json(await listTargets(params, queryOf(request), actor)),
     ),
     POST: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ target: await createTarget(params, await readJson(request), actor) }, { status: 201 }),
+      Response.json({ target: await createTarget(params, await readJsonOfSignedIn(request, actor), actor) }, { status: 201 }),
     ),
   };
 }
@@ -25,7 +25,7 @@ export function targetRoutes(getActor: GetActor) {
   return {
     GET: endpoint<TargetParams>(getActor, async ({ params, actor }) => Response.json({ target: await getTarget(params, actor) })),
     PATCH: endpoint<TargetParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ target: await updateTarget(params, await readJson(request), actor) }),
+      Response.json({ target: await updateTarget(params, await readJsonOfSignedIn(request, actor), actor) }),
     ),
     DELETE: endpoint<TargetParams>(getActor, async ({ params, actor }) => {
       await deleteTarget(params, actor);
@@ -39,7 +39,7 @@ export function noteCollectionRoutes(getActor: GetActor) {
   return {
     GET: endpoint<TargetParams>(getActor, async ({ params, actor }) => Response.json({ notes: await listNotes(params, actor) })),
     POST: endpoint<TargetParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ note: await createNote(params, await readJson(request), actor) }, { status: 201 }),
+      Response.json({ note: await createNote(params, await readJsonOfSignedIn(request, actor), actor) }, { status: 201 }),
     ),
   };
 }
@@ -49,7 +49,7 @@ export function noteRoutes(getActor: GetActor) {
   return {
     GET: endpoint<NoteParams>(getActor, async ({ params, actor }) => Response.json(await getNoteHistory(params, actor))),
     PATCH: endpoint<NoteParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ note: await updateNote(params, await readJson(request), actor) }),
+      Response.json({ note: await updateNote(params, await readJsonOfSignedIn(request, actor), actor) }),
     ),
     DELETE: endpoint<NoteParams>(getActor, async ({ params, actor }) => {
       await deleteNote(params, actor);

@@ -1,6 +1,6 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
-import { endpoint, noContent, readJson } from "@/lib/server/api/endpoint";
+import { endpoint, noContent, readJsonOfSignedIn } from "@/lib/server/api/endpoint";
 import { deleteAttachment, listAttachments, openAttachmentFile } from "@/lib/server/attachments";
 import { commitImport, previewImport } from "@/lib/server/imports";
 
@@ -12,7 +12,7 @@ type AttachmentParams = NoteParams & { attachmentId: string };
 export function importCollectionRoutes(getActor: GetActor) {
   return {
     POST: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) =>
-      Response.json({ import: await commitImport(params, await readJson(request), actor) }, { status: 201 }),
+      Response.json({ import: await commitImport(params, await readJsonOfSignedIn(request, actor), actor) }, { status: 201 }),
     ),
   };
 }
@@ -20,7 +20,7 @@ export function importCollectionRoutes(getActor: GetActor) {
 /** /api/proposals/[proposalId]/imports/preview — what a commit would do, row by row; writes nothing. */
 export function importPreviewRoutes(getActor: GetActor) {
   return {
-    POST: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => Response.json(await previewImport(params, await readJson(request), actor))),
+    POST: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => Response.json(await previewImport(params, await readJsonOfSignedIn(request, actor), actor))),
   };
 }
 
