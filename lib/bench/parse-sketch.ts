@@ -101,7 +101,7 @@ class FieldReader {
 /** A bare number: "0.3", "2e3". Units are not allowed here (the label states what the number means). */
 export function parsePlainNumber(text: string): number {
   const trimmed = text.trim();
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(trimmed)) throw new Error(`'${text}' is not a plain number`);
+  if (!/^[+-]?(\d+(?:\.\d*)?|\.\d+)(e[+-]?\d+)?$/i.test(trimmed)) throw new Error(`'${text}' is not a plain number`);
   return Number(trimmed);
 }
 
