@@ -79,7 +79,8 @@ describe("a hostile target list is refused in the completion step", () => {
     expect(refusedMessage(hostile.attempt)).toBe(
       `The XML nests its elements more than ${MAX_VOTABLE_DEPTH} levels deep, far more than a VOTable needs; it is refused. Export the table again.`,
     );
-    expect(hostile.ms / yardstick.ms).toBeLessThan(3);
+    // Measured 70 ms against 58 ms; before, the uploader waited for the service's timeout (8 s here).
+    expect(hostile.ms / yardstick.ms).toBeLessThan(10);
     if (hostile.attempt.stage === "stored") expect(await service.isStored(hostile.attempt.key, 3_000)).toBe(false);
     expect(await fileRows(world.proposalId)).toBe(1);
   });
