@@ -1,11 +1,17 @@
+import { serverEnv } from "@/lib/env";
 import { AppError } from "@/lib/errors";
 
 /**
  * Cross-site request refusal for state-changing requests (OWASP CSRF Prevention Cheat Sheet:
  * "verifying origin with standard headers" and Fetch Metadata). Browsers send `Origin` on every
  * non-GET request and `Sec-Fetch-Site` on every request; a request that carries either must come
- * from this very host. A request with neither did not come from a browser page (scripts, the upload
+ * from this very origin. A request with neither did not come from a browser page (scripts, the upload
  * service's signed callbacks) and cannot carry a victim's cookies by accident, so it is let through.
+ *
+ * "This origin" is the configured public one (`NEXTAUTH_URL`): scheme, host and port, as RFC 6454
+ * compares origins. Nothing in the request itself is trusted to say where it was sent (`Host` and
+ * `X-Forwarded-Host` are the client's to write), and another port or scheme on the same host is
+ * another origin, whose pages the session cookie would reach all the same.
  */
 
 /**
@@ -16,8 +22,8 @@ const safeMethods = new Set(["GET", "HEAD"]);
 
 export interface RequestFacts {
   method: string;
-  /** The Host the request was sent to (`X-Forwarded-Host` first, behind a proxy). */
-  host: string | null;
+  /** The app's own origin from configuration (`http://127.0.0.1:3000`); a path on it is ignored. */
+  appOrigin: string;
   origin: string | null;
   secFetchSite: string | null;
 }
@@ -26,13 +32,9 @@ export interface RequestFacts {
 export function crossSiteRefusal(request: RequestFacts): string | null {
   if (safeMethods.has(request.method.toUpperCase())) return null;
   if (request.origin !== null) {
-    let originHost: string | null = null;
-    try {
-      originHost = request.origin === "null" ? null : new URL(request.origin).host;
-    } catch {
-      originHost = null;
-    }
-    if (originHost === null || request.host === null || originHost.toLowerCase() !== request.host.toLowerCase()) {
+    // URL parsing lowercases the host and drops a scheme's default port, so equal origins compare equal.
+    const origin = originOf(request.origin);
+    if (origin === null || origin !== originOf(request.appOrigin)) {
       return `requests that change data must come from this site; this one came from ${request.origin}.`;
     }
     return null;
@@ -43,11 +45,24 @@ export function crossSiteRefusal(request: RequestFacts): string | null {
   return null;
 }
 
-/** The refusal of a fetch `Request` as the product's error (403 `forbidden:origin`), or null. */
-export function crossSiteError(request: Request): AppError | null {
+/** The serialized origin of a URL (`https://host:port`), or null for an opaque origin ("null") or garbage. */
+function originOf(url: string): string | null {
+  try {
+    const origin = new URL(url).origin;
+    return origin === "null" ? null : origin;
+  } catch {
+    return null;
+  }
+}
+
+/**
+ * The refusal of a fetch `Request` as the product's error (403 `forbidden:origin`), or null.
+ * `appOrigin` is the configured public origin unless a test names another.
+ */
+export function crossSiteError(request: Request, appOrigin: string = serverEnv().NEXTAUTH_URL): AppError | null {
   const refusal = crossSiteRefusal({
     method: request.method,
-    host: request.headers.get("x-forwarded-host") ?? request.headers.get("host") ?? new URL(request.url).host,
+    appOrigin,
     origin: request.headers.get("origin"),
     secFetchSite: request.headers.get("sec-fetch-site"),
   });

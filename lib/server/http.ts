@@ -24,23 +24,41 @@ export function parseOrThrow<T extends z.ZodType>(schema: T, input: unknown, sub
   return result.data;
 }
 
+/**
+ * Every API answer is about one caller at one moment (a member's proposals, a refusal naming their
+ * input): no browser or shared cache may keep it (RFC 9111 §5.2.2.5).
+ */
+export const NO_STORE = "no-store";
+
 /** Maps any thrown value to the product's error answer. Unknown errors are logged, never echoed. */
 export function errorResponse(error: unknown): Response {
   if (error instanceof AppError) {
     // A rate limit says when to come back (RFC 9110 §10.2.3), from the limiter's window.
     const retryAfter = error.kind === "rate_limited" ? error.details?.retryAfterSeconds : undefined;
-    const headers = typeof retryAfter === "number" ? { "Retry-After": String(Math.ceil(retryAfter)) } : undefined;
+    const headers = { "Cache-Control": NO_STORE, ...(typeof retryAfter === "number" ? { "Retry-After": String(Math.ceil(retryAfter)) } : {}) };
     return Response.json(errorBody(error), { status: statusForCode(error.code), headers });
   }
   if (isDatabaseUnavailable(error)) {
     logUnavailable(error);
     const unavailable = new AppError("unavailable:database", "The database is not reachable right now; try again shortly.");
-    return Response.json(errorBody(unavailable), { status: 503, headers: { "Retry-After": "5" } });
+    return Response.json(errorBody(unavailable), { status: 503, headers: { "Cache-Control": NO_STORE, "Retry-After": "5" } });
   }
   console.error("unexpected error:", error);
   return Response.json(errorBody(new AppError("internal:server", "Something went wrong on our side.")), {
     status: 500,
+    headers: { "Cache-Control": NO_STORE },
   });
+}
+
+/**
+ * The answer with `Cache-Control: no-store` unless it set its own (downloads say `private, no-store`).
+ * Copied into a new Response because some answers' headers are immutable (`Response.redirect`).
+ */
+function withNoStore(response: Response): Response {
+  if (response.headers.has("cache-control")) return response;
+  const headers = new Headers(response.headers);
+  headers.set("Cache-Control", NO_STORE);
+  return new Response(response.body, { status: response.status, statusText: response.statusText, headers });
 }
 
 /** During an outage every request fails alike: the log gets the first failure and then one line per interval. */
@@ -73,15 +91,16 @@ export function isDatabaseUnavailable(error: unknown): boolean {
 }
 
 /**
- * Wraps a route handler so every failure becomes the documented error shape, and a cross-site request
- * that would change data is refused (403 `forbidden:origin`) before the handler runs.
+ * Wraps a route handler so every failure becomes the documented error shape, a cross-site request
+ * that would change data is refused (403 `forbidden:origin`) before the handler runs, and no answer
+ * is kept by a cache (`Cache-Control: no-store`).
  */
 export function handle<A extends unknown[]>(fn: (...args: A) => Promise<Response>) {
   return async (...args: A): Promise<Response> => {
     try {
       const refusal = args[0] instanceof Request ? crossSiteError(args[0]) : null;
       if (refusal) throw refusal;
-      return await fn(...args);
+      return withNoStore(await fn(...args));
     } catch (error) {
       return errorResponse(error);
     }

@@ -64,6 +64,18 @@ describe("security headers (OWASP HTTP Headers Cheat Sheet; W3C CSP3)", () => {
     expect(api.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");
   });
 
+  it("API answers, refusals included, reach the browser with Cache-Control: no-store (RFC 9111 §5.2.2.5)", async () => {
+    const health = await fetch(`${baseUrl}/api/health`);
+    expect(health.status).toBe(200);
+    expect(health.headers.get("cache-control")).toBe("no-store");
+    const signedOut = await fetch(`${baseUrl}/api/proposals`);
+    expect(signedOut.status).toBe(401);
+    expect(signedOut.headers.get("cache-control")).toBe("no-store");
+    const bench = await fetch(`${baseUrl}/api/bench/exports/deflection?format=svg`);
+    expect(bench.status).toBe(200);
+    expect(bench.headers.get("cache-control")).toBe("private, no-store");
+  });
+
   it("the product works under its policy: no violation on the pages a team uses, the 3D view and an upload page included", async () => {
     const { page, context, consoleErrors } = await newPage(browser);
     const violations = await watchViolations(page);
@@ -163,6 +175,35 @@ describe("cross-origin requests that change data (OWASP CSRF Prevention Cheat Sh
     expect(created.status).toBe(201);
     const removed = await page.evaluate(async (id) => (await fetch(`/api/proposals/${id}`, { method: "DELETE" })).status, created.id!);
     expect(removed).toBe(204);
+    await context.close();
+  });
+
+  it("refuses another port or scheme of the same host, and a foreign Origin however X-Forwarded-Host is set (the check compared hosts and believed that header)", async () => {
+    const { page, context } = await newPage(browser);
+    await signInAsDemo(page, "pi");
+    const app = new URL(baseUrl);
+    const sameHost = (change: (url: URL) => void) => {
+      const url = new URL(app.href);
+      change(url);
+      return url.origin;
+    };
+    const origins = [
+      attackerUrl.replace(/\/$/, ""),
+      sameHost((url) => (url.protocol = app.protocol === "http:" ? "https:" : "http:")),
+    ];
+    for (const origin of origins) {
+      const refused = await context.request.post(`${baseUrl}/api/proposals`, { data: proposalBody(`From ${origin}`), headers: { origin } });
+      expect(refused.status(), origin).toBe(403);
+      expect((await refused.json()).error.code).toBe("forbidden:origin");
+    }
+    const spoofed = await context.request.post(`${baseUrl}/api/proposals`, {
+      data: proposalBody("Spoofed forwarded host"),
+      headers: { origin: "http://evil.example", "x-forwarded-host": "evil.example", "x-forwarded-proto": "http" },
+    });
+    expect(spoofed.status()).toBe(403);
+    const list = await context.request.get(`${baseUrl}/api/proposals`);
+    const titles = ((await list.json()) as { proposals: { title: string }[] }).proposals.map((p) => p.title);
+    expect(titles.filter((title) => title.startsWith("From ") || title === "Spoofed forwarded host")).toEqual([]);
     await context.close();
   });
 });

@@ -6,7 +6,7 @@ export const dynamic = "force-dynamic";
 export async function GET() {
   const database = await checkDatabase();
   if (database.ok) {
-    return Response.json({ status: "ok", database: "ok", latencyMs: database.latencyMs });
+    return Response.json({ status: "ok", database: "ok", latencyMs: database.latencyMs }, { headers: { "Cache-Control": "no-store" } });
   }
   return Response.json(
     { status: "degraded", database: "down", reason: database.reason },
