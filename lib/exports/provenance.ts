@@ -76,8 +76,8 @@ export function buildProvenance({ subject, reproduceUrl, inputs, cosmology = DEF
 }
 
 /**
- * The record as short "key: value" lines for comment-style carriers (CSV and LaTeX comments, PNG
- * text, PDF subject). Plain ASCII except where an input itself holds other characters.
+ * The record as short "key: value" lines for comment-style carriers (LaTeX comments, PNG text, PDF
+ * subject). Plain ASCII except where an input itself holds other characters.
  */
 export function provenanceLines(p: Provenance): string[] {
   return [
@@ -88,4 +88,21 @@ export function provenanceLines(p: Provenance): string[] {
     `Cosmology: ${p.cosmology.model}, H0 = ${p.cosmology.H0KmPerSPerMpc} km/s/Mpc, Om0 = ${p.cosmology.Om0} (${p.cosmology.source})`,
     ...p.constants.map((c) => `Constant ${c.name} = ${c.value} ${c.unit} (${c.source})`),
   ];
+}
+
+/** The response header that carries a table download's provenance record (see `provenanceHeaderValue`). */
+export const PROVENANCE_HEADER = "Arcwright-Provenance";
+
+/**
+ * The record as one HTTP field value: its JSON with every character outside printable ASCII written
+ * as a `\uXXXX` escape, so the value is plain visible ASCII (RFC 9110 §5.5: no line break can end
+ * it early) and `JSON.parse` gives back the record exactly.
+ */
+export function provenanceHeaderValue(p: Provenance): string {
+  return JSON.stringify(p).replace(/[^\x20-\x7E]/g, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, "0")}`);
+}
+
+/** The time of export in ISO 8601 basic form (`20310203T040506Z`), for a file name. */
+export function exportStampOf(p: Provenance): string {
+  return p.exportedAt.replace(/[-:]/g, "").replace(/\.\d+Z$/, "Z");
 }

@@ -21,6 +21,13 @@ function summary(actor: Actor | null, proposalId: string, query = "") {
   return technicalSummaryRoutes(async () => actor).GET(new Request(`${base(proposalId)}/summary?${query}`), { params: Promise.resolve({ proposalId }) });
 }
 
+function benchFigure(actor: Actor | null, figure: string, query: string) {
+  return benchFigureRoutes(async () => actor).GET(new Request(`http://arcwright.test/api/bench/exports/${figure}?${query}`), { params: Promise.resolve({ figure }) });
+}
+
+const fieldsOf = async (response: Response) => ((await response.json()) as { error: { fields: Record<string, string[]> } }).error.fields;
+const pngWidthPx = async (response: Response) => Buffer.from(extractChunks(new Uint8Array(await response.arrayBuffer()))[0].data).readUInt32BE(0);
+
 describe("figure and summary exports: the same role rules as the views", () => {
   it("night chart: signed out 401, non-member 404, viewer gets the SVG with the target and night in its provenance", async () => {
     const world = await createWorld();
@@ -59,10 +66,10 @@ describe("figure and summary exports: the same role rules as the views", () => {
   });
 
   it("bench figure: open without signing in, like the bench; a bad sketch field is named", async () => {
-    const ok = await benchFigureRoutes().GET(new Request("http://arcwright.test/api/bench/exports/light-curve?format=svg&mass=0.3%20Msun"), { params: Promise.resolve({ figure: "light-curve" }) });
+    const ok = await benchFigure(null, "light-curve", "format=svg&mass=0.3%20Msun");
     expect(ok.status).toBe(200);
     expect(await ok.text()).toContain("magnification");
-    const bad = await benchFigureRoutes().GET(new Request("http://arcwright.test/api/bench/exports/lens-plane?format=svg&dl=far"), { params: Promise.resolve({ figure: "lens-plane" }) });
+    const bad = await benchFigure(null, "lens-plane", "format=svg&dl=far");
     expect(bad.status).toBe(400);
     expect(Object.keys((await bad.json()).error.fields)).toEqual(["dl"]);
   });
@@ -105,5 +112,42 @@ describe("figure and summary exports: the same role rules as the views", () => {
     expect(((await missingTargets.json()) as { error: { fields: Record<string, string[]> } }).error.fields.nightTargets).toEqual(["Choose at least one target for the night charts."]);
     const badId = await summary(world.actors.viewer, world.proposalId, "figures=night&nightTargets=nope");
     expect(badId.status).toBe(400);
+  });
+
+  it("bench PNG wider than 2000 px signed out is refused naming the width (was rendered at 8000 px for anyone)", async () => {
+    const world = await createWorld();
+    const wide = await benchFigure(null, "deflection", "format=png&width=8000");
+    expect(wide.status).toBe(400);
+    expect(wide.headers.get("cache-control")).toBe("no-store");
+    expect(await fieldsOf(wide)).toEqual({ width: ["Without signing in, the width is at most 2000 px; sign in for up to 8000 px."] });
+    const signedOut = await benchFigure(null, "deflection", "format=png&width=2000&dpi=72");
+    expect(signedOut.status).toBe(200);
+    expect(await pngWidthPx(signedOut)).toBe(2000);
+    const signedIn = await benchFigure(world.actors.viewer, "deflection", "format=png&width=2400&dpi=72");
+    expect(signedIn.status).toBe(200);
+    expect(await pngWidthPx(signedIn)).toBe(2400);
+    const beyondAll = await benchFigure(world.actors.viewer, "deflection", "format=png&width=8001");
+    expect(beyondAll.status).toBe(400);
+    expect(await fieldsOf(beyondAll)).toEqual({ width: ["The width is at most 8000 px."] });
+  });
+
+  it("technical summary refuses a repeated figure or night target naming the field (figures=season x8 took 4.6 s)", async () => {
+    const world = await createWorld();
+    const repeated = await summary(world.actors.viewer, world.proposalId, `figures=${Array(8).fill("season").join(",")}`);
+    expect(repeated.status).toBe(400);
+    expect(Object.keys(await fieldsOf(repeated))).toEqual(["figures"]);
+    const twice = await summary(world.actors.viewer, world.proposalId, `figures=night,season,night&nightTargets=${world.targetId}`);
+    expect(Object.keys(await fieldsOf(twice))).toEqual(["figures"]);
+    const sameTarget = await summary(world.actors.viewer, world.proposalId, `figures=night&nightTargets=${world.targetId},${world.targetId}`);
+    expect(sameTarget.status).toBe(400);
+    expect(await fieldsOf(sameTarget)).toEqual({ nightTargets: ["Name each target once."] });
+  });
+
+  it("figure and summary downloads are private and never stored by a cache", async () => {
+    const world = await createWorld();
+    const figure = await skyFigure(world.actors.viewer, world.proposalId, "night", `targetId=${world.targetId}&date=2031-06-15&format=svg`);
+    expect(figure.headers.get("cache-control")).toBe("private, no-store");
+    expect((await benchFigure(null, "deflection", "format=svg")).headers.get("cache-control")).toBe("private, no-store");
+    expect((await summary(world.actors.viewer, world.proposalId)).headers.get("cache-control")).toBe("private, no-store");
   });
 });

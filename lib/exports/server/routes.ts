@@ -2,20 +2,27 @@ import "server-only";
 import type { GetActor } from "@/lib/server/actor";
 import { endpoint, queryOf } from "@/lib/server/api/endpoint";
 import { attachmentHeaders, fileSlug } from "@/lib/exports/download";
+import { exportStampOf, PROVENANCE_HEADER, provenanceHeaderValue } from "@/lib/exports/provenance";
 import { tableWriters } from "@/lib/exports/tables/formats";
 import { technicalSummary } from "./summary";
 import { loadTargetTable } from "./target-table";
 
 type ProposalParams = { proposalId: string };
 
-/** /api/proposals/[proposalId]/exports/targets?format=csv|tex|votable|json&columns=…&digits=… */
+/**
+ * /api/proposals/[proposalId]/exports/targets?format=csv|tex|votable|json&columns=…&digits=…
+ * Every format's download carries the provenance record as JSON in the `Arcwright-Provenance`
+ * header; a CSV file, which holds nothing but its table, also names its time of export.
+ */
 export function targetTableExportRoutes(getActor: GetActor) {
   return {
     GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
       const { table, format } = await loadTargetTable(params, queryOf(request), actor);
       const writer = tableWriters[format];
-      const fileName = `${fileSlug(table.title)}-targets.${writer.extension}`;
-      return new Response(writer.write(table), { headers: attachmentHeaders(fileName, writer.contentType) });
+      const stamp = writer.carriesProvenance ? "" : `-${exportStampOf(table.provenance)}`;
+      const fileName = `${fileSlug(table.title)}-targets${stamp}.${writer.extension}`;
+      const headers = { ...attachmentHeaders(fileName, writer.contentType), [PROVENANCE_HEADER]: provenanceHeaderValue(table.provenance) };
+      return new Response(writer.write(table), { headers });
     }),
   };
 }

@@ -22,9 +22,14 @@ const summaryQuerySchema = z.object({
     .transform((text, ctx) => {
       // The season chart by default; night charts only when asked for, since they need chosen targets.
       const names = text === undefined || text.trim() === "" ? ["season"] : text.split(",").map((n) => n.trim());
-      const unknown = names.filter((n) => !(summaryFigures as readonly string[]).includes(n));
+      const unknown = [...new Set(names.filter((n) => !(summaryFigures as readonly string[]).includes(n)))];
       if (unknown.length > 0) {
         ctx.addIssue({ code: "custom", message: `Unknown figure: ${unknown.join(", ")}. Known: ${summaryFigures.join(", ")}.` });
+        return z.NEVER;
+      }
+      // Each name is a whole chart (a season chart is the slowest part): a repeat would only redo the work.
+      if (new Set(names).size !== names.length) {
+        ctx.addIssue({ code: "custom", message: `Name each figure once (at most ${summaryFigures.length}: ${summaryFigures.join(", ")}).` });
         return z.NEVER;
       }
       return names as (typeof summaryFigures)[number][];
@@ -34,7 +39,12 @@ const summaryQuerySchema = z.object({
     .string()
     .optional()
     .transform((text) => (text === undefined || text.trim() === "" ? [] : text.split(",").map((id) => id.trim())))
-    .pipe(z.array(z.uuid({ error: "Name each target by its id." })).max(MAX_NIGHT_CHARTS, `At most ${MAX_NIGHT_CHARTS} night charts.`)),
+    .pipe(
+      z
+        .array(z.uuid({ error: "Name each target by its id." }))
+        .max(MAX_NIGHT_CHARTS, `At most ${MAX_NIGHT_CHARTS} night charts.`)
+        .refine((ids) => new Set(ids).size === ids.length, "Name each target once."),
+    ),
   /** The night (evening date) of those charts; checked here, so a bad one is refused under its own name. */
   night: nightDateSchema.optional(),
   columns: z.string().optional(),

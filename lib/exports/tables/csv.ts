@@ -1,16 +1,16 @@
 import { toCsvField } from "@/lib/imports/formula";
-import { provenanceLines } from "@/lib/exports/provenance";
 import { cellOf, cellText, headerOf } from "./columns";
-import { singleLine, type TargetTable } from "./table";
+import type { TargetTable } from "./table";
 
 /**
- * The table as CSV (RFC 4180: CRLF line ends, quoted fields where needed) after "#" comment lines
- * holding the provenance (the comment convention of astropy's ECSV and papaparse's `comments`).
- * Text cells a spreadsheet would run as a formula are neutralized by `toCsvField`; empty fields are
- * values the model does not give.
+ * The table as plain CSV (RFC 4180: the header row first, CRLF line ends, quoted fields where
+ * needed), as spreadsheets and astropy's and STILTS's CSV readers take it. The body holds the table
+ * alone: the provenance travels in the download's `Arcwright-Provenance` header and file name
+ * (`lib/exports/server/routes.ts`), since comment lines before the header are no part of RFC 4180
+ * and a title written there would reach a spreadsheet as a cell. Every text field, headers included,
+ * goes through the formula guard (`toCsvField`); empty fields are values the model does not give.
  */
 export function targetTableCsv(table: TargetTable): string {
-  const comments = provenanceLines(table.provenance).map((line) => `# ${singleLine(line)}`);
   const header = table.columns.map(({ column }) => toCsvField(headerOf(column))).join(",");
   const rows = table.rows.map((row) =>
     table.columns
@@ -21,5 +21,5 @@ export function targetTableCsv(table: TargetTable): string {
       })
       .join(","),
   );
-  return [...comments, header, ...rows].join("\r\n") + "\r\n";
+  return [header, ...rows].join("\r\n") + "\r\n";
 }

@@ -11,12 +11,14 @@ interface TableWriter {
   write: (table: TargetTable) => string;
   contentType: string;
   extension: string;
+  /** Whether the file holds its provenance; a bare table (CSV) has it only in the download's header and name. */
+  carriesProvenance: boolean;
 }
 
 /** Each table format's writer, media type and file extension. */
 export const tableWriters: Record<TableFormat, TableWriter> = {
-  csv: { write: targetTableCsv, contentType: "text/csv; charset=utf-8; header=present", extension: "csv" },
-  tex: { write: targetTableLatex, contentType: "application/x-tex; charset=utf-8", extension: "tex" },
-  votable: { write: targetTableVotable, contentType: "application/x-votable+xml; charset=utf-8", extension: "vot" },
-  json: { write: targetTableJson, contentType: "application/json; charset=utf-8", extension: "json" },
+  csv: { write: targetTableCsv, contentType: "text/csv; charset=utf-8; header=present", extension: "csv", carriesProvenance: false },
+  tex: { write: targetTableLatex, contentType: "application/x-tex; charset=utf-8", extension: "tex", carriesProvenance: true },
+  votable: { write: targetTableVotable, contentType: "application/x-votable+xml; charset=utf-8", extension: "vot", carriesProvenance: true },
+  json: { write: targetTableJson, contentType: "application/json; charset=utf-8", extension: "json", carriesProvenance: true },
 };

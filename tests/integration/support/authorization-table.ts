@@ -144,11 +144,12 @@ export const checkedByOwnTest: (RouteMethod & { test: string })[] = [
 
 /**
  * Handlers open to everyone by design; none of them reads the session or any proposal's data.
- * `why` is the design reason.
+ * `why` is the design reason; `sessionOnlyFor` names the one request that reads the session to
+ * raise a limit, every other request being answered alike for every caller.
  */
-export const openRoutes: (RouteMethod & { why: string })[] = [
+export const openRoutes: (RouteMethod & { why: string; sessionOnlyFor?: string })[] = [
   { method: "GET", route: "/api/health", why: "liveness and database reachability, for monitoring" },
-  { method: "GET", route: "/api/bench/exports/[figure]", why: "the lens bench is open without signing in, so are its figures" },
+  { method: "GET", route: "/api/bench/exports/[figure]", why: "the lens bench is open without signing in, so are its figures", sessionOnlyFor: "a PNG wider than 2000 px (exports-figures.test.ts)" },
   { method: "POST", route: "/api/account/sign-up", why: "creating an account comes before having a session" },
   { method: "POST", route: "/api/account/sign-in-link", why: "asking for a sign-in link comes before having a session" },
   { method: "POST", route: "/api/account/reset-request", why: "asking for a reset link comes before having a session" },

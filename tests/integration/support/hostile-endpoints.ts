@@ -149,7 +149,7 @@ const beyondMatrix: HostileEndpoint[] = [
     name: "GET /bench/exports/:figure",
     method: "GET",
     route: "/api/bench/exports/[figure]",
-    handler: () => benchFigureRoutes().GET as Handler,
+    handler: (g) => benchFigureRoutes(g).GET as Handler,
     params: () => ({ figure: "deflection" }),
     paramChoices: { figure: benchFigureKinds },
     query: () => ({ ...demoSketch, rays: "200", format: "svg", width: "800", dpi: "150" }),

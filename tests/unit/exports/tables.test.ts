@@ -5,7 +5,7 @@ import { join } from "node:path";
 import { XMLParser, XMLValidator } from "fast-xml-parser";
 import Papa from "papaparse";
 import { describe, expect, it } from "vitest";
-import { PRODUCT_VERSION } from "@/lib/exports/provenance";
+import { buildProvenance, exportStampOf, PRODUCT_VERSION, provenanceHeaderValue, type Provenance } from "@/lib/exports/provenance";
 import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { targetTableCsv } from "@/lib/exports/tables/csv";
 import { targetTableJson, type TargetTableJson } from "@/lib/exports/tables/json";
@@ -46,7 +46,7 @@ describe("export column query", () => {
 
 describe("CSV export (RFC 4180, read back with papaparse)", () => {
   const csv = targetTableCsv(table);
-  const parsed = Papa.parse<string[]>(csv, { comments: "#", skipEmptyLines: true });
+  const parsed = Papa.parse<string[]>(csv, { skipEmptyLines: true });
 
   it("round-trips: header with units, numbers at their significant digits, empty where no value", () => {
     expect(parsed.errors).toEqual([]);
@@ -62,14 +62,31 @@ describe("CSV export (RFC 4180, read back with papaparse)", () => {
     expect(parsed.data[2][0]).toBe(`'${hostileName}`);
   });
 
-  it("carries the provenance in # comment lines: version, export time, link back, constants with sources", () => {
-    const comments = csv.split("\r\n").filter((line) => line.startsWith("# "));
-    expect(comments.join("\n")).toContain(`Arcwright ${packageJson.version}`);
-    expect(comments.join("\n")).toContain("2031-02-03T04:05:06.000Z");
-    expect(comments.join("\n")).toContain("Reproduce: http://arcwright.test/proposals/");
-    expect(comments.join("\n")).toContain("Constant GM_sun = 132712440000000000000 m3 s-2 (IAU 2015 Resolution B3 (nominal))");
-    expect(comments.join("\n")).toContain("H0 = 70 km/s/Mpc, Om0 = 0.3");
+  it("is the table alone, header row first: a hostile title in the provenance never reaches a cell (it did through # lines)", () => {
+    const hostileTitle = 'Arcs,=HYPERLINK("http://evil.example/?x"),=1+1';
+    const provenance = buildProvenance({ subject: `Target table of the proposal "${hostileTitle}" (=1+1)`, reproduceUrl: "http://arcwright.test/proposals/x", inputs: { site: "@SUM(1,2)" } });
+    const hostileCsv = targetTableCsv({ ...table, title: hostileTitle, provenance });
+    const lines = hostileCsv.split("\r\n");
+    expect(lines[0]).toBe(parsed.data[0].join(","));
+    expect(lines.filter((line) => line.startsWith("#"))).toEqual([]);
+    expect(hostileCsv).not.toContain("evil.example");
+    expect(hostileCsv).not.toContain("@SUM");
+    expect(hostileCsv).toBe(csv);
+  });
+});
+
+describe("provenance of a download (the Arcwright-Provenance header, the CSV file name)", () => {
+  it("is printable ASCII that JSON.parse turns back into the record, line breaks and any script included", () => {
+    const record: Provenance = { ...exportProvenance, subject: 'Target table of "Arcs\r\nSet-Cookie: x=1" — Ω 🔭 \u007f', inputs: { site: "Cerro\u2028Velado\u0000" } };
+    const value = provenanceHeaderValue(record);
+    expect(value).toMatch(/^[\x20-\x7E]+$/);
+    expect(() => new Headers({ "Arcwright-Provenance": value })).not.toThrow();
+    expect(JSON.parse(value)).toEqual(record);
     expect(PRODUCT_VERSION).toBe(packageJson.version);
+  });
+
+  it("stamps the time of export in ISO 8601 basic form", () => {
+    expect(exportStampOf(exportProvenance)).toBe("20310203T040506Z");
   });
 });
 

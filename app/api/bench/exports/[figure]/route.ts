@@ -1,3 +1,4 @@
 import { benchFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { sessionActor } from "@/lib/server/session";
 
-export const { GET } = benchFigureRoutes();
+export const { GET } = benchFigureRoutes(sessionActor);
