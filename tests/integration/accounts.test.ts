@@ -139,7 +139,7 @@ describe("accounts", () => {
       { route: "signUp", known: { email: freshEmail("timed"), name: "Someone", password: "another-strong-pass" }, unknown: () => ({ email: freshEmail("nobody"), name: "Someone", password: "another-strong-pass" }) },
     ] as const;
     for (const c of cases) {
-      // One account per kind: the account's own link limit (5 per window) is not reached.
+      // One account per kind: its address's share of mail (mailLimits, 5 an hour) is not reached.
       await signUpConfirmed(c.known.email, "Timed Member", "long-enough-pass");
       const forKnown: number[] = [];
       const forUnknown: number[] = [];

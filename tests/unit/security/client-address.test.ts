@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { EnvError, parseServerEnv } from "@/lib/env";
 import { clientAddressOf, socketAddressHeader } from "@/lib/security/client-address";
 
 // The address sign-in limits are keyed on (MDN, "X-Forwarded-For", security and privacy concerns:
@@ -30,5 +31,21 @@ describe("the client address of a request", () => {
 
   it('is "unknown" without the launcher\'s header: X-Forwarded-For alone is never believed', () => {
     expect(clientAddressOf(new Headers({ "x-forwarded-for": "192.0.2.1" }), [])).toBe("unknown");
+  });
+});
+
+describe("ARCWRIGHT_TRUSTED_PROXY", () => {
+  const valid = { DATABASE_URL: "postgres://arc:pw@127.0.0.1:54329/arcwright" };
+
+  it("is empty (no proxy trusted) by default, and a comma-separated list of IP addresses when set", () => {
+    expect(parseServerEnv(valid).ARCWRIGHT_TRUSTED_PROXY).toEqual([]);
+    expect(parseServerEnv({ ...valid, ARCWRIGHT_TRUSTED_PROXY: "10.0.0.5, ::1" }).ARCWRIGHT_TRUSTED_PROXY).toEqual(["10.0.0.5", "::1"]);
+  });
+
+  it("refuses a host name or a network, naming the variable", () => {
+    for (const value of ["proxy.example", "10.0.0.0/8"]) {
+      expect(() => parseServerEnv({ ...valid, ARCWRIGHT_TRUSTED_PROXY: value }), value).toThrow(EnvError);
+      expect(() => parseServerEnv({ ...valid, ARCWRIGHT_TRUSTED_PROXY: value }), value).toThrow(/ARCWRIGHT_TRUSTED_PROXY/);
+    }
   });
 });
