@@ -7,6 +7,7 @@
 import {
   angularDiameterDistance,
   angularDiameterDistanceBetween,
+  einsteinRadius,
   PARSEC_M,
   parseAngle,
   parseDistance,
@@ -14,7 +15,10 @@ import {
   parseProperMotion,
   parseTime,
   parseVelocity,
+  sisEinsteinRadius,
 } from "@/lib/physics";
+import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import type { Sketch, SketchField } from "./sketch-state";
 
 /** Most rays the bench traces at once (issue 4: "count up to 5,000"). */
@@ -108,27 +112,51 @@ export function parsePlainNumber(text: string): number {
 /** A check that passes values above zero and otherwise returns `message`. */
 const positive = (message: string) => (value: number) => (value > 0 ? undefined : message);
 
+/**
+ * A check that passes values inside `range` (in the unit the parser returns, scaled by `toRangeUnit`)
+ * and otherwise returns `message`: the lensing layer's accepted ranges, so that nothing derived
+ * overflows or leaves a formula's domain.
+ */
+const within = (range: AcceptedRange, message: string, toRangeUnit = 1) => (value: number) => (isInRange(value * toRangeUnit, range) ? undefined : message);
+
+/** Bench-only bounds (our rule): H0 from 10 to 200 km/s/Mpc (measured values are 67–74); times within ±100 years. */
+const HUBBLE_RANGE: AcceptedRange = { min: 10, max: 200 };
+const MAX_TIME_S = 100 * JULIAN_YEAR_S;
+/** Resolution from 1e-12 rad (0.2 nanoarcseconds) to 1 rad; wavelengths and baselines from 1 nm to 1e10 m (our rule). */
+const RESOLUTION_RANGE_RAD: AcceptedRange = { min: 1e-12, max: 1 };
+const INTERFEROMETER_LENGTH_RANGE_M: AcceptedRange = { min: 1e-9, max: 1e10 };
+
 function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
   if (sketch.lens === "sis") {
-    return { model: "sis", sigmaKmPerS: reader.read("sigma", parseVelocity, positive("The velocity dispersion must be greater than zero")) };
+    return {
+      model: "sis",
+      sigmaKmPerS: reader.read("sigma", parseVelocity, within(acceptedRanges.velocityDispersionKmPerS, "The velocity dispersion must lie between 1 and 3,000 km/s")),
+    };
   }
-  return { model: "point", massSolar: reader.read("mass", (text) => parseMass(text).massSolar) };
+  return {
+    model: "point",
+    massSolar: reader.read("mass", (text) => parseMass(text).massSolar, within(acceptedRanges.lensMassSolar, "The mass must lie between 1e-15 and 1e16 solar masses")),
+  };
 }
 
 function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
   if (sketch.geometry === "distance") {
-    const dLensPc = reader.read("dl", parseDistance);
-    const dSourcePc = reader.read("ds", parseDistance, (value) =>
-      value > dLensPc || Number.isNaN(dLensPc) ? undefined : "The source must lie behind the lens (D_S > D_L)",
-    );
+    const distanceMessage = "Distances lie between 1e-6 pc (0.2 au) and 20 Gpc";
+    const dLensPc = reader.read("dl", parseDistance, within(acceptedRanges.distancePc, distanceMessage));
+    const dSourcePc = reader.read("ds", parseDistance, (value) => {
+      if (!isInRange(value, acceptedRanges.distancePc)) return distanceMessage;
+      return value > dLensPc || Number.isNaN(dLensPc) ? undefined : "The source must lie behind the lens (D_S > D_L)";
+    });
     return { dLensPc, dSourcePc, dLensSourcePc: dSourcePc - dLensPc, zLens: 0 };
   }
-  const h0 = reader.read("h0", parsePlainNumber, (value) => (value > 0 && value < 1000 ? undefined : "H0 must lie between 0 and 1000 km/s/Mpc"));
+  const h0 = reader.read("h0", parsePlainNumber, within(HUBBLE_RANGE, "H0 must lie between 10 and 200 km/s/Mpc"));
   const om0 = reader.read("om0", parsePlainNumber, (value) => (value >= 0 && value <= 1 ? undefined : "Ωm must lie between 0 and 1"));
-  const zLens = reader.read("zl", parsePlainNumber, positive("The lens redshift must be greater than zero"));
-  const zSource = reader.read("zs", parsePlainNumber, (value) =>
-    value > zLens || Number.isNaN(zLens) ? undefined : "The source must lie behind the lens (z_S > z_L)",
-  );
+  const redshiftMessage = "Redshifts lie between 0.001 and 20 (nearer, give distances instead)";
+  const zLens = reader.read("zl", parsePlainNumber, within(acceptedRanges.redshift, redshiftMessage));
+  const zSource = reader.read("zs", parsePlainNumber, (value) => {
+    if (!isInRange(value, acceptedRanges.redshift)) return redshiftMessage;
+    return value > zLens || Number.isNaN(zLens) ? undefined : "The source must lie behind the lens (z_S > z_L)";
+  });
   if ([h0, om0, zLens, zSource].some(Number.isNaN)) return { dLensPc: NaN, dSourcePc: NaN, dLensSourcePc: NaN, zLens };
   const cosmology = { H0: h0, Om0: om0 };
   return {
@@ -139,32 +167,42 @@ function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
   };
 }
 
+const sourceOffsetMessage = "β must lie between 1e-6 and 1,000 θ_E (closer, a real source's size caps the magnification)";
+
 function readSourceOffset(reader: FieldReader, sketch: Sketch): SourceOffsetInputs {
   const aboveZero = positive("β must be greater than zero (at β = 0 the image is a ring of unbounded magnification)");
+  // An angle is checked against θ_E once the lens is known (checkLensScales).
   if (sketch.betaUnit === "angle") return { unit: "angle", betaRad: reader.read("beta", parseAngle, aboveZero) };
-  return { unit: "thetaE", betaThetaE: reader.read("beta", parsePlainNumber, aboveZero) };
+  return { unit: "thetaE", betaThetaE: reader.read("beta", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, sourceOffsetMessage)) };
 }
 
 function readInstrument(reader: FieldReader, sketch: Sketch): InstrumentInputs {
-  const cadenceS = reader.read("cadence", parseTime, positive("The cadence must be greater than zero"));
-  const campaignS = reader.read("campaign", parseTime, (value) =>
-    value >= cadenceS || Number.isNaN(cadenceS) ? undefined : "The campaign must last at least one cadence interval",
-  );
+  const cadenceS = reader.read("cadence", parseTime, (value) => (value >= 1 && value <= MAX_TIME_S ? undefined : "The cadence must lie between 1 second and 100 years"));
+  const campaignS = reader.read("campaign", parseTime, (value) => {
+    if (!(value <= MAX_TIME_S)) return "The campaign lasts at most 100 years";
+    return value >= cadenceS || Number.isNaN(cadenceS) ? undefined : "The campaign must last at least one cadence interval";
+  });
   if (sketch.resolution === "fwhm") {
-    return { resolutionRad: reader.read("fwhm", parseAngle, positive("The FWHM must be greater than zero")), resolutionName: "FWHM", cadenceS, campaignS };
+    const fwhmRad = reader.read("fwhm", parseAngle, within(RESOLUTION_RANGE_RAD, "The FWHM must lie between 0.2 nanoarcseconds and 1 radian"));
+    return { resolutionRad: fwhmRad, resolutionName: "FWHM", cadenceS, campaignS };
   }
   const toMetres = (text: string) => parseDistance(text) * PARSEC_M;
-  const wavelengthM = reader.read("lambda", toMetres);
-  const baselineM = reader.read("baseline", toMetres);
+  const lengthCheck = within(INTERFEROMETER_LENGTH_RANGE_M, "Lengths here lie between 1 nm and 10 million km");
+  const wavelengthM = reader.read("lambda", toMetres, lengthCheck);
+  const baselineM = reader.read("baseline", toMetres, lengthCheck);
   // λ/B is the interferometric resolution element (fringe spacing) for the longest baseline.
   return { resolutionRad: wavelengthM / baselineM, resolutionName: "λ/B", cadenceS, campaignS };
 }
 
 function readLightCurve(reader: FieldReader): LightCurveInputs {
   return {
-    muRelRadPerS: reader.read("mu", parseProperMotion, positive("The relative proper motion must be greater than zero")),
-    peakTimeS: reader.read("t0", parseTime),
-    u0ThetaE: reader.read("u0", parsePlainNumber, positive("u0 must be greater than zero (at u0 = 0 the peak magnification is unbounded)")),
+    muRelRadPerS: reader.read(
+      "mu",
+      parseProperMotion,
+      within(acceptedRanges.properMotionMasPerYr, "The relative proper motion must lie between 1e-6 and 1e10 mas/yr", JULIAN_YEAR_S / MILLIARCSECOND_RAD),
+    ),
+    peakTimeS: reader.read("t0", parseTime, (value) => (Math.abs(value) <= MAX_TIME_S ? undefined : "The peak time lies within 100 years of the campaign start")),
+    u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, "u0 must lie between 1e-6 and 1,000 (closer, a real source's size caps the peak magnification)")),
   };
 }
 
@@ -180,6 +218,34 @@ function readBundle(reader: FieldReader, sketch: Sketch): BundleInputs {
   return { rayCount, bMinM, bMaxM, layout: sketch.layout };
 }
 
+/** Largest source offset β the bench accepts, radians (our rule: 0.1 rad = 5.7°, inside the exact lens equation's 0.5 rad domain). */
+const MAX_SOURCE_OFFSET_RAD = 0.1;
+
+/**
+ * The checks across fields, once the lens and the geometry have parsed: a point lens far enough
+ * from the observer for the thin-lens set-up (`MAX_LENS_COMPACTNESS`), and β inside its range both
+ * as a multiple of θ_E and as an angle. Field errors go beside the field to change.
+ */
+function checkLensScales(errors: FieldErrors, sketch: Sketch, { lens, geometry, sourceOffset }: Pick<SketchInputs, "lens" | "geometry" | "sourceOffset">): void {
+  const distanceField = sketch.geometry === "distance" ? "dl" : "zl";
+  if (lens.model === "point" && lensCompactness(lens.massSolar, geometry.dLensPc) > MAX_LENS_COMPACTNESS) {
+    const message = "The lens is too close for its mass: its gravitational radius exceeds 1/10,000 of its distance, where the thin-lens formulas fail";
+    errors.mass = message;
+    errors[distanceField] = message;
+    return;
+  }
+  const thetaERad =
+    lens.model === "point"
+      ? einsteinRadius(lens.massSolar, geometry.dLensPc, geometry.dSourcePc, geometry.dLensSourcePc)
+      : sisEinsteinRadius(lens.sigmaKmPerS, geometry.dLensSourcePc, geometry.dSourcePc);
+  const betaRad = sourceOffset.unit === "angle" ? sourceOffset.betaRad : sourceOffset.betaThetaE * thetaERad;
+  if (sourceOffset.unit === "angle" && !isInRange(betaRad / thetaERad, acceptedRanges.sourceOffsetThetaE)) {
+    errors.beta = "β must lie between 1e-6 and 1,000 Einstein radii of this lens";
+  } else if (!(betaRad <= MAX_SOURCE_OFFSET_RAD)) {
+    errors.beta = "β must be at most 0.1 radian (5.7°) from the lens";
+  }
+}
+
 /** Parses every field the sketch uses; on any error returns all the field errors at once. */
 export function parseSketch(sketch: Sketch): ParsedSketch {
   const reader = new FieldReader(sketch);
@@ -191,6 +257,8 @@ export function parseSketch(sketch: Sketch): ParsedSketch {
     instrument: readInstrument(reader, sketch),
     bundle: readBundle(reader, sketch),
   };
+  const lensFields = ["mass", "sigma", "dl", "ds", "h0", "om0", "zl", "zs", "beta"] as const;
+  if (lensFields.every((field) => reader.errors[field] === undefined)) checkLensScales(reader.errors, sketch, inputs);
   if (Object.keys(reader.errors).length > 0) return { ok: false, fieldErrors: reader.errors };
   return { ok: true, inputs };
 }

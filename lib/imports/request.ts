@@ -1,7 +1,7 @@
 import { z } from "zod";
 import { importFields } from "@/lib/imports/columns";
 import { MAX_MATCH_TOLERANCE_ARCSEC } from "@/lib/imports/matching";
-import { lensModels } from "@/lib/workspace/target-schema";
+import { lensModels, targetFieldsSchema } from "@/lib/workspace/target-schema";
 
 /**
  * Position tolerance used to match a row to an existing target when the names differ: 1″, the
@@ -22,8 +22,8 @@ export const columnMappingSchema = z.partialRecord(z.enum(importFields), assignm
 
 export const importFillSchema = z.object({
   lensModel: z.enum(lensModels).optional(),
-  priority: z.number().int().min(1, "Priority runs from 1 (highest) to 5.").max(5, "Priority runs from 1 (highest) to 5.").optional(),
-  sourceOffsetThetaE: z.number().positive("The source offset is a positive multiple of the Einstein radius.").max(1000).optional(),
+  priority: targetFieldsSchema.shape.priority.optional(),
+  sourceOffsetThetaE: targetFieldsSchema.shape.sourceOffsetThetaE.optional(),
 });
 
 /** Body of a preview: the uploaded file, and optionally the mapping chosen so far (else proposed). */

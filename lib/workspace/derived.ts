@@ -16,7 +16,7 @@ import {
 } from "@/lib/physics";
 import { seasonWindows, type SeasonWindows } from "@/lib/astro/season";
 import { cycleNightCount, skySiteOf, type InstrumentDefaults, type ProposalInput } from "@/lib/workspace/proposal-schema";
-import type { LensHypothesis } from "@/lib/workspace/target-schema";
+import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
 import {
   campaignCoverage,
   feasibilityReport,
@@ -110,10 +110,13 @@ function verdictsFor(
  * defaults. All lensing quantities come from `lib/physics` (thin-lens point mass per Paczyński 1986,
  * singular isothermal sphere per Schneider, Ehlers & Falco 1992); this function only chooses the
  * distances and converts units.
- * An incomplete hypothesis yields nulls and "unknown" verdicts rather than an error.
+ * An incomplete hypothesis, or one outside the accepted ranges (a row stored before a range was
+ * narrowed), yields nulls and "unknown" verdicts rather than an error: no value reaches a physics
+ * function outside its domain.
  */
 export function deriveTargetColumns(h: LensHypothesis, instrument: InstrumentDefaults): DerivedColumns {
-  const geometry = geometryOf(h);
+  const isComputable = lensHypothesisSchema.safeParse(h).success && Object.keys(lensHypothesisErrors(h)).length === 0;
+  const geometry = isComputable ? geometryOf(h) : null;
   const empty = {
     einsteinRadiusMas: null,
     imageSeparationMas: null,

@@ -16,9 +16,21 @@ export const siteSchema = z.object({
 
 /** The lensing scales the stored verdicts compare each target with. */
 const lensingInstrumentSchema = z.object({
-  resolutionMas: z.number().positive("Resolution must be a positive angle in milliarcseconds.").max(3.6e6),
-  cadenceHours: z.number().positive("Cadence must be a positive number of hours.").max(24 * 365),
-  campaignLengthDays: z.number().positive("Campaign length must be a positive number of days.").max(3653),
+  // Lower bounds (our rule) keep every ratio the verdicts take finite: 0.1 µas is finer than any
+  // interferometer reaches (about 20 µas on Earth-sized baselines), 3.6 s and 15 min shorter than any
+  // lensing cadence or campaign. Upper bounds: the whole sky, a year, ten years.
+  resolutionMas: z
+    .number("Resolution must be a number of milliarcseconds.")
+    .min(1e-4, "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°).")
+    .max(3.6e6, "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°)."),
+  cadenceHours: z
+    .number("Cadence must be a number of hours.")
+    .min(0.001, "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year).")
+    .max(24 * 365, "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year)."),
+  campaignLengthDays: z
+    .number("Campaign length must be a number of days.")
+    .min(0.01, "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years).")
+    .max(3653, "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years)."),
 });
 
 /**
@@ -33,14 +45,14 @@ export const instrumentSchema = lensingInstrumentSchema.extend({
     .default(2),
   interferometerWavelengthMm: z
     .number("The wavelength must be a number of millimetres.")
-    .positive("The wavelength must be a positive number of millimetres.")
-    .max(1000, "The wavelength is at most 1000 mm.")
+    .min(1e-5, "The wavelength is from 0.00001 mm (10 nm) to 1000 mm.")
+    .max(1000, "The wavelength is from 0.00001 mm (10 nm) to 1000 mm.")
     .nullable()
     .default(null),
   interferometerBaselineKm: z
     .number("The baseline must be a number of kilometres.")
-    .positive("The baseline must be a positive number of kilometres.")
-    .max(1e6, "The baseline is at most 1,000,000 km.")
+    .min(1e-3, "The baseline is from 0.001 km (1 m) to 1,000,000 km.")
+    .max(1e6, "The baseline is from 0.001 km (1 m) to 1,000,000 km.")
     .nullable()
     .default(null),
 });

@@ -3,6 +3,7 @@ import { nameText } from "@/lib/workspace/stored-text";
 import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
+import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 
 export const lensModels = ["point", "sis"] as const;
 export type LensModel = (typeof lensModels)[number];
@@ -24,8 +25,23 @@ function coordinate(parse: (input: string | number) => number) {
   });
 }
 
-const optionalPositive = (message: string) => z.number().positive(message).finite().nullable().optional();
-const optionalRedshift = z.number().min(0, "Redshift cannot be negative.").max(20, "Redshift is at most 20.").nullable().optional();
+/** "1e-15", "20,000,000,000": a bound written as a user reads it. */
+function boundText(value: number): string {
+  return value >= 1e-3 && value < 1e12 ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value.toExponential().replace("e+", "e");
+}
+
+/**
+ * A number inside one of the lensing layer's accepted ranges (`lib/physics/accepted-ranges.ts`), so
+ * that no derived quantity overflows, underflows or leaves its formula's domain. `what` names the
+ * quantity as the message says it: "The lens mass", with `unit` after the bounds.
+ */
+function rangedNumber(what: string, range: AcceptedRange, unit: string, why: string) {
+  const message = `${what} is from ${boundText(range.min)} to ${boundText(range.max)}${unit ? ` ${unit}` : ""} (${why}).`;
+  return z.number(`${what} must be a number.`).min(range.min, message).max(range.max, message);
+}
+
+const optionalRanged = (...args: Parameters<typeof rangedNumber>) => rangedNumber(...args).nullable().optional();
+const optionalRedshift = optionalRanged("A redshift", acceptedRanges.redshift, "", "nearer lenses are given by distance in parsecs");
 
 const tagSchema = z.string().trim().min(1, "A tag cannot be empty.").max(32, "A tag is at most 32 characters.").regex(/^[\w.+-]+$/, "Tags use letters, digits, . + - _");
 
@@ -38,14 +54,14 @@ export const targetFieldsSchema = z.object({
   ra: coordinate(parseRightAscensionDeg),
   dec: coordinate(parseDeclinationDeg),
   lensModel: z.enum(lensModels, { error: "The lens model is point or sis." }),
-  lensMassSolar: optionalPositive("The lens mass is a positive number of solar masses."),
-  velocityDispersionKmPerS: optionalPositive("The velocity dispersion is a positive speed in km/s."),
-  lensDistancePc: optionalPositive("The lens distance is a positive number of parsecs."),
-  sourceDistancePc: optionalPositive("The source distance is a positive number of parsecs."),
+  lensMassSolar: optionalRanged("The lens mass", acceptedRanges.lensMassSolar, "solar masses", "an asteroid to ten times the largest galaxy cluster"),
+  velocityDispersionKmPerS: optionalRanged("The velocity dispersion", acceptedRanges.velocityDispersionKmPerS, "km/s", "dwarf galaxies to the richest clusters"),
+  lensDistancePc: optionalRanged("The lens distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
+  sourceDistancePc: optionalRanged("The source distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
   lensRedshift: optionalRedshift,
   sourceRedshift: optionalRedshift,
-  sourceOffsetThetaE: z.number().positive("The source offset is a positive multiple of the Einstein radius.").max(1000),
-  properMotionMasPerYr: optionalPositive("The relative proper motion is a positive number of mas/yr."),
+  sourceOffsetThetaE: rangedNumber("The source offset", acceptedRanges.sourceOffsetThetaE, "Einstein radii", "closer, a real source's size caps the magnification"),
+  properMotionMasPerYr: optionalRanged("The relative proper motion", acceptedRanges.properMotionMasPerYr, "mas/yr", "a nanoarcsecond a year to faster than the Sun crosses the sky"),
   priority: z.number().int().min(1, "Priority runs from 1 (highest) to 5.").max(5, "Priority runs from 1 (highest) to 5."),
   status: z.enum(targetStatuses),
   tags: z.array(tagSchema).max(12, "At most 12 tags."),
@@ -60,6 +76,19 @@ export const updateTargetSchema = targetFieldsSchema.partial();
 
 export type CreateTargetInput = z.infer<typeof createTargetSchema>;
 export type UpdateTargetInput = z.infer<typeof updateTargetSchema>;
+
+/** The fields of a target that its derived columns are computed from, each in its accepted range. */
+export const lensHypothesisSchema = targetFieldsSchema.pick({
+  lensModel: true,
+  lensMassSolar: true,
+  velocityDispersionKmPerS: true,
+  lensDistancePc: true,
+  sourceDistancePc: true,
+  lensRedshift: true,
+  sourceRedshift: true,
+  sourceOffsetThetaE: true,
+  properMotionMasPerYr: true,
+});
 
 /** The part of a target that its derived columns are computed from. */
 export type LensHypothesis = Pick<
@@ -103,6 +132,10 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
     add("sourceDistancePc", "Give the source distance in parsecs too.");
   } else if (h.sourceDistancePc <= h.lensDistancePc) {
     add("sourceDistancePc", "The source must lie behind the lens (farther than it).");
+  } else if (h.lensModel === "point" && present(h.lensMassSolar) && lensCompactness(h.lensMassSolar, h.lensDistancePc) > MAX_LENS_COMPACTNESS) {
+    const message = "The lens is too close for its mass: its gravitational radius exceeds 1/10,000 of its distance, where the thin-lens formulas fail. Check the mass and the distance.";
+    add("lensMassSolar", message);
+    add("lensDistancePc", message);
   }
   return fields;
 }

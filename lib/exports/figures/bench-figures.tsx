@@ -54,7 +54,12 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
     throw new AppError("bad_request:figure", `Invalid sketch: check ${Object.keys(fields).join(", ")}.`, fields);
   }
   const computed = computeResults(parsed.inputs);
-  if (!computed.ok) throw new AppError("bad_request:figure", `This sketch cannot be computed: ${computed.message}`);
+  // Parsed sketches stay inside the accepted ranges, where the physics does not refuse; should one
+  // still be refused, the physics' own wording (argument names) stays in the server log.
+  if (!computed.ok) {
+    console.error("bench figure not computed:", computed.message);
+    throw new AppError("bad_request:figure", "This sketch cannot be computed.", { _: ["Check the lens, the distances and the source offset."] });
+  }
   const markup = renderStaticSvg(plotElement(kind, computed.results));
   const cosmology = sketch.geometry === "redshift" ? { H0: parsePlainNumber(sketch.h0), Om0: parsePlainNumber(sketch.om0) } : undefined;
   const provenance = buildProvenance({

@@ -1,0 +1,70 @@
+/**
+ * The ranges of lens inputs the lensing layer accepts, and the one check across inputs. Each bound
+ * keeps every derived quantity (θ_E, t_E, delays, magnifications, cosmological distances) a finite,
+ * normal double and inside the domain of the formula that computes it; inside the bounds the physics
+ * functions never throw. The bounds are ours (named "our rule" below) and generous: each lies well
+ * beyond the objects astronomers observe, with the physical reason beside it.
+ */
+
+import { PARSEC_M, SOLAR_MASS_LENGTH_M } from "./constants";
+
+/** A closed range of accepted values, in the unit the key names. */
+export interface AcceptedRange {
+  min: number;
+  max: number;
+}
+
+export const acceptedRanges = {
+  /**
+   * Lens mass, M☉. Our rule: from 1e-15 M☉ (2e15 kg, a kilometre-sized body; the lightest lenses
+   * searched for are asteroid-mass primordial black holes near 1e-12 M☉) to 1e16 M☉ (ten times the
+   * most massive galaxy clusters).
+   */
+  lensMassSolar: { min: 1e-15, max: 1e16 },
+  /**
+   * Lens or source distance, pc. Our rule: from 1e-6 pc (0.2 au: the Sun as a lens is seen from 1 au)
+   * to 2e10 pc (20 Gpc, beyond the comoving radius of the observable universe, about 14 Gpc; farther
+   * lenses are given by redshift).
+   */
+  distancePc: { min: 1e-6, max: 2e10 },
+  /**
+   * Velocity dispersion of an isothermal lens, km/s. Our rule: from 1 km/s (below the faintest dwarf
+   * galaxies, a few km/s) to 3,000 km/s (twice the richest galaxy clusters, about 1,500 km/s).
+   */
+  velocityDispersionKmPerS: { min: 1, max: 3000 },
+  /**
+   * Relative lens-source proper motion, mas/yr. Our rule: from 1e-6 mas/yr (a nanoarcsecond a year)
+   * to 1e10 mas/yr (the Sun crosses the sky at about 1.3e9 mas/yr as seen from the Earth).
+   */
+  properMotionMasPerYr: { min: 1e-6, max: 1e10 },
+  /**
+   * Cosmological redshift of a lens or a source. Our rule: from 0.001 (about 4 Mpc; nearer, peculiar
+   * velocities rival the Hubble flow and a distance in parsecs is the better input) to 20 (beyond the
+   * most distant sources lensed).
+   */
+  redshift: { min: 0.001, max: 20 },
+  /**
+   * Source offset from the lens, in Einstein radii. Our rule: from 1e-6 (a point-source magnification
+   * of about a million, far above the highest observed in microlensing events, a few thousand; a
+   * real source's finite size caps it) to 1,000 (where the lensing magnification is 1 + 2e-12).
+   */
+  sourceOffsetThetaE: { min: 1e-6, max: 1000 },
+} as const satisfies Record<string, AcceptedRange>;
+
+/** True when `value` is a finite number inside `range` (NaN is outside). */
+export function isInRange(value: number, range: AcceptedRange): boolean {
+  return value >= range.min && value <= range.max;
+}
+
+/**
+ * Largest lens compactness GM/(c² D_L) accepted. Our rule: the thin-lens, weak-field formulas (and
+ * the exact lens equation's far-field set-up, which needs D_L ≫ b_c = 5.2 GM/c²) hold only for a lens
+ * far from the observer compared with its gravitational radius; 1e-4 keeps θ_E below 0.02 rad (1.1°).
+ * The Sun seen from the Earth is 1e-8.
+ */
+export const MAX_LENS_COMPACTNESS = 1e-4;
+
+/** GM/(c² D_L), dimensionless, for a mass in M☉ and a lens distance in pc. */
+export function lensCompactness(massSolar: number, dLensPc: number): number {
+  return (massSolar * SOLAR_MASS_LENGTH_M) / (dLensPc * PARSEC_M);
+}
