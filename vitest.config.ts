@@ -5,6 +5,7 @@ import { defineConfig } from "vitest/config";
  * Three projects: `unit` (pure logic, parallel), `integration` (route handlers and data access
  * against the real PostgreSQL that `npm test` starts; one file at a time because they share it) and
  * `e2e` (playwright-core driving Debian's Chromium against the built app that `npm test` serves).
+ * Property tests (fast-check) run with one fixed seed (tests/support/property-seed.ts).
  */
 export default defineConfig({
   resolve: {
@@ -21,6 +22,7 @@ export default defineConfig({
           name: "unit",
           environment: "node",
           include: ["tests/unit/**/*.test.ts"],
+          setupFiles: ["tests/support/property-seed.ts"],
         },
       },
       {
@@ -29,6 +31,7 @@ export default defineConfig({
           name: "integration",
           environment: "node",
           include: ["tests/integration/**/*.test.ts"],
+          setupFiles: ["tests/support/property-seed.ts"],
           fileParallelism: false,
           testTimeout: 20_000,
           hookTimeout: 30_000,
