@@ -44,11 +44,21 @@ export async function sessionOwner(claims: SessionClaims | null): Promise<Actor 
   return row ?? null;
 }
 
-/** Ends the one session a cookie names (sign-out). */
+/**
+ * Sign-out: ends every session of the account whose live session the cookie names, so that no copy
+ * of any of its cookies keeps working. A cookie whose session has already ended ends nothing (a stolen
+ * old cookie cannot sign its owner out elsewhere).
+ */
 export async function endSession(claims: SessionClaims | null): Promise<void> {
   const parsed = claimsSchema.safeParse(claims ?? {});
   if (!parsed.success) return;
-  await dbClient().db.delete(userSessions).where(and(eq(userSessions.id, parsed.data.sid), eq(userSessions.userId, parsed.data.sub)));
+  await dbClient().db.transaction(async (tx) => {
+    const ended = await tx
+      .delete(userSessions)
+      .where(and(eq(userSessions.id, parsed.data.sid), eq(userSessions.userId, parsed.data.sub)))
+      .returning({ id: userSessions.id });
+    if (ended.length > 0) await endAllSessions(parsed.data.sub, tx);
+  });
 }
 
 /** Ends every session of a user (a password reset, "sign out everywhere"); `db` may be a transaction. */

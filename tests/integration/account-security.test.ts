@@ -181,13 +181,25 @@ describe("account mail to one address is capped", () => {
 });
 
 describe("sessions end for every copy of the cookie", () => {
-  it("after sign-out, a copy of the cookie is refused (401)", async () => {
+  it("after sign-out, a copy of the cookie and every other session of the account are refused (401)", async () => {
     const owner = await signUpConfirmed(freshEmail("sign-out"), "long-enough-pass");
-    const { cookie, token } = await sessionCookieFor(owner);
+    const other = await signUpConfirmed(freshEmail("sign-out-bystander"), "long-enough-pass");
+    const [{ cookie, token }, elsewhere, bystander] = await Promise.all([sessionCookieFor(owner), sessionCookieFor(owner), sessionCookieFor(other)]);
     expect(await listProposalsWith(cookie)).toBe(200);
     // What next-auth's sign-out calls with the decoded cookie before it clears the browser's copy.
     await authOptions.events!.signOut!({ token } as never);
     expect(await listProposalsWith(cookie)).toBe(401);
+    expect(await listProposalsWith(elsewhere.cookie)).toBe(401);
+    expect(await listProposalsWith(bystander.cookie)).toBe(200);
+  });
+
+  it("a cookie whose session already ended signs nobody out (a stolen old cookie cannot end its owner's new sessions)", async () => {
+    const owner = await signUpConfirmed(freshEmail("old-cookie"), "long-enough-pass");
+    const old = await sessionCookieFor(owner);
+    await authOptions.events!.signOut!({ token: old.token } as never);
+    const fresh = await sessionCookieFor(owner);
+    await authOptions.events!.signOut!({ token: old.token } as never);
+    expect(await listProposalsWith(fresh.cookie)).toBe(200);
   });
 
   it('after "sign out everywhere", every session of the account is refused (401), other accounts\' are not', async () => {
