@@ -7,6 +7,7 @@ import { AppError } from "@/lib/errors";
 import { clientAddressOf } from "@/lib/security/client-address";
 import type { Actor } from "@/lib/server/actor";
 import { authenticateWithLink, authenticateWithPassword } from "@/lib/server/accounts";
+import { isDatabaseUnavailable } from "@/lib/server/http";
 import { endSession, sessionLifetimeSeconds, sessionOwner, startSession } from "@/lib/server/sessions";
 
 const asUser = (actor: Actor | null): User | null => (actor ? { id: actor.userId, email: actor.email, name: actor.name } : null);
@@ -70,8 +71,17 @@ export const authOptions: NextAuthOptions = {
     },
     // GET /api/auth/session, which the header asks: an ended session answers {} (signed out), as
     // next-auth does for no cookie at all.
+    // next-auth clears the browser's cookie when this callback throws, so a database outage would
+    // sign everyone out: while PostgreSQL is away the header keeps the name the signed cookie carries
+    // (every data request still checks the session row, and fails with 503 until it is back).
     async session({ session, token }) {
-      const actor = await sessionOwner(token);
+      let actor: Actor | null;
+      try {
+        actor = await sessionOwner(token);
+      } catch (error) {
+        if (isDatabaseUnavailable(error)) return session;
+        throw error;
+      }
       if (!actor) return {} as typeof session;
       session.user = { name: actor.name, email: actor.email };
       Object.assign(session.user, { id: actor.userId });

@@ -55,14 +55,16 @@ async function failedSignInWith(headers: Record<string, string>): Promise<string
 }
 
 describe("sessions end for every copy of the cookie", () => {
-  it("a cookie copied before sign-out is refused afterwards (401), while another session of the account goes on", async () => {
+  it("after sign-out a copied cookie and the account's other sessions are refused (401), another person's session goes on", async () => {
     const member = account("coi");
     const copied = await signInOverHttp(baseUrl, member);
     const other = await signInOverHttp(baseUrl, member);
+    const colleague = await signInOverHttp(baseUrl, account("pi"));
     expect(await proposalsStatus(copied)).toBe(200);
     await signOutOverHttp(copied);
     expect(await proposalsStatus(copied)).toBe(401);
-    expect(await proposalsStatus(other)).toBe(200);
+    expect(await proposalsStatus(other)).toBe(401);
+    expect(await proposalsStatus(colleague)).toBe(200);
   });
 
   it('"Sign out everywhere" in the account menu ends the account\'s sessions elsewhere (401)', async () => {
@@ -83,7 +85,8 @@ describe("sign-in limits", () => {
     expect(await failedSignInWith(forged)).toBe("CredentialsSignin");
     const buckets = (await dbClient().db.select({ bucket: rateLimitCounters.bucket }).from(rateLimitCounters).where(like(rateLimitCounters.bucket, "sign-in:address:%"))).map((r) => r.bucket);
     expect(buckets).toContain("sign-in:address:127.0.0.1");
-    expect(buckets.filter((b) => b.includes("192.0.2."))).toEqual([]);
+    // Only the forged values of this request: earlier phases of the run leave buckets of their own.
+    expect(buckets.filter((b) => b.includes("192.0.2.77") || b.includes("192.0.2.78"))).toEqual([]);
   });
 
   it("50 successful sign-ins from one address lock nobody out", async () => {
