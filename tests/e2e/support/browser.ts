@@ -3,7 +3,11 @@ import { chromium, type Browser, type BrowserContext, type BrowserContextOptions
 /** The built app that `npm test` serves for these tests. */
 export const baseUrl = process.env.E2E_BASE_URL ?? "http://127.0.0.1:3000";
 
-/** Debian's Chromium (never a downloaded browser); flags from shared/notes/stack.md. */
+/**
+ * Debian's Chromium (never a downloaded browser). Without the background-networking, sync and
+ * component-update flags it floods the closed network with refused connections; SwiftShader gives
+ * software WebGL2 (DEVELOPERS.md, "Run and test").
+ */
 const chromiumFlags = [
   "--headless",
   "--no-sandbox",
