@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { SkyPlanner } from "@/components/sky/sky-planner";
-import { defaultSkyQuery, skyQueryFromParams } from "@/components/sky/sky-query";
+import { defaultSkyQuery, skyQueryFromParams } from "@/lib/astro/sky-query";
 
 export const metadata: Metadata = { title: "Sky windows" };
 

@@ -4,10 +4,10 @@ import { useMemo } from "react";
 import type { BenchResults } from "@/lib/bench/compute-results";
 import { angleInUnit, naturalAngleUnit, unitLabel } from "@/lib/bench/display-units";
 import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
-import { AstrometricTrackPlot } from "@/components/plots/astrometric-track-plot";
-import { DeflectionPlot } from "@/components/plots/deflection-plot";
-import { LensPlaneDiagram } from "@/components/plots/lens-plane-diagram";
-import { LightCurvePlot } from "@/components/plots/light-curve-plot";
+import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
+import { DeflectionPlot } from "@/lib/figures/deflection-plot";
+import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
+import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
 
 const PLOT_WIDTH = 540;

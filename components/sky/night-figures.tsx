@@ -1,5 +1,5 @@
 import type { NightVisibility } from "@/lib/astro/visibility";
-import { formatHours, formatUtcClock } from "./sky-format";
+import { formatHours, formatUtcClock } from "@/lib/astro/sky-format";
 import { SunCaution } from "./sun-caution";
 
 function Figure({ label, value, testId }: { label: string; value: string; testId?: string }) {

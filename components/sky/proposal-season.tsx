@@ -4,9 +4,9 @@ import { useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { SEASON_WEEK_NIGHTS } from "@/lib/astro/season";
 import { addDaysIso } from "@/lib/astro/time";
-import { SeasonChart } from "./season-chart";
+import { SeasonChart } from "@/lib/figures/season-chart";
 import { SeasonTable } from "./season-table";
-import { formatHours } from "./sky-format";
+import { formatHours } from "@/lib/astro/sky-format";
 import { useSeason } from "./use-season";
 
 /** Targets per page of the chart and table: SVG rows stay light and legible at this count. */

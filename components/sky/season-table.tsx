@@ -1,7 +1,7 @@
 import type { NeverObservableReason, SeasonWindows } from "@/lib/astro/season";
 import { addDaysIso } from "@/lib/astro/time";
 import { SEASON_WEEK_NIGHTS } from "@/lib/astro/season";
-import { formatHours } from "./sky-format";
+import { formatHours } from "@/lib/astro/sky-format";
 
 const reasonText: Record<NeverObservableReason, string> = {
   "below-limit": "never reaches the altitude limit here",

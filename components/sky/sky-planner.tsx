@@ -2,12 +2,12 @@
 
 import { useEffect, useId, useMemo, useState } from "react";
 import { nightlyVisibility } from "@/lib/astro/visibility";
-import { NightChart } from "./night-chart";
+import { NightChart } from "@/lib/figures/night-chart";
 import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
-import { SeasonChart } from "./season-chart";
+import { SeasonChart } from "@/lib/figures/season-chart";
 import { SeasonTable } from "./season-table";
-import { parseSkyQuery, skyQueryToString, type SkyQuery, type SkyQueryField } from "./sky-query";
+import { parseSkyQuery, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
 import { useSeason } from "./use-season";
 
 function QueryField({ label, hint, value, error, onChange }: { label: string; hint: string; value: string; error?: string; onChange: (value: string) => void }) {

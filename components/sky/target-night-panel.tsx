@@ -3,7 +3,7 @@
 import { useEffect, useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { nightlyVisibility } from "@/lib/astro/visibility";
-import { NightChart } from "./night-chart";
+import { NightChart } from "@/lib/figures/night-chart";
 import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
 

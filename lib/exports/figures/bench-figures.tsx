@@ -6,10 +6,10 @@ import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot
 import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { AppError } from "@/lib/errors";
 import { buildProvenance } from "@/lib/exports/provenance";
-import { AstrometricTrackPlot } from "@/components/plots/astrometric-track-plot";
-import { DeflectionPlot } from "@/components/plots/deflection-plot";
-import { LensPlaneDiagram } from "@/components/plots/lens-plane-diagram";
-import { LightCurvePlot } from "@/components/plots/light-curve-plot";
+import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
+import { DeflectionPlot } from "@/lib/figures/deflection-plot";
+import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
+import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
 import type { PlotExport } from "./figure-response";
 
 export const benchFigureKinds = ["lens-plane", "deflection", "light-curve", "astrometric-track"] as const;

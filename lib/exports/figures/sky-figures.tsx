@@ -3,9 +3,9 @@ import type { SkyLimitsInput, SkySiteInput, SkyTarget } from "@/lib/astro/inputs
 import { seasonWindows } from "@/lib/astro/season";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
-import { NightChart } from "@/components/sky/night-chart";
-import { SeasonChart } from "@/components/sky/season-chart";
-import { skyQueryToString } from "@/components/sky/sky-query";
+import { NightChart } from "@/lib/figures/night-chart";
+import { SeasonChart } from "@/lib/figures/season-chart";
+import { skyQueryToString } from "@/lib/astro/sky-query";
 import type { PlotExport } from "./figure-response";
 
 export const skyFigureKinds = ["night", "season"] as const;

@@ -2,9 +2,9 @@ import { area, line, scaleLinear } from "d3";
 import type { NightVisibility } from "@/lib/astro/visibility";
 import { SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG } from "@/lib/astro/constants";
 import { apparentAltitudeForAirmassDeg } from "@/lib/astro/airmass";
-import { defaultMargins, PlotAxes, PlotLegend } from "@/components/plots/plot-axes";
-import { dashPatterns, plotFont, plotPalette } from "@/components/plots/plot-palette";
-import { formatUtcClock } from "./sky-format";
+import { defaultMargins, PlotAxes, PlotLegend } from "./plot-axes";
+import { dashPatterns, plotFont, plotPalette } from "./plot-palette";
+import { formatUtcClock } from "@/lib/astro/sky-format";
 
 interface NightChartProps {
   visibility: NightVisibility;

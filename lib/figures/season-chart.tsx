@@ -1,7 +1,7 @@
 import { interpolateCividis, scaleLinear, scaleSequential } from "d3";
 import type { SeasonWindows } from "@/lib/astro/season";
-import { PlotAxes } from "@/components/plots/plot-axes";
-import { plotFont, plotPalette } from "@/components/plots/plot-palette";
+import { PlotAxes } from "./plot-axes";
+import { plotFont, plotPalette } from "./plot-palette";
 
 interface SeasonChartProps {
   season: SeasonWindows;
