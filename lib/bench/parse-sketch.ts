@@ -17,7 +17,7 @@ import {
   parseVelocity,
   sisEinsteinRadius,
 } from "@/lib/physics";
-import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import type { Sketch, SketchField } from "./sketch-state";
 
@@ -130,12 +130,12 @@ function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
   if (sketch.lens === "sis") {
     return {
       model: "sis",
-      sigmaKmPerS: reader.read("sigma", parseVelocity, within(acceptedRanges.velocityDispersionKmPerS, "The velocity dispersion must lie between 1 and 3,000 km/s")),
+      sigmaKmPerS: reader.read("sigma", parseVelocity, within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s`)),
     };
   }
   return {
     model: "point",
-    massSolar: reader.read("mass", (text) => parseMass(text).massSolar, within(acceptedRanges.lensMassSolar, "The mass must lie between 1e-15 and 1e16 solar masses")),
+    massSolar: reader.read("mass", (text) => parseMass(text).massSolar, within(acceptedRanges.lensMassSolar, `The mass must lie between ${rangeText(acceptedRanges.lensMassSolar)} solar masses`)),
   };
 }
 
@@ -151,7 +151,7 @@ function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
   }
   const h0 = reader.read("h0", parsePlainNumber, within(HUBBLE_RANGE, "H0 must lie between 10 and 200 km/s/Mpc"));
   const om0 = reader.read("om0", parsePlainNumber, (value) => (value >= 0 && value <= 1 ? undefined : "Ωm must lie between 0 and 1"));
-  const redshiftMessage = "Redshifts lie between 0.001 and 20 (nearer, give distances instead)";
+  const redshiftMessage = `Redshifts lie between ${rangeText(acceptedRanges.redshift)} (nearer, give distances instead)`;
   const zLens = reader.read("zl", parsePlainNumber, within(acceptedRanges.redshift, redshiftMessage));
   const zSource = reader.read("zs", parsePlainNumber, (value) => {
     if (!isInRange(value, acceptedRanges.redshift)) return redshiftMessage;
@@ -167,7 +167,7 @@ function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
   };
 }
 
-const sourceOffsetMessage = "β must lie between 1e-6 and 1,000 θ_E (closer, a real source's size caps the magnification)";
+const sourceOffsetMessage = `β must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} θ_E (closer, a real source's size caps the magnification)`;
 
 function readSourceOffset(reader: FieldReader, sketch: Sketch): SourceOffsetInputs {
   const aboveZero = positive("β must be greater than zero (at β = 0 the image is a ring of unbounded magnification)");
@@ -199,10 +199,10 @@ function readLightCurve(reader: FieldReader): LightCurveInputs {
     muRelRadPerS: reader.read(
       "mu",
       parseProperMotion,
-      within(acceptedRanges.properMotionMasPerYr, "The relative proper motion must lie between 1e-6 and 1e10 mas/yr", JULIAN_YEAR_S / MILLIARCSECOND_RAD),
+      within(acceptedRanges.properMotionMasPerYr, `The relative proper motion must lie between ${rangeText(acceptedRanges.properMotionMasPerYr)} mas/yr`, JULIAN_YEAR_S / MILLIARCSECOND_RAD),
     ),
     peakTimeS: reader.read("t0", parseTime, (value) => (Math.abs(value) <= MAX_TIME_S ? undefined : "The peak time lies within 100 years of the campaign start")),
-    u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, "u0 must lie between 1e-6 and 1,000 (closer, a real source's size caps the peak magnification)")),
+    u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, `u0 must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} (closer, a real source's size caps the peak magnification)`)),
   };
 }
 
@@ -240,7 +240,7 @@ function checkLensScales(errors: FieldErrors, sketch: Sketch, { lens, geometry, 
       : sisEinsteinRadius(lens.sigmaKmPerS, geometry.dLensSourcePc, geometry.dSourcePc);
   const betaRad = sourceOffset.unit === "angle" ? sourceOffset.betaRad : sourceOffset.betaThetaE * thetaERad;
   if (sourceOffset.unit === "angle" && !isInRange(betaRad / thetaERad, acceptedRanges.sourceOffsetThetaE)) {
-    errors.beta = "β must lie between 1e-6 and 1,000 Einstein radii of this lens";
+    errors.beta = `β must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} Einstein radii of this lens`;
   } else if (!(betaRad <= MAX_SOURCE_OFFSET_RAD)) {
     errors.beta = "β must be at most 0.1 radian (5.7°) from the lens";
   }

@@ -51,6 +51,16 @@ export const acceptedRanges = {
   sourceOffsetThetaE: { min: 1e-6, max: 1000 },
 } as const satisfies Record<string, AcceptedRange>;
 
+/** A bound as a user reads it: "1,000", "20,000,000,000", "1e-6", "1e16". */
+export function boundText(value: number): string {
+  return value >= 1e-3 && value < 1e12 ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value.toExponential().replace("e+", "e");
+}
+
+/** "1e-6 and 1,000": a range as the bench's messages say it. */
+export function rangeText(range: AcceptedRange): string {
+  return `${boundText(range.min)} and ${boundText(range.max)}`;
+}
+
 /** True when `value` is a finite number inside `range` (NaN is outside). */
 export function isInRange(value: number, range: AcceptedRange): boolean {
   return value >= range.min && value <= range.max;

@@ -3,7 +3,7 @@ import { nameText } from "@/lib/workspace/stored-text";
 import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
-import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { acceptedRanges, boundText, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 
 export const lensModels = ["point", "sis"] as const;
 export type LensModel = (typeof lensModels)[number];
@@ -23,11 +23,6 @@ function coordinate(parse: (input: string | number) => number) {
       return z.NEVER;
     }
   });
-}
-
-/** "1e-15", "20,000,000,000": a bound written as a user reads it. */
-function boundText(value: number): string {
-  return value >= 1e-3 && value < 1e12 ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value.toExponential().replace("e+", "e");
 }
 
 /**
