@@ -21,6 +21,7 @@ import {
   SOLAR_MASS_KG,
   SOLAR_MASS_LENGTH_M,
   SOLAR_MASS_TIME_S,
+  SPEED_OF_LIGHT_M_PER_S,
 } from "./constants";
 
 const math = create({ unitDependencies, createUnitDependencies });
@@ -37,18 +38,21 @@ math.createUnit({
 });
 
 /** The quantities the parsers read; each error names one of them. */
-export type QuantityKind = "mass" | "distance" | "angle" | "velocity" | "proper motion" | "time";
+export type QuantityKind = "mass" | "distance" | "length" | "wavelength" | "angle" | "velocity" | "proper motion" | "time" | "number";
 
 /** Thrown for input that is not a valid quantity of the requested kind. */
 export class QuantityError extends Error {
   readonly quantity: QuantityKind;
   readonly input: string;
+  /** What is wrong, in the user's words, without the quantity's name: "has an unknown unit 'foo'". */
+  readonly problem: string;
 
   constructor(quantity: QuantityKind, input: string, problem: string) {
     super(`${quantity}: '${input}' ${problem}`);
     this.name = "QuantityError";
     this.quantity = quantity;
     this.input = input;
+    this.problem = problem;
   }
 }
 
@@ -174,6 +178,60 @@ export function parseDistance(text: string, options?: ParseOptions): number {
   const distancePc = valueIn("distance", text, parseQuantity("distance", text, ["m"], options), "pc");
   if (!(distancePc > 0)) throw new QuantityError("distance", text, "must be greater than zero");
   return distancePc;
+}
+
+/** Parses a length (`3 km`, `1 Rsun`, `6.957e8 m`) into metres; finite, > 0. */
+export function parseLength(text: string, options?: ParseOptions): number {
+  const lengthM = valueIn("length", text, parseQuantity("length", text, ["m"], options), "m");
+  if (!(lengthM > 0)) throw new QuantityError("length", text, "must be greater than zero");
+  return lengthM;
+}
+
+/** Parses a wavelength (`1.3 mm`, `2.2 um`, `230 GHz` as c/ν) into metres; finite, > 0. */
+export function parseWavelength(text: string, options?: ParseOptions): number {
+  const parsed = parseQuantity("wavelength", text, ["m", "Hz"], options);
+  const value = parsed.index === 0 ? valueIn("wavelength", text, parsed, "m") : SPEED_OF_LIGHT_M_PER_S / valueIn("wavelength", text, parsed, "Hz");
+  if (!(value > 0) || !Number.isFinite(value)) throw new QuantityError("wavelength", text, "must be greater than zero");
+  return value;
+}
+
+/** Parses a bare number (`0.3`, `2e3`, `0,3`, `4,100,000`); a unit is an error. */
+export function parseNumber(text: string): number {
+  if (typeof text !== "string" || text.trim() === "") throw new QuantityError("number", String(text), "is empty; type a number");
+  const normalized = normalize(text);
+  if (!/^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i.test(normalized)) throw new QuantityError("number", text, "is not a plain number");
+  const value = Number(normalized);
+  if (!Number.isFinite(value)) throw new QuantityError("number", text, "is not finite");
+  return value;
+}
+
+/** What a field shows beside its input: the value used, in words and normalised units, or why none. */
+export type QuantityEcho = { ok: true; text: string; assumedUnit: boolean } | { ok: false; message: string };
+
+/**
+ * The echo of `text` read as `kind`, shown in `displayUnit` (default: the kind's result unit):
+ * "= 4.1 × 10⁶ M☉"; a bare number says it was taken in the default unit.
+ */
+export function echoQuantity(kind: QuantityKind, text: string, options?: ParseOptions & { displayUnit?: string }): QuantityEcho {
+  try {
+    const parsers: Record<QuantityKind, (t: string) => number> = {
+      mass: (t) => parseMass(t, options).massSolar,
+      distance: (t) => parseDistance(t, options),
+      length: (t) => parseLength(t, options),
+      wavelength: (t) => parseWavelength(t, options),
+      angle: (t) => parseAngle(t, options),
+      velocity: (t) => parseVelocity(t, options),
+      "proper motion": (t) => parseProperMotion(t, options),
+      time: (t) => parseTime(t, options),
+      number: parseNumber,
+    };
+    const value = parsers[kind](text);
+    const assumedUnit = kind !== "number" && LEADING_NUMBER.exec(normalize(text))?.[0] === normalize(text);
+    return { ok: true, text: `= ${formatNumber(value, 4)}`, assumedUnit };
+  } catch (error) {
+    if (error instanceof QuantityError) return { ok: false, message: error.problem };
+    throw error;
+  }
 }
 
 /** Parses an angle (`1.2 arcsec`, `1.2″`, `350 mas`, `40 uas`, `40 µas`, `0.3 deg`) into radians; finite. */
