@@ -1,9 +1,10 @@
 /**
  * Parsing and formatting of the quantities astronomers type, on mathjs units. Every input field of the
  * product reads through these functions, so they accept the common spellings (`4e6 Msun`, `8.1 kpc`,
- * `45 uas`, `45 µas`, `1.2″`, `5 mas/yr`, `1 d`, `4×10^6 M☉`, `M_sun`, a decimal comma `8,1 kpc`, a
- * thousands comma `1,000 pc`) and reject nonsense with a QuantityError
- * that names the quantity. Conversion factors come from ./constants only.
+ * `45 uas`, `45 µas`, `1.2″`, `5 mas/yr`, `1 d`, `4×10^6 M☉`, `M_sun`, a decimal comma `8,1 kpc`,
+ * thousands commas `4,100,000 Msun`) and reject nonsense with a QuantityError that names the
+ * quantity. Numbers are read by the rules of ./quantity-text (a lone comma before three digits,
+ * `8,125`, is refused as ambiguous). Conversion factors come from ./constants only.
  *
  * Results: masses in solar masses, distances in parsecs, angles in radians, velocities in km/s,
  * proper motions in rad/s, times in seconds.
@@ -21,14 +22,17 @@ import {
   SOLAR_MASS_KG,
   SOLAR_MASS_LENGTH_M,
   SOLAR_MASS_TIME_S,
+  SOLAR_RADIUS_M,
   SPEED_OF_LIGHT_M_PER_S,
 } from "./constants";
+import { readLeadingNumber } from "./quantity-text";
 
 const math = create({ unitDependencies, createUnitDependencies });
 
 math.createUnit({
   Msun: { definition: `${SOLAR_MASS_KG} kg`, aliases: ["Msol", "solMass", "Mo"] },
   pc: { definition: `${PARSEC_M} m`, prefixes: "short", aliases: ["parsec", "parsecs"] },
+  Rsun: { definition: `${SOLAR_RADIUS_M} m`, aliases: ["solRad"] },
   au: { definition: `${AU_M} m`, aliases: ["AU", "ua"] },
   ly: { definition: `${LIGHT_YEAR_M} m`, aliases: ["lyr", "lightyear", "lightyears"] },
   mas: { definition: `${MILLIARCSECOND_RAD} rad` },
@@ -70,21 +74,21 @@ const DIMENSIONS: { unit: string; word: string; article: string }[] = [
 export const MAX_QUANTITY_CHARS = 100;
 
 /**
- * Rewrites the common typographic spellings into what mathjs reads. Runs of white space are folded
- * first, so that no pattern below meets more than one space in a row: an unanchored `\s*` before a
- * symbol rescans a run of spaces from each of its positions (quadratic time).
+ * Trims the text and folds runs of white space into one space, first, so that no pattern below meets
+ * more than one space in a row: an unanchored `\s*` before a symbol rescans a run of spaces from
+ * each of its positions (quadratic time).
  */
-function normalize(text: string): string {
-  return text
-    .trim()
-    .replace(/\s+/g, " ")
+function foldSpaces(text: string): string {
+  return text.trim().replace(/\s+/g, " ");
+}
+
+/** Rewrites the common typographic spellings of a unit (text after the number) into what mathjs reads. */
+function normalizeUnit(unitText: string): string {
+  return unitText
     .replace(/[\u00b5\u03bc]/g, "u") // micro sign and Greek mu
-    .replace(/[\u2212\u2013]/g, "-") // minus sign, en dash
     .replace(/M ?[\u2609\u2299]/g, "Msun") // M☉, M⊙
     .replace(/\bM_(sun|sol)\b/g, "Msun")
-    .replace(/(\d),(\d{3})(?!\d)/g, "$1$2") // thousands separator: 1,000 pc
-    .replace(/(\d),(\d)/g, "$1.$2") // decimal comma: 8,1 kpc
-    .replace(/(\d) ?[x\u00d7*] ?10 ?\^ ?([+-]?\d+)/g, "$1e$2") // 4×10^6
+    .replace(/R ?[\u2609\u2299]|\bR_sun\b/g, "Rsun")
     .replace(/ ?[\u2033"] ?/g, " arcsec ")
     .replace(/ ?[\u2032'] ?/g, " arcmin ")
     .replace(/ ?\u00b0 ?/g, " deg ")
@@ -102,9 +106,6 @@ interface ParseOptions {
   defaultUnit?: string;
 }
 
-/** The number a quantity starts with; the rest of the text is its unit. */
-const LEADING_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?/i;
-
 interface ParsedQuantity {
   /** The number as typed. */
   value: number;
@@ -121,11 +122,11 @@ interface ParsedQuantity {
 function parseQuantity(kind: QuantityKind, text: string, accepted: string[], options: ParseOptions | undefined): ParsedQuantity {
   if (typeof text !== "string" || text.trim() === "") throw new QuantityError(kind, String(text), "is empty; type a number and a unit");
   if (text.length > MAX_QUANTITY_CHARS) throw new QuantityError(kind, `${text.slice(0, 20)}…`, `is longer than ${MAX_QUANTITY_CHARS} characters; type a number and a unit`);
-  const normalized = normalize(text);
-  const number = LEADING_NUMBER.exec(normalized);
-  if (number === null) throw new QuantityError(kind, text, "is not a number followed by a unit");
-  const value = Number(number[0]);
-  const typedUnit = normalized.slice(number[0].length).trim();
+  const folded = foldSpaces(text);
+  const number = readLeadingNumber(folded);
+  if (!number.ok) throw new QuantityError(kind, text, number.hasDigits ? number.problem : "is not a number followed by a unit");
+  const value = number.value;
+  const typedUnit = normalizeUnit(folded.slice(number.length));
   const unitText = typedUnit === "" ? (options?.defaultUnit ?? "") : typedUnit;
   if (unitText === "") throw new QuantityError(kind, text, `has no ${kind} unit`);
   let unit: Unit;
@@ -198,11 +199,12 @@ export function parseWavelength(text: string, options?: ParseOptions): number {
 /** Parses a bare number (`0.3`, `2e3`, `0,3`, `4,100,000`); a unit is an error. */
 export function parseNumber(text: string): number {
   if (typeof text !== "string" || text.trim() === "") throw new QuantityError("number", String(text), "is empty; type a number");
-  const normalized = normalize(text);
-  if (!/^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i.test(normalized)) throw new QuantityError("number", text, "is not a plain number");
-  const value = Number(normalized);
-  if (!Number.isFinite(value)) throw new QuantityError("number", text, "is not finite");
-  return value;
+  const folded = foldSpaces(text);
+  const number = readLeadingNumber(folded);
+  if (!number.ok) throw new QuantityError("number", text, number.hasDigits ? number.problem : "is not a number; type e.g. 0.3 or 2e3");
+  if (number.length !== folded.length) throw new QuantityError("number", text, "is not a plain number");
+  if (!Number.isFinite(number.value)) throw new QuantityError("number", text, "is not finite");
+  return number.value;
 }
 
 /** What a field shows beside its input: the value used, in words and normalised units, or why none. */
@@ -226,7 +228,9 @@ export function echoQuantity(kind: QuantityKind, text: string, options?: ParseOp
       number: parseNumber,
     };
     const value = parsers[kind](text);
-    const assumedUnit = kind !== "number" && LEADING_NUMBER.exec(normalize(text))?.[0] === normalize(text);
+    const folded = foldSpaces(text);
+    const number = readLeadingNumber(folded);
+    const assumedUnit = kind !== "number" && number.ok && number.length === folded.length;
     return { ok: true, text: `= ${formatNumber(value, 4)}`, assumedUnit };
   } catch (error) {
     if (error instanceof QuantityError) return { ok: false, message: error.problem };

@@ -9,6 +9,7 @@ import {
   formatTime,
   formatVelocity,
   parseAngle,
+  parseNumber,
   parseDistance,
   parseMass,
   parseProperMotion,
@@ -55,10 +56,11 @@ describe("parsers", () => {
     expect(relativeError(parseDistance("2.1 ly"), values.ly_pc)).toBeLessThan(ULP4);
     expect(relativeError(parseDistance("1 au"), values.au_pc)).toBeLessThan(ULP4);
     expect(parseDistance("12", { defaultUnit: "pc" })).toBe(12);
-    // common practice: decimal comma and thousands comma as typed in many locales
+    // common practice: decimal comma and thousands commas as typed in many locales (issue 15's rules)
     expect(parseDistance("8,1 kpc")).toBe(parseDistance("8.1 kpc"));
-    expect(parseDistance("1,000 pc")).toBe(1000);
+    expect(parseDistance("1,000,000 pc")).toBe(1e6);
   });
+
 
   it("read angles, including the micro sign and typographic seconds", () => {
     // fixture from tests/fixtures/generate_physics.py, astropy units
@@ -111,6 +113,51 @@ describe("parsers", () => {
       expect(error).toBeInstanceOf(QuantityError);
       expect((error as QuantityError).quantity).toBe("velocity");
     }
+  });
+});
+
+describe("number rules (regression: 4,100,000 Msun was read as 4100 and 8,125 kpc silently as 8.125)", () => {
+  // The issue's examples (issue 15); the expected values are the numbers as written, by hand.
+  it("reads thousands commas only when every group has three digits", () => {
+    expect(parseMass("4,100,000 Msun").massSolar).toBe(4.1e6);
+    expect(parseMass("1,234,567 Msun").massSolar).toBe(1_234_567);
+    expect(parseNumber("4,100,000")).toBe(4.1e6);
+    expect(parseNumber("1,234.5")).toBe(1234.5);
+    expect(() => parseNumber("1,23,456")).toThrow("not thousands groups of three digits");
+  });
+
+  it("refuses a lone comma before three digits, offering both readings", () => {
+    expect(() => parseDistance("8,125 kpc")).toThrow("could be 8125 or 8.125");
+    expect(() => parseDistance("8,125 kpc")).toThrow("type 8125 or 8.125");
+    expect(() => parseAngle("0,125 arcsec")).toThrow("could be 125 or 0.125");
+    expect(() => parseNumber("8,125")).toThrow("could be 8125 or 8.125");
+    try {
+      parseDistance("8,125 kpc");
+    } catch (error) {
+      expect(error).toBeInstanceOf(QuantityError);
+      expect((error as QuantityError).problem).not.toMatch(/[{}()[\]]|\bundefined\b/);
+    }
+  });
+
+  it("reads any other lone comma as a decimal comma", () => {
+    expect(parseNumber("8,1")).toBe(8.1);
+    expect(parseNumber("8,12")).toBe(8.12);
+    expect(parseNumber("12345,678")).toBe(12345.678);
+    expect(parseDistance("8,1 kpc")).toBe(8100);
+  });
+
+  it("refuses a point before a comma (the European form) and more than one point", () => {
+    expect(() => parseNumber("1.234,5")).toThrow("if you mean 1234.5, type 1234.5");
+    expect(() => parseNumber("1.234.567")).toThrow("more than one point");
+  });
+
+  it("reads powers of ten in every common spelling", () => {
+    for (const text of ["4e6", "4E6", "4E+06", "4×10^6", "4 × 10^6", "4x10^6", "4 x 10**6", "4*10^6", "4·10^6", "4 × 10⁶", "4×10⁺⁶", "4,000,000"]) {
+      expect(parseNumber(text), text).toBe(4e6);
+    }
+    expect(parseNumber("2.5×10⁻³")).toBe(2.5e-3);
+    expect(parseNumber("−3")).toBe(-3);
+    expect(() => parseNumber("4×10")).toThrow("power of ten without its exponent");
   });
 });
 
