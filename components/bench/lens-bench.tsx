@@ -1,21 +1,44 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { useCallback, useMemo, useState } from "react";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
+import { readUnitChoices, withUnitChoice } from "@/lib/bench/display-units";
 import { parseSketch } from "@/lib/bench/parse-sketch";
 import { demoSketch, type Sketch } from "@/lib/bench/sketch-state";
 import { isSolarSketch, solarCautionText } from "@/lib/bench/solar-caution";
+import { isStaleSketch, STALE_PLOTS_TEXT, STALE_RESULTS_TEXT } from "@/lib/bench/stale-results";
 import { BenchPlots } from "./bench-plots";
 import { RayBundlePanel } from "./ray-bundle-panel";
-import { ResultsPanel } from "./results-panel";
+import { ResultsPanel, type UnitChoices } from "./results-panel";
 import { SaveTarget } from "./save-target";
 import { SketchForm } from "./sketch-form";
 import { useSketchUrl } from "./use-sketch-url";
 import { VerdictList } from "./verdict-list";
 
 /**
+ * While the form holds a sketch that does not parse or compute, the last good results stay for
+ * reference but dimmed, and this says plainly whose numbers they are.
+ */
+function StaleNotice() {
+  return (
+    <p role="status" data-testid="stale-note" className="rounded-md border-2 border-ember bg-void-raised p-3 text-sm font-semibold text-ember">
+      ⚠ {STALE_RESULTS_TEXT}
+    </p>
+  );
+}
+
+/** Dims stale results and keeps them out of the way of the eye and of assistive technology's focus order. */
+function StaleFrame({ isStale, children, testId }: { isStale: boolean; children: React.ReactNode; testId: string }) {
+  return (
+    <div data-testid={testId} data-stale={isStale} aria-describedby={isStale ? "bench-stale-note" : undefined} className={isStale ? "opacity-40 grayscale" : undefined}>
+      {children}
+    </div>
+  );
+}
+
+/**
  * The lens bench: the sketch form on the left, its numbers, verdicts and plots on the right, the ray
- * bundle below. A sketch that does not parse or compute keeps the last good results on screen.
+ * bundle below. A sketch that does not parse or compute keeps the last good results on screen, dimmed.
  */
 export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
   const { sketch, setSketch, setField } = useSketchUrl(initialSketch);
@@ -29,7 +52,11 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
   }
 
   const fieldErrors = parsed.ok ? {} : parsed.fieldErrors;
-  const isStale = !parsed.ok || computed?.ok === false;
+  const warnings = parsed.ok ? parsed.warnings : {};
+  const isStale = isStaleSketch(parsed, computed);
+  const unitsText = sketch.units;
+  const onUnitChange = useCallback((id: string, unit: string) => setField("units", withUnitChoice(unitsText, id, unit)), [setField, unitsText]);
+  const units: UnitChoices = useMemo(() => ({ chosen: readUnitChoices(unitsText), onChange: onUnitChange }), [unitsText, onUnitChange]);
 
   return (
     <div className="space-y-6">
@@ -54,7 +81,7 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
       ) : null}
 
       <div className="grid gap-6 lg:grid-cols-[minmax(0,5fr)_minmax(0,7fr)]">
-        <SketchForm sketch={sketch} fieldErrors={fieldErrors} onFieldChange={setField} />
+        <SketchForm sketch={sketch} fieldErrors={fieldErrors} warnings={warnings} onFieldChange={setField} />
         <div className="space-y-4">
           {computed?.ok === false ? (
             <p role="alert" className="rounded-md border border-alarm p-3 text-sm text-alarm">
@@ -62,19 +89,30 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
             </p>
           ) : null}
           {isStale && lastGood !== undefined ? (
-            <p className="text-sm text-dusk-dim" data-testid="stale-note">Showing the last sketch that computed; fix the marked field to update.</p>
+            <div id="bench-stale-note">
+              <StaleNotice />
+            </div>
           ) : null}
           {lastGood !== undefined ? (
-            <>
-              <VerdictList verdicts={lastGood.results.verdicts} />
-              <ResultsPanel results={lastGood.results} />
-            </>
+            <StaleFrame isStale={isStale} testId="bench-results">
+              <div className="space-y-4">
+                <VerdictList verdicts={lastGood.results.verdicts} />
+                <ResultsPanel results={lastGood.results} units={units} />
+              </div>
+            </StaleFrame>
           ) : null}
           <SaveTarget sketch={sketch} parsed={parsed} betaThetaE={isStale ? undefined : lastGood?.results.lensPlane.betaThetaE} />
         </div>
       </div>
 
-      {lastGood !== undefined ? <BenchPlots results={lastGood.results} /> : null}
+      {lastGood !== undefined ? (
+        <div className="space-y-2">
+          {isStale ? <p className="text-sm font-semibold text-ember">⚠ {STALE_PLOTS_TEXT}</p> : null}
+          <StaleFrame isStale={isStale} testId="bench-plots">
+            <BenchPlots results={lastGood.results} />
+          </StaleFrame>
+        </div>
+      ) : null}
       <RayBundlePanel sketch={sketch} onFieldChange={setField} />
     </div>
   );

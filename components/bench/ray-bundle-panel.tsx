@@ -3,6 +3,9 @@
 import dynamic from "next/dynamic";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
+import { withLensSurface } from "@/lib/bench/bundle-surface";
+import { formatPlain } from "@/lib/bench/display-units";
+import { hasPhotonSphere, lensRadiusInMassUnits } from "@/lib/bench/lens-surface";
 import { parseBundle } from "@/lib/bench/parse-sketch";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
@@ -28,10 +31,10 @@ interface RayBundlePanelProps {
   onFieldChange: FieldChange;
 }
 
-function FateLegend({ bundle }: { bundle?: AssembledBundle }) {
+function FateLegend({ bundle, hasSurface }: { bundle?: AssembledBundle; hasSurface: boolean }) {
   return (
     <ul aria-label="Rays by fate" className="flex flex-wrap gap-x-6 gap-y-1 text-sm">
-      {RAY_FATES.map((fate) => {
+      {RAY_FATES.filter((fate) => hasSurface || fate !== "surface").map((fate) => {
         const style = fateStyles[fate];
         return (
           <li key={fate} className="flex items-center gap-2">
@@ -58,7 +61,11 @@ function FateLegend({ bundle }: { bundle?: AssembledBundle }) {
 export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
   const parsed = useMemo(() => parseBundle(sketch), [sketch]);
   const fieldErrors = parsed.ok ? {} : parsed.fieldErrors;
-  const { bundle, isTracing, progress, error, trace, cancel } = useRayTrace();
+  const { bundle: tracedBundle, isTracing, progress, error, trace, cancel } = useRayTrace();
+  // A lens larger than its photon sphere ends the rays that reach its surface (R in units of M).
+  const radiusOverM = useMemo(() => lensRadiusInMassUnits(sketch), [sketch]);
+  const hasSurface = radiusOverM > 0 && !hasPhotonSphere(radiusOverM, 1);
+  const bundle = useMemo(() => (tracedBundle !== undefined && hasSurface ? withLensSurface(tracedBundle, radiusOverM) : tracedBundle), [tracedBundle, hasSurface, radiusOverM]);
   const viewRef = useRef<RayBundleView | undefined>(undefined);
   const [drawnBundle, setDrawnBundle] = useState<AssembledBundle | undefined>(undefined);
   const [pngScale, setPngScale] = useState<PngScale>(2);
@@ -124,9 +131,9 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
         b_c = 3√3 M ≈ 5.196 M are captured. Drag to turn the view, scroll to zoom.
       </p>
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
-        {text("rays", "Number of rays", "1 to 5000")}
-        {text("bmin", "Smallest impact parameter b (M)", "a plain number, e.g. 0.5")}
-        {text("bmax", "Largest impact parameter b (M)", "a plain number, up to 100")}
+        {text("rays", "1 to 5000")}
+        {text("bmin", "a plain number, e.g. 0.5")}
+        {text("bmax", "a plain number, up to 100")}
         <ChoiceField
           legend="Bundle shape"
           value={sketch.layout}
@@ -181,11 +188,19 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
           Tracing failed: {error}
         </p>
       ) : null}
-      <FateLegend bundle={bundle} />
+      {hasSurface ? (
+        <p className="text-sm text-ember" data-testid="ray-bundle-surface-note">
+          This lens has a surface at R = {formatPlain(radiusOverM, 3)} M, outside its photon sphere (3 M): rays with b below R end on it, and it has no
+          photon sphere, horizon or shadow.
+          {radiusOverM >= (bundle?.startRadiusM ?? INITIAL_START_RADIUS_M) ? " The whole traced region lies inside the body, so every ray here ends on its surface." : ""}
+        </p>
+      ) : null}
+      <FateLegend bundle={bundle} hasSurface={hasSurface} />
       <div className="h-[480px] overflow-hidden rounded border border-void-edge">
         <RayBundleCanvas
           bundle={bundle}
           startRadiusM={INITIAL_START_RADIUS_M}
+          surfaceRadiusM={hasSurface ? radiusOverM : 0}
           onViewReady={onViewReady}
           onBundleDrawn={onBundleDrawn}
         />

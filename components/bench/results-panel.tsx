@@ -1,20 +1,27 @@
 "use client";
 
-import { useState } from "react";
 import type { BenchResults, DeflectionRow, ResultRow } from "@/lib/bench/compute-results";
 import { WEAK_FIELD_TOLERANCE } from "@/lib/bench/compute-results";
-import { formatInUnit, formatPlain, naturalAngleUnit, unitChoices, unitLabel } from "@/lib/bench/display-units";
+import { AUTO_UNIT, displayUnit, formatInUnit, formatPlain, unitChoices, unitLabel } from "@/lib/bench/display-units";
 import { CopyRowButton } from "./copy-row-button";
 
-function UnitSelect({ kind, value, onChange, label }: { kind: ResultRow["kind"]; value: string; onChange: (unit: string) => void; label: string }) {
+/** The user's unit per row id (from the link) and how to change one; AUTO_UNIT clears the choice. */
+export interface UnitChoices {
+  chosen: Record<string, string>;
+  onChange: (id: string, unit: string) => void;
+}
+
+/** A unit per row: "auto" picks a readable unit for the value (named in the option), any other wins. */
+function UnitSelect({ kind, chosen, autoUnit, onChange, label }: { kind: ResultRow["kind"]; chosen: string | undefined; autoUnit: string; onChange: (unit: string) => void; label: string }) {
   if (kind === "ratio") return null;
   return (
     <select
       aria-label={`Unit for ${label}`}
-      value={value}
+      value={chosen ?? AUTO_UNIT}
       onChange={(event) => onChange(event.target.value)}
       className="rounded border border-void-edge bg-void px-1 py-0.5 text-xs text-dusk"
     >
+      <option value={AUTO_UNIT}>auto ({unitLabel(autoUnit)})</option>
       {unitChoices[kind].map((unit) => (
         <option key={unit} value={unit}>
           {unitLabel(unit)}
@@ -24,8 +31,7 @@ function UnitSelect({ kind, value, onChange, label }: { kind: ResultRow["kind"];
   );
 }
 
-function QuantityRows({ rows }: { rows: ResultRow[] }) {
-  const [unitById, setUnitById] = useState<Record<string, string>>({});
+function QuantityRows({ rows, units }: { rows: ResultRow[]; units: UnitChoices }) {
   return (
     <table className="w-full text-sm">
       <caption className="sr-only">Lens quantities</caption>
@@ -39,19 +45,33 @@ function QuantityRows({ rows }: { rows: ResultRow[] }) {
       </thead>
       <tbody>
         {rows.map((row) => {
-          const unit = unitById[row.id] ?? row.defaultUnit;
+          const chosen = units.chosen[row.id];
+          const unit = displayUnit(row.kind, row.value, chosen);
           const valueText = formatInUnit(row.kind, row.value, unit);
-          const rowText = `${row.label} ${row.symbol} = ${valueText}`;
+          const rowText = `${row.label} ${row.symbol} = ${valueText}${row.note === undefined ? "" : ` (${row.note})`}`;
           return (
             <tr key={row.id} className="border-t border-void-edge">
               <th scope="row" className="py-1 pr-2 text-left font-normal text-dusk">
                 {row.label} <span className="text-dusk-dim">{row.symbol}</span>
               </th>
-              <td className="py-1 pr-2 font-mono text-glint" data-testid={`result-${row.id}`}>
-                {valueText}
+              <td className="py-1 pr-2">
+                <span className="font-mono text-glint" data-testid={`result-${row.id}`}>
+                  {valueText}
+                </span>
+                {row.note !== undefined ? (
+                  <span className="block text-xs text-ember" data-testid={`result-${row.id}-note`}>
+                    {row.note}
+                  </span>
+                ) : null}
               </td>
               <td className="py-1 pr-2">
-                <UnitSelect kind={row.kind} value={unit} label={row.label} onChange={(next) => setUnitById((previous) => ({ ...previous, [row.id]: next }))} />
+                <UnitSelect
+                  kind={row.kind}
+                  chosen={chosen}
+                  autoUnit={displayUnit(row.kind, row.value, undefined)}
+                  label={row.label}
+                  onChange={(next) => units.onChange(row.id, next)}
+                />
               </td>
               <td className="py-1 text-right">
                 <CopyRowButton text={rowText} label={row.label} />
@@ -64,14 +84,19 @@ function QuantityRows({ rows }: { rows: ResultRow[] }) {
   );
 }
 
-function DeflectionRows({ deflections }: { deflections: DeflectionRow[] }) {
-  const [unit, setUnit] = useState<string>(() => naturalAngleUnit(deflections[0]?.exactRad ?? 0));
+/** Unit-choice key of the deflection table (one unit for the whole table). */
+const DEFLECTION_UNITS_ID = "deflection";
+
+function DeflectionRows({ deflections, units }: { deflections: DeflectionRow[]; units: UnitChoices }) {
+  const chosen = units.chosen[DEFLECTION_UNITS_ID];
+  const autoUnit = displayUnit("angle", deflections[0]?.exactRad ?? 0, undefined);
+  const unit = displayUnit("angle", deflections[0]?.exactRad ?? 0, chosen);
   const angle = (valueRad: number) => formatInUnit("angle", valueRad, unit, 10);
   return (
     <div className="space-y-2">
       <div className="flex items-center justify-between gap-2">
         <h3 className="text-sm font-semibold text-dusk">Deflection: exact against weak field (4M/b)</h3>
-        <UnitSelect kind="angle" value={unit} label="deflection angles" onChange={setUnit} />
+        <UnitSelect kind="angle" chosen={chosen} autoUnit={autoUnit} label="deflection angles" onChange={(next) => units.onChange(DEFLECTION_UNITS_ID, next)} />
       </div>
       <table className="w-full text-sm">
         <caption className="sr-only">Exact and weak-field deflection of the rays that form the images</caption>
@@ -88,11 +113,18 @@ function DeflectionRows({ deflections }: { deflections: DeflectionRow[] }) {
         <tbody>
           {deflections.map((row) => {
             const difference = formatPlain(row.fractionalDifference, 3);
-            const flag = row.isWeakFieldOff ? ` — weak field off by more than ${WEAK_FIELD_TOLERANCE * 100}%` : "";
+            const flag = row.hitsSurface ? " — the ray ends on the lens's surface" : row.isWeakFieldOff ? ` — weak field off by more than ${WEAK_FIELD_TOLERANCE * 100}%` : "";
             const rowText = `${row.label}: b = ${formatPlain(row.bOverM)} M, α exact = ${angle(row.exactRad)}, α weak field = ${angle(row.weakFieldRad)}, fractional difference ${difference}${flag}`;
             return (
               <tr key={row.id} className="border-t border-void-edge" data-testid={row.id}>
-                <th scope="row" className="py-1 pr-2 text-left font-normal text-dusk">{row.label}</th>
+                <th scope="row" className="py-1 pr-2 text-left font-normal text-dusk">
+                  {row.label}
+                  {row.hitsSurface ? (
+                    <span className="block text-xs text-ember" data-testid={`${row.id}-hits-surface`}>
+                      hits the lens's surface (b &lt; R): no image from this ray
+                    </span>
+                  ) : null}
+                </th>
                 <td className="py-1 pr-2 font-mono text-glint">{formatPlain(row.bOverM)}</td>
                 <td className="py-1 pr-2 font-mono text-glint">{angle(row.exactRad)}</td>
                 <td className="py-1 pr-2 font-mono text-glint">{angle(row.weakFieldRad)}</td>
@@ -113,12 +145,17 @@ function DeflectionRows({ deflections }: { deflections: DeflectionRow[] }) {
 }
 
 /** The numbers of the sketch: lens quantities with per-row units, and exact against weak-field deflection. */
-export function ResultsPanel({ results }: { results: BenchResults }) {
+export function ResultsPanel({ results, units }: { results: BenchResults; units: UnitChoices }) {
   return (
     <section aria-label="Results" className="space-y-4 rounded-md border border-void-edge bg-void-raised p-4">
       <h2 className="text-base font-semibold text-dusk">Results</h2>
-      <QuantityRows rows={results.rows} />
-      {results.deflections.length > 0 ? <DeflectionRows deflections={results.deflections} /> : null}
+      <QuantityRows rows={results.rows} units={units} />
+      {results.notes.map((note) => (
+        <p key={note.id} className="text-sm text-ember" data-testid={`result-note-${note.id}`}>
+          {note.text}
+        </p>
+      ))}
+      {results.deflections.length > 0 ? <DeflectionRows deflections={results.deflections} units={units} /> : null}
     </section>
   );
 }

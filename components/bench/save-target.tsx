@@ -99,6 +99,10 @@ export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
               Targets use H0 = {DEFAULT_COSMOLOGY.H0} km/s/Mpc and Ωm = {DEFAULT_COSMOLOGY.Om0}; the saved target keeps the redshifts, so its distances follow those values.
             </p>
           )}
+          <p className="text-xs text-dusk-dim" data-testid="save-target-radius-hint">
+            A target keeps the lens&apos;s mass, distances, source offset and proper motion; it has no field for the lens radius or the
+            source radius, so those stay in this bench link only.
+          </p>
           {!isComputable && <p className="text-sm text-alarm">Fix the marked fields first: only a sketch that computes can be saved.</p>}
           <FormError message={message} />
           {saved && (

@@ -1,8 +1,9 @@
 "use client";
 
 import { useId } from "react";
-import type { FieldErrors } from "@/lib/bench/parse-sketch";
-import type { Sketch, SketchField as SketchFieldName } from "@/lib/bench/sketch-state";
+import { fieldEcho, type FieldEcho } from "@/lib/bench/field-echo";
+import type { FieldErrors, FieldWarnings } from "@/lib/bench/parse-sketch";
+import { fieldLabels, type Sketch, type SketchField as SketchFieldName } from "@/lib/bench/sketch-state";
 
 interface SketchFieldProps {
   label: string;
@@ -11,13 +12,24 @@ interface SketchFieldProps {
   /** What the field accepts, e.g. "mass: 0.5 Msun, 3e30 kg, 1.48 km (GM/c²)". */
   hint: string;
   error?: string;
+  /** A value that computes but deserves a second look. */
+  warning?: string;
+  /** The value the bench uses, echoed by the quantity parser. */
+  echo?: FieldEcho;
+  /** Test id of the echo: `echo-<field>`. */
+  echoTestId?: string;
 }
 
-/** One typed quantity with its hint, and its error right below it when the text does not parse. */
-export function SketchField({ label, value, onChange, hint, error }: SketchFieldProps) {
+/**
+ * One typed quantity with the value it is read as beside it (as the user types), its hint, and its
+ * error right below it when the text does not parse.
+ */
+export function SketchField({ label, value, onChange, hint, error, warning, echo, echoTestId }: SketchFieldProps) {
   const id = useId();
   const hintId = `${id}-hint`;
   const errorId = `${id}-error`;
+  const echoId = `${id}-echo`;
+  const shownEcho = error === undefined && echo?.echo.ok ? echo : undefined;
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-semibold text-dusk">
@@ -32,9 +44,20 @@ export function SketchField({ label, value, onChange, hint, error }: SketchField
         value={value}
         onChange={(event) => onChange(event.target.value)}
         aria-invalid={error !== undefined}
-        aria-describedby={error !== undefined ? `${errorId} ${hintId}` : hintId}
+        aria-describedby={error !== undefined ? `${errorId} ${hintId}` : shownEcho !== undefined ? `${echoId} ${hintId}` : hintId}
         className={`rounded border bg-void px-2 py-1 font-mono text-sm text-dusk ${error !== undefined ? "border-alarm" : "border-void-edge"}`}
       />
+      {shownEcho?.echo.ok ? (
+        <p id={echoId} className="font-mono text-xs text-glint" data-testid={echoTestId} aria-live="polite">
+          {shownEcho.echo.text}
+          {shownEcho.assumedUnit !== undefined ? <span className="font-sans text-dusk-dim"> (no unit typed: read in {shownEcho.assumedUnit})</span> : null}
+        </p>
+      ) : null}
+      {warning !== undefined && error === undefined ? (
+        <p className="text-sm text-ember" data-testid={echoTestId === undefined ? undefined : `${echoTestId}-warning`}>
+          ⚠ {warning}
+        </p>
+      ) : null}
       {error !== undefined ? (
         <p id={errorId} role="alert" className="text-sm text-alarm">
           {error}
@@ -79,9 +102,20 @@ export function ChoiceField<T extends string>({ legend, value, options, onChange
 
 export type FieldChange = <K extends SketchFieldName>(field: K, value: Sketch[K]) => void;
 
-/** Binds text fields to the sketch: `text("mass", "Lens mass", hint)` renders the field with its error. */
-export function sketchTextFields(sketch: Sketch, fieldErrors: FieldErrors, onFieldChange: FieldChange) {
-  return function text(field: SketchFieldName, label: string, hint: string) {
-    return <SketchField label={label} hint={hint} value={sketch[field]} error={fieldErrors[field]} onChange={(value) => onFieldChange(field, value)} />;
+/** Binds text fields to the sketch: `text("mass", hint)` renders the field with its label, echo, warning and error. */
+export function sketchTextFields(sketch: Sketch, fieldErrors: FieldErrors, onFieldChange: FieldChange, warnings: FieldWarnings = {}) {
+  return function text(field: SketchFieldName, hint: string) {
+    return (
+      <SketchField
+        label={fieldLabels[field]}
+        hint={hint}
+        value={sketch[field]}
+        error={fieldErrors[field]}
+        warning={warnings[field]}
+        echo={fieldEcho(sketch, field)}
+        echoTestId={`echo-${field}`}
+        onChange={(value) => onFieldChange(field, value)}
+      />
+    );
   };
 }

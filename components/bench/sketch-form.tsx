@@ -1,12 +1,13 @@
 "use client";
 
-import type { FieldErrors } from "@/lib/bench/parse-sketch";
+import type { FieldErrors, FieldWarnings } from "@/lib/bench/parse-sketch";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 
 interface SketchFormProps {
   sketch: Sketch;
   fieldErrors: FieldErrors;
+  warnings: FieldWarnings;
   onFieldChange: FieldChange;
 }
 
@@ -20,8 +21,8 @@ function Section({ title, children }: { title: string; children: React.ReactNode
 }
 
 /** The lens sketch: lens, geometry, source and light curve, instrument. Every field is typed text with units. */
-export function SketchForm({ sketch, fieldErrors, onFieldChange }: SketchFormProps) {
-  const text = sketchTextFields(sketch, fieldErrors, onFieldChange);
+export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: SketchFormProps) {
+  const text = sketchTextFields(sketch, fieldErrors, onFieldChange, warnings);
   return (
     <form className="space-y-4" onSubmit={(event) => event.preventDefault()} aria-label="Lens sketch">
       <Section title="Lens">
@@ -34,9 +35,14 @@ export function SketchForm({ sketch, fieldErrors, onFieldChange }: SketchFormPro
             { value: "sis", label: "Singular isothermal sphere" },
           ]}
         />
-        {sketch.lens === "point"
-          ? text("mass", "Lens mass", "e.g. 0.5 Msun, 4e6 Msun, 3e30 kg, or GM/c² as 1.48 km, GM/c³ as 4.9 us")
-          : text("sigma", "Velocity dispersion σ", "e.g. 220 km/s")}
+        {sketch.lens === "point" ? (
+          <>
+            {text("mass", "e.g. 0.5 Msun, 4,100,000 Msun, 3e30 kg, or GM/c² as 1.48 km, GM/c³ as 4.9 us; a bare number is M☉")}
+            {text("radius", "compact (a black hole), or the body's radius: 1 Rsun, 6.957e5 km, 12 km; a bare number is R☉")}
+          </>
+        ) : (
+          text("sigma", "e.g. 220 km/s; a bare number is km/s")
+        )}
       </Section>
 
       <Section title="Geometry">
@@ -51,15 +57,15 @@ export function SketchForm({ sketch, fieldErrors, onFieldChange }: SketchFormPro
         />
         {sketch.geometry === "distance" ? (
           <div className="grid grid-cols-2 gap-3">
-            {text("dl", "Lens distance D_L", "e.g. 4 kpc, 1 au")}
-            {text("ds", "Source distance D_S", "e.g. 8 kpc")}
+            {text("dl", "e.g. 4 kpc, 1 au; a bare number is kpc")}
+            {text("ds", "e.g. 8 kpc; a bare number is kpc")}
           </div>
         ) : (
           <div className="grid grid-cols-2 gap-3">
-            {text("zl", "Lens redshift z_L", "a plain number")}
-            {text("zs", "Source redshift z_S", "a plain number")}
-            {text("h0", "Hubble constant H0", "km/s/Mpc, a plain number")}
-            {text("om0", "Matter density Ωm", "a plain number, 0 to 1")}
+            {text("zl", "a plain number")}
+            {text("zs", "a plain number")}
+            {text("h0", "km/s/Mpc, a plain number")}
+            {text("om0", "a plain number, 0 to 1")}
           </div>
         )}
       </Section>
@@ -74,11 +80,12 @@ export function SketchForm({ sketch, fieldErrors, onFieldChange }: SketchFormPro
             { value: "angle", label: "as an angle" },
           ]}
         />
-        {text("beta", "Source offset β", sketch.betaUnit === "thetaE" ? "a plain number, e.g. 0.3" : "e.g. 45 uas, 0.2 mas")}
+        {text("beta", sketch.betaUnit === "thetaE" ? "a plain number, e.g. 0.3" : "e.g. 45 uas, 0.2 mas, 1 deg; a bare number is mas")}
         <div className="grid grid-cols-2 gap-3">
-          {text("mu", "Relative proper motion μ_rel", "e.g. 6 mas/yr")}
-          {text("u0", "Impact parameter at peak u0", "units of θ_E, e.g. 0.2")}
-          {text("t0", "Peak time t0", "from the campaign start, e.g. 45 d")}
+          {text("mu", "e.g. 6 mas/yr, 6 mas yr-1; a bare number is mas/yr")}
+          {text("u0", "units of θ_E, e.g. 0.2")}
+          {text("t0", "from the campaign start, e.g. 45 d; a bare number is days")}
+          {sketch.lens === "point" ? text("rstar", "caps the peak magnification (uniform disk); e.g. 1 Rsun, 10 Rsun; a bare number is R☉") : null}
         </div>
       </Section>
 
@@ -93,16 +100,16 @@ export function SketchForm({ sketch, fieldErrors, onFieldChange }: SketchFormPro
           ]}
         />
         {sketch.resolution === "fwhm" ? (
-          text("fwhm", "PSF FWHM", "e.g. 50 mas, 0.8 arcsec")
+          text("fwhm", "e.g. 50 mas, 0.8 arcsec; a bare number is mas")
         ) : (
           <div className="grid grid-cols-2 gap-3">
-            {text("lambda", "Wavelength λ", "e.g. 2.2 um, 1.3 mm")}
-            {text("baseline", "Longest baseline B", "e.g. 130 m, 10000 km")}
+            {text("lambda", "e.g. 2.2 um, 1.3 mm, 230 GHz; a bare number is µm")}
+            {text("baseline", "e.g. 130 m, 10,000 km; a bare number is metres")}
           </div>
         )}
         <div className="grid grid-cols-2 gap-3">
-          {text("cadence", "Cadence", "time between epochs, e.g. 1 d, 6 h")}
-          {text("campaign", "Campaign length", "e.g. 90 d, 2 yr")}
+          {text("cadence", "time between epochs, e.g. 1 d, 6 h; a bare number is days")}
+          {text("campaign", "e.g. 90 d, 2 yr; a bare number is days")}
         </div>
       </Section>
     </form>

@@ -10,4 +10,6 @@ export const fateStyles: Record<RayFate, { label: string; color: string; opacity
   escaped: { label: "Escaped", color: "#56B4E9", opacity: 0.3 },
   captured: { label: "Captured (crosses the horizon)", color: "#D55E00", opacity: 0.6, dashM: 0.8, gapM: 0.5, legendDash: "8 5" },
   winding: { label: "Winding (circles the photon sphere)", color: "#F0E442", opacity: 1, dashM: 0.12, gapM: 0.25, legendDash: "2 4" },
+  // Only a lens with a radius has this fate; long dashes with short gaps keep it apart from "captured".
+  surface: { label: "Hit the lens's surface (b < R)", color: "#009E73", opacity: 0.8, dashM: 1.6, gapM: 0.3, legendDash: "14 3" },
 };

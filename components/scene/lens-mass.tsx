@@ -1,7 +1,19 @@
 "use client";
 
-/** The mass at the centre, in units of M: the horizon r = 2M (opaque) inside the photon sphere r = 3M (wire). */
-export function LensMass() {
+/**
+ * The mass at the centre, in units of M: for a compact lens the horizon r = 2M (opaque) inside the
+ * photon sphere r = 3M (wire); for a body larger than its photon sphere, only the body (neither exists
+ * outside it).
+ */
+export function LensMass({ surfaceRadiusM }: { surfaceRadiusM: number }) {
+  if (surfaceRadiusM > 0) {
+    return (
+      <mesh>
+        <sphereGeometry args={[surfaceRadiusM, 48, 24]} />
+        <meshBasicMaterial color="#3a3a3a" />
+      </mesh>
+    );
+  }
   return (
     <group>
       <mesh>

@@ -20,6 +20,8 @@ export interface RayBundleCanvasProps {
   bundle?: AssembledBundle;
   /** Radius the rays start from (units of M), which frames the view before any bundle exists. */
   startRadiusM: number;
+  /** Radius of the lens's body (units of M) when it lies outside the photon sphere; 0 for a compact lens. */
+  surfaceRadiusM: number;
   onViewReady: (view: RayBundleView) => void;
   /** Called once the first frame showing the whole of `bundle` has been rendered. */
   onBundleDrawn: (bundle: AssembledBundle) => void;
@@ -32,7 +34,7 @@ function cameraDistance(startRadiusM: number): number {
 }
 
 /** The 3D ray-bundle view (client only: loaded with next/dynamic and ssr: false). */
-export default function RayBundleCanvas({ bundle, startRadiusM, onViewReady, onBundleDrawn }: RayBundleCanvasProps) {
+export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, onViewReady, onBundleDrawn }: RayBundleCanvasProps) {
   const distance = cameraDistance(bundle?.startRadiusM ?? startRadiusM);
   const drawRemaining = useRef<() => void>(() => {});
   const onDrawRemaining = useCallback((draw: () => void) => {
@@ -66,7 +68,7 @@ export default function RayBundleCanvas({ bundle, startRadiusM, onViewReady, onB
       data-testid="ray-bundle-canvas"
     >
       <color attach="background" args={["#05070c"]} />
-      <LensMass />
+      <LensMass surfaceRadiusM={surfaceRadiusM} />
       {bundle !== undefined ? <ProgressiveBundle bundle={bundle} onBundleDrawn={onBundleDrawn} onDrawRemaining={onDrawRemaining} /> : null}
       <OrbitControls makeDefault enableDamping={false} />
     </Canvas>

@@ -8,8 +8,11 @@
 
 import { keptSamples } from "./polyline-decimation";
 
-/** Fates as lib/physics codes them in `traceRayBundle`: 0 escaped, 1 captured, 2 winding. */
-export const RAY_FATES = ["escaped", "captured", "winding"] as const;
+/**
+ * Fates as lib/physics codes them in `traceRayBundle`: 0 escaped, 1 captured, 2 winding; and 3, given
+ * here (bundle-surface), for a ray that ends on the surface of a lens with a radius.
+ */
+export const RAY_FATES = ["escaped", "captured", "winding", "surface"] as const;
 export type RayFate = (typeof RAY_FATES)[number];
 
 /** One traced slice of the bundle, rays [firstRay, firstRay + rayCount), as a worker returns it. */
@@ -34,8 +37,12 @@ export interface AssembledBundle {
   rayCount: number;
   vertices: Float32Array;
   lineDistances: Float32Array;
-  /** Pairs of vertex indices, escaped rays first, then captured, then winding. */
+  /** Pairs of vertex indices, escaped rays first, then captured, then winding, then surface. */
   segmentIndex: Uint32Array;
+  /** Ray r's points are vertices [rayFirstPoint[r], rayFirstPoint[r + 1]). */
+  rayFirstPoint: Uint32Array;
+  /** Each ray's fate code (index into RAY_FATES). */
+  rayFates: Uint8Array;
   /** Ranges of `segmentIndex` per fate (in index entries), in RAY_FATES order. */
   fateGroups: { start: number; count: number; fate: RayFate }[];
   fateCounts: Record<RayFate, number>;
@@ -75,10 +82,31 @@ export function assembleBundle(chunks: TracedChunk[], rayCount: number, planes: 
   }
   rayFirstPoint[rayCount] = point;
 
-  const fateCounts: Record<RayFate, number> = { escaped: 0, captured: 0, winding: 0 };
-  for (let ray = 0; ray < rayCount; ray++) fateCounts[RAY_FATES[fates[ray]]] += 1;
+  const grouped = groupSegmentsByFate(rayFirstPoint, fates, rayCount);
+  return {
+    rayCount,
+    vertices,
+    lineDistances,
+    ...grouped,
+    rayFirstPoint,
+    rayFates: fates,
+    wavefrontVertices: wavefrontSegments(wavefronts, rayCount, planes, wavefrontCount, startRadiusM * MAX_FRONT_GAP_OF_START_RADIUS),
+    startRadiusM,
+  };
+}
 
-  const segmentIndex = new Uint32Array(2 * Math.max(0, pointTotal - rayCount));
+/**
+ * The segment index of a bundle ordered by fate, each fate's rays in SPREAD_PASSES interleaved passes,
+ * with each fate's range and ray count. A ray of one point (or none) has no segment.
+ */
+export function groupSegmentsByFate(rayFirstPoint: Uint32Array, fates: Uint8Array, rayCount: number): Pick<AssembledBundle, "segmentIndex" | "fateGroups" | "fateCounts"> {
+  const fateCounts = Object.fromEntries(RAY_FATES.map((fate) => [fate, 0])) as Record<RayFate, number>;
+  let segmentTotal = 0;
+  for (let ray = 0; ray < rayCount; ray++) {
+    fateCounts[RAY_FATES[fates[ray]]] += 1;
+    segmentTotal += Math.max(0, rayFirstPoint[ray + 1] - rayFirstPoint[ray] - 1);
+  }
+  const segmentIndex = new Uint32Array(2 * segmentTotal);
   const fateGroups: AssembledBundle["fateGroups"] = [];
   let cursor = 0;
   for (let code = 0; code < RAY_FATES.length; code++) {
@@ -96,17 +124,7 @@ export function assembleBundle(chunks: TracedChunk[], rayCount: number, planes: 
     }
     fateGroups.push({ start, count: cursor - start, fate: RAY_FATES[code] });
   }
-
-  return {
-    rayCount,
-    vertices,
-    lineDistances,
-    segmentIndex,
-    fateGroups,
-    fateCounts,
-    wavefrontVertices: wavefrontSegments(wavefronts, rayCount, planes, wavefrontCount, startRadiusM * MAX_FRONT_GAP_OF_START_RADIUS),
-    startRadiusM,
-  };
+  return { segmentIndex, fateGroups, fateCounts };
 }
 
 /**

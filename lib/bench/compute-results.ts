@@ -20,18 +20,22 @@ import {
   virbhadraEllisImages,
   weakFieldDeflection,
 } from "@/lib/physics";
-import type { DisplayKind } from "./display-units";
+import { sourceRadiusInThetaE } from "@/lib/physics/finite-source";
+import { formatPlain, type DisplayKind } from "./display-units";
+import { eventMagnification } from "./event-magnification";
+import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
 import type { SketchInputs } from "./parse-sketch";
-import { resolutionVerdict, samplingVerdict, singleImageVerdict, timeDelayVerdict, type Verdict } from "./verdicts";
+import { occultedImageVerdict, resolutionVerdict, samplingVerdict, singleImageVerdict, timeDelayVerdict, type Verdict } from "./verdicts";
 
 export interface ResultRow {
   id: string;
   label: string;
   symbol: string;
   kind: DisplayKind;
-  /** Radians, seconds, metres, or a plain number, by `kind`. */
+  /** Radians, seconds, metres, or a plain number, by `kind`; NaN (shown as "—") when `note` says why there is none. */
   value: number;
-  defaultUnit: string;
+  /** What qualifies the value: "hidden behind the lens", "limited by the source's size". */
+  note?: string;
 }
 
 /** The weak-field formula is flagged where it is off from the exact deflection by more than this. */
@@ -47,6 +51,8 @@ export interface DeflectionRow {
   /** (weak − exact) / exact. */
   fractionalDifference: number;
   isWeakFieldOff: boolean;
+  /** The ray comes closer than the lens's radius: it ends on the surface, so no image forms from it. */
+  hitsSurface: boolean;
 }
 
 /** Positions in units of θ_E, for the lens-plane diagram. */
@@ -63,6 +69,8 @@ export interface BenchResults {
   lensPlane: LensPlaneLayout;
   /** The microlensing event for the light-curve and astrometric plots; point lens only. */
   event?: MicrolensingEvent;
+  /** Statements about the whole sketch (a lens with no photon sphere), shown under the rows. */
+  notes: { id: string; text: string }[];
 }
 
 export interface MicrolensingEvent {
@@ -72,83 +80,142 @@ export interface MicrolensingEvent {
   u0ThetaE: number;
   cadenceS: number;
   campaignS: number;
+  /** The source's radius in θ_E (ρ), for the finite-source cap. */
+  sourceRadiusThetaE: number;
+  /** Images closer to the lens than this (θ_E) are behind its body; 0 for a compact lens. */
+  occultingRadiusThetaE: number;
 }
 
-function deflectionRow(id: string, label: string, bOverM: number): DeflectionRow {
+function deflectionRow(id: string, label: string, bOverM: number, surfaceBOverM = 0): DeflectionRow {
   const exactRad = exactDeflection(bOverM, 1);
   const weakFieldRad = weakFieldDeflection(bOverM, 1, 1);
   const fractionalDifference = (weakFieldRad - exactRad) / exactRad;
-  return { id, label, bOverM, exactRad, weakFieldRad, fractionalDifference, isWeakFieldOff: Math.abs(fractionalDifference) > WEAK_FIELD_TOLERANCE };
+  return {
+    id,
+    label,
+    bOverM,
+    exactRad,
+    weakFieldRad,
+    fractionalDifference,
+    isWeakFieldOff: Math.abs(fractionalDifference) > WEAK_FIELD_TOLERANCE,
+    hitsSurface: bOverM < surfaceBOverM,
+  };
 }
+
+const HIDDEN_NOTE = "behind the lens: its ray passes closer than the lens's radius";
 
 function betaInThetaE(inputs: SketchInputs, thetaERad: number): number {
   return inputs.sourceOffset.unit === "thetaE" ? inputs.sourceOffset.betaThetaE : inputs.sourceOffset.betaRad / thetaERad;
 }
 
-/** Results for a compact (point-mass) lens. */
-function pointLensResults(inputs: SketchInputs, massSolar: number): BenchResults {
+/** Results for a point-mass lens: compact (a black hole) or a body of radius R that may hide an image. */
+function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: number): BenchResults {
   const { dLensPc, dSourcePc, dLensSourcePc, zLens } = inputs.geometry;
   const thetaERad = einsteinRadius(massSolar, dLensPc, dSourcePc, dLensSourcePc);
   const u = betaInThetaE(inputs, thetaERad);
   const images = pointLensImages(u);
-  const separationRad = (images.thetaPlus - images.thetaMinus) * thetaERad;
-  const timeDelayS = pointMassTimeDelay(massSolar, zLens, u);
-  const einsteinTimeS = einsteinCrossingTime(thetaERad, inputs.lightCurve.muRelRadPerS);
   const massLengthM = massSolar * SOLAR_MASS_LENGTH_M;
   const lensDistanceM = dLensPc * PARSEC_M;
   // b = D_L sin θ for the ray that reaches the observer at angle θ from the lens.
-  const impactOverM = (thetaRad: number) => (Math.abs(Math.sin(thetaRad)) * lensDistanceM) / massLengthM;
-  const exact = virbhadraEllisImages(u * thetaERad, massSolar, dLensPc, dSourcePc, dLensSourcePc);
+  const impactM = (thetaRad: number) => Math.abs(Math.sin(thetaRad)) * lensDistanceM;
+  const surfaceImpactM = surfaceImpactParameterM(radiusM, massLengthM);
+  const isCompact = hasPhotonSphere(radiusM, massLengthM);
+  const isPlusHidden = impactM(images.thetaPlus * thetaERad) < surfaceImpactM;
+  const isMinusHidden = impactM(images.thetaMinus * thetaERad) < surfaceImpactM;
+  const isPair = !isPlusHidden && !isMinusHidden;
+  const hiddenNote = (isHidden: boolean) => (isHidden ? { note: HIDDEN_NOTE } : {});
+
+  const separationRad = (images.thetaPlus - images.thetaMinus) * thetaERad;
+  const timeDelayS = pointMassTimeDelay(massSolar, zLens, u);
+  const einsteinTimeS = einsteinCrossingTime(thetaERad, inputs.lightCurve.muRelRadPerS);
+  const sourceRadiusThetaE = sourceRadiusInThetaE(inputs.lightCurve.sourceRadiusM, dSourcePc, thetaERad);
+  const { instrument, lightCurve } = inputs;
+  const event: MicrolensingEvent = {
+    thetaERad,
+    einsteinTimeS,
+    peakTimeS: lightCurve.peakTimeS,
+    u0ThetaE: lightCurve.u0ThetaE,
+    cadenceS: instrument.cadenceS,
+    campaignS: instrument.campaignS,
+    sourceRadiusThetaE,
+    occultingRadiusThetaE: surfaceImpactM / (lensDistanceM * thetaERad),
+  };
+  const peak = eventMagnification(lightCurve.u0ThetaE, event);
+
+  // What an observer sees: only the images not behind the body count in the total and the centroid.
+  const visibleMagnification = (isPlusHidden ? 0 : images.magnificationPlus) + (isMinusHidden ? 0 : Math.abs(images.magnificationMinus));
+  const visibleCentroidShift = isPair ? images.centroidShift : isPlusHidden === isMinusHidden ? Number.NaN : Math.abs((isPlusHidden ? images.thetaMinus : images.thetaPlus) - u);
+  const noPair = { note: isPlusHidden && isMinusHidden ? "both images are behind the lens" : "one image is behind the lens, so there is no pair" };
 
   const rows: ResultRow[] = [
-    { id: "theta-e", label: "Einstein radius", symbol: "θ_E", kind: "angle", value: thetaERad, defaultUnit: "mas" },
-    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: u * thetaERad, defaultUnit: "mas" },
-    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: images.thetaPlus * thetaERad, defaultUnit: "mas" },
-    { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: images.thetaMinus * thetaERad, defaultUnit: "mas" },
-    { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: separationRad, defaultUnit: "mas" },
-    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: images.magnificationPlus, defaultUnit: "" },
-    { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: images.magnificationMinus, defaultUnit: "" },
-    { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: images.magnificationTotal, defaultUnit: "" },
-    { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: Math.abs(images.magnificationPlus / images.magnificationMinus), defaultUnit: "" },
-    { id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: timeDelayS, defaultUnit: "s" },
-    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS, defaultUnit: "d" },
-    { id: "centroid-shift", label: "Astrometric centroid shift", symbol: "δθ", kind: "angle", value: images.centroidShift * thetaERad, defaultUnit: "uas" },
-    { id: "r-s", label: "Schwarzschild radius", symbol: "R_S", kind: "length", value: 2 * massLengthM, defaultUnit: "km" },
-    { id: "r-ph", label: "Photon-sphere radius", symbol: "r_ph", kind: "length", value: photonSphereRadius(massLengthM), defaultUnit: "km" },
-    { id: "shadow", label: "Shadow angular diameter", symbol: "θ_sh", kind: "angle", value: shadowAngularDiameter(massSolar, dLensPc), defaultUnit: "uas" },
-    { id: "photon-ring", label: "Photon ring radius (exact lens equation)", symbol: "θ_∞", kind: "angle", value: exact.thetaInfinityRad, defaultUnit: "uas" },
-    { id: "rel-plus", label: "Relativistic image, source side", symbol: "θ₁₊", kind: "angle", value: exact.relativisticPrimary.thetaRad, defaultUnit: "uas" },
-    { id: "rel-plus-mu", label: "Relativistic image magnification, source side", symbol: "μ₁₊", kind: "ratio", value: exact.relativisticPrimary.magnification, defaultUnit: "" },
-    { id: "rel-minus", label: "Relativistic image, far side", symbol: "θ₁₋", kind: "angle", value: exact.relativisticSecondary.thetaRad, defaultUnit: "uas" },
-    { id: "rel-minus-mu", label: "Relativistic image magnification, far side", symbol: "μ₁₋", kind: "ratio", value: exact.relativisticSecondary.magnification, defaultUnit: "" },
+    { id: "theta-e", label: "Einstein radius", symbol: "θ_E", kind: "angle", value: thetaERad },
+    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: u * thetaERad },
+    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: images.thetaPlus * thetaERad, ...hiddenNote(isPlusHidden) },
+    { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: images.thetaMinus * thetaERad, ...hiddenNote(isMinusHidden) },
+    { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: isPair ? separationRad : Number.NaN, ...(isPair ? {} : noPair) },
+    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: images.magnificationPlus, ...hiddenNote(isPlusHidden) },
+    { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: images.magnificationMinus, ...hiddenNote(isMinusHidden) },
+    {
+      id: "mu-total",
+      label: isPair ? "Total magnification" : "Total magnification of the images seen",
+      symbol: "μ",
+      kind: "ratio",
+      value: visibleMagnification,
+      ...(isPair ? {} : { note: "images behind the lens are not counted" }),
+    },
+    { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: isPair ? Math.abs(images.magnificationPlus / images.magnificationMinus) : Number.NaN, ...(isPair ? {} : noPair) },
+    { id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: isPair ? timeDelayS : Number.NaN, ...(isPair ? {} : noPair) },
+    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS },
+    {
+      id: "peak",
+      label: "Peak magnification of the event",
+      symbol: "A(u0)",
+      kind: "ratio",
+      value: peak.magnification,
+      ...(peak.isCapped ? { note: `limited by the source's size (uniform disk, ρ = ${formatPlain(sourceRadiusThetaE, 3)} θ_E; approximate)` } : {}),
+    },
+    { id: "rho", label: "Source radius in Einstein radii", symbol: "ρ", kind: "ratio", value: sourceRadiusThetaE },
+    { id: "centroid-shift", label: isPair ? "Astrometric centroid shift" : "Shift of the image seen from the source", symbol: "δθ", kind: "angle", value: visibleCentroidShift * thetaERad },
+    { id: "r-s", label: "Schwarzschild radius", symbol: "R_S", kind: "length", value: 2 * massLengthM },
   ];
+  if (radiusM > 0) rows.push({ id: "lens-angular-radius", label: "Angular radius of the lens's body", symbol: "θ_R", kind: "angle", value: radiusM / lensDistanceM });
 
   const deflections = [
-    deflectionRow("deflection-plus", "Ray to the outer image", impactOverM(images.thetaPlus * thetaERad)),
-    deflectionRow("deflection-minus", "Ray to the inner image", impactOverM(images.thetaMinus * thetaERad)),
-    deflectionRow("deflection-ring", "Ray at the Einstein radius", impactOverM(thetaERad)),
-    deflectionRow("deflection-rel-plus", "Ray to the relativistic image", impactOverM(exact.relativisticPrimary.thetaRad)),
+    deflectionRow("deflection-plus", "Ray to the outer image", impactM(images.thetaPlus * thetaERad) / massLengthM, surfaceImpactM / massLengthM),
+    deflectionRow("deflection-minus", "Ray to the inner image", impactM(images.thetaMinus * thetaERad) / massLengthM, surfaceImpactM / massLengthM),
+    deflectionRow("deflection-ring", "Ray at the Einstein radius", impactM(thetaERad) / massLengthM, surfaceImpactM / massLengthM),
   ];
+  const notes: BenchResults["notes"] = [];
+  if (isCompact) {
+    const exact = virbhadraEllisImages(u * thetaERad, massSolar, dLensPc, dSourcePc, dLensSourcePc);
+    rows.push(
+      { id: "r-ph", label: "Photon-sphere radius", symbol: "r_ph", kind: "length", value: photonSphereRadius(massLengthM) },
+      { id: "shadow", label: "Shadow angular diameter", symbol: "θ_sh", kind: "angle", value: shadowAngularDiameter(massSolar, dLensPc) },
+      { id: "photon-ring", label: "Photon ring radius (exact lens equation)", symbol: "θ_∞", kind: "angle", value: exact.thetaInfinityRad },
+      { id: "rel-plus", label: "Relativistic image, source side", symbol: "θ₁₊", kind: "angle", value: exact.relativisticPrimary.thetaRad },
+      { id: "rel-plus-mu", label: "Relativistic image magnification, source side", symbol: "μ₁₊", kind: "ratio", value: exact.relativisticPrimary.magnification },
+      { id: "rel-minus", label: "Relativistic image, far side", symbol: "θ₁₋", kind: "angle", value: exact.relativisticSecondary.thetaRad },
+      { id: "rel-minus-mu", label: "Relativistic image magnification, far side", symbol: "μ₁₋", kind: "ratio", value: exact.relativisticSecondary.magnification },
+    );
+    deflections.push(deflectionRow("deflection-rel-plus", "Ray to the relativistic image", impactM(exact.relativisticPrimary.thetaRad) / massLengthM));
+  } else {
+    notes.push({
+      id: "no-photon-sphere",
+      text: "The lens's body is larger than its photon sphere (R ≥ 3GM/c²): it has no photon sphere, no shadow and no relativistic images.",
+    });
+    deflections.push(deflectionRow("deflection-limb", "Ray grazing the lens's surface", surfaceImpactM / massLengthM));
+  }
 
-  const { instrument, lightCurve } = inputs;
-  return {
-    rows,
-    deflections,
-    verdicts: [
-      resolutionVerdict(separationRad, instrument.resolutionRad, instrument.resolutionName),
-      samplingVerdict(einsteinTimeS, instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS),
-      timeDelayVerdict(timeDelayS, instrument.cadenceS, instrument.campaignS),
-    ],
-    lensPlane: {
-      thetaERad,
-      betaThetaE: u,
-      images: [
-        { thetaThetaE: images.thetaPlus, magnification: images.magnificationPlus },
-        { thetaThetaE: images.thetaMinus, magnification: images.magnificationMinus },
-      ],
-    },
-    event: { thetaERad, einsteinTimeS, peakTimeS: lightCurve.peakTimeS, u0ThetaE: lightCurve.u0ThetaE, cadenceS: instrument.cadenceS, campaignS: instrument.campaignS },
-  };
+  const verdicts: Verdict[] = isPair
+    ? [resolutionVerdict(separationRad, instrument.resolutionRad, instrument.resolutionName)]
+    : [occultedImageVerdict(isPlusHidden && isMinusHidden)];
+  verdicts.push(samplingVerdict(einsteinTimeS, instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS));
+  if (isPair) verdicts.push(timeDelayVerdict(timeDelayS, instrument.cadenceS, instrument.campaignS));
+
+  const lensPlaneImages = [];
+  if (!isPlusHidden) lensPlaneImages.push({ thetaThetaE: images.thetaPlus, magnification: images.magnificationPlus });
+  if (!isMinusHidden) lensPlaneImages.push({ thetaThetaE: images.thetaMinus, magnification: images.magnificationMinus });
+  return { rows, deflections, verdicts, lensPlane: { thetaERad, betaThetaE: u, images: lensPlaneImages }, event, notes };
 }
 
 /** Results for a singular isothermal sphere: no Schwarzschild rows, one image when β ≥ θ_E. */
@@ -160,12 +227,12 @@ function sisResults(inputs: SketchInputs, sigmaKmPerS: number): BenchResults {
   const einsteinTimeS = einsteinCrossingTime(thetaERad, inputs.lightCurve.muRelRadPerS);
   const isPair = images.imageCount === 2;
   const rows: ResultRow[] = [
-    { id: "theta-e", label: "Einstein radius", symbol: "θ_E", kind: "angle", value: thetaERad, defaultUnit: "arcsec" },
-    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: betaRad, defaultUnit: "arcsec" },
-    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: images.thetaPlus, defaultUnit: "arcsec" },
-    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: images.magnificationPlus, defaultUnit: "" },
-    { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: images.magnificationTotal, defaultUnit: "" },
-    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS, defaultUnit: "yr" },
+    { id: "theta-e", label: "Einstein radius", symbol: "θ_E", kind: "angle", value: thetaERad },
+    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: betaRad },
+    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: images.thetaPlus },
+    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: images.magnificationPlus },
+    { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: images.magnificationTotal },
+    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS },
   ];
   const { instrument, lightCurve } = inputs;
   const verdicts: Verdict[] = [];
@@ -175,16 +242,16 @@ function sisResults(inputs: SketchInputs, sigmaKmPerS: number): BenchResults {
     rows.splice(
       3,
       0,
-      { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: images.thetaMinus, defaultUnit: "arcsec" },
-      { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: separationRad, defaultUnit: "arcsec" },
+      { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: images.thetaMinus },
+      { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: separationRad },
     );
     rows.splice(
       6,
       0,
-      { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: images.magnificationMinus, defaultUnit: "" },
-      { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: Math.abs(images.magnificationPlus / images.magnificationMinus), defaultUnit: "" },
+      { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: images.magnificationMinus },
+      { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: Math.abs(images.magnificationPlus / images.magnificationMinus) },
     );
-    rows.push({ id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: timeDelayS, defaultUnit: "d" });
+    rows.push({ id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: timeDelayS });
     verdicts.push(resolutionVerdict(separationRad, instrument.resolutionRad, instrument.resolutionName));
     verdicts.push(timeDelayVerdict(timeDelayS, instrument.cadenceS, instrument.campaignS));
   } else {
@@ -198,6 +265,7 @@ function sisResults(inputs: SketchInputs, sigmaKmPerS: number): BenchResults {
     deflections: [],
     verdicts,
     lensPlane: { thetaERad, betaThetaE: betaRad / thetaERad, images: lensPlaneImages },
+    notes: [],
   };
 }
 
@@ -209,9 +277,11 @@ export type ComputedSketch = { ok: true; results: BenchResults } | { ok: false; 
  */
 export function computeResults(inputs: SketchInputs): ComputedSketch {
   try {
-    const results = inputs.lens.model === "point" ? pointLensResults(inputs, inputs.lens.massSolar) : sisResults(inputs, inputs.lens.sigmaKmPerS);
+    const results = inputs.lens.model === "point" ? pointLensResults(inputs, inputs.lens.massSolar, inputs.lens.radiusM) : sisResults(inputs, inputs.lens.sigmaKmPerS);
     return { ok: true, results };
-  } catch (error) {
-    return { ok: false, message: error instanceof Error ? error.message : String(error) };
+  } catch {
+    // The accepted ranges are meant to keep every sketch computable; the physics' own message names
+    // its arguments, which mean nothing to the user, so it is not shown.
+    return { ok: false, message: "These values lie outside what the bench can compute; bring the lens, distances or source offset nearer the examples." };
   }
 }

@@ -11,15 +11,20 @@ import {
   PARSEC_M,
   parseAngle,
   parseDistance,
+  parseLength,
   parseMass,
+  parseNumber,
   parseProperMotion,
   parseTime,
   parseVelocity,
+  parseWavelength,
+  QuantityError,
   sisEinsteinRadius,
+  SOLAR_MASS_LENGTH_M,
 } from "@/lib/physics";
 import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
-import type { Sketch, SketchField } from "./sketch-state";
+import { fieldLabels, type Sketch, type SketchField } from "./sketch-state";
 
 /** Most rays the bench traces at once (issue 4: "count up to 5,000"). */
 export const MAX_RAY_COUNT = 5000;
@@ -31,7 +36,12 @@ export type FieldErrors = Partial<Record<SketchField, string>>;
 
 /** The lens, as the results need it. */
 export type LensInputs =
-  | { model: "point"; massSolar: number }
+  | {
+      model: "point";
+      massSolar: number;
+      /** The body's radius, metres; 0 for a compact object (inside its photon sphere, r < 3M). */
+      radiusM: number;
+    }
   | { model: "sis"; sigmaKmPerS: number };
 
 /** Distances in parsecs; `zLens` is 0 for a Galactic (distance-only) sketch. */
@@ -60,6 +70,8 @@ export interface LightCurveInputs {
   peakTimeS: number;
   /** Impact parameter at peak, units of θ_E. */
   u0ThetaE: number;
+  /** The source's radius, metres (finite-source cap on the peak). */
+  sourceRadiusM: number;
 }
 
 export interface BundleInputs {
@@ -78,7 +90,10 @@ export interface SketchInputs {
   bundle: BundleInputs;
 }
 
-export type ParsedSketch = { ok: true; inputs: SketchInputs } | { ok: false; fieldErrors: FieldErrors };
+/** Values that parse and compute but deserve a second look, shown beside their field. */
+export type FieldWarnings = Partial<Record<SketchField, string>>;
+
+export type ParsedSketch = { ok: true; inputs: SketchInputs; warnings: FieldWarnings } | { ok: false; fieldErrors: FieldErrors };
 
 /** Collects field errors while reading values; `read` returns NaN for a failed field so parsing goes on. */
 class FieldReader {
@@ -96,17 +111,45 @@ class FieldReader {
       }
       return value;
     } catch (error) {
-      this.errors[field] = error instanceof Error ? error.message : String(error);
+      // The parser's problem is in the user's words; the field's label says which field it is.
+      this.errors[field] = error instanceof QuantityError ? `${fieldLabels[field]}: '${error.input}' ${error.problem}` : `${fieldLabels[field]} cannot be read`;
       return Number.NaN;
     }
   }
 }
 
-/** A bare number: "0.3", "2e3". Units are not allowed here (the label states what the number means). */
+/** A bare number ("0.3", "2e3", "4,100,000"), with the comma rules of every field; units are not allowed. */
 export function parsePlainNumber(text: string): number {
-  const trimmed = text.trim();
-  if (!/^[+-]?(\d+(?:\.\d*)?|\.\d+)(e[+-]?\d+)?$/i.test(trimmed)) throw new Error(`'${text}' is not a plain number`);
-  return Number(trimmed);
+  return parseNumber(text);
+}
+
+/**
+ * The unit a bare number is read in, per field (the hint says so and the echo repeats it). Fields
+ * that are plain numbers (redshifts, u0, β in θ_E, ray inputs) have none.
+ */
+export const defaultUnits = {
+  mass: "Msun",
+  sigma: "km/s",
+  dl: "kpc",
+  ds: "kpc",
+  mu: "mas/yr",
+  t0: "d",
+  cadence: "d",
+  campaign: "d",
+  fwhm: "mas",
+  lambda: "um",
+  baseline: "m",
+  radius: "Rsun",
+  rstar: "Rsun",
+  beta: "mas",
+} as const satisfies Partial<Record<SketchField, string>>;
+
+/** What the lens-radius field takes for "no surface outside the photon sphere" (the default). */
+const COMPACT_WORDS = new Set(["", "compact", "compact object", "none", "black hole"]);
+
+/** True when the lens-radius text means a compact object rather than a typed radius. */
+export function isCompactRadiusText(text: string): boolean {
+  return COMPACT_WORDS.has(text.trim().toLowerCase());
 }
 
 /** A check that passes values above zero and otherwise returns `message`. */
@@ -130,20 +173,38 @@ function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
   if (sketch.lens === "sis") {
     return {
       model: "sis",
-      sigmaKmPerS: reader.read("sigma", parseVelocity, within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s`)),
+      sigmaKmPerS: reader.read(
+        "sigma",
+        (text) => parseVelocity(text, { defaultUnit: defaultUnits.sigma }),
+        within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s (far below the speed of light, 299,792 km/s)`),
+      ),
     };
   }
+  const radiusM = isCompactRadiusText(sketch.radius)
+    ? 0
+    : reader.read("radius", (text) => parseLength(text, { defaultUnit: defaultUnits.radius }), within(LENS_RADIUS_RANGE_M, "The lens radius lies between 1 mm and 1 pc; type compact for a black hole"));
   return {
     model: "point",
-    massSolar: reader.read("mass", (text) => parseMass(text).massSolar, within(acceptedRanges.lensMassSolar, `The mass must lie between ${rangeText(acceptedRanges.lensMassSolar)} solar masses`)),
+    massSolar: reader.read("mass", (text) => parseMass(text, { defaultUnit: defaultUnits.mass }).massSolar, within(acceptedRanges.lensMassSolar, `The mass must lie between ${rangeText(acceptedRanges.lensMassSolar)} solar masses`)),
+    radiusM,
   };
 }
+
+/** Lens and source radii, metres (our rule): from 1 mm to 1 pc, beyond any body that lenses as one mass. */
+const LENS_RADIUS_RANGE_M: AcceptedRange = { min: 1e-3, max: PARSEC_M };
+const SOURCE_RADIUS_RANGE_M: AcceptedRange = { min: 1e-3, max: PARSEC_M };
+
+/**
+ * Velocity dispersions above this are accepted with a warning (our rule): the richest galaxy clusters
+ * have about 1,500 km/s; the accepted range stops at 3,000 km/s, 1% of the speed of light.
+ */
+export const SIGMA_WARNING_KM_PER_S = 1500;
 
 function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
   if (sketch.geometry === "distance") {
     const distanceMessage = "Distances lie between 1e-6 pc (0.2 au) and 20 Gpc";
-    const dLensPc = reader.read("dl", parseDistance, within(acceptedRanges.distancePc, distanceMessage));
-    const dSourcePc = reader.read("ds", parseDistance, (value) => {
+    const dLensPc = reader.read("dl", (text) => parseDistance(text, { defaultUnit: defaultUnits.dl }), within(acceptedRanges.distancePc, distanceMessage));
+    const dSourcePc = reader.read("ds", (text) => parseDistance(text, { defaultUnit: defaultUnits.ds }), (value) => {
       if (!isInRange(value, acceptedRanges.distancePc)) return distanceMessage;
       return value > dLensPc || Number.isNaN(dLensPc) ? undefined : "The source must lie behind the lens (D_S > D_L)";
     });
@@ -172,37 +233,41 @@ const sourceOffsetMessage = `β must lie between ${rangeText(acceptedRanges.sour
 function readSourceOffset(reader: FieldReader, sketch: Sketch): SourceOffsetInputs {
   const aboveZero = positive("β must be greater than zero (at β = 0 the image is a ring of unbounded magnification)");
   // An angle is checked against θ_E once the lens is known (checkLensScales).
-  if (sketch.betaUnit === "angle") return { unit: "angle", betaRad: reader.read("beta", parseAngle, aboveZero) };
+  if (sketch.betaUnit === "angle") return { unit: "angle", betaRad: reader.read("beta", (text) => parseAngle(text, { defaultUnit: defaultUnits.beta }), aboveZero) };
   return { unit: "thetaE", betaThetaE: reader.read("beta", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, sourceOffsetMessage)) };
 }
 
 function readInstrument(reader: FieldReader, sketch: Sketch): InstrumentInputs {
-  const cadenceS = reader.read("cadence", parseTime, (value) => (value >= 1 && value <= MAX_TIME_S ? undefined : "The cadence must lie between 1 second and 100 years"));
-  const campaignS = reader.read("campaign", parseTime, (value) => {
+  const cadenceS = reader.read("cadence", (text) => parseTime(text, { defaultUnit: defaultUnits.cadence }), (value) => (value >= 1 && value <= MAX_TIME_S ? undefined : "The cadence must lie between 1 second and 100 years"));
+  const campaignS = reader.read("campaign", (text) => parseTime(text, { defaultUnit: defaultUnits.campaign }), (value) => {
     if (!(value <= MAX_TIME_S)) return "The campaign lasts at most 100 years";
     return value >= cadenceS || Number.isNaN(cadenceS) ? undefined : "The campaign must last at least one cadence interval";
   });
   if (sketch.resolution === "fwhm") {
-    const fwhmRad = reader.read("fwhm", parseAngle, within(RESOLUTION_RANGE_RAD, "The FWHM must lie between 0.2 nanoarcseconds and 1 radian"));
+    const fwhmRad = reader.read("fwhm", (text) => parseAngle(text, { defaultUnit: defaultUnits.fwhm }), within(RESOLUTION_RANGE_RAD, "The FWHM must lie between 0.2 nanoarcseconds and 1 radian"));
     return { resolutionRad: fwhmRad, resolutionName: "FWHM", cadenceS, campaignS };
   }
-  const toMetres = (text: string) => parseDistance(text) * PARSEC_M;
   const lengthCheck = within(INTERFEROMETER_LENGTH_RANGE_M, "Lengths here lie between 1 nm and 10 million km");
-  const wavelengthM = reader.read("lambda", toMetres, lengthCheck);
-  const baselineM = reader.read("baseline", toMetres, lengthCheck);
+  const wavelengthM = reader.read("lambda", (text) => parseWavelength(text, { defaultUnit: defaultUnits.lambda }), lengthCheck);
+  const baselineM = reader.read("baseline", (text) => parseLength(text, { defaultUnit: defaultUnits.baseline }), lengthCheck);
   // λ/B is the interferometric resolution element (fringe spacing) for the longest baseline.
   return { resolutionRad: wavelengthM / baselineM, resolutionName: "λ/B", cadenceS, campaignS };
 }
 
-function readLightCurve(reader: FieldReader): LightCurveInputs {
+function readLightCurve(reader: FieldReader, sketch: Sketch): LightCurveInputs {
   return {
     muRelRadPerS: reader.read(
       "mu",
-      parseProperMotion,
+      (text) => parseProperMotion(text, { defaultUnit: defaultUnits.mu }),
       within(acceptedRanges.properMotionMasPerYr, `The relative proper motion must lie between ${rangeText(acceptedRanges.properMotionMasPerYr)} mas/yr`, JULIAN_YEAR_S / MILLIARCSECOND_RAD),
     ),
-    peakTimeS: reader.read("t0", parseTime, (value) => (Math.abs(value) <= MAX_TIME_S ? undefined : "The peak time lies within 100 years of the campaign start")),
+    peakTimeS: reader.read("t0", (text) => parseTime(text, { defaultUnit: defaultUnits.t0 }), (value) => (Math.abs(value) <= MAX_TIME_S ? undefined : "The peak time lies within 100 years of the campaign start")),
     u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, `u0 must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} (closer, a real source's size caps the peak magnification)`)),
+    // The source's size matters only to the point lens's light curve.
+    sourceRadiusM:
+      sketch.lens === "point"
+        ? reader.read("rstar", (text) => parseLength(text, { defaultUnit: defaultUnits.rstar }), within(SOURCE_RADIUS_RANGE_M, "The source radius lies between 1 mm and 1 pc"))
+        : Number.NaN,
   };
 }
 
@@ -234,6 +299,10 @@ function checkLensScales(errors: FieldErrors, sketch: Sketch, { lens, geometry, 
     errors[distanceField] = message;
     return;
   }
+  if (lens.model === "point" && lens.radiusM > 0 && lens.radiusM <= 2 * lens.massSolar * SOLAR_MASS_LENGTH_M) {
+    errors.radius = "A body this small for its mass lies inside its own horizon (R ≤ 2GM/c²): type compact for a black hole";
+    return;
+  }
   const thetaERad =
     lens.model === "point"
       ? einsteinRadius(lens.massSolar, geometry.dLensPc, geometry.dSourcePc, geometry.dLensSourcePc)
@@ -253,14 +322,21 @@ export function parseSketch(sketch: Sketch): ParsedSketch {
     lens: readLens(reader, sketch),
     geometry: readGeometry(reader, sketch),
     sourceOffset: readSourceOffset(reader, sketch),
-    lightCurve: readLightCurve(reader),
+    lightCurve: readLightCurve(reader, sketch),
     instrument: readInstrument(reader, sketch),
     bundle: readBundle(reader, sketch),
   };
-  const lensFields = ["mass", "sigma", "dl", "ds", "h0", "om0", "zl", "zs", "beta"] as const;
+  const lensFields = ["mass", "sigma", "dl", "ds", "h0", "om0", "zl", "zs", "beta", "radius"] as const;
   if (lensFields.every((field) => reader.errors[field] === undefined)) checkLensScales(reader.errors, sketch, inputs);
   if (Object.keys(reader.errors).length > 0) return { ok: false, fieldErrors: reader.errors };
-  return { ok: true, inputs };
+  return { ok: true, inputs, warnings: sketchWarnings(inputs) };
+}
+
+function sketchWarnings({ lens }: SketchInputs): FieldWarnings {
+  if (lens.model === "sis" && lens.sigmaKmPerS > SIGMA_WARNING_KM_PER_S) {
+    return { sigma: `Above ${SIGMA_WARNING_KM_PER_S.toLocaleString("en-US")} km/s, faster than in the richest galaxy clusters known: check the value` };
+  }
+  return {};
 }
 
 export type ParsedBundle = { ok: true; bundle: BundleInputs } | { ok: false; fieldErrors: FieldErrors };

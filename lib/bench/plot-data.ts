@@ -7,12 +7,12 @@ import {
   criticalImpactParameter,
   DAY_S,
   exactDeflection,
-  paczynskiMagnification,
   pointLensImages,
   strongFieldDeflection,
   weakFieldDeflection,
 } from "@/lib/physics";
 import type { MicrolensingEvent } from "./compute-results";
+import { eventMagnification } from "./event-magnification";
 
 export interface CurvePoint {
   x: number;
@@ -60,27 +60,37 @@ export interface LightCurve {
   epochs: CurvePoint[];
   peakTimeDays: number;
   campaignDays: number;
+  /** Part of the curve is limited by the source's size (the uniform-disk cap binds). */
+  isPeakCapped: boolean;
 }
 
 const LIGHT_CURVE_POINTS = 400;
 /** An epoch list longer than this is thinned for drawing (the verdict still counts every epoch). */
 const MAX_DRAWN_EPOCHS = 600;
 
+/**
+ * The light curve A(t) with u(t)² = u0² + ((t − t0)/t_E)² (Paczyński 1986), as an observer sees it:
+ * images behind the lens's body left out and the peak capped by the source's size (event-magnification).
+ */
 export function lightCurve(event: MicrolensingEvent): LightCurve {
   const { campaignS, cadenceS, peakTimeS, einsteinTimeS, u0ThetaE } = event;
+  const magnificationAt = (timeS: number) => eventMagnification(Math.hypot(u0ThetaE, (timeS - peakTimeS) / einsteinTimeS), event);
   const curve: CurvePoint[] = [];
+  let isPeakCapped = magnificationAt(peakTimeS).isCapped;
   for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
     const timeS = (campaignS * i) / (LIGHT_CURVE_POINTS - 1);
-    curve.push({ x: timeS / DAY_S, y: paczynskiMagnification(timeS, peakTimeS, einsteinTimeS, u0ThetaE) });
+    const { magnification, isCapped } = magnificationAt(timeS);
+    isPeakCapped ||= isCapped;
+    curve.push({ x: timeS / DAY_S, y: magnification });
   }
   const epochCount = Math.floor(campaignS / cadenceS) + 1;
   const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
   const epochs: CurvePoint[] = [];
   for (let k = 0; k < epochCount; k += stride) {
     const timeS = k * cadenceS;
-    epochs.push({ x: timeS / DAY_S, y: paczynskiMagnification(timeS, peakTimeS, einsteinTimeS, u0ThetaE) });
+    epochs.push({ x: timeS / DAY_S, y: magnificationAt(timeS).magnification });
   }
-  return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S };
+  return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S, isPeakCapped };
 }
 
 /** Centroid shift on the sky in units of θ_E: along the lens–source vector (τ, u0), length u/(u²+2). */

@@ -9,6 +9,9 @@ import { z } from "zod";
 /** Longest text a field accepts from a URL; far above any real quantity, short enough to bound work. */
 const MAX_FIELD_CHARS = 80;
 
+/** Longest unit-choice list from a URL: every results row with its longest unit name fits. */
+const MAX_UNITS_CHARS = 600;
+
 /** The demo sketch: a Galactic microlensing event by a half-solar-mass star seen with an interferometer. */
 export const demoSketch = {
   lens: "point",
@@ -36,6 +39,9 @@ export const demoSketch = {
   bmin: "0.5",
   bmax: "15",
   layout: "fan",
+  radius: "compact",
+  rstar: "1 Rsun",
+  units: "",
 } as const;
 
 function textField(key: keyof typeof demoSketch) {
@@ -79,9 +85,47 @@ export const sketchSchema = z.object({
   bmin: textField("bmin"),
   bmax: textField("bmax"),
   layout: choiceField(rayLayouts, demoSketch.layout),
+  /** The lens's physical radius, or "compact" for a body inside its photon sphere (a black hole). */
+  radius: textField("radius"),
+  /** The source's radius, for the finite-source cap on the peak magnification. */
+  rstar: textField("rstar"),
+  /** Result units the user chose over the readable default: "t-e:yr,theta-e:arcsec" (see display-units). */
+  units: z.string().trim().max(MAX_UNITS_CHARS).catch(demoSketch.units),
 });
 
 export type Sketch = z.infer<typeof sketchSchema>;
+
+/** Field names as the form shows them; error messages start with them so each names its field. */
+export const fieldLabels = {
+  lens: "Lens model",
+  mass: "Lens mass",
+  sigma: "Velocity dispersion σ",
+  geometry: "Distances from",
+  dl: "Lens distance D_L",
+  ds: "Source distance D_S",
+  zl: "Lens redshift z_L",
+  zs: "Source redshift z_S",
+  h0: "Hubble constant H0",
+  om0: "Matter density Ωm",
+  beta: "Source offset β",
+  betaUnit: "Source offset β given",
+  mu: "Relative proper motion μ_rel",
+  t0: "Peak time t0",
+  u0: "Impact parameter at peak u0",
+  resolution: "Resolution from",
+  fwhm: "PSF FWHM",
+  lambda: "Wavelength λ",
+  baseline: "Longest baseline B",
+  cadence: "Cadence",
+  campaign: "Campaign length",
+  rays: "Number of rays",
+  bmin: "Smallest impact parameter b (M)",
+  bmax: "Largest impact parameter b (M)",
+  layout: "Bundle shape",
+  radius: "Lens radius",
+  rstar: "Source radius R_*",
+  units: "Result units",
+} as const satisfies Record<keyof typeof demoSketch, string>;
 export type SketchField = keyof Sketch;
 
 /** Next's `searchParams` (or any record of query values) to a complete sketch; repeated keys use the first. */

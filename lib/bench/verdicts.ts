@@ -73,6 +73,14 @@ export function timeDelayVerdict(delayS: number, cadenceS: number, campaignS: nu
   return { id: "time-delay", outlook: "infeasible", text: `${lead}: shorter than the cadence, not measurable` };
 }
 
+/** A lens body that hides one image (or both) leaves no pair to split or time. */
+export function occultedImageVerdict(areBothHidden: boolean): Verdict {
+  const text = areBothHidden
+    ? "both images lie behind the lens's body (their rays pass closer than its radius): the source is hidden"
+    : "the inner image lies behind the lens's body (its ray passes closer than its radius): one image is seen, no pair to resolve and no time delay";
+  return { id: "resolution", outlook: "infeasible", text };
+}
+
 /** An SIS with the source outside its Einstein radius forms one image: there is no pair to split or time. */
 export function singleImageVerdict(): Verdict {
   return { id: "resolution", outlook: "infeasible", text: "a single image (β ≥ θ_E): no image pair to resolve and no time delay" };

@@ -51,6 +51,8 @@ describe("lens bench → proposal", () => {
     const option = save.locator("option", { hasText: demoProposalTitle });
     await option.waitFor({ state: "attached" });
     await save.getByLabel("Proposal").selectOption((await option.getAttribute("value"))!);
+    // The target has no lens-radius field: the form says so rather than dropping it silently.
+    await expect(save.getByTestId("save-target-radius-hint").textContent()).resolves.toMatch(/no field for the lens radius/);
     const name = `BENCH-${run}`;
     await save.getByLabel("Target name").fill(name);
     await save.getByLabel("Right ascension").fill("17 59 02.3");

@@ -37,7 +37,8 @@ const drawnMarks = (page: Page) => page.evaluate(() => performance.getEntriesByN
 describe("lens bench", () => {
   it("opens from a link with parameters and shows the Einstein radius the physics module computes", async () => {
     const { page, context } = await newPage(browser);
-    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc" }));
+    // θ_E is 1.4″ here, shown in arcsec by default; the link's unit choice (mas) wins.
+    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc", units: "theta-e:mas" }));
     await expect(page.getByLabel("Lens mass").inputValue()).resolves.toBe("4e6 Msun");
     const expectedMas = einsteinRadius(4e6, 8100, 16_000) / MILLIARCSECOND_RAD;
     // Shown to 4 significant digits.
@@ -47,7 +48,7 @@ describe("lens bench", () => {
 
   it("updates the Einstein radius when the mass changes, and keeps the link in step", async () => {
     const { page, context } = await newPage(browser);
-    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc" }));
+    await page.goto(benchLink({ mass: "4e6 Msun", dl: "8.1 kpc", ds: "16 kpc", units: "theta-e:mas" }));
     await page.getByLabel("Lens mass").fill("1e6 Msun");
     const expectedMas = einsteinRadius(1e6, 8100, 16_000) / MILLIARCSECOND_RAD;
     await page.waitForFunction((text) => document.querySelector('[data-testid="result-theta-e"]')?.textContent === text, `${Number(expectedMas.toPrecision(4))} mas`);
@@ -56,20 +57,43 @@ describe("lens bench", () => {
     await context.close();
   });
 
-  it("shows a bad value's error beside its field and keeps the last good result", async () => {
+  it("echoes the value a field uses as the user types: 4,100,000 Msun is 4.1 × 10⁶ M☉", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({}));
+    await page.getByLabel("Lens mass").fill("4,100,000 Msun");
+    await page.waitForFunction(() => document.querySelector('[data-testid="echo-mass"]')?.textContent?.includes("4.1 × 10⁶"));
+    // The mass the results use is that one: θ_E grows as √M from the demo's 0.5 M☉.
+    const expectedMas = einsteinRadius(4.1e6, 4000, 8000) / MILLIARCSECOND_RAD;
+    await page.getByLabel("Unit for Einstein radius").selectOption("mas");
+    expect(Math.abs((await shownThetaEMas(page)) / expectedMas - 1)).toBeLessThan(5e-4);
+    expect(new URL(page.url()).searchParams.get("units")).toBe("theta-e:mas");
+    await context.close();
+  });
+
+  it("shows a bad value's error beside its field and dims the last good results, saying whose they are", async () => {
     const { page, context } = await newPage(browser);
     await page.goto(benchLink({}));
     const before = await page.getByTestId("result-theta-e").textContent();
+    await expect(page.getByTestId("bench-results").getAttribute("data-stale")).resolves.toBe("false");
     const massField = page.getByLabel("Lens mass");
     await massField.fill("45 uas");
-    const fieldError = page.getByRole("alert").filter({ hasText: "mass: '45 uas' is an angle, not a mass" });
+    const fieldError = page.getByRole("alert").filter({ hasText: /^Lens mass: '45 uas' .*angle/ });
     await fieldError.waitFor();
     // The message belongs to the mass field: it is the first description of that input.
     const errorId = await fieldError.getAttribute("id");
     expect(((await massField.getAttribute("aria-describedby")) ?? "").split(" ")[0]).toBe(errorId);
     await expect(massField.getAttribute("aria-invalid")).resolves.toBe("true");
     await expect(page.getByTestId("result-theta-e").textContent()).resolves.toBe(before);
-    await expect(page.getByTestId("stale-note").isVisible()).resolves.toBe(true);
+    await expect(page.getByTestId("stale-note").textContent()).resolves.toMatch(/belong to the last valid sketch/);
+    // Numbers, verdicts and plots are dimmed, not merely annotated.
+    for (const testId of ["bench-results", "bench-plots"]) {
+      const frame = page.getByTestId(testId);
+      await expect(frame.getAttribute("data-stale")).resolves.toBe("true");
+      expect(Number(await frame.evaluate((element) => getComputedStyle(element).opacity))).toBeLessThan(0.5);
+    }
+    await massField.fill("0.5 Msun");
+    await page.getByTestId("stale-note").waitFor({ state: "detached" });
+    await expect(page.getByTestId("bench-results").getAttribute("data-stale")).resolves.toBe("false");
     await context.close();
   });
 
@@ -157,6 +181,25 @@ describe("lens bench", () => {
     await expect(page.getByTestId("solar-caution").textContent()).resolves.toMatch(/Never point a telescope, camera or binoculars at or near the Sun without a proper solar filter/);
     await page.goto(benchLink({}));
     await expect(page.getByTestId("solar-caution").count()).resolves.toBe(0);
+    await context.close();
+  });
+
+  it("reads the Sun right: no shadow or relativistic images, the inner image occulted, the rays ending on its surface", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({ mass: "1 Msun", dl: "1 au", ds: "8 kpc", betaUnit: "angle", beta: "1 deg", radius: "1 Rsun", rays: "200" }));
+    await page.getByTestId("result-note-no-photon-sphere").waitFor();
+    for (const id of ["shadow", "photon-ring", "rel-plus", "r-ph"]) await expect(page.getByTestId(`result-${id}`).count()).resolves.toBe(0);
+    await expect(page.getByTestId("result-theta-minus-note").textContent()).resolves.toMatch(/^behind the lens/);
+    await expect(page.getByTestId("result-theta-plus-note").count()).resolves.toBe(0);
+    await expect(page.getByTestId("verdict-resolution").textContent()).resolves.toMatch(/inner image lies behind the lens's body/);
+    // 4GM☉/(c²R☉) = 1.7512″ for the ray grazing the limb (IAU 2015 B3 nominal GM☉ and R☉).
+    await page.getByLabel("Unit for deflection angles").selectOption("arcsec");
+    await expect(page.getByTestId("deflection-limb").textContent()).resolves.toMatch(/1\.751\d* arcsec/);
+    await expect(page.getByTestId("solar-caution").isVisible()).resolves.toBe(true);
+    await expect(page.getByTestId("echo-radius").textContent()).resolves.toMatch(/^=/);
+    // Every traced ray (b ≤ 15 M) passes far inside R☉ = 4.7 × 10⁵ M: all end on the surface.
+    await page.waitForFunction(() => document.querySelector('[data-testid="fate-count-surface"]')?.textContent === "200", undefined, { timeout: 60_000 });
+    await expect(page.getByTestId("ray-bundle-surface-note").textContent()).resolves.toMatch(/no photon sphere, horizon or shadow/);
     await context.close();
   });
 });

@@ -68,11 +68,12 @@ describe("assembleBundle", () => {
       wavefronts: new Float32Array([0, 0, 0, 0, 1, 0, NaN, NaN, NaN]),
     };
     const bundle = assembleBundle([chunk], 3, 1, 1, 30);
-    expect(bundle.fateCounts).toEqual({ escaped: 2, captured: 1, winding: 0 });
+    expect(bundle.fateCounts).toEqual({ escaped: 2, captured: 1, winding: 0, surface: 0 });
     expect(bundle.fateGroups).toEqual([
       { start: 0, count: 4, fate: "escaped" },
       { start: 4, count: 2, fate: "captured" },
       { start: 6, count: 0, fate: "winding" },
+      { start: 6, count: 0, fate: "surface" },
     ]);
     expect(Array.from(bundle.segmentIndex)).toEqual([2, 3, 4, 5, 0, 1]);
     expect(Array.from(bundle.wavefrontVertices)).toEqual([0, 0, 0, 0, 1, 0]);

@@ -39,7 +39,7 @@ describe("sampling verdict", () => {
 describe("time-delay verdict", () => {
   it("calls a delay of several cadences measurable and a microsecond delay not measurable", () => {
     expect(timeDelayVerdict(12 * DAY_S, DAY_S, 300 * DAY_S)).toEqual({ id: "time-delay", outlook: "feasible", text: "time delay 12 d against a cadence of 1 d: measurable" });
-    expect(timeDelayVerdict(4.9e-6, DAY_S, 90 * DAY_S)).toMatchObject({ outlook: "infeasible", text: "time delay 4.9e-6 s against a cadence of 1 d: shorter than the cadence, not measurable" });
+    expect(timeDelayVerdict(4.9e-6, DAY_S, 90 * DAY_S)).toMatchObject({ outlook: "infeasible", text: "time delay 4.9 µs against a cadence of 1 d: shorter than the cadence, not measurable" });
     expect(timeDelayVerdict(400 * DAY_S, DAY_S, 90 * DAY_S).text).toMatch(/longer than the 90 d campaign$/);
   });
 
