@@ -21,12 +21,16 @@ interface DeflectionFixture {
   rows: { b: number; M: number; alpha: string; r0: string }[];
   sweptAngles: { b: number; r: number; sweptAngle: string }[];
 }
+interface FarRaysFixture {
+  sweptAngles: { b: number; r: number; sweptAngle: string }[];
+}
 interface CarlsonFixture {
   rows: { x: number; y: number; z: number; rf: string }[];
 }
 
 const deflection = loadFixture<DeflectionFixture>("deflection.json");
 const carlson = loadFixture<CarlsonFixture>("carlson.json");
+const farRays = loadFixture<FarRaysFixture>("far-rays.json");
 const BC = 3 * Math.sqrt(3);
 
 describe("carlsonRF", () => {
@@ -185,6 +189,24 @@ describe("sweptAngleFromInfinity", () => {
     // fixture from tests/fixtures/generate_physics.py, mpmath quad
     for (const row of deflection.sweptAngles) {
       expect(relativeError(sweptAngleFromInfinity(row.r, row.b, 1), Number(row.sweptAngle))).toBeLessThan(1e-14);
+    }
+  });
+
+  it("keeps full precision far from the lens, b up to 1e200 M, where it lost digits to cancellation", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath quadrature at 40 + 2 log10(b) digits;
+    // the cancelling form of u3 - u0 was off by 5e-10 relative at b = 1e9 M and threw beyond ~1e50 M
+    let worst = 0;
+    for (const row of farRays.sweptAngles.filter((r) => r.r >= 2 * r.b)) {
+      worst = Math.max(worst, relativeError(sweptAngleFromInfinity(row.r, row.b, 1), Number(row.sweptAngle)));
+    }
+    console.info(`sweptAngleFromInfinity, b from 1e3 M to 1e200 M, r >= 2b: largest relative error ${worst.toExponential(2)}`);
+    expect(worst).toBeLessThan(1e-15);
+  });
+
+  it("at r = b stays within its condition number ~sqrt(b/M) of mpmath", () => {
+    // fixture as above; near r0 the angle varies like sqrt(1 - r0/r), so one ulp of r0 costs ~sqrt(b/M) ulp
+    for (const row of farRays.sweptAngles.filter((r) => r.r === r.b)) {
+      expect(relativeError(sweptAngleFromInfinity(row.r, row.b, 1), Number(row.sweptAngle))).toBeLessThan(1e-15 * Math.sqrt(row.b));
     }
   });
 
