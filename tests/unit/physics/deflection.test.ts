@@ -22,7 +22,11 @@ interface DeflectionFixture {
   sweptAngles: { b: number; r: number; sweptAngle: string }[];
 }
 interface FarRaysFixture {
+  deflections: { b: number; alpha: string }[];
   sweptAngles: { b: number; r: number; sweptAngle: string }[];
+}
+interface DenseDeflectionFixture {
+  rows: { b: number; alpha: string }[];
 }
 interface CarlsonFixture {
   rows: { x: number; y: number; z: number; rf: string }[];
@@ -31,6 +35,7 @@ interface CarlsonFixture {
 const deflection = loadFixture<DeflectionFixture>("deflection.json");
 const carlson = loadFixture<CarlsonFixture>("carlson.json");
 const farRays = loadFixture<FarRaysFixture>("far-rays.json");
+const denseDeflection = loadFixture<DenseDeflectionFixture>("deflection-dense.json");
 const BC = 3 * Math.sqrt(3);
 
 describe("carlsonRF", () => {
@@ -109,11 +114,28 @@ describe("exactDeflection", () => {
     expect(worst).toBeLessThan(1e-12);
   });
 
-  it("is continuous across the switch to the series at b = 40 M", () => {
+  it("keeps 3.5e-15 between 10 M and 40 M, where the closed form's alpha = (~pi) - pi lost digits", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath elliprf at 40 digits on 801 b from 5.3 M
+    // to 80 M (cross-checked against quadrature); the closed form reached 1.5e-14 at 39.4 M
+    let worst = 0;
+    let worstB = 0;
+    for (const row of denseDeflection.rows) {
+      const error = relativeError(exactDeflection(row.b, 1), Number(row.alpha));
+      if (error > worst) [worst, worstB] = [error, row.b];
+    }
+    console.info(`exactDeflection, 5.3 M to 80 M: largest relative error ${worst.toExponential(2)} at b = ${worstB} M`);
+    expect(worst).toBeLessThan(3.5e-15);
+  });
+
+  it("matches mpmath far from the lens, b from 1e3 M to 1e200 M", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath quadrature at 40 + 2 log10(b) digits
+    for (const row of farRays.deflections) expect(relativeError(exactDeflection(row.b, 1), Number(row.alpha))).toBeLessThan(4e-16);
+  });
+
+  it("is continuous across the switches to the series at b = 10 M and to fewer terms at 40 M", () => {
     // common practice: both branches agree where they meet
-    const below = exactDeflection(39.99999999999999, 1);
-    const above = exactDeflection(40, 1);
-    expect(relativeError(below, above)).toBeLessThan(1e-14);
+    expect(relativeError(exactDeflection(9.999999999999998, 1), exactDeflection(10, 1))).toBeLessThan(4e-15);
+    expect(relativeError(exactDeflection(39.99999999999999, 1), exactDeflection(40, 1))).toBeLessThan(1e-15);
   });
 
   it("tends to 0 as b -> Infinity and to +Infinity as b -> b_c", () => {
