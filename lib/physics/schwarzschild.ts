@@ -12,8 +12,12 @@ import { domainError, requireFinite, requirePositive } from "./domain";
 /** Splits a double for exact products (Veltkamp/Dekker; T. J. Dekker 1971, Numer. Math. 18, 224). */
 const SPLITTER = 134_217_729; // 2^27 + 1
 
-/** Rounding error of a*b, so that a*b = fl(a*b) + twoProductError(a, b) exactly (Dekker 1971). */
-function twoProductError(a: number, b: number, product: number): number {
+/**
+ * Rounding error of product = fl(a*b), so that a*b = product + twoProductError(a, b, product) exactly
+ * (Dekker 1971; |a|, |b| below ~1e300 so the split does not overflow). Shared with
+ * relativistic-effects.ts for cancellation-free differences.
+ */
+export function twoProductError(a: number, b: number, product: number): number {
   const ca = SPLITTER * a;
   const aHi = ca - (ca - a);
   const aLo = a - aHi;

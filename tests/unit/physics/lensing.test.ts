@@ -174,6 +174,16 @@ describe("relativistic effects", () => {
     expect(worst).toBeLessThan(1e-13);
   });
 
+  it("keep full precision near the separatrix, where 1 - 2 mu (3 + e) cancelled", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath elliprf at 50 digits at double mu within
+    // 1e-2 .. 1e-12 (relative) of the separatrix 1/(6 + 2e), cross-checked against quadrature; was 2.8e-5
+    const separatrix = loadFixture<{ advances: { massOverP: number; e: number; advance: string }[] }>("separatrix-orbits.json");
+    let worst = 0;
+    for (const row of separatrix.advances) worst = Math.max(worst, relativeError(advanceFromMassOverP(row.massOverP, row.e), Number(row.advance)));
+    console.info(`advanceFromMassOverP near the separatrix: largest relative error ${worst.toExponential(2)}`);
+    expect(worst).toBeLessThan(1e-15);
+  });
+
   it("reject unbound or unstable orbits", () => {
     // the separatrix p = (6 + 2e) M (Cutler, Kennefick & Poisson 1994)
     expect(() => periastronAdvance(1, 1, 1)).toThrow(/eccentricity must be in \[0, 1\)/);
