@@ -56,3 +56,15 @@ export const ARCSECOND_RAD = Math.PI / 648_000;
 
 /** Speed of light in km/s, for H0 in km/s/Mpc. Exact (see SPEED_OF_LIGHT_M_PER_S). */
 export const SPEED_OF_LIGHT_KM_PER_S = SPEED_OF_LIGHT_M_PER_S / 1000;
+
+/** Nominal Jovian mass parameter GM_J, m^3/s^2. IAU 2015 Resolution B3. */
+export const GM_JUPITER_M3_PER_S2 = 1.2668653e17;
+
+/** Nominal terrestrial mass parameter GM_E, m^3/s^2. IAU 2015 Resolution B3. */
+export const GM_EARTH_M3_PER_S2 = 3.986004e14;
+
+/** Nominal equatorial radius of Jupiter, m. IAU 2015 Resolution B3. */
+export const JUPITER_EQUATORIAL_RADIUS_M = 7.1492e7;
+
+/** Nominal equatorial radius of the Earth, m. IAU 2015 Resolution B3. */
+export const EARTH_EQUATORIAL_RADIUS_M = 6.3781e6;

@@ -110,7 +110,7 @@ function mantissaText(run: string): { text: string } | { problem: string } {
   const pointCount = run.split(".").length - 1;
   const groups = run.split(",");
   if (pointCount > 1) {
-    return { problem: "has more than one point; a point is the decimal point, so type one (e.g. 1234.5) and no thousands points" };
+    return { problem: "has more than one point (a point is the decimal point here); type one decimal point and no thousands separator, e.g. 1234.5" };
   }
   if (groups.length === 1) return { text: run };
   if (groups.some((group) => group === "" || group.startsWith(".") || (group.endsWith(".") && group !== groups.at(-1)))) {
@@ -121,8 +121,8 @@ function mantissaText(run: string): { text: string } | { problem: string } {
     if (pointIndex < run.lastIndexOf(",")) {
       const european = groups[0].split(".");
       const reading = isThousandsGrouping(european) && groups.length === 2 ? `${plainDigits(european.join(""))}.${groups[1]}` : undefined;
-      const offer = reading === undefined ? "type the number with a decimal point and no thousands separator" : `if you mean ${reading}, type ${reading}`;
-      return { problem: `mixes a point and a comma in a way that reads two ways; ${offer}` };
+      const offer = reading === undefined ? "" : ` ${reading} if that is the number, with`;
+      return { problem: `mixes a point and a comma, which reads two ways; type${offer} a decimal point and no thousands separator` };
     }
     const [integerPart, fraction] = run.split(".");
     const integerGroups = integerPart.split(",");
@@ -184,6 +184,6 @@ export function readLeadingNumber(text: string): NumberReading {
     }
   }
   const value = Number(`${sign}${run}e${exponent}`);
-  if (Number.isNaN(value)) return { ok: false, problem: "is not a number", hasDigits: true };
+  if (Number.isNaN(value)) return { ok: false, problem: "is not a number; type e.g. 0.3 or 2e3", hasDigits: true };
   return { ok: true, value, length: index };
 }

@@ -147,7 +147,7 @@ describe("number rules (regression: 4,100,000 Msun was read as 4100 and 8,125 kp
   });
 
   it("refuses a point before a comma (the European form) and more than one point", () => {
-    expect(() => parseNumber("1.234,5")).toThrow("if you mean 1234.5, type 1234.5");
+    expect(() => parseNumber("1.234,5")).toThrow("type 1234.5 if that is the number");
     expect(() => parseNumber("1.234.567")).toThrow("more than one point");
   });
 
