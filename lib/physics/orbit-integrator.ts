@@ -2,14 +2,11 @@
  * Dormand-Prince 5(4) explicit Runge-Kutta integrator with step-size control and 4th-order dense
  * output (J. R. Dormand & P. J. Prince 1980, J. Comput. Appl. Math. 6, 19; dense output and step
  * control as in E. Hairer, S. P. Norsett & G. Wanner, Solving Ordinary Differential Equations I,
- * 2nd ed. 1993, sect. II.4-II.6), written out for the Schwarzschild orbit equation in the swept polar
- * angle sigma, with w = L u (u = 1/r, L a length scale: b for light, p for a bound orbit), x = M/L:
- *   w' = v,  v' = f0 + 3 x w^2 - w,
- * f0 = 0 for light (./ray-tracer) and f0 = p M/L_z^2 for a bound orbit (./orbit-tracer), plus a time
- * component T:
- *   light:  T = chi = tau + v/w, chi' = 2x / (w (1 - 2 x w)) + x w,  with tau = t/b = chi - v/w;
- *   orbit:  T = tau, tau' = 1 / (w^2 (1 - 2 x w)),  with t = (E p^2/L_z) tau.
- * (For light, tau' = 1/(w^2 (1 - 2xw)) varies like 1/w^2 far from the lens and, under error control,
+ * 2nd ed. 1993, sect. II.4-II.6), written out for the orbit equation of light in the Schwarzschild
+ * metric (./ray-tracer) in the swept polar angle sigma, with w = b u (u = 1/r), x = M/b:
+ *   w' = v,  v' = 3 x w^2 - w,
+ * plus a time component T = chi = tau + v/w, chi' = 2x / (w (1 - 2 x w)) + x w, with tau = t/b = chi - v/w.
+ * (tau' = 1/(w^2 (1 - 2xw)) varies like 1/w^2 far from the lens and, under error control,
  * doubled the step count; v/w is its flat-space part, cot(phi) on a straight line, and
  * d(v/w)/dsigma = x w - 1/w^2 follows from the first integral v^2 = 1 - w^2 + 2 x w^3.)
  * Scalar stages, so that a step allocates nothing and touches no arrays except its dense record
@@ -45,7 +42,7 @@ const MAX_REJECTIONS = 60;
 export const DENSE_RECORD_LENGTH = 17;
 
 /**
- * Integrator state and dense record for one orbit or ray at a time. Usage: start(...), then step() until the
+ * Integrator state and dense record for one ray at a time. Usage: start(...), then step() until the
  * caller's stop condition; each accepted step is recorded until maxSteps, then step() returns false.
  * Error control: RMS over (w, v, T) of the local error estimate divided by atol_i + rtol |y_i|
  * (Hairer et al. 1993, eq. II.4.11) kept <= 1.
@@ -60,8 +57,6 @@ export class OrbitIntegrator {
   w = 0;
   v = 0;
   time = 0;
-  private isLight = true;
-  private force = 0;
   private massOverB = 0;
   private threeOverB = 0;
   private twoOverB = 0;
@@ -80,12 +75,10 @@ export class OrbitIntegrator {
   }
 
   /**
-   * Starts at sigma = 0, (w, v) and tau = 0, for light (force 0, time carried as chi) or a bound orbit
-   * (force f0 > 0, time carried as tau), with x = M/L = massOverB, absolute tolerances and first step h0.
+   * Starts at sigma = 0, (w, v) and tau = 0 (time carried as chi = v/w), with x = M/b = massOverB,
+   * absolute tolerances and first step h0.
    */
-  start(isLight: boolean, massOverB: number, force: number, w: number, v: number, atolW: number, atolV: number, atolTime: number, h0: number): void {
-    this.isLight = isLight;
-    this.force = force;
+  start(massOverB: number, w: number, v: number, atolW: number, atolV: number, atolTime: number, h0: number): void {
     this.massOverB = massOverB;
     this.threeOverB = 3 * massOverB;
     this.twoOverB = 2 * massOverB;
@@ -95,17 +88,17 @@ export class OrbitIntegrator {
     this.sigma = 0;
     this.w = w;
     this.v = v;
-    this.time = isLight ? v / w : 0;
+    this.time = v / w;
     this.h = h0;
     this.dw1 = v;
-    this.dv1 = force + this.threeOverB * w * w - w;
+    this.dv1 = this.threeOverB * w * w - w;
     this.dtime1 = this.timeRate(w);
     this.stepCount = 0;
   }
 
-  /** dT/dsigma at w (chi for light, tau for an orbit). */
+  /** dchi/dsigma at w. */
   private timeRate(w: number): number {
-    return this.isLight ? this.twoOverB / (w * (1 - this.twoOverB * w)) + this.massOverB * w : 1 / (w * w * (1 - this.twoOverB * w));
+    return this.twoOverB / (w * (1 - this.twoOverB * w)) + this.massOverB * w;
   }
 
   /** Takes one accepted step; false when the record is full or the step size underflowed. */
@@ -114,8 +107,6 @@ export class OrbitIntegrator {
     const k3b = this.threeOverB;
     const k2b = this.twoOverB;
     const x = this.massOverB;
-    const f0 = this.force;
-    const light = this.isLight;
     const w0 = this.w, v0 = this.v, time0 = this.time;
     const dw1 = this.dw1, dv1 = this.dv1, dt1 = this.dtime1;
     for (let attempt = 0; attempt < MAX_REJECTIONS; attempt++) {
@@ -123,23 +114,23 @@ export class OrbitIntegrator {
       let w = w0 + h * A21 * dw1;
       let v = v0 + h * A21 * dv1;
       // the time component never feeds back and has weight 0 for stage 2, so its stage-2 rate is not needed
-      const dw2 = v, dv2 = f0 + k3b * w * w - w;
+      const dw2 = v, dv2 = k3b * w * w - w;
       w = w0 + h * (A31 * dw1 + A32 * dw2);
       v = v0 + h * (A31 * dv1 + A32 * dv2);
-      const dw3 = v, dv3 = f0 + k3b * w * w - w, dt3 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
+      const dw3 = v, dv3 = k3b * w * w - w, dt3 = k2b / (w * (1 - k2b * w)) + x * w;
       w = w0 + h * (A41 * dw1 + A42 * dw2 + A43 * dw3);
       v = v0 + h * (A41 * dv1 + A42 * dv2 + A43 * dv3);
-      const dw4 = v, dv4 = f0 + k3b * w * w - w, dt4 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
+      const dw4 = v, dv4 = k3b * w * w - w, dt4 = k2b / (w * (1 - k2b * w)) + x * w;
       w = w0 + h * (A51 * dw1 + A52 * dw2 + A53 * dw3 + A54 * dw4);
       v = v0 + h * (A51 * dv1 + A52 * dv2 + A53 * dv3 + A54 * dv4);
-      const dw5 = v, dv5 = f0 + k3b * w * w - w, dt5 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
+      const dw5 = v, dv5 = k3b * w * w - w, dt5 = k2b / (w * (1 - k2b * w)) + x * w;
       w = w0 + h * (A61 * dw1 + A62 * dw2 + A63 * dw3 + A64 * dw4 + A65 * dw5);
       v = v0 + h * (A61 * dv1 + A62 * dv2 + A63 * dv3 + A64 * dv4 + A65 * dv5);
-      const dw6 = v, dv6 = f0 + k3b * w * w - w, dt6 = light ? k2b / (w * (1 - k2b * w)) + x * w : 1 / (w * w * (1 - k2b * w));
+      const dw6 = v, dv6 = k3b * w * w - w, dt6 = k2b / (w * (1 - k2b * w)) + x * w;
       const w1 = w0 + h * (A71 * dw1 + A73 * dw3 + A74 * dw4 + A75 * dw5 + A76 * dw6);
       const v1 = v0 + h * (A71 * dv1 + A73 * dv3 + A74 * dv4 + A75 * dv5 + A76 * dv6);
       const time1 = time0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
-      const dw7 = v1, dv7 = f0 + k3b * w1 * w1 - w1, dt7 = light ? k2b / (w1 * (1 - k2b * w1)) + x * w1 : 1 / (w1 * w1 * (1 - k2b * w1));
+      const dw7 = v1, dv7 = k3b * w1 * w1 - w1, dt7 = k2b / (w1 * (1 - k2b * w1)) + x * w1;
       // RMS of (estimate_i / scale_i) over the three components, with one division instead of three
       const ew = h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7);
       const ev = h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7);

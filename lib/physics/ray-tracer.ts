@@ -129,7 +129,7 @@ class RayTracer {
     const integrator = this.integrator;
     const rtol = integrator.rtol;
     const vStart = Math.sqrt(Math.max(0, 1 - wStart * wStart + (2 / bAbs) * wStart * wStart * wStart));
-    integrator.start(true, 1 / bAbs, 0, wStart, vStart, rtol * Math.min(1, wStart), rtol, (rtol * startR) / bAbs, 0.05 * wStart);
+    integrator.start(1 / bAbs, wStart, vStart, rtol * Math.min(1, wStart), rtol, (rtol * startR) / bAbs, 0.05 * wStart);
     const maxSweep = maxHalfTurns * Math.PI;
     let fate: RayFate = "winding";
     let endSigma = 0;
