@@ -19,6 +19,12 @@ interface VirbhadraEllisFixture {
   }[];
 }
 const fixture = loadFixture<VirbhadraEllisFixture>("virbhadra-ellis.json");
+interface WideAngleFixture {
+  rows: (Omit<VirbhadraEllisFixture["rows"][number], "images"> & {
+    images: Partial<Record<"primary" | "secondary" | "relativisticPrimary" | "relativisticSecondary", FixtureImage & { thetaMinusBetaRad: string; magnificationMinusOne: string }>>;
+  })[];
+}
+const wideAngle = loadFixture<WideAngleFixture>("wide-angle-images.json");
 
 describe("virbhadraEllisImages", () => {
   it("matches the mpmath solution of the exact lens equation", () => {
@@ -43,6 +49,31 @@ describe("virbhadraEllisImages", () => {
     expect(worstTheta).toBeLessThan(1e-14);
     expect(worstOffset).toBeLessThan(1e-11);
     expect(worstMagnification).toBeLessThan(1e-10);
+  });
+
+  it("puts the primary image of a source far from the lens beyond it, magnified", () => {
+    // fixture from tests/fixtures/generate_physics.py: mpmath findroot and diff at 70 digits, beta up to
+    // 0.49 rad. The tangent form cancelled to ~1e-14 and gave theta - beta < 0 and mu < 1 at beta = 0.4
+    for (const row of wideAngle.rows) {
+      const primary = virbhadraEllisImages(row.betaRad, row.massSolar, row.dLensPc, row.dSourcePc).primary;
+      const expected = row.images.primary!;
+      expect(primary.thetaRad).toBeGreaterThanOrEqual(row.betaRad);
+      expect(primary.magnification).toBeGreaterThanOrEqual(1);
+      // theta within one ulp (theta - beta itself may be below one ulp of theta)
+      expect(Math.abs(primary.thetaRad - row.betaRad - Number(expected.thetaMinusBetaRad))).toBeLessThanOrEqual(Number.EPSILON * primary.thetaRad);
+      expect(Math.abs(primary.magnification - 1 - Number(expected.magnificationMinusOne))).toBeLessThanOrEqual(Number.EPSILON);
+    }
+  });
+
+  it("matches mpmath for all four images of a solar-mass lens at beta = 1e-3 rad", () => {
+    // fixture as above; theta - beta of the primary is 2.4e-14 rad there, mu - 1 is 5.7e-22
+    const row = wideAngle.rows.find((r) => r.betaRad === 1e-3)!;
+    const result = virbhadraEllisImages(row.betaRad, row.massSolar, row.dLensPc, row.dSourcePc);
+    for (const name of ["primary", "secondary", "relativisticPrimary", "relativisticSecondary"] as const) {
+      expect(relativeError(result[name].thetaRad, Number(row.images[name]!.thetaRad))).toBeLessThan(1e-14);
+      expect(relativeError(result[name].magnification, Number(row.images[name]!.magnification))).toBeLessThan(1e-10);
+    }
+    expect(relativeError(result.primary.thetaRad - row.betaRad, Number(row.images.primary!.thetaMinusBetaRad))).toBeLessThan(1e-5);
   });
 
   it("reduces to the weak-field point lens for the outer images", () => {
