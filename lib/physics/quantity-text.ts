@@ -6,13 +6,17 @@
  * - Thousands commas are read only when every group after the first has exactly three digits and the
  *   first has one to three: `4,100,000` is 4.1e6, `1,234,567` is 1234567. Groups of other sizes
  *   (`1,23,456`) are refused.
- * - A lone comma followed by exactly three digits, after one to three digits (`8,125`, `0,125`), reads
- *   both as a thousands comma and as a decimal comma, so it is refused with both readings offered.
+ * - A lone comma followed by exactly three digits, after one to three digits (`8,125`, `0,125`), or
+ *   after space-grouped digits (`4 100,125`), reads both as a thousands comma and as a decimal comma,
+ *   so it is refused with both readings offered.
  *   Any other lone comma is a decimal comma: `8,1` is 8.1, `12345,678` is 12345.678.
  * - Commas and a point together are read only in the English form, thousands groups before one
  *   decimal point (`1,234.5`): no locale writes a decimal point after a decimal comma, so the form
  *   has a single reading. A point before a comma (`1.234,5`, the European form) contradicts the
  *   first rule and is refused, offering the European reading.
+ * - Digits grouped by spaces, as the SI Brochure and the IAU style manual write them (`4 100 000`,
+ *   thin or no-break spaces too), are read when every group after the first has three digits; a comma
+ *   or point after such groups can only be the decimal sign (`4 100 000,5`).
  * - Powers of ten: `4e6`, `4E+06`, `4×10^6`, `4 x 10^6`, `4*10**6`, `4·10^6`, `4 × 10⁶` (superscript
  *   digits and signs).
  * - Signs: `+`, `-` and the minus sign U+2212.
@@ -92,14 +96,49 @@ function readTimesTen(text: string, start: number): { exponent: string; end: num
   return digits === "" ? problem : { exponent: `${sign}${digits}`, end };
 }
 
+/**
+ * True when the character at `index` is a space between digit groups, as the SI Brochure (5.4.4) and
+ * the IAU style manual group digits: after a digit and before exactly three digits ("4 100 000").
+ */
+function isGroupSpace(text: string, index: number): boolean {
+  return text[index] === " " && isDigit(text[index - 1]) && isDigit(text[index + 1]) && isDigit(text[index + 2]) && isDigit(text[index + 3]) && !isDigit(text[index + 4]);
+}
+
+/**
+ * A mantissa with digits grouped by spaces: the groups must be thousands groups, and a comma or point
+ * after them can only be the decimal sign ("4 100 000,5" and "4 100 000.5" are 4100000.5).
+ */
+function spacedMantissaText(run: string): { text: string } | { problem: string } {
+  const commaIndex = run.indexOf(",");
+  const pointIndex = run.indexOf(".");
+  const cut = commaIndex < 0 ? pointIndex : pointIndex < 0 ? commaIndex : Math.min(commaIndex, pointIndex);
+  const integerPart = cut < 0 ? run : run.slice(0, cut);
+  const fraction = cut < 0 ? "" : run.slice(cut + 1);
+  if (!isThousandsGrouping(integerPart.split(" ")) || [...fraction].some((character) => !isDigit(character))) {
+    return { problem: "has spaces, commas or points inside its number that are not thousands groups of three digits and one decimal sign; type it without spaces, e.g. 4100000.5" };
+  }
+  const digits = integerPart.split(" ").join("");
+  if (run[cut] === "," && fraction.length === 3) return { problem: ambiguousComma(digits, fraction) };
+  return { text: `${digits}${cut < 0 ? "" : `.${fraction}`}` };
+}
+
 /** True when `groups` are thousands groups: the first of one to three digits, each other of three. */
 function isThousandsGrouping(groups: string[]): boolean {
   return groups[0].length >= 1 && groups[0].length <= 3 && groups.slice(1).every((group) => group.length === 3);
 }
 
+/** The refusal of a comma before exactly three digits, with both readings. */
+function ambiguousComma(before: string, after: string): string {
+  const thousands = plainDigits(`${before}${after}`);
+  const decimal = `${plainDigits(before)}.${after}`;
+  return `could be ${thousands} or ${decimal}: the comma may separate thousands or decimals; type ${thousands} or ${decimal}`;
+}
+
 /** Digits without leading zeros, for a reading offered in a message ("0125" → "125"). */
 function plainDigits(digits: string): string {
-  return digits.replace(/^0+(?=\d)/, "");
+  let start = 0;
+  while (start < digits.length - 1 && digits[start] === "0") start += 1;
+  return digits.slice(start);
 }
 
 /**
@@ -107,6 +146,7 @@ function plainDigits(digits: string): string {
  * or the problem, per the rules in the module comment.
  */
 function mantissaText(run: string): { text: string } | { problem: string } {
+  if (run.includes(" ")) return spacedMantissaText(run);
   const pointCount = run.split(".").length - 1;
   const groups = run.split(",");
   if (pointCount > 1) {
@@ -133,9 +173,7 @@ function mantissaText(run: string): { text: string } | { problem: string } {
   }
   if (groups.length === 2) {
     if (groups[1].length === 3 && groups[0].length <= 3) {
-      const thousands = plainDigits(groups.join(""));
-      const decimal = `${groups[0]}.${groups[1]}`;
-      return { problem: `could be ${thousands} or ${decimal}: the comma may separate thousands or decimals; type ${thousands} or ${decimal}` };
+      return { problem: ambiguousComma(groups[0], groups[1]) };
     }
     return { text: `${groups[0]}.${groups[1]}` };
   }
@@ -159,11 +197,11 @@ export function readLeadingNumber(text: string): NumberReading {
   }
   const runStart = index;
   let hasDigit = false;
-  while (index < text.length && (isDigit(text[index]) || text[index] === "," || text[index] === ".")) {
+  while (index < text.length && (isDigit(text[index]) || text[index] === "," || text[index] === "." || isGroupSpace(text, index))) {
     hasDigit ||= isDigit(text[index]);
     index += 1;
   }
-  // A comma or point that ends the number ("8, kpc", "5.") belongs to the sentence, not the number.
+  // "8, kpc" could be a slip for either separator; "5." is a number.
   let run = text.slice(runStart, index);
   if (run.endsWith(",")) return { ok: false, problem: "has a comma after its number; type e.g. 8.1 or 8", hasDigits: true };
   if (!hasDigit) return { ok: false, problem: "does not start with a number", hasDigits: false };

@@ -250,7 +250,7 @@ export function readUnit(typed: string): UnitReading {
     } else if (isLetter(character)) {
       while (end < text.length && isLetter(text[end])) end += 1;
     } else if (character >= "0" && character <= "9") {
-      return { ok: false, problem: "has a second number, or a space inside its number", instead: "one number and then its unit, e.g. 4100000 Msun or 4.1e6 Msun" };
+      return { ok: false, problem: "has a second number, or a space inside its number that does not separate groups of three digits" };
     } else {
       return { ok: false, problem: `has the character '${character}' in its unit` };
     }

@@ -151,6 +151,15 @@ describe("number rules (regression: 4,100,000 Msun was read as 4100 and 8,125 kp
     expect(() => parseNumber("1.234.567")).toThrow("more than one point");
   });
 
+  it("reads digits grouped by spaces as the SI Brochure (5.4.4) and the IAU style manual write them", () => {
+    expect(parseMass("4 100 000 Msun").massSolar).toBe(4.1e6);
+    expect(parseMass("4\u2009100\u2009000 Msun").massSolar).toBe(4.1e6);
+    expect(parseNumber("4\u202f100\u202f000,5")).toBe(4100000.5);
+    expect(parseNumber("12 345.678")).toBe(12345.678);
+    expect(() => parseNumber("4 100,125")).toThrow("could be 4100125 or 4100.125");
+    expect(() => parseDistance("4 1000 pc")).toThrow("a space inside its number");
+  });
+
   it("reads powers of ten in every common spelling", () => {
     for (const text of ["4e6", "4E6", "4E+06", "4×10^6", "4 × 10^6", "4x10^6", "4 x 10**6", "4*10^6", "4·10^6", "4 × 10⁶", "4×10⁺⁶", "4,000,000"]) {
       expect(parseNumber(text), text).toBe(4e6);
