@@ -157,6 +157,9 @@ export function strongFieldDeflection(b: number, M: number): number {
  * eta would overflow beyond ~1e100). */
 const FAR_RAY_CRITICAL_EXCESS = 1e6;
 
+/** Largest b/M of sweptAngleFromInfinity: keeps 3 (1 + 3 eta) and its neighbours finite. */
+const MAX_SWEPT_B_OVER_M = 1e300;
+
 /**
  * Polar angle swept by a ray of impact parameter b (> b_c) from infinity in to radius r >= r0 on
  * either leg: Integral_0^{1/r} du / sqrt(1/b^2 - u^2 + 2 M u^3), radians. Units: r, b, M in one unit.
@@ -166,7 +169,8 @@ const FAR_RAY_CRITICAL_EXCESS = 1e6;
  *   angle = 2 (b/r) R_F((rho1 rho2 + rho3)^2, (rho1 rho3 + rho2)^2, (rho2 rho3 + rho1)^2).
  * The roots are written without cancellation: with eta = r0/(3M) - 1 and q = sqrt(3 (1 + 3 eta)(3 + eta)),
  * (u3 - u0) r0 = (q + 3 eta - 3)/4 (from q^2 - (3 eta - 3)^2 = 48 eta) with q - 3 = 3 eta (3 eta + 10)/(q + 3),
- * and |u_-| r0 = 2 (1 + 3 eta)/(1 + 3 eta + q); nothing overflows or underflows for b up to 1e300 M.
+ * and |u_-| r0 = 2 (1 + 3 eta)/(1 + 3 eta + q); nothing overflows or underflows for b up to 1e300 M,
+ * the domain's limit (beyond it, and for r <= 0 or r < r0, RangeError naming b or r).
  * Accuracy: 4e-16 relative for b from b_c to 1e200 M at r >= 2b, measured against mpmath quadrature
  * (tests/fixtures/physics/far-rays.json, deflection.json); as r -> r0 the angle's condition number
  * grows like 1/sqrt(1 - r0/r), and the error with it. Used to extend a ray traced between finite radii
@@ -175,8 +179,8 @@ const FAR_RAY_CRITICAL_EXCESS = 1e6;
 export function sweptAngleFromInfinity(r: number, b: number, M: number): number {
   requirePositive("M", M);
   const epsilon = criticalExcess(b, M);
-  if (!(epsilon > 0) || !Number.isFinite(b)) throw domainError("b", b, "finite and > b_c = 3 sqrt(3) M");
-  if (Number.isNaN(r)) throw domainError("r", r, "a radius >= the closest approach r0");
+  if (!(epsilon > 0 && b / M <= MAX_SWEPT_B_OVER_M)) throw domainError("b", b, `> b_c = 3 sqrt(3) M and <= 1e300 M = ${MAX_SWEPT_B_OVER_M * M}`);
+  if (!(r > 0)) throw domainError("r", r, "a radius >= the closest approach r0");
   if (r === Infinity) return 0;
   const eta = epsilon > FAR_RAY_CRITICAL_EXCESS ? closestApproach(b, M) / (3 * M) - 1 : photonSphereExcessFromCriticalExcess(epsilon);
   const r0 = 3 * M * (1 + eta);

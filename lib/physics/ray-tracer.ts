@@ -57,7 +57,7 @@ export interface TraceOptions {
   samples?: number;
   /** Relative tolerance of the integrator (default 1e-10). */
   rtol?: number;
-  /** R, in the unit of M: the ray starts at x = -R (default 2 max(|b|, 30 M)). */
+  /** R, in the unit of M: the ray starts at x = -R (default 2 max(|b|, 30 M); 4 M < R <= 2e300 M). */
   startRadius?: number;
   /** Stop a winding ray after this many half-turns (default 40). */
   maxHalfTurns?: number;
@@ -86,6 +86,11 @@ const DEFAULT_MAX_HALF_TURNS = 40;
  * comment): the traced value's error, ~0.7 rtol rad, is then at most ~7 rtol relative.
  */
 const TRACED_DEFLECTION_MIN_RAD = 0.1;
+/**
+ * Below this |b|/M the ray is traced as the radial one (b = 0), which it matches to far below a
+ * double's resolution; integrating it in w = b/r underflowed (below ~1e-150 M every sample was 0).
+ */
+const RADIAL_IMPACT_OVER_M = 1e-100;
 /** Largest |b|/M traced: keeps the default start radius 2|b| and every coordinate finite. */
 const MAX_IMPACT_OVER_M = 1e300;
 const MIN_DEFAULT_START_RADIUS = 30;
@@ -122,7 +127,7 @@ class RayTracer {
     const sign = b < 0 ? -1 : 1;
     const bAbs = Math.abs(b);
     const captureRadius = 2 * (1 + CAPTURE_MARGIN);
-    if (bAbs === 0) return this.traceRadial(startRadius, captureRadius, samples, xy, t, offset);
+    if (bAbs < RADIAL_IMPACT_OVER_M) return this.traceRadial(startRadius, captureRadius, samples, xy, t, offset);
     const startR = Math.hypot(startRadius, bAbs);
     const wStart = bAbs / startR;
     const wCapture = bAbs / captureRadius;
@@ -253,23 +258,26 @@ interface ResolvedOptions {
   maxHalfTurns: number;
 }
 
-function resolveOptions(largestAbsB: number, M: number, options: TraceOptions | undefined): ResolvedOptions {
+/** Options in units of M; the default start radius is computed in them, so it is finite whenever |b|/M is. */
+function resolveOptions(largestAbsBOverM: number, M: number, options: TraceOptions | undefined): ResolvedOptions {
   const samples = options?.samples ?? DEFAULT_SAMPLES;
   const rtol = options?.rtol ?? DEFAULT_RTOL;
-  const startRadius = options?.startRadius ?? 2 * Math.max(largestAbsB, MIN_DEFAULT_START_RADIUS * M);
+  const startRadiusM = options?.startRadius === undefined ? 2 * Math.max(largestAbsBOverM, MIN_DEFAULT_START_RADIUS) : options.startRadius / M;
   const maxHalfTurns = options?.maxHalfTurns ?? DEFAULT_MAX_HALF_TURNS;
   if (!(Number.isInteger(samples) && samples >= 2)) throw domainError("options.samples", samples, "an integer >= 2");
   if (!(rtol >= 1e-14 && rtol <= 1e-3)) throw domainError("options.rtol", rtol, "in [1e-14, 1e-3]");
-  if (!(startRadius > 4 * M && Number.isFinite(startRadius))) throw domainError("options.startRadius", startRadius, `finite and > 4M = ${4 * M}`);
+  if (!(startRadiusM > 4 && startRadiusM <= 2 * MAX_IMPACT_OVER_M)) {
+    throw domainError("options.startRadius", options?.startRadius ?? NaN, `finite, > 4M = ${4 * M} and <= 2e300 M`);
+  }
   if (!(Number.isInteger(maxHalfTurns) && maxHalfTurns >= 2 && maxHalfTurns <= 1000)) throw domainError("options.maxHalfTurns", maxHalfTurns, "an integer in [2, 1000]");
-  return { samples, rtol, startRadiusM: startRadius / M, maxHalfTurns };
+  return { samples, rtol, startRadiusM, maxHalfTurns };
 }
 
 /**
  * Traces one light ray past a Schwarzschild mass for drawing (see the module comment for geometry,
  * method and the meaning of "winding"). Units: b, M and options.startRadius in one unit of length;
- * output positions and times in units of M. Domain: b finite with |b| <= 1e300 M (any sign; 0 is the
- * radial ray), M > 0, options as TraceOptions. Accuracy at the default rtol 1e-10 (tested against
+ * output positions and times in units of M. Domain: b finite with |b| <= 1e300 M (any sign; 0, and
+ * any |b| < 1e-100 M, is the radial ray), M > 0, options as TraceOptions. Accuracy at the default rtol 1e-10 (tested against
  * mpmath quadrature): travel times 6e-10 relative from b = 6 M to 1e12 M (7e-11 for b >= 1e3 M, which
  * is more than the Shapiro excess of a ray with b >~ 1e11 M); the escaped deflection is traced where
  * alpha >= 0.1 rad, within 7e-10 rad (6e-10 relative) of exactDeflection, and below is the closed
@@ -279,7 +287,7 @@ function resolveOptions(largestAbsB: number, M: number, options: TraceOptions | 
 export function traceRay(b: number, M: number, options?: TraceOptions): TracedRay {
   requirePositive("M", M);
   if (!(Math.abs(b) / M <= MAX_IMPACT_OVER_M)) throw domainError("b", b, `finite, with |b| <= 1e300 M = ${MAX_IMPACT_OVER_M * M}`);
-  const resolved = resolveOptions(Math.abs(b), M, options);
+  const resolved = resolveOptions(Math.abs(b) / M, M, options);
   const xy = new Float64Array(2 * resolved.samples);
   const t = new Float64Array(resolved.samples);
   const outcome = tracerFor(resolved.rtol).trace(b / M, resolved.startRadiusM, resolved.samples, resolved.maxHalfTurns, xy, t, 0);
@@ -302,7 +310,7 @@ export function traceRayBundle(impactParameters: Float64Array, M: number, option
     }
     largest = Math.max(largest, Math.abs(impactParameters[i]));
   }
-  const resolved = resolveOptions(largest, M, options);
+  const resolved = resolveOptions(largest / M, M, options);
   const { samples } = resolved;
   const count = impactParameters.length;
   const xy = new Float64Array(2 * samples * count);

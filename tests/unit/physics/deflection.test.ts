@@ -239,4 +239,14 @@ describe("sweptAngleFromInfinity", () => {
     expect(sweptAngleFromInfinity(Infinity, b, 1)).toBe(0);
     expect(() => sweptAngleFromInfinity(3, b, 1)).toThrow(/r must be >= the closest approach/);
   });
+
+  it("names r or b, never an internal variable, for arguments outside its domain", () => {
+    // common practice: RangeError naming the argument; r = -1 and b = 1e308 M threw "x must be finite"
+    expect(() => sweptAngleFromInfinity(-1, 7, 1)).toThrow(/^r must be a radius >= the closest approach/);
+    expect(() => sweptAngleFromInfinity(NaN, 7, 1)).toThrow(/^r must be/);
+    expect(() => sweptAngleFromInfinity(1e309, 1e308, 1)).toThrow(/^b must be > b_c = 3 sqrt\(3\) M and <= 1e300 M/);
+    expect(() => sweptAngleFromInfinity(10, 1, 1e-308)).toThrow(/^b must be/);
+    expect(() => sweptAngleFromInfinity(10, 5, 1)).toThrow(/^b must be/);
+    expect(sweptAngleFromInfinity(Infinity, 7, 1)).toBe(0);
+  });
 });

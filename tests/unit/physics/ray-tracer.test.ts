@@ -87,6 +87,13 @@ describe("traceRay", () => {
     expect(() => traceRay(1e301, 1)).toThrow(/^b must be finite, with \|b\| <= 1e300 M/);
     expect(() => traceRay(1, 1e-308)).toThrow(/^b must be/);
     expect(() => traceRayBundle(new Float64Array([1, -2e300]), 1)).toThrow(/^impactParameters\[1\] must be finite, with \|b\|/);
+    // a huge M with a moderate b/M: the default start radius 2 max(|b|, 30 M) overflowed and was blamed
+    expect(traceRay(1e308, 1e300).fate).toBe("escaped");
+    // |b| <= 1e-100 M is the radial ray (b = 0): it underflowed to samples all at the origin
+    const nearlyRadial = traceRay(1e-200, 1);
+    expect(nearlyRadial.fate).toBe("captured");
+    expect(radiusAt(nearlyRadial.xy, 0)).toBe(60);
+    expect(radiusAt(nearlyRadial.xy, nearlyRadial.count - 1)).toBeCloseTo(2 * (1 + CAPTURE_MARGIN), 12);
   });
 
   it("conserves the photon's first integral along the sampled path", () => {
