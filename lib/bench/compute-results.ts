@@ -173,6 +173,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       kind: "ratio",
       value: peak.magnification,
       ...(peak.isCapped ? { note: `limited by the source's size (uniform disk, ρ = ${formatPlain(sourceRadiusThetaE, 3)} θ_E; approximate)` } : {}),
+      ...(peak.magnification === 0 ? { note: "the source is behind the lens at closest approach: no image is seen" } : {}),
     },
     { id: "rho", label: "Source radius in Einstein radii", symbol: "ρ", kind: "ratio", value: sourceRadiusThetaE },
     { id: "centroid-shift", label: isPair ? "Astrometric centroid shift" : "Shift of the image seen from the source", symbol: "δθ", kind: "angle", value: visibleCentroidShift * thetaERad },

@@ -75,6 +75,7 @@ describe("the Sun as a lens", () => {
   it("hides both images, and the source, when it lies behind the disk (β = 0.3 θ_E)", () => {
     const behind = resultsOf({ ...sun, betaUnit: "thetaE", beta: "0.3" });
     expect(rowOf(behind, "mu-total").value).toBe(0);
+    expect(rowOf(behind, "peak")).toMatchObject({ value: 0, note: "the source is behind the lens at closest approach: no image is seen" });
     expect(behind.verdicts[0].text).toMatch(/^both images lie behind the lens's body/);
     expect(behind.lensPlane.images).toEqual([]);
   });
