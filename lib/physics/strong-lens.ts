@@ -170,9 +170,9 @@ function imageOf(order: number, side: 1 | -1, betaRad: number, geometry: LensGeo
  * cancellation (lensResidual), then Newton in theta for the weak-field images; exact deflection from
  * ./deflection, d alpha/db by Richardson-extrapolated differences; magnifications as 1/(1 + x) with
  * x = 1/mu - 1 free of cancellation (magnificationOf). Accuracy against mpmath (tested, beta from
- * 1e-6 to 0.49 rad): positions 4e-16 relative (the primary within one ulp, so theta >= beta and
- * mu >= 1 even where theta - beta or mu - 1 is below one ulp), theta - theta_inf of the relativistic
- * images 2e-13, magnifications 4e-12.
+ * 1e-6 to 0.49 rad): positions 4e-16 relative, tested to 1e-15 (the primary within one ulp, so
+ * theta >= beta and mu >= 1 even where theta - beta or mu - 1 is below one ulp), theta - theta_inf of
+ * the relativistic images 2e-13, magnifications 4e-12.
  */
 export function virbhadraEllisImages(
   sourceAngleRad: number,

@@ -46,7 +46,7 @@ describe("virbhadraEllisImages", () => {
       }
     }
     console.info(`virbhadraEllisImages: largest relative errors theta ${worstTheta.toExponential(2)}, theta - theta_inf ${worstOffset.toExponential(2)}, magnification ${worstMagnification.toExponential(2)}`);
-    expect(worstTheta).toBeLessThan(1e-14);
+    expect(worstTheta).toBeLessThan(1e-15);
     expect(worstOffset).toBeLessThan(1e-11);
     expect(worstMagnification).toBeLessThan(1e-10);
   });
