@@ -25,7 +25,10 @@
  * length of the text.
  */
 
-/** A number read from the start of a text, or what is wrong with it in the user's words. */
+/**
+ * A number read from the start of a text, or what is wrong with it in the user's words; `hasDigits`
+ * is false when the text does not start with a number at all, which the caller words for its field.
+ */
 export type NumberReading = { ok: true; value: number; length: number } | { ok: false; problem: string; hasDigits: boolean };
 
 const SUPERSCRIPT_DIGITS = "⁰¹²³⁴⁵⁶⁷⁸⁹";

@@ -127,10 +127,11 @@ function parseQuantity(kind: QuantityKind, text: string, accepted: string[], opt
   if (!number.ok) throw number.hasDigits ? new QuantityError(kind, text, number.problem) : quantityError(kind, text, "is not a number followed by a unit");
   const typedUnit = folded.slice(number.length).trim();
   const isAssumed = typedUnit === "";
-  const unitText = isAssumed ? (options?.defaultUnit ?? "") : typedUnit;
-  if (unitText === "") throw quantityError(kind, text, `has no ${kind} unit`);
+  const defaultUnit = options?.defaultUnit ?? "";
   // A default unit can come from a file's column; it gets the same bound as typed text.
-  if (unitText.length > MAX_QUANTITY_CHARS) throw quantityError(kind, text, `has a unit longer than ${MAX_QUANTITY_CHARS} characters`);
+  if (isAssumed && defaultUnit.length > MAX_QUANTITY_CHARS) throw quantityError(kind, text, `has a unit longer than ${MAX_QUANTITY_CHARS} characters`);
+  const unitText = isAssumed ? foldSpaces(defaultUnit) : typedUnit;
+  if (unitText === "") throw quantityError(kind, text, `has no ${kind} unit`);
   const unit = readUnit(unitText);
   if (!unit.ok) throw quantityError(kind, text, unit.problem, unit.instead);
   const index = accepted.findIndex((reference) => unit.unit.equalBase(math.unit(reference)));
@@ -349,10 +350,10 @@ function withLabel(number: string, label: string): string {
 /**
  * The echo of `text` read as `kind`, as a field shows it beside its input: "= 4.1 × 10⁶ M☉", four
  * significant digits, in `displayUnit` (any spelling the parser reads, of the kind's dimension;
- * default: see defaultDisplayUnit). A bare number
- * read in `defaultUnit` says so ("= 8100 pc (no unit typed: taken as kpc)", with `assumedUnit`); a
- * frequency typed for a wavelength is echoed beside it ("= 1.303 mm (230 GHz)"); a geometrized mass
- * says how it was read ("(typed as GM/c²)"). A refusal gives the QuantityError's problem.
+ * default: see defaultDisplayUnit). A bare number read in `defaultUnit` says so ("= 8100 pc (no unit
+ * typed: taken as kpc)", with `assumedUnit`); a frequency typed for a wavelength is echoed beside it
+ * ("= 1.303 mm (230 GHz)"); a geometrized mass says how it was read ("(typed as GM/c²)"). A refusal
+ * gives the QuantityError's problem.
  * Throws a plain Error for a `displayUnit` of the wrong dimension (a mistake in the calling code).
  */
 export function echoQuantity(kind: QuantityKind, text: string, options?: ParseOptions & { displayUnit?: string }): QuantityEcho {
