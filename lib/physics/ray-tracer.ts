@@ -16,10 +16,11 @@
  *
  * Deflection of an escaped ray: where alpha >= TRACED_DEFLECTION_MIN_RAD (b below ~40 M), the traced
  * swept angle extended to infinity at both ends by the exact tail integrals (sweptAngleFromInfinity),
- * minus pi. That difference carries the integrator's absolute error in the swept angle of ~pi,
- * about 0.7 rtol rad whatever alpha is (measured), so below the threshold, where that floor would
- * exceed rtol/0.1 = 10 rtol relative and for b/M >~ 1e9 the answer itself (down to a wrong sign),
- * the deflection is the closed form exactDeflection(b, M) instead. The traced path and times are
+ * minus pi. That difference carries the integrator's absolute error in the swept angle of ~pi:
+ * about 0.7 rtol rad for b >~ 40 M whatever alpha is, up to ~9 rtol near the photon sphere
+ * (measured). So below the threshold, where that floor would exceed 7 rtol relative and for
+ * b/M >~ 1e9 the answer itself (down to a wrong sign), the deflection is the closed form
+ * exactDeflection(b, M) instead. The traced path and times are
  * the same in both cases; the path's swept angle agrees with the reported deflection to that floor.
  *
  * Winding: halfTurns = floor(swept angle / pi) of the traced path (0 or 1 for a ray that merely
@@ -83,7 +84,7 @@ const DEFAULT_RTOL = 1e-10;
 const DEFAULT_MAX_HALF_TURNS = 40;
 /**
  * Smallest deflection reported from the integration; below it the closed form is returned (module
- * comment): the traced value's error, ~0.7 rtol rad, is then at most ~7 rtol relative.
+ * comment): the traced value's error there, ~0.7 rtol rad, is then at most ~7 rtol relative.
  */
 const TRACED_DEFLECTION_MIN_RAD = 0.1;
 /**
@@ -280,7 +281,7 @@ function resolveOptions(largestAbsBOverM: number, M: number, options: TraceOptio
  * any |b| < 1e-100 M, is the radial ray), M > 0, options as TraceOptions. Accuracy at the default rtol 1e-10 (tested against
  * mpmath quadrature): travel times 6e-10 relative from b = 6 M to 1e12 M (7e-11 for b >= 1e3 M, which
  * is more than the Shapiro excess of a ray with b >~ 1e11 M); the escaped deflection is traced where
- * alpha >= 0.1 rad, within 7e-10 rad (6e-10 relative) of exactDeflection, and below is the closed
+ * alpha >= 0.1 rad, within 1e-9 rad (6e-10 relative) of exactDeflection, and below is the closed
  * form exactDeflection itself (module comment: the integrator's ~0.7 rtol rad floor would exceed a
  * weakly deflected ray's alpha), to which the path's swept angle agrees within 7e-11 rad.
  */
