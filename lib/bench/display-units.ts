@@ -117,6 +117,8 @@ export function naturalLengthUnit(lengthM: number): "m" | "km" | "au" | "pc" {
 export function displayUnit(kind: DisplayKind, value: number, chosen: string | undefined): string {
   if (kind === "ratio") return "";
   if (chosen !== undefined && (unitChoices[kind] as readonly string[]).includes(chosen)) return chosen;
+  // A row with no value ("—") still offers a unit; any middling one will do.
+  if (!Number.isFinite(value)) return { angle: "mas", time: "d", length: "km" }[kind];
   if (kind === "angle") return naturalAngleUnit(value);
   if (kind === "time") return naturalTimeUnit(value);
   return naturalLengthUnit(value);

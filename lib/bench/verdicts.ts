@@ -55,6 +55,10 @@ export function samplingVerdict(einsteinTimeS: number, cadenceS: number, campaig
   if (peakTimeS < 0 || peakTimeS > campaignS) {
     return { id: "sampling", outlook: "infeasible", text: `${lead}; the peak falls outside the ${timeWords(campaignS)} campaign` };
   }
+  // Epochs alone do not make a light curve: a campaign shorter than t_E sees only a sliver of it.
+  if (campaignS < einsteinTimeS) {
+    return { id: "sampling", outlook: "infeasible", text: `${lead}; the ${timeWords(campaignS)} campaign covers less than t_E, so the magnification barely changes within it` };
+  }
   if (epochs >= WELL_SAMPLED_EPOCHS) return { id: "sampling", outlook: "feasible", text: `${lead}: well sampled` };
   if (epochs >= USABLE_EPOCHS) return { id: "sampling", outlook: "marginal", text: `${lead}: sparsely sampled` };
   return { id: "sampling", outlook: "infeasible", text: `${lead}: undersampled` };

@@ -27,6 +27,11 @@ describe("sampling verdict", () => {
     expect(samplingVerdict(12 * DAY_S, 2 * DAY_S, 90 * DAY_S, 45 * DAY_S)).toMatchObject({ outlook: "marginal", text: expect.stringMatching(/sampled 12 times .*: sparsely sampled$/) });
     expect(samplingVerdict(2 * DAY_S, DAY_S, 90 * DAY_S, 45 * DAY_S)).toMatchObject({ outlook: "infeasible", text: expect.stringMatching(/sampled 5 times .*: undersampled$/) });
     expect(samplingVerdict(12 * DAY_S, DAY_S, 30 * DAY_S, 45 * DAY_S).text).toMatch(/the peak falls outside the 30 d campaign$/);
+    // The Sun seen from the Earth against a star at 8 kpc: t_E = θ_E/μ ≈ 6,800 yr, not sampled by 90 d.
+    expect(samplingVerdict(6831 * 365.25 * DAY_S, DAY_S, 90 * DAY_S, 45 * DAY_S)).toMatchObject({
+      outlook: "infeasible",
+      text: expect.stringMatching(/^t_E = 6800 yr sampled 91 times .*; the 90 d campaign covers less than t_E, so the magnification barely changes within it$/),
+    });
   });
 
   it("counts only epochs inside the campaign", () => {
