@@ -20,3 +20,21 @@ describe("stale results", () => {
     expect(STALE_RESULTS_TEXT).toMatch(/^The results, verdicts and plots below belong to the last valid sketch/);
   });
 });
+
+describe("messages the bench shows for values the physics cannot take", () => {
+  it("refuses a mass typed as 5 kpc beside the mass field, in words, not with the physics' argument names", () => {
+    const parsed = parseSketch({ ...demoSketch, mass: "5 kpc" });
+    if (parsed.ok) throw new Error("expected a refusal");
+    expect(parsed.fieldErrors.mass).toMatch(/^Lens mass: '5 kpc' .*not a mass/);
+    expect(JSON.stringify(parsed.fieldErrors)).not.toMatch(/dLensPc|massSolar|sourceAngleRad/);
+  });
+
+  it("says in plain words that a sketch cannot be computed, without the physics' own message", () => {
+    const parsed = parseSketch(demoSketch);
+    if (!parsed.ok) throw new Error("the demo parses");
+    const computed = computeResults({ ...parsed.inputs, geometry: { ...parsed.inputs.geometry, dLensPc: -1 } });
+    expect(computed.ok).toBe(false);
+    expect(computed.ok || computed.message).toMatch(/^These values lie outside what the bench can compute/);
+    expect(computed.ok || computed.message).not.toMatch(/dLensPc|must be a finite number/);
+  });
+});
