@@ -25,15 +25,27 @@ export type QuantityKind = "mass" | "distance" | "length" | "wavelength" | "angl
 export class QuantityError extends Error {
   readonly quantity: QuantityKind;
   readonly input: string;
-  /** What is wrong, in the user's words, without the quantity's name: "has an unknown unit 'foo'". */
+  /**
+   * What is wrong and what to type instead, in the user's words, without the quantity's name:
+   * "has an unknown unit 'Mpx'; type e.g. 8 kpc or 2.5e4 ly".
+   */
   readonly problem: string;
+  /** What is wrong alone: "has an unknown unit 'Mpx'". */
+  readonly fault: string;
+  /**
+   * What to type when the mistake itself says it ("8125 or 8.125", "mas"); undefined when `problem`
+   * ends with the kind's general examples, which a field may replace with its own.
+   */
+  readonly advice: string | undefined;
 
-  constructor(quantity: QuantityKind, input: string, problem: string) {
+  constructor(quantity: QuantityKind, input: string, problem: string, detail?: { fault: string; advice?: string }) {
     super(`${quantity}: '${input}' ${problem}`);
     this.name = "QuantityError";
     this.quantity = quantity;
     this.input = input;
     this.problem = problem;
+    this.fault = detail?.fault ?? problem;
+    this.advice = detail?.advice;
   }
 }
 
@@ -90,7 +102,13 @@ function refusal(kind: QuantityKind, problem: string, instead?: string): string 
 }
 
 function quantityError(kind: QuantityKind, text: string, problem: string, instead?: string): QuantityError {
-  return new QuantityError(kind, text, refusal(kind, problem, instead));
+  return new QuantityError(kind, text, refusal(kind, problem, instead), { fault: problem, advice: instead });
+}
+
+/** The error for a number that breaks the rules of ./quantity-text, whose problems each end with their own advice. */
+function numberError(kind: QuantityKind, text: string, problem: string): QuantityError {
+  const cut = problem.indexOf("; type ");
+  return new QuantityError(kind, text, problem, cut < 0 ? undefined : { fault: problem.slice(0, cut), advice: problem.slice(cut + "; type ".length) });
 }
 
 export interface ParseOptions {
@@ -124,7 +142,7 @@ function parseQuantity(kind: QuantityKind, text: string, accepted: string[], opt
   if (text.length > MAX_QUANTITY_CHARS) throw quantityError(kind, `${text.slice(0, 20)}…`, `is longer than ${MAX_QUANTITY_CHARS} characters`);
   const folded = foldSpaces(text);
   const number = readLeadingNumber(folded);
-  if (!number.ok) throw number.hasDigits ? new QuantityError(kind, text, number.problem) : quantityError(kind, text, "is not a number followed by a unit");
+  if (!number.ok) throw number.hasDigits ? numberError(kind, text, number.problem) : quantityError(kind, text, "is not a number followed by a unit");
   const typedUnit = folded.slice(number.length).trim();
   const isAssumed = typedUnit === "";
   const defaultUnit = options?.defaultUnit ?? "";
@@ -229,7 +247,7 @@ export function parseNumber(text: string): number {
   if (text.length > MAX_QUANTITY_CHARS) throw quantityError("number", `${text.slice(0, 20)}…`, `is longer than ${MAX_QUANTITY_CHARS} characters`);
   const folded = foldSpaces(text);
   const number = readLeadingNumber(folded);
-  if (!number.ok) throw number.hasDigits ? new QuantityError("number", text, number.problem) : quantityError("number", text, "is not a number");
+  if (!number.ok) throw number.hasDigits ? numberError("number", text, number.problem) : quantityError("number", text, "is not a number");
   if (number.length !== folded.length) throw quantityError("number", text, "is not a plain number (no unit here)");
   if (!Number.isFinite(number.value)) throw quantityError("number", text, "is not finite");
   return number.value;

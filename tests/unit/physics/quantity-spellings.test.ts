@@ -165,6 +165,21 @@ describe("refusals (issue 15: no number misread by a factor of 1,000, every refu
     }
   });
 
+  it("keeps what is wrong apart from what to type, so a field can put its own example", () => {
+    const error = (parse: () => unknown) => {
+      try {
+        parse();
+      } catch (caught) {
+        return caught as QuantityError;
+      }
+      throw new Error("expected a QuantityError");
+    };
+    expect(error(() => parseDistance("1 Mpx"))).toMatchObject({ fault: "has an unknown unit 'Mpx'", advice: undefined });
+    expect(error(() => parseAngle("5 MAS"))).toMatchObject({ fault: "has the unit 'MAS', whose case matters", advice: "mas" });
+    expect(error(() => parseDistance("8,125 kpc"))).toMatchObject({ fault: "could be 8125 or 8.125: the comma may separate thousands or decimals", advice: "8125 or 8.125" });
+    expect(error(() => parseNumber("zz"))).toMatchObject({ fault: "is not a number", advice: undefined });
+  });
+
   it("refuses a unit given by a file that is longer than a quantity could be", () => {
     expect(problemOf(() => parseDistance("5", { defaultUnit: "p".repeat(10_000) }))).toContain("longer than 100 characters");
   });
