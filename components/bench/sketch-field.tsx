@@ -1,9 +1,10 @@
 "use client";
 
 import { useId } from "react";
-import { fieldEcho, type FieldEcho } from "@/lib/bench/field-echo";
+import { fieldEcho } from "@/lib/bench/field-echo";
 import type { FieldErrors, FieldWarnings } from "@/lib/bench/parse-sketch";
 import { fieldLabels, type Sketch, type SketchField as SketchFieldName } from "@/lib/bench/sketch-state";
+import type { QuantityEcho } from "@/lib/physics";
 
 interface SketchFieldProps {
   label: string;
@@ -15,7 +16,7 @@ interface SketchFieldProps {
   /** A value that computes but deserves a second look. */
   warning?: string;
   /** The value the bench uses, echoed by the quantity parser. */
-  echo?: FieldEcho;
+  echo?: QuantityEcho;
   /** Test id of the echo: `echo-<field>`. */
   echoTestId?: string;
 }
@@ -29,7 +30,7 @@ export function SketchField({ label, value, onChange, hint, error, warning, echo
   const hintId = `${id}-hint`;
   const errorId = `${id}-error`;
   const echoId = `${id}-echo`;
-  const shownEcho = error === undefined && echo?.echo.ok ? echo : undefined;
+  const shownEcho = error === undefined && echo?.ok ? echo.text : undefined;
   return (
     <div className="flex flex-col gap-1">
       <label htmlFor={id} className="text-sm font-semibold text-dusk">
@@ -47,10 +48,9 @@ export function SketchField({ label, value, onChange, hint, error, warning, echo
         aria-describedby={error !== undefined ? `${errorId} ${hintId}` : shownEcho !== undefined ? `${echoId} ${hintId}` : hintId}
         className={`rounded border bg-void px-2 py-1 font-mono text-sm text-dusk ${error !== undefined ? "border-alarm" : "border-void-edge"}`}
       />
-      {shownEcho?.echo.ok ? (
+      {shownEcho !== undefined ? (
         <p id={echoId} className="font-mono text-xs text-glint" data-testid={echoTestId} aria-live="polite">
-          {shownEcho.echo.text}
-          {shownEcho.assumedUnit !== undefined ? <span className="font-sans text-dusk-dim"> (no unit typed: read in {shownEcho.assumedUnit})</span> : null}
+          {shownEcho}
         </p>
       ) : null}
       {warning !== undefined && error === undefined ? (

@@ -104,7 +104,7 @@ export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: Ske
         ) : (
           <div className="grid grid-cols-2 gap-3">
             {text("lambda", "e.g. 2.2 um, 1.3 mm, 230 GHz; a bare number is µm")}
-            {text("baseline", "e.g. 130 m, 10,000 km; a bare number is metres")}
+            {text("baseline", "e.g. 130 m, 10000 km; a bare number is metres")}
           </div>
         )}
         <div className="grid grid-cols-2 gap-3">

@@ -32,24 +32,16 @@ const fieldKinds = {
   rstar: "length",
 } as const satisfies Partial<Record<SketchField, QuantityKind>>;
 
-/** How the default units are written for people, in the "no unit typed" remark. */
-const unitWords: Record<string, string> = { Msun: "M☉", Rsun: "R☉", um: "µm" };
-
-export interface FieldEcho {
-  echo: QuantityEcho;
-  /** The unit a bare number was read in, written for people; undefined when a unit was typed. */
-  assumedUnit?: string;
-}
-
-/** The echo of `field`'s text; undefined for choice fields. */
-export function fieldEcho(sketch: Sketch, field: SketchField): FieldEcho | undefined {
+/**
+ * The echo of `field`'s text (which says so when a bare number was taken in the field's unit);
+ * undefined for choice fields.
+ */
+export function fieldEcho(sketch: Sketch, field: SketchField): QuantityEcho | undefined {
   if (field === "radius" && isCompactRadiusText(sketch.radius)) {
-    return { echo: { ok: true, text: "= compact object (no surface outside its photon sphere)", assumedUnit: false } };
+    return { ok: true, text: "= compact object (no surface outside its photon sphere)", assumedUnit: false };
   }
   const kind: QuantityKind | undefined = field === "beta" ? (sketch.betaUnit === "angle" ? "angle" : "number") : (fieldKinds as Partial<Record<SketchField, QuantityKind>>)[field];
   if (kind === undefined) return undefined;
   const defaultUnit = kind === "number" ? undefined : (defaultUnits as Partial<Record<SketchField, string>>)[field];
-  const echo = echoQuantity(kind, sketch[field], defaultUnit === undefined ? undefined : { defaultUnit });
-  const isAssumed = echo.ok && echo.assumedUnit && defaultUnit !== undefined;
-  return { echo, assumedUnit: isAssumed ? (unitWords[defaultUnit] ?? defaultUnit) : undefined };
+  return echoQuantity(kind, sketch[field], defaultUnit === undefined ? undefined : { defaultUnit });
 }
