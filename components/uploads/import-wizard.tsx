@@ -40,7 +40,8 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
     fileId: id,
     mapping: chosen,
     toleranceArcsec: Number(toleranceText),
-    fill: { priority: Number(priorityText), sourceOffsetThetaE: Number(offsetText) },
+    // Sent as typed: the server reads them as the target form's fields are read, and names the one refused.
+    fill: { priority: priorityText, sourceOffsetThetaE: offsetText },
   });
 
   function runPreview(id: string, chosen: ColumnMapping | undefined) {

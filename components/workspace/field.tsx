@@ -5,12 +5,16 @@ interface FieldProps extends React.InputHTMLAttributes<HTMLInputElement> {
   name: string;
   errors?: string[];
   hint?: string;
+  /** What the field read from its text, shown as the user types (a quantity's value in its unit). */
+  echo?: { text: string; isRefused: boolean } | null;
 }
 
 /** A labelled input with its validation messages beside it (announced to screen readers). */
-export function Field({ label, name, errors, hint, className, ...input }: FieldProps) {
+export function Field({ label, name, errors, hint, echo, className, ...input }: FieldProps) {
   const id = useId();
   const errorId = `${id}-error`;
+  const echoId = `${id}-echo`;
+  const describedBy = [echo ? echoId : undefined, errors && errors.length > 0 ? errorId : undefined].filter(Boolean).join(" ");
   return (
     <div className={className}>
       <label htmlFor={id} className="block text-sm font-semibold text-dusk">
@@ -20,10 +24,15 @@ export function Field({ label, name, errors, hint, className, ...input }: FieldP
         id={id}
         name={name}
         aria-invalid={errors && errors.length > 0 ? true : undefined}
-        aria-describedby={errors && errors.length > 0 ? errorId : undefined}
+        aria-describedby={describedBy === "" ? undefined : describedBy}
         className="mt-1 w-full rounded-md border border-void-edge bg-void px-3 py-2 text-dusk placeholder:text-dusk-dim"
         {...input}
       />
+      {echo && (
+        <p id={echoId} data-testid={`echo-${name}`} aria-live="polite" className={`mt-1 text-xs ${echo.isRefused ? "text-alarm" : "text-glint"}`}>
+          {echo.text}
+        </p>
+      )}
       {hint && <p className="mt-1 text-xs text-dusk-dim">{hint}</p>}
       {errors && errors.length > 0 && (
         <p id={errorId} role="alert" className="mt-1 text-sm text-alarm">

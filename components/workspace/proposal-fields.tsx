@@ -1,11 +1,12 @@
 import type { FieldErrors } from "@/lib/errors";
-import type { ProposalInput } from "@/lib/workspace/proposal-schema";
+import { proposalQuantities, type ProposalInput } from "@/lib/workspace/proposal-schema";
 import { Field } from "@/components/workspace/field";
+import { QuantityInput } from "@/components/workspace/quantity-input";
 
-/** Typed text as a number when it reads as one; otherwise the text, so the server names the field. */
-const numberOrText = (text: string | undefined) => (text !== undefined && text.trim() !== "" && Number.isFinite(Number(text)) ? Number(text) : text);
+/** A quantity as typed: the server reads it with its unit (one parser for the form and the API). */
+const typed = (text: string | undefined) => text ?? "";
 /** An optional field: blank is "not set" (null). */
-const optionalNumber = (text: string | undefined) => (text === undefined || text.trim() === "" ? null : numberOrText(text));
+const optionalTyped = (text: string | undefined) => (text === undefined || text.trim() === "" ? null : text);
 const optionalDate = (text: string | undefined) => (text === undefined || text.trim() === "" ? null : text);
 
 /** The request body of the create and edit forms, from the form's values by input name. */
@@ -18,18 +19,18 @@ export function proposalBody(v: Record<string, string>) {
     cycleEndDate: optionalDate(v.cycleEndDate),
     site: {
       name: v.siteName,
-      latitudeDeg: numberOrText(v.latitudeDeg),
-      longitudeDeg: numberOrText(v.longitudeDeg),
-      elevationM: numberOrText(v.elevationM),
-      horizonLimitDeg: numberOrText(v.horizonLimitDeg),
+      latitudeDeg: typed(v.latitudeDeg),
+      longitudeDeg: typed(v.longitudeDeg),
+      elevationM: typed(v.elevationM),
+      horizonLimitDeg: typed(v.horizonLimitDeg),
     },
     instrument: {
-      resolutionMas: numberOrText(v.resolutionMas),
-      cadenceHours: numberOrText(v.cadenceHours),
-      campaignLengthDays: numberOrText(v.campaignLengthDays),
-      airmassLimit: numberOrText(v.airmassLimit),
-      interferometerWavelengthMm: optionalNumber(v.interferometerWavelengthMm),
-      interferometerBaselineKm: optionalNumber(v.interferometerBaselineKm),
+      resolutionMas: typed(v.resolutionMas),
+      cadenceHours: typed(v.cadenceHours),
+      campaignLengthDays: typed(v.campaignLengthDays),
+      airmassLimit: typed(v.airmassLimit),
+      interferometerWavelengthMm: optionalTyped(v.interferometerWavelengthMm),
+      interferometerBaselineKm: optionalTyped(v.interferometerBaselineKm),
     },
   };
 }
@@ -59,19 +60,19 @@ export function ProposalFields({ fields, initial }: { fields: FieldErrors; initi
       <fieldset className="grid gap-4 md:grid-cols-5">
         <legend className="mb-2 text-sm font-semibold text-dusk-dim">Observing site</legend>
         <Field label="Site name" name="siteName" required defaultValue={initial?.site.name} errors={fields["site.name"]} />
-        <Field label="Latitude (deg)" name="latitudeDeg" inputMode="decimal" required defaultValue={text(initial?.site.latitudeDeg)} errors={fields["site.latitudeDeg"]} />
-        <Field label="Longitude (deg, east +)" name="longitudeDeg" inputMode="decimal" required defaultValue={text(initial?.site.longitudeDeg)} errors={fields["site.longitudeDeg"]} />
-        <Field label="Elevation (m)" name="elevationM" inputMode="decimal" required defaultValue={text(initial?.site.elevationM)} errors={fields["site.elevationM"]} />
-        <Field label="Horizon limit (deg)" name="horizonLimitDeg" inputMode="decimal" defaultValue={initial ? text(initial.site.horizonLimitDeg) : "20"} required errors={fields["site.horizonLimitDeg"]} />
+        <QuantityInput spec={proposalQuantities.latitudeDeg} label="Latitude (deg)" name="latitudeDeg" required defaultValue={text(initial?.site.latitudeDeg)} errors={fields["site.latitudeDeg"]} />
+        <QuantityInput spec={proposalQuantities.longitudeDeg} label="Longitude (deg, east +)" name="longitudeDeg" required defaultValue={text(initial?.site.longitudeDeg)} errors={fields["site.longitudeDeg"]} />
+        <QuantityInput spec={proposalQuantities.elevationM} label="Elevation (m)" name="elevationM" required defaultValue={text(initial?.site.elevationM)} errors={fields["site.elevationM"]} />
+        <QuantityInput spec={proposalQuantities.horizonLimitDeg} label="Horizon limit (deg)" name="horizonLimitDeg" defaultValue={initial ? text(initial.site.horizonLimitDeg) : "20"} required errors={fields["site.horizonLimitDeg"]} />
       </fieldset>
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm font-semibold text-dusk-dim">Instrument defaults</legend>
-        <Field label="Resolution (mas)" name="resolutionMas" inputMode="decimal" required defaultValue={text(initial?.instrument.resolutionMas)} errors={fields["instrument.resolutionMas"]} />
-        <Field label="Cadence (hours)" name="cadenceHours" inputMode="decimal" required defaultValue={text(initial?.instrument.cadenceHours)} errors={fields["instrument.cadenceHours"]} />
-        <Field label="Campaign length (days)" name="campaignLengthDays" inputMode="decimal" required defaultValue={text(initial?.instrument.campaignLengthDays)} errors={fields["instrument.campaignLengthDays"]} />
-        <Field label="Airmass limit" name="airmassLimit" inputMode="decimal" required defaultValue={initial ? text(initial.instrument.airmassLimit) : "2"} hint="2 ≈ 30° altitude" errors={fields["instrument.airmassLimit"]} />
-        <Field label="Interferometer wavelength λ (mm)" name="interferometerWavelengthMm" inputMode="decimal" defaultValue={text(initial?.instrument.interferometerWavelengthMm)} hint="optional, with the baseline" errors={fields["instrument.interferometerWavelengthMm"]} />
-        <Field label="Longest baseline B (km)" name="interferometerBaselineKm" inputMode="decimal" defaultValue={text(initial?.instrument.interferometerBaselineKm)} hint="optional, with the wavelength" errors={fields["instrument.interferometerBaselineKm"]} />
+        <QuantityInput spec={proposalQuantities.resolutionMas} label="Resolution (mas)" name="resolutionMas" required defaultValue={text(initial?.instrument.resolutionMas)} hint="or with a unit: 50 uas, 0.05 arcsec" errors={fields["instrument.resolutionMas"]} />
+        <QuantityInput spec={proposalQuantities.cadenceHours} label="Cadence (hours)" name="cadenceHours" required defaultValue={text(initial?.instrument.cadenceHours)} hint="or with a unit: 30 min, 1 d" errors={fields["instrument.cadenceHours"]} />
+        <QuantityInput spec={proposalQuantities.campaignLengthDays} label="Campaign length (days)" name="campaignLengthDays" required defaultValue={text(initial?.instrument.campaignLengthDays)} hint="or with a unit: 2 yr" errors={fields["instrument.campaignLengthDays"]} />
+        <QuantityInput spec={proposalQuantities.airmassLimit} label="Airmass limit" name="airmassLimit" inputMode="decimal" required defaultValue={initial ? text(initial.instrument.airmassLimit) : "2"} hint="2 ≈ 30° altitude" errors={fields["instrument.airmassLimit"]} />
+        <QuantityInput spec={proposalQuantities.interferometerWavelengthMm} label="Interferometer wavelength λ (mm)" name="interferometerWavelengthMm" defaultValue={text(initial?.instrument.interferometerWavelengthMm)} hint="optional, with the baseline; or 2.2 um, 230 GHz" errors={fields["instrument.interferometerWavelengthMm"]} />
+        <QuantityInput spec={proposalQuantities.interferometerBaselineKm} label="Longest baseline B (km)" name="interferometerBaselineKm" defaultValue={text(initial?.instrument.interferometerBaselineKm)} hint="optional, with the wavelength" errors={fields["instrument.interferometerBaselineKm"]} />
       </fieldset>
     </>
   );

@@ -1,9 +1,10 @@
 "use client";
 
 import type { FieldErrors } from "@/lib/errors";
-import { lensModelLabels, lensModels, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
+import { lensModelLabels, lensModels, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { Field } from "@/components/workspace/field";
+import { QuantityInput } from "@/components/workspace/quantity-input";
 
 /** Where a target's geometry comes from: Galactic distances or cosmological redshifts. */
 export type GeometrySource = "distance" | "redshift";
@@ -14,10 +15,10 @@ export type TargetFieldTexts = Partial<Record<TargetFieldName, string>>;
 /** The text inputs: every field of a new target but the lens model, which is a select. */
 type TargetFieldName = Exclude<keyof CreateTargetInput, "lensModel">;
 
-/** Empty → absent, a number → a number, anything else is sent as typed so the server names the field. */
-export function optionalNumber(text: string | undefined): number | string | null {
+/** Empty → absent; anything else is sent as typed, and the server reads it with its unit (one parser for the form and the API). */
+export function optionalTyped(text: string | undefined): string | null {
   if (text === undefined || text.trim() === "") return null;
-  return Number.isFinite(Number(text)) ? Number(text) : text;
+  return text;
 }
 
 /**
@@ -30,20 +31,20 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     ra: v.ra,
     dec: v.dec,
     lensModel: model,
-    lensMassSolar: model === "point" ? optionalNumber(v.lensMassSolar) : null,
-    velocityDispersionKmPerS: model === "sis" ? optionalNumber(v.velocityDispersionKmPerS) : null,
-    lensDistancePc: geometry === "distance" ? optionalNumber(v.lensDistancePc) : null,
-    sourceDistancePc: geometry === "distance" ? optionalNumber(v.sourceDistancePc) : null,
-    lensRedshift: geometry === "redshift" ? optionalNumber(v.lensRedshift) : null,
-    sourceRedshift: geometry === "redshift" ? optionalNumber(v.sourceRedshift) : null,
-    sourceOffsetThetaE: optionalNumber(v.sourceOffsetThetaE),
-    properMotionMasPerYr: optionalNumber(v.properMotionMasPerYr),
-    priority: optionalNumber(v.priority),
+    lensMassSolar: model === "point" ? optionalTyped(v.lensMassSolar) : null,
+    velocityDispersionKmPerS: model === "sis" ? optionalTyped(v.velocityDispersionKmPerS) : null,
+    lensDistancePc: geometry === "distance" ? optionalTyped(v.lensDistancePc) : null,
+    sourceDistancePc: geometry === "distance" ? optionalTyped(v.sourceDistancePc) : null,
+    lensRedshift: geometry === "redshift" ? optionalTyped(v.lensRedshift) : null,
+    sourceRedshift: geometry === "redshift" ? optionalTyped(v.sourceRedshift) : null,
+    sourceOffsetThetaE: optionalTyped(v.sourceOffsetThetaE),
+    properMotionMasPerYr: optionalTyped(v.properMotionMasPerYr),
+    priority: optionalTyped(v.priority),
     tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
   };
 }
 
-/** The server names a bad tag by its index ("tags.2"); the form shows them all beside the one input. */
+/** The server keys a bad tag by its index ("tags.2"); the form shows every message beside the one input. */
 function tagErrors(fields: FieldErrors): string[] | undefined {
   const messages = Object.entries(fields).flatMap(([key, list]) => (key === "tags" || key.startsWith("tags.") ? list : []));
   return messages.length > 0 ? messages : undefined;
@@ -86,24 +87,24 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
       </div>
       <div className="grid gap-4 md:grid-cols-3">
         {model === "point" ? (
-          <Field label="Lens mass (M☉)" name="lensMassSolar" inputMode="decimal" defaultValue={initial.lensMassSolar} errors={fields.lensMassSolar} />
+          <QuantityInput spec={targetQuantities.lensMassSolar} label="Lens mass (M☉)" name="lensMassSolar" defaultValue={initial.lensMassSolar} hint="or with a unit: 4e6 Msun, 3 Mjup" errors={fields.lensMassSolar} />
         ) : (
-          <Field label="Velocity dispersion (km/s)" name="velocityDispersionKmPerS" inputMode="decimal" defaultValue={initial.velocityDispersionKmPerS} errors={fields.velocityDispersionKmPerS} />
+          <QuantityInput spec={targetQuantities.velocityDispersionKmPerS} label="Velocity dispersion (km/s)" name="velocityDispersionKmPerS" defaultValue={initial.velocityDispersionKmPerS} errors={fields.velocityDispersionKmPerS} />
         )}
         {geometry === "distance" ? (
           <>
-            <Field label="Lens distance (pc)" name="lensDistancePc" inputMode="decimal" defaultValue={initial.lensDistancePc} errors={fields.lensDistancePc} />
-            <Field label="Source distance (pc)" name="sourceDistancePc" inputMode="decimal" defaultValue={initial.sourceDistancePc} errors={fields.sourceDistancePc} />
+            <QuantityInput spec={targetQuantities.lensDistancePc} label="Lens distance (pc)" name="lensDistancePc" defaultValue={initial.lensDistancePc} hint="or with a unit: 4 kpc" errors={fields.lensDistancePc} />
+            <QuantityInput spec={targetQuantities.sourceDistancePc} label="Source distance (pc)" name="sourceDistancePc" defaultValue={initial.sourceDistancePc} errors={fields.sourceDistancePc} />
           </>
         ) : (
           <>
-            <Field label="Lens redshift" name="lensRedshift" inputMode="decimal" defaultValue={initial.lensRedshift} errors={fields.lensRedshift} />
-            <Field label="Source redshift" name="sourceRedshift" inputMode="decimal" defaultValue={initial.sourceRedshift} errors={fields.sourceRedshift} />
+            <QuantityInput spec={targetQuantities.lensRedshift} label="Lens redshift" name="lensRedshift" inputMode="decimal" defaultValue={initial.lensRedshift} errors={fields.lensRedshift} />
+            <QuantityInput spec={targetQuantities.sourceRedshift} label="Source redshift" name="sourceRedshift" inputMode="decimal" defaultValue={initial.sourceRedshift} errors={fields.sourceRedshift} />
           </>
         )}
-        <Field label="Source offset (θE)" name="sourceOffsetThetaE" inputMode="decimal" required defaultValue={initial.sourceOffsetThetaE} errors={fields.sourceOffsetThetaE} />
-        <Field label="Relative proper motion (mas/yr)" name="properMotionMasPerYr" inputMode="decimal" defaultValue={initial.properMotionMasPerYr} errors={fields.properMotionMasPerYr} />
-        <Field label="Priority (1–5)" name="priority" inputMode="numeric" required defaultValue={initial.priority} errors={fields.priority} />
+        <QuantityInput spec={targetQuantities.sourceOffsetThetaE} label="Source offset (θE)" name="sourceOffsetThetaE" inputMode="decimal" required defaultValue={initial.sourceOffsetThetaE} errors={fields.sourceOffsetThetaE} />
+        <QuantityInput spec={targetQuantities.properMotionMasPerYr} label="Relative proper motion (mas/yr)" name="properMotionMasPerYr" defaultValue={initial.properMotionMasPerYr} errors={fields.properMotionMasPerYr} />
+        <QuantityInput spec={targetQuantities.priority} label="Priority (1–5)" name="priority" inputMode="numeric" required defaultValue={initial.priority} errors={fields.priority} />
         <Field label="Tags" name="tags" placeholder="bulge, high-mag" defaultValue={initial.tags} errors={tagErrors(fields)} />
       </div>
     </>

@@ -2,7 +2,8 @@
 
 import { useState } from "react";
 import { useSWRConfig } from "swr";
-import type { LensModel } from "@/lib/workspace/target-schema";
+import { targetQuantities, type LensModel } from "@/lib/workspace/target-schema";
+import { readQuantityField } from "@/lib/workspace/quantity-field";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass } from "@/components/workspace/field";
@@ -13,7 +14,12 @@ import { formValues, useFormSubmit } from "@/components/workspace/use-form-submi
 
 type TargetBody = ReturnType<typeof targetBodyOf>;
 
-const numberOr = (value: number | string | null, fallback: number | null) => (typeof value === "number" ? value : fallback);
+/** A typed quantity as the server will read it, for the optimistic row; `fallback` until it reads. */
+function numberOr(field: keyof typeof targetQuantities, value: string | null, fallback: number | null): number | null {
+  if (value === null) return fallback;
+  const reading = readQuantityField(targetQuantities[field], value);
+  return reading.ok ? reading.value : fallback;
+}
 
 /** The row the table shows while the server works: the typed values, no computed columns yet. */
 function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
@@ -26,15 +32,15 @@ function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
     raText: body.ra,
     decText: body.dec,
     lensModel: body.lensModel,
-    lensMassSolar: numberOr(body.lensMassSolar, null),
-    velocityDispersionKmPerS: numberOr(body.velocityDispersionKmPerS, null),
-    lensDistancePc: numberOr(body.lensDistancePc, null),
-    sourceDistancePc: numberOr(body.sourceDistancePc, null),
-    lensRedshift: numberOr(body.lensRedshift, null),
-    sourceRedshift: numberOr(body.sourceRedshift, null),
-    sourceOffsetThetaE: numberOr(body.sourceOffsetThetaE, Number.NaN) as number,
-    properMotionMasPerYr: numberOr(body.properMotionMasPerYr, null),
-    priority: numberOr(body.priority, Number.NaN) as number,
+    lensMassSolar: numberOr("lensMassSolar", body.lensMassSolar, null),
+    velocityDispersionKmPerS: numberOr("velocityDispersionKmPerS", body.velocityDispersionKmPerS, null),
+    lensDistancePc: numberOr("lensDistancePc", body.lensDistancePc, null),
+    sourceDistancePc: numberOr("sourceDistancePc", body.sourceDistancePc, null),
+    lensRedshift: numberOr("lensRedshift", body.lensRedshift, null),
+    sourceRedshift: numberOr("sourceRedshift", body.sourceRedshift, null),
+    sourceOffsetThetaE: numberOr("sourceOffsetThetaE", body.sourceOffsetThetaE, Number.NaN) as number,
+    properMotionMasPerYr: numberOr("properMotionMasPerYr", body.properMotionMasPerYr, null),
+    priority: numberOr("priority", body.priority, Number.NaN) as number,
     status: "candidate",
     tags: body.tags,
     einsteinRadiusMas: null,

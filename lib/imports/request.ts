@@ -1,5 +1,5 @@
 import { z } from "zod";
-import { importFields } from "@/lib/imports/columns";
+import { importFieldLabels, importFields, type ImportField } from "@/lib/imports/columns";
 import { MAX_MATCH_TOLERANCE_ARCSEC } from "@/lib/imports/matching";
 import { lensModels, targetFieldsSchema } from "@/lib/workspace/target-schema";
 
@@ -12,27 +12,56 @@ export const DEFAULT_MATCH_TOLERANCE_ARCSEC = 1;
 /** Fill values the mapping step starts from (the same defaults as the add-a-target form). */
 export const defaultImportFill = { priority: 3, sourceOffsetThetaE: 0.3 } as const;
 
-const assignmentSchema = z.object({
-  column: z.number().int().min(0, "Choose a column.").max(9_999),
-  unit: z.string().trim().min(1, "Name the unit.").max(40, "A unit is at most 40 characters.").optional(),
-  isUnitAssumed: z.boolean().optional(),
+/** "The lens mass column" for an issue under `mapping.lensMassSolar`. */
+function mappedColumn(issue: { path?: PropertyKey[] }): string {
+  const field = issue.path?.[1];
+  if (typeof field !== "string" || !(field in importFieldLabels)) return "A mapped column";
+  const label = importFieldLabels[field as ImportField];
+  // "RA" and "Dec" keep their capitals; "Lens mass" reads "the lens mass column".
+  return `The ${/^[A-Z][a-z]/.test(label) ? label[0].toLowerCase() + label.slice(1) : label} column`;
+}
+
+const assignmentSchema = z.object(
+  {
+    column: z
+      .number({ error: (issue) => `${mappedColumn(issue)}: choose a column of the file.` })
+      .int({ error: (issue) => `${mappedColumn(issue)}: choose a column of the file.` })
+      .min(0, { error: (issue) => `${mappedColumn(issue)}: choose a column of the file.` })
+      .max(9_999, { error: (issue) => `${mappedColumn(issue)}: choose a column of the file.` }),
+    unit: z
+      .string({ error: (issue) => `${mappedColumn(issue)}: name the unit, e.g. kpc.` })
+      .trim()
+      .min(1, { error: (issue) => `${mappedColumn(issue)}: name the unit, e.g. kpc.` })
+      .max(40, { error: (issue) => `${mappedColumn(issue)}: the unit is at most 40 characters.` })
+      .optional(),
+    isUnitAssumed: z.boolean({ error: (issue) => `${mappedColumn(issue)}: whether its unit is assumed is true or false.` }).optional(),
+  },
+  { error: (issue) => `${mappedColumn(issue)}: choose a column of the file.` },
+);
+
+export const columnMappingSchema = z.partialRecord(z.enum(importFields), assignmentSchema, {
+  error: (issue) =>
+    issue.code === "invalid_key"
+      ? `The column mapping names a field the import does not fill; the fields are ${importFields.map((field) => importFieldLabels[field]).join(", ")}.`
+      : "The column mapping must say which column fills each field.",
 });
 
-export const columnMappingSchema = z.partialRecord(z.enum(importFields), assignmentSchema);
-
-export const importFillSchema = z.object({
-  lensModel: z.enum(lensModels).optional(),
-  priority: targetFieldsSchema.shape.priority.optional(),
-  sourceOffsetThetaE: targetFieldsSchema.shape.sourceOffsetThetaE.optional(),
-});
+export const importFillSchema = z.object(
+  {
+    lensModel: z.enum(lensModels, { error: "The lens model for empty cells is point or sis." }).optional(),
+    priority: targetFieldsSchema.shape.priority.optional(),
+    sourceOffsetThetaE: targetFieldsSchema.shape.sourceOffsetThetaE.optional(),
+  },
+  { error: "The values for empty cells must be a group of fields (lens model, priority, source offset)." },
+);
 
 /** Body of a preview: the uploaded file, and optionally the mapping chosen so far (else proposed). */
 export const importPreviewSchema = z.object({
-  fileId: z.uuid("Upload a target list first."),
+  fileId: z.uuid({ error: "The uploaded file is missing: upload a target list first." }),
   mapping: columnMappingSchema.optional(),
   fill: importFillSchema.default(defaultImportFill),
   toleranceArcsec: z
-    .number()
+    .number({ error: "The position tolerance is a positive number of arcseconds." })
     .positive("The position tolerance is a positive number of arcseconds.")
     .max(MAX_MATCH_TOLERANCE_ARCSEC, `The position tolerance is at most ${MAX_MATCH_TOLERANCE_ARCSEC}″.`)
     .default(DEFAULT_MATCH_TOLERANCE_ARCSEC),

@@ -12,6 +12,7 @@ import {
 import type { ImportTable } from "@/lib/imports/import-table";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { QuantityError, parseDistance, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
+import { wordedIssue } from "@/lib/workspace/issue-words";
 import { createTargetSchema, lensHypothesisErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 
 /** Values used for every row where the file has no column (or an empty cell) for the field. */
@@ -56,17 +57,9 @@ const lensModelSpellings: Record<string, LensModel> = {
 
 class CellError extends Error {}
 
-/** A VOTable unit (IVOA VOUnits 1.0: "km.s-1", "mas.yr-1") in the form the units parser reads. */
+/** A file's unit without the quotes some tables put around it; the units parser reads VOUnits ("km.s-1") itself. */
 function readableUnit(unit: string): string {
-  return unit
-    .trim()
-    .replace(/^"(.*)"$/, "$1")
-    .replace(/\.([A-Za-z]+)-1\b/g, "/$1");
-}
-
-function plainNumber(text: string): number {
-  if (!PLAIN_NUMBER.test(text)) throw new CellError("is not a number");
-  return Number(text);
+  return unit.trim().replace(/^"(.*)"$/, "$1");
 }
 
 /**
@@ -80,9 +73,8 @@ function quantity(kind: FieldKind, parse: (text: string, options: { defaultUnit?
     return parse(text, { defaultUnit });
   } catch (error) {
     if (!(error instanceof QuantityError)) throw error;
-    // The units parser names the quantity and the input; the row message already does.
-    const lead = `${error.quantity}: '${error.input}' `;
-    throw new CellError(error.message.startsWith(lead) ? error.message.slice(lead.length) : error.message);
+    // The row message names the field and the cell; the parser's problem says what is wrong with it.
+    throw new CellError(error.problem);
   }
 }
 
@@ -107,7 +99,8 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
     }
     case "number":
     case "integer":
-      return plainNumber(text);
+      // Read by the target schema with the parser's number rules (a decimal comma, thousands groups).
+      return text;
     case "tags":
       return text.split(/[;,|\s]+/).filter(Boolean);
     case "mass":
@@ -193,7 +186,7 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
     }
     input.lensModel ??= inferredLensModel(input);
 
-    const parsed = createTargetSchema.safeParse(input);
+    const parsed = createTargetSchema.safeParse(input, { error: wordedIssue });
     if (!parsed.success) {
       for (const issue of parsed.error.issues) {
         const field = issue.path[0] as ImportField | undefined;
@@ -203,7 +196,9 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
         errors.push(
           missing
             ? `${prefix}: ${label} is missing${field === "lensModel" ? " (give a mass for a point lens or a velocity dispersion for an isothermal one)" : ""}.`
-            : `${prefix}: ${label}${text ? ` ${text}` : ""} — ${issue.message}`,
+            : issue.message.startsWith(`${label}:`)
+              ? `${prefix}: ${issue.message}`
+              : `${prefix}: ${label}${text ? ` ${text}` : ""} — ${issue.message}`,
         );
       }
       return { rowNumber: row.rowNumber, cells, errors };

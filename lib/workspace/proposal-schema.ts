@@ -4,65 +4,145 @@ import type { FieldErrors } from "@/lib/errors";
 import { nightDateSchema, type SkySiteInput } from "@/lib/astro/inputs";
 import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
 import { addDaysIso } from "@/lib/astro/time";
+import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 
-/** The observing site: where the telescope stands and how low it can point. */
-export const siteSchema = z.object({
-  name: nameText().trim().min(1, "Name the site.").max(120, "A site name is at most 120 characters."),
-  latitudeDeg: z.number().min(-90, "Latitude is between -90 and 90 degrees.").max(90, "Latitude is between -90 and 90 degrees."),
-  longitudeDeg: z.number().min(-180, "Longitude is between -180 and 180 degrees (east positive).").max(180, "Longitude is between -180 and 180 degrees (east positive)."),
-  elevationM: z.number().min(-500, "Elevation is at least -500 m.").max(9000, "Elevation is at most 9000 m."),
-  horizonLimitDeg: z.number().min(0, "The horizon limit is 0 to 60 degrees of altitude.").max(60, "The horizon limit is 0 to 60 degrees of altitude."),
-});
-
-/** The lensing scales the stored verdicts compare each target with. */
-const lensingInstrumentSchema = z.object({
+/**
+ * The proposal's quantities: each a number in its stored unit (API clients) or typed text with a
+ * unit, read by the one quantity parser and converted to the stored unit. Angles default to degrees
+ * (sexagesimal is not read here), the elevation to metres.
+ */
+export const proposalQuantities = {
+  latitudeDeg: {
+    label: "Latitude",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "-24.6 deg",
+    range: { min: -90, max: 90 },
+    rangeMessage: "Latitude is between -90 and 90 degrees.",
+  },
+  longitudeDeg: {
+    label: "Longitude",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "-70.4 deg (east positive)",
+    range: { min: -180, max: 180 },
+    rangeMessage: "Longitude is between -180 and 180 degrees (east positive).",
+  },
+  elevationM: {
+    label: "Elevation",
+    kind: "length",
+    unit: "m",
+    unitWords: "m",
+    example: "2635 m",
+    range: { min: -500, max: 9000 },
+    rangeMessage: "Elevation is from -500 m to 9000 m.",
+  },
+  horizonLimitDeg: {
+    label: "Horizon limit",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "20 deg",
+    range: { min: 0, max: 60 },
+    rangeMessage: "The horizon limit is 0 to 60 degrees of altitude.",
+  },
   // Lower bounds (our rule) keep every ratio the verdicts take finite: 0.1 µas is finer than any
   // interferometer reaches (about 20 µas on Earth-sized baselines), 3.6 s and 15 min shorter than any
   // lensing cadence or campaign. Upper bounds: the whole sky, a year, ten years.
-  resolutionMas: z
-    .number("Resolution must be a number of milliarcseconds.")
-    .min(1e-4, "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°).")
-    .max(3.6e6, "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°)."),
-  cadenceHours: z
-    .number("Cadence must be a number of hours.")
-    .min(0.001, "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year).")
-    .max(24 * 365, "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year)."),
-  campaignLengthDays: z
-    .number("Campaign length must be a number of days.")
-    .min(0.01, "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years).")
-    .max(3653, "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years)."),
-});
+  resolutionMas: {
+    label: "Resolution",
+    kind: "angle",
+    unit: "mas",
+    unitWords: "mas",
+    example: "0.05 arcsec",
+    range: { min: 1e-4, max: 3.6e6 },
+    rangeMessage: "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°).",
+  },
+  cadenceHours: {
+    label: "Cadence",
+    kind: "time",
+    unit: "h",
+    unitWords: "h",
+    example: "30 min",
+    range: { min: 0.001, max: 24 * 365 },
+    rangeMessage: "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year).",
+  },
+  campaignLengthDays: {
+    label: "Campaign length",
+    kind: "time",
+    unit: "d",
+    unitWords: "days",
+    example: "90 d",
+    range: { min: 0.01, max: 3653 },
+    rangeMessage: "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years).",
+  },
+  airmassLimit: {
+    label: "Airmass limit",
+    kind: "number",
+    example: "2",
+    range: { min: 1, max: 10 },
+    rangeMessage: "The airmass limit is from 1 (the zenith) to 10.",
+  },
+  interferometerWavelengthMm: {
+    label: "Interferometer wavelength",
+    kind: "wavelength",
+    unit: "mm",
+    unitWords: "mm",
+    example: "1.3 mm or 230 GHz",
+    range: { min: 1e-5, max: 1000 },
+    rangeMessage: "The interferometer wavelength is from 0.00001 mm (10 nm) to 1000 mm.",
+  },
+  interferometerBaselineKm: {
+    label: "Longest baseline",
+    kind: "length",
+    unit: "km",
+    unitWords: "km",
+    example: "10700 km",
+    range: { min: 1e-3, max: 1e6 },
+    rangeMessage: "The longest baseline is from 0.001 km (1 m) to 1,000,000 km.",
+  },
+} as const satisfies Record<string, QuantitySpec>;
+
+/** The observing site: where the telescope stands and how low it can point. */
+export const siteSchema = z.object(
+  {
+    name: nameText("The site name").trim().min(1, "Name the site.").max(120, "The site name is at most 120 characters."),
+    latitudeDeg: quantityField(proposalQuantities.latitudeDeg),
+    longitudeDeg: quantityField(proposalQuantities.longitudeDeg),
+    elevationM: quantityField(proposalQuantities.elevationM),
+    horizonLimitDeg: quantityField(proposalQuantities.horizonLimitDeg),
+  },
+  { error: "The observing site is missing: give its name, latitude, longitude, elevation and horizon limit." },
+);
+
+/** The lensing scales the stored verdicts compare each target with. */
+const lensingInstrumentSchema = z.object(
+  {
+    resolutionMas: quantityField(proposalQuantities.resolutionMas),
+    cadenceHours: quantityField(proposalQuantities.cadenceHours),
+    campaignLengthDays: quantityField(proposalQuantities.campaignLengthDays),
+  },
+  { error: "The instrument defaults are missing: give the resolution, cadence and campaign length." },
+);
 
 /**
  * All instrument defaults: the lensing scales, the airmass limit of the sky windows and, for a
  * shadow-imaging proposal, the interferometer's wavelength and longest baseline (both or neither).
  */
 export const instrumentSchema = lensingInstrumentSchema.extend({
-  airmassLimit: z
-    .number("The airmass limit must be a number.")
-    .min(1, "The airmass limit is at least 1 (the zenith).")
-    .max(10, "The airmass limit is at most 10.")
-    .default(2),
-  interferometerWavelengthMm: z
-    .number("The wavelength must be a number of millimetres.")
-    .min(1e-5, "The wavelength is from 0.00001 mm (10 nm) to 1000 mm.")
-    .max(1000, "The wavelength is from 0.00001 mm (10 nm) to 1000 mm.")
-    .nullable()
-    .default(null),
-  interferometerBaselineKm: z
-    .number("The baseline must be a number of kilometres.")
-    .min(1e-3, "The baseline is from 0.001 km (1 m) to 1,000,000 km.")
-    .max(1e6, "The baseline is from 0.001 km (1 m) to 1,000,000 km.")
-    .nullable()
-    .default(null),
+  airmassLimit: quantityField(proposalQuantities.airmassLimit).default(2),
+  interferometerWavelengthMm: quantityField(proposalQuantities.interferometerWavelengthMm).nullable().default(null),
+  interferometerBaselineKm: quantityField(proposalQuantities.interferometerBaselineKm).nullable().default(null),
 });
 
 const cycleDateSchema = nightDateSchema.nullable();
 
 const proposalFields = {
-  title: nameText().trim().min(1, "Give the proposal a title.").max(200, "A title is at most 200 characters."),
-  cycle: nameText().trim().min(1, "Name the observing cycle (e.g. 2027B).").max(40, "A cycle name is at most 40 characters."),
-  abstract: storedText().max(5000, "The abstract is at most 5000 characters."),
+  title: nameText("The title").trim().min(1, "Give the proposal a title.").max(200, "The title is at most 200 characters."),
+  cycle: nameText("The observing cycle").trim().min(1, "Name the observing cycle (e.g. 2027B).").max(40, "The observing cycle is at most 40 characters."),
+  abstract: storedText("The abstract").max(5000, "The abstract is at most 5000 characters."),
   /** First and last night of the cycle (local evening dates, inclusive); both or neither. */
   cycleStartDate: cycleDateSchema,
   cycleEndDate: cycleDateSchema,

@@ -7,11 +7,11 @@ import { z } from "zod";
  * text read back would differ from the text sent. Both are refused here as field errors; otherwise
  * the insert or the search fails (a 500 for what is bad input) or the text changes unseen.
  */
-export function storedText() {
+export function storedText(label: string) {
   return z
-    .string()
-    .refine((text) => !text.includes("\u0000"), "Text cannot contain the NUL character (U+0000).")
-    .refine((text) => !/\p{Cs}/u.test(text), "Text cannot contain half of a surrogate pair (U+D800–U+DFFF): it is not valid Unicode.");
+    .string({ error: (issue) => (issue.input === undefined ? `${label} is missing.` : `${label} must be text.`) })
+    .refine((text) => !text.includes("\u0000"), `${label} cannot contain the NUL character (U+0000).`)
+    .refine((text) => !/\p{Cs}/u.test(text), `${label} cannot contain half of a surrogate pair (U+D800–U+DFFF): it is not valid Unicode.`);
 }
 
 /**
@@ -32,12 +32,15 @@ const directionControls = /[\u202A-\u202E\u2066-\u2069]/u;
  */
 const lineBreaksAndControls = /[\u0001-\u001F\u007F-\u009F\u2028\u2029]/u;
 
-/** A name the team reads in lists (a target, a proposal, a cycle, a site, a person): one line of stored text without direction controls. */
-export function nameText() {
-  return storedText()
-    .refine((text) => !lineBreaksAndControls.test(text), "Names are one line: they cannot contain line breaks, tabs or other control characters.")
+/**
+ * A name the team reads in lists (a target, a proposal, a cycle, a site, a person): one line of stored
+ * text without direction controls. `label` names the field as a message starts: "The target name".
+ */
+export function nameText(label: string) {
+  return storedText(label)
+    .refine((text) => !lineBreaksAndControls.test(text), `${label} is one line: it cannot contain line breaks, tabs or other control characters.`)
     .refine(
       (text) => !directionControls.test(text),
-      "Names cannot contain Unicode direction controls (U+202A–U+202E, U+2066–U+2069): they show a name in another order than it is stored.",
+      `${label} cannot contain Unicode direction controls (U+202A–U+202E, U+2066–U+2069): they show a name in another order than it is stored.`,
     );
 }

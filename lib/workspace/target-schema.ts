@@ -3,7 +3,8 @@ import { nameText } from "@/lib/workspace/stored-text";
 import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
-import { acceptedRanges, boundText, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { optionalQuantityField, quantityField, rangeMessage, type QuantitySpec } from "@/lib/workspace/quantity-field";
 
 export const lensModels = ["point", "sis"] as const;
 export type LensModel = (typeof lensModels)[number];
@@ -12,9 +13,10 @@ export const lensModelLabels: Record<LensModel, string> = {
   sis: "Singular isothermal sphere",
 };
 
-function coordinate(parse: (input: string | number) => number) {
-  const text = z.string().max(MAX_COORDINATE_CHARS, `A coordinate is at most ${MAX_COORDINATE_CHARS} characters.`);
-  return z.union([text, z.number()]).transform((input, ctx) => {
+function coordinate(label: string, parse: (input: string | number) => number) {
+  const text = z.string().max(MAX_COORDINATE_CHARS, `${label} is at most ${MAX_COORDINATE_CHARS} characters.`);
+  const typeError = (issue: { input?: unknown }) => `${label} is ${issue.input === undefined ? "missing" : "not a coordinate"}; type e.g. ${label === "Right ascension" ? "17 57 12.4 or 269.30" : "-29 12 05 or -29.20"}.`;
+  return z.union([text, z.number()], { error: typeError }).transform((input, ctx) => {
     try {
       return parse(input);
     } catch (error) {
@@ -25,41 +27,110 @@ function coordinate(parse: (input: string | number) => number) {
   });
 }
 
+const targetRange = (what: string, range: AcceptedRange, unitWords: string, why: string) => ({ range, rangeMessage: rangeMessage(what, range, unitWords, why) });
+
 /**
- * A number inside one of the lensing layer's accepted ranges (`lib/physics/accepted-ranges.ts`), so
- * that no derived quantity overflows, underflows or leaves its formula's domain. `what` names the
- * quantity as the message says it: "The lens mass", with `unit` after the bounds.
+ * The target's quantities: each is a number in its stored unit or typed text with a unit, inside
+ * one of the lensing layer's accepted ranges (`lib/physics/accepted-ranges.ts`), so that no derived
+ * quantity overflows, underflows or leaves its formula's domain.
  */
-function rangedNumber(what: string, range: AcceptedRange, unit: string, why: string) {
-  const message = `${what} is from ${boundText(range.min)} to ${boundText(range.max)}${unit ? ` ${unit}` : ""} (${why}).`;
-  return z.number(`${what} must be a number.`).min(range.min, message).max(range.max, message);
-}
+export const targetQuantities = {
+  lensMassSolar: {
+    label: "Lens mass",
+    kind: "mass",
+    unit: "Msun",
+    unitWords: "M☉",
+    example: "0.3 Msun",
+    ...targetRange("The lens mass", acceptedRanges.lensMassSolar, "solar masses", "an asteroid to ten times the largest galaxy cluster"),
+  },
+  velocityDispersionKmPerS: {
+    label: "Velocity dispersion",
+    kind: "velocity",
+    unit: "km/s",
+    unitWords: "km/s",
+    example: "250 km/s",
+    ...targetRange("The velocity dispersion", acceptedRanges.velocityDispersionKmPerS, "km/s", "dwarf galaxies to the richest clusters"),
+  },
+  lensDistancePc: {
+    label: "Lens distance",
+    kind: "distance",
+    unit: "pc",
+    unitWords: "pc",
+    example: "4 kpc",
+    ...targetRange("The lens distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
+  },
+  sourceDistancePc: {
+    label: "Source distance",
+    kind: "distance",
+    unit: "pc",
+    unitWords: "pc",
+    example: "8 kpc",
+    ...targetRange("The source distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
+  },
+  lensRedshift: {
+    label: "Lens redshift",
+    kind: "number",
+    example: "0.5",
+    ...targetRange("The lens redshift", acceptedRanges.redshift, "", "nearer lenses are given by distance in parsecs"),
+  },
+  sourceRedshift: {
+    label: "Source redshift",
+    kind: "number",
+    example: "2",
+    ...targetRange("The source redshift", acceptedRanges.redshift, "", "nearer sources are given by distance in parsecs"),
+  },
+  sourceOffsetThetaE: {
+    label: "Source offset",
+    kind: "number",
+    example: "0.3",
+    ...targetRange("The source offset", acceptedRanges.sourceOffsetThetaE, "Einstein radii", "closer, a real source's size caps the magnification"),
+  },
+  properMotionMasPerYr: {
+    label: "Relative proper motion",
+    kind: "proper motion",
+    unit: "mas/yr",
+    unitWords: "mas/yr",
+    example: "5 mas/yr",
+    ...targetRange("The relative proper motion", acceptedRanges.properMotionMasPerYr, "mas/yr", "a nanoarcsecond a year to faster than the Sun crosses the sky"),
+  },
+  priority: {
+    label: "Priority",
+    kind: "number",
+    example: "3",
+    isInteger: true,
+    range: { min: 1, max: 5 },
+    rangeMessage: "Priority runs from 1 (highest) to 5.",
+  },
+} as const satisfies Record<string, QuantitySpec>;
 
-const optionalRanged = (...args: Parameters<typeof rangedNumber>) => rangedNumber(...args).nullable().optional();
-const optionalRedshift = optionalRanged("A redshift", acceptedRanges.redshift, "", "nearer lenses are given by distance in parsecs");
-
-const tagSchema = z.string().trim().min(1, "A tag cannot be empty.").max(32, "A tag is at most 32 characters.").regex(/^[\w.+-]+$/, "Tags use letters, digits, . + - _");
+const tagRule = "may use only letters, digits, . + - _";
+const tagSchema = z
+  .string({ error: "Each tag is a word, e.g. bulge." })
+  .trim()
+  .min(1, "A tag cannot be empty.")
+  .max(32, { error: (issue) => `Tag '${String(issue.input).slice(0, 20)}…' is longer than 32 characters.` })
+  .regex(/^[\w.+-]+$/, { error: (issue) => `Tag '${String(issue.input)}' ${tagRule}.` });
 
 /**
  * Every field of a target as it arrives from a form or the API. The right ascension and declination
  * come in as typed (`ra`, `dec`) and leave as ICRS degrees.
  */
 export const targetFieldsSchema = z.object({
-  name: nameText().trim().min(1, "Name the target.").max(120, "A target name is at most 120 characters."),
-  ra: coordinate(parseRightAscensionDeg),
-  dec: coordinate(parseDeclinationDeg),
-  lensModel: z.enum(lensModels, { error: "The lens model is point or sis." }),
-  lensMassSolar: optionalRanged("The lens mass", acceptedRanges.lensMassSolar, "solar masses", "an asteroid to ten times the largest galaxy cluster"),
-  velocityDispersionKmPerS: optionalRanged("The velocity dispersion", acceptedRanges.velocityDispersionKmPerS, "km/s", "dwarf galaxies to the richest clusters"),
-  lensDistancePc: optionalRanged("The lens distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
-  sourceDistancePc: optionalRanged("The source distance", acceptedRanges.distancePc, "parsecs", "0.2 au to beyond the observable universe"),
-  lensRedshift: optionalRedshift,
-  sourceRedshift: optionalRedshift,
-  sourceOffsetThetaE: rangedNumber("The source offset", acceptedRanges.sourceOffsetThetaE, "Einstein radii", "closer, a real source's size caps the magnification"),
-  properMotionMasPerYr: optionalRanged("The relative proper motion", acceptedRanges.properMotionMasPerYr, "mas/yr", "a nanoarcsecond a year to faster than the Sun crosses the sky"),
-  priority: z.number().int().min(1, "Priority runs from 1 (highest) to 5.").max(5, "Priority runs from 1 (highest) to 5."),
-  status: z.enum(targetStatuses),
-  tags: z.array(tagSchema).max(12, "At most 12 tags."),
+  name: nameText("The target name").trim().min(1, "Name the target.").max(120, "The target name is at most 120 characters."),
+  ra: coordinate("Right ascension", parseRightAscensionDeg),
+  dec: coordinate("Declination", parseDeclinationDeg),
+  lensModel: z.enum(lensModels, { error: "The lens model is point (a point mass) or sis (a singular isothermal sphere)." }),
+  lensMassSolar: optionalQuantityField(targetQuantities.lensMassSolar),
+  velocityDispersionKmPerS: optionalQuantityField(targetQuantities.velocityDispersionKmPerS),
+  lensDistancePc: optionalQuantityField(targetQuantities.lensDistancePc),
+  sourceDistancePc: optionalQuantityField(targetQuantities.sourceDistancePc),
+  lensRedshift: optionalQuantityField(targetQuantities.lensRedshift),
+  sourceRedshift: optionalQuantityField(targetQuantities.sourceRedshift),
+  sourceOffsetThetaE: quantityField(targetQuantities.sourceOffsetThetaE),
+  properMotionMasPerYr: optionalQuantityField(targetQuantities.properMotionMasPerYr),
+  priority: quantityField(targetQuantities.priority),
+  status: z.enum(targetStatuses, { error: `The status is one of ${targetStatuses.join(", ")}.` }),
+  tags: z.array(tagSchema, { error: "Tags are a list of words." }).max(12, "At most 12 tags."),
 });
 
 export type TargetFields = z.infer<typeof targetFieldsSchema>;

@@ -219,7 +219,7 @@ describe("hostile notes, names and titles never run and show as typed", () => {
     const notesPath = `${baseUrl}/api/proposals/${proposalId}/targets/${targetIds.get(noteHostName)}/notes`;
     const refused = await api.post(notesPath, { data: { body: "before\u0000after" } });
     expect(refused.status()).toBe(400);
-    expect((await refused.json()).error.fields.body).toEqual(["Text cannot contain the NUL character (U+0000)."]);
+    expect((await refused.json()).error.fields.body).toEqual(["The note cannot contain the NUL character (U+0000)."]);
   });
 
   it("the proposals list shows the title as text", async () => {

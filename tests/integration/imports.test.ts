@@ -124,6 +124,21 @@ describe("target-list import through the upload service", () => {
     expect(await tableCounts(world.proposalId)).toEqual(before);
   });
 
+  it("a mapping the request cannot use is refused in words naming the field, not its key (issue #15)", async () => {
+    const world = await createWorld();
+    const fileId = await uploadList(world, "three.csv", threeTargets);
+    const params = { proposalId: world.proposalId };
+    const preview = await previewImport(params, { fileId }, world.actors.coi);
+    const badColumn = await refusalOf(previewImport(params, { fileId, mapping: { ...preview.mapping, lensMassSolar: { column: "mass" } } }, world.actors.coi));
+    expect(badColumn.fields).toEqual({ "mapping.lensMassSolar.column": ["The lens mass column: choose a column of the file."] });
+    expect(badColumn.message).toBe("The lens mass column: choose a column of the file.");
+    const withoutName = Object.fromEntries(Object.entries(preview.mapping).filter(([field]) => field !== "name"));
+    const noName = await refusalOf(previewImport(params, { fileId, mapping: withoutName }, world.actors.coi));
+    expect(noName.message).toBe("Choose the column that holds the Name.");
+    const badFill = await refusalOf(previewImport(params, { fileId, fill: { priority: "first" } }, world.actors.coi));
+    expect(badFill.message).toMatch(/^Priority: 'first' is not a (?:plain )?number; type a number, e\.g\. 3\.$/);
+  });
+
   it("a failure in the database after hundreds of rows were written leaves nothing behind", async () => {
     const world = await createWorld();
     const lines = ["name,ra,dec,mass,D_L,D_S"];

@@ -42,6 +42,23 @@ describe("proposal settings", () => {
     expect(updated).toMatchObject({ ...cycle, instrument: { airmassLimit: 1.5, ...interferometer } });
   });
 
+  it("takes the interferometer's wavelength as 2.2 um or 230 GHz and stores millimetres (issue #15)", async () => {
+    const world = await createWorld();
+    const ids = { proposalId: world.proposalId };
+    const instrument = { ...proposalInput.instrument, interferometerBaselineKm: "10700 km" };
+    const infrared = await updateProposal(ids, { instrument: { ...instrument, interferometerWavelengthMm: "2.2 um" } }, world.actors.pi);
+    expect(infrared.instrument).toMatchObject({ interferometerWavelengthMm: 0.0022, interferometerBaselineKm: 10_700 });
+    // c = 299 792 458 m/s exactly (SI definition): c/230 GHz = 1.3034454695652173 mm, stored to 15 digits.
+    const radio = await updateProposal(ids, { instrument: { ...instrument, interferometerWavelengthMm: "230 GHz" } }, world.actors.pi);
+    expect(radio.instrument.interferometerWavelengthMm).toBe(1.30344546956522);
+    const refused = updateProposal(ids, { instrument: { ...instrument, interferometerWavelengthMm: "5 kg" } }, world.actors.pi);
+    await expect(refused).rejects.toMatchObject({
+      code: "bad_request:proposal",
+      message: expect.stringMatching(/^Interferometer wavelength: '5 kg' .*type e\.g\. 1\.3 mm or 230 GHz\.$/),
+      fields: { "instrument.interferometerWavelengthMm": [expect.stringMatching(/^Interferometer wavelength: /)] },
+    });
+  });
+
   // Regression: the update schema once carried the create schema's default, so a PATCH of the title emptied the abstract.
   it("keeps fields a PATCH does not send", async () => {
     const world = await createWorld();

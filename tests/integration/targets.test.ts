@@ -51,6 +51,31 @@ describe("targets", () => {
     expect(feed.entries[0].actorName).toBe("pi");
   });
 
+  it("takes quantities typed with units and stores them in the stored units (issue #15)", async () => {
+    const world = await createWorld();
+    const ids = { proposalId: world.proposalId };
+    const typed = await createTarget(
+      ids,
+      { ...pointTargetInput, name: "Typed", lensMassSolar: "4,100,000 Msun", lensDistancePc: "8.2 kpc", sourceDistancePc: "8,5 kpc", properMotionMasPerYr: "5 mas/yr", priority: "2" },
+      world.actors.coi,
+    );
+    expect(typed).toMatchObject({ lensMassSolar: 4.1e6, lensDistancePc: 8200, sourceDistancePc: 8500, properMotionMasPerYr: 5, priority: 2 });
+    const numeric = await createTarget(ids, { ...pointTargetInput, name: "Numeric", lensMassSolar: 4.1e6, lensDistancePc: 8200, sourceDistancePc: 8500, properMotionMasPerYr: 5, priority: 2 }, world.actors.coi);
+    expect(typed.einsteinRadiusMas).toBe(numeric.einsteinRadiusMas);
+  });
+
+  it("refuses a mass typed as a distance and bad tags in words, without the fields' keys (regression: 'check lensMassSolar, tags.1')", async () => {
+    const world = await createWorld();
+    const refusal = createTarget({ proposalId: world.proposalId }, { ...pointTargetInput, lensMassSolar: "5 kpc", tags: ["ok", "a b!"] }, world.actors.coi);
+    await expect(refusal).rejects.toMatchObject({
+      code: "bad_request:target",
+      fields: { lensMassSolar: [expect.stringMatching(/^Lens mass: '5 kpc' is a distance, not a mass.*type e\.g\. 0\.3 Msun\.$/)], "tags.1": ["Tag 'a b!' may use only letters, digits, . + - _."] },
+    });
+    const message = await refusal.catch((error: Error) => error.message);
+    expect(message).toMatch(/^Lens mass: '5 kpc' .* Tag 'a b!' may use only letters, digits, \. \+ - _\.$/);
+    expect(message).not.toMatch(/lensMassSolar|tags\.1|check/);
+  });
+
   it("rejects unknown sort columns and oversized pages", async () => {
     const world = await createWorld();
     const params = { proposalId: world.proposalId };

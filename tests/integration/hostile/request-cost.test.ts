@@ -71,7 +71,7 @@ describe("a 3.2 KB coordinate (regression: polynomial backtracking held a server
     const world = await createWorld();
     const hostile = await createTargetAs(world, world.actors.coi, { ...pointTargetInput, dec: hostileDec });
     expect(hostile.status).toBe(400);
-    expect(hostile.body.error?.fields?.dec).toEqual(["A coordinate is at most 64 characters."]);
+    expect(hostile.body.error?.fields?.dec).toEqual(["Declination is at most 64 characters."]);
     let added = 0;
     const ratio = await slowdown(
       () => createTargetAs(world, world.actors.coi, { ...pointTargetInput, dec: hostileDec }),
@@ -91,8 +91,8 @@ describe("a 3.2 KB coordinate (regression: polynomial backtracking held a server
 
 describe("too-long text fields are refused with a field error naming them", () => {
   it.each([
-    ["ra", "1".repeat(65), "A coordinate is at most 64 characters."],
-    ["name", "N".repeat(121), "A target name is at most 120 characters."],
+    ["ra", "1".repeat(65), "Right ascension is at most 64 characters."],
+    ["name", "N".repeat(121), "The target name is at most 120 characters."],
   ])("%s", async (field, value, message) => {
     const world = await createWorld();
     const refused = await createTargetAs(world, world.actors.coi, { ...pointTargetInput, [field]: value });

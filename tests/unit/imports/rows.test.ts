@@ -57,7 +57,11 @@ describe("validateImportRows", () => {
 
   it("names the field and the text of a cell that is not a quantity or the wrong kind", () => {
     const { rows } = preview("A,10,10,heavy,4 km/s,8,0.2,5,2,");
-    expect(rows[0].errors).toEqual(["row 1: Lens distance 4 km/s is a velocity, not a distance.", "row 1: Lens mass heavy is not a number followed by a unit."]);
+    // Each refusal says what to type instead (issue #15), with the parser's examples for the kind.
+    expect(rows[0].errors).toEqual([
+      "row 1: Lens distance 4 km/s is a velocity, not a distance; type e.g. 8 kpc or 2.5e4 ly.",
+      "row 1: Lens mass heavy is not a number followed by a unit; type e.g. 4e6 Msun, 1 Mjup or 3 Mearth.",
+    ]);
   });
 
   it("reports the checks across fields (lens behind source) from the workspace's target rules", () => {
@@ -74,6 +78,22 @@ describe("validateImportRows", () => {
     const { rows } = validateImportRows(table, proposeColumnMapping(table.columns));
     expect(rows[0].errors).toEqual([]);
     expect(rows[0].target).toMatchObject({ lensModel: "sis", velocityDispersionKmPerS: 245, lensRedshift: 0.42, sourceRedshift: 1.85 });
+  });
+
+  it("reads VOUnit spellings through the one parser, with no rewriting of its own (mas.yr-1, km.s**-1)", () => {
+    const table = parseCsvTable("name,ra,dec,mass [Msun],D_L [pc],D_S [pc],mu [mas.yr-1],u0,priority\nA,10,10,0.5,4000,8000,5,0.3,2\n");
+    const { rows } = validateImportRows(table, proposeColumnMapping(table.columns));
+    expect(rows[0].errors).toEqual([]);
+    expect(rows[0].target?.properMotionMasPerYr).toBeCloseTo(5, 12);
+    const sigma = parseCsvTable("name,ra,dec,sigma,z_l,z_s,u0,priority\nB,10,10,245 km.s**-1,0.42,1.85,0.3,1\n");
+    expect(validateImportRows(sigma, proposeColumnMapping(sigma.columns)).rows[0].target?.velocityDispersionKmPerS).toBe(245);
+  });
+
+  it("reads redshifts and priorities with the parser's comma rules, and names a bad one in words", () => {
+    const table = parseCsvTable('name,ra,dec,sigma,z_l,z_s,u0,priority\nB,10,10,245,"0,42",1.85,0.3,1\nC,10,10,245,0.42,far,0.3,1\n');
+    const { rows } = validateImportRows(table, proposeColumnMapping(table.columns));
+    expect(rows[0].target?.lensRedshift).toBe(0.42);
+    expect(rows[1].errors).toEqual([expect.stringMatching(/^row 2: Source redshift: 'far' is not a (?:plain )?number; type a number, e\.g\. 2\.$/)]);
   });
 
   it("fills priority and offset for every row from the user's values where the file has none", () => {

@@ -15,9 +15,9 @@ describe("names refuse line breaks, tabs and other control characters", () => {
     ["C1 next line", "Ada\u0085Quillon"],
     ["line separator", "Ada\u2028Quillon"],
   ])("%s", (_, name) => {
-    const result = nameText().safeParse(name);
+    const result = nameText("The target name").safeParse(name);
     expect(result.success).toBe(false);
-    expect(result.error?.issues[0].message).toBe("Names are one line: they cannot contain line breaks, tabs or other control characters.");
+    expect(result.error?.issues[0].message).toBe("The target name is one line: it cannot contain line breaks, tabs or other control characters.");
   });
 
   it("as a field error on the person's name and the proposal's title, while an abstract and a note keep their newlines", () => {
@@ -36,6 +36,6 @@ describe("names refuse line breaks, tabs and other control characters", () => {
   });
 
   it("keeps names with other Unicode (accents, right-to-left marks, emoji)", () => {
-    for (const name of ["Åsa Lindqvist", "Zoë d’Arcy", "\u200fمرصد", "🔭 Team"]) expect(nameText().safeParse(name).success, name).toBe(true);
+    for (const name of ["Åsa Lindqvist", "Zoë d’Arcy", "\u200fمرصد", "🔭 Team"]) expect(nameText("The target name").safeParse(name).success, name).toBe(true);
   });
 });
