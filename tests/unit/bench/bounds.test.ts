@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
 import { parseSketch, SIGMA_WARNING_KM_PER_S } from "@/lib/bench/parse-sketch";
+import { lightCurve } from "@/lib/bench/plot-data";
 import { demoSketch, type Sketch } from "@/lib/bench/sketch-state";
 import { acceptedRanges, MAX_LENS_COMPACTNESS } from "@/lib/physics/accepted-ranges";
 import { uniformDiskPeakMagnification } from "@/lib/physics/finite-source";
@@ -95,5 +96,15 @@ describe("peak magnification", () => {
     expect(parsed.ok || parsed.fieldErrors.rstar).toMatch(/^Source radius R_\*: '2 kg'/);
     const bare = parseSketch(sketch({ rstar: "2" }));
     expect(bare.ok && bare.inputs.lightCurve.sourceRadiusM).toBe(2 * SOLAR_RADIUS_M);
+  });
+});
+
+describe("light curve", () => {
+  it("marks the curve limited by the source's size when the cap binds, and draws no peak above it", () => {
+    const capped = resultsOf({ u0: "1e-6", t0: "45 d" });
+    const curve = lightCurve(capped.event!);
+    expect(curve.isPeakCapped).toBe(true);
+    expect(Math.max(...curve.curve.map((point) => point.y))).toBeLessThanOrEqual(rowOf(capped, "peak").value);
+    expect(lightCurve(resultsOf({}).event!).isPeakCapped).toBe(false);
   });
 });
