@@ -1,3 +1,4 @@
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { exportColumns } from "@/lib/exports/tables/columns";
 import {
@@ -243,6 +244,40 @@ describe("echoQuantity (what a field shows beside its input)", () => {
     expect(echoQuantity("proper motion", "5 mas/yr", { displayUnit: "uas/yr" })).toMatchObject({ text: "= 5000 µas/yr" });
     expect(echoQuantity("time", "2 yr", { displayUnit: "d" })).toMatchObject({ text: "= 730.5 d" });
     expect(() => echoQuantity("distance", "8 kpc", { displayUnit: "Msun" })).toThrow("is not a distance unit");
+  });
+});
+
+describe("any text (fast-check, fixed seed: tests/support/property-seed.ts)", () => {
+  const fragments = ["4", "100", "0", "8", ",", ".", " ", "e", "E", "-", "+", "−", "×", "x", "10", "^", "**", "⁶", "⁻", "¹", "km", "s", "/", "Msun", "mas", "yr", "M", "m", "pc", "kpc", "″", "'", "°", "µ", "☉", "GHz", "-1", "·", "(", "a", "d", "Mpc", "MPC", "Ms", "uas", "_"];
+  const typed = fc.array(fc.constantFrom(...fragments), { maxLength: 12 }).map((parts) => parts.join(""));
+
+  it("is read to a finite number or refused in words that say what to type, by every parser and the echo", () => {
+    const kinds = Object.keys(parsers) as SpellingRow["kind"][];
+    fc.assert(
+      fc.property(typed, fc.constantFrom(...kinds), (text, kind) => {
+        try {
+          expect(Number.isFinite(parsers[kind](text))).toBe(true);
+        } catch (error) {
+          expect(error).toBeInstanceOf(QuantityError);
+          expect((error as QuantityError).problem).toMatch(/; type /);
+          expect((error as QuantityError).problem).not.toMatch(/undefined|NaN|Unit "|not found|Error/);
+        }
+        const echo = echoQuantity(kind, text);
+        expect(echo.ok ? echo.text : echo.message).toMatch(/^= |; type /);
+      }),
+      { numRuns: 3000 },
+    );
+  });
+
+  it("reads back every double as JavaScript writes it (String(x), as forms echo stored values)", () => {
+    fc.assert(
+      fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), (value) => {
+        expect(parseNumber(String(value))).toBe(value === 0 ? 0 : value);
+      }),
+      { numRuns: 3000 },
+    );
+    expect(parseNumber(String(Number.MIN_VALUE))).toBe(Number.MIN_VALUE);
+    expect(parseNumber(String(1e21))).toBe(1e21);
   });
 });
 
