@@ -22,7 +22,7 @@ const callbackPathSchema = z
 
 export const signUpSchema = accountSchema.extend({ callbackUrl: callbackPathSchema.optional() });
 /** Sign-in checks only the shape: a wrong length must cost as much as a wrong password. */
-export const signInSchema = accountSchema.pick({ email: true }).extend({ password: z.string({ error: "The password is missing." }).min(1, "Enter your password: the password is empty.").max(200, "The password is at most 200 characters.") });
+export const signInSchema = accountSchema.pick({ email: true }).extend({ password: z.string({ error: "The password is missing." }).min(1, "The password is empty; enter your password.").max(200, "The password is at most 200 characters.") });
 export const emailOnlySchema = accountSchema.pick({ email: true });
 export const resetPasswordSchema = accountSchema.pick({ password: true }).extend({ token: tokenSchema });
 export const linkSignInSchema = z.object({ token: tokenSchema });

@@ -183,7 +183,8 @@ export function quantityEcho(spec: QuantitySpec, text: string): { ok: true; text
   // The echo formats the stored value itself (in the stored unit), so it shows exactly what is saved.
   const echo = echoQuantity("number", String(reading.value));
   const shown = echo.ok ? echo.text : `= ${reading.value}`;
-  if (spec.unitWords === undefined) return { ok: true, text: shown };
+  // A plain number typed as it will be stored needs no echo; "0,5" read as 0.5 does.
+  if (spec.unitWords === undefined) return String(reading.value) === text.trim() ? null : { ok: true, text: shown };
   // No space before a degree sign (SI Brochure, 9th ed., §5.4.3); other units follow a space.
   const withUnit = `${shown}${spec.unitWords === "°" ? "" : " "}${spec.unitWords}`;
   return { ok: true, text: bareNumber(text) === undefined ? withUnit : `${withUnit} (a bare number is read in ${spec.unitWords})` };

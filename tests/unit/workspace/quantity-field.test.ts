@@ -79,6 +79,9 @@ describe("the echo beside a quantity field", () => {
     const wavelength = quantityEcho(proposalQuantities.interferometerWavelengthMm, "230 GHz");
     expect(wavelength?.ok && wavelength.text).toMatch(/^= 1\.303 mm$/);
     expect(quantityEcho(targetQuantities.lensMassSolar, "")).toBeNull();
+    // A plain number shows an echo only when it is read as something other than typed.
+    expect(quantityEcho(targetQuantities.priority, "3")).toBeNull();
+    expect(quantityEcho(targetQuantities.lensRedshift, "0,5")).toEqual({ ok: true, text: "= 0.5" });
     expect(quantityEcho(targetQuantities.lensMassSolar, "5 kpc")).toMatchObject({ ok: false, message: expect.stringMatching(/^Lens mass: /) });
   });
 });
