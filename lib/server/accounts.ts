@@ -56,7 +56,7 @@ export async function signUp(input: unknown, clientAddress: string): Promise<voi
   const { email, name, password, callbackUrl } = parseOrThrow(signUpSchema, input, "account");
   await consumeAttempt({ bucket: `sign-up:address:${clientAddress}`, limit: signInLimits.perAddress, windowSeconds: signInLimits.windowSeconds }, "sign-up");
   const weakness = passwordWeakness(password, { email, name });
-  if (weakness !== null) throw new AppError("bad_request:account", "Invalid account: check password.", { password: [weakness] });
+  if (weakness !== null) throw new AppError("bad_request:account", `The password is too easy to guess: ${weakness}`, { password: [weakness] });
   const passwordHash = await hashPassword(password);
   const [created] = await dbClient()
     .db.insert(users)
@@ -226,7 +226,7 @@ async function findTokenOwner(token: string): Promise<{ email: string; name: str
 export async function resetPassword(input: unknown): Promise<void> {
   const { token, password } = parseOrThrow(resetPasswordSchema, input, "password reset");
   const weakness = passwordWeakness(password, (await findTokenOwner(token)) ?? {});
-  if (weakness !== null) throw new AppError("bad_request:password reset", "Invalid password reset: check password.", { password: [weakness] });
+  if (weakness !== null) throw new AppError("bad_request:password reset", `The password is too easy to guess: ${weakness}`, { password: [weakness] });
   const passwordHash = await hashPassword(password);
   const { email } = await dbClient().db.transaction(async (tx) => {
     const owner = await consumeToken(tx, token, ["password_reset"]);

@@ -2,7 +2,7 @@ import "server-only";
 import { z } from "zod";
 import { AppError, errorBody, statusForCode, type FieldErrors } from "@/lib/errors";
 import { crossSiteError } from "@/lib/security/same-origin";
-import { wordedIssue } from "@/lib/workspace/issue-words";
+import { summaryOf, wordedIssue } from "@/lib/workspace/issue-words";
 
 /** Field errors from a zod failure, keyed by dotted path ("site.latitudeDeg"). */
 export function fieldErrorsOf(error: z.ZodError): FieldErrors {
@@ -12,20 +12,6 @@ export function fieldErrorsOf(error: z.ZodError): FieldErrors {
     (fields[key] ??= []).push(issue.message);
   }
   return fields;
-}
-
-/** How many fields' messages the summary of a refusal repeats; the form shows every one beside its field. */
-const SUMMARY_FIELDS = 3;
-
-/**
- * The refusal's message in words: the first message of each bad field (a few at most), never the
- * fields' keys. "Lens mass: '5 kpc' is a distance, not a mass; type e.g. 0.3 Msun."
- */
-export function summaryOf(fields: FieldErrors): string {
-  const firsts = Object.values(fields).map((messages) => messages[0]);
-  const shown = firsts.slice(0, SUMMARY_FIELDS).map((message) => (/[.!?]$/.test(message) ? message : `${message}.`));
-  const more = firsts.length - shown.length;
-  return more > 0 ? `${shown.join(" ")} And ${more} more field${more === 1 ? "" : "s"} to correct.` : shown.join(" ");
 }
 
 /**

@@ -17,6 +17,7 @@ import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { changesLensingScales, instrumentOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
+import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
 
 export interface ProposalSummary {
@@ -128,8 +129,7 @@ export async function getProposal(params: unknown, actor: Actor | null): Promise
 }
 
 function requireConsistentSettings(fields: FieldErrors): void {
-  const names = Object.keys(fields);
-  if (names.length > 0) throw new AppError("bad_request:proposal", `Invalid proposal: check ${names.join(", ")}.`, fields);
+  if (Object.keys(fields).length > 0) throw new AppError("bad_request:proposal", summaryOf(fields), fields);
 }
 
 /**

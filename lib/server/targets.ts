@@ -20,6 +20,7 @@ import { forgetTargetFiles } from "@/lib/server/attachments";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { instrumentOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
+import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
 
 /** A target as the API and the pages see it. */
@@ -135,8 +136,7 @@ export async function getTarget(params: unknown, actor: Actor | null): Promise<T
 
 function requireCompleteHypothesis(h: LensHypothesis): void {
   const fields = lensHypothesisErrors(h);
-  const names = Object.keys(fields);
-  if (names.length > 0) throw new AppError("bad_request:target", `Invalid target: check ${names.join(", ")}.`, fields);
+  if (Object.keys(fields).length > 0) throw new AppError("bad_request:target", summaryOf(fields), fields);
 }
 
 /** Co-I or PI. The derived columns are computed from the new target and the proposal's instrument. */

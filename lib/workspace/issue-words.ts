@@ -5,6 +5,7 @@
  * label instead of its key, so no schema path, variable name or library message reaches a user.
  */
 import type { z } from "zod";
+import type { FieldErrors } from "@/lib/errors";
 
 /** The fields of requests and query strings as a message names them, by key. */
 const fieldLabels: Record<string, string> = {
@@ -116,3 +117,17 @@ export const wordedIssue: z.core.$ZodErrorMap = (issue) => {
       return `${label} is not valid here.`;
   }
 };
+
+/** How many fields' messages the summary of a refusal repeats; a form shows every one beside its field. */
+const SUMMARY_FIELDS = 3;
+
+/**
+ * A refusal's message in words: the first message of each bad field (a few at most), never the
+ * fields' keys. "Lens mass: '5 kpc' is a distance, not a mass; type e.g. 0.3 Msun."
+ */
+export function summaryOf(fields: FieldErrors): string {
+  const firsts = Object.values(fields).map((messages) => messages[0]);
+  const shown = firsts.slice(0, SUMMARY_FIELDS).map((message) => (/[.!?]$/.test(message) ? message : `${message}.`));
+  const more = firsts.length - shown.length;
+  return more > 0 ? `${shown.join(" ")} And ${more} more field${more === 1 ? "" : "s"} to correct.` : shown.join(" ");
+}

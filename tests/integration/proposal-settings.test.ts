@@ -59,6 +59,14 @@ describe("proposal settings", () => {
     });
   });
 
+  it("settings refused across fields say why in words (regression: 'Invalid proposal: check cycleEndDate')", async () => {
+    const world = await createWorld();
+    await expect(updateProposal({ proposalId: world.proposalId }, { cycleStartDate: "2031-03-01" }, world.actors.pi)).rejects.toMatchObject({
+      code: "bad_request:proposal",
+      message: "Give both the first and the last night of the cycle, or neither.",
+    });
+  });
+
   // Regression: the update schema once carried the create schema's default, so a PATCH of the title emptied the abstract.
   it("keeps fields a PATCH does not send", async () => {
     const world = await createWorld();

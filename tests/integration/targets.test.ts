@@ -76,6 +76,16 @@ describe("targets", () => {
     expect(message).not.toMatch(/lensMassSolar|tags\.1|check/);
   });
 
+  it("a hypothesis refused across fields says why in words (regression: 'Invalid target: check sourceDistancePc')", async () => {
+    const world = await createWorld();
+    const refusal = createTarget({ proposalId: world.proposalId }, { ...pointTargetInput, lensDistancePc: 9000, sourceDistancePc: "8 kpc" }, world.actors.coi);
+    await expect(refusal).rejects.toMatchObject({
+      code: "bad_request:target",
+      message: "The source must lie behind the lens (farther than it).",
+      fields: { sourceDistancePc: ["The source must lie behind the lens (farther than it)."] },
+    });
+  });
+
   it("rejects unknown sort columns and oversized pages", async () => {
     const world = await createWorld();
     const params = { proposalId: world.proposalId };

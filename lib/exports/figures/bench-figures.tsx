@@ -5,6 +5,7 @@ import { parsePlainNumber, parseSketch } from "@/lib/bench/parse-sketch";
 import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
 import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { AppError } from "@/lib/errors";
+import { summaryOf } from "@/lib/workspace/issue-words";
 import { buildProvenance } from "@/lib/exports/provenance";
 import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
 import { DeflectionPlot } from "@/lib/figures/deflection-plot";
@@ -51,7 +52,7 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
   const parsed = parseSketch(sketch);
   if (!parsed.ok) {
     const fields = Object.fromEntries(Object.entries(parsed.fieldErrors).map(([field, message]) => [field, [message as string]]));
-    throw new AppError("bad_request:figure", `Invalid sketch: check ${Object.keys(fields).join(", ")}.`, fields);
+    throw new AppError("bad_request:figure", summaryOf(fields), fields);
   }
   const computed = computeResults(parsed.inputs);
   // Parsed sketches stay inside the accepted ranges, where the physics does not refuse; should one
