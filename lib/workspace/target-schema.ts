@@ -104,12 +104,17 @@ export const targetQuantities = {
 } as const satisfies Record<string, QuantitySpec>;
 
 const tagRule = "may use only letters, digits, . + - _";
+/** A refused tag as its message quotes it: at most 32 characters, so a huge one is not echoed whole. */
+const shownTag = (input: unknown) => {
+  const text = String(input).trim();
+  return text.length > 32 ? `${text.slice(0, 20)}…` : text;
+};
 const tagSchema = z
   .string({ error: "Each tag is a word, e.g. bulge." })
   .trim()
   .min(1, "A tag cannot be empty.")
-  .max(32, { error: (issue) => `Tag '${String(issue.input).slice(0, 20)}…' is longer than 32 characters.` })
-  .regex(/^[\w.+-]+$/, { error: (issue) => `Tag '${String(issue.input)}' ${tagRule}.` });
+  .max(32, { error: (issue) => `Tag '${shownTag(issue.input)}' is longer than 32 characters.` })
+  .regex(/^[\w.+-]+$/, { error: (issue) => `Tag '${shownTag(issue.input)}' ${tagRule}.` });
 
 /**
  * Every field of a target as it arrives from a form or the API. The right ascension and declination

@@ -99,6 +99,13 @@ describe("the schemas take typed units and numbers alike", () => {
     expect(result.error?.issues.map((issue) => issue.message)).toEqual(["Tag 'a b!' may use only letters, digits, . + - _."]);
   });
 
+  it("a huge refused tag is quoted in part, not echoed whole", () => {
+    const huge = `${"x".repeat(100_000)}!`;
+    const result = createTargetSchema.safeParse({ name: "T", ra: 10, dec: 10, lensModel: "point", lensMassSolar: 1, lensDistancePc: 1, sourceDistancePc: 2, sourceOffsetThetaE: 0.3, priority: 1, tags: [huge] });
+    const messages = result.error?.issues.map((issue) => issue.message) ?? [];
+    expect(messages).toEqual([`Tag '${"x".repeat(20)}…' is longer than 32 characters.`, `Tag '${"x".repeat(20)}…' may use only letters, digits, . + - _.`]);
+  });
+
   it("the proposal's instrument keeps its defaults and nulls", () => {
     const site = { name: "S", latitudeDeg: "-24.6 deg", longitudeDeg: "-70.4", elevationM: "2.6 km", horizonLimitDeg: "20" };
     const parsed = createProposalSchema.parse({ title: "P", cycle: "2031A", site, instrument: { resolutionMas: "50 uas", cadenceHours: "30 min", campaignLengthDays: "90" } });
