@@ -112,15 +112,14 @@ function bareNumber(text: string): number | undefined {
 }
 
 /**
- * "Lens mass: '5 kpc' is a distance, not a mass; type e.g. 0.3 Msun." Where the parser's problem
- * says what to type for this text (both readings of "8,125") that stays; its general examples for
- * the kind give way to the field's, which is in the field's own unit.
+ * "Lens mass: '5 kpc' is a distance, not a mass; type e.g. 0.3 Msun." Advice the mistake itself gives
+ * (both readings of "8,125") stays; otherwise the field's example, in the field's own unit, replaces
+ * the parser's general examples for the kind.
  */
-function refusal(spec: QuantitySpec, text: string, problem: string): string {
+function refusal(spec: QuantitySpec, text: string, error: QuantityError): string {
   const shown = text.length > 24 ? `${text.slice(0, 20)}…` : text;
-  const typing = spec.kind === "number" ? `type a number, e.g. ${spec.example}` : `type e.g. ${spec.example}`;
-  const general = problem.replace(/; type e\.g\. .*$/, "");
-  return `${spec.label}: '${shown}' ${general.includes("; type ") ? general : `${general}; ${typing}`}.`;
+  const typing = error.advice !== undefined ? `type ${error.advice}` : spec.kind === "number" ? `type a number, e.g. ${spec.example}` : `type e.g. ${spec.example}`;
+  return `${spec.label}: '${shown}' ${error.fault}; ${typing}.`;
 }
 
 /** Reads one value as a field receives it: a number in the stored unit, or typed text. */
@@ -138,7 +137,7 @@ export function readQuantityField(spec: QuantitySpec, input: unknown): FieldRead
       value = bare ?? tidy(convert(parsed(spec, input)));
     } catch (error) {
       if (!(error instanceof QuantityError)) throw error;
-      return { ok: false, message: refusal(spec, input, error.problem) };
+      return { ok: false, message: refusal(spec, input, error) };
     }
   } else {
     return { ok: false, message: `${spec.label} is ${input === undefined || input === null ? "missing" : "not a number"}; type e.g. ${spec.example}.` };
