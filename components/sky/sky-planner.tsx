@@ -7,10 +7,18 @@ import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
 import { SeasonChart } from "@/lib/figures/season-chart";
 import { SeasonTable } from "./season-table";
-import { parseSkyQuery, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
+import { parseSkyQuery, skyQuantitySpecs, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
+import { quantityEcho } from "@/lib/workspace/quantity-field";
 import { useSeason } from "./use-season";
 
-function QueryField({ label, hint, value, error, onChange }: { label: string; hint: string; value: string; error?: string; onChange: (value: string) => void }) {
+/** The value a quantity field will use, shown beside it as the user types ("= −27.5°"); none for plain text. */
+function echoOf(field: SkyQueryField, value: string): string | null {
+  if (!(field in skyQuantitySpecs)) return null;
+  const echo = quantityEcho(skyQuantitySpecs[field as keyof typeof skyQuantitySpecs], value);
+  return echo?.ok ? echo.text : null;
+}
+
+function QueryField({ testId, label, hint, value, echo, error, onChange }: { testId: string; label: string; hint: string; value: string; echo: string | null; error?: string; onChange: (value: string) => void }) {
   const id = useId();
   return (
     <div className="flex flex-col gap-1">
@@ -26,6 +34,7 @@ function QueryField({ label, hint, value, error, onChange }: { label: string; hi
         aria-describedby={`${id}-hint${error !== undefined ? ` ${id}-error` : ""}`}
         className={`rounded border bg-void px-2 py-1 font-mono text-sm text-dusk ${error !== undefined ? "border-alarm" : "border-void-edge"}`}
       />
+      {echo !== null ? <p data-testid={`echo-${testId}`} className="font-mono text-xs text-glint" aria-live="polite">{echo}</p> : null}
       <p id={`${id}-hint`} className="text-xs text-dusk-dim">{hint}</p>
       {error !== undefined ? <p id={`${id}-error`} role="alert" className="text-sm text-alarm">{error}</p> : null}
     </div>
@@ -74,7 +83,7 @@ export function SkyPlanner({ initialQuery }: { initialQuery: SkyQuery }) {
     <div className="space-y-6">
       <form className="grid gap-4 rounded-md border border-void-edge bg-void-raised p-4 sm:grid-cols-3" onSubmit={(event) => event.preventDefault()} aria-label="Site and target">
         {fieldLabels.map(({ field, label, hint }) => (
-          <QueryField key={field} label={label} hint={hint} value={query[field]} error={errors[field]} onChange={(value) => setField(field, value)} />
+          <QueryField key={field} testId={field} label={label} hint={hint} value={query[field]} echo={echoOf(field, query[field])} error={errors[field]} onChange={(value) => setField(field, value)} />
         ))}
         <div className="sm:col-span-3">
           <NightDateControl value={query.date} onChange={(date) => setField("date", date)} />

@@ -4,6 +4,9 @@
  */
 import { nightDateSchema, skyLimitsSchema, skySiteSchema, type SkyLimits, type SkySite, type SkyTarget } from "@/lib/astro/inputs";
 import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+import { proposalQuantities } from "@/lib/workspace/proposal-schema";
+import { readQuantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { parseNumber, QuantityError } from "@/lib/physics/units";
 
 export const skyQueryFields = ["site", "lat", "lon", "elev", "horizon", "ra", "dec", "date", "airmass", "nights"] as const;
 export type SkyQueryField = (typeof skyQueryFields)[number];
@@ -52,19 +55,45 @@ export interface ParsedSkyQuery {
 
 const MAX_SEASON_NIGHTS = 366;
 
-function number(text: string): number {
-  return text.trim() === "" ? Number.NaN : Number(text);
+/**
+ * The page's quantity fields read as the proposal settings read the same quantities (units, comma
+ * rules and messages from the one parser), so a site is typed one way everywhere.
+ */
+export const skyQuantitySpecs = {
+  lat: proposalQuantities.latitudeDeg,
+  lon: proposalQuantities.longitudeDeg,
+  elev: proposalQuantities.elevationM,
+  horizon: proposalQuantities.horizonLimitDeg,
+  airmass: proposalQuantities.airmassLimit,
+} as const satisfies Partial<Record<SkyQueryField, QuantitySpec>>;
+
+const seasonLengthMessage = `The season is a whole number of nights from 7 to ${MAX_SEASON_NIGHTS}.`;
+
+/** The season length in nights, with the comma rules of every number field; NaN when not a number. */
+function nightCountOf(text: string): number {
+  try {
+    return parseNumber(text);
+  } catch (error) {
+    if (!(error instanceof QuantityError)) throw error;
+    return Number.NaN;
+  }
 }
 
 /** The parsed inputs, or the message for each field that does not parse (keyed by field). */
 export function parseSkyQuery(query: SkyQuery): { value: ParsedSkyQuery; errors: null } | { value: null; errors: Partial<Record<SkyQueryField, string>> } {
   const errors: Partial<Record<SkyQueryField, string>> = {};
+  const quantity = (field: keyof typeof skyQuantitySpecs): number => {
+    const reading = readQuantityField(skyQuantitySpecs[field], query[field]);
+    if (reading.ok) return reading.value;
+    errors[field] = reading.message;
+    return Number.NaN;
+  };
   const site = skySiteSchema.safeParse({
     name: query.site,
-    latitudeDeg: number(query.lat),
-    longitudeEastDeg: number(query.lon),
-    elevationM: number(query.elev),
-    horizonLimitDeg: number(query.horizon),
+    latitudeDeg: quantity("lat"),
+    longitudeEastDeg: quantity("lon"),
+    elevationM: quantity("elev"),
+    horizonLimitDeg: quantity("horizon"),
   });
   if (!site.success) {
     const siteField: Record<string, SkyQueryField> = { name: "site", latitudeDeg: "lat", longitudeEastDeg: "lon", elevationM: "elev", horizonLimitDeg: "horizon" };
@@ -83,12 +112,10 @@ export function parseSkyQuery(query: SkyQuery): { value: ParsedSkyQuery; errors:
   const decDeg = coordinate("dec", parseDeclinationDeg);
   const date = nightDateSchema.safeParse(query.date);
   if (!date.success) errors.date = date.error.issues[0].message;
-  const limits = skyLimitsSchema.safeParse({ airmassLimit: number(query.airmass) });
-  if (!limits.success) errors.airmass = limits.error.issues[0].message;
-  const nightCount = number(query.nights);
-  if (!(Number.isInteger(nightCount) && nightCount >= 7 && nightCount <= MAX_SEASON_NIGHTS)) {
-    errors.nights = `The season is a whole number of nights from 7 to ${MAX_SEASON_NIGHTS}.`;
-  }
+  const limits = skyLimitsSchema.safeParse({ airmassLimit: quantity("airmass") });
+  if (!limits.success) errors.airmass ??= limits.error.issues[0].message;
+  const nightCount = nightCountOf(query.nights);
+  if (!(Number.isInteger(nightCount) && nightCount >= 7 && nightCount <= MAX_SEASON_NIGHTS)) errors.nights = seasonLengthMessage;
   if (Object.keys(errors).length > 0 || !site.success || !date.success || !limits.success) return { value: null, errors };
   return {
     value: { site: site.data, target: { name: "Target", raDeg, decDeg }, nightDateIso: date.data, limits: limits.data, nightCount },
