@@ -22,7 +22,7 @@ import {
   sisEinsteinRadius,
   SOLAR_MASS_LENGTH_M,
 } from "@/lib/physics";
-import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, boundText, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { fieldLabels, type Sketch, type SketchField } from "./sketch-state";
 
@@ -176,7 +176,7 @@ function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
       sigmaKmPerS: reader.read(
         "sigma",
         (text) => parseVelocity(text, { defaultUnit: defaultUnits.sigma }),
-        within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s (far below the speed of light, 299,792 km/s)`),
+        within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s (far below the speed of light, 299\u202f792 km/s)`),
       ),
     };
   }
@@ -334,7 +334,7 @@ export function parseSketch(sketch: Sketch): ParsedSketch {
 
 function sketchWarnings({ lens }: SketchInputs): FieldWarnings {
   if (lens.model === "sis" && lens.sigmaKmPerS > SIGMA_WARNING_KM_PER_S) {
-    return { sigma: `Above ${SIGMA_WARNING_KM_PER_S.toLocaleString("en-US")} km/s, faster than in the richest galaxy clusters known: check the value` };
+    return { sigma: `Above ${boundText(SIGMA_WARNING_KM_PER_S)} km/s, faster than in the richest galaxy clusters known: check the value` };
   }
   return {};
 }

@@ -51,12 +51,20 @@ export const acceptedRanges = {
   sourceOffsetThetaE: { min: 1e-6, max: 1000 },
 } as const satisfies Record<string, AcceptedRange>;
 
-/** A bound as a user reads it: "1,000", "20,000,000,000", "1e-6", "1e16". */
+/**
+ * A bound as a user reads it and may type it back: "1000", "20 000 000 000", "0.001", "1e-6", "1e16".
+ * Digits are grouped in threes by a narrow no-break space from five digits on (SI Brochure, 9th ed.,
+ * §5.4.4), never by a comma: the quantity parser refuses "3,000" as ambiguous (3000 or 3.000).
+ */
 export function boundText(value: number): string {
-  return value >= 1e-3 && value < 1e12 ? value.toLocaleString("en-US", { maximumFractionDigits: 6 }) : value.toExponential().replace("e+", "e");
+  if (!(value >= 1e-3 && value < 1e12)) return value.toExponential().replace("e+", "e");
+  const [whole, fraction] = String(Number(value.toFixed(6))).split(".");
+  let grouped = whole;
+  if (whole.length > 4) for (let end = whole.length - 3; end > 0; end -= 3) grouped = `${grouped.slice(0, end)}\u202f${grouped.slice(end)}`;
+  return fraction === undefined ? grouped : `${grouped}.${fraction}`;
 }
 
-/** "1e-6 and 1,000": a range as the bench's messages say it. */
+/** "1e-6 and 1000": a range as the bench's messages say it. */
 export function rangeText(range: AcceptedRange): string {
   return `${boundText(range.min)} and ${boundText(range.max)}`;
 }

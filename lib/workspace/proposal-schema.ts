@@ -58,7 +58,7 @@ export const proposalQuantities = {
     unitWords: "mas",
     example: "0.05 arcsec",
     range: { min: 1e-4, max: 3.6e6 },
-    rangeMessage: "Resolution is from 0.0001 mas (0.1 µas) to 3,600,000 mas (1,000°).",
+    rangeMessage: "Resolution is from 0.0001 mas (0.1 µas) to 3\u202f600\u202f000 mas (1000°).",
   },
   cadenceHours: {
     label: "Cadence",
@@ -67,7 +67,7 @@ export const proposalQuantities = {
     unitWords: "h",
     example: "30 min",
     range: { min: 0.001, max: 24 * 365 },
-    rangeMessage: "Cadence is from 0.001 h (3.6 s) to 8,760 h (a year).",
+    rangeMessage: "Cadence is from 0.001 h (3.6 s) to 8760 h (a year).",
   },
   campaignLengthDays: {
     label: "Campaign length",
@@ -76,7 +76,7 @@ export const proposalQuantities = {
     unitWords: "days",
     example: "90 d",
     range: { min: 0.01, max: 3653 },
-    rangeMessage: "Campaign length is from 0.01 days (about 15 minutes) to 3,653 days (ten years).",
+    rangeMessage: "Campaign length is from 0.01 days (about 15 minutes) to 3653 days (ten years).",
   },
   airmassLimit: {
     label: "Airmass limit",
@@ -101,7 +101,7 @@ export const proposalQuantities = {
     unitWords: "km",
     example: "10700 km",
     range: { min: 1e-3, max: 1e6 },
-    rangeMessage: "The longest baseline is from 0.001 km (1 m) to 1,000,000 km.",
+    rangeMessage: "The longest baseline is from 0.001 km (1 m) to 1\u202f000\u202f000 km.",
   },
 } as const satisfies Record<string, QuantitySpec>;
 

@@ -44,7 +44,7 @@ describe("parseSketch", () => {
     const parsed = parseSketch(sketch({ mass: "-1 Msun", u0: "0", cadence: "1 kg", rays: "5001", bmax: "0.1" }));
     if (parsed.ok) throw new Error("expected errors");
     expect(parsed.fieldErrors.mass).toMatch(/^Lens mass: '-1 Msun' .*greater than zero/);
-    expect(parsed.fieldErrors.u0).toBe("u0 must lie between 1e-6 and 1,000 (closer, a real source's size caps the peak magnification)");
+    expect(parsed.fieldErrors.u0).toBe("u0 must lie between 1e-6 and 1000 (closer, a real source's size caps the peak magnification)");
     expect(parsed.fieldErrors.cadence).toMatch(/^Cadence: '1 kg' /);
     expect(parsed.fieldErrors.rays).toBe("The ray count must be a whole number from 1 to 5000");
     expect(parsed.fieldErrors.bmax).toBe("The largest impact parameter must exceed the smallest");

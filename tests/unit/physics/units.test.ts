@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import * as constants from "@/lib/physics/constants";
+import { acceptedRanges, boundText } from "@/lib/physics/accepted-ranges";
 import {
   QuantityError,
   formatAngle,
@@ -200,5 +201,17 @@ describe("formatters", () => {
     expect(formatTime(86_400 * 3)).toBe("3 d");
     expect(() => formatDistance(1, "kg")).toThrow("distance: 'kg' is not a distance unit");
     expect(() => formatMass(1, "deg")).toThrow("mass: 'deg' is not a mass unit");
+  });
+});
+
+describe("range bounds in messages (issue 15: a refusal says what to type instead)", () => {
+  it("are written so that typing them back reads the same number: no comma groups the parser refuses as ambiguous", () => {
+    // SI Brochure, 9th ed., §5.4.4: digits in groups of three separated by a thin space, none for four digits.
+    expect(boundText(3000)).toBe("3000");
+    expect(boundText(12345)).toBe("12\u202f345");
+    expect(boundText(2e10)).toBe("20\u202f000\u202f000\u202f000");
+    for (const range of Object.values(acceptedRanges)) {
+      for (const bound of [range.min, range.max]) expect(parseNumber(boundText(bound))).toBe(bound);
+    }
   });
 });
