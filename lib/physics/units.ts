@@ -17,6 +17,7 @@ import type { Unit } from "mathjs";
 import { SOLAR_MASS_LENGTH_M, SOLAR_MASS_TIME_S, SPEED_OF_LIGHT_M_PER_S } from "./constants";
 import { readLeadingNumber } from "./quantity-text";
 import { math, readUnit, superscript, unitLabel, type UnitFactor } from "./quantity-vocabulary";
+import { readCompoundAngle } from "./sexagesimal-angle";
 
 /** The quantities the parsers read; each error names one of them. */
 export type QuantityKind = "mass" | "distance" | "length" | "wavelength" | "angle" | "velocity" | "proper motion" | "time" | "number";
@@ -253,13 +254,26 @@ export function parseNumber(text: string): number {
   return number.value;
 }
 
+/** An angle typed as degrees, arcminutes and arcseconds together (./sexagesimal-angle), or undefined for any other text. */
+function readCompound(text: string): Reading | undefined {
+  if (typeof text !== "string" || text.length > MAX_QUANTITY_CHARS) return undefined;
+  const compound = readCompoundAngle(foldSpaces(text));
+  if (compound === undefined) return undefined;
+  if (!compound.ok) throw quantityError("angle", text, compound.fault, compound.advice);
+  const degree = readUnit("deg");
+  if (!degree.ok) throw new Error("the degree is missing from the unit vocabulary");
+  return { value: degree.one.toNumber("rad") * compound.degrees, parsed: { value: compound.degrees, unit: degree, index: 0, isAssumed: false } };
+}
+
 function readSigned(kind: "angle" | "velocity" | "proper motion" | "time", text: string, options: ParseOptions | undefined): Reading {
+  const compound = kind === "angle" ? readCompound(text) : undefined;
+  if (compound !== undefined) return compound;
   const reference = { angle: "rad", velocity: "m/s", "proper motion": "rad/s", time: "s" }[kind];
   const parsed = parseQuantity(kind, text, [reference], options);
   return { value: valueIn(kind, text, parsed, RESULT_UNITS[kind]), parsed };
 }
 
-/** Parses an angle (`1.2 arcsec`, `1.2″`, `1.2''`, `350 mas`, `40 µas`, `0.3 deg`, `0.3°`, `5′`) into radians; finite. */
+/** Parses an angle (`1.2 arcsec`, `1.2″`, `1.2''`, `350 mas`, `40 µas`, `0.3 deg`, `0.3°`, `5′`, `12°30′15″`) into radians; finite. */
 export function parseAngle(text: string, options?: ParseOptions): number {
   return readSigned("angle", text, options).value;
 }

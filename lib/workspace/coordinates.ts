@@ -38,8 +38,9 @@ function matchSexagesimal(text: string, label: string): Sexagesimal | undefined 
   return { negative: match[1] === "-", whole: Number(match[2]), minutes, seconds };
 }
 
+/** The typed text, trimmed, with a true minus sign (U+2212, as papers and our own display write it) read as "-". */
 function asText(input: string | number): string {
-  return typeof input === "number" ? String(input) : input.trim();
+  return typeof input === "number" ? String(input) : input.trim().replace(/^\u2212/, "-");
 }
 
 /** Right ascension in degrees, [0, 360). Sexagesimal input is in hours; bare numbers are degrees. */

@@ -3,6 +3,7 @@ import * as constants from "@/lib/physics/constants";
 import { acceptedRanges, boundText } from "@/lib/physics/accepted-ranges";
 import {
   QuantityError,
+  echoQuantity,
   formatAngle,
   formatDistance,
   formatMass,
@@ -213,5 +214,31 @@ describe("range bounds in messages (issue 15: a refusal says what to type instea
     for (const range of Object.values(acceptedRanges)) {
       for (const bound of [range.min, range.max]) expect(parseNumber(boundText(bound))).toBe(bound);
     }
+  });
+});
+
+describe("angles typed in degrees, arcminutes and arcseconds together (issue 15: ° ′ ″ as astronomers type them)", () => {
+  // 1° = 60′ = 3600″ by definition (SI Brochure, 9th ed., Table 8); a sign applies to the whole angle.
+  const degreesOf = (text: string) => (parseAngle(text) * 180) / Math.PI;
+
+  it("reads the sexagesimal forms with Unicode primes, ASCII primes and a true minus sign", () => {
+    expect(degreesOf("12°30′")).toBeCloseTo(12.5, 13);
+    expect(degreesOf("-24° 37′ 38.5″")).toBeCloseTo(-(24 + 37 / 60 + 38.5 / 3600), 13);
+    expect(degreesOf("\u22120° 30′")).toBeCloseTo(-0.5, 13);
+    expect(degreesOf("1′30″")).toBeCloseTo(90 / 3600, 15);
+    expect(degreesOf("0°0'1.2''")).toBeCloseTo(1.2 / 3600, 15);
+    expect(echoQuantity("angle", "12°30′")).toEqual({ ok: true, text: "= 12.5°", assumedUnit: false });
+  });
+
+  it("refuses a malformed one in words, saying what to type, instead of reading '12°30′' as a power of 30", () => {
+    const problem = (text: string) => {
+      const echo = echoQuantity("angle", text);
+      return echo.ok ? echo.text : echo.message;
+    };
+    expect(problem("12° 30")).toBe("has '30' with no ′ or ″ after it; type e.g. 12°30′ or -24° 37′ 38.5″");
+    expect(problem("12°75′")).toMatch(/^has arcminutes or arcseconds of 60 or more; type /);
+    expect(problem("12.5°30′")).toMatch(/^has a fraction before its last part; type /);
+    expect(problem("30′12°")).toMatch(/^has its degrees, arcminutes and arcseconds out of order; type /);
+    expect(problem("12° -30′")).toMatch(/^has '-30' where a number of arcminutes goes; type /);
   });
 });

@@ -56,6 +56,12 @@ describe("display", () => {
     expect(parseRightAscensionDeg(formatRightAscension(123.456789).replace(/[hm]/g, " ").replace("s", ""))).toBeCloseTo(123.456789, 4);
   });
 
+  it("reads back the declination it displays, true minus sign included (issue 15: a value copied from a paper or from our own page)", () => {
+    // −29°00′28.1″ = −(29 + 0/60 + 28.1/3600)° by definition of the sexagesimal notation.
+    expect(parseDeclinationDeg(formatDeclination(-29.00780556))).toBeCloseTo(-(29 + 28.1 / 3600), 10);
+    expect(parseDeclinationDeg("\u221229.0078")).toBe(-29.0078);
+  });
+
   it("never prints 60 seconds (regression: rounding carried into the next minute)", () => {
     expect(formatRightAscension(((59 * 60 + 59.999) / 3600) * 15)).toBe("01h00m00.00s");
     expect(formatDeclination(-(10 + 59 / 60 + 59.97 / 3600))).toBe("−11°00′00.0″");
