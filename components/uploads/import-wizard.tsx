@@ -4,7 +4,8 @@ import Link from "next/link";
 import { useRef, useState } from "react";
 import { useVirtualizer } from "@tanstack/react-virtual";
 import { defaultUnits, importFieldKinds, importFieldLabels, importFields, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
-import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill } from "@/lib/imports/request";
+import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill, matchToleranceSpec } from "@/lib/imports/request";
+import { quantityEcho } from "@/lib/workspace/quantity-field";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
@@ -39,7 +40,8 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
   const requestBody = (id: string, chosen: ColumnMapping | undefined) => ({
     fileId: id,
     mapping: chosen,
-    toleranceArcsec: Number(toleranceText),
+    // Sent as typed ("0.5", "500 mas"): the server reads it with the one quantity parser.
+    toleranceArcsec: toleranceText,
     // Sent as typed: the server reads them as the target form's fields are read, and names the one refused.
     fill: { priority: priorityText, sourceOffsetThetaE: offsetText },
   });
@@ -145,6 +147,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
             <label className="flex items-center gap-2">
               Position tolerance for matching existing targets (″)
               <input className={`${inputClass} w-20`} inputMode="decimal" value={toleranceText} onChange={(e) => setToleranceText(e.target.value)} />
+              <ToleranceEcho text={toleranceText} />
             </label>
             <label className="flex items-center gap-2">
               Priority where the file has none
@@ -254,5 +257,16 @@ function PreviewRows({ rows }: { rows: ImportRowView[] }) {
         })}
       </div>
     </div>
+  );
+}
+
+/** The tolerance the server will use, beside its input as the user types ("= 0.5″"), or why it will refuse it. */
+function ToleranceEcho({ text }: { text: string }) {
+  const echo = quantityEcho(matchToleranceSpec, text);
+  if (echo === null) return null;
+  return (
+    <span data-testid="echo-toleranceArcsec" aria-live="polite" className={`font-mono text-xs ${echo.ok ? "text-glint" : "text-alarm"}`}>
+      {echo.ok ? echo.text : echo.message}
+    </span>
   );
 }

@@ -2,12 +2,28 @@ import { z } from "zod";
 import { importFieldLabels, importFields, type ImportField } from "@/lib/imports/columns";
 import { MAX_MATCH_TOLERANCE_ARCSEC } from "@/lib/imports/matching";
 import { lensModels, targetFieldsSchema } from "@/lib/workspace/target-schema";
+import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 
 /**
  * Position tolerance used to match a row to an existing target when the names differ: 1″, the
  * radius commonly used to cross-match optical catalogues of point sources (common practice).
  */
 export const DEFAULT_MATCH_TOLERANCE_ARCSEC = 1;
+
+/**
+ * The tolerance as the wizard's field takes it: arcseconds by default, any angle unit typed with it
+ * ("0.5 arcsec", "500 mas"), read by the one quantity parser. From 1 mas (our rule: finer than any
+ * catalogue position a target list is matched with) to MAX_MATCH_TOLERANCE_ARCSEC.
+ */
+export const matchToleranceSpec = {
+  label: "Position tolerance",
+  kind: "angle",
+  unit: "arcsec",
+  unitWords: "″",
+  example: "1 arcsec",
+  range: { min: 1e-3, max: MAX_MATCH_TOLERANCE_ARCSEC },
+  rangeMessage: `The position tolerance is from 0.001″ (1 mas) to ${MAX_MATCH_TOLERANCE_ARCSEC}″.`,
+} as const satisfies QuantitySpec;
 
 /** Fill values the mapping step starts from (the same defaults as the add-a-target form). */
 export const defaultImportFill = { priority: 3, sourceOffsetThetaE: 0.3 } as const;
@@ -60,11 +76,7 @@ export const importPreviewSchema = z.object({
   fileId: z.uuid({ error: "The uploaded file is missing: upload a target list first." }),
   mapping: columnMappingSchema.optional(),
   fill: importFillSchema.default(defaultImportFill),
-  toleranceArcsec: z
-    .number({ error: "The position tolerance is a positive number of arcseconds." })
-    .positive("The position tolerance is a positive number of arcseconds.")
-    .max(MAX_MATCH_TOLERANCE_ARCSEC, `The position tolerance is at most ${MAX_MATCH_TOLERANCE_ARCSEC}″.`)
-    .default(DEFAULT_MATCH_TOLERANCE_ARCSEC),
+  toleranceArcsec: quantityField(matchToleranceSpec).default(DEFAULT_MATCH_TOLERANCE_ARCSEC),
 });
 
 /** Body of a commit: as a preview, with the mapping required (the one the user saw). */

@@ -6,7 +6,7 @@
  * server its field error, so the two cannot disagree.
  */
 import { z } from "zod";
-import { DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import { ARCSECOND_RAD, DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { boundText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import {
   MAX_QUANTITY_CHARS,
@@ -49,6 +49,7 @@ export type FieldReading = { ok: true; value: number } | { ok: false; message: s
 const toStored: Record<string, (parsed: number) => number> = {
   "mas/yr": (radPerS) => (radPerS * JULIAN_YEAR_S) / MILLIARCSECOND_RAD,
   mas: (rad) => rad / MILLIARCSECOND_RAD,
+  arcsec: (rad) => rad / ARCSECOND_RAD,
   deg: (rad) => (rad * 180) / Math.PI,
   h: (s) => s / 3600,
   d: (s) => s / DAY_S,

@@ -99,6 +99,12 @@ describe("target-list import through the upload service", () => {
     const wide = await previewImport(params, { fileId, toleranceArcsec: 1 }, world.actors.coi);
     expect(wide.rows[0].action).toBe("update");
     expect(wide.rows[0].detail).toBe("updates TB-ML-0001 (0.60″ away)");
+    // Typed as the wizard sends it, with the one quantity parser's units and comma rules (1″ = 1000 mas by definition).
+    expect((await previewImport(params, { fileId, toleranceArcsec: "500 mas" }, world.actors.coi)).rows[0].action).toBe("add");
+    expect((await previewImport(params, { fileId, toleranceArcsec: "0,7" }, world.actors.coi)).rows[0].action).toBe("update");
+    await expect(previewImport(params, { fileId, toleranceArcsec: "1,000" }, world.actors.coi)).rejects.toMatchObject({
+      fields: { toleranceArcsec: [expect.stringMatching(/^Position tolerance: '1,000' could be 1000 or 1\.000/)] },
+    });
 
     const result = await commitImport(params, { fileId, mapping: wide.mapping, toleranceArcsec: 1 }, world.actors.coi);
     expect(result).toMatchObject({ added: 0, updated: 1, skipped: 0 });
