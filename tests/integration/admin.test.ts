@@ -28,7 +28,7 @@ describe("site admin: accounts", () => {
 
     const tooMany = await accountCollectionRoutes(async () => admin).GET(new Request("http://arcwright.test/api/admin/accounts?pageSize=500"), { params: Promise.resolve({}) });
     expect(tooMany.status).toBe(400);
-    expect(((await tooMany.json()) as { error: { fields: Record<string, string[]> } }).error.fields.pageSize).toEqual(["At most 100 accounts per page."]);
+    expect(((await tooMany.json()) as { error: { fields: Record<string, string[]> } }).error.fields.pageSize).toEqual(["The page size is at most 100 accounts."]);
     expect(await codeOf(listAccounts({}, world.actors.pi))).toBe("forbidden:admin");
     expect(await codeOf(listAccounts({}, null))).toBe("unauthorized:session");
   });
