@@ -73,7 +73,9 @@ async function main() {
   const { phases, filters } = parseArgs(process.argv.slice(2));
   const startedAt = Date.now();
   ensureNodeModules(repoRoot);
-  ensureDebianPackages(["postgresql", ...(phases.includes("e2e") ? ["chromium"] : [])]);
+  // The table exports are read back by astropy and STILTS (tests/validators/check_tables.py).
+  const validators = phases.includes("unit") || phases.includes("integration") ? ["python3-astropy", "stilts"] : [];
+  ensureDebianPackages(["postgresql", ...validators, ...(phases.includes("e2e") ? ["chromium"] : [])]);
 
   const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));
   chmodSync(tmp, 0o755); // the server's own user must reach its folder inside

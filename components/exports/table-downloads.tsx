@@ -5,7 +5,7 @@ import { defaultExportColumns, exportColumns, headerOf, type ExportColumnKey } f
 import { tableFormats } from "@/lib/exports/tables/formats";
 import { useDownload } from "./use-download";
 
-const formatLabels: Record<(typeof tableFormats)[number], string> = { csv: "CSV", tex: "LaTeX", votable: "VOTable", json: "JSON" };
+const formatLabels: Record<(typeof tableFormats)[number], string> = { csv: "CSV", ecsv: "ECSV (CSV with units and provenance)", tex: "LaTeX", votable: "VOTable", json: "JSON" };
 
 /**
  * The target table download: format, columns (inputs and computed quantities) and significant

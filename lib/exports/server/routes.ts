@@ -10,7 +10,7 @@ import { loadTargetTable } from "./target-table";
 type ProposalParams = { proposalId: string };
 
 /**
- * /api/proposals/[proposalId]/exports/targets?format=csv|tex|votable|json&columns=…&digits=…
+ * /api/proposals/[proposalId]/exports/targets?format=csv|ecsv|tex|votable|json&columns=…&digits=…
  * Every format's download carries the provenance record as JSON in the `Arcwright-Provenance`
  * header; a CSV file, which holds nothing but its table, also names its time of export.
  */

@@ -5,7 +5,7 @@ import { dbClient } from "@/db/client";
 import { targets } from "@/db/schema";
 import { serverEnv } from "@/lib/env";
 import { buildProvenance } from "@/lib/exports/provenance";
-import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
+import { dataDigitsOf, tableColumnsQuerySchema, type ChosenColumn } from "@/lib/exports/tables/columns";
 import { tableFormats, type TableFormat } from "@/lib/exports/tables/formats";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
@@ -43,6 +43,8 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
     .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
     .limit(MAX_EXPORT_ROWS);
   const instrument = instrumentOf(proposal);
+  // LaTeX shows the display digits; the data formats write inputs as stored (17) unless asked.
+  const digitsOf = format === "tex" ? (c: ChosenColumn) => c.digits : dataDigitsOf;
   const provenance = buildProvenance({
     subject: `Target table of the proposal "${proposal.title}" (${proposal.cycle})`,
     reproduceUrl: new URL(`/proposals/${proposal.id}`, serverEnv().NEXTAUTH_URL).toString(),
@@ -55,7 +57,7 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
       campaignLengthDays: instrument.campaignLengthDays,
       cycleStartDate: proposal.cycleStartDate ?? null,
       columns: columns.map((c) => c.column.key).join(","),
-      digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${c.digits}`).join(","),
+      digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${digitsOf(c)}`).join(","),
       rowCount: rows.length,
       order: "priority, name",
     },

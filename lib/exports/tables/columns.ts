@@ -85,13 +85,25 @@ export function headerOf(column: ExportColumn): string {
   return column.unit === "" ? column.label : `${column.label} [${column.unit}]`;
 }
 
+/**
+ * A column in words for VOTable and ECSV descriptions: its label and whether it is an input or
+ * computed; a scale that is no unit (θ_E) is said here, since no unit attribute can carry it.
+ */
+export function descriptionOf(column: ExportColumn): string {
+  const scale = column.voUnit === "" && column.unit !== "" ? `, in units of ${column.unit}` : "";
+  return `${column.label}${scale} (${column.origin})`;
+}
+
 export const MIN_DIGITS = 1;
 export const MAX_DIGITS = 17;
 
 /** A column with the significant digits it is exported with. */
 export interface ChosenColumn {
   column: ExportColumn;
+  /** Significant digits shown to a reader (LaTeX, the summary): the request's, else the column's default. */
   digits: number;
+  /** Whether the request named this column's digits (a bare `n` names every double column's). */
+  hasRequestedDigits: boolean;
 }
 
 /** One exported cell before formatting: a number, a text, or nothing (the model gives no value). */
@@ -108,6 +120,27 @@ export function cellOf(row: TargetView, column: ExportColumn): CellValue {
 /** Rounds to `digits` significant digits (IEEE round-trip of `toPrecision`). */
 export function roundSignificant(value: number, digits: number): number {
   return Number(value.toPrecision(digits));
+}
+
+/**
+ * Significant digits a data format (CSV, ECSV, VOTable, JSON) writes a double column with. An input
+ * the request named no digits for is written as stored (17 digits identify every double, and its
+ * shortest form is written), so a file re-imported unchanged matches its targets exactly; computed
+ * quantities keep their chosen digits, the accuracy their model has.
+ */
+export function dataDigitsOf(chosen: ChosenColumn): number {
+  return isWrittenAsStored(chosen) ? MAX_DIGITS : chosen.digits;
+}
+
+/** Whether a data format writes the column's values exactly as stored (see `dataDigitsOf`). */
+export function isWrittenAsStored(chosen: ChosenColumn): boolean {
+  return chosen.column.origin === "input" && !chosen.hasRequestedDigits;
+}
+
+/** A cell as a data format writes it: a double rounded to `dataDigitsOf`, anything else as it is. */
+export function dataCellOf(row: TargetView, chosen: ChosenColumn): CellValue {
+  const value = cellOf(row, chosen.column);
+  return typeof value === "number" && chosen.column.kind === "double" ? roundSignificant(value, dataDigitsOf(chosen)) : value;
 }
 
 /** A cell as text: doubles at their significant digits (shortest form that holds them), "" for null. */
@@ -158,6 +191,7 @@ export const tableColumnsQuerySchema = z
     }
     return keys.map((key) => {
       const column = columnByKey.get(key)!;
-      return { column, digits: digitsByKey.get(key) ?? allDigits ?? column.defaultDigits };
+      const requested = digitsByKey.get(key) ?? (column.kind === "double" ? allDigits : undefined);
+      return { column, digits: requested ?? column.defaultDigits, hasRequestedDigits: requested !== undefined };
     });
   });

@@ -1,25 +1,30 @@
-import { toCsvField } from "@/lib/imports/formula";
-import { cellOf, cellText, headerOf } from "./columns";
+import Papa from "papaparse";
+import { dataCellOf, headerOf } from "./columns";
 import type { TargetTable } from "./table";
+
+// papaparse's own guard pattern (`^[=+\-@\t\r].*$`) fails on a formula followed by a line break,
+// since `.` stops there; the lead character alone decides.
+const FORMULA_LEAD = /^[=+\-@\t\r]/;
+
+/** Quotes a text starting with #, which astropy's CSV and ECSV readers take for a comment line when it opens a row. */
+export const quoteCommentLike = (value: unknown): boolean => typeof value === "string" && value.startsWith("#");
 
 /**
  * The table as plain CSV (RFC 4180: the header row first, CRLF line ends, quoted fields where
- * needed), as spreadsheets and astropy's and STILTS's CSV readers take it. The body holds the table
- * alone: the provenance travels in the download's `Arcwright-Provenance` header and file name
- * (`lib/exports/server/routes.ts`), since comment lines before the header are no part of RFC 4180
- * and a title written there would reach a spreadsheet as a cell. Every text field, headers included,
- * goes through the formula guard (`toCsvField`); empty fields are values the model does not give.
+ * needed), as spreadsheets and astropy's and STILTS's CSV readers take it, written by papaparse.
+ * The body holds the table alone: the provenance travels in the download's `Arcwright-Provenance`
+ * header and file name (`lib/exports/server/routes.ts`), and the units in the header text; the ECSV
+ * export carries both inside the file. papaparse's formula guard is on: a text cell starting with
+ * = + - @ tab or CR gets a leading apostrophe (OWASP CSV injection), while numbers, which a
+ * spreadsheet reads as numbers, are written as they are. An empty field is a value the model does
+ * not give; inputs are written as stored, computed quantities at their digits (`dataCellOf`).
  */
 export function targetTableCsv(table: TargetTable): string {
-  const header = table.columns.map(({ column }) => toCsvField(headerOf(column))).join(",");
-  const rows = table.rows.map((row) =>
-    table.columns
-      .map((chosen) => {
-        const value = cellOf(row, chosen.column);
-        // Numbers go out as written at their digits; text through the formula guard.
-        return typeof value === "number" ? cellText(value, chosen) : toCsvField(value);
-      })
-      .join(","),
-  );
-  return [header, ...rows].join("\r\n") + "\r\n";
+  return `${Papa.unparse(
+    {
+      fields: table.columns.map(({ column }) => headerOf(column)),
+      data: table.rows.map((row) => table.columns.map((chosen) => dataCellOf(row, chosen))),
+    },
+    { newline: "\r\n", escapeFormulae: FORMULA_LEAD, quotes: quoteCommentLike },
+  )}\r\n`;
 }

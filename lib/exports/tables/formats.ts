@@ -1,10 +1,11 @@
 import { targetTableCsv } from "./csv";
+import { targetTableEcsv } from "./ecsv";
 import { targetTableJson } from "./json";
 import { targetTableLatex } from "./latex";
 import type { TargetTable } from "./table";
 import { targetTableVotable } from "./votable";
 
-export const tableFormats = ["csv", "tex", "votable", "json"] as const;
+export const tableFormats = ["csv", "ecsv", "tex", "votable", "json"] as const;
 export type TableFormat = (typeof tableFormats)[number];
 
 interface TableWriter {
@@ -18,6 +19,8 @@ interface TableWriter {
 /** Each table format's writer, media type and file extension. */
 export const tableWriters: Record<TableFormat, TableWriter> = {
   csv: { write: targetTableCsv, contentType: "text/csv; charset=utf-8; header=present", extension: "csv", carriesProvenance: false },
+  // No registered media type; text/plain so a browser shows it rather than guessing a spreadsheet.
+  ecsv: { write: targetTableEcsv, contentType: "text/plain; charset=utf-8", extension: "ecsv", carriesProvenance: true },
   tex: { write: targetTableLatex, contentType: "application/x-tex; charset=utf-8", extension: "tex", carriesProvenance: true },
   votable: { write: targetTableVotable, contentType: "application/x-votable+xml; charset=utf-8", extension: "vot", carriesProvenance: true },
   json: { write: targetTableJson, contentType: "application/json; charset=utf-8", extension: "json", carriesProvenance: true },

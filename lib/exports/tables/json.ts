@@ -1,5 +1,5 @@
 import type { Provenance } from "@/lib/exports/provenance";
-import { cellOf, roundSignificant, type CellValue } from "./columns";
+import { dataCellOf, dataDigitsOf, type CellValue } from "./columns";
 import type { TargetTable } from "./table";
 
 export interface TargetTableJson {
@@ -8,26 +8,19 @@ export interface TargetTableJson {
   rows: Record<string, CellValue>[];
 }
 
-/** The table as JSON: provenance, column descriptions (units, UCDs, digits) and rows keyed by column. */
+/** The table as JSON: provenance, column descriptions (units, UCDs, digits written) and rows keyed by column (`dataCellOf`). */
 export function targetTableJson(table: TargetTable): string {
   const body: TargetTableJson = {
     provenance: table.provenance,
-    columns: table.columns.map(({ column, digits }) => ({
-      key: column.key,
-      label: column.label,
-      unit: column.unit,
-      ucd: column.ucd,
-      origin: column.origin,
-      digits: column.kind === "double" ? digits : null,
+    columns: table.columns.map((chosen) => ({
+      key: chosen.column.key,
+      label: chosen.column.label,
+      unit: chosen.column.unit,
+      ucd: chosen.column.ucd,
+      origin: chosen.column.origin,
+      digits: chosen.column.kind === "double" ? dataDigitsOf(chosen) : null,
     })),
-    rows: table.rows.map((row) =>
-      Object.fromEntries(
-        table.columns.map(({ column, digits }) => {
-          const value = cellOf(row, column);
-          return [column.key, typeof value === "number" && column.kind === "double" ? roundSignificant(value, digits) : value];
-        }),
-      ),
-    ),
+    rows: table.rows.map((row) => Object.fromEntries(table.columns.map((chosen) => [chosen.column.key, dataCellOf(row, chosen)]))),
   };
   return `${JSON.stringify(body, null, 2)}\n`;
 }

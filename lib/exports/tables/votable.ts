@@ -1,4 +1,4 @@
-import { cellOf, cellText, type ChosenColumn } from "./columns";
+import { cellOf, dataCellOf, descriptionOf, isWrittenAsStored, type ChosenColumn } from "./columns";
 import type { TargetTable } from "./table";
 import { escapeXml } from "./xml";
 
@@ -10,8 +10,13 @@ const isAscii = (text: string) => /^[\x20-\x7E]*$/.test(text);
 function fieldOf(chosen: ChosenColumn, rows: TargetTable["rows"]): string {
   const { column } = chosen;
   const attributes: [string, string][] = [["name", column.key]];
-  if (column.kind === "double") attributes.push(["datatype", "double"], ["precision", String(chosen.digits)]);
-  else if (column.kind === "int") attributes.push(["datatype", "int"]);
+  if (column.kind === "double") {
+    attributes.push(["datatype", "double"]);
+    // A bare number (or F) would be decimal places (VOTable 1.4 §4.2): a reader rewriting the file,
+    // astropy among them, then prints 1.752e-11 d as 0.0000. E<n> is significant figures; a value
+    // written as stored has no precision to declare.
+    if (!isWrittenAsStored(chosen)) attributes.push(["precision", `E${chosen.digits}`]);
+  } else if (column.kind === "int") attributes.push(["datatype", "int"]);
   else {
     // "char" is for ASCII; a column holding other characters is declared unicodeChar (VOTable 1.4 §2.1).
     const isAllAscii = rows.every((row) => isAscii(String(cellOf(row, column) ?? "")));
@@ -21,7 +26,7 @@ function fieldOf(chosen: ChosenColumn, rows: TargetTable["rows"]): string {
   attributes.push(["ucd", column.ucd]);
   if (column.key === "raDeg" || column.key === "decDeg") attributes.push(["ref", "icrs"]);
   const attributeText = attributes.map(([k, v]) => `${k}="${escapeXml(v)}"`).join(" ");
-  return `      <FIELD ${attributeText}>\n        <DESCRIPTION>${escapeXml(column.label)} (${column.origin})</DESCRIPTION>\n      </FIELD>`;
+  return `      <FIELD ${attributeText}>\n        <DESCRIPTION>${escapeXml(descriptionOf(column))}</DESCRIPTION>\n      </FIELD>`;
 }
 
 const info = (name: string, value: string, body?: string) =>
@@ -30,8 +35,9 @@ const info = (name: string, value: string, body?: string) =>
 /**
  * The table as an IVOA VOTable 1.4 document (TABLEDATA serialization): one FIELD per column with its
  * datatype, VOUnit and UCD; ICRS positions through a COOSYS; the provenance as INFO elements of the
- * RESOURCE. A double the model does not give is an empty TD (NaN, VOTable 1.4 §6); `precision` is the
- * significant digits written.
+ * RESOURCE. A double the model does not give is an empty TD (NaN, VOTable 1.4 §6); inputs are written
+ * as stored unless the request names their digits (`isWrittenAsStored`), and `precision="E<n>"` states the
+ * significant digits of a rounded column.
  */
 export function targetTableVotable(table: TargetTable): string {
   const p = table.provenance;
@@ -44,7 +50,7 @@ export function targetTableVotable(table: TargetTable): string {
     ...p.constants.map((c) => info(`constant.${c.name.replace(/\s+/g, "_")}`, `${c.value} ${c.unit}`, c.source)),
   ];
   const rows = table.rows.map(
-    (row) => `          <TR>${table.columns.map((chosen) => `<TD>${escapeXml(cellText(cellOf(row, chosen.column), chosen))}</TD>`).join("")}</TR>`,
+    (row) => `          <TR>${table.columns.map((chosen) => `<TD>${escapeXml(String(dataCellOf(row, chosen) ?? ""))}</TD>`).join("")}</TR>`,
   );
   return [
     '<?xml version="1.0" encoding="UTF-8"?>',

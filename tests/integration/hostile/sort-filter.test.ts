@@ -134,7 +134,7 @@ describe("exports: columns, formats and figures accept only the documented names
 
   it("the documented export columns are exactly the exporter's list", () => {
     expect([...exportColumnKeys]).toEqual(documentedExportColumns);
-    expect([...tableFormats]).toEqual(["csv", "tex", "votable", "json"]);
+    expect([...tableFormats]).toEqual(["csv", "ecsv", "tex", "votable", "json"]);
   });
 
   it("a list of documented columns exports exactly those, in that order; one unknown name makes it a 400 naming columns", async () => {

@@ -8,11 +8,13 @@ import { describe, expect, it } from "vitest";
 import { buildProvenance, exportStampOf, PRODUCT_VERSION, provenanceHeaderValue, type Provenance } from "@/lib/exports/provenance";
 import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { targetTableCsv } from "@/lib/exports/tables/csv";
+import { targetTableEcsv } from "@/lib/exports/tables/ecsv";
 import { targetTableJson, type TargetTableJson } from "@/lib/exports/tables/json";
 import { escapeLatex, targetTableLatex } from "@/lib/exports/tables/latex";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import { targetTableVotable, VOTABLE_NAMESPACE } from "@/lib/exports/tables/votable";
 import packageJson from "@/package.json";
+import { parse as parseYaml } from "yaml";
 import { exportProvenance, exportRows } from "./fixtures";
 
 const columns = tableColumnsQuerySchema.parse({
@@ -52,7 +54,8 @@ describe("CSV export (RFC 4180, read back with papaparse)", () => {
     expect(parsed.errors).toEqual([]);
     const [header, first, second] = parsed.data;
     expect(header).toEqual(["Name", "RA (ICRS) [deg]", "Lens model", "Einstein radius [mas]", "Time delay [d]", "Priority", "Tags", "Shadow diameter [uas]"]);
-    expect(first).toEqual(["TB-ML-0001", "269.301667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
+    // Inputs as stored (RA to the last digit), computed quantities at their digits.
+    expect(first).toEqual(["TB-ML-0001", "269.301666667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
     expect(second[3]).toBe("1030");
     expect(second[4]).toBe("");
     expect(csv.includes("\r\n")).toBe(true);
@@ -60,6 +63,17 @@ describe("CSV export (RFC 4180, read back with papaparse)", () => {
 
   it("neutralizes a formula-like name with a leading apostrophe (OWASP CSV injection) and keeps its text", () => {
     expect(parsed.data[2][0]).toBe(`'${hostileName}`);
+  });
+
+  it("guards a formula followed by a line break too (papaparse's own pattern stops at the break)", () => {
+    const rows = [{ ...exportRows[0], name: '=HYPERLINK("http://x.invalid")\nsecond line' }];
+    const cells = Papa.parse<string[]>(targetTableCsv({ ...table, rows }), { skipEmptyLines: true }).data[1];
+    expect(cells[0]).toBe(`'${rows[0].name}`);
+  });
+
+  it("quotes a name starting with #, which astropy's reader would drop as a comment line", () => {
+    const rows = [{ ...exportRows[0], name: "#3 arc" }];
+    expect(targetTableCsv({ ...table, rows }).split("\r\n")[1]).toMatch(/^"#3 arc",/);
   });
 
   it("is the table alone, header row first: a hostile title in the provenance never reaches a cell (it did through # lines)", () => {
@@ -152,12 +166,27 @@ describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () 
     const fields = parser.parse(xml).VOTABLE.RESOURCE.TABLE.FIELD as Record<string, string>[];
     const byName = Object.fromEntries(fields.map((f) => [f.name, f]));
     expect(byName.raDeg).toMatchObject({ datatype: "double", unit: "deg", ucd: "pos.eq.ra;meta.main", ref: "icrs" });
-    expect(byName.einsteinRadiusMas).toMatchObject({ datatype: "double", unit: "mas", ucd: "phys.angSize", precision: "3" });
+    expect(byName.einsteinRadiusMas).toMatchObject({ datatype: "double", unit: "mas", ucd: "phys.angSize", precision: "E3" });
     expect(byName.timeDelayDays).toMatchObject({ unit: "d", ucd: "time.interval" });
     expect(byName.shadowDiameterMicroarcsec.unit).toBe("uarcsec");
     expect(byName.priority).toMatchObject({ datatype: "int", ucd: "meta.code.qual" });
     expect(byName.priority.unit).toBeUndefined();
     expect(byName.name).toMatchObject({ datatype: "char", arraysize: "*" });
+  });
+
+  it("declares precision as significant figures (E<n>), never decimal places (a bare 4 made astropy rewrite 1.752e-11 d as 0.0000)", () => {
+    const all = tableColumnsQuerySchema.parse({ columns: "raDeg,lensMassSolar,timeDelayDays,shadowDiameterMicroarcsec" });
+    const rows = [{ ...exportRows[0], timeDelayDays: 1.752e-11, shadowDiameterMicroarcsec: 6.3e-6 }];
+    const doc = parser.parse(targetTableVotable({ ...table, columns: all, rows }));
+    const fields = doc.VOTABLE.RESOURCE.TABLE.FIELD as Record<string, string>[];
+    // Inputs are written as stored, so they declare no precision; computed columns their significant figures.
+    expect(fields.map((f) => [f.name, f.precision])).toEqual([
+      ["raDeg", undefined],
+      ["lensMassSolar", undefined],
+      ["timeDelayDays", "E4"],
+      ["shadowDiameterMicroarcsec", "E4"],
+    ]);
+    expect((doc.VOTABLE.RESOURCE.TABLE.DATA.TABLEDATA.TR as { TD: string[] }[])[0].TD).toEqual(["269.301666667", "0.4", "1.752e-11", "0.0000063"]);
   });
 
   it("escapes markup in cells and reads back the same values; provenance in INFO elements", () => {
@@ -171,6 +200,51 @@ describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () 
     expect(infos.exportedAt).toBe("2031-02-03T04:05:06.000Z");
     expect(infos.reproduceUrl).toContain("/proposals/");
     expect(infos["constant.GM_sun"]).toBe("132712440000000000000 m3 s-2");
+  });
+});
+
+/** The YAML of an ECSV file's header (its `# ` lines after `# %ECSV 1.0`) and its CSV body. */
+function splitEcsv(ecsv: string): { header: Record<string, unknown>; body: string[][] } {
+  const lines = ecsv.split("\n");
+  const firstBodyLine = lines.findIndex((line) => !line.startsWith("#"));
+  const yamlText = lines.slice(1, firstBodyLine).map((line) => line.slice(2)).join("\n");
+  // YAML 1.1, as astropy's and STILTS's loaders read it.
+  const header = parseYaml(yamlText, { version: "1.1" }) as Record<string, unknown>;
+  return { header, body: Papa.parse<string[]>(lines.slice(firstBodyLine).join("\n"), { skipEmptyLines: true }).data };
+}
+
+describe("ECSV export (Astropy's Enhanced CSV 1.0, APE6)", () => {
+  const ecsv = targetTableEcsv(table);
+  const { header, body } = splitEcsv(ecsv);
+
+  it("opens with the version line and a YAML header of columns (name, unit, datatype, description, UCD), comma delimiter and provenance", () => {
+    expect(ecsv.split("\n").slice(0, 2)).toEqual(["# %ECSV 1.0", "# ---"]);
+    expect(header.delimiter).toBe(",");
+    const datatype = header.datatype as Record<string, unknown>[];
+    expect(datatype.map((c) => c.name)).toEqual(columns.map((c) => c.column.key));
+    expect(datatype[1]).toEqual({ name: "raDeg", unit: "deg", datatype: "float64", description: "RA (ICRS) (input)", meta: { ucd: "pos.eq.ra;meta.main" } });
+    expect(datatype.find((c) => c.name === "shadowDiameterMicroarcsec")).toMatchObject({ unit: "uarcsec", datatype: "float64" });
+    expect(datatype.find((c) => c.name === "priority")).toMatchObject({ datatype: "int64" });
+    expect(datatype.find((c) => c.name === "priority")).not.toHaveProperty("unit");
+    expect(datatype[0]).toMatchObject({ name: "name", datatype: "string" });
+    expect(header.meta).toEqual(exportProvenance);
+  });
+
+  it("keeps texts that YAML 1.1 would read as booleans or dates as texts in the provenance", () => {
+    const provenance = { ...exportProvenance, subject: "no", inputs: { site: "yes", cycleStartDate: "2031-02-03", resolutionMas: 60 } };
+    expect(splitEcsv(targetTableEcsv({ ...table, provenance })).header.meta).toEqual(provenance);
+  });
+
+  it("has a body of the column names, then every value as stored (no apostrophe: it is for table tools), empty where no value", () => {
+    expect(body[0]).toEqual(columns.map((c) => c.column.key));
+    expect(body[1]).toEqual(["TB-ML-0001", "269.301666667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
+    expect(body[2][0]).toBe(hostileName);
+    expect(body[2][4]).toBe("");
+  });
+
+  it("quotes a name starting with #, so the row is not read as a comment line", () => {
+    const rows = [{ ...exportRows[0], name: "#3 arc" }];
+    expect(targetTableEcsv({ ...table, rows }).split("\n").at(-2)).toMatch(/^"#3 arc",/);
   });
 });
 
