@@ -9,7 +9,6 @@ import { DeflectionPlot } from "@/lib/figures/deflection-plot";
 import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
 import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
-import { CAPPED_MAGNIFICATION_MAX_ERROR } from "@/lib/physics/finite-source";
 
 const PLOT_WIDTH = 540;
 const PLOT_HEIGHT = 340;
@@ -46,10 +45,10 @@ export function BenchPlots({ results }: { results: BenchResults }) {
         <>
           <PlotCard testId="plot-light-curve">
             <LightCurvePlot lightCurve={eventPlots.light} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
-            {eventPlots.light.isPeakCapped ? (
+            {eventPlots.light.isLimitedBySourceSize ? (
               <figcaption className="px-2 text-xs text-ember" data-testid="light-curve-capped">
-                The peak is limited by the source&apos;s size: capped at a uniform disk&apos;s magnification √(1 + 4/ρ²) (Witt &amp; Mao 1994), an
-                approximation within {Math.round(CAPPED_MAGNIFICATION_MAX_ERROR * 100)}% of that disk&apos;s light curve.
+                The peak is limited by the source&apos;s size: the curve is a uniform disk&apos;s finite-source magnification, which differs there
+                by more than 1% from a point source&apos;s.
               </figcaption>
             ) : null}
             <FigureDownloads path="/api/bench/exports/light-curve" isSketchFromAddress figureName="light curve" />

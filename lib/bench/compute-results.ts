@@ -20,7 +20,7 @@ import {
   virbhadraEllisImages,
   weakFieldDeflection,
 } from "@/lib/physics";
-import { sourceRadiusInThetaE } from "@/lib/physics/finite-source";
+import { sourceRadiusInThetaE } from "@/lib/lensing/microlensing";
 import { formatPlain, type DisplayKind } from "./display-units";
 import { eventMagnification } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
@@ -80,7 +80,7 @@ export interface MicrolensingEvent {
   u0ThetaE: number;
   cadenceS: number;
   campaignS: number;
-  /** The source's radius in θ_E (ρ), for the finite-source cap. */
+  /** The source's radius in θ_E (ρ): the uniform disk whose finite-source magnification is drawn. */
   sourceRadiusThetaE: number;
   /** Images closer to the lens than this (θ_E) are behind its body; 0 for a compact lens. */
   occultingRadiusThetaE: number;
@@ -172,7 +172,9 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       symbol: "A(u0)",
       kind: "ratio",
       value: peak.magnification,
-      ...(peak.isCapped ? { note: `limited by the source's size (uniform disk, ρ = ${formatPlain(sourceRadiusThetaE, 3)} θ_E; approximate)` } : {}),
+      ...(peak.isLimitedBySourceSize
+        ? { note: `limited by the source's size: for a uniform disk of ρ = ${formatPlain(sourceRadiusThetaE, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}` }
+        : {}),
       ...(peak.magnification === 0 ? { note: "the source is behind the lens at closest approach: no image is seen" } : {}),
     },
     { id: "rho", label: "Source radius in Einstein radii", symbol: "ρ", kind: "ratio", value: sourceRadiusThetaE },

@@ -1,18 +1,24 @@
 /**
- * The magnification the bench draws for a microlensing event at lens–source offset u: the point-lens
- * images that are not behind the lens's body, with the total capped by the source's finite size.
- * Both are stated approximations: an image is taken as hidden or seen whole (its ray passes inside
- * or outside the body), and the cap is the uniform disk's peak (lib/physics/finite-source.ts).
+ * The magnification the bench draws for a microlensing event at lens–source offset u: the source is
+ * a uniform disk of radius ρ (its finite-source magnification, lib/lensing), and point-lens images
+ * behind the lens's body are left out. Leaving an image out is a stated approximation: the image is
+ * taken as hidden or seen whole (its ray passes inside or outside the body), and then the seen images
+ * are taken as a point source's, never above the whole disk's magnification.
  */
 
+import { finiteSourceMagnification } from "@/lib/lensing";
 import { pointLensImages } from "@/lib/physics";
-import { cappedMagnification } from "@/lib/physics/finite-source";
 import type { MicrolensingEvent } from "./compute-results";
+
+/** The source's size "limits" the magnification when it moves it by more than this share from a point source's. */
+const SOURCE_SIZE_LIMIT_SHARE = 0.01;
 
 export interface EventMagnification {
   magnification: number;
-  /** The source's size, not the offset, sets the value (the peak is "limited by the source's size"). */
-  isCapped: boolean;
+  /** The magnification a point source would have (of the images seen). */
+  pointSourceMagnification: number;
+  /** The finite-source value differs from the point source's by more than SOURCE_SIZE_LIMIT_SHARE. */
+  isLimitedBySourceSize: boolean;
 }
 
 /** Magnification at offset `u` (θ_E, ≥ 0) of the event's source, as an observer sees it. */
@@ -20,8 +26,9 @@ export function eventMagnification(u: number, event: Pick<MicrolensingEvent, "so
   const images = pointLensImages(u);
   const isPlusSeen = images.thetaPlus >= event.occultingRadiusThetaE;
   const isMinusSeen = Math.abs(images.thetaMinus) >= event.occultingRadiusThetaE;
-  if (isPlusSeen && isMinusSeen) return cappedMagnification(u, event.sourceRadiusThetaE);
-  const seen = (isPlusSeen ? images.magnificationPlus : 0) + (isMinusSeen ? Math.abs(images.magnificationMinus) : 0);
-  const capped = cappedMagnification(u, event.sourceRadiusThetaE);
-  return seen > capped.magnification ? capped : { magnification: seen, isCapped: false };
+  const wholeDisk = finiteSourceMagnification(u, event.sourceRadiusThetaE);
+  const pointSource = isPlusSeen && isMinusSeen ? images.magnificationTotal : (isPlusSeen ? images.magnificationPlus : 0) + (isMinusSeen ? Math.abs(images.magnificationMinus) : 0);
+  const magnification = isPlusSeen && isMinusSeen ? wholeDisk : Math.min(pointSource, wholeDisk);
+  const isLimitedBySourceSize = Math.abs(magnification - pointSource) > SOURCE_SIZE_LIMIT_SHARE * pointSource;
+  return { magnification, pointSourceMagnification: pointSource, isLimitedBySourceSize };
 }

@@ -60,8 +60,8 @@ export interface LightCurve {
   epochs: CurvePoint[];
   peakTimeDays: number;
   campaignDays: number;
-  /** Part of the curve is limited by the source's size (the uniform-disk cap binds). */
-  isPeakCapped: boolean;
+  /** Somewhere the source's size moves the curve by more than 1% from a point source's (event-magnification). */
+  isLimitedBySourceSize: boolean;
 }
 
 const LIGHT_CURVE_POINTS = 400;
@@ -70,18 +70,18 @@ const MAX_DRAWN_EPOCHS = 600;
 
 /**
  * The light curve A(t) with u(t)² = u0² + ((t − t0)/t_E)² (Paczyński 1986), as an observer sees it:
- * images behind the lens's body left out and the peak capped by the source's size (event-magnification).
+ * a uniform source disk's finite-source magnification, images behind the lens's body left out (event-magnification).
  */
 export function lightCurve(event: MicrolensingEvent): LightCurve {
   const { campaignS, cadenceS, peakTimeS, einsteinTimeS, u0ThetaE } = event;
   const magnificationAt = (timeS: number) => eventMagnification(Math.hypot(u0ThetaE, (timeS - peakTimeS) / einsteinTimeS), event);
   const curve: CurvePoint[] = [];
-  let isPeakCapped = magnificationAt(peakTimeS).isCapped;
+  let isLimitedBySourceSize = magnificationAt(peakTimeS).isLimitedBySourceSize;
   for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
     const timeS = (campaignS * i) / (LIGHT_CURVE_POINTS - 1);
-    const { magnification, isCapped } = magnificationAt(timeS);
-    isPeakCapped ||= isCapped;
-    curve.push({ x: timeS / DAY_S, y: magnification });
+    const point = magnificationAt(timeS);
+    isLimitedBySourceSize ||= point.isLimitedBySourceSize;
+    curve.push({ x: timeS / DAY_S, y: point.magnification });
   }
   const epochCount = Math.floor(campaignS / cadenceS) + 1;
   const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
@@ -90,7 +90,7 @@ export function lightCurve(event: MicrolensingEvent): LightCurve {
     const timeS = k * cadenceS;
     epochs.push({ x: timeS / DAY_S, y: magnificationAt(timeS).magnification });
   }
-  return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S, isPeakCapped };
+  return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S, isLimitedBySourceSize };
 }
 
 /** Centroid shift on the sky in units of θ_E: along the lens–source vector (τ, u0), length u/(u²+2). */

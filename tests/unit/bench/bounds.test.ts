@@ -4,8 +4,8 @@ import { parseSketch, SIGMA_WARNING_KM_PER_S } from "@/lib/bench/parse-sketch";
 import { lightCurve } from "@/lib/bench/plot-data";
 import { demoSketch, type Sketch } from "@/lib/bench/sketch-state";
 import { acceptedRanges, MAX_LENS_COMPACTNESS } from "@/lib/physics/accepted-ranges";
-import { uniformDiskPeakMagnification } from "@/lib/physics/finite-source";
-import { ARCSECOND_RAD, PARSEC_M, SOLAR_MASS_LENGTH_M, SOLAR_RADIUS_M, SPEED_OF_LIGHT_KM_PER_S } from "@/lib/physics";
+import { finiteSourceMagnification, peakMagnification } from "@/lib/lensing";
+import { ARCSECOND_RAD, DAY_S, PARSEC_M, pointLensMagnification, SOLAR_MASS_LENGTH_M, SOLAR_RADIUS_M, SPEED_OF_LIGHT_KM_PER_S } from "@/lib/physics";
 
 const sketch = (changes: Partial<Sketch>): Sketch => ({ ...demoSketch, ...changes });
 
@@ -72,22 +72,25 @@ describe("peak magnification", () => {
     expect(parseSketch(sketch({ u0: "1e-6" })).ok).toBe(true);
   });
 
-  it("caps the peak at a Sun-sized source's √(1 + 4/ρ²) and says the source's size limits it", () => {
+  it("gives the peak of a Sun-sized source as its finite-source magnification, near √(1 + 4/ρ²), and says the source's size limits it", () => {
     const results = resultsOf({ u0: "1e-6", rstar: "1 Rsun" });
     const thetaERad = rowOf(results, "theta-e").value;
     // ρ = (R☉ / D_S) / θ_E with R☉ = 6.957e8 m (IAU 2015 B3 nominal), D_S = 8 kpc.
     const rho = SOLAR_RADIUS_M / (8000 * PARSEC_M) / thetaERad;
     expect(rowOf(results, "rho").value).toBeCloseTo(rho, 15);
     const peak = rowOf(results, "peak");
-    // Witt & Mao 1994: a uniform disk centred on the lens is magnified √(1 + 4/ρ²) ≈ 2/ρ ≈ 2,455 here.
-    expect(peak.value).toBe(uniformDiskPeakMagnification(rho));
+    // Witt & Mao 1994: a uniform disk centred on the lens is magnified √(1 + 4/ρ²) ≈ 2/ρ ≈ 2,455 here;
+    // u0 = 1e-6 ≪ ρ ≈ 8e-4 changes that by ~(u0/ρ)², far below the digit checked.
+    expect(peak.value).toBe(peakMagnification(1e-6, rowOf(results, "rho").value));
     expect(peak.value).toBeCloseTo(2454.6, 0);
-    expect(peak.note).toMatch(/^limited by the source's size/);
+    expect(peak.note).toMatch(/^limited by the source's size: for a uniform disk of ρ = .* it differs by more than 1% from a point source's 1(\.0*)? × 10⁶/);
   });
 
-  it("leaves the demo's peak (u0 = 0.2) at the point-source value (u²+2)/(u√(u²+4)) = 5.075 (Paczyński 1986)", () => {
-    const peak = rowOf(resultsOf({}), "peak");
-    expect(peak.value).toBeCloseTo(2.04 / (0.2 * Math.sqrt(4.04)), 12);
+  it("gives the demo's peak (u0 = 0.2) within 1% of the point-source value (u²+2)/(u√(u²+4)) = 5.075 (Paczyński 1986), without the source-size note", () => {
+    const results = resultsOf({});
+    const peak = rowOf(results, "peak");
+    expect(peak.value).toBe(peakMagnification(0.2, rowOf(results, "rho").value));
+    expect(Math.abs(peak.value / (2.04 / (0.2 * Math.sqrt(4.04))) - 1)).toBeLessThan(1e-5);
     expect(peak.note).toBeUndefined();
   });
 
@@ -100,11 +103,23 @@ describe("peak magnification", () => {
 });
 
 describe("light curve", () => {
-  it("marks the curve limited by the source's size when the cap binds, and draws no peak above it", () => {
-    const capped = resultsOf({ u0: "1e-6", t0: "45 d" });
-    const curve = lightCurve(capped.event!);
-    expect(curve.isPeakCapped).toBe(true);
-    expect(Math.max(...curve.curve.map((point) => point.y))).toBeLessThanOrEqual(rowOf(capped, "peak").value);
-    expect(lightCurve(resultsOf({}).event!).isPeakCapped).toBe(false);
+  it("marks the curve limited by the source's size when a finite source moves it more than 1%, and draws no peak above the disk's", () => {
+    const limited = resultsOf({ u0: "1e-6", t0: "45 d" });
+    const curve = lightCurve(limited.event!);
+    expect(curve.isLimitedBySourceSize).toBe(true);
+    expect(Math.max(...curve.curve.map((point) => point.y))).toBeLessThanOrEqual(rowOf(limited, "peak").value);
+    expect(lightCurve(resultsOf({}).event!).isLimitedBySourceSize).toBe(false);
+  });
+
+  it("draws the exact finite-source magnification along the curve, not a point source's capped at the peak", () => {
+    const event = resultsOf({ u0: "1e-6", t0: "45 d" }).event!;
+    const rho = event.sourceRadiusThetaE;
+    // Inside the disk the cap would have drawn the point-source value (below its √(1 + 4/ρ²) cap at u ≈ ρ/2); the disk gives less.
+    const u = 0.5 * rho;
+    expect(finiteSourceMagnification(u, rho)).toBeLessThan(0.99 * pointLensMagnification(u));
+    for (const point of lightCurve(event).curve) {
+      const uAt = Math.hypot(event.u0ThetaE, (point.x * DAY_S - event.peakTimeS) / event.einsteinTimeS);
+      expect(Math.abs(point.y / finiteSourceMagnification(uAt, rho) - 1)).toBeLessThan(1e-9);
+    }
   });
 });
