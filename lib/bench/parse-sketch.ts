@@ -70,7 +70,7 @@ export interface LightCurveInputs {
   peakTimeS: number;
   /** Impact parameter at peak, units of θ_E. */
   u0ThetaE: number;
-  /** The source's radius, metres (finite-source cap on the peak). */
+  /** The source's radius, metres (its finite-source magnification along the light curve). */
   sourceRadiusM: number;
 }
 

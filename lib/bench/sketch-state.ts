@@ -87,7 +87,7 @@ export const sketchSchema = z.object({
   layout: choiceField(rayLayouts, demoSketch.layout),
   /** The lens's physical radius, or "compact" for a body inside its photon sphere (a black hole). */
   radius: textField("radius"),
-  /** The source's radius, for the finite-source cap on the peak magnification. */
+  /** The source's radius, for its finite-source magnification along the light curve. */
   rstar: textField("rstar"),
   /** Result units the user chose over the readable default: "t-e:yr,theta-e:arcsec" (see display-units). */
   units: z.string().trim().max(MAX_UNITS_CHARS).catch(demoSketch.units),
