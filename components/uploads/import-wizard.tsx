@@ -95,6 +95,8 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
           />
         </div>
         <FormError message={uploadError} />
+        {/* A file with no proposal of columns (no name, RA or Dec found) has no mapping step to show the refusal in. */}
+        {!preview && <FormError message={previewing.message} />}
         {preview && (
           <p className="text-sm" data-testid="uploaded-list">
             {preview.file.name} · {preview.file.format === "csv" ? "CSV" : "VOTable"} · {preview.rows.length.toLocaleString("en-US")} rows

@@ -64,6 +64,18 @@ describe("uploads in the browser through the upload service fake", () => {
     expect(scriptErrors, scriptErrors.join("\n")).toEqual([]);
   });
 
+  it("says why a list with no RA or Dec column cannot be read, instead of leaving the page blank", async () => {
+    const { page } = await newPage(browser);
+    await signInAsDemo(page, "coi");
+    const id = await openProposal(page);
+    await page.goto(`/proposals/${id}/import`);
+    const csv = [`name,mass`, `NORA-${run},0.5`].join("\n");
+    await page.getByTestId("list-dropzone").locator('input[type="file"]').setInputFiles({ name: `no-ra-${run}.csv`, mimeType: "text/csv", buffer: Buffer.from(csv) });
+    const refusal = page.getByRole("alert").filter({ hasText: "Choose the column that holds the RA" });
+    await refusal.waitFor();
+    expect(await page.getByTestId("uploaded-list").count()).toBe(0);
+  });
+
   it("a Co-I attaches a PNG to a new note and sees it previewed", async () => {
     const { page } = await newPage(browser);
     await signInAsDemo(page, "coi");
