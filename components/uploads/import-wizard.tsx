@@ -141,6 +141,11 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
                       <input className={`${inputClass} w-20`} aria-label={`${importFieldLabels[field]} unit`} value={assignment.unit ?? ""} onChange={(e) => setUnit(field, e.target.value)} />
                     </label>
                   )}
+                  {assignment?.isUnitAssumed && (
+                    <span data-testid={`unit-assumed-${field}`} className="text-xs text-alarm">
+                      assumed: the file gives no unit for this column; check it
+                    </span>
+                  )}
                 </div>
               );
             })}
