@@ -55,9 +55,14 @@ export function samplingVerdict(einsteinTimeS: number, cadenceS: number, campaig
   if (peakTimeS < 0 || peakTimeS > campaignS) {
     return { id: "sampling", outlook: "infeasible", text: `${lead}; the peak falls outside the ${timeWords(campaignS)} campaign` };
   }
-  // Epochs alone do not make a light curve: a campaign shorter than t_E sees only a sliver of it.
+  // Epochs alone do not make a light curve (our rule): t_E is measured from the wings against the
+  // baseline, so a campaign shorter than t_E constrains it poorly, and one under a tenth of t_E cannot
+  // measure the event at all (near the peak only the combination u0·t_E is seen).
+  if (campaignS < einsteinTimeS / 10) {
+    return { id: "sampling", outlook: "infeasible", text: `${lead}; the ${timeWords(campaignS)} campaign covers less than t_E (under a tenth of it), so neither the event's timescale nor its baseline can be measured` };
+  }
   if (campaignS < einsteinTimeS) {
-    return { id: "sampling", outlook: "infeasible", text: `${lead}; the ${timeWords(campaignS)} campaign covers less than t_E, so the magnification barely changes within it` };
+    return { id: "sampling", outlook: "marginal", text: `${lead}; the ${timeWords(campaignS)} campaign covers less than t_E, so the wings and the baseline fall outside it and t_E is poorly constrained` };
   }
   if (epochs >= WELL_SAMPLED_EPOCHS) return { id: "sampling", outlook: "feasible", text: `${lead}: well sampled` };
   if (epochs >= USABLE_EPOCHS) return { id: "sampling", outlook: "marginal", text: `${lead}: sparsely sampled` };

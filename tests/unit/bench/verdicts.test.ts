@@ -30,7 +30,12 @@ describe("sampling verdict", () => {
     // The Sun seen from the Earth against a star at 8 kpc: t_E = θ_E/μ ≈ 6,800 yr, not sampled by 90 d.
     expect(samplingVerdict(6831 * 365.25 * DAY_S, DAY_S, 90 * DAY_S, 45 * DAY_S)).toMatchObject({
       outlook: "infeasible",
-      text: expect.stringMatching(/^t_E = 6800 yr sampled 91 times .*; the 90 d campaign covers less than t_E, so the magnification barely changes within it$/),
+      text: expect.stringMatching(/^t_E = 6800 yr sampled 91 times .*; the 90 d campaign covers less than t_E \(under a tenth of it\), so neither the event's timescale nor its baseline can be measured$/),
+    });
+    // A campaign between a tenth of t_E and t_E still sees the peak and part of the wings: marginal, not hopeless.
+    expect(samplingVerdict(120 * DAY_S, DAY_S, 90 * DAY_S, 45 * DAY_S)).toMatchObject({
+      outlook: "marginal",
+      text: expect.stringMatching(/; the 90 d campaign covers less than t_E, so the wings and the baseline fall outside it and t_E is poorly constrained$/),
     });
   });
 
