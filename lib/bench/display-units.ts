@@ -16,6 +16,7 @@ import {
   MILLIARCSECOND_RAD,
   PARSEC_M,
 } from "@/lib/physics";
+import { superscript } from "@/lib/physics/quantity-vocabulary";
 
 export type DisplayKind = "angle" | "time" | "length" | "ratio";
 
@@ -40,8 +41,6 @@ export function unitLabel(unit: string): string {
 /** Significant digits shown in the results panel; copying a row keeps the same text. */
 export const RESULT_DIGITS = 4;
 
-const SUPERSCRIPT_DIGITS: Record<string, string> = { "-": "⁻", "0": "⁰", "1": "¹", "2": "²", "3": "³", "4": "⁴", "5": "⁵", "6": "⁶", "7": "⁷", "8": "⁸", "9": "⁹" };
-
 /** "1.5e-7" → "1.5 × 10⁻⁷": the exponent as astronomers write it; plain numbers pass unchanged. */
 function withPowerOfTen(text: string): string {
   // Split by index, not by a pattern: the text's number is "<mantissa>e<exponent>", then " <unit>".
@@ -49,10 +48,7 @@ function withPowerOfTen(text: string): string {
   const number = space < 0 ? text : text.slice(0, space);
   const exponentAt = number.indexOf("e");
   if (exponentAt < 0) return text;
-  const exponent = String(Number(number.slice(exponentAt + 1)))
-    .split("")
-    .map((digit) => SUPERSCRIPT_DIGITS[digit])
-    .join("");
+  const exponent = superscript(Number(number.slice(exponentAt + 1)));
   return `${number.slice(0, exponentAt)} × 10${exponent}${space < 0 ? "" : text.slice(space)}`;
 }
 

@@ -11,7 +11,7 @@ import { boundText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import {
   MAX_QUANTITY_CHARS,
   QuantityError,
-  echoQuantity,
+  formatNumberForPeople,
   parseAngle,
   parseDistance,
   parseLength,
@@ -181,8 +181,7 @@ export function quantityEcho(spec: QuantitySpec, text: string): { ok: true; text
   const reading = readQuantityField(spec, text);
   if (!reading.ok) return { ok: false, message: reading.message };
   // The echo formats the stored value itself (in the stored unit), so it shows exactly what is saved.
-  const echo = echoQuantity("number", String(reading.value));
-  const shown = echo.ok ? echo.text : `= ${reading.value}`;
+  const shown = `= ${formatNumberForPeople(reading.value)}`;
   // A plain number typed as it will be stored needs no echo; "0,5" read as 0.5 does.
   if (spec.unitWords === undefined) return String(reading.value) === text.trim() ? null : { ok: true, text: shown };
   // No space before a degree sign (SI Brochure, 9th ed., §5.4.3); other units follow a space.
