@@ -5,3 +5,18 @@
 
 export { finiteSourceMagnification } from "./finite-source";
 export { microlensParallax, peakMagnification } from "./microlensing";
+export {
+  lensModelIds,
+  lensModelLabels,
+  lensModelOf,
+  lensModelOfAlias,
+  lensModelOfParameters,
+  lensModels,
+  lensParameters,
+  parametersOf,
+  solveLens,
+  usesParameter,
+} from "./registry";
+export type { LensModelId } from "./registry";
+export type { LensGeometry, LensModel, LensParameter, LensParameterKey, LensProblem, LensTimescale } from "./lens-model";
+export type { LensImage, LensSolution } from "./solution";

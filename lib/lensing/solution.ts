@@ -31,6 +31,8 @@ export interface LensSolution {
   timeDelayS: number | null;
   /** Einstein crossing time t_E = θ_E / μ_rel; null without a relative proper motion. */
   einsteinTimeS: number | null;
+  /** Offset of the unresolved images' light centroid from the source at this offset (u/(u² + 2) θ_E for a point lens); null for models without one. */
+  centroidShiftRad: number | null;
   /** Largest centroid shift of the unresolved images over an event, θ_E/√8 at u = √2; null for models without one. */
   maxAstrometricShiftRad: number | null;
   /** Angular diameter of the black-hole shadow (critical impact parameter 3√3 M); null for extended lenses. */
