@@ -15,6 +15,7 @@ import {
   uniqueIndex,
   uuid,
 } from "drizzle-orm/pg-core";
+import { lensModelIds } from "../lib/lensing/registry";
 
 /** Which seed sets have been applied to this database, so seeding runs once and never duplicates. */
 export const seedRuns = pgTable("seed_runs", {
@@ -30,7 +31,8 @@ const updatedAt = () => timestamp("updated_at", { withTimezone: true }).notNull(
 export const siteRole = pgEnum("site_role", ["admin", "member"]);
 export const proposalRole = pgEnum("proposal_role", ["pi", "coi", "viewer"]);
 export const authTokenPurpose = pgEnum("auth_token_purpose", ["password_reset", "sign_in_link", "account_confirmation"]);
-export const lensModel = pgEnum("lens_model", ["point", "sis"]);
+/** The lens models of the registry (`lib/lensing/registry.ts`); a new model's id needs a migration. */
+export const lensModel = pgEnum("lens_model", lensModelIds);
 export const targetStatus = pgEnum("target_status", ["candidate", "accepted", "scheduled", "observed", "dropped"]);
 export const verdict = pgEnum("feasibility_verdict", ["feasible", "marginal", "infeasible", "unknown"]);
 

@@ -1,7 +1,9 @@
 "use client";
 
 import type { FieldErrors, FieldWarnings } from "@/lib/bench/parse-sketch";
-import type { Sketch } from "@/lib/bench/sketch-state";
+import { lensSketches, type Sketch, type SketchField } from "@/lib/bench/sketch-state";
+import { lensModels } from "@/lib/lensing/registry";
+import { Fragment } from "react";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 
 interface SketchFormProps {
@@ -20,6 +22,13 @@ function Section({ title, children }: { title: string; children: React.ReactNode
   );
 }
 
+/** What each lens model's own field suggests typing. */
+const lensFieldHints: Partial<Record<SketchField, string>> = {
+  mass: "e.g. 0.5 Msun, 4,100,000 Msun, 3e30 kg, or GM/c² as 1.48 km, GM/c³ as 4.9 us; a bare number is M☉",
+  radius: "compact (a black hole), or the body's radius: 1 Rsun, 6.957e5 km, 12 km; a bare number is R☉",
+  sigma: "e.g. 220 km/s; a bare number is km/s",
+};
+
 /** The lens sketch: lens, geometry, source and light curve, instrument. Every field is typed text with units. */
 export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: SketchFormProps) {
   const text = sketchTextFields(sketch, fieldErrors, onFieldChange, warnings);
@@ -30,19 +39,11 @@ export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: Ske
           legend="Lens model"
           value={sketch.lens}
           onChange={(value) => onFieldChange("lens", value)}
-          options={[
-            { value: "point", label: "Compact mass (point lens)" },
-            { value: "sis", label: "Singular isothermal sphere" },
-          ]}
+          options={lensModels.map((model) => ({ value: model.id, label: model.label }))}
         />
-        {sketch.lens === "point" ? (
-          <>
-            {text("mass", "e.g. 0.5 Msun, 4,100,000 Msun, 3e30 kg, or GM/c² as 1.48 km, GM/c³ as 4.9 us; a bare number is M☉")}
-            {text("radius", "compact (a black hole), or the body's radius: 1 Rsun, 6.957e5 km, 12 km; a bare number is R☉")}
-          </>
-        ) : (
-          text("sigma", "e.g. 220 km/s; a bare number is km/s")
-        )}
+        {lensSketches[sketch.lens].fields.map((field) => (
+          <Fragment key={field}>{text(field, lensFieldHints[field] ?? "")}</Fragment>
+        ))}
       </Section>
 
       <Section title="Geometry">
@@ -85,7 +86,7 @@ export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: Ske
           {text("mu", "e.g. 6 mas/yr, 6 mas yr-1; a bare number is mas/yr")}
           {text("u0", "units of θ_E, e.g. 0.2")}
           {text("t0", "from the campaign start, e.g. 45 d; a bare number is days")}
-          {sketch.lens === "point" ? text("rstar", "caps the peak magnification (uniform disk); e.g. 1 Rsun, 10 Rsun; a bare number is R☉") : null}
+          {lensSketches[sketch.lens].hasLightCurve ? text("rstar", "caps the peak magnification (uniform disk); e.g. 1 Rsun, 10 Rsun; a bare number is R☉") : null}
         </div>
       </Section>
 

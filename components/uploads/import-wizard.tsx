@@ -5,6 +5,7 @@ import { useRef, useState } from "react";
 import { useVirtualizer } from "@tanstack/react-virtual";
 import { defaultUnits, importFieldKinds, importFieldLabels, importFields, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
 import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill, matchToleranceSpec } from "@/lib/imports/request";
+import { lensModelOf } from "@/lib/lensing/registry";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
 import { apiFetch } from "@/components/workspace/api-client";
@@ -216,7 +217,7 @@ const ROW_HEIGHT_PX = 44;
 function valueText(row: ImportRowView): string {
   const v = row.values;
   if (!v) return "";
-  const parts = [`RA ${formatQuantity(v.ra, 7)}°`, `Dec ${formatQuantity(v.dec, 7)}°`, v.lensModel === "point" ? "point" : "SIS"];
+  const parts = [`RA ${formatQuantity(v.ra, 7)}°`, `Dec ${formatQuantity(v.dec, 7)}°`, lensModelOf(v.lensModel).shortLabel];
   if (v.lensMassSolar != null) parts.push(`${formatQuantity(v.lensMassSolar)} M☉`);
   if (v.velocityDispersionKmPerS != null) parts.push(`σ ${formatQuantity(v.velocityDispersionKmPerS)} km/s`);
   if (v.lensDistancePc != null) parts.push(`D_L ${formatQuantity(v.lensDistancePc)} pc`);

@@ -1,6 +1,8 @@
 "use client";
 
 import type { FieldErrors } from "@/lib/errors";
+import { lensModelOf, lensParameters, usesParameter } from "@/lib/lensing/registry";
+import type { LensParameterKey } from "@/lib/lensing/lens-model";
 import { lensModelLabels, lensModels, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { Field } from "@/components/workspace/field";
@@ -31,8 +33,7 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     ra: v.ra,
     dec: v.dec,
     lensModel: model,
-    lensMassSolar: model === "point" ? optionalTyped(v.lensMassSolar) : null,
-    velocityDispersionKmPerS: model === "sis" ? optionalTyped(v.velocityDispersionKmPerS) : null,
+    ...lensParameterBody(v, model),
     lensDistancePc: geometry === "distance" ? optionalTyped(v.lensDistancePc) : null,
     sourceDistancePc: geometry === "distance" ? optionalTyped(v.sourceDistancePc) : null,
     lensRedshift: geometry === "redshift" ? optionalTyped(v.lensRedshift) : null,
@@ -43,6 +44,16 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
   };
 }
+
+/** Every lens parameter: the chosen model's as typed, the others null. */
+function lensParameterBody(v: Record<string, string>, model: LensModel): Record<LensParameterKey, string | null> {
+  const body: Partial<Record<LensParameterKey, string | null>> = {};
+  for (const { key } of lensParameters) body[key] = usesParameter(model, key) ? optionalTyped(v[key]) : null;
+  return body as Record<LensParameterKey, string | null>;
+}
+
+/** Examples beside a lens parameter's input, where the unit vocabulary offers more than one unit. */
+const parameterHints: Partial<Record<LensParameterKey, string>> = { lensMassSolar: "or with a unit: 4e6 Msun, 3 Mjup" };
 
 /** The server keys a bad tag by its index ("tags.2"); the form shows every message beside the one input. */
 function tagErrors(fields: FieldErrors): string[] | undefined {
@@ -86,11 +97,9 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
         </label>
       </div>
       <div className="grid gap-4 md:grid-cols-3">
-        {model === "point" ? (
-          <QuantityInput spec={targetQuantities.lensMassSolar} label="Lens mass (M☉)" name="lensMassSolar" defaultValue={initial.lensMassSolar} hint="or with a unit: 4e6 Msun, 3 Mjup" errors={fields.lensMassSolar} />
-        ) : (
-          <QuantityInput spec={targetQuantities.velocityDispersionKmPerS} label="Velocity dispersion (km/s)" name="velocityDispersionKmPerS" defaultValue={initial.velocityDispersionKmPerS} errors={fields.velocityDispersionKmPerS} />
-        )}
+        {lensModelOf(model).parameters.map(({ key, label, unitWords }) => (
+          <QuantityInput key={key} spec={targetQuantities[key]} label={`${label} (${unitWords})`} name={key} defaultValue={initial[key]} hint={parameterHints[key]} errors={fields[key]} />
+        ))}
         {geometry === "distance" ? (
           <>
             <QuantityInput spec={targetQuantities.lensDistancePc} label="Lens distance (pc)" name="lensDistancePc" defaultValue={initial.lensDistancePc} hint="or with a unit: 4 kpc" errors={fields.lensDistancePc} />

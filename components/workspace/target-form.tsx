@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import { useSWRConfig } from "swr";
-import { targetQuantities, type LensModel } from "@/lib/workspace/target-schema";
+import { lensModels, targetQuantities, type LensModel } from "@/lib/workspace/target-schema";
 import { readQuantityField } from "@/lib/workspace/quantity-field";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
 import { apiFetch } from "@/components/workspace/api-client";
@@ -64,7 +64,7 @@ function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
 export function TargetForm({ proposalId, initialPage }: { proposalId: string; initialPage?: TargetPage }) {
   const { cache, mutate } = useSWRConfig();
   const { fields, message, isBusy, run } = useFormSubmit();
-  const [model, setModel] = useState<LensModel>("point");
+  const [model, setModel] = useState<LensModel>(lensModels[0]);
   const [geometry, setGeometry] = useState<GeometrySource>("distance");
   const [added, setAdded] = useState<TargetView | null>(null);
 

@@ -5,6 +5,7 @@ import Link from "next/link";
 import { useMemo, useState } from "react";
 import useSWR from "swr";
 import { statusLabels, targetStatuses } from "@/lib/workspace/status";
+import { lensModelOf, type LensModelId } from "@/lib/lensing/registry";
 import { lensModelLabels, lensModels } from "@/lib/workspace/target-schema";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
 import { cycleNightCount, skySiteOf } from "@/lib/workspace/proposal-schema";
@@ -59,7 +60,7 @@ function columnsFor(proposalId: string, onRead: ReturnType<typeof onReadVerdicts
     },
     { accessorKey: "raDeg", header: "RA", cell: (info) => <span className="tabular-nums">{info.row.original.raText}</span> },
     { accessorKey: "decDeg", header: "Dec", cell: (info) => <span className="tabular-nums">{info.row.original.decText}</span> },
-    { accessorKey: "lensModel", header: "Lens", enableSorting: false, cell: (info) => (info.getValue() === "point" ? "Point" : "SIS") },
+    { accessorKey: "lensModel", header: "Lens", enableSorting: false, cell: (info) => lensModelOf(info.getValue() as LensModelId).shortLabel },
     { accessorKey: "priority", header: "Prio." },
     { accessorKey: "status", header: "Status", cell: (info) => statusLabels[info.row.original.status] },
     { accessorKey: "einsteinRadiusMas", header: "θE (mas)", cell: numberCell() },

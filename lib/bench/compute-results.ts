@@ -4,27 +4,14 @@
  * them in rows, so the panel, the copy-as-text and the tests read one structure.
  */
 
-import {
-  einsteinCrossingTime,
-  einsteinRadius,
-  exactDeflection,
-  photonSphereRadius,
-  pointLensImages,
-  pointMassTimeDelay,
-  PARSEC_M,
-  shadowAngularDiameter,
-  sisEinsteinRadius,
-  sisImages,
-  sisTimeDelay,
-  SOLAR_MASS_LENGTH_M,
-  virbhadraEllisImages,
-  weakFieldDeflection,
-} from "@/lib/physics";
+import { exactDeflection, photonSphereRadius, PARSEC_M, SOLAR_MASS_LENGTH_M, virbhadraEllisImages, weakFieldDeflection } from "@/lib/physics";
 import { sourceRadiusInThetaE } from "@/lib/lensing/microlensing";
+import type { LensSolution } from "@/lib/lensing/solution";
+import { lensModelOf } from "@/lib/lensing/registry";
 import { formatPlain, type DisplayKind } from "./display-units";
 import { eventMagnification } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
-import type { SketchInputs } from "./parse-sketch";
+import { lensParametersOf, type SketchInputs } from "./parse-sketch";
 import { occultedImageVerdict, resolutionVerdict, samplingVerdict, singleImageVerdict, timeDelayVerdict, type Verdict } from "./verdicts";
 
 export interface ResultRow {
@@ -104,16 +91,24 @@ function deflectionRow(id: string, label: string, bOverM: number, surfaceBOverM 
 
 const HIDDEN_NOTE = "behind the lens: its ray passes closer than the lens's radius";
 
-function betaInThetaE(inputs: SketchInputs, thetaERad: number): number {
-  return inputs.sourceOffset.unit === "thetaE" ? inputs.sourceOffset.betaThetaE : inputs.sourceOffset.betaRad / thetaERad;
+/** The lens model's solution of the sketch (β typed as an angle is turned into θ_E units first). */
+function solveSketch(inputs: SketchInputs): LensSolution {
+  const model = lensModelOf(inputs.lens.model);
+  const parameters = lensParametersOf(inputs.lens);
+  const { sourceOffset } = inputs;
+  const u = sourceOffset.unit === "thetaE" ? sourceOffset.betaThetaE : sourceOffset.betaRad / model.einsteinRadiusRad(parameters, inputs.geometry);
+  return model.solve({ parameters, geometry: inputs.geometry, sourceOffsetThetaE: u, properMotionRadPerS: inputs.lightCurve.muRelRadPerS });
 }
+
+const nanIfNull = (value: number | null) => value ?? Number.NaN;
 
 /** Results for a point-mass lens: compact (a black hole) or a body of radius R that may hide an image. */
 function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: number): BenchResults {
-  const { dLensPc, dSourcePc, dLensSourcePc, zLens } = inputs.geometry;
-  const thetaERad = einsteinRadius(massSolar, dLensPc, dSourcePc, dLensSourcePc);
-  const u = betaInThetaE(inputs, thetaERad);
-  const images = pointLensImages(u);
+  const { dLensPc, dSourcePc, dLensSourcePc } = inputs.geometry;
+  const solution = solveSketch(inputs);
+  const { einsteinRadiusRad: thetaERad, sourceOffsetThetaE: u } = solution;
+  const [outer, inner] = solution.images;
+  const images = { thetaPlus: outer.positionThetaE, thetaMinus: inner.positionThetaE, magnificationPlus: outer.magnification, magnificationMinus: inner.magnification };
   const massLengthM = massSolar * SOLAR_MASS_LENGTH_M;
   const lensDistanceM = dLensPc * PARSEC_M;
   // b = D_L sin θ for the ray that reaches the observer at angle θ from the lens.
@@ -125,9 +120,9 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
   const isPair = !isPlusHidden && !isMinusHidden;
   const hiddenNote = (isHidden: boolean) => (isHidden ? { note: HIDDEN_NOTE } : {});
 
-  const separationRad = (images.thetaPlus - images.thetaMinus) * thetaERad;
-  const timeDelayS = pointMassTimeDelay(massSolar, zLens, u);
-  const einsteinTimeS = einsteinCrossingTime(thetaERad, inputs.lightCurve.muRelRadPerS);
+  const separationRad = nanIfNull(solution.imageSeparationRad);
+  const timeDelayS = nanIfNull(solution.timeDelayS);
+  const einsteinTimeS = nanIfNull(solution.einsteinTimeS);
   const sourceRadiusThetaE = sourceRadiusInThetaE(inputs.lightCurve.sourceRadiusM, dSourcePc, thetaERad);
   const { instrument, lightCurve } = inputs;
   const event: MicrolensingEvent = {
@@ -144,7 +139,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
 
   // What an observer sees: only the images not behind the body count in the total and the centroid.
   const visibleMagnification = (isPlusHidden ? 0 : images.magnificationPlus) + (isMinusHidden ? 0 : Math.abs(images.magnificationMinus));
-  const visibleCentroidShift = isPair ? images.centroidShift : isPlusHidden === isMinusHidden ? Number.NaN : Math.abs((isPlusHidden ? images.thetaMinus : images.thetaPlus) - u);
+  const visibleCentroidShift = isPair ? nanIfNull(solution.centroidShiftRad) / thetaERad : isPlusHidden === isMinusHidden ? Number.NaN : Math.abs((isPlusHidden ? images.thetaMinus : images.thetaPlus) - u);
   const noPair = { note: isPlusHidden && isMinusHidden ? "both images are behind the lens" : "one image is behind the lens, so there is no pair" };
 
   const rows: ResultRow[] = [
@@ -163,7 +158,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       value: visibleMagnification,
       ...(isPair ? {} : { note: "images behind the lens are not counted" }),
     },
-    { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: isPair ? Math.abs(images.magnificationPlus / images.magnificationMinus) : Number.NaN, ...(isPair ? {} : noPair) },
+    { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: isPair ? nanIfNull(solution.fluxRatio) : Number.NaN, ...(isPair ? {} : noPair) },
     { id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: isPair ? timeDelayS : Number.NaN, ...(isPair ? {} : noPair) },
     { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS },
     {
@@ -193,7 +188,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
     const exact = virbhadraEllisImages(u * thetaERad, massSolar, dLensPc, dSourcePc, dLensSourcePc);
     rows.push(
       { id: "r-ph", label: "Photon-sphere radius", symbol: "r_ph", kind: "length", value: photonSphereRadius(massLengthM) },
-      { id: "shadow", label: "Shadow angular diameter", symbol: "θ_sh", kind: "angle", value: shadowAngularDiameter(massSolar, dLensPc) },
+      { id: "shadow", label: "Shadow angular diameter", symbol: "θ_sh", kind: "angle", value: nanIfNull(solution.shadowDiameterRad) },
       { id: "photon-ring", label: "Photon ring radius (exact lens equation)", symbol: "θ_∞", kind: "angle", value: exact.thetaInfinityRad },
       { id: "rel-plus", label: "Relativistic image, source side", symbol: "θ₁₊", kind: "angle", value: exact.relativisticPrimary.thetaRad },
       { id: "rel-plus-mu", label: "Relativistic image magnification, source side", symbol: "μ₁₊", kind: "ratio", value: exact.relativisticPrimary.magnification },
@@ -222,54 +217,60 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
 }
 
 /** Results for a singular isothermal sphere: no Schwarzschild rows, one image when β ≥ θ_E. */
-function sisResults(inputs: SketchInputs, sigmaKmPerS: number): BenchResults {
-  const { dLensPc, dSourcePc, dLensSourcePc, zLens } = inputs.geometry;
-  const thetaERad = sisEinsteinRadius(sigmaKmPerS, dLensSourcePc, dSourcePc);
-  const betaRad = betaInThetaE(inputs, thetaERad) * thetaERad;
-  const images = sisImages(betaRad, thetaERad);
-  const einsteinTimeS = einsteinCrossingTime(thetaERad, inputs.lightCurve.muRelRadPerS);
-  const isPair = images.imageCount === 2;
+function sisResults(inputs: SketchInputs): BenchResults {
+  const solution = solveSketch(inputs);
+  const { einsteinRadiusRad: thetaERad, sourceOffsetThetaE: u } = solution;
+  const [outer, inner] = solution.images;
   const rows: ResultRow[] = [
     { id: "theta-e", label: "Einstein radius", symbol: "θ_E", kind: "angle", value: thetaERad },
-    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: betaRad },
-    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: images.thetaPlus },
-    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: images.magnificationPlus },
-    { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: images.magnificationTotal },
-    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: einsteinTimeS },
+    { id: "beta", label: "Source offset", symbol: "β", kind: "angle", value: u * thetaERad },
+    { id: "theta-plus", label: "Image position, outer", symbol: "θ₊", kind: "angle", value: outer.positionThetaE * thetaERad },
+    { id: "mu-plus", label: "Magnification, outer image", symbol: "μ₊", kind: "ratio", value: outer.magnification },
+    { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: solution.magnificationTotal },
+    { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: nanIfNull(solution.einsteinTimeS) },
   ];
   const { instrument, lightCurve } = inputs;
   const verdicts: Verdict[] = [];
-  if (isPair) {
-    const separationRad = images.thetaPlus - images.thetaMinus;
-    const timeDelayS = sisTimeDelay(betaRad, thetaERad, zLens, dLensPc, dSourcePc, dLensSourcePc);
+  if (inner !== undefined && solution.imageSeparationRad !== null && solution.timeDelayS !== null) {
     rows.splice(
       3,
       0,
-      { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: images.thetaMinus },
-      { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: separationRad },
+      { id: "theta-minus", label: "Image position, inner", symbol: "θ₋", kind: "angle", value: inner.positionThetaE * thetaERad },
+      { id: "separation", label: "Image separation", symbol: "Δθ", kind: "angle", value: solution.imageSeparationRad },
     );
     rows.splice(
       6,
       0,
-      { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: images.magnificationMinus },
-      { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: Math.abs(images.magnificationPlus / images.magnificationMinus) },
+      { id: "mu-minus", label: "Magnification, inner image", symbol: "μ₋", kind: "ratio", value: inner.magnification },
+      { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: nanIfNull(solution.fluxRatio) },
     );
-    rows.push({ id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: timeDelayS });
-    verdicts.push(resolutionVerdict(separationRad, instrument.resolutionRad, instrument.resolutionName));
-    verdicts.push(timeDelayVerdict(timeDelayS, instrument.cadenceS, instrument.campaignS));
+    rows.push({ id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: solution.timeDelayS });
+    verdicts.push(resolutionVerdict(solution.imageSeparationRad, instrument.resolutionRad, instrument.resolutionName));
+    verdicts.push(timeDelayVerdict(solution.timeDelayS, instrument.cadenceS, instrument.campaignS));
   } else {
     verdicts.push(singleImageVerdict());
   }
-  verdicts.push(samplingVerdict(einsteinTimeS, instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS));
-  const lensPlaneImages = [{ thetaThetaE: images.thetaPlus / thetaERad, magnification: images.magnificationPlus }];
-  if (isPair) lensPlaneImages.push({ thetaThetaE: images.thetaMinus / thetaERad, magnification: images.magnificationMinus });
+  verdicts.push(samplingVerdict(nanIfNull(solution.einsteinTimeS), instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS));
   return {
     rows,
     deflections: [],
     verdicts,
-    lensPlane: { thetaERad, betaThetaE: betaRad / thetaERad, images: lensPlaneImages },
+    lensPlane: { thetaERad, betaThetaE: u, images: solution.images.map(({ positionThetaE, magnification }) => ({ thetaThetaE: positionThetaE, magnification })) },
     notes: [],
   };
+}
+
+/** The bench's results of each lens model: the solution's rows plus what the bench adds for that model. */
+function resultsOf(inputs: SketchInputs): BenchResults {
+  const { lens } = inputs;
+  switch (lens.model) {
+    case "point":
+      return pointLensResults(inputs, lens.massSolar, lens.radiusM);
+    case "sis":
+      return sisResults(inputs);
+    default:
+      return lens satisfies never;
+  }
 }
 
 export type ComputedSketch = { ok: true; results: BenchResults } | { ok: false; message: string };
@@ -280,8 +281,7 @@ export type ComputedSketch = { ok: true; results: BenchResults } | { ok: false; 
  */
 export function computeResults(inputs: SketchInputs): ComputedSketch {
   try {
-    const results = inputs.lens.model === "point" ? pointLensResults(inputs, inputs.lens.massSolar, inputs.lens.radiusM) : sisResults(inputs, inputs.lens.sigmaKmPerS);
-    return { ok: true, results };
+    return { ok: true, results: resultsOf(inputs) };
   } catch {
     // The accepted ranges are meant to keep every sketch computable; the physics' own message names
     // its arguments, which mean nothing to the user, so it is not shown.

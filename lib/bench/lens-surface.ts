@@ -7,7 +7,7 @@
 
 import { impactParameterFromClosestApproach, parseLength, parseMass, photonSphereRadius, SOLAR_MASS_LENGTH_M } from "@/lib/physics";
 import { defaultUnits, isCompactRadiusText } from "./parse-sketch";
-import type { Sketch } from "./sketch-state";
+import { lensSketches, type Sketch } from "./sketch-state";
 
 /** True when the body (radius R, metres; 0 = compact) lies inside its photon sphere, R < 3M. */
 export function hasPhotonSphere(radiusM: number, massLengthM: number): boolean {
@@ -30,7 +30,7 @@ export function surfaceImpactParameterM(radiusM: number, massLengthM: number): n
  * (the form shows that field's error).
  */
 export function lensRadiusInMassUnits(sketch: Pick<Sketch, "lens" | "mass" | "radius">): number {
-  if (sketch.lens !== "point" || isCompactRadiusText(sketch.radius)) return 0;
+  if (!lensSketches[sketch.lens].fields.includes("radius") || isCompactRadiusText(sketch.radius)) return 0;
   try {
     const massLengthM = parseMass(sketch.mass, { defaultUnit: defaultUnits.mass }).massSolar * SOLAR_MASS_LENGTH_M;
     const radiusOverM = parseLength(sketch.radius, { defaultUnit: defaultUnits.radius }) / massLengthM;

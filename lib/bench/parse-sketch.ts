@@ -7,7 +7,6 @@
 import {
   angularDiameterDistance,
   angularDiameterDistanceBetween,
-  einsteinRadius,
   PARSEC_M,
   parseAngle,
   parseDistance,
@@ -19,12 +18,13 @@ import {
   parseVelocity,
   parseWavelength,
   QuantityError,
-  sisEinsteinRadius,
   SOLAR_MASS_LENGTH_M,
 } from "@/lib/physics";
 import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, boundText, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
-import { fieldLabels, type Sketch, type SketchField } from "./sketch-state";
+import type { LensParameterKey } from "@/lib/lensing/lens-model";
+import { lensModelOf } from "@/lib/lensing/registry";
+import { fieldLabels, lensSketches, type Sketch, type SketchField } from "./sketch-state";
 
 /** Most rays the bench traces at once (issue 4: "count up to 5,000"). */
 export const MAX_RAY_COUNT = 5000;
@@ -34,7 +34,7 @@ export const MAX_BUNDLE_IMPACT_M = 100;
 
 export type FieldErrors = Partial<Record<SketchField, string>>;
 
-/** The lens, as the results need it. */
+/** The lens, as the results need it: one member per lens model of the registry. */
 export type LensInputs =
   | {
       model: "point";
@@ -43,6 +43,18 @@ export type LensInputs =
       radiusM: number;
     }
   | { model: "sis"; sigmaKmPerS: number };
+
+/** The lens model's parameters (`lib/lensing/registry.ts`) of the bench's lens. */
+export function lensParametersOf(lens: LensInputs): Record<LensParameterKey, number> {
+  switch (lens.model) {
+    case "point":
+      return { lensMassSolar: lens.massSolar } as Record<LensParameterKey, number>;
+    case "sis":
+      return { velocityDispersionKmPerS: lens.sigmaKmPerS } as Record<LensParameterKey, number>;
+    default:
+      return lens satisfies never;
+  }
+}
 
 /** Distances in parsecs; `zLens` is 0 for a Galactic (distance-only) sketch. */
 export interface GeometryInputs {
@@ -170,24 +182,29 @@ const RESOLUTION_RANGE_RAD: AcceptedRange = { min: 1e-12, max: 1 };
 const INTERFEROMETER_LENGTH_RANGE_M: AcceptedRange = { min: 1e-9, max: 1e10 };
 
 function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
-  if (sketch.lens === "sis") {
-    return {
-      model: "sis",
-      sigmaKmPerS: reader.read(
-        "sigma",
-        (text) => parseVelocity(text, { defaultUnit: defaultUnits.sigma }),
-        within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s (far below the speed of light, 299\u202f792 km/s)`),
-      ),
-    };
+  switch (sketch.lens) {
+    case "sis":
+      return {
+        model: "sis",
+        sigmaKmPerS: reader.read(
+          "sigma",
+          (text) => parseVelocity(text, { defaultUnit: defaultUnits.sigma }),
+          within(acceptedRanges.velocityDispersionKmPerS, `The velocity dispersion must lie between ${rangeText(acceptedRanges.velocityDispersionKmPerS)} km/s (far below the speed of light, 299\u202f792 km/s)`),
+        ),
+      };
+    case "point": {
+      const radiusM = isCompactRadiusText(sketch.radius)
+        ? 0
+        : reader.read("radius", (text) => parseLength(text, { defaultUnit: defaultUnits.radius }), within(LENS_RADIUS_RANGE_M, "The lens radius lies between 1 mm and 1 pc; type compact for a black hole"));
+      return {
+        model: "point",
+        massSolar: reader.read("mass", (text) => parseMass(text, { defaultUnit: defaultUnits.mass }).massSolar, within(acceptedRanges.lensMassSolar, `The mass must lie between ${rangeText(acceptedRanges.lensMassSolar)} solar masses`)),
+        radiusM,
+      };
+    }
+    default:
+      return sketch.lens satisfies never;
   }
-  const radiusM = isCompactRadiusText(sketch.radius)
-    ? 0
-    : reader.read("radius", (text) => parseLength(text, { defaultUnit: defaultUnits.radius }), within(LENS_RADIUS_RANGE_M, "The lens radius lies between 1 mm and 1 pc; type compact for a black hole"));
-  return {
-    model: "point",
-    massSolar: reader.read("mass", (text) => parseMass(text, { defaultUnit: defaultUnits.mass }).massSolar, within(acceptedRanges.lensMassSolar, `The mass must lie between ${rangeText(acceptedRanges.lensMassSolar)} solar masses`)),
-    radiusM,
-  };
 }
 
 /** Lens and source radii, metres (our rule): from 1 mm to 1 pc, beyond any body that lenses as one mass. */
@@ -265,7 +282,7 @@ function readLightCurve(reader: FieldReader, sketch: Sketch): LightCurveInputs {
     u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, `u0 must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} (closer, a real source's size caps the peak magnification)`)),
     // The source's size matters only to the point lens's light curve.
     sourceRadiusM:
-      sketch.lens === "point"
+      lensSketches[sketch.lens].hasLightCurve
         ? reader.read("rstar", (text) => parseLength(text, { defaultUnit: defaultUnits.rstar }), within(SOURCE_RADIUS_RANGE_M, "The source radius lies between 1 mm and 1 pc"))
         : Number.NaN,
   };
@@ -303,10 +320,7 @@ function checkLensScales(errors: FieldErrors, sketch: Sketch, { lens, geometry, 
     errors.radius = "A body this small for its mass lies inside its own horizon (R ≤ 2GM/c²): type compact for a black hole";
     return;
   }
-  const thetaERad =
-    lens.model === "point"
-      ? einsteinRadius(lens.massSolar, geometry.dLensPc, geometry.dSourcePc, geometry.dLensSourcePc)
-      : sisEinsteinRadius(lens.sigmaKmPerS, geometry.dLensSourcePc, geometry.dSourcePc);
+  const thetaERad = lensModelOf(lens.model).einsteinRadiusRad(lensParametersOf(lens), geometry);
   const betaRad = sourceOffset.unit === "angle" ? sourceOffset.betaRad : sourceOffset.betaThetaE * thetaERad;
   if (sourceOffset.unit === "angle" && !isInRange(betaRad / thetaERad, acceptedRanges.sourceOffsetThetaE)) {
     errors.beta = `β must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} Einstein radii of this lens`;

@@ -5,6 +5,7 @@
  */
 
 import { z } from "zod";
+import { lensModelIds, type LensModelId } from "@/lib/lensing/registry";
 
 /** Longest text a field accepts from a URL; far above any real quantity, short enough to bound work. */
 const MAX_FIELD_CHARS = 80;
@@ -52,7 +53,8 @@ function choiceField<const T extends readonly [string, ...string[]]>(options: T,
   return z.enum(options).catch(fallback);
 }
 
-export const lensModels = ["point", "sis"] as const;
+/** The lens models of the registry (`lib/lensing/registry.ts`). */
+export const lensModels = lensModelIds;
 export const geometryModes = ["distance", "redshift"] as const;
 export const betaUnits = ["thetaE", "angle"] as const;
 export const resolutionModes = ["fwhm", "interferometer"] as const;
@@ -127,6 +129,15 @@ export const fieldLabels = {
   units: "Result units",
 } as const satisfies Record<keyof typeof demoSketch, string>;
 export type SketchField = keyof Sketch;
+
+/**
+ * The bench's side of each lens model: the sketch fields of its own inputs (its parameter, and a point
+ * mass's body radius) and whether its sketch draws a microlensing event (light curve, finite source).
+ */
+export const lensSketches: Record<LensModelId, { fields: readonly SketchField[]; hasLightCurve: boolean }> = {
+  point: { fields: ["mass", "radius"], hasLightCurve: true },
+  sis: { fields: ["sigma"], hasLightCurve: false },
+};
 
 /** Next's `searchParams` (or any record of query values) to a complete sketch; repeated keys use the first. */
 export function sketchFromSearchParams(params: Record<string, string | string[] | undefined>): Sketch {

@@ -64,7 +64,7 @@ export const columnMappingSchema = z.partialRecord(z.enum(importFields), assignm
 
 export const importFillSchema = z.object(
   {
-    lensModel: z.enum(lensModels, { error: "The lens model for empty cells is point or sis." }).optional(),
+    lensModel: z.enum(lensModels, { error: `The lens model for empty cells is ${lensModels.join(" or ")}.` }).optional(),
     priority: targetFieldsSchema.shape.priority.optional(),
     sourceOffsetThetaE: targetFieldsSchema.shape.sourceOffsetThetaE.optional(),
   },

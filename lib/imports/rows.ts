@@ -10,6 +10,7 @@ import {
   type ImportField,
 } from "@/lib/imports/columns";
 import type { ImportTable } from "@/lib/imports/import-table";
+import { lensModelIds, lensModelOfAlias, lensModelOfParameters, lensModels } from "@/lib/lensing/registry";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { QuantityError, parseDistance, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
 import { wordedIssue } from "@/lib/workspace/issue-words";
@@ -45,17 +46,10 @@ const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
 const HOUR_UNITS = new Set(["h", "hr", "hour", "hours", "hourangle"]);
 const DEGREE_UNITS = new Set(["deg", "degree", "degrees", "°"]);
 
-const lensModelSpellings: Record<string, LensModel> = {
-  point: "point",
-  pointmass: "point",
-  pointlens: "point",
-  pm: "point",
-  sis: "sis",
-  isothermal: "sis",
-  singularisothermalsphere: "sis",
-};
-
 class CellError extends Error {}
+
+/** How a row names its model without the column: "a lens mass for a point mass or a velocity dispersion for a singular isothermal sphere". */
+const modelByParameterText = lensModels.map((m) => `${m.parameters.map((p) => `a ${p.label.toLowerCase()}`).join(" and ")} for a ${m.label.toLowerCase()}`).join(" or ");
 
 /** A file's unit without the quotes some tables put around it; the units parser reads VOUnits ("km.s-1") itself. */
 function readableUnit(unit: string): string {
@@ -93,8 +87,8 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
       return text;
     }
     case "lensModel": {
-      const model = lensModelSpellings[text.toLowerCase().replace(/[^a-z]/g, "")];
-      if (model === undefined) throw new CellError('is not a lens model: write "point" or "sis"');
+      const model = lensModelOfAlias(text);
+      if (model === undefined) throw new CellError(`is not a lens model: write ${lensModelIds.map((id) => `"${id}"`).join(" or ")}`);
       return model;
     }
     case "number":
@@ -112,14 +106,6 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
     case "properMotion":
       return quantity(kind, (t, o) => (parseProperMotion(t, o) * JULIAN_YEAR_S) / MILLIARCSECOND_RAD, text, unit);
   }
-}
-
-/** A mass alone means a point lens, a velocity dispersion alone an isothermal sphere; else unknown. */
-function inferredLensModel(input: Record<string, unknown>): LensModel | undefined {
-  const hasMass = input.lensMassSolar !== undefined;
-  const hasDispersion = input.velocityDispersionKmPerS !== undefined;
-  if (hasMass === hasDispersion) return undefined;
-  return hasMass ? "point" : "sis";
 }
 
 /**
@@ -184,7 +170,8 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
     for (const field of ["lensModel", "priority", "sourceOffsetThetaE"] as const) {
       if (input[field] === undefined && fill[field] !== undefined) input[field] = fill[field];
     }
-    input.lensModel ??= inferredLensModel(input);
+    // a mass alone means a point lens, a velocity dispersion alone an isothermal sphere
+    input.lensModel ??= lensModelOfParameters(input);
 
     const parsed = createTargetSchema.safeParse(input, { error: wordedIssue });
     if (!parsed.success) {
@@ -195,7 +182,7 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
         const missing = input[field as string] === undefined;
         errors.push(
           missing
-            ? `${prefix}: ${label} is missing${field === "lensModel" ? " (give a mass for a point lens or a velocity dispersion for an isothermal one)" : ""}.`
+            ? `${prefix}: ${label} is missing${field === "lensModel" ? ` (give ${modelByParameterText})` : ""}.`
             : issue.message.startsWith(`${label}:`)
               ? `${prefix}: ${issue.message}`
               : `${prefix}: ${label}${text ? ` ${text}` : ""} — ${issue.message}`,

@@ -20,11 +20,13 @@ export type LensModelId = (typeof lensModelIds)[number];
 /** Every model, in the registry's order. */
 export const lensModels: readonly LensModel<LensModelId>[] = registeredModels;
 
-const byId = Object.fromEntries(registeredModels.map((model) => [model.id, model])) as Record<LensModelId, LensModel<LensModelId>>;
+type RegisteredModel = (typeof registeredModels)[number];
 
-/** The model of an id (ids come from the enum, so every one has a model). */
-export function lensModelOf(id: LensModelId): LensModel<LensModelId> {
-  return byId[id];
+const byId = Object.fromEntries(registeredModels.map((model) => [model.id, model])) as Record<LensModelId, RegisteredModel>;
+
+/** The model of an id, typed with its own parameters (ids come from the enum, so every one has a model). */
+export function lensModelOf<Id extends LensModelId>(id: Id): Extract<RegisteredModel, { id: Id }> {
+  return byId[id] as Extract<RegisteredModel, { id: Id }>;
 }
 
 /** Each model's label ("Point mass"), by id. */

@@ -1,4 +1,6 @@
-import { parsePlainNumber, type SketchInputs } from "@/lib/bench/parse-sketch";
+import { lensParametersOf, parsePlainNumber, type SketchInputs } from "@/lib/bench/parse-sketch";
+import type { LensParameterKey } from "@/lib/lensing/lens-model";
+import { lensParameters } from "@/lib/lensing/registry";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics";
 import type { InstrumentDefaults } from "@/lib/workspace/proposal-schema";
@@ -32,6 +34,12 @@ export function benchLink(h: LensHypothesis, instrument: InstrumentDefaults): st
 /** Twelve significant digits: unit conversions ("4 kpc" → 3999.9999999999995 pc) come back as typed. */
 const tidy = (value: number) => Number(value.toPrecision(12));
 
+/** Every lens parameter of a target: the sketch's model's, tidied, and null for the others. */
+function storedParameters(inputs: SketchInputs): Record<LensParameterKey, number | null> {
+  const given: Partial<Record<LensParameterKey, number>> = lensParametersOf(inputs.lens);
+  return Object.fromEntries(lensParameters.map(({ key }) => [key, given[key] === undefined ? null : tidy(given[key])])) as Record<LensParameterKey, number | null>;
+}
+
 /**
  * The reverse of `benchLink`: the hypothesis a bench sketch describes, for saving it as a target. It
  * reads the same keys (`lens`, `mass`/`sigma`, `geometry` with `dl`/`ds` or `zl`/`zs`, `beta`, `mu`)
@@ -44,8 +52,7 @@ export function hypothesisFromSketch(sketch: Sketch, inputs: SketchInputs, betaT
   const isRedshift = sketch.geometry === "redshift";
   return {
     lensModel: inputs.lens.model,
-    lensMassSolar: inputs.lens.model === "point" ? tidy(inputs.lens.massSolar) : null,
-    velocityDispersionKmPerS: inputs.lens.model === "sis" ? tidy(inputs.lens.sigmaKmPerS) : null,
+    ...storedParameters(inputs),
     lensDistancePc: isRedshift ? null : tidy(inputs.geometry.dLensPc),
     sourceDistancePc: isRedshift ? null : tidy(inputs.geometry.dSourcePc),
     lensRedshift: isRedshift ? inputs.geometry.zLens : null,

@@ -1,19 +1,6 @@
-import {
-  angularDiameterDistance,
-  angularDiameterDistanceBetween,
-  DAY_S,
-  einsteinCrossingTime,
-  einsteinRadius,
-  JULIAN_YEAR_S,
-  MICROARCSECOND_RAD,
-  MILLIARCSECOND_RAD,
-  pointLensImages,
-  pointMassTimeDelay,
-  shadowAngularDiameter,
-  sisEinsteinRadius,
-  sisImages,
-  sisTimeDelay,
-} from "@/lib/physics";
+import { angularDiameterDistance, angularDiameterDistanceBetween, DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics";
+import type { LensGeometry } from "@/lib/lensing/lens-model";
+import { solveLens } from "@/lib/lensing/registry";
 import { seasonWindows, type SeasonWindows } from "@/lib/astro/season";
 import { cycleNightCount, skySiteOf, type InstrumentDefaults, type ProposalInput } from "@/lib/workspace/proposal-schema";
 import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
@@ -44,42 +31,27 @@ export interface DerivedColumns {
   campaignVerdict: Verdict;
 }
 
-interface Geometry {
-  lensPc: number;
-  sourcePc: number;
-  lensSourcePc: number;
-  /** 0 inside the Galaxy, where the cosmological (1 + z) stretch of delays does not apply. */
-  lensRedshift: number;
-}
-
 /**
- * Distances from what the target gives: Galactic distances (then D_LS = D_S − D_L) or redshifts
- * (then angular-diameter distances in the physics module's default flat ΛCDM).
+ * Distances from what the target gives: Galactic distances (then D_LS = D_S − D_L and z_L = 0, where
+ * the cosmological (1 + z) stretch of delays does not apply) or redshifts (then angular-diameter
+ * distances in the physics module's default flat ΛCDM).
  */
-function geometryOf(h: LensHypothesis): Geometry | null {
+function geometryOf(h: LensHypothesis): LensGeometry | null {
   if (h.lensRedshift != null && h.sourceRedshift != null) {
     return {
-      lensPc: angularDiameterDistance(h.lensRedshift),
-      sourcePc: angularDiameterDistance(h.sourceRedshift),
-      lensSourcePc: angularDiameterDistanceBetween(h.lensRedshift, h.sourceRedshift),
-      lensRedshift: h.lensRedshift,
+      dLensPc: angularDiameterDistance(h.lensRedshift),
+      dSourcePc: angularDiameterDistance(h.sourceRedshift),
+      dLensSourcePc: angularDiameterDistanceBetween(h.lensRedshift, h.sourceRedshift),
+      zLens: h.lensRedshift,
     };
   }
   if (h.lensDistancePc != null && h.sourceDistancePc != null) {
-    return {
-      lensPc: h.lensDistancePc,
-      sourcePc: h.sourceDistancePc,
-      lensSourcePc: h.sourceDistancePc - h.lensDistancePc,
-      lensRedshift: 0,
-    };
+    return { dLensPc: h.lensDistancePc, dSourcePc: h.sourceDistancePc, dLensSourcePc: h.sourceDistancePc - h.lensDistancePc, zLens: 0 };
   }
   return null;
 }
 
-function crossingTimeDaysOf(thetaERad: number, muMasPerYr: number | null | undefined): number | null {
-  if (muMasPerYr == null) return null;
-  return einsteinCrossingTime(thetaERad, (muMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S) / DAY_S;
-}
+const perDay = (seconds: number | null) => (seconds === null ? null : seconds / DAY_S);
 
 /**
  * The stored verdicts against the instrument defaults (thresholds and spans in `verdicts.ts`):
@@ -107,9 +79,8 @@ function verdictsFor(
 
 /**
  * Computes a target's derived columns from its lens hypothesis and the proposal's instrument
- * defaults. All lensing quantities come from `lib/physics` (thin-lens point mass per Paczyński 1986,
- * singular isothermal sphere per Schneider, Ehlers & Falco 1992); this function only chooses the
- * distances and converts units.
+ * defaults. Every lensing quantity is the lens model's solution (`lib/lensing/registry.ts`); this
+ * function only chooses the distances and converts units.
  * An incomplete hypothesis, or one outside the accepted ranges (a row stored before a range was
  * narrowed), yields nulls and "unknown" verdicts rather than an error: no value reaches a physics
  * function outside its domain.
@@ -117,46 +88,19 @@ function verdictsFor(
 export function deriveTargetColumns(h: LensHypothesis, instrument: InstrumentDefaults): DerivedColumns {
   const isComputable = lensHypothesisSchema.safeParse(h).success && Object.keys(lensHypothesisErrors(h)).length === 0;
   const geometry = isComputable ? geometryOf(h) : null;
-  const empty = {
-    einsteinRadiusMas: null,
-    imageSeparationMas: null,
-    magnificationTotal: null,
-    timeDelayDays: null,
-    crossingTimeDays: null,
-    shadowDiameterMicroarcsec: null,
-  };
-  let columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"> = empty;
-  const u = h.sourceOffsetThetaE;
-
-  if (geometry && h.lensModel === "point" && h.lensMassSolar != null) {
-    const thetaERad = einsteinRadius(h.lensMassSolar, geometry.lensPc, geometry.sourcePc, geometry.lensSourcePc);
-    const thetaEMas = thetaERad / MILLIARCSECOND_RAD;
-    const images = pointLensImages(u);
-    columns = {
-      einsteinRadiusMas: thetaEMas,
-      imageSeparationMas: (images.thetaPlus - images.thetaMinus) * thetaEMas,
-      magnificationTotal: images.magnificationTotal,
-      timeDelayDays: pointMassTimeDelay(h.lensMassSolar, geometry.lensRedshift, u) / DAY_S,
-      crossingTimeDays: crossingTimeDaysOf(thetaERad, h.properMotionMasPerYr),
-      shadowDiameterMicroarcsec: shadowAngularDiameter(h.lensMassSolar, geometry.lensPc) / MICROARCSECOND_RAD,
-    };
-  } else if (geometry && h.lensModel === "sis" && h.velocityDispersionKmPerS != null) {
-    const thetaERad = sisEinsteinRadius(h.velocityDispersionKmPerS, geometry.lensSourcePc, geometry.sourcePc);
-    const betaRad = u * thetaERad;
-    const images = sisImages(betaRad, thetaERad);
-    // An isothermal sphere forms two images (so a separation and a delay) only for u < 1.
-    const isDouble = images.imageCount === 2;
-    columns = {
-      ...empty,
-      einsteinRadiusMas: thetaERad / MILLIARCSECOND_RAD,
-      imageSeparationMas: isDouble ? (images.thetaPlus - images.thetaMinus) / MILLIARCSECOND_RAD : null,
-      magnificationTotal: images.magnificationTotal,
-      timeDelayDays: isDouble
-        ? sisTimeDelay(betaRad, thetaERad, geometry.lensRedshift, geometry.lensPc, geometry.sourcePc, geometry.lensSourcePc) / DAY_S
-        : null,
-      crossingTimeDays: crossingTimeDaysOf(thetaERad, h.properMotionMasPerYr),
-    };
-  }
+  const properMotionRadPerS = h.properMotionMasPerYr == null ? null : (h.properMotionMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S;
+  const solution = geometry === null ? null : solveLens(h.lensModel, h, geometry, h.sourceOffsetThetaE, properMotionRadPerS);
+  const columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"> =
+    solution === null
+      ? { einsteinRadiusMas: null, imageSeparationMas: null, magnificationTotal: null, timeDelayDays: null, crossingTimeDays: null, shadowDiameterMicroarcsec: null }
+      : {
+          einsteinRadiusMas: solution.einsteinRadiusRad / MILLIARCSECOND_RAD,
+          imageSeparationMas: solution.imageSeparationRad === null ? null : solution.imageSeparationRad / MILLIARCSECOND_RAD,
+          magnificationTotal: solution.magnificationTotal,
+          timeDelayDays: perDay(solution.timeDelayS),
+          crossingTimeDays: perDay(solution.einsteinTimeS),
+          shadowDiameterMicroarcsec: solution.shadowDiameterRad === null ? null : solution.shadowDiameterRad / MICROARCSECOND_RAD,
+        };
   return { ...columns, ...verdictsFor(columns, h.lensModel, instrument) };
 }
 

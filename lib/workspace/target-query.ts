@@ -35,7 +35,7 @@ export const targetListQuerySchema = z.object({
   direction: z.enum(["asc", "desc"], { error: "The sort direction is asc or desc." }).default("asc"),
   q: storedText("The search").trim().max(100, "The search is at most 100 characters.").optional(),
   status: z.enum(targetStatuses, { error: `The status filter is one of ${targetStatuses.join(", ")}.` }).optional(),
-  lensModel: z.enum(lensModels, { error: "The lens model filter is point or sis." }).optional(),
+  lensModel: z.enum(lensModels, { error: `The lens model filter is ${lensModels.join(" or ")}.` }).optional(),
   tag: storedText("The tag filter").trim().max(32, "The tag filter is at most 32 characters.").optional(),
   resolutionVerdict: z.enum(verdicts, { error: `The resolution verdict filter is one of ${verdicts.join(", ")}.` }).optional(),
 });

@@ -5,13 +5,15 @@ import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
 import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import { optionalQuantityField, quantityField, rangeMessage, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { isothermalSphereModel } from "@/lib/lensing/models/isothermal-sphere";
+import { pointMassModel } from "@/lib/lensing/models/point-mass";
+import { lensModelIds, lensModelLabels, lensModelOf, usesParameter, type LensModelId } from "@/lib/lensing/registry";
+import type { LensParameter } from "@/lib/lensing/lens-model";
 
-export const lensModels = ["point", "sis"] as const;
-export type LensModel = (typeof lensModels)[number];
-export const lensModelLabels: Record<LensModel, string> = {
-  point: "Point mass",
-  sis: "Singular isothermal sphere",
-};
+/** The lens models of the registry (`lib/lensing/registry.ts`): ids, labels. */
+export const lensModels = lensModelIds;
+export type LensModel = LensModelId;
+export { lensModelLabels };
 
 function coordinate(label: string, parse: (input: string | number) => number) {
   const text = z.string().max(MAX_COORDINATE_CHARS, `${label} is at most ${MAX_COORDINATE_CHARS} characters.`);
@@ -29,28 +31,20 @@ function coordinate(label: string, parse: (input: string | number) => number) {
 
 const targetRange = (what: string, range: AcceptedRange, unitWords: string, why: string) => ({ range, rangeMessage: rangeMessage(what, range, unitWords, why) });
 
+/** A lens model's parameter as a target's quantity field (declared once, in the model's file). */
+function lensParameterSpec(p: LensParameter) {
+  const { label, kind, unit, unitWords, example, range, rangeWords } = p;
+  return { label, kind, unit, unitWords, example, ...targetRange(rangeWords.what, range, rangeWords.unitWords, rangeWords.why) };
+}
+
 /**
  * The target's quantities: each is a number in its stored unit or typed text with a unit, inside
  * one of the lensing layer's accepted ranges (`lib/physics/accepted-ranges.ts`), so that no derived
  * quantity overflows, underflows or leaves its formula's domain.
  */
 export const targetQuantities = {
-  lensMassSolar: {
-    label: "Lens mass",
-    kind: "mass",
-    unit: "Msun",
-    unitWords: "M☉",
-    example: "0.3 Msun",
-    ...targetRange("The lens mass", acceptedRanges.lensMassSolar, "solar masses", "an asteroid to ten times the largest galaxy cluster"),
-  },
-  velocityDispersionKmPerS: {
-    label: "Velocity dispersion",
-    kind: "velocity",
-    unit: "km/s",
-    unitWords: "km/s",
-    example: "250 km/s",
-    ...targetRange("The velocity dispersion", acceptedRanges.velocityDispersionKmPerS, "km/s", "dwarf galaxies to the richest clusters"),
-  },
+  lensMassSolar: lensParameterSpec(pointMassModel.parameters[0]),
+  velocityDispersionKmPerS: lensParameterSpec(isothermalSphereModel.parameters[0]),
   lensDistancePc: {
     label: "Lens distance",
     kind: "distance",
@@ -103,6 +97,9 @@ export const targetQuantities = {
   },
 } as const satisfies Record<string, QuantitySpec>;
 
+/** The models as a refusal lists them: "point (a point mass) or sis (a singular isothermal sphere)". */
+export const lensModelChoicesText = lensModels.map((id) => `${id} (a ${lensModelLabels[id].toLowerCase()})`).join(" or ");
+
 const tagRule = "may use only letters, digits, . + - _";
 /** A refused tag as its message quotes it: at most 32 characters, so a huge one is not echoed whole. */
 const shownTag = (input: unknown) => {
@@ -124,7 +121,7 @@ export const targetFieldsSchema = z.object({
   name: nameText("The target name").trim().min(1, "Name the target.").max(120, "The target name is at most 120 characters."),
   ra: coordinate("Right ascension", parseRightAscensionDeg),
   dec: coordinate("Declination", parseDeclinationDeg),
-  lensModel: z.enum(lensModels, { error: "The lens model is point (a point mass) or sis (a singular isothermal sphere)." }),
+  lensModel: z.enum(lensModels, { error: `The lens model is ${lensModelChoicesText}.` }),
   lensMassSolar: optionalQuantityField(targetQuantities.lensMassSolar),
   velocityDispersionKmPerS: optionalQuantityField(targetQuantities.velocityDispersionKmPerS),
   lensDistancePc: optionalQuantityField(targetQuantities.lensDistancePc),
@@ -185,10 +182,7 @@ const present = (value: number | null | undefined): value is number => value !==
 export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
   const fields: FieldErrors = {};
   const add = (field: string, message: string) => (fields[field] ??= []).push(message);
-  if (h.lensModel === "point" && !present(h.lensMassSolar)) add("lensMassSolar", "A point-mass lens needs its mass in solar masses.");
-  if (h.lensModel === "sis" && !present(h.velocityDispersionKmPerS)) {
-    add("velocityDispersionKmPerS", "An isothermal lens needs its velocity dispersion in km/s.");
-  }
+  for (const parameter of lensModelOf(h.lensModel).parameters) if (!present(h[parameter.key])) add(parameter.key, parameter.missingMessage);
   const hasDistances = present(h.lensDistancePc) || present(h.sourceDistancePc);
   const hasRedshifts = present(h.lensRedshift) || present(h.sourceRedshift);
   if (hasDistances && hasRedshifts) {
@@ -203,7 +197,7 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
     add("sourceDistancePc", "Give the source distance in parsecs too.");
   } else if (h.sourceDistancePc <= h.lensDistancePc) {
     add("sourceDistancePc", "The source must lie behind the lens (farther than it).");
-  } else if (h.lensModel === "point" && present(h.lensMassSolar) && lensCompactness(h.lensMassSolar, h.lensDistancePc) > MAX_LENS_COMPACTNESS) {
+  } else if (usesParameter(h.lensModel, "lensMassSolar") && present(h.lensMassSolar) && lensCompactness(h.lensMassSolar, h.lensDistancePc) > MAX_LENS_COMPACTNESS) {
     const message = "The lens is too close for its mass: its gravitational radius exceeds 1/10,000 of its distance, where the thin-lens formulas fail. Check the mass and the distance.";
     add("lensMassSolar", message);
     add("lensDistancePc", message);

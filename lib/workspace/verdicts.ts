@@ -3,9 +3,10 @@
  * wording. Each verdict compares one ratio with two thresholds (rules of thumb stated beside each,
  * not instrument models) and is shown with the number behind it.
  */
+import type { Target } from "@/db/schema";
+import { lensModelOf } from "@/lib/lensing/registry";
+import type { LensTimescale } from "@/lib/lensing/lens-model";
 import { MICROARCSECOND_RAD } from "@/lib/physics";
-import type { DerivedColumns } from "@/lib/workspace/derived";
-import type { LensModel } from "@/lib/workspace/target-schema";
 
 export const verdicts = ["feasible", "marginal", "infeasible", "unknown"] as const;
 export type Verdict = (typeof verdicts)[number];
@@ -49,9 +50,9 @@ export function interferometerBeamMicroarcsec(wavelengthMm: number | null, basel
 
 /** The stored numbers of a target that the verdicts read, in the units their names say. */
 export type FeasibilityColumns = Pick<
-  DerivedColumns,
-  "imageSeparationMas" | "timeDelayDays" | "crossingTimeDays" | "shadowDiameterMicroarcsec" | "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"
-> & { lensModel: LensModel };
+  Target,
+  "lensModel" | "imageSeparationMas" | "timeDelayDays" | "crossingTimeDays" | "shadowDiameterMicroarcsec" | "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"
+>;
 
 /** The proposal's side of the comparison. */
 export interface FeasibilityDefaults {
@@ -89,9 +90,20 @@ export function largestFeatureMas(c: Pick<FeasibilityColumns, "imageSeparationMa
   return features.length > 0 ? Math.max(...features) : null;
 }
 
-/** The variability timescale the sampling and campaign verdicts grade: t_E for a point lens, Δt for an SIS (d). */
+/**
+ * How the sampling and campaign verdicts speak of each model's timescale (`LensModel.timescale`): its
+ * stored column, symbol, the span a campaign must cover in multiples of it, and the campaign question.
+ */
+const timescaleTerms: Record<LensTimescale, { column: "crossingTimeDays" | "timeDelayDays"; symbol: string; spanMultiple: number; campaignQuestion: string }> = {
+  einsteinTime: { column: "crossingTimeDays", symbol: "t_E", spanMultiple: CAMPAIGN_SPAN_CROSSING_TIMES, campaignQuestion: "Event within the campaign" },
+  timeDelay: { column: "timeDelayDays", symbol: "Δt", spanMultiple: CAMPAIGN_SPAN_TIME_DELAYS, campaignQuestion: "Time delay within the campaign" },
+};
+
+const termsOf = (lensModel: FeasibilityColumns["lensModel"]) => timescaleTerms[lensModelOf(lensModel).timescale];
+
+/** The variability timescale the sampling and campaign verdicts grade: t_E of an event (point lens), Δt of an image pair (SIS), days. */
 export function timescaleDays(c: Pick<FeasibilityColumns, "lensModel" | "crossingTimeDays" | "timeDelayDays">): number | null {
-  return c.lensModel === "point" ? c.crossingTimeDays : c.timeDelayDays;
+  return c[termsOf(c.lensModel).column];
 }
 
 /** Samples per timescale at the cadence. */
@@ -102,8 +114,7 @@ export function samplesPerTimescale(timescale: number | null, cadenceHours: numb
 /** Campaign length over the span to cover. */
 export function campaignCoverage(lensModel: FeasibilityColumns["lensModel"], timescale: number | null, campaignLengthDays: number): number | null {
   if (timescale === null) return null;
-  const span = lensModel === "point" ? CAMPAIGN_SPAN_CROSSING_TIMES * timescale : CAMPAIGN_SPAN_TIME_DELAYS * timescale;
-  return campaignLengthDays / span;
+  return campaignLengthDays / (termsOf(lensModel).spanMultiple * timescale);
 }
 
 /** The shadow against λ/B: verdict and ratio (unknown without a shadow or without λ and B). */
@@ -126,10 +137,11 @@ export function feasibilityReport(c: FeasibilityColumns, d: FeasibilityDefaults,
   const feature = largestFeatureMas(c);
   const isShadowLargest = feature !== null && c.shadowDiameterMicroarcsec !== null && feature === c.shadowDiameterMicroarcsec / 1000 && feature !== c.imageSeparationMas;
   const timescale = timescaleDays(c);
-  const timescaleName = c.lensModel === "point" ? "t_E" : "Δt";
+  const terms = termsOf(c.lensModel);
+  const timescaleName = terms.symbol;
   const samples = samplesPerTimescale(timescale, d.cadenceHours);
   const coverage = campaignCoverage(c.lensModel, timescale, d.campaignLengthDays);
-  const spanWords = c.lensModel === "point" ? `2 t_E = ${timescale === null ? "" : digits(2 * timescale)} d` : `1.5 Δt = ${timescale === null ? "" : digits(1.5 * timescale)} d`;
+  const spanWords = `${terms.spanMultiple} ${timescaleName} = ${timescale === null ? "" : digits(terms.spanMultiple * timescale)} d`;
   const beam = interferometerBeamMicroarcsec(d.interferometerWavelengthMm, d.interferometerBaselineKm);
   const shadow = shadowVerdict(c.shadowDiameterMicroarcsec, beam);
   const shadowFigure =
@@ -150,7 +162,7 @@ export function feasibilityReport(c: FeasibilityColumns, d: FeasibilityDefaults,
     },
     {
       id: "campaign",
-      question: c.lensModel === "point" ? "Event within the campaign" : "Time delay within the campaign",
+      question: terms.campaignQuestion,
       verdict: c.campaignVerdict,
       figure: coverage === null ? `no ${timescaleName} for this hypothesis` : `${spanWords} against a ${d.campaignLengthDays} d campaign (${digits(coverage)} ×)`,
     },

@@ -106,7 +106,7 @@ describe("validateImportRows", () => {
   it("says which required value is missing, and treats NaN, null and -- as empty (common practice)", () => {
     const { rows } = preview("A,10,10,NaN,4,8,null,5,--,");
     expect(rows[0].errors).toEqual([
-      "row 1: Lens model is missing (give a mass for a point lens or a velocity dispersion for an isothermal one).",
+      "row 1: Lens model is missing (give a lens mass for a point mass or a velocity dispersion for a singular isothermal sphere).",
       "row 1: Source offset (θ_E) is missing.",
       "row 1: Priority is missing.",
     ]);

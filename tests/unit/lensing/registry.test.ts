@@ -3,9 +3,10 @@ import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { lensModel as lensModelEnum } from "@/db/schema";
 import { lensModels as sketchLensModels } from "@/lib/bench/sketch-state";
-import { lensModelIds, lensModelLabels, lensModelOf, lensModelOfAlias, lensModelOfParameters, lensModels, type LensGeometry } from "@/lib/lensing";
-import { ARCSECOND_RAD, GM_SUN_M3_PER_S2, JULIAN_YEAR_S, MILLIARCSECOND_RAD, PARSEC_M, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics";
-import { lensModelLabels as targetLensModelLabels, lensModels as targetLensModels, targetFieldsSchema } from "@/lib/workspace/target-schema";
+import { lensModelIds, lensModelLabels, lensModelOf, lensModelOfAlias, lensModelOfParameters, lensModels, solveLens, type LensGeometry } from "@/lib/lensing";
+import { angularDiameterDistance, angularDiameterDistanceBetween, ARCSECOND_RAD, DAY_S, GM_SUN_M3_PER_S2, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD, PARSEC_M, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics";
+import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { lensModelLabels as targetLensModelLabels, lensModels as targetLensModels, targetFieldsSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
 
 // mpmath findroot on the Virbhadra–Ellis exact lens equation at 40 digits (tests/fixtures/generate_physics.py, photon-ring).
 const photonRing: { rows: { massSolar: number; dLensPc: number; dSourcePc: number; ringDiameterRad: string; shadowDiameterRad: string }[] } = JSON.parse(
@@ -122,5 +123,39 @@ describe("the registry is the one list of lens models", () => {
     expect(lensModelOfParameters({ lensMassSolar: 1 })).toBe("point");
     expect(lensModelOfParameters({ velocityDispersionKmPerS: 200 })).toBe("sis");
     expect(lensModelOfParameters({ lensMassSolar: 1, velocityDispersionKmPerS: 200 })).toBeUndefined();
+  });
+});
+
+describe("the stored columns are the model's solution", () => {
+  const instrument = { resolutionMas: 1, cadenceHours: 24, campaignLengthDays: 90 } as Parameters<typeof deriveTargetColumns>[1];
+  const base = { lensMassSolar: null, velocityDispersionKmPerS: null, lensDistancePc: null, sourceDistancePc: null, lensRedshift: null, sourceRedshift: null, properMotionMasPerYr: 5 };
+  const hypotheses: LensHypothesis[] = [
+    { ...base, lensModel: "point", lensMassSolar: 0.3, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.1 },
+    { ...base, lensModel: "point", lensMassSolar: 4.3e6, lensDistancePc: 8300, sourceDistancePc: 16600, sourceOffsetThetaE: 2 },
+    { ...base, lensModel: "sis", velocityDispersionKmPerS: 250, lensRedshift: 0.3, sourceRedshift: 2, sourceOffsetThetaE: 0.4 },
+    { ...base, lensModel: "sis", velocityDispersionKmPerS: 250, lensRedshift: 0.3, sourceRedshift: 2, sourceOffsetThetaE: 1.2 },
+  ];
+
+  it("writes θ_E, separation, magnification, delay, t_E and shadow exactly as solve gives them", () => {
+    for (const h of hypotheses) {
+      const columns = deriveTargetColumns(h, instrument);
+      const geometry: LensGeometry =
+        h.lensRedshift == null
+          ? { dLensPc: h.lensDistancePc!, dSourcePc: h.sourceDistancePc!, dLensSourcePc: h.sourceDistancePc! - h.lensDistancePc!, zLens: 0 }
+          : // the physics module's default flat ΛCDM, as deriveTargetColumns uses it
+            {
+              dLensPc: angularDiameterDistance(h.lensRedshift),
+              dSourcePc: angularDiameterDistance(h.sourceRedshift!),
+              dLensSourcePc: angularDiameterDistanceBetween(h.lensRedshift, h.sourceRedshift!),
+              zLens: h.lensRedshift,
+            };
+      const s = solveLens(h.lensModel, h, geometry, h.sourceOffsetThetaE, (5 * MILLIARCSECOND_RAD) / JULIAN_YEAR_S)!;
+      expect(columns.einsteinRadiusMas).toBe(s.einsteinRadiusRad / MILLIARCSECOND_RAD);
+      expect(columns.imageSeparationMas).toBe(s.imageSeparationRad === null ? null : s.imageSeparationRad / MILLIARCSECOND_RAD);
+      expect(columns.magnificationTotal).toBe(s.magnificationTotal);
+      expect(columns.timeDelayDays).toBe(s.timeDelayS === null ? null : s.timeDelayS / DAY_S);
+      expect(columns.crossingTimeDays).toBe(s.einsteinTimeS! / DAY_S);
+      expect(columns.shadowDiameterMicroarcsec).toBe(s.shadowDiameterRad === null ? null : s.shadowDiameterRad / MICROARCSECOND_RAD);
+    }
   });
 });
