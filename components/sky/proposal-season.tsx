@@ -2,11 +2,9 @@
 
 import { useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
-import { SEASON_WEEK_NIGHTS } from "@/lib/astro/season";
-import { addDaysIso } from "@/lib/astro/time";
+import { weekWithMostTargetsAtBest } from "@/lib/astro/season";
 import { SeasonChart } from "@/lib/figures/season-chart";
-import { SeasonTable } from "./season-table";
-import { formatHours } from "@/lib/astro/sky-format";
+import { SeasonTable, weekRange } from "./season-table";
 import { useSeason } from "./use-season";
 
 /** Targets per page of the chart and table: SVG rows stay light and legible at this count. */
@@ -37,15 +35,9 @@ export function ProposalSeason({ site, targets, startNightIso, nightCount, airma
     [page, targets.length],
   );
   const never = season ? season.targets.flatMap((t, index) => (t.isNeverObservable ? [index] : [])) : [];
-  // The cycle's best week for the whole list: the 7-night block with the most usable hours summed over targets.
-  const bestWeek = useMemo(() => {
-    if (!season) return null;
-    const weekly = new Float64Array(season.weekStartDatesIso.length);
-    for (const t of season.targets) for (let w = 0; w < weekly.length; w++) weekly[w] += t.weeklyHoursDark[w];
-    let best = 0;
-    for (let w = 1; w < weekly.length; w++) if (weekly[w] > weekly[best]) best = w;
-    return weekly[best] > 0 ? { start: season.weekStartDatesIso[best], hours: weekly[best] } : null;
-  }, [season]);
+  // The list's headline week: the one in which the most targets are in one of their own best weeks.
+  // A count of targets: hours of different targets are never added.
+  const headline = useMemo(() => (season ? weekWithMostTargetsAtBest(season.targets, season.weekStartDatesIso.length) : null), [season]);
 
   if (status === "failed") return <p role="alert" className="text-alarm">The season could not be computed: {error}</p>;
   if (!season) return <p className="text-dusk-dim">Computing the season for {targets.length} targets…</p>;
@@ -53,9 +45,11 @@ export function ProposalSeason({ site, targets, startNightIso, nightCount, airma
     <div className="space-y-4">
       <dl className="flex flex-wrap gap-x-8 gap-y-1 text-sm">
         <div>
-          <dt className="inline text-dusk-dim">Best week for the whole list </dt>
+          <dt className="inline text-dusk-dim">Week with the most targets at their best </dt>
           <dd className="inline font-mono text-glint" data-testid="best-week-overall">
-            {bestWeek ? `${bestWeek.start} – ${addDaysIso(bestWeek.start, SEASON_WEEK_NIGHTS - 1)} (${formatHours(bestWeek.hours)} over all targets)` : "none"}
+            {headline
+              ? `${weekRange(season, headline.weekIndex)} (${headline.targetCount} of ${season.targets.length} targets)`
+              : "none"}
           </dd>
         </div>
         <div>

@@ -9,7 +9,8 @@ const reasonText: Record<NeverObservableReason, string> = {
   sun: "too close to the Sun whenever it is up in darkness",
 };
 
-function weekRange(season: SeasonWindows, week: number): string {
+/** "2031-06-10 – 2031-06-16": the nights of block `week` (the last block may be shorter). */
+export function weekRange(season: SeasonWindows, week: number): string {
   const start = season.weekStartDatesIso[week];
   const nights = Math.min(SEASON_WEEK_NIGHTS, season.nightDatesIso.length - week * SEASON_WEEK_NIGHTS);
   return `${start} – ${addDaysIso(start, nights - 1)}`;

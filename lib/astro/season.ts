@@ -19,7 +19,7 @@ import {
 } from "./inputs";
 import { altitudeLimit, type AltitudeLimit } from "./limits";
 import { buildNightGrid, hoursOfDarkness } from "./night-grid";
-import { fillSineAltitudes, hoursAboveInDarkness } from "./target-night";
+import { fillSineAltitudes, hoursAboveInDarkness, isTooCloseToSun, upperCulminationAltitudeDeg } from "./target-night";
 import { addDaysIso, astroTimeFromJdUtc } from "./time";
 
 const DEG = Math.PI / 180;
@@ -90,13 +90,38 @@ const targetListSchema = z
   .min(1, "Give at least one target.")
   .max(SEASON_MAX_TARGETS, `At most ${SEASON_MAX_TARGETS} targets at once.`);
 
-function bestWeeks(weekly: Float32Array): number[] {
+/** Sums of `perNight` over blocks of `SEASON_WEEK_NIGHTS` nights from the first (the last block may be shorter). */
+export function weeklySums(perNight: ArrayLike<number>): Float32Array {
+  const weekly = new Float32Array(Math.ceil(perNight.length / SEASON_WEEK_NIGHTS));
+  for (let night = 0; night < perNight.length; night++) weekly[Math.floor(night / SEASON_WEEK_NIGHTS)] += perNight[night];
+  return weekly;
+}
+
+/**
+ * One target's best weeks: the blocks whose hours reach `BEST_WEEK_SHARE` of its best block's, best
+ * first (ties: earlier first); empty when every block has none. Hours of different targets are never
+ * added: each target has its own best weeks.
+ */
+export function bestWeekIndices(weekly: ArrayLike<number>): number[] {
   let best = 0;
-  for (const hours of weekly) best = Math.max(best, hours);
+  for (let week = 0; week < weekly.length; week++) best = Math.max(best, weekly[week]);
   if (best <= 0) return [];
-  return [...weekly.keys()]
-    .filter((index) => weekly[index] >= BEST_WEEK_SHARE * best)
+  return Array.from({ length: weekly.length }, (_, week) => week)
+    .filter((week) => weekly[week] >= BEST_WEEK_SHARE * best)
     .sort((a, b) => weekly[b] - weekly[a] || a - b);
+}
+
+/**
+ * The week in which the most targets are in one of their own best weeks, and how many (ties: the
+ * earlier week); null when no target has a best week. A count of targets, never hours summed over
+ * them (our rule for a list's headline week).
+ */
+export function weekWithMostTargetsAtBest(targets: readonly { bestWeekIndices: readonly number[] }[], weekCount: number): { weekIndex: number; targetCount: number } | null {
+  const counts = new Int32Array(weekCount);
+  for (const target of targets) for (const week of target.bestWeekIndices) counts[week] += 1;
+  let weekIndex = 0;
+  for (let week = 1; week < weekCount; week++) if (counts[week] > counts[weekIndex]) weekIndex = week;
+  return weekCount > 0 && counts[weekIndex] > 0 ? { weekIndex, targetCount: counts[weekIndex] } : null;
 }
 
 /**
@@ -133,7 +158,6 @@ export function seasonWindows(request: SeasonRequest): SeasonWindows {
     hoursDarkPerNight[night] = hoursOfDarkness(grid);
     moonIlluminatedFractionPerNight[night] = Illumination(Body.Moon, astroTimeFromJdUtc(grid.startJdUtc + 0.5)).phase_fraction;
     if (grid.darkStepCount === 0) continue;
-    const sun = grid.sunDirectionMid;
     for (let t = 0; t < targets.length; t++) {
       apparentDirectionOfDate(grid.place, targets[t].raDeg, targets[t].decDeg, direction);
       fillSineAltitudes(grid, direction, sineAltitudes, grid.darkFirstSample, grid.darkLastSample);
@@ -141,7 +165,7 @@ export function seasonWindows(request: SeasonRequest): SeasonWindows {
       if (hours <= 0) continue;
       const state = perTarget[t];
       state.hasDarkTimeAboveLimit = true;
-      if (direction[0] * sun[0] + direction[1] * sun[1] + direction[2] * sun[2] > cosSafe) state.tooClose[night] = 1;
+      if (isTooCloseToSun(grid, direction, cosSafe)) state.tooClose[night] = 1;
       else state.hours[night] = hours;
     }
   }
@@ -158,18 +182,13 @@ export function seasonWindows(request: SeasonRequest): SeasonWindows {
     safeSunElongationDeg: limits.safeSunElongationDeg,
     targets: targets.map((target, t) => {
       const { hours, tooClose, hasDarkTimeAboveLimit } = perTarget[t];
-      const weeklyHoursDark = new Float32Array(weekCount);
+      const weeklyHoursDark = weeklySums(hours);
       let totalHoursDark = 0;
-      for (let night = 0; night < nightCount; night++) {
-        weeklyHoursDark[Math.floor(night / SEASON_WEEK_NIGHTS)] += hours[night];
-        totalHoursDark += hours[night];
-      }
+      for (let night = 0; night < nightCount; night++) totalHoursDark += hours[night];
       const isNeverObservable = totalHoursDark <= 0;
       let neverObservableReason: NeverObservableReason | null = null;
       if (isNeverObservable) {
-        // Highest geometric altitude at upper culmination, 90° − |φ − δ| (aberration/precession ≪ 1′).
-        const culminationDeg = 90 - Math.abs(latitudeDeg - target.decDeg);
-        if (culminationDeg < limit.geometricDeg) neverObservableReason = "below-limit";
+        if (upperCulminationAltitudeDeg(latitudeDeg, target.decDeg) < limit.geometricDeg) neverObservableReason = "below-limit";
         else neverObservableReason = hasDarkTimeAboveLimit ? "sun" : "no-dark-time";
       }
       return {
@@ -180,7 +199,7 @@ export function seasonWindows(request: SeasonRequest): SeasonWindows {
         tooCloseToSunPerNight: tooClose,
         totalHoursDark,
         weeklyHoursDark,
-        bestWeekIndices: bestWeeks(weeklyHoursDark),
+        bestWeekIndices: bestWeekIndices(weeklyHoursDark),
         isNeverObservable,
         neverObservableReason,
       };

@@ -45,6 +45,25 @@ export function hoursAboveInDarkness(grid: NightGrid, sineAltitudes: Float64Arra
   return stepFraction * grid.stepDays * 24;
 }
 
+/**
+ * The nightly Sun rule: whether the target with apparent unit vector `direction` is closer to the
+ * Sun than the safe elongation (given as its cosine, `cosSafeElongation`) at the middle of the
+ * grid's window. One value per night: the Sun moves about 1° a day.
+ */
+export function isTooCloseToSun(grid: NightGrid, direction: ArrayLike<number>, cosSafeElongation: number): boolean {
+  const sun = grid.sunDirectionMid;
+  return direction[0] * sun[0] + direction[1] * sun[1] + direction[2] * sun[2] > cosSafeElongation;
+}
+
+/**
+ * Geometric altitude (degrees) of a star at declination `decDeg` at upper culmination from geodetic
+ * latitude `latitudeDeg`: 90° − |φ − δ| (spherical astronomy; aberration and precession move it
+ * by well under 1′).
+ */
+export function upperCulminationAltitudeDeg(latitudeDeg: number, decDeg: number): number {
+  return 90 - Math.abs(latitudeDeg - decDeg);
+}
+
 /** Culmination and horizon passages of a target around one night. */
 export interface TargetPassages {
   /** Upper culmination (hour angle 0) inside the window, Julian date UTC. */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { seasonWindows, SEASON_MAX_NIGHTS } from "@/lib/astro/season";
+import { bestWeekIndices, seasonWindows, SEASON_MAX_NIGHTS, weeklySums, weekWithMostTargetsAtBest } from "@/lib/astro/season";
 import { addDaysIso, nightStartJdUtc } from "@/lib/astro/time";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { AppError } from "@/lib/errors";
@@ -74,6 +74,24 @@ describe("seasonWindows", () => {
       expect((error as AppError).fields).toHaveProperty(["targets.0.decDeg"]);
     }
     expect(() => seasonWindows({ ...request, limits: { airmassLimit: 0.5 } })).toThrow(/limits\.airmassLimit/);
+  });
+});
+
+describe("best weeks are per target (the list's headline once summed 1019.9 h into a 168-hour week)", () => {
+  it("sums nights into 7-night blocks and keeps the blocks within 90% of the best (our rule)", () => {
+    const weekly = weeklySums(Float32Array.from({ length: 16 }, (_, night) => (night < 7 ? 1 : night < 14 ? 2 : 10)));
+    expect(Array.from(weekly)).toEqual([7, 14, 20]);
+    expect(bestWeekIndices(weekly)).toEqual([2]);
+    expect(bestWeekIndices([10, 9.5, 3, 9.5])).toEqual([0, 1, 3]);
+    expect(bestWeekIndices([0, 0])).toEqual([]);
+  });
+
+  it("names the list's headline week by how many targets have it among their best, never by hours added across them", () => {
+    // Two targets best in week 0 with few hours, one best in week 2 with many: week 0 has more targets.
+    const targets = [{ bestWeekIndices: [0] }, { bestWeekIndices: [0, 1] }, { bestWeekIndices: [2] }];
+    expect(weekWithMostTargetsAtBest(targets, 3)).toEqual({ weekIndex: 0, targetCount: 2 });
+    expect(weekWithMostTargetsAtBest([{ bestWeekIndices: [] }], 3)).toBeNull();
+    expect(weekWithMostTargetsAtBest([], 0)).toBeNull();
   });
 });
 
