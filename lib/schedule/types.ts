@@ -4,7 +4,11 @@
  * data (typed arrays and objects) so that it crosses a worker boundary unchanged.
  */
 
-/** Why a stretch of the cycle has no usable time for the target. */
+/**
+ * Why a stretch of the cycle has no usable time for the target. A moment failing several rules takes
+ * the first in the order listed (daylight, below-limit, sun, moon, weather), so "weather" marks only
+ * time that a clear night would have given.
+ */
 export type ScheduleGapReason =
   /** The Sun is above the twilight limit. */
   | "daylight"
@@ -12,7 +16,7 @@ export type ScheduleGapReason =
   | "below-limit"
   /** Dark and high enough, but closer to the Moon than the minimum separation, or the Moon too bright. */
   | "moon"
-  /** The target is closer to the Sun than the safe elongation. */
+  /** Dark and high enough, but the target is closer to the Sun than the safe elongation tonight. */
   | "sun"
   /** A night lost to the clear-night fraction. */
   | "weather";
@@ -27,9 +31,22 @@ export interface ScheduleGap extends TimeSpanJd {
   reason: ScheduleGapReason;
 }
 
-/** A run of consecutive nights with usable time (an observing season). */
+/**
+ * A run of nights on which a window as if the night were clear can hold a visit (an observing
+ * season), with interruptions of at most `SEASON_BRIDGE_NIGHTS` nights bridged (our rule, see
+ * `seasons.ts`). The span runs from the first usable instant of its first night to the last of its
+ * last night.
+ */
 export interface ObservingSeason extends TimeSpanJd {
+  /** Nights from the first to the last, bridged nights included. */
   nightCount: number;
+  /** Nights of the season that can hold a visit (bridged nights not counted). */
+  usableNightCount: number;
+  /** Evening dates (`YYYY-MM-DD`) of the first and last night. */
+  firstNightIso: string;
+  lastNightIso: string;
+  /** endJdUtc − startJdUtc, days. */
+  lengthDays: number;
 }
 
 /** Why a schedule collects no visit at all. */
@@ -43,11 +60,17 @@ export type EmptyScheduleReason =
   /** Usable time exists, but the Moon constraint removes all of it. */
   | "moon"
   /** Usable time exists, but every window is shorter than one visit. */
-  | "windows-too-short";
+  | "windows-too-short"
+  /** Windows long enough for a visit exist only on nights lost to the clear-night fraction. */
+  | "weather";
 
 export interface ObservingSchedule {
+  /** From local mean noon before the first night to local mean noon after the last. */
   cycle: TimeSpanJd;
-  /** Usable windows, ascending and disjoint. */
+  /** Evening date of the first night (`YYYY-MM-DD`) and the number of nights; night i is that date + i. */
+  firstNightIso: string;
+  nightCount: number;
+  /** Usable windows on clear nights, ascending and disjoint. */
   windows: TimeSpanJd[];
   /** The rest of the cycle, ascending, each stretch with its reason. */
   gaps: ScheduleGap[];
@@ -55,6 +78,15 @@ export interface ObservingSchedule {
   visitsJdUtc: Float64Array;
   visitLengthDays: number;
   seasons: ObservingSeason[];
+  /**
+   * Usable hours of each night as if it were clear (dark, above the limit, Sun and Moon rules; the
+   * clear-night fraction not applied), h. Season and best weeks are read from these.
+   */
+  usableHoursPerNight: Float32Array;
+  /** The same summed per block of 7 nights from the first night (the last may be shorter), h. */
+  weeklyUsableHours: Float32Array;
+  /** Blocks whose hours reach 90% of this target's best block, best first; empty when none. */
+  bestWeekIndices: number[];
   /** Null when at least one visit is planned. */
   emptyReason: EmptyScheduleReason | null;
 }

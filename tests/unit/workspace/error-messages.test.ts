@@ -6,6 +6,7 @@ import { AppError } from "@/lib/errors";
 import { parseOrThrow } from "@/lib/server/http";
 import * as auth from "@/lib/auth/schemas";
 import * as astro from "@/lib/astro/inputs";
+import * as schedule from "@/lib/schedule/request";
 import { figureFormatQuerySchema } from "@/lib/exports/figures/figure-format";
 import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import * as importRequest from "@/lib/imports/request";
@@ -119,6 +120,13 @@ const fieldWords: Record<string, RegExp> = {
   decDeg: /declination/i,
   safeSunElongationDeg: /sun elongation/i,
   stepMinutes: /time step/i,
+  cycleStartNightIso: /first night|date/i,
+  cycleEndNightIso: /last night|cycle|date/i,
+  moon: /Moon/,
+  minSeparationDeg: /Moon separation/i,
+  maxIlluminatedFraction: /Moon illumination/i,
+  visitMinutes: /time per visit/i,
+  clearNightFraction: /clear-night fraction/i,
 };
 
 /**
@@ -269,6 +277,8 @@ describe("the sky inputs, parsed outside parseOrThrow, word their own refusals",
     ["skySiteSchema", astro.skySiteSchema],
     ["skyTargetSchema", astro.skyTargetSchema],
     ["skyLimitsSchema", astro.skyLimitsSchema],
+    ["scheduleConstraintsSchema", schedule.scheduleConstraintsSchema],
+    ["moonConstraintSchema", schedule.moonConstraintSchema],
   ] as const)("%s", (_, schema) => {
     for (const [path, keys] of shapesOf(schema)) {
       for (const key of keys) {
@@ -301,6 +311,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/exports/figures/figure-format.ts",
     "lib/exports/tables/columns.ts",
     "lib/astro/inputs.ts",
+    "lib/schedule/request.ts",
   ]);
   const onlyThroughParseOrThrow = new Set([
     "lib/exports/server/figure-routes.ts",
