@@ -1,0 +1,57 @@
+// Simulated observing schedule speed (issue 16 item 9): schedules for 1,000 targets over a 183-night
+// cycle against the 2 s target, and one target's schedule (the target page) against 100 ms. Prints
+// figures and ratios only; never passes or fails on timing. Baselines in the same process: the
+// season view's usable hours for the same targets and nights (`seasonWindows`: no Moon, no visits,
+// no gaps), and the schedules computed one target at a time (no night shared between targets).
+import { cpus, loadavg } from "node:os";
+import { seasonWindows } from "@/lib/astro/season";
+import { observingSchedule, observingSchedules, type ScheduleConditions } from "@/lib/schedule";
+import { bestSeconds, fibonacciSky } from "../lib/bench-sky";
+
+const MANY_TARGET_SECONDS = 2;
+const ONE_TARGET_SECONDS = 0.1;
+const TARGET_COUNT = 1000;
+const UNSHARED_SAMPLE = 10;
+const site = { name: "Bench site (invented)", latitudeDeg: -30.2, longitudeEastDeg: -70.7, elevationM: 2200, horizonLimitDeg: 15 };
+const conditions: ScheduleConditions = {
+  site,
+  cycleStartNightIso: "2027-02-01",
+  cycleEndNightIso: "2027-08-02", // 183 nights
+  limits: { airmassLimit: 2 },
+  moon: { minSeparationDeg: 30, maxIlluminatedFraction: 0.6 },
+  cadenceHours: 4,
+  visitMinutes: 20,
+  clearNightFraction: 0.7,
+};
+const NIGHT_COUNT = 183;
+
+const targets = fibonacciSky(TARGET_COUNT);
+const bulge = { name: "Bulge field", raDeg: 269.25, decDeg: -29 };
+
+console.log(`schedule bench, load average ${loadavg().map((value) => value.toFixed(1)).join(" ")} on ${cpus().length} CPUs (timings of a shared machine are upper bounds)`);
+// One untimed run warms the JIT, as a worker that has served a request before would be.
+observingSchedules({ ...conditions, cycleEndNightIso: "2027-02-10", targets: targets.slice(0, 20) });
+
+let visits = 0;
+let empty = 0;
+const manySeconds = bestSeconds(() => {
+  const schedules = observingSchedules({ ...conditions, targets });
+  visits = schedules.reduce((sum, schedule) => sum + schedule.visitsJdUtc.length, 0);
+  empty = schedules.filter((schedule) => schedule.emptyReason !== null).length;
+}, 3);
+const seasonSeconds = bestSeconds(() => seasonWindows({ site, targets, startNightIso: conditions.cycleStartNightIso, nightCount: NIGHT_COUNT, limits: conditions.limits }), 3);
+const unsharedSeconds = (bestSeconds(() => {
+  for (const target of targets.slice(0, UNSHARED_SAMPLE)) observingSchedule({ ...conditions, target });
+}, 2) / UNSHARED_SAMPLE) * TARGET_COUNT;
+console.log(`(a) ${TARGET_COUNT} targets × ${NIGHT_COUNT} nights: ${manySeconds.toFixed(3)} s (best of 3); ${(manySeconds / MANY_TARGET_SECONDS).toFixed(3)} of the ${MANY_TARGET_SECONDS} s target; ` +
+  `${visits} visits, ${empty} targets with none`);
+console.log(`    baseline, the season view's hours for the same targets and nights: ${seasonSeconds.toFixed(3)} s; the schedule costs ${(manySeconds / seasonSeconds).toFixed(2)}x`);
+console.log(`    baseline, one target at a time (${UNSHARED_SAMPLE} timed, scaled to ${TARGET_COUNT}): ${unsharedSeconds.toFixed(1)} s; sharing the nights is ${(unsharedSeconds / manySeconds).toFixed(0)}x faster`);
+
+let bulgeVisits = 0;
+const oneSeconds = bestSeconds(() => {
+  bulgeVisits = observingSchedule({ ...conditions, target: bulge }).visitsJdUtc.length;
+}, 5);
+const oneSeasonSeconds = bestSeconds(() => seasonWindows({ site, targets: [bulge], startNightIso: conditions.cycleStartNightIso, nightCount: NIGHT_COUNT, limits: conditions.limits }), 5);
+console.log(`(b) one target (the bulge) over ${NIGHT_COUNT} nights: ${(oneSeconds * 1000).toFixed(1)} ms (best of 5); ${(oneSeconds / ONE_TARGET_SECONDS).toFixed(3)} of the ${ONE_TARGET_SECONDS * 1000} ms target; ${bulgeVisits} visits`);
+console.log(`    baseline, the season view's hours for that target: ${(oneSeasonSeconds * 1000).toFixed(1)} ms; the schedule costs ${(oneSeconds / oneSeasonSeconds).toFixed(2)}x`);
