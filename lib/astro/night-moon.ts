@@ -41,7 +41,9 @@ function geocentricMoonOfDate(grid: NightGrid, jdUtc: number): [number, number, 
  * rotated to the equator of date (IAU 2006/2000B, the grid's rotation) and interpolated by a
  * quadratic in time; minus the observer's geocentric position (astronomy-engine `ObserverVector`
  * once, then turned about the pole by the grid's sidereal time at each sample), which gives the
- * parallax (up to 1°) exactly. The Moon's own light time (about 1″) and refraction are left out.
+ * parallax (up to 1°) exactly. No annual aberration: for the Moon it cancels against the light
+ * time to within about 1″ (both shift it by the Earth's orbital motion, ~20″, in opposite senses),
+ * whereas a star's 20″ stays (`apparent-place.ts`). Refraction is left out.
  * Accuracy: better than 0.5′ in direction over a dark span of up to 14 h (the quadratic's error grows
  * as the cube of the span); tests check 1′ against astropy. Illuminated fraction: astronomy-engine
  * `Illumination` at `grid.midDarkJdUtc`.
