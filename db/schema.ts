@@ -16,6 +16,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { lensModelIds } from "../lib/lensing/registry";
+import { scienceCaseIds } from "../lib/lensing/science-cases";
 
 /** Which seed sets have been applied to this database, so seeding runs once and never duplicates. */
 export const seedRuns = pgTable("seed_runs", {
@@ -35,6 +36,8 @@ export const authTokenPurpose = pgEnum("auth_token_purpose", ["password_reset", 
 export const lensModel = pgEnum("lens_model", lensModelIds);
 export const targetStatus = pgEnum("target_status", ["candidate", "accepted", "scheduled", "observed", "dropped"]);
 export const verdict = pgEnum("feasibility_verdict", ["feasible", "marginal", "infeasible", "unknown"]);
+/** The science cases of `lib/lensing/science-cases.ts`; a new case's id needs a migration. */
+export const scienceCase = pgEnum("science_case", scienceCaseIds);
 
 /** People who can sign in. E-mail is stored lower-cased so uniqueness ignores case. */
 export const users = pgTable(
@@ -145,6 +148,14 @@ export const proposals = pgTable("proposals", {
   /** An interferometer's observing wavelength and longest baseline, for the shadow against λ/B. */
   interferometerWavelengthMm: doublePrecision("interferometer_wavelength_mm"),
   interferometerBaselineKm: doublePrecision("interferometer_baseline_km"),
+  /** The simulated schedule's constraints: Moon (null: none), time per visit, share of clear nights. */
+  moonMinSeparationDeg: doublePrecision("moon_min_separation_deg").default(30),
+  moonMaxIllumination: doublePrecision("moon_max_illumination"),
+  visitMinutes: doublePrecision("visit_minutes").notNull().default(20),
+  clearNightFraction: doublePrecision("clear_night_fraction").notNull().default(1),
+  /** Astrometric precision of one epoch, and the largest flux ratio of two images the instrument separates. */
+  astrometricPrecisionMas: doublePrecision("astrometric_precision_mas"),
+  reachableContrast: doublePrecision("reachable_contrast"),
   createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
@@ -216,6 +227,13 @@ export const targets = pgTable(
     sourceRedshift: doublePrecision("source_redshift"),
     sourceOffsetThetaE: doublePrecision("source_offset_theta_e").notNull(),
     properMotionMasPerYr: doublePrecision("proper_motion_mas_per_yr"),
+    /** The team's science case; null while the case inferred from the model and numbers applies. */
+    scienceCase: scienceCase("science_case"),
+    /** The event's peak time t0 (Julian date, UTC), the source's radius (R☉) or ρ (its angular radius in θ_E) typed directly, and its linear limb darkening. */
+    eventPeakJdUtc: doublePrecision("event_peak_jd_utc"),
+    sourceRadiusSolar: doublePrecision("source_radius_solar"),
+    sourceRadiusThetaE: doublePrecision("source_radius_theta_e"),
+    limbDarkeningU: doublePrecision("limb_darkening_u"),
     priority: integer("priority").notNull(),
     status: targetStatus("status").notNull().default("candidate"),
     tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
@@ -225,9 +243,13 @@ export const targets = pgTable(
     timeDelayDays: doublePrecision("time_delay_days"),
     crossingTimeDays: doublePrecision("crossing_time_days"),
     shadowDiameterMicroarcsec: doublePrecision("shadow_diameter_microarcsec"),
-    resolutionVerdict: verdict("resolution_verdict").notNull().default("unknown"),
-    cadenceVerdict: verdict("cadence_verdict").notNull().default("unknown"),
-    campaignVerdict: verdict("campaign_verdict").notNull().default("unknown"),
+    /** The science case the answers below were given for (the chosen one, or the inferred one). */
+    answeredCase: scienceCase("answered_case"),
+    /** The worst verdict among the case's answers, and the answers themselves (`CaseAnswer[]`). */
+    caseVerdict: verdict("case_verdict").notNull().default("unknown"),
+    caseAnswers: jsonb("case_answers").notNull().default(sql`'[]'::jsonb`),
+    /** The rules' version the derived columns were computed with; startup re-derives older rows. */
+    derivationVersion: integer("derivation_version").notNull().default(0),
     createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
     createdAt: createdAt(),
     updatedAt: updatedAt(),

@@ -1,4 +1,6 @@
-import type { Verdict } from "@/lib/workspace/verdicts";
+import type { Verdict } from "@/lib/lensing/feasibility-rules";
+
+export { verdictLabels } from "@/lib/workspace/case-verdict-words";
 
 /** Four significant digits, exponent form for very small or large values; "—" where there is no value. */
 export function formatQuantity(value: number | null | undefined, digits = 4): string {
@@ -13,13 +15,6 @@ export function formatWithUnit(value: number | null | undefined, unit: string, d
   const text = formatQuantity(value, digits);
   return text === "—" ? text : `${text} ${unit}`;
 }
-
-export const verdictLabels: Record<Verdict, string> = {
-  feasible: "Feasible",
-  marginal: "Marginal",
-  infeasible: "Not feasible",
-  unknown: "Unknown",
-};
 
 export const verdictClass: Record<Verdict, string> = {
   feasible: "text-glint",

@@ -31,6 +31,12 @@ export function proposalBody(v: Record<string, string>) {
       airmassLimit: typed(v.airmassLimit),
       interferometerWavelengthMm: optionalTyped(v.interferometerWavelengthMm),
       interferometerBaselineKm: optionalTyped(v.interferometerBaselineKm),
+      moonMinSeparationDeg: optionalTyped(v.moonMinSeparationDeg),
+      moonMaxIllumination: optionalTyped(v.moonMaxIllumination),
+      visitMinutes: typed(v.visitMinutes),
+      clearNightFraction: typed(v.clearNightFraction),
+      astrometricPrecisionMas: optionalTyped(v.astrometricPrecisionMas),
+      reachableContrast: optionalTyped(v.reachableContrast),
     },
   };
 }
@@ -73,6 +79,15 @@ export function ProposalFields({ fields, initial }: { fields: FieldErrors; initi
         <QuantityInput spec={proposalQuantities.airmassLimit} label="Airmass limit" name="airmassLimit" inputMode="decimal" required defaultValue={initial ? text(initial.instrument.airmassLimit) : "2"} hint="2 ≈ 30° altitude" errors={fields["instrument.airmassLimit"]} />
         <QuantityInput spec={proposalQuantities.interferometerWavelengthMm} label="Interferometer wavelength λ (mm)" name="interferometerWavelengthMm" defaultValue={text(initial?.instrument.interferometerWavelengthMm)} hint="optional, with the baseline; or 2.2 um, 230 GHz" errors={fields["instrument.interferometerWavelengthMm"]} />
         <QuantityInput spec={proposalQuantities.interferometerBaselineKm} label="Longest baseline B (km)" name="interferometerBaselineKm" defaultValue={text(initial?.instrument.interferometerBaselineKm)} hint="optional, with the wavelength" errors={fields["instrument.interferometerBaselineKm"]} />
+      </fieldset>
+      <fieldset className="grid gap-4 md:grid-cols-3">
+        <legend className="mb-2 text-sm font-semibold text-dusk-dim">Observing constraints (the simulated schedule)</legend>
+        <QuantityInput spec={proposalQuantities.moonMinSeparationDeg} label="Minimum Moon separation (deg)" name="moonMinSeparationDeg" defaultValue={initial ? text(initial.instrument.moonMinSeparationDeg) : "30"} hint="empty: no Moon constraint" errors={fields["instrument.moonMinSeparationDeg"]} />
+        <QuantityInput spec={proposalQuantities.moonMaxIllumination} label="Largest Moon illumination" name="moonMaxIllumination" inputMode="decimal" defaultValue={text(initial?.instrument.moonMaxIllumination)} hint="optional, 0 to 1 (0.5: up to half Moon)" errors={fields["instrument.moonMaxIllumination"]} />
+        <QuantityInput spec={proposalQuantities.visitMinutes} label="Time per visit (min)" name="visitMinutes" required defaultValue={initial ? text(initial.instrument.visitMinutes) : "20"} hint="or with a unit: 1 h" errors={fields["instrument.visitMinutes"]} />
+        <QuantityInput spec={proposalQuantities.clearNightFraction} label="Clear-night fraction" name="clearNightFraction" inputMode="decimal" required defaultValue={initial ? text(initial.instrument.clearNightFraction) : "1"} hint="share of nights clear at the site; 1 counts every night" errors={fields["instrument.clearNightFraction"]} />
+        <QuantityInput spec={proposalQuantities.astrometricPrecisionMas} label="Astrometric precision per epoch (mas)" name="astrometricPrecisionMas" defaultValue={text(initial?.instrument.astrometricPrecisionMas)} hint="optional, for astrometric microlensing; or 100 uas" errors={fields["instrument.astrometricPrecisionMas"]} />
+        <QuantityInput spec={proposalQuantities.reachableContrast} label="Reachable contrast (flux ratio)" name="reachableContrast" inputMode="decimal" defaultValue={text(initial?.instrument.reachableContrast)} hint="optional: the largest brighter/fainter flux ratio of two images the instrument separates; Δm mag is 10^(0.4 Δm)" errors={fields["instrument.reachableContrast"]} />
       </fieldset>
     </>
   );

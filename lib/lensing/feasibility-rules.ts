@@ -120,6 +120,9 @@ export function peakReachVerdict(distanceDays: number, peakHalfWidthDays: number
   return "infeasible";
 }
 
+/** Relative rounding of a span computed from Julian dates (about 1e-16 × 2.5e6 d, far below a second). */
+const COVERAGE_ROUNDING = 1e-9;
+
 /**
  * How much of a stretch t0 ± halfWidth a span observes: the event (half-width t_E) against the campaign
  * length or the part of t0 ± t_E inside the cycle, or the peak (half-width t_eff) against the part of
@@ -129,7 +132,8 @@ export function peakReachVerdict(distanceDays: number, peakHalfWidthDays: number
  * near the peak only u0·t_E is seen, neither the timescale nor the baseline.
  */
 export function coverageVerdict(spanDays: number, halfWidthDays: number): KnownVerdict {
-  if (spanDays >= 2 * halfWidthDays) return "feasible";
+  // A span computed as (end − start) of a covered stretch differs from 2·halfWidth by rounding only.
+  if (spanDays >= 2 * halfWidthDays * (1 - COVERAGE_ROUNDING)) return "feasible";
   if (spanDays >= halfWidthDays / 10) return "marginal";
   return "infeasible";
 }
@@ -193,3 +197,14 @@ export const HORIZON_DEFAULT_MIN_BEAMS = SHADOW_RULE.marginalAt;
 export const ASTROMETRIC_DEFAULT_MIN_PRECISIONS = ASTROMETRIC_EPOCH_RULE.marginalAt;
 /** The least source offset (θ_E) of that astrometric default: u = 1, A = 1.34. */
 export const ASTROMETRIC_DEFAULT_MIN_OFFSET_THETA_E = 1;
+
+// ── A case's overall verdict ──────────────────────────────────────────────────────────────────────
+
+/**
+ * The verdict of a case from its answers (our rule): infeasible if any answer is, else marginal if
+ * any is, else unknown while an answer lacks its input, else feasible. No answers: unknown.
+ */
+export function caseVerdictOf(answers: readonly Verdict[]): Verdict {
+  for (const worst of ["infeasible", "marginal", "unknown"] as const) if (answers.includes(worst)) return worst;
+  return answers.length === 0 ? "unknown" : "feasible";
+}

@@ -10,13 +10,12 @@ import { mergedHypothesis, planImport, type ExistingTarget, type ImportPlan, typ
 import { readImportFile } from "@/lib/imports/read-import-file";
 import { importCommitSchema, importPreviewSchema } from "@/lib/imports/request";
 import { checkColumnMapping, validateImportRows, type ImportFill } from "@/lib/imports/rows";
-import { deriveTargetColumns } from "@/lib/workspace/derived";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
 import type { CreateTargetInput } from "@/lib/workspace/target-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { instrumentOf } from "@/lib/server/derived-columns";
+import { deriveMany, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 import { deleteRefusedUpload, fetchStoredBytes } from "@/lib/server/uploads";
 import { z } from "zod";
@@ -126,7 +125,7 @@ async function loadTargetList(db: Queryable, proposalId: string, fileId: string)
 
 async function existingTargets(db: Queryable, proposalId: string): Promise<ExistingTarget[]> {
   const rows = await db.select().from(targets).where(eq(targets.proposalId, proposalId));
-  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, priority, tags }) => ({
+  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, priority, tags }) => ({
     id,
     name,
     raDeg,
@@ -140,6 +139,11 @@ async function existingTargets(db: Queryable, proposalId: string): Promise<Exist
     sourceRedshift,
     sourceOffsetThetaE,
     properMotionMasPerYr,
+    scienceCase,
+    eventPeakJdUtc,
+    sourceRadiusSolar,
+    sourceRadiusThetaE,
+    limbDarkeningU,
     priority,
     tags,
   }));
@@ -235,34 +239,42 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
       // The rows of the file under this mapping are at fault, not one field: "_", the request as a whole.
       throw new AppError("bad_request:import", `${summary} ${rowErrors.slice(0, 3).join(" ")}`, { _: [summary] }, { rowErrors: rowErrors.slice(0, 200) });
     }
-    const instrument = instrumentOf(access.proposal);
+    const settings = feasibilitySettingsOf(access.proposal);
     const byId = new Map(existing.map((target) => [target.id, target]));
     const added = plan.rows.flatMap((row) => (row.action.kind === "add" ? [row.action.target] : []));
     for (let start = 0; start < added.length; start += INSERT_CHUNK_ROWS) {
-      const values = added.slice(start, start + INSERT_CHUNK_ROWS).map(({ ra, dec, ...target }) => ({
+      const chunk = added.slice(start, start + INSERT_CHUNK_ROWS);
+      const derived = deriveMany(chunk.map(({ ra, dec, ...target }) => ({ ...target, raDeg: ra, decDeg: dec })), settings);
+      const values = chunk.map(({ ra, dec, ...target }, index) => ({
         ...target,
         raDeg: ra,
         decDeg: dec,
-        ...deriveTargetColumns(target, instrument),
+        ...derived[index],
         proposalId,
         createdBy: who.userId,
       }));
       await tx.insert(targets).values(values);
     }
-    for (const row of plan.rows) {
-      if (row.action.kind !== "update") continue;
-      const { ra, dec, ...patch } = row.action.patch;
-      const merged = mergedHypothesis(byId.get(row.action.targetId)!, row.action.patch);
+    const updates = plan.rows.flatMap((row) => (row.action.kind === "update" ? [row.action] : []));
+    const updatedDerived = deriveMany(
+      updates.map(({ targetId, patch }) => {
+        const { ra, dec, ...merged } = mergedHypothesis(byId.get(targetId)!, patch);
+        return { ...merged, raDeg: ra ?? merged.raDeg, decDeg: dec ?? merged.decDeg };
+      }),
+      settings,
+    );
+    for (const [index, { targetId, patch }] of updates.entries()) {
+      const { ra, dec, ...fields } = patch;
       await tx
         .update(targets)
         .set({
-          ...patch,
+          ...fields,
           ...(ra !== undefined ? { raDeg: ra } : {}),
           ...(dec !== undefined ? { decDeg: dec } : {}),
-          ...deriveTargetColumns(merged, instrument),
+          ...updatedDerived[index],
           updatedAt: new Date(),
         })
-        .where(eq(targets.id, row.action.targetId));
+        .where(eq(targets.id, targetId));
     }
     const { added: addedCount, updated, skipped } = plan.counts;
     const [record] = await tx

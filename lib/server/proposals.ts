@@ -15,7 +15,7 @@ import { permissionsFor, type Permissions, type ProposalRole } from "@/lib/works
 import { authorize, loadAccess, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { changesLensingScales, instrumentOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
+import { changesDerivation, feasibilitySettingsOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
@@ -133,9 +133,9 @@ function requireConsistentSettings(fields: FieldErrors): void {
 }
 
 /**
- * PI only. The cross-field checks run on the proposal as it will be stored; changing the lensing
- * scales re-grades every target in the same transaction (the shadow and dark-hours verdicts are
- * graded on read from the stored λ, B, cycle and site, so they follow at once).
+ * PI only. The cross-field checks run on the proposal as it will be stored; changing the instrument,
+ * the site or the cycle re-grades every target in the same transaction (their schedules and science
+ * cases' answers depend on all three).
  */
 export async function updateProposal(params: unknown, input: unknown, actor: Actor | null): Promise<ProposalDetail> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
@@ -156,7 +156,7 @@ export async function updateProposal(params: unknown, input: unknown, actor: Act
       .set({ ...columnsOf(data), updatedAt: new Date() })
       .where(eq(proposals.id, proposalId))
       .returning();
-    if (data.instrument && changesLensingScales(current.instrument, data.instrument)) await rederiveTargets(tx, proposalId, instrumentOf(proposal));
+    if (changesDerivation(feasibilitySettingsOf(access.proposal), feasibilitySettingsOf(proposal))) await rederiveTargets(tx, proposal);
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "proposal.updated", subject: proposal.title });
     return detailOf(proposal, access);
   });

@@ -4,7 +4,8 @@ import { dbClient } from "@/db/client";
 import { proposals, targets, type Target } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { formatDeclination, formatRightAscension } from "@/lib/workspace/coordinates";
-import { deriveTargetColumns, type DerivedColumns } from "@/lib/workspace/derived";
+import type { DerivedColumns } from "@/lib/workspace/derived";
+import type { CaseAnswer } from "@/lib/lensing/science-cases";
 import { proposalParamsSchema, targetParamsSchema } from "@/lib/workspace/ids";
 import { canChangeStatus } from "@/lib/workspace/status";
 import { targetListQuerySchema, type TargetSortColumn } from "@/lib/workspace/target-query";
@@ -18,13 +19,13 @@ import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { forgetTargetFiles } from "@/lib/server/attachments";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { instrumentOf } from "@/lib/server/derived-columns";
+import { deriveOne, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
 
 /** A target as the API and the pages see it. */
-export interface TargetView extends LensHypothesis, DerivedColumns {
+export interface TargetView extends LensHypothesis, Omit<DerivedColumns, "derivationVersion"> {
   id: string;
   proposalId: string;
   name: string;
@@ -63,6 +64,11 @@ export function targetViewOf(t: Target): TargetView {
     sourceRedshift: t.sourceRedshift,
     sourceOffsetThetaE: t.sourceOffsetThetaE,
     properMotionMasPerYr: t.properMotionMasPerYr,
+    scienceCase: t.scienceCase,
+    eventPeakJdUtc: t.eventPeakJdUtc,
+    sourceRadiusSolar: t.sourceRadiusSolar,
+    sourceRadiusThetaE: t.sourceRadiusThetaE,
+    limbDarkeningU: t.limbDarkeningU,
     priority: t.priority,
     status: t.status,
     tags: t.tags,
@@ -72,9 +78,9 @@ export function targetViewOf(t: Target): TargetView {
     timeDelayDays: t.timeDelayDays,
     crossingTimeDays: t.crossingTimeDays,
     shadowDiameterMicroarcsec: t.shadowDiameterMicroarcsec,
-    resolutionVerdict: t.resolutionVerdict,
-    cadenceVerdict: t.cadenceVerdict,
-    campaignVerdict: t.campaignVerdict,
+    answeredCase: t.answeredCase,
+    caseVerdict: t.caseVerdict,
+    caseAnswers: t.caseAnswers as CaseAnswer[],
     updatedAt: t.updatedAt.toISOString(),
   };
 }
@@ -90,6 +96,7 @@ const sortableColumns = {
   magnificationTotal: targets.magnificationTotal,
   timeDelayDays: targets.timeDelayDays,
   crossingTimeDays: targets.crossingTimeDays,
+  caseVerdict: targets.caseVerdict,
   updatedAt: targets.updatedAt,
 } satisfies Record<TargetSortColumn, unknown>;
 
@@ -108,7 +115,8 @@ export async function listTargets(params: unknown, query: unknown, actor: Actor 
     q.status ? eq(targets.status, q.status) : undefined,
     q.lensModel ? eq(targets.lensModel, q.lensModel) : undefined,
     q.tag ? arrayContains(targets.tags, [q.tag]) : undefined,
-    q.resolutionVerdict ? eq(targets.resolutionVerdict, q.resolutionVerdict) : undefined,
+    q.caseVerdict ? eq(targets.caseVerdict, q.caseVerdict) : undefined,
+    q.answeredCase ? eq(targets.answeredCase, q.answeredCase) : undefined,
   ];
   const where = and(...filters);
   const column = sortableColumns[q.sort];
@@ -139,7 +147,7 @@ function requireCompleteHypothesis(h: LensHypothesis): void {
   if (Object.keys(fields).length > 0) throw new AppError("bad_request:target", summaryOf(fields), fields);
 }
 
-/** Co-I or PI. The derived columns are computed from the new target and the proposal's instrument. */
+/** Co-I or PI. The derived columns are computed from the new target and the proposal's instrument, site and cycle. */
 export async function createTarget(params: unknown, input: unknown, actor: Actor | null): Promise<TargetView> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
   const who = requireActor(actor);
@@ -147,7 +155,7 @@ export async function createTarget(params: unknown, input: unknown, actor: Actor
   requireCompleteHypothesis(data);
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "edit", "target");
-    const derived = deriveTargetColumns(data, instrumentOf(access.proposal));
+    const derived = deriveOne({ ...data, raDeg: ra, decDeg: dec }, feasibilitySettingsOf(access.proposal));
     const [target] = await tx
       .insert(targets)
       .values({ ...data, raDeg: ra, decDeg: dec, ...derived, proposalId, createdBy: who.userId })
@@ -179,7 +187,7 @@ export async function updateTarget(params: unknown, input: unknown, actor: Actor
     }
     const merged = { ...current, ...patch };
     requireCompleteHypothesis(merged);
-    const derived = deriveTargetColumns(merged, instrumentOf(access.proposal));
+    const derived = deriveOne({ ...merged, raDeg: ra ?? current.raDeg, decDeg: dec ?? current.decDeg }, feasibilitySettingsOf(access.proposal));
     const [target] = await tx
       .update(targets)
       .set({

@@ -1,22 +1,27 @@
-import { angularDiameterDistance, angularDiameterDistanceBetween, DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics";
+import { angularDiameterDistance, angularDiameterDistanceBetween, DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics";
 import type { LensGeometry } from "@/lib/lensing/lens-model";
+import { sourceRadiusInThetaE } from "@/lib/lensing/microlensing";
 import { solveLens } from "@/lib/lensing/registry";
-import { seasonWindows, type SeasonWindows } from "@/lib/astro/season";
-import { cycleNightCount, skySiteOf, type InstrumentDefaults, type ProposalInput } from "@/lib/workspace/proposal-schema";
-import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
+import { caseVerdictOf, type Verdict } from "@/lib/lensing/feasibility-rules";
 import {
-  campaignCoverage,
-  feasibilityReport,
-  gradeRatio,
-  largestFeatureMas,
-  samplesPerTimescale,
-  timescaleDays,
-  verdictThresholds,
-  type CycleDarkHours,
-  type FeasibilityColumns,
-  type FeasibilityItem,
-  type Verdict,
-} from "@/lib/workspace/verdicts";
+  defaultScienceCase,
+  scienceCaseQuestions,
+  type CaseAnswer,
+  type EventTiming,
+  type InstrumentSettings as CaseInstrument,
+  type ScienceCaseId,
+} from "@/lib/lensing/science-cases";
+import type { LensSolution } from "@/lib/lensing/solution";
+import { observingSchedules, type ObservingSchedule, type ScheduleConditions } from "@/lib/schedule";
+import { skySiteOf, type ProposalInput } from "@/lib/workspace/proposal-schema";
+import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
+
+/**
+ * The version of the rules the stored derived columns were computed with. Raise it with every change
+ * of a lensing formula, a feasibility rule or the schedule: startup re-derives every older row, so no
+ * stored verdict is ever stale.
+ */
+export const DERIVATION_VERSION = 1;
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -26,10 +31,16 @@ export interface DerivedColumns {
   timeDelayDays: number | null;
   crossingTimeDays: number | null;
   shadowDiameterMicroarcsec: number | null;
-  resolutionVerdict: Verdict;
-  cadenceVerdict: Verdict;
-  campaignVerdict: Verdict;
+  /** The case the answers are for (chosen, else inferred); null when the hypothesis cannot be solved. */
+  answeredCase: ScienceCaseId | null;
+  /** The worst of the answers' verdicts ("unknown" when none is known). */
+  caseVerdict: Verdict;
+  caseAnswers: CaseAnswer[];
+  derivationVersion: number;
 }
+
+/** What the derivation needs of a proposal: its instrument, site and cycle. */
+export type FeasibilitySettings = Pick<ProposalInput, "site" | "instrument" | "cycleStartDate" | "cycleEndDate">;
 
 /**
  * Distances from what the target gives: Galactic distances (then D_LS = D_S − D_L and z_L = 0, where
@@ -54,86 +65,125 @@ function geometryOf(h: LensHypothesis): LensGeometry | null {
 const perDay = (seconds: number | null) => (seconds === null ? null : seconds / DAY_S);
 
 /**
- * The stored verdicts against the instrument defaults (thresholds and spans in `verdicts.ts`):
- * - resolution: the largest angular feature (image separation, or a compact lens's shadow) over the
- *   resolution;
- * - cadence: samples per variability timescale (Einstein crossing time for a point lens, the image
- *   time delay for an isothermal galaxy);
- * - campaign: campaign length over the span to cover (2 t_E for an event's rise and fall, 1.5 × the
- *   delay to see a feature in both images).
+ * The lens model's solution of a target's hypothesis (`lib/lensing/registry.ts`); null for an
+ * incomplete hypothesis, or one outside the accepted ranges (a row stored before a range was
+ * narrowed): no value reaches a physics function outside its domain.
  */
-function verdictsFor(
-  columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict">,
-  lensModel: LensHypothesis["lensModel"],
-  instrument: InstrumentDefaults,
-) {
-  const feature = largestFeatureMas(columns);
-  const timescale = timescaleDays({ ...columns, lensModel });
-  const { resolution, sampling, campaign } = verdictThresholds;
+export function lensSolutionOf(h: LensHypothesis): { solution: LensSolution; geometry: LensGeometry } | null {
+  const isComputable = lensHypothesisSchema.safeParse(h).success && Object.keys(lensHypothesisErrors(h)).length === 0;
+  const geometry = isComputable ? geometryOf(h) : null;
+  if (geometry === null) return null;
+  const properMotionRadPerS = h.properMotionMasPerYr == null ? null : (h.properMotionMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S;
+  const solution = solveLens(h.lensModel, h, geometry, h.sourceOffsetThetaE, properMotionRadPerS);
+  return solution === null ? null : { solution, geometry };
+}
+
+/** The proposal's instrument as the science cases compare with it. */
+export function caseInstrumentOf(instrument: FeasibilitySettings["instrument"]): CaseInstrument {
+  const { interferometerWavelengthMm: wavelengthMm, interferometerBaselineKm: longestBaselineKm } = instrument;
   return {
-    resolutionVerdict: gradeRatio(feature === null ? null : feature / instrument.resolutionMas, resolution.feasibleAt, resolution.marginalAt),
-    cadenceVerdict: gradeRatio(samplesPerTimescale(timescale, instrument.cadenceHours), sampling.feasibleAt, sampling.marginalAt),
-    campaignVerdict: gradeRatio(campaignCoverage(lensModel, timescale, instrument.campaignLengthDays), campaign.feasibleAt, campaign.marginalAt),
+    psfFwhmMas: instrument.resolutionMas,
+    interferometer: wavelengthMm != null && longestBaselineKm != null ? { wavelengthMm, longestBaselineKm } : null,
+    astrometricPrecisionMas: instrument.astrometricPrecisionMas ?? null,
+    reachableContrast: instrument.reachableContrast ?? null,
   };
 }
 
-/**
- * Computes a target's derived columns from its lens hypothesis and the proposal's instrument
- * defaults. Every lensing quantity is the lens model's solution (`lib/lensing/registry.ts`); this
- * function only chooses the distances and converts units.
- * An incomplete hypothesis, or one outside the accepted ranges (a row stored before a range was
- * narrowed), yields nulls and "unknown" verdicts rather than an error: no value reaches a physics
- * function outside its domain.
- */
-export function deriveTargetColumns(h: LensHypothesis, instrument: InstrumentDefaults): DerivedColumns {
-  const isComputable = lensHypothesisSchema.safeParse(h).success && Object.keys(lensHypothesisErrors(h)).length === 0;
-  const geometry = isComputable ? geometryOf(h) : null;
-  const properMotionRadPerS = h.properMotionMasPerYr == null ? null : (h.properMotionMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S;
-  const solution = geometry === null ? null : solveLens(h.lensModel, h, geometry, h.sourceOffsetThetaE, properMotionRadPerS);
-  const columns: Omit<DerivedColumns, "resolutionVerdict" | "cadenceVerdict" | "campaignVerdict"> =
-    solution === null
-      ? { einsteinRadiusMas: null, imageSeparationMas: null, magnificationTotal: null, timeDelayDays: null, crossingTimeDays: null, shadowDiameterMicroarcsec: null }
-      : {
-          einsteinRadiusMas: solution.einsteinRadiusRad / MILLIARCSECOND_RAD,
-          imageSeparationMas: solution.imageSeparationRad === null ? null : solution.imageSeparationRad / MILLIARCSECOND_RAD,
-          magnificationTotal: solution.magnificationTotal,
-          timeDelayDays: perDay(solution.timeDelayS),
-          crossingTimeDays: perDay(solution.einsteinTimeS),
-          shadowDiameterMicroarcsec: solution.shadowDiameterRad === null ? null : solution.shadowDiameterRad / MICROARCSECOND_RAD,
-        };
-  return { ...columns, ...verdictsFor(columns, h.lensModel, instrument) };
+/** The event's timing and source: ρ typed, else from the source's radius and distance (ρ = R_star / (D_S θ_E)). */
+export function eventTimingOf(h: LensHypothesis, solution: LensSolution, geometry: LensGeometry): EventTiming {
+  const rho =
+    h.sourceRadiusThetaE ?? (h.sourceRadiusSolar == null ? null : sourceRadiusInThetaE(h.sourceRadiusSolar * SOLAR_RADIUS_M, geometry.dSourcePc, solution.einsteinRadiusRad));
+  return { peakJdUtc: h.eventPeakJdUtc ?? null, impactParameterThetaE: h.sourceOffsetThetaE, sourceRadiusThetaE: rho, limbDarkeningU: h.limbDarkeningU ?? 0 };
 }
 
-/** What the feasibility report needs of a proposal: its scales, λ and B, site and cycle. */
-export type FeasibilitySettings = Pick<ProposalInput, "site" | "instrument" | "cycleStartDate" | "cycleEndDate">;
-
-/**
- * Usable dark hours of one target (ICRS degrees) over the proposal's cycle from its site under its
- * airmass limit (`seasonWindows`: astronomical darkness, above the limit, nights closer to the Sun
- * than the safe elongation counted as 0 h). Null when the cycle dates are not set. ~60 ms for 183 nights.
- */
-export function cycleDarkHours(settings: FeasibilitySettings, target: { raDeg: number; decDeg: number }): CycleDarkHours | null {
-  const { cycleStartDate: start, cycleEndDate: end } = settings;
-  if (start === null || end === null) return null;
-  const season = seasonWindows({
+/** The schedule's conditions from the proposal; null until it has cycle dates. */
+export function scheduleConditionsOf(settings: FeasibilitySettings): ScheduleConditions | null {
+  const { cycleStartDate, cycleEndDate, instrument } = settings;
+  if (cycleStartDate === null || cycleEndDate === null) return null;
+  return {
     site: skySiteOf(settings.site),
-    targets: [{ raDeg: target.raDeg, decDeg: target.decDeg }],
-    startNightIso: start,
-    nightCount: cycleNightCount(start, end),
-    limits: { airmassLimit: settings.instrument.airmassLimit },
+    cycleStartNightIso: cycleStartDate,
+    cycleEndNightIso: cycleEndDate,
+    limits: { airmassLimit: instrument.airmassLimit },
+    moon: { minSeparationDeg: instrument.moonMinSeparationDeg ?? null, maxIlluminatedFraction: instrument.moonMaxIllumination ?? null },
+    cadenceHours: instrument.cadenceHours,
+    visitMinutes: instrument.visitMinutes,
+    clearNightFraction: instrument.clearNightFraction,
+  };
+}
+
+/** The simulated schedules of many targets under one proposal (one shared night grid); nulls without cycle dates. */
+export function targetSchedules(settings: FeasibilitySettings, targets: readonly { raDeg: number; decDeg: number }[]): (ObservingSchedule | null)[] {
+  const conditions = scheduleConditionsOf(settings);
+  if (conditions === null || targets.length === 0) return targets.map(() => null);
+  return observingSchedules({ ...conditions, targets: targets.map(({ raDeg, decDeg }) => ({ raDeg, decDeg })) });
+}
+
+/** The science case a target is graded in: the team's choice, else the inferred one with its reason. */
+export interface TargetCase {
+  caseId: ScienceCaseId;
+  isChosen: boolean;
+  /** Why the case was inferred; null when the team chose it. */
+  reason: string | null;
+}
+
+/** A target's case and its answered questions. */
+export interface TargetCaseReport {
+  solution: LensSolution;
+  scienceCase: TargetCase;
+  answers: CaseAnswer[];
+}
+
+/** The case and answers of a solvable hypothesis under the proposal's settings and the target's schedule. */
+export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null): TargetCaseReport | null {
+  const solved = lensSolutionOf(h);
+  if (solved === null) return null;
+  const { solution, geometry } = solved;
+  const instrument = caseInstrumentOf(settings.instrument);
+  const inferred = h.scienceCase == null ? defaultScienceCase(solution, instrument) : null;
+  const scienceCase: TargetCase = inferred === null ? { caseId: h.scienceCase!, isChosen: true, reason: null } : { caseId: inferred.caseId, isChosen: false, reason: inferred.reason };
+  const answers = scienceCaseQuestions(scienceCase.caseId, {
+    solution,
+    event: eventTimingOf(h, solution, geometry),
+    instrument,
+    schedule,
+    campaign: { lengthDays: settings.instrument.campaignLengthDays, cadenceHours: settings.instrument.cadenceHours },
   });
-  return darkHoursOfSeason(season, 0);
+  return { solution, scienceCase, answers };
 }
 
-/** The dark-hours figures of target `index` of a computed season. */
-export function darkHoursOfSeason(season: SeasonWindows, index: number): CycleDarkHours {
-  const t = season.targets[index];
-  let sunNightCount = 0;
-  for (const flag of t.tooCloseToSunPerNight) sunNightCount += flag;
-  return { totalHoursDark: t.totalHoursDark, nightCount: season.nightDatesIso.length, sunNightCount };
-}
-
-/** A target's five feasibility verdicts against its proposal (`feasibilityReport`), dark hours computed here. */
-export function targetFeasibility(target: FeasibilityColumns & { raDeg: number; decDeg: number }, settings: FeasibilitySettings): FeasibilityItem[] {
-  return feasibilityReport(target, settings.instrument, cycleDarkHours(settings, target));
+/**
+ * A target's stored derived columns: the lens model's solution in table units, and its science
+ * case's answers from the proposal's settings and the target's simulated schedule (null when the
+ * proposal has no cycle dates; the sampling questions then say so).
+ */
+export function deriveTargetColumns(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null): DerivedColumns {
+  const report = targetCaseReport(h, settings, schedule);
+  if (report === null) {
+    return {
+      einsteinRadiusMas: null,
+      imageSeparationMas: null,
+      magnificationTotal: null,
+      timeDelayDays: null,
+      crossingTimeDays: null,
+      shadowDiameterMicroarcsec: null,
+      answeredCase: null,
+      caseVerdict: "unknown",
+      caseAnswers: [],
+      derivationVersion: DERIVATION_VERSION,
+    };
+  }
+  const { solution, answers } = report;
+  return {
+    einsteinRadiusMas: solution.einsteinRadiusRad / MILLIARCSECOND_RAD,
+    imageSeparationMas: solution.imageSeparationRad === null ? null : solution.imageSeparationRad / MILLIARCSECOND_RAD,
+    magnificationTotal: solution.magnificationTotal,
+    timeDelayDays: perDay(solution.timeDelayS),
+    crossingTimeDays: perDay(solution.einsteinTimeS),
+    shadowDiameterMicroarcsec: solution.shadowDiameterRad === null ? null : solution.shadowDiameterRad / MICROARCSECOND_RAD,
+    answeredCase: report.scienceCase.caseId,
+    caseVerdict: caseVerdictOf(answers.map((answer) => answer.verdict)),
+    caseAnswers: answers,
+    derivationVersion: DERIVATION_VERSION,
+  };
 }

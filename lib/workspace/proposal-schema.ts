@@ -103,6 +103,57 @@ export const proposalQuantities = {
     range: { min: 1e-3, max: 1e6 },
     rangeMessage: "The longest baseline is from 0.001 km (1 m) to 1\u202f000\u202f000 km.",
   },
+  // The observing constraints of the simulated schedule (lib/schedule). Defaults: 30° from the Moon
+  // and 20 min per visit are common practice for broad-band imaging; a clear-night fraction of 1
+  // counts every night as clear until the team sets its site's statistics.
+  moonMinSeparationDeg: {
+    label: "Minimum Moon separation",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "30 deg",
+    range: { min: 0.1, max: 180 },
+    rangeMessage: "The minimum Moon separation is from 0.1° to 180°; leave it empty for no Moon constraint.",
+  },
+  moonMaxIllumination: {
+    label: "Largest Moon illumination",
+    kind: "number",
+    example: "0.5",
+    range: { min: 0, max: 1 },
+    rangeMessage: "The largest Moon illumination is a fraction from 0 (new Moon only) to 1 (any Moon).",
+  },
+  visitMinutes: {
+    label: "Time per visit",
+    kind: "time",
+    unit: "min",
+    unitWords: "min",
+    example: "20 min",
+    range: { min: 0.1, max: 720 },
+    rangeMessage: "The time per visit is from 0.1 min (6 s) to 720 min (12 h).",
+  },
+  clearNightFraction: {
+    label: "Clear-night fraction",
+    kind: "number",
+    example: "0.7",
+    range: { min: 0.01, max: 1 },
+    rangeMessage: "The clear-night fraction is from 0.01 to 1 (every night clear).",
+  },
+  astrometricPrecisionMas: {
+    label: "Astrometric precision per epoch",
+    kind: "angle",
+    unit: "mas",
+    unitWords: "mas",
+    example: "0.1 mas or 100 uas",
+    range: { min: 1e-4, max: 1e4 },
+    rangeMessage: "The astrometric precision per epoch is from 0.0001 mas (0.1 µas) to 10\u202f000 mas.",
+  },
+  reachableContrast: {
+    label: "Reachable contrast",
+    kind: "number",
+    example: "100 (a contrast of 5 mag)",
+    range: { min: 1, max: 1e10 },
+    rangeMessage: "The reachable contrast is a flux ratio from 1 to 10\u00b9\u2070 (25 mag).",
+  },
 } as const satisfies Record<string, QuantitySpec>;
 
 /** The observing site: where the telescope stands and how low it can point. */
@@ -128,13 +179,22 @@ const lensingInstrumentSchema = z.object(
 );
 
 /**
- * All instrument defaults: the lensing scales, the airmass limit of the sky windows and, for a
- * shadow-imaging proposal, the interferometer's wavelength and longest baseline (both or neither).
+ * All instrument defaults: the lensing scales, the airmass limit of the sky windows, for a
+ * shadow-imaging proposal the interferometer's wavelength and longest baseline (both or neither),
+ * the observing constraints of the simulated schedule (Moon, time per visit, clear nights) and the
+ * astrometric precision per epoch of an astrometric-microlensing proposal and the contrast (largest
+ * flux ratio of two images) the instrument reaches.
  */
 export const instrumentSchema = lensingInstrumentSchema.extend({
   airmassLimit: quantityField(proposalQuantities.airmassLimit).default(2),
   interferometerWavelengthMm: quantityField(proposalQuantities.interferometerWavelengthMm).nullable().default(null),
   interferometerBaselineKm: quantityField(proposalQuantities.interferometerBaselineKm).nullable().default(null),
+  moonMinSeparationDeg: quantityField(proposalQuantities.moonMinSeparationDeg).nullable().default(30),
+  moonMaxIllumination: quantityField(proposalQuantities.moonMaxIllumination).nullable().default(null),
+  visitMinutes: quantityField(proposalQuantities.visitMinutes).default(20),
+  clearNightFraction: quantityField(proposalQuantities.clearNightFraction).default(1),
+  astrometricPrecisionMas: quantityField(proposalQuantities.astrometricPrecisionMas).nullable().default(null),
+  reachableContrast: quantityField(proposalQuantities.reachableContrast).nullable().default(null),
 });
 
 const cycleDateSchema = nightDateSchema.nullable();

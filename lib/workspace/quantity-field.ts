@@ -6,7 +6,7 @@
  * server its field error, so the two cannot disagree.
  */
 import { z } from "zod";
-import { ARCSECOND_RAD, DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import { ARCSECOND_RAD, DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
 import { boundText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import {
   MAX_QUANTITY_CHARS,
@@ -51,10 +51,12 @@ const toStored: Record<string, (parsed: number) => number> = {
   mas: (rad) => rad / MILLIARCSECOND_RAD,
   arcsec: (rad) => rad / ARCSECOND_RAD,
   deg: (rad) => (rad * 180) / Math.PI,
+  min: (s) => s / 60,
   h: (s) => s / 3600,
   d: (s) => s / DAY_S,
   mm: (m) => m * 1000,
   km: (m) => m / 1000,
+  Rsun: (m) => m / SOLAR_RADIUS_M,
 };
 
 // A value typed with a unit is rounded to 15 significant digits: a unit conversion (a product of

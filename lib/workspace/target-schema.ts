@@ -4,6 +4,8 @@ import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightA
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
 import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
+import { EventPeakError, parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
+import { scienceCaseIds, scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { optionalQuantityField, quantityField, rangeMessage, type QuantitySpec } from "@/lib/workspace/quantity-field";
 import { isothermalSphereModel } from "@/lib/lensing/models/isothermal-sphere";
 import { pointMassModel } from "@/lib/lensing/models/point-mass";
@@ -28,6 +30,17 @@ function coordinate(label: string, parse: (input: string | number) => number) {
     }
   });
 }
+
+/** The event's peak time t0 as typed (a UTC date or a Julian date) or a Julian date (UTC) from the API. */
+const eventPeakField = z.union([z.string(), z.number()], { error: "The event peak is a date such as 2027-06-15 04:30 UTC, or a Julian date." }).transform((input, ctx) => {
+  try {
+    return parseEventPeakJdUtc(input);
+  } catch (error) {
+    if (!(error instanceof EventPeakError)) throw error;
+    ctx.addIssue({ code: "custom", message: error.message });
+    return z.NEVER;
+  }
+});
 
 const targetRange = (what: string, range: AcceptedRange, unitWords: string, why: string) => ({ range, rangeMessage: rangeMessage(what, range, unitWords, why) });
 
@@ -87,6 +100,32 @@ export const targetQuantities = {
     example: "5 mas/yr",
     ...targetRange("The relative proper motion", acceptedRanges.properMotionMasPerYr, "mas/yr", "a nanoarcsecond a year to faster than the Sun crosses the sky"),
   },
+  // The source's size for the finite-source magnification: its radius (with the source distance,
+  // ρ = (R*/D_S)/θ_E) or ρ typed directly, within the range the finite-source integral is checked
+  // over (lib/lensing/finite-source.ts); a linear limb-darkening coefficient 0 (uniform) to 1.
+  sourceRadiusSolar: {
+    label: "Source radius",
+    kind: "length",
+    unit: "Rsun",
+    unitWords: "R☉",
+    example: "1.2 Rsun",
+    range: { min: 0.01, max: 2000 },
+    rangeMessage: "The source radius is from 0.01 R☉ (a white dwarf) to 2000 R☉ (a red supergiant).",
+  },
+  sourceRadiusThetaE: {
+    label: "Source radius ρ",
+    kind: "number",
+    example: "0.002",
+    range: { min: 1e-4, max: 10 },
+    rangeMessage: "The source radius ρ is from 0.0001 to 10 Einstein radii.",
+  },
+  limbDarkeningU: {
+    label: "Limb darkening",
+    kind: "number",
+    example: "0.6",
+    range: { min: 0, max: 1 },
+    rangeMessage: "The linear limb-darkening coefficient is from 0 (a uniform disk) to 1.",
+  },
   priority: {
     label: "Priority",
     kind: "number",
@@ -130,6 +169,11 @@ export const targetFieldsSchema = z.object({
   sourceRedshift: optionalQuantityField(targetQuantities.sourceRedshift),
   sourceOffsetThetaE: quantityField(targetQuantities.sourceOffsetThetaE),
   properMotionMasPerYr: optionalQuantityField(targetQuantities.properMotionMasPerYr),
+  scienceCase: z.enum(scienceCaseIds, { error: `The science case is one of ${scienceCaseIds.map((id) => scienceCaseLabels[id].toLowerCase()).join(", ")}; leave it empty to use the inferred one.` }).nullable().optional(),
+  eventPeakJdUtc: eventPeakField.nullable().optional(),
+  sourceRadiusSolar: optionalQuantityField(targetQuantities.sourceRadiusSolar),
+  sourceRadiusThetaE: optionalQuantityField(targetQuantities.sourceRadiusThetaE),
+  limbDarkeningU: optionalQuantityField(targetQuantities.limbDarkeningU),
   priority: quantityField(targetQuantities.priority),
   status: z.enum(targetStatuses, { error: `The status is one of ${targetStatuses.join(", ")}.` }),
   tags: z.array(tagSchema, { error: "Tags are a list of words." }).max(12, "At most 12 tags."),
@@ -156,6 +200,11 @@ export const lensHypothesisSchema = targetFieldsSchema.pick({
   sourceRedshift: true,
   sourceOffsetThetaE: true,
   properMotionMasPerYr: true,
+  scienceCase: true,
+  eventPeakJdUtc: true,
+  sourceRadiusSolar: true,
+  sourceRadiusThetaE: true,
+  limbDarkeningU: true,
 });
 
 /** The part of a target that its derived columns are computed from. */
@@ -170,6 +219,11 @@ export type LensHypothesis = Pick<
   | "sourceRedshift"
   | "sourceOffsetThetaE"
   | "properMotionMasPerYr"
+  | "scienceCase"
+  | "eventPeakJdUtc"
+  | "sourceRadiusSolar"
+  | "sourceRadiusThetaE"
+  | "limbDarkeningU"
 >;
 
 const present = (value: number | null | undefined): value is number => value !== null && value !== undefined;
@@ -183,6 +237,7 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
   const fields: FieldErrors = {};
   const add = (field: string, message: string) => (fields[field] ??= []).push(message);
   for (const parameter of lensModelOf(h.lensModel).parameters) if (!present(h[parameter.key])) add(parameter.key, parameter.missingMessage);
+  if (present(h.sourceRadiusSolar) && present(h.sourceRadiusThetaE)) add("sourceRadiusThetaE", "Give the source's radius or ρ, not both.");
   const hasDistances = present(h.lensDistancePc) || present(h.sourceDistancePc);
   const hasRedshifts = present(h.lensRedshift) || present(h.sourceRedshift);
   if (hasDistances && hasRedshifts) {

@@ -6,8 +6,8 @@ import { writeFileSync } from "node:fs";
 import { dbClient } from "@/db/client";
 import { noteRevisions, notes, proposalMembers, proposals, targets, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
-import { deriveTargetColumns } from "@/lib/workspace/derived";
 import { createTargetSchema } from "@/lib/workspace/target-schema";
+import { rederiveTargets } from "@/lib/server/derived-columns";
 import { loadMembers, loadNotes, loadProposal, loadTargets } from "./load-scenario";
 
 /** What run.mjs reads back. */
@@ -49,10 +49,10 @@ try {
         ...loadProposal.instrument,
         createdBy: piId,
       })
-      .returning({ id: proposals.id });
+      .returning();
     await tx.insert(proposalMembers).values(loadMembers.map((m, i) => ({ proposalId: proposal.id, userId: userIds[i], role: m.role })));
 
-    // Each target goes through the API's own create schema and derived-column code, as an added one would.
+    // Each target goes through the API's own create schema, as an added one would.
     const rows = loadTargets().map(({ input, status }, i) => {
       const { ra, dec, ...data } = createTargetSchema.parse(input);
       const hypothesis = {
@@ -65,14 +65,15 @@ try {
         sourceRedshift: data.sourceRedshift ?? null,
         properMotionMasPerYr: data.properMotionMasPerYr ?? null,
       };
-      const derived = deriveTargetColumns(hypothesis, loadProposal.instrument);
-      return { ...hypothesis, ...derived, status, raDeg: ra, decDeg: dec, proposalId: proposal.id, createdBy: userIds[i % userIds.length] };
+      return { ...hypothesis, status, raDeg: ra, decDeg: dec, proposalId: proposal.id, createdBy: userIds[i % userIds.length] };
     });
     const targetIds: string[] = [];
     for (let start = 0; start < rows.length; start += insertChunkRows) {
       const inserted = await tx.insert(targets).values(rows.slice(start, start + insertChunkRows)).returning({ id: targets.id });
       targetIds.push(...inserted.map((t) => t.id));
     }
+    // The derived columns by the same code as every stored target (one shared schedule computation).
+    await rederiveTargets(tx, proposal);
 
     for (const [i, body] of loadNotes.entries()) {
       const [note] = await tx.insert(notes).values({ targetId: targetIds[i], body, authorId: piId, updatedBy: piId }).returning({ id: notes.id });

@@ -2,7 +2,6 @@ import { afterAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { dbClient } from "@/db/client";
 import { proposals, targets } from "@/db/schema";
-import { targetFeasibility } from "@/lib/workspace/derived";
 import { proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { getProposal, getProposalSky, updateProposal } from "@/lib/server/proposals";
 import { createTarget, getTarget } from "@/lib/server/targets";
@@ -75,31 +74,31 @@ describe("proposal settings", () => {
     expect(updated.abstract).toBe(proposalInput.abstract);
   });
 
-  it("re-grades targets on an update, including the shadow and dark-hours verdicts", async () => {
+  it("re-grades targets on an update: the case, the shadow against λ/B and the schedule's visits", async () => {
     const world = await createWorld();
     const ids = { proposalId: world.proposalId };
-    const created = await createTarget(ids, compactTarget, world.actors.pi);
-    const verdictsNow = async (targetId = created.id) => {
-      const [proposal, target] = await Promise.all([getProposal(ids, world.actors.coi), getTarget({ ...ids, targetId }, world.actors.coi)]);
-      return Object.fromEntries(targetFeasibility(target, proposal).map((item) => [item.id, item]));
+    // The team chose horizon-scale imaging for the compact object.
+    const created = await createTarget(ids, { ...compactTarget, scienceCase: "horizon-scale" }, world.actors.pi);
+    const answersNow = async (targetId = created.id) => {
+      const target = await getTarget({ ...ids, targetId }, world.actors.coi);
+      return { scienceCase: target.answeredCase, byId: Object.fromEntries(target.caseAnswers.map((answer) => [answer.id, answer])) };
     };
-    const before = await verdictsNow();
-    expect(before.shadow.verdict).toBe("unknown");
-    expect(before.shadow.figure).toMatch(/set the interferometer/);
-    expect(before["dark-hours"].verdict).toBe("unknown");
-    // The world's microlens: separation 2.02 θE ≈ 1.29 mas against 60 mas.
-    expect((await verdictsNow(world.targetId)).images.verdict).toBe("infeasible");
+    const before = await answersNow();
+    // Without an interferometer the shadow cannot be graded: the answer says which inputs to set.
+    expect(before.scienceCase).toBe("horizon-scale");
+    expect(before.byId.shadow).toMatchObject({ verdict: "unknown", sentence: expect.stringMatching(/wavelength/) });
+    // The world's microlens: separation 2.02 θE ≈ 1.29 mas against 60 mas, unresolved: a photometric event too.
+    expect((await answersNow(world.targetId)).scienceCase).toBe("photometric-microlensing");
 
     await updateProposal(ids, { ...cycle, instrument: { ...proposalInput.instrument, resolutionMas: 0.02, ...interferometer } }, world.actors.pi);
-    const after = await verdictsNow();
-    // λ/B = 1.3 mm / 10,700 km = 1.215e-10 rad = 25.06 µas; 51.3 µas / 25.06 µas ≈ 2.05 → feasible.
-    expect(after.shadow.verdict).toBe("feasible");
-    expect(after.shadow.figure).toMatch(/= 2\.0\d × λ\/B \(25\.1 µas\)/);
-    // The Galactic Centre culminates at 85° at 24.6° S and is dark-sky observable from March to August.
-    expect(after["dark-hours"].verdict).toBe("feasible");
-    expect(after["dark-hours"].figure).toMatch(/ h over 183 nights/);
-    // The lensing scales re-graded in SQL: 1.29 mas against 0.02 mas now resolves.
-    expect((await verdictsNow(world.targetId)).images.verdict).toBe("feasible");
+    const after = await answersNow();
+    // λ/B = 1.3 mm / 10,700 km = 1.215e-10 rad = 25.06 µas; the shadow of 4e6 M☉ at 8 kpc is
+    // 2√27 GM/(c² D) = 51.3 µas, about 2.05 λ/B: feasible.
+    expect(after.byId.shadow.verdict).toBe("feasible");
+    expect(after.byId.shadow.figure).toMatch(/2\.0\d/);
+    expect(after.byId["photon-ring"]).toBeDefined();
+    // The lensing scales re-graded in SQL: 1.29 mas against 0.02 mas now resolves the world's microlens.
+    expect((await answersNow(world.targetId)).scienceCase).toBe("resolved-images");
   });
 
   it("refuses inconsistent settings with field errors and writes nothing", async () => {

@@ -5,11 +5,16 @@ vi.mock("server-only", () => ({}));
 import { eq } from "drizzle-orm";
 import { dbClient } from "@/db/client";
 import { activity, targets } from "@/db/schema";
-import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { DERIVATION_VERSION, deriveTargetColumns, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { instrumentSchema } from "@/lib/workspace/proposal-schema";
+import { rederiveStaleTargets } from "@/lib/server/derived-columns";
 import { listActivity } from "@/lib/server/activity";
 import { updateProposal } from "@/lib/server/proposals";
 import { createTarget, listTargets, updateTarget } from "@/lib/server/targets";
 import { createWorld, pointTargetInput, proposalInput } from "./support/world";
+
+/** The world's proposal as the derivation reads it (no cycle dates: no schedule). */
+const worldSettings: FeasibilitySettings = { site: proposalInput.site, instrument: instrumentSchema.parse(proposalInput.instrument), cycleStartDate: null, cycleEndDate: null };
 
 afterAll(async () => {
   await dbClient().sql.end();
@@ -25,7 +30,9 @@ describe("targets", () => {
     expect(target.decDeg).toBeCloseTo(-29.2013889, 6);
     // θ_E = sqrt(4GM/c² · D_LS/(D_L D_S)) for 0.4 M☉, D_L = 4 kpc, D_S = 8 kpc: about 0.638 mas.
     expect(target.einsteinRadiusMas).toBeCloseTo(0.638, 2);
-    expect(target).toMatchObject(deriveTargetColumns({ ...pointTargetInput, lensModel: "point" }, proposalInput.instrument));
+    const { derivationVersion, ...expected } = deriveTargetColumns({ ...pointTargetInput, lensModel: "point" }, worldSettings, null);
+    expect(derivationVersion).toBe(DERIVATION_VERSION);
+    expect(target).toMatchObject(expected);
   });
 
   it("refuses a forbidden status move and a hypothesis left incomplete, and writes nothing", async () => {
@@ -39,16 +46,37 @@ describe("targets", () => {
     expect(row).toMatchObject({ name: "TB-ML-0001", status: "candidate", lensModel: "point" });
   });
 
-  it("re-grades every target when the instrument defaults change, and logs it in the feed", async () => {
+  it("re-grades every target when the instrument, site or cycle changes, and logs it in the feed", async () => {
     const world = await createWorld();
+    const answer = (rows: { caseAnswers: { id: string; verdict: string }[] }[], id: string) => rows[0].caseAnswers.find((a) => a.id === id);
     const before = await listTargets({ proposalId: world.proposalId }, {}, world.actors.pi);
-    expect(before.rows[0].resolutionVerdict).toBe("infeasible");
-    await updateProposal({ proposalId: world.proposalId }, { instrument: { ...proposalInput.instrument, resolutionMas: 0.5 } }, world.actors.pi);
+    expect(before.rows[0].answeredCase).toBe("photometric-microlensing");
+    expect(answer(before.rows, "event-visits")).toMatchObject({ verdict: "unknown" });
+    // The cycle alone changes (no instrument setting): the schedule now exists, so the visits are counted.
+    await updateProposal({ proposalId: world.proposalId }, { cycleStartDate: "2031-03-01", cycleEndDate: "2031-08-31" }, world.actors.pi);
+    await updateTarget({ proposalId: world.proposalId, targetId: world.targetId }, { eventPeakJdUtc: "2031-06-15" }, world.actors.pi);
     const after = await listTargets({ proposalId: world.proposalId }, {}, world.actors.pi);
-    expect(after.rows[0].resolutionVerdict).toBe("feasible");
+    expect(answer(after.rows, "event-visits")!.verdict).not.toBe("unknown");
+    await updateProposal({ proposalId: world.proposalId }, { instrument: { ...proposalInput.instrument, resolutionMas: 0.5 } }, world.actors.pi);
+    const resolved = await listTargets({ proposalId: world.proposalId }, {}, world.actors.pi);
+    // Two images of a 0.64 mas θ_E lens are 1.3 mas apart: above a 0.5 mas FWHM, the inference moves to resolved images.
+    expect(resolved.rows[0].answeredCase).toBe("resolved-images");
     const feed = await listActivity({ proposalId: world.proposalId }, { limit: 10 }, world.actors.viewer);
-    expect(feed.entries.map((e) => e.action)).toEqual(["proposal.updated", "note.added", "target.added", "proposal.created"]);
+    expect(feed.entries.map((e) => e.action)).toEqual(["proposal.updated", "target.updated", "proposal.updated", "note.added", "target.added", "proposal.created"]);
     expect(feed.entries[0].actorName).toBe("pi");
+  });
+
+  it("re-derives at startup every row computed by older rules (derivation version), and only those", async () => {
+    const world = await createWorld();
+    const { db } = dbClient();
+    const [fresh] = await db.select().from(targets).where(eq(targets.id, world.targetId));
+    expect(fresh.derivationVersion).toBe(DERIVATION_VERSION);
+    // A row as an older rule set left it: an old version and verdicts that today's rules do not give.
+    await db.update(targets).set({ derivationVersion: 0, caseVerdict: "feasible", caseAnswers: [], answeredCase: "horizon-scale" }).where(eq(targets.id, world.targetId));
+    expect(await rederiveStaleTargets(db)).toBeGreaterThanOrEqual(1);
+    const [rederived] = await db.select().from(targets).where(eq(targets.id, world.targetId));
+    expect(rederived).toMatchObject({ derivationVersion: DERIVATION_VERSION, answeredCase: fresh.answeredCase, caseVerdict: fresh.caseVerdict, caseAnswers: fresh.caseAnswers });
+    expect(await rederiveStaleTargets(db)).toBe(0);
   });
 
   it("takes quantities typed with units and stores them in the stored units (issue #15)", async () => {
@@ -95,7 +123,6 @@ describe("targets", () => {
 
   it("lists a page of 10,000 targets sorted by a computed column quickly", async () => {
     const world = await createWorld();
-    const instrument = proposalInput.instrument;
     const rows = Array.from({ length: 10_000 }, (_, i) => {
       const h = { ...pointTargetInput, lensModel: "point" as const, lensMassSolar: 0.05 + (i % 500) / 100, sourceOffsetThetaE: 0.05 + (i % 37) / 10 };
       return {
@@ -106,7 +133,7 @@ describe("targets", () => {
         decDeg: -30 + (i % 60) / 10,
         status: "candidate" as const,
         tags: i % 3 === 0 ? ["bulge"] : [],
-        ...deriveTargetColumns(h, instrument),
+        ...deriveTargetColumns(h, worldSettings, null),
       };
     });
     for (let i = 0; i < rows.length; i += 1000) await dbClient().db.insert(targets).values(rows.slice(i, i + 1000));
@@ -128,7 +155,7 @@ describe("targets", () => {
     expect(medianMs).toBeLessThan(500);
 
     const started = performance.now();
-    await updateProposal(params, { instrument: { ...instrument, cadenceHours: 2 } }, world.actors.pi);
+    await updateProposal(params, { instrument: { ...proposalInput.instrument, cadenceHours: 2 } }, world.actors.pi);
     console.log(`[measure] re-grading 10,001 targets after an instrument change: ${(performance.now() - started).toFixed(0)} ms`);
     const entries = await dbClient().db.select().from(activity).where(eq(activity.proposalId, world.proposalId));
     expect(entries.length).toBeGreaterThan(0);

@@ -11,7 +11,7 @@ import type { TargetTable } from "@/lib/exports/tables/table";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { instrumentOf } from "@/lib/server/derived-columns";
+import { instrumentSettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 import { targetViewOf } from "@/lib/server/targets";
 
@@ -42,7 +42,7 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
     .where(eq(targets.proposalId, proposalId))
     .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
     .limit(MAX_EXPORT_ROWS);
-  const instrument = instrumentOf(proposal);
+  const instrument = instrumentSettingsOf(proposal);
   // LaTeX shows the display digits; the data formats write inputs as stored (17) unless asked.
   const digitsOf = format === "tex" ? (c: ChosenColumn) => c.digits : dataDigitsOf;
   const provenance = buildProvenance({

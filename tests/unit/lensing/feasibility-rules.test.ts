@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import {
   ASTROMETRIC_DETECTION_RULE,
+  caseVerdictOf,
   ASTROMETRIC_EPOCH_RULE,
   ASTROMETRIC_NEAR_PEAK_FRACTION,
   CONTRAST_RULE,
@@ -136,5 +137,21 @@ describe("time-delay rules", () => {
 
   it("seasons: one is enough, none is infeasible (our rule)", () => {
     expect([0, 1, 2].map((count) => gradeAtLeast(count, DELAY_SEASONS_RULE))).toEqual(["infeasible", "feasible", "feasible"]);
+  });
+});
+
+describe("a case's overall verdict (our rule)", () => {
+  it("is the worst known answer, unknown only while nothing is wrong but an input is missing", () => {
+    expect(caseVerdictOf(["feasible", "marginal", "unknown"])).toBe("marginal");
+    expect(caseVerdictOf(["feasible", "infeasible", "marginal"])).toBe("infeasible");
+    expect(caseVerdictOf(["feasible", "unknown"])).toBe("unknown");
+    expect(caseVerdictOf(["feasible", "feasible"])).toBe("feasible");
+    expect(caseVerdictOf([])).toBe("unknown");
+  });
+
+  it("counts a stretch covered whole as covered, whatever the rounding of its Julian dates", () => {
+    const t0 = 2_463_000.3;
+    const tE = 25.35;
+    expect(coverageVerdict(t0 + tE - (t0 - tE), tE)).toBe("feasible");
   });
 });

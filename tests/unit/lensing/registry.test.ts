@@ -5,7 +5,8 @@ import { lensModel as lensModelEnum } from "@/db/schema";
 import { lensModels as sketchLensModels } from "@/lib/bench/sketch-state";
 import { lensModelIds, lensModelLabels, lensModelOf, lensModelOfAlias, lensModelOfParameters, lensModels, solveLens, type LensGeometry } from "@/lib/lensing";
 import { angularDiameterDistance, angularDiameterDistanceBetween, ARCSECOND_RAD, DAY_S, GM_SUN_M3_PER_S2, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD, PARSEC_M, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics";
-import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { deriveTargetColumns, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import { lensModelLabels as targetLensModelLabels, lensModels as targetLensModels, targetFieldsSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
 
 // mpmath findroot on the Virbhadra–Ellis exact lens equation at 40 digits (tests/fixtures/generate_physics.py, photon-ring).
@@ -127,7 +128,12 @@ describe("the registry is the one list of lens models", () => {
 });
 
 describe("the stored columns are the model's solution", () => {
-  const instrument = { resolutionMas: 1, cadenceHours: 24, campaignLengthDays: 90 } as Parameters<typeof deriveTargetColumns>[1];
+  const settings: FeasibilitySettings = {
+    site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 },
+    instrument: instrumentSchema.parse({ resolutionMas: 1, cadenceHours: 24, campaignLengthDays: 90 }),
+    cycleStartDate: null,
+    cycleEndDate: null,
+  };
   const base = { lensMassSolar: null, velocityDispersionKmPerS: null, lensDistancePc: null, sourceDistancePc: null, lensRedshift: null, sourceRedshift: null, properMotionMasPerYr: 5 };
   const hypotheses: LensHypothesis[] = [
     { ...base, lensModel: "point", lensMassSolar: 0.3, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.1 },
@@ -138,7 +144,7 @@ describe("the stored columns are the model's solution", () => {
 
   it("writes θ_E, separation, magnification, delay, t_E and shadow exactly as solve gives them", () => {
     for (const h of hypotheses) {
-      const columns = deriveTargetColumns(h, instrument);
+      const columns = deriveTargetColumns(h, settings, null);
       const geometry: LensGeometry =
         h.lensRedshift == null
           ? { dLensPc: h.lensDistancePc!, dSourcePc: h.sourceDistancePc!, dLensSourcePc: h.sourceDistancePc! - h.lensDistancePc!, zLens: 0 }

@@ -8,6 +8,7 @@ import { parseCsvTable } from "@/lib/imports/csv";
 import { validateImportRows } from "@/lib/imports/rows";
 import { deriveTargetColumns } from "@/lib/workspace/derived";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
+import { scienceCaseIds } from "@/lib/lensing/science-cases";
 import { createTargetSchema, lensHypothesisErrors } from "@/lib/workspace/target-schema";
 
 /**
@@ -24,8 +25,15 @@ const extremeNumber = fc.oneof({ weight: 3, arbitrary: fc.constantFrom(...extrem
 const pointByDistance = { lensModel: "point", lensMassSolar: 0.5, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 5 };
 const sisByRedshift = { lensModel: "sis", velocityDispersionKmPerS: 250, lensRedshift: 0.4, sourceRedshift: 1.8, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 0.01 };
 const sisByDistance = { lensModel: "sis", velocityDispersionKmPerS: 250, lensDistancePc: 1e9, sourceDistancePc: 3e9, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 0.01 };
-const numericTargetFields = ["lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr"] as const;
-const instrument = { resolutionMas: 0.025, cadenceHours: 24, campaignLengthDays: 90 };
+const numericTargetFields = ["lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU"] as const;
+const instrument = instrumentSchema.parse({ resolutionMas: 0.025, cadenceHours: 24, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100 });
+/** Settings without cycle dates: no schedule, so these tests exercise the lensing and its rules alone. */
+const settings = (i: typeof instrument) => ({ site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 }, instrument: i, cycleStartDate: null, cycleEndDate: null });
+
+/** No answer's words may show a number that is not one. */
+const expectWordsFinite = (answers: { figure: string; sentence: string }[], context: string) => {
+  for (const answer of answers) expect(`${answer.figure} ${answer.sentence}`, context).not.toMatch(/NaN|Infinity|undefined|null/);
+};
 
 const derivedNumbers = ["einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec"] as const;
 
@@ -44,12 +52,16 @@ describe("every numeric target field, tiny or huge", () => {
             return;
           }
           if (Object.keys(lensHypothesisErrors(parsed.data)).length > 0) return;
-          const derived = deriveTargetColumns(parsed.data, instrument);
-          for (const key of derivedNumbers) {
-            const value = derived[key];
-            if (value !== null) expect(Number.isFinite(value), `${key} = ${value} for ${JSON.stringify(changes)}`).toBe(true);
+          for (const scienceCase of scienceCaseIds) {
+            const derived = deriveTargetColumns({ ...parsed.data, scienceCase }, settings(instrument), null);
+            for (const key of derivedNumbers) {
+              const value = derived[key];
+              if (value !== null) expect(Number.isFinite(value), `${key} = ${value} for ${JSON.stringify(changes)}`).toBe(true);
+            }
+            expectWordsFinite(derived.caseAnswers, `${scienceCase} ${JSON.stringify(changes)}`);
+            const separation = derived.caseAnswers.find((answer) => answer.id === "image-separation");
+            if (derived.imageSeparationMas !== null && separation) expect(separation.verdict).not.toBe("unknown");
           }
-          if (derived.imageSeparationMas !== null) expect(derived.resolutionVerdict).not.toBe("unknown");
         }),
         { numRuns: 400 },
       );
@@ -70,14 +82,14 @@ describe("every numeric target field, tiny or huge", () => {
 
   it("derives nothing, rather than throwing, for a stored row outside today's ranges", () => {
     const stored = { ...pointByDistance, lensModel: "point" as const, lensDistancePc: 5e-324 };
-    expect(() => deriveTargetColumns(stored, instrument)).not.toThrow();
-    expect(deriveTargetColumns(stored, instrument)).toMatchObject({ einsteinRadiusMas: null, resolutionVerdict: "unknown" });
+    expect(() => deriveTargetColumns(stored, settings(instrument), null)).not.toThrow();
+    expect(deriveTargetColumns(stored, settings(instrument), null)).toMatchObject({ einsteinRadiusMas: null, caseVerdict: "unknown", caseAnswers: [] });
   });
 });
 
 describe("every numeric instrument default, tiny or huge", () => {
-  const fields = ["resolutionMas", "cadenceHours", "campaignLengthDays"] as const;
-  it("is refused by field or grades every verdict (no infinite ratio becomes 'unknown')", () => {
+  const fields = ["resolutionMas", "cadenceHours", "campaignLengthDays", "astrometricPrecisionMas", "reachableContrast", "visitMinutes", "clearNightFraction"] as const;
+  it("is refused by field or grades every question it feeds (no infinite ratio becomes 'unknown')", () => {
     fc.assert(
       fc.property(fc.constantFrom(...fields), extremeNumber, (field, value) => {
         const parsed = instrumentSchema.safeParse({ ...instrument, [field]: value });
@@ -85,8 +97,12 @@ describe("every numeric instrument default, tiny or huge", () => {
           expect(parsed.error.issues.map((i) => String(i.path[0]))).toEqual([field]);
           return;
         }
-        const derived = deriveTargetColumns(pointByDistance as Parameters<typeof deriveTargetColumns>[0], parsed.data);
-        expect([derived.resolutionVerdict, derived.cadenceVerdict, derived.campaignVerdict]).not.toContain("unknown");
+        for (const scienceCase of ["resolved-images", "photometric-microlensing", "astrometric-microlensing"] as const) {
+          const derived = deriveTargetColumns({ ...(pointByDistance as Parameters<typeof deriveTargetColumns>[0]), scienceCase }, settings(parsed.data), null);
+          expectWordsFinite(derived.caseAnswers, `${field} = ${value}`);
+          // Only a question whose input is missing (the schedule, t0: it says "Set …") may lack an answer.
+          for (const answer of derived.caseAnswers) if (!/^Set /.test(answer.sentence)) expect(answer.verdict, `${answer.id}: ${answer.sentence}`).not.toBe("unknown");
+        }
       }),
       { numRuns: 200 },
     );
@@ -148,7 +164,7 @@ describe("every numeric import cell, tiny or huge", () => {
         const { rows } = validateImportRows(table, proposeColumnMapping(table.columns));
         const [row] = rows;
         if (row.target === undefined) expect(row.errors[0]).toMatch(/^row 1: /);
-        else expect(deriveTargetColumns(row.target, instrument).einsteinRadiusMas).toBeGreaterThan(0);
+        else expect(deriveTargetColumns(row.target, settings(instrument), null).einsteinRadiusMas).toBeGreaterThan(0);
       }),
       { numRuns: 200 },
     );

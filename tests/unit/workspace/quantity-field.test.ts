@@ -110,6 +110,28 @@ describe("the schemas take typed units and numbers alike", () => {
     const site = { name: "S", latitudeDeg: "-24.6 deg", longitudeDeg: "-70.4", elevationM: "2.6 km", horizonLimitDeg: "20" };
     const parsed = createProposalSchema.parse({ title: "P", cycle: "2031A", site, instrument: { resolutionMas: "50 uas", cadenceHours: "30 min", campaignLengthDays: "90" } });
     expect(parsed.site).toEqual({ name: "S", latitudeDeg: -24.6, longitudeDeg: -70.4, elevationM: 2600, horizonLimitDeg: 20 });
-    expect(parsed.instrument).toEqual({ resolutionMas: 0.05, cadenceHours: 0.5, campaignLengthDays: 90, airmassLimit: 2, interferometerWavelengthMm: null, interferometerBaselineKm: null });
+    expect(parsed.instrument).toEqual({
+      resolutionMas: 0.05,
+      cadenceHours: 0.5,
+      campaignLengthDays: 90,
+      airmassLimit: 2,
+      interferometerWavelengthMm: null,
+      interferometerBaselineKm: null,
+      moonMinSeparationDeg: 30,
+      moonMaxIllumination: null,
+      visitMinutes: 20,
+      clearNightFraction: 1,
+      astrometricPrecisionMas: null,
+      reachableContrast: null,
+    });
+  });
+
+  it("reads the schedule's constraints typed with units: a visit of 1 h is 60 min", () => {
+    const site = { name: "S", latitudeDeg: "-24.6", longitudeDeg: "-70.4", elevationM: "2600", horizonLimitDeg: "20" };
+    const instrument = { resolutionMas: "50", cadenceHours: "1 d", campaignLengthDays: "90", visitMinutes: "1 h", moonMinSeparationDeg: "0.5 rad", astrometricPrecisionMas: "100 uas" };
+    const parsed = createProposalSchema.parse({ title: "P", cycle: "2031A", site, instrument });
+    expect(parsed.instrument).toMatchObject({ visitMinutes: 60, astrometricPrecisionMas: 0.1, cadenceHours: 24 });
+    // 0.5 rad = 28.6478897565412° (180/π × 0.5).
+    expect(parsed.instrument.moonMinSeparationDeg).toBeCloseTo(28.6478897565412, 12);
   });
 });
