@@ -5,6 +5,8 @@
 import type { ProposalRole, SiteRole } from "@/lib/workspace/roles";
 import type { TargetStatus } from "@/lib/workspace/status";
 import type { LensModel } from "@/lib/workspace/target-schema";
+import type { ScienceCaseId } from "@/lib/lensing/science-cases";
+import { parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
 
 export interface DemoAccount {
   key: "pi" | "coi" | "viewer" | "admin";
@@ -44,6 +46,11 @@ export interface DemoTarget {
   sourceRedshift?: number;
   sourceOffsetThetaE: number;
   properMotionMasPerYr?: number;
+  /** The team's science case; absent: the inferred one. */
+  scienceCase?: ScienceCaseId;
+  eventPeakJdUtc?: number;
+  sourceRadiusSolar?: number;
+  limbDarkeningU?: number;
   priority: number;
   status: TargetStatus;
   tags: string[];
@@ -56,7 +63,9 @@ export const demoProposal = {
   abstract:
     "The Tessellate Lensing Collaboration follows stellar microlensing candidates toward the Cinder window of the bulge with adaptive-optics imaging, and re-observes five galaxy-scale lenses for image separations and time delays. One compact object is kept for a separate shadow-imaging request.",
   site: demoSite,
-  instrument: { resolutionMas: 50, cadenceHours: 4, campaignLengthDays: 90 },
+  // Adaptive-optics imaging: 50 mas FWHM, 0.1 mas astrometry per epoch on a bright source, 5 mag of
+  // contrast at arcsecond separations (invented, plausible figures).
+  instrument: { resolutionMas: 50, cadenceHours: 4, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100 },
 };
 
 /** A second, small proposal: the compact object against an interferometer's resolution. */
@@ -79,10 +88,31 @@ export const compactObject: DemoTarget = {
   sourceOffsetThetaE: 2,
   priority: 1,
   status: "candidate",
+  scienceCase: "horizon-scale",
   tags: ["compact", "shadow"],
   notes: [
     "Predicted **shadow diameter** is about 42 µas: close to the ~25 µas resolution of the long-baseline array, so a detection hinges on the longest baselines.",
   ],
+};
+
+/** A peak time typed as the team would, stored as a Julian date (UTC). */
+const peak = (text: string) => parseEventPeakJdUtc(text);
+
+/** A lighter nucleus kept in the shadow request as the counter-case: its shadow is below λ/B. */
+export const faintCore: DemoTarget = {
+  name: "Wick-4 core",
+  ra: "17 47 19.3",
+  dec: "-28 31 40",
+  lensModel: "point",
+  lensMassSolar: 8e5,
+  lensDistancePc: 9000,
+  sourceDistancePc: 9600,
+  sourceOffsetThetaE: 2,
+  scienceCase: "horizon-scale",
+  priority: 3,
+  status: "candidate",
+  tags: ["compact", "shadow"],
+  notes: ["A lighter, farther nucleus: its shadow (about 9 µas) is a third of the array's λ/B. Kept to show the panel why K-17 is the one to image."],
 };
 
 const bulge = (t: Omit<DemoTarget, "lensModel" | "tags"> & { tags?: string[] }): DemoTarget => ({
@@ -97,16 +127,16 @@ const galaxy = (t: Omit<DemoTarget, "lensModel" | "tags"> & { tags?: string[] })
 });
 
 export const demoTargets: DemoTarget[] = [
-  bulge({ name: "CBW-24-0117", ra: "17 52 31.8", dec: "-29 41 07", lensMassSolar: 0.32, lensDistancePc: 5200, sourceDistancePc: 8100, sourceOffsetThetaE: 0.12, properMotionMasPerYr: 6.1, priority: 1, status: "accepted", tags: ["high-mag"], notes: ["Rising since night 3; peak expected in about 9 days.\n\n- seeing 0.8″\n- baseline flat over 40 nights"] }),
-  bulge({ name: "CBW-24-0203", ra: "17 55 02.3", dec: "-30 02 44", lensMassSolar: 0.65, lensDistancePc: 3900, sourceDistancePc: 8300, sourceOffsetThetaE: 0.45, properMotionMasPerYr: 4.2, priority: 2, status: "candidate", notes: [] }),
-  bulge({ name: "CBW-24-0311", ra: "17 58 44.0", dec: "-28 47 19", lensMassSolar: 0.08, lensDistancePc: 6400, sourceDistancePc: 8000, sourceOffsetThetaE: 0.05, properMotionMasPerYr: 7.5, priority: 1, status: "scheduled", tags: ["brown-dwarf"], notes: ["Short event: a low-mass lens. Ask for the 2-hour cadence slot if it opens."] }),
-  bulge({ name: "CBW-24-0422", ra: "18 01 15.6", dec: "-27 55 03", lensMassSolar: 7.4, lensDistancePc: 2100, sourceDistancePc: 8200, sourceOffsetThetaE: 0.8, properMotionMasPerYr: 3.0, priority: 1, status: "candidate", tags: ["remnant"], notes: ["Long timescale and no light from the lens: a dark remnant? Astrometric shift should be measurable."] }),
-  bulge({ name: "CBW-24-0518", ra: "17 49 58.1", dec: "-30 33 12", lensMassSolar: 0.45, lensDistancePc: 6900, sourceDistancePc: 8800, sourceOffsetThetaE: 1.6, properMotionMasPerYr: 5.5, priority: 4, status: "dropped", notes: ["Dropped: blended with a bright neighbour."] }),
-  bulge({ name: "CBW-24-0604", ra: "17 53 40.9", dec: "-29 10 26", lensMassSolar: 1.1, lensDistancePc: 4500, sourceDistancePc: 7900, sourceOffsetThetaE: 0.25, properMotionMasPerYr: 2.2, priority: 2, status: "observed", notes: [] }),
-  bulge({ name: "CBW-24-0733", ra: "18 03 27.2", dec: "-28 20 51", lensMassSolar: 0.21, lensDistancePc: 7100, sourceDistancePc: 8400, sourceOffsetThetaE: 0.6, properMotionMasPerYr: 4.8, priority: 3, status: "candidate", notes: [] }),
-  galaxy({ name: "Lantern Arc", ra: "04 12 09.5", dec: "-15 33 40", velocityDispersionKmPerS: 245, lensRedshift: 0.42, sourceRedshift: 1.85, sourceOffsetThetaE: 0.35, priority: 1, status: "accepted", tags: ["double"], notes: ["Two images resolved in archival imaging; the delay sets the monitoring length."] }),
-  galaxy({ name: "Quillfeather Lens", ra: "10 49 33.1", dec: "+22 17 05", velocityDispersionKmPerS: 290, lensRedshift: 0.61, sourceRedshift: 2.4, sourceOffsetThetaE: 0.6, priority: 2, status: "candidate", notes: [] }),
-  galaxy({ name: "Hollowmere Pair", ra: "22 31 54.8", dec: "-04 02 18", velocityDispersionKmPerS: 190, lensRedshift: 0.29, sourceRedshift: 1.12, sourceOffsetThetaE: 0.2, priority: 2, status: "scheduled", notes: [] }),
+  bulge({ name: "CBW-24-0117", ra: "17 52 31.8", dec: "-29 41 07", lensMassSolar: 0.32, lensDistancePc: 5200, sourceDistancePc: 8100, sourceOffsetThetaE: 0.12, properMotionMasPerYr: 6.1, eventPeakJdUtc: peak("2031-06-11 04:00"), priority: 1, status: "accepted", tags: ["high-mag"], notes: ["Rising since night 3; peak expected in about 9 days.\n\n- seeing 0.8″\n- baseline flat over 40 nights"] }),
+  bulge({ name: "CBW-24-0203", ra: "17 55 02.3", dec: "-30 02 44", lensMassSolar: 0.65, lensDistancePc: 3900, sourceDistancePc: 8300, sourceOffsetThetaE: 0.45, properMotionMasPerYr: 4.2, eventPeakJdUtc: peak("2031-05-02 06:00"), priority: 2, status: "candidate", notes: [] }),
+  bulge({ name: "CBW-24-0311", ra: "17 58 44.0", dec: "-28 47 19", lensMassSolar: 0.08, lensDistancePc: 6400, sourceDistancePc: 8000, sourceOffsetThetaE: 0.05, properMotionMasPerYr: 7.5, eventPeakJdUtc: peak("2031-04-18 07:30"), sourceRadiusSolar: 1.4, limbDarkeningU: 0.6, priority: 1, status: "scheduled", tags: ["brown-dwarf"], notes: ["Short event: a low-mass lens. Ask for the 2-hour cadence slot if it opens."] }),
+  bulge({ name: "CBW-24-0422", ra: "18 01 15.6", dec: "-27 55 03", lensMassSolar: 7.4, lensDistancePc: 2100, sourceDistancePc: 8200, sourceOffsetThetaE: 0.8, properMotionMasPerYr: 3.0, eventPeakJdUtc: peak("2031-06-25"), scienceCase: "astrometric-microlensing", priority: 1, status: "candidate", tags: ["remnant"], notes: ["Long timescale and no light from the lens: a dark remnant? Astrometric shift should be measurable."] }),
+  bulge({ name: "CBW-24-0518", ra: "17 49 58.1", dec: "-30 33 12", lensMassSolar: 0.45, lensDistancePc: 6900, sourceDistancePc: 8800, sourceOffsetThetaE: 1.6, properMotionMasPerYr: 5.5, eventPeakJdUtc: peak("2031-03-20"), priority: 4, status: "dropped", notes: ["Dropped: blended with a bright neighbour."] }),
+  bulge({ name: "CBW-24-0604", ra: "17 53 40.9", dec: "-29 10 26", lensMassSolar: 1.1, lensDistancePc: 4500, sourceDistancePc: 7900, sourceOffsetThetaE: 0.25, properMotionMasPerYr: 2.2, eventPeakJdUtc: peak("2031-07-14"), priority: 2, status: "observed", notes: [] }),
+  bulge({ name: "CBW-24-0733", ra: "18 03 27.2", dec: "-28 20 51", lensMassSolar: 0.21, lensDistancePc: 7100, sourceDistancePc: 8400, sourceOffsetThetaE: 0.6, properMotionMasPerYr: 4.8, eventPeakJdUtc: peak("2031-02-05 08:00"), priority: 3, status: "candidate", notes: ["Peak predicted for 5 February, before the bulge clears the morning twilight here: only the falling wing can be caught."] }),
+  galaxy({ name: "Lantern Arc", ra: "04 12 09.5", dec: "-15 33 40", velocityDispersionKmPerS: 245, lensRedshift: 0.42, sourceRedshift: 1.85, sourceOffsetThetaE: 0.35, scienceCase: "time-delay", priority: 1, status: "accepted", tags: ["double"], notes: ["Two images resolved in archival imaging; the delay sets the monitoring length."] }),
+  galaxy({ name: "Quillfeather Lens", ra: "10 49 33.1", dec: "+22 17 05", velocityDispersionKmPerS: 290, lensRedshift: 0.61, sourceRedshift: 2.4, sourceOffsetThetaE: 0.6, scienceCase: "time-delay", priority: 2, status: "candidate", notes: ["A delay of about nine months: longer than the field's season here, so each season sees only one image's half of any variation."] }),
+  galaxy({ name: "Hollowmere Pair", ra: "22 31 54.8", dec: "-04 02 18", velocityDispersionKmPerS: 190, lensRedshift: 0.29, sourceRedshift: 1.12, sourceOffsetThetaE: 0.2, scienceCase: "time-delay", priority: 2, status: "scheduled", notes: [] }),
   galaxy({ name: "Saltmarsh Arc", ra: "08 55 12.0", dec: "+01 30 47", velocityDispersionKmPerS: 320, lensRedshift: 0.78, sourceRedshift: 3.05, sourceOffsetThetaE: 1.3, priority: 3, status: "candidate", tags: ["single"], notes: ["Source outside the Einstein radius for this model: one image only, no delay."] }),
   galaxy({ name: "Vesper Ring", ra: "13 18 26.4", dec: "-28 45 09", velocityDispersionKmPerS: 210, lensRedshift: 0.35, sourceRedshift: 0.98, sourceOffsetThetaE: 0.05, priority: 1, status: "accepted", tags: ["ring"], notes: [] }),
   compactObject,

@@ -1,9 +1,10 @@
 import { hashPassword } from "@/lib/auth/password";
-import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
-import { deriveTargetColumns } from "@/lib/workspace/derived";
+import { rederiveStaleTargets } from "@/lib/server/derived-columns";
 import type { Database } from "@/db/client";
-import { activity, noteRevisions, notes, proposalMembers, proposals, targets, users } from "@/db/schema";
+import { activity, proposalMembers, proposals, users } from "@/db/schema";
 import { seedDemoSkyCycle } from "@/db/seed/demo-sky-cycle";
+import { seedDemoScienceCases } from "@/db/seed/demo-science-cases";
+import { insertDemoTargets } from "@/db/seed/demo-targets";
 import { runSeedOnce, type SeedTransaction as Tx } from "@/db/seed/run-once";
 import {
   compactObject,
@@ -12,11 +13,10 @@ import {
   demoProposal,
   demoShadowProposal,
   demoTargets,
-  type DemoTarget,
 } from "@/db/seed/demo-scenario";
 
 
-async function insertProposal(tx: Tx, input: typeof demoProposal, createdBy: string) {
+async function insertProposal(tx: Tx, input: typeof demoProposal | typeof demoShadowProposal, createdBy: string) {
   const [proposal] = await tx
     .insert(proposals)
     .values({
@@ -35,38 +35,6 @@ async function insertProposal(tx: Tx, input: typeof demoProposal, createdBy: str
   return proposal;
 }
 
-async function insertTargets(tx: Tx, proposal: { id: string; instrument: typeof demoProposal.instrument }, list: DemoTarget[], authorIds: string[]) {
-  for (const [index, { ra, dec, notes: texts, ...t }] of list.entries()) {
-    const h = {
-      ...t,
-      lensMassSolar: t.lensMassSolar ?? null,
-      velocityDispersionKmPerS: t.velocityDispersionKmPerS ?? null,
-      lensDistancePc: t.lensDistancePc ?? null,
-      sourceDistancePc: t.sourceDistancePc ?? null,
-      lensRedshift: t.lensRedshift ?? null,
-      sourceRedshift: t.sourceRedshift ?? null,
-      properMotionMasPerYr: t.properMotionMasPerYr ?? null,
-    };
-    const author = authorIds[index % authorIds.length];
-    const [target] = await tx
-      .insert(targets)
-      .values({
-        ...h,
-        proposalId: proposal.id,
-        raDeg: parseRightAscensionDeg(ra),
-        decDeg: parseDeclinationDeg(dec),
-        ...deriveTargetColumns(h, proposal.instrument),
-        createdBy: author,
-      })
-      .returning();
-    await tx.insert(activity).values({ proposalId: proposal.id, actorId: author, action: "target.added", subject: target.name });
-    for (const body of texts) {
-      const [note] = await tx.insert(notes).values({ targetId: target.id, body, authorId: author, updatedBy: author }).returning();
-      await tx.insert(noteRevisions).values({ noteId: note.id, version: 1, body, editedBy: author });
-    }
-  }
-}
-
 /**
  * The invented demo scenario (accounts, proposals, targets, notes), then its later seed sets, each
  * applied once per database. True when the first set was applied now.
@@ -74,6 +42,9 @@ async function insertTargets(tx: Tx, proposal: { id: string; instrument: typeof 
 export async function seedDemo(db: Database): Promise<boolean> {
   const applied = await seedDemoWorkspace(db);
   await seedDemoSkyCycle(db);
+  await seedDemoScienceCases(db);
+  // Targets are inserted without derived columns (version 0); derive them once the cycle is set.
+  await rederiveStaleTargets(db);
   return applied;
 }
 
@@ -90,7 +61,7 @@ async function seedDemoWorkspace(db: Database): Promise<boolean> {
     const main = await insertProposal(tx, demoProposal, ids.pi);
     await tx.insert(proposalMembers).values(demoMembers.map(([key, role]) => ({ proposalId: main.id, userId: ids[key], role })));
     await tx.insert(activity).values({ proposalId: main.id, actorId: ids.pi, action: "proposal.created", subject: main.title });
-    await insertTargets(tx, { id: main.id, instrument: demoProposal.instrument }, demoTargets, [ids.pi, ids.coi]);
+    await insertDemoTargets(tx, main.id, demoTargets, [ids.pi, ids.coi]);
 
     const shadow = await insertProposal(tx, demoShadowProposal, ids.pi);
     await tx.insert(proposalMembers).values([
@@ -98,6 +69,6 @@ async function seedDemoWorkspace(db: Database): Promise<boolean> {
       { proposalId: shadow.id, userId: ids.coi, role: "viewer" },
     ]);
     await tx.insert(activity).values({ proposalId: shadow.id, actorId: ids.pi, action: "proposal.created", subject: shadow.title });
-    await insertTargets(tx, { id: shadow.id, instrument: demoShadowProposal.instrument }, [compactObject], [ids.pi]);
+    await insertDemoTargets(tx, shadow.id, [compactObject], [ids.pi]);
   });
 }
