@@ -6,6 +6,8 @@
 import { cpus, loadavg } from "node:os";
 import { seasonWindows } from "@/lib/astro/season";
 import { observingSchedule, observingSchedules, type ScheduleConditions } from "@/lib/schedule";
+import { deriveMany } from "@/lib/server/derived-columns";
+import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import { bestSeconds, fibonacciSky } from "../lib/bench-sky";
 
 const MANY_TARGET_SECONDS = 2;
@@ -55,3 +57,41 @@ const oneSeconds = bestSeconds(() => {
 const oneSeasonSeconds = bestSeconds(() => seasonWindows({ site, targets: [bulge], startNightIso: conditions.cycleStartNightIso, nightCount: NIGHT_COUNT, limits: conditions.limits }), 5);
 console.log(`(b) one target (the bulge) over ${NIGHT_COUNT} nights: ${(oneSeconds * 1000).toFixed(1)} ms (best of 5); ${(oneSeconds / ONE_TARGET_SECONDS).toFixed(3)} of the ${ONE_TARGET_SECONDS * 1000} ms target; ${bulgeVisits} visits`);
 console.log(`    baseline, the season view's hours for that target: ${(oneSeasonSeconds * 1000).toFixed(1)} ms; the schedule costs ${(oneSeconds / oneSeasonSeconds).toFixed(2)}x`);
+
+// (c) The stored columns of a whole proposal: schedules and every science case's answers for 1,000
+// targets (the issue's 2 s budget covers both), against the schedules alone from (a).
+const settings = {
+  site: { name: site.name, latitudeDeg: site.latitudeDeg, longitudeDeg: site.longitudeEastDeg, elevationM: site.elevationM, horizonLimitDeg: site.horizonLimitDeg },
+  instrument: instrumentSchema.parse({
+    resolutionMas: 50,
+    cadenceHours: conditions.cadenceHours,
+    campaignLengthDays: 90,
+    visitMinutes: conditions.visitMinutes,
+    clearNightFraction: conditions.clearNightFraction,
+    moonMinSeparationDeg: 30,
+    moonMaxIllumination: 0.6,
+    astrometricPrecisionMas: 0.1,
+    reachableContrast: 100,
+    interferometerWavelengthMm: 1.3,
+    interferometerBaselineKm: 10_700,
+  }),
+  cycleStartDate: conditions.cycleStartNightIso,
+  cycleEndDate: conditions.cycleEndNightIso,
+};
+const peakJdUtc = 2_461_570.5; // 2027-06-14
+const hypotheses = [
+  { lensModel: "point" as const, lensMassSolar: 0.3, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.1, properMotionMasPerYr: 5, eventPeakJdUtc: peakJdUtc },
+  { lensModel: "point" as const, lensMassSolar: 0.5, lensDistancePc: 6000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.02, properMotionMasPerYr: 6, eventPeakJdUtc: peakJdUtc, sourceRadiusSolar: 1.2, limbDarkeningU: 0.6 },
+  { lensModel: "point" as const, lensMassSolar: 7, lensDistancePc: 2000, sourceDistancePc: 8000, sourceOffsetThetaE: 1.5, properMotionMasPerYr: 3, eventPeakJdUtc: peakJdUtc, scienceCase: "astrometric-microlensing" as const },
+  { lensModel: "sis" as const, velocityDispersionKmPerS: 250, lensRedshift: 0.4, sourceRedshift: 1.8, sourceOffsetThetaE: 0.3, scienceCase: "time-delay" as const },
+  { lensModel: "sis" as const, velocityDispersionKmPerS: 220, lensRedshift: 0.3, sourceRedshift: 1.2, sourceOffsetThetaE: 0.5 },
+  { lensModel: "point" as const, lensMassSolar: 4e6, lensDistancePc: 8000, sourceDistancePc: 8500, sourceOffsetThetaE: 2, scienceCase: "horizon-scale" as const },
+];
+const rows = targets.map((target, index) => ({ ...hypotheses[index % hypotheses.length], raDeg: target.raDeg, decDeg: target.decDeg }));
+let answered = 0;
+const derivedSeconds = bestSeconds(() => {
+  answered = deriveMany(rows, settings).reduce((sum, columns) => sum + columns.caseAnswers.length, 0);
+}, 3);
+console.log(`(c) ${TARGET_COUNT} targets' stored columns (schedules and science-case answers, six hypotheses in turn): ${derivedSeconds.toFixed(3)} s (best of 3); ` +
+  `${(derivedSeconds / MANY_TARGET_SECONDS).toFixed(3)} of the ${MANY_TARGET_SECONDS} s target; ${answered} answers`);
+console.log(`    baseline, the schedules alone (a): ${manySeconds.toFixed(3)} s; the lensing and the answers add ${(derivedSeconds / manySeconds).toFixed(2)}x`);
