@@ -3,6 +3,7 @@
 import type { FieldErrors } from "@/lib/errors";
 import { lensModelOf, lensParameters, usesParameter } from "@/lib/lensing/registry";
 import type { LensParameterKey } from "@/lib/lensing/lens-model";
+import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
 import { lensModelLabels, lensModels, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { Field } from "@/components/workspace/field";
@@ -14,7 +15,7 @@ export type GeometrySource = "distance" | "redshift";
 /** What the fieldset starts with: each input's text by name (empty where the target has no value). */
 export type TargetFieldTexts = Partial<Record<TargetFieldName, string>>;
 
-/** The text inputs: every field of a new target but the lens model, which is a select. */
+/** The text inputs and the science case's select: every field of a new target but the lens model. */
 type TargetFieldName = Exclude<keyof CreateTargetInput, "lensModel">;
 
 /** Empty → absent; anything else is sent as typed, and the server reads it with its unit (one parser for the form and the API). */
@@ -40,6 +41,11 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     sourceRedshift: geometry === "redshift" ? optionalTyped(v.sourceRedshift) : null,
     sourceOffsetThetaE: optionalTyped(v.sourceOffsetThetaE),
     properMotionMasPerYr: optionalTyped(v.properMotionMasPerYr),
+    scienceCase: (optionalTyped(v.scienceCase) as ScienceCaseId | null),
+    eventPeakJdUtc: optionalTyped(v.eventPeakJdUtc),
+    sourceRadiusSolar: optionalTyped(v.sourceRadiusSolar),
+    sourceRadiusThetaE: optionalTyped(v.sourceRadiusThetaE),
+    limbDarkeningU: optionalTyped(v.limbDarkeningU),
     priority: optionalTyped(v.priority),
     tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
   };
@@ -89,6 +95,18 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
           </select>
         </label>
         <label className="flex flex-col">
+          Science case
+          <select name="scienceCase" defaultValue={initial.scienceCase ?? ""} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+            <option value="">Inferred from the model (default)</option>
+            <ChoiceOptions values={scienceCaseIds} labels={scienceCaseLabels} />
+          </select>
+          {fields.scienceCase && (
+            <span role="alert" className="mt-1 text-sm text-alarm">
+              {fields.scienceCase.join(" ")}
+            </span>
+          )}
+        </label>
+        <label className="flex flex-col">
           Geometry from
           <select value={geometry} onChange={(e) => onGeometryChange(e.target.value as GeometrySource)} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
             <option value="distance">Distances (pc)</option>
@@ -116,6 +134,13 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
         <QuantityInput spec={targetQuantities.priority} label="Priority (1–5)" name="priority" inputMode="numeric" required defaultValue={initial.priority} errors={fields.priority} />
         <Field label="Tags" name="tags" placeholder="bulge, high-mag" defaultValue={initial.tags} errors={tagErrors(fields)} />
       </div>
+      <fieldset className="grid gap-4 md:grid-cols-3">
+        <legend className="mb-2 text-sm text-dusk-dim">The event and its source (microlensing cases; leave empty when they do not apply)</legend>
+        <Field label="Event peak t0" name="eventPeakJdUtc" placeholder="2027-06-15 04:30 or JD 2461571.69" defaultValue={initial.eventPeakJdUtc} hint="UTC date and time, or JD" errors={fields.eventPeakJdUtc} />
+        <QuantityInput spec={targetQuantities.sourceRadiusSolar} label="Source radius (R☉)" name="sourceRadiusSolar" defaultValue={initial.sourceRadiusSolar} hint="or give ρ instead, not both" errors={fields.sourceRadiusSolar} />
+        <QuantityInput spec={targetQuantities.sourceRadiusThetaE} label="Source radius ρ (θE)" name="sourceRadiusThetaE" inputMode="decimal" defaultValue={initial.sourceRadiusThetaE} hint="θ* / θE, typed directly" errors={fields.sourceRadiusThetaE} />
+        <QuantityInput spec={targetQuantities.limbDarkeningU} label="Limb-darkening coefficient" name="limbDarkeningU" inputMode="decimal" defaultValue={initial.limbDarkeningU} hint="linear, 0 (uniform disk) to 1" errors={fields.limbDarkeningU} />
+      </fieldset>
     </>
   );
 }

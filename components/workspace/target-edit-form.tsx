@@ -34,6 +34,12 @@ export function targetFieldTexts(t: TargetView): TargetFieldTexts {
     sourceRedshift: textOf(t.sourceRedshift),
     sourceOffsetThetaE: textOf(t.sourceOffsetThetaE),
     properMotionMasPerYr: textOf(t.properMotionMasPerYr),
+    scienceCase: t.scienceCase ?? "",
+    // As a Julian date with every stored digit, so saving an untouched form keeps t0.
+    eventPeakJdUtc: t.eventPeakJdUtc == null ? "" : `JD ${t.eventPeakJdUtc}`,
+    sourceRadiusSolar: textOf(t.sourceRadiusSolar),
+    sourceRadiusThetaE: textOf(t.sourceRadiusThetaE),
+    limbDarkeningU: textOf(t.limbDarkeningU),
     priority: String(t.priority),
     tags: t.tags.join(", "),
   };

@@ -40,6 +40,12 @@ function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
     sourceRedshift: numberOr("sourceRedshift", body.sourceRedshift, null),
     sourceOffsetThetaE: numberOr("sourceOffsetThetaE", body.sourceOffsetThetaE, Number.NaN) as number,
     properMotionMasPerYr: numberOr("properMotionMasPerYr", body.properMotionMasPerYr, null),
+    scienceCase: body.scienceCase,
+    // The table shows no peak time; the server's answer brings it.
+    eventPeakJdUtc: null,
+    sourceRadiusSolar: numberOr("sourceRadiusSolar", body.sourceRadiusSolar, null),
+    sourceRadiusThetaE: numberOr("sourceRadiusThetaE", body.sourceRadiusThetaE, null),
+    limbDarkeningU: numberOr("limbDarkeningU", body.limbDarkeningU, null),
     priority: numberOr("priority", body.priority, Number.NaN) as number,
     status: "candidate",
     tags: body.tags,
@@ -49,9 +55,9 @@ function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
     timeDelayDays: null,
     crossingTimeDays: null,
     shadowDiameterMicroarcsec: null,
-    resolutionVerdict: "unknown",
-    cadenceVerdict: "unknown",
-    campaignVerdict: "unknown",
+    answeredCase: null,
+    caseVerdict: "unknown",
+    caseAnswers: [],
     updatedAt: new Date().toISOString(),
   };
 }

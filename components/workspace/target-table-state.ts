@@ -10,6 +10,9 @@ export interface TargetFilters {
   status: string;
   lensModel: string;
   tag: string;
+  /** The case the answers are for, an id of `scienceCaseIds`. */
+  answeredCase: string;
+  caseVerdict: string;
 }
 
 /** The API query for a table state (sort and filters as the server knows them). */
@@ -25,6 +28,6 @@ export function targetListUrl(proposalId: string, sorting: SortingState, page: n
 }
 
 export const initialTargetSorting: SortingState = [{ id: "priority", desc: false }];
-export const emptyFilters: TargetFilters = { q: "", status: "", lensModel: "", tag: "" };
+export const emptyFilters: TargetFilters = { q: "", status: "", lensModel: "", tag: "", answeredCase: "", caseVerdict: "" };
 export const targetPageSize = 50;
 

@@ -8,10 +8,9 @@ import { statusLabels, targetStatuses } from "@/lib/workspace/status";
 import { lensModelOf, type LensModelId } from "@/lib/lensing/registry";
 import { lensModelLabels, lensModels } from "@/lib/workspace/target-schema";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
-import { cycleNightCount, skySiteOf } from "@/lib/workspace/proposal-schema";
-import { darkHoursOfSeason, type FeasibilitySettings } from "@/lib/workspace/derived";
-import { feasibilityReport, interferometerBeamMicroarcsec, type CycleDarkHours } from "@/lib/workspace/verdicts";
-import { useSeason } from "@/components/sky/use-season";
+import { verdicts } from "@/lib/lensing/feasibility-rules";
+import { scienceCaseIds, scienceCaseLabels } from "@/lib/lensing/science-cases";
+import { answerLine, caseVerdictLine } from "@/lib/workspace/case-verdict-words";
 import { swrFetcher } from "@/components/workspace/api-client";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { formatQuantity, verdictClass, verdictLabels } from "@/components/workspace/format";
@@ -24,30 +23,17 @@ const numberCell = (digits = 4) => (info: { getValue: () => unknown }) => (
   <span className="tabular-nums">{formatQuantity(info.getValue() as number | null, digits)}</span>
 );
 
-/** Shadow against λ/B and dark hours in the cycle, graded on read (no stored column yet). */
-function onReadVerdictsCell(settings: FeasibilitySettings, darkHoursById: Map<string, CycleDarkHours> | null, isComputing: boolean) {
-  return (info: { row: { original: TargetView } }) => {
-    const t = info.row.original;
-    const dark = darkHoursById?.get(t.id) ?? null;
-    const [, , , shadow, darkHours] = feasibilityReport(t, settings.instrument, dark);
-    const isCyclePending = settings.cycleStartDate !== null && dark === null;
-    const beam = interferometerBeamMicroarcsec(settings.instrument.interferometerWavelengthMm, settings.instrument.interferometerBaselineKm);
-    const shadowRatio = beam !== null && t.shadowDiameterMicroarcsec !== null ? ` (${formatQuantity(t.shadowDiameterMicroarcsec / beam, 3)}×)` : "";
-    return (
-      <span className="whitespace-nowrap text-xs" data-testid="on-read-verdicts">
-        <span className={`${verdictClass[shadow.verdict]} mr-2`} title={shadow.figure}>
-          {verdictLabels[shadow.verdict]}
-          {shadowRatio}
-        </span>
-        <span className={isCyclePending ? "text-dusk-dim" : verdictClass[darkHours.verdict]} title={darkHours.figure}>
-          {isCyclePending ? (isComputing ? "computing…" : "—") : dark === null ? verdictLabels[darkHours.verdict] : `${verdictLabels[darkHours.verdict]} (${dark.totalHoursDark.toFixed(0)} h)`}
-        </span>
-      </span>
-    );
-  };
+/** The case's verdict naming the questions behind it; the title lists every answer. */
+function caseVerdictCell(info: { row: { original: TargetView } }) {
+  const t = info.row.original;
+  return (
+    <span className={`text-xs ${verdictClass[t.caseVerdict]}`} title={t.caseAnswers.map(answerLine).join("\n")} data-testid="case-verdict">
+      {caseVerdictLine(t.caseVerdict, t.caseAnswers)}
+    </span>
+  );
 }
 
-function columnsFor(proposalId: string, onRead: ReturnType<typeof onReadVerdictsCell> | null): ColumnDef<typeof features, TargetView>[] {
+function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[] {
   return [
     {
       accessorKey: "name",
@@ -69,54 +55,36 @@ function columnsFor(proposalId: string, onRead: ReturnType<typeof onReadVerdicts
     { accessorKey: "timeDelayDays", header: "Δt (d)", cell: numberCell(3) },
     { accessorKey: "crossingTimeDays", header: "tE (d)", cell: numberCell(3) },
     {
-      id: "verdicts",
-      header: "Resolution · cadence · campaign",
+      accessorKey: "answeredCase",
+      header: "Science case",
       enableSorting: false,
       cell: (info) => {
         const t = info.row.original;
-        return (
-          <span className="whitespace-nowrap text-xs">
-            {[t.resolutionVerdict, t.cadenceVerdict, t.campaignVerdict].map((v, i) => (
-              <span key={i} className={`${verdictClass[v]} mr-2`}>
-                {verdictLabels[v]}
-              </span>
-            ))}
-          </span>
-        );
+        return t.answeredCase === null ? "—" : <span title={t.scienceCase === null ? "Inferred from the model and numbers" : "Chosen by the team"}>{scienceCaseLabels[t.answeredCase]}</span>;
       },
     },
-    ...(onRead ? [{ id: "onReadVerdicts", header: "Shadow vs λ/B · dark hours", enableSorting: false, cell: onRead } satisfies ColumnDef<typeof features, TargetView>] : []),
+    { accessorKey: "caseVerdict", header: "Case verdict", cell: caseVerdictCell },
   ];
 }
 
-/** The season of one page of rows over the proposal's cycle, in the sky worker; null without a cycle. */
-function usePageDarkHours(rows: TargetView[], settings: FeasibilitySettings | undefined) {
-  const request = useMemo(() => {
-    if (!settings || settings.cycleStartDate === null || settings.cycleEndDate === null || rows.length === 0) return null;
-    return {
-      site: skySiteOf(settings.site),
-      targets: rows.map((r) => ({ raDeg: r.raDeg, decDeg: r.decDeg })),
-      startNightIso: settings.cycleStartDate,
-      nightCount: cycleNightCount(settings.cycleStartDate, settings.cycleEndDate),
-      limits: { airmassLimit: settings.instrument.airmassLimit },
-    };
-  }, [rows, settings]);
-  const season = useSeason(request);
-  const byId = useMemo(() => {
-    if (!season.season || season.season.targets.length !== rows.length) return null;
-    const computed = season.season;
-    // A season answer belongs to these rows only when every position matches (stale pages are dropped).
-    if (!rows.every((r, i) => computed.targets[i].raDeg === r.raDeg && computed.targets[i].decDeg === r.decDeg)) return null;
-    return new Map(rows.map((r, i) => [r.id, darkHoursOfSeason(computed, i)]));
-  }, [season.season, rows]);
-  return { byId, isComputing: season.status === "computing" };
+/** A filter over a fixed list of values, "Any" first. */
+function FilterSelect<T extends string>({ label, value, onChange, values, labels }: { label: string; value: string; onChange: React.ChangeEventHandler<HTMLSelectElement>; values: readonly T[]; labels: Record<T, string> }) {
+  return (
+    <label className="flex flex-col">
+      {label}
+      <select value={value} onChange={onChange} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
+        <option value="">Any</option>
+        <ChoiceOptions values={values} labels={labels} />
+      </select>
+    </label>
+  );
 }
 
 /**
  * The proposal's targets: sorted, filtered and paged on the server (so 10,000 targets cost one page
- * of rows here), with the computed lensing columns and feasibility verdicts.
+ * of rows here), with the computed lensing columns and each target's science case and its verdict.
  */
-export function TargetTable({ proposalId, initialPage, settings }: { proposalId: string; initialPage: TargetPage; settings?: FeasibilitySettings }) {
+export function TargetTable({ proposalId, initialPage }: { proposalId: string; initialPage: TargetPage }) {
   const [sorting, setSorting] = useState<SortingState>(initialTargetSorting);
   const [page, setPage] = useState(1);
   const [filters, setFilters] = useState<TargetFilters>(emptyFilters);
@@ -127,10 +95,9 @@ export function TargetTable({ proposalId, initialPage, settings }: { proposalId:
     keepPreviousData: true,
   });
   const rows = useMemo(() => data?.rows ?? [], [data]);
-  const darkHours = usePageDarkHours(rows, settings);
   const table = useTable({
     features,
-    columns: columnsFor(proposalId, settings ? onReadVerdictsCell(settings, darkHours.byId, darkHours.isComputing) : null),
+    columns: columnsFor(proposalId),
     data: rows,
     manualSorting: true,
     enableMultiSort: false,
@@ -154,20 +121,10 @@ export function TargetTable({ proposalId, initialPage, settings }: { proposalId:
           Name contains
           <input value={filters.q} onChange={setFilter("q")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1" />
         </label>
-        <label className="flex flex-col">
-          Status
-          <select value={filters.status} onChange={setFilter("status")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
-            <option value="">Any</option>
-            <ChoiceOptions values={targetStatuses} labels={statusLabels} />
-          </select>
-        </label>
-        <label className="flex flex-col">
-          Lens model
-          <select value={filters.lensModel} onChange={setFilter("lensModel")} className="mt-1 rounded border border-void-edge bg-void px-2 py-1">
-            <option value="">Any</option>
-            <ChoiceOptions values={lensModels} labels={lensModelLabels} />
-          </select>
-        </label>
+        <FilterSelect label="Status" value={filters.status} onChange={setFilter("status")} values={targetStatuses} labels={statusLabels} />
+        <FilterSelect label="Lens model" value={filters.lensModel} onChange={setFilter("lensModel")} values={lensModels} labels={lensModelLabels} />
+        <FilterSelect label="Science case" value={filters.answeredCase} onChange={setFilter("answeredCase")} values={scienceCaseIds} labels={scienceCaseLabels} />
+        <FilterSelect label="Case verdict" value={filters.caseVerdict} onChange={setFilter("caseVerdict")} values={verdicts} labels={verdictLabels} />
         <label className="flex flex-col">
           Tag
           <input value={filters.tag} onChange={setFilter("tag")} className="mt-1 w-28 rounded border border-void-edge bg-void px-2 py-1" />

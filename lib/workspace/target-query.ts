@@ -2,7 +2,8 @@ import { z } from "zod";
 import { storedText } from "@/lib/workspace/stored-text";
 import { lensModels } from "@/lib/workspace/target-schema";
 import { targetStatuses } from "@/lib/workspace/status";
-import { verdicts } from "@/lib/workspace/verdicts";
+import { verdicts } from "@/lib/lensing/feasibility-rules";
+import { scienceCaseIds } from "@/lib/lensing/science-cases";
 
 /** Columns the target table may be sorted by; anything else is refused, never passed to SQL. */
 export const targetSortColumns = [
@@ -16,6 +17,7 @@ export const targetSortColumns = [
   "magnificationTotal",
   "timeDelayDays",
   "crossingTimeDays",
+  "caseVerdict",
   "updatedAt",
 ] as const;
 export type TargetSortColumn = (typeof targetSortColumns)[number];
@@ -37,7 +39,9 @@ export const targetListQuerySchema = z.object({
   status: z.enum(targetStatuses, { error: `The status filter is one of ${targetStatuses.join(", ")}.` }).optional(),
   lensModel: z.enum(lensModels, { error: `The lens model filter is ${lensModels.join(" or ")}.` }).optional(),
   tag: storedText("The tag filter").trim().max(32, "The tag filter is at most 32 characters.").optional(),
-  resolutionVerdict: z.enum(verdicts, { error: `The resolution verdict filter is one of ${verdicts.join(", ")}.` }).optional(),
+  caseVerdict: z.enum(verdicts, { error: `The case verdict filter is one of ${verdicts.join(", ")}.` }).optional(),
+  /** The case a target's answers are for (its `answeredCase`: the chosen case, else the inferred one). */
+  answeredCase: z.enum(scienceCaseIds, { error: `The science case filter is one of ${scienceCaseIds.join(", ")}.` }).optional(),
 });
 
 export type TargetListQuery = z.infer<typeof targetListQuerySchema>;

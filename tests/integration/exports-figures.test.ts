@@ -89,6 +89,10 @@ describe("figure and summary exports: the same role rules as the views", () => {
     // θ_E of the world's point lens (0.4 M☉, 4 kpc / 8 kpc): 0.6381 mas, at 3 digits.
     expect(text).toContain("TB-ML-0001");
     expect(text).toContain("0.638");
+    // The target's science case in words: a compact lens whose images blend within 60 mas is an event to watch.
+    expect(text).toContain("Science cases");
+    expect(text).toContain("Photometric microlensing event (inferred from the model and numbers)");
+    expect(text).toContain("Peak magnification: Feasible");
     expect(text).toContain("Usable dark hours per night");
     expect(text).toContain("Constant GM_sun");
     await parser.destroy();

@@ -91,7 +91,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
         <h2 id="targets-heading" className="text-2xl font-semibold">
           Targets
         </h2>
-        <TargetTable proposalId={proposalId} initialPage={targets} settings={proposal} />
+        <TargetTable proposalId={proposalId} initialPage={targets} />
         {permissions.canEdit && <TargetForm proposalId={proposalId} initialPage={targets} />}
         {permissions.canEdit && (
           <Link href={`/proposals/${proposalId}/import`} className="inline-block text-sm">

@@ -20,7 +20,28 @@ const subsets = [
 const weights = [400, 600] as const;
 
 /** A system face with the few symbols Source Sans 3 lacks (√, ☉, ✕), used only for those glyphs. */
-const FALLBACK_FONT_FILE = "/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf";
+export const FALLBACK_FONT_FILE = "/usr/share/fonts/truetype/dejavu/DejaVuSans.ttf";
+
+export type BundledSubset = (typeof subsets)[number]["name"];
+
+/** The subsets in the order a character is looked up in. */
+export const bundledSubsets: readonly BundledSubset[] = subsets.map((s) => s.name);
+
+/** The code-point ranges of each subset, read once from its declared unicode-range. */
+const subsetRanges = new Map<BundledSubset, [number, number][]>(
+  subsets.map((subset) => [
+    subset.name,
+    subset.unicodeRange.split(",").map((part) => {
+      const [low, high = low] = part.replace("U+", "").split("-");
+      return [parseInt(low, 16), parseInt(high, 16)] as [number, number];
+    }),
+  ]),
+);
+
+/** Whether a subset's declared unicode-range holds a code point. */
+export function subsetHolds(subset: BundledSubset, codePoint: number): boolean {
+  return subsetRanges.get(subset)!.some(([low, high]) => codePoint >= low && codePoint <= high);
+}
 
 function fontFile(subset: string, weight: number, extension: "woff" | "woff2"): string {
   return join(process.cwd(), "node_modules", "@fontsource", "source-sans-3", "files", `source-sans-3-${subset}-${weight}-normal.${extension}`);
@@ -64,7 +85,7 @@ export function bundledSfntFiles(): string[] {
   return cachedSfntFiles;
 }
 
-/** The Latin subset as WOFF for pdfkit (fontkit reads WOFF), at a weight. */
-export function bundledPdfFont(weight: (typeof weights)[number]): Buffer {
-  return readFileSync(fontFile("latin", weight, "woff"));
+/** A subset (Latin unless named) as WOFF for pdfkit (fontkit reads WOFF), at a weight. */
+export function bundledPdfFont(weight: (typeof weights)[number], subset: BundledSubset = "latin"): Buffer {
+  return readFileSync(fontFile(subset, weight, "woff"));
 }

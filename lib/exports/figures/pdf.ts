@@ -6,7 +6,8 @@ import type SVGtoPDFFunction from "svg-to-pdfkit";
 import { nodeRequire } from "./node-require";
 import { RESVG_PACKAGE } from "./png";
 import type { Provenance } from "@/lib/exports/provenance";
-import { BUNDLED_FONT_FAMILY, bundledPdfFont, bundledSfntFiles } from "./bundled-font";
+import { existsSync } from "node:fs";
+import { BUNDLED_FONT_FAMILY, bundledPdfFont, bundledSfntFiles, bundledSubsets, FALLBACK_FONT_FILE, subsetHolds, type BundledSubset } from "./bundled-font";
 import type { SvgFigure } from "./svg-document";
 
 /** CSS pixels to PDF points (1 px = 1/96 in, 1 pt = 1/72 in). */
@@ -14,6 +15,12 @@ export const POINTS_PER_PX = 0.75;
 
 export const PDF_FONT = "SourceSans3";
 export const PDF_FONT_SEMIBOLD = "SourceSans3-Semibold";
+
+type PdfWeight = 400 | 600;
+const baseFontName: Record<PdfWeight, string> = { 400: PDF_FONT, 600: PDF_FONT_SEMIBOLD };
+/** The registered name of a bundled subset at a weight; the Latin ones keep the names above. */
+const subsetFontName = (weight: PdfWeight, subset: BundledSubset) => (subset === "latin" ? baseFontName[weight] : `${baseFontName[weight]}-${subset}`);
+const FALLBACK_PDF_FONT = "Fallback";
 
 /**
  * The figure's SVG with every glyph of its labels as outlines of the bundled font, laid out by resvg
@@ -46,9 +53,33 @@ export function provenancePdf(provenance: Provenance, title: string, size?: [num
   });
   // Custom keys of the info dictionary are allowed (ISO 32000-1 §14.3.3) and read by pdf-parse and exiftool.
   Object.assign(doc.info, { ArcwrightProvenance: JSON.stringify(provenance), ArcwrightReproduce: provenance.reproduceUrl });
-  doc.registerFont(PDF_FONT, bundledPdfFont(400));
-  doc.registerFont(PDF_FONT_SEMIBOLD, bundledPdfFont(600));
+  for (const weight of [400, 600] as const) for (const subset of bundledSubsets) doc.registerFont(subsetFontName(weight, subset), bundledPdfFont(weight, subset));
+  if (existsSync(FALLBACK_FONT_FILE)) doc.registerFont(FALLBACK_PDF_FONT, FALLBACK_FONT_FILE);
   return doc;
+}
+
+/**
+ * A text cut into runs that one registered font each can draw: the Latin subset, else the Latin
+ * extension (ń), else Greek (θ, λ, Δ), else the system fallback face (☉, ≥, √) when it is installed.
+ * pdfkit draws a text in a single font, and a glyph its font lacks would be lost.
+ */
+export function pdfTextRuns(text: string, weight: PdfWeight, hasFallback = existsSync(FALLBACK_FONT_FILE)): { font: string; text: string }[] {
+  const runs: { font: string; text: string }[] = [];
+  for (const character of text) {
+    const codePoint = character.codePointAt(0)!;
+    const subset = bundledSubsets.find((s) => subsetHolds(s, codePoint));
+    const font = subset !== undefined ? subsetFontName(weight, subset) : hasFallback ? FALLBACK_PDF_FONT : baseFontName[weight];
+    const last = runs.at(-1);
+    if (last?.font === font) last.text += character;
+    else runs.push({ font, text: character });
+  }
+  return runs;
+}
+
+/** Writes a text in the flow at the current size, each run in the font that has its glyphs; `continued` as in pdfkit. */
+export function writePdfText(doc: PDFKit.PDFDocument, text: string, weight: PdfWeight, options: PDFKit.Mixins.TextOptions & { continued?: boolean } = {}): void {
+  const runs = pdfTextRuns(text, weight);
+  runs.forEach((run, index) => doc.font(run.font).text(run.text, { ...options, continued: index < runs.length - 1 || options.continued === true }));
 }
 
 /** Collects a finished pdfkit document into bytes. */

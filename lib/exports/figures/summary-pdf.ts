@@ -1,9 +1,10 @@
 import "server-only";
 import { provenanceLines, type Provenance } from "@/lib/exports/provenance";
+import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import type { PlotExport } from "./figure-response";
-import { drawFigure, PDF_FONT, PDF_FONT_SEMIBOLD, pdfBytes, provenancePdf } from "./pdf";
+import { drawFigure, PDF_FONT, PDF_FONT_SEMIBOLD, pdfBytes, provenancePdf, writePdfText } from "./pdf";
 import { standaloneSvg } from "./svg-document";
 
 /** Rows of the table printed in the summary; the full list is in the table exports. */
@@ -11,7 +12,8 @@ export const SUMMARY_MAX_ROWS = 200;
 
 /**
  * The proposal's technical summary as an A4 PDF (pdfkit, Source Sans 3 embedded): the target table
- * with the chosen columns, then each chosen figure on its own page, then the provenance of each part.
+ * with the chosen columns, each target's science case answered in sentences (verdict, number, source),
+ * then each chosen figure on its own page, then the provenance of each part.
  */
 export async function technicalSummaryPdf(table: TargetTable, figures: PlotExport[], provenance: Provenance): Promise<Uint8Array> {
   const doc = provenancePdf(provenance, `Technical summary: ${table.title}`);
@@ -34,6 +36,20 @@ export async function technicalSummaryPdf(table: TargetTable, figures: PlotExpor
   drawRow(table.columns.map(({ column }) => headerOf(column)), true);
   for (const row of table.rows.slice(0, SUMMARY_MAX_ROWS)) drawRow(table.columns.map((chosen) => cellText(cellOf(row, chosen.column), chosen) || "–"), false);
   if (table.rows.length > SUMMARY_MAX_ROWS) doc.moveDown().text(`${table.rows.length - SUMMARY_MAX_ROWS} more targets are in the table exports.`);
+  doc.x = doc.page.margins.left;
+  doc.moveDown().font(PDF_FONT_SEMIBOLD).fontSize(11).text("Science cases", { width });
+  // The answers speak in θ_E, λ/B, Δt and name authors such as Paczyński: written in runs per font.
+  for (const target of table.rows.slice(0, SUMMARY_MAX_ROWS).map(summaryCaseOf)) {
+    doc.moveDown(0.6).fontSize(9);
+    writePdfText(doc, target.targetName, 600, { width });
+    doc.fontSize(8);
+    writePdfText(doc, target.caseText, 400, { width });
+    for (const answer of target.answers) {
+      doc.moveDown(0.2).fontSize(7.5);
+      writePdfText(doc, `${answer.question}: ${answer.verdictText}. `, 600, { width, continued: true });
+      writePdfText(doc, `${answer.sentence} Rule: ${answer.source}`, 400, { width });
+    }
+  }
   for (const plot of figures) {
     doc.addPage();
     doc.font(PDF_FONT_SEMIBOLD).fontSize(11).text(plot.title);

@@ -5,6 +5,7 @@
  */
 import { z } from "zod";
 import type { TargetView } from "@/lib/server/targets";
+import { answersLine } from "@/lib/workspace/case-verdict-words";
 
 export type ColumnKind = "double" | "int" | "text";
 
@@ -23,6 +24,8 @@ export interface ExportColumn {
   defaultDigits: number;
   /** Whether the column is an input of the hypothesis or a stored computed quantity. */
   origin: "input" | "computed";
+  /** A text of several sentences, which a typeset table wraps in a paragraph column. */
+  isParagraph?: boolean;
 }
 
 const input = (c: Omit<ExportColumn, "origin">): ExportColumn => ({ ...c, origin: "input" });
@@ -42,6 +45,11 @@ export const exportColumns = [
   input({ key: "sourceRedshift", label: "Source redshift", unit: "", latexUnit: "", voUnit: "", ucd: "src.redshift", kind: "double", defaultDigits: 4 }),
   input({ key: "sourceOffsetThetaE", label: "Source offset", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "pos.angDistance;arith.ratio", kind: "double", defaultDigits: 4 }),
   input({ key: "properMotionMasPerYr", label: "Relative proper motion", unit: "mas/yr", latexUnit: "mas/yr", voUnit: "mas/yr", ucd: "pos.pm", kind: "double", defaultDigits: 4 }),
+  // t0 as a Julian date (UTC): ten digits show it to about two minutes.
+  input({ key: "eventPeakJdUtc", label: "Event peak t0 (JD, UTC)", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.epoch", kind: "double", defaultDigits: 10 }),
+  input({ key: "sourceRadiusSolar", label: "Source radius", unit: "Rsun", latexUnit: "$R_\\odot$", voUnit: "solRad", ucd: "phys.size.radius", kind: "double", defaultDigits: 4 }),
+  input({ key: "sourceRadiusThetaE", label: "Source radius rho", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "phys.angSize;arith.ratio", kind: "double", defaultDigits: 4 }),
+  input({ key: "limbDarkeningU", label: "Limb-darkening coefficient", unit: "", latexUnit: "", voUnit: "", ucd: "phys.limbDark", kind: "double", defaultDigits: 4 }),
   input({ key: "priority", label: "Priority", unit: "", latexUnit: "", voUnit: "", ucd: "meta.code.qual", kind: "int", defaultDigits: 0 }),
   input({ key: "status", label: "Status", ucd: "meta.code.status", ...text }),
   input({ key: "tags", label: "Tags", ucd: "meta.note", ...text }),
@@ -51,9 +59,10 @@ export const exportColumns = [
   computed({ key: "timeDelayDays", label: "Time delay", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.interval", kind: "double", defaultDigits: 4 }),
   computed({ key: "crossingTimeDays", label: "Einstein crossing time", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.duration", kind: "double", defaultDigits: 4 }),
   computed({ key: "shadowDiameterMicroarcsec", label: "Shadow diameter", unit: "uas", latexUnit: "$\\mu$as", voUnit: "uarcsec", ucd: "phys.angSize", kind: "double", defaultDigits: 4 }),
-  computed({ key: "resolutionVerdict", label: "Resolution verdict", ucd: "meta.code", ...text }),
-  computed({ key: "cadenceVerdict", label: "Cadence verdict", ucd: "meta.code", ...text }),
-  computed({ key: "campaignVerdict", label: "Campaign verdict", ucd: "meta.code", ...text }),
+  // The case's id (chosen, else inferred), its worst verdict, and every answer in one text cell.
+  computed({ key: "answeredCase", label: "Science case", ucd: "meta.code", ...text }),
+  computed({ key: "caseVerdict", label: "Case verdict", ucd: "meta.code", ...text }),
+  computed({ key: "caseAnswers", label: "Case answers", ucd: "meta.note", ...text, isParagraph: true }),
 ] as const satisfies readonly ExportColumn[];
 
 export type ExportColumnKey = (typeof exportColumns)[number]["key"];
@@ -77,7 +86,8 @@ export const defaultExportColumns: ExportColumnKey[] = [
   "imageSeparationMas",
   "magnificationTotal",
   "crossingTimeDays",
-  "resolutionVerdict",
+  "answeredCase",
+  "caseVerdict",
 ];
 
 /** "Einstein radius [mas]": the header text with its unit, for CSV and JSON. */
@@ -109,8 +119,9 @@ export interface ChosenColumn {
 /** One exported cell before formatting: a number, a text, or nothing (the model gives no value). */
 export type CellValue = number | string | null;
 
-/** The cell of `row` under `column`; tags are joined with "; ". */
+/** The cell of `row` under `column`; tags are joined with "; ", the case's answers written as one text ("Question: Verdict (figure); …"). */
 export function cellOf(row: TargetView, column: ExportColumn): CellValue {
+  if (column.key === "caseAnswers") return row.caseAnswers.length === 0 ? null : answersLine(row.caseAnswers);
   const value = row[column.key];
   if (Array.isArray(value)) return value.join("; ");
   if (value === null || value === undefined) return null;

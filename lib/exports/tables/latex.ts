@@ -33,14 +33,17 @@ function latexHeader(column: ExportColumn): string {
   return column.latexUnit === "" ? label : `${label} (${column.latexUnit})`;
 }
 
+/** Width of a paragraph column (the case's answers): about half an A4 text block. */
+const PARAGRAPH_WIDTH = "7cm";
+
 /**
  * The table as a plain LaTeX `tabular` (no package needed: compiles with the LaTeX kernel alone),
- * preceded by `%` comment lines holding the provenance. Text columns left-aligned, numbers right;
- * a value the model does not give is an en dash.
+ * preceded by `%` comment lines holding the provenance. Text columns left-aligned (a paragraph
+ * column wrapped), numbers right; a value the model does not give is an en dash.
  */
 export function targetTableLatex(table: TargetTable): string {
   const comments = provenanceLines(table.provenance).map((line) => `% ${singleLine(line)}`);
-  const alignment = table.columns.map(({ column }) => (column.kind === "text" ? "l" : "r")).join("");
+  const alignment = table.columns.map(({ column }) => (column.isParagraph ? `p{${PARAGRAPH_WIDTH}}` : column.kind === "text" ? "l" : "r")).join("");
   const header = table.columns.map(({ column }) => latexHeader(column)).join(" & ");
   const rows = table.rows.map((row) =>
     table.columns

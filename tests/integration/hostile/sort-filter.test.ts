@@ -15,15 +15,16 @@ import { createWorld, pointTargetInput, type World } from "../support/world";
  * table's query string); anything else is a 400 naming the parameter, never text passed to SQL.
  * Written out here from the API's documentation, and checked against the schema's own lists.
  */
-const documentedSortColumns = ["name", "raDeg", "decDeg", "priority", "status", "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "updatedAt"];
+const documentedSortColumns = ["name", "raDeg", "decDeg", "priority", "status", "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "caseVerdict", "updatedAt"];
 const documentedFilters = {
   status: ["candidate", "accepted", "scheduled", "observed", "dropped"],
   lensModel: ["point", "sis"],
-  resolutionVerdict: ["feasible", "marginal", "infeasible", "unknown"],
+  caseVerdict: ["feasible", "marginal", "infeasible", "unknown"],
+  answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"],
 } as const;
 const documentedExportColumns = [
-  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "priority", "status", "tags",
-  "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "resolutionVerdict", "cadenceVerdict", "campaignVerdict",
+  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "priority", "status", "tags",
+  "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "answeredCase", "caseVerdict", "caseAnswers",
 ];
 
 const runs = 60;
@@ -63,7 +64,7 @@ function expectRefusalNaming(answer: Answer, names: string[]) {
 
 // PostgreSQL sorts an enum by its declared order (manual, "Enumerated Types"); this cluster's C.UTF-8
 // collation sorts text by code point, which for these ASCII names is JavaScript's order too.
-const enumOrder: Partial<Record<keyof TargetView, readonly string[]>> = { status: documentedFilters.status };
+const enumOrder: Partial<Record<keyof TargetView, readonly string[]>> = { status: documentedFilters.status, caseVerdict: documentedFilters.caseVerdict };
 
 function compareValues(column: keyof TargetView, a: unknown, b: unknown): number {
   const order = enumOrder[column];
@@ -80,7 +81,8 @@ describe("target list: sort and filter accept only the documented columns", () =
     expect(shape.direction.unwrap().options).toEqual(["asc", "desc"]);
     expect(shape.status.unwrap().options).toEqual(documentedFilters.status);
     expect(shape.lensModel.unwrap().options).toEqual(documentedFilters.lensModel);
-    expect(shape.resolutionVerdict.unwrap().options).toEqual(documentedFilters.resolutionVerdict);
+    expect(shape.caseVerdict.unwrap().options).toEqual(documentedFilters.caseVerdict);
+    expect(shape.answeredCase.unwrap().options).toEqual(documentedFilters.answeredCase);
   });
 
   it("any other sort column is a 400 naming sort, whatever it looks like", async () => {

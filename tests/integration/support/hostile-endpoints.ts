@@ -92,7 +92,7 @@ function importOf(w: HostileWorld) {
 
 /** Every query key each reading endpoint takes (from its query schema), with a value it accepts. */
 const queryTemplates: Record<string, (w: HostileWorld) => Record<string, string>> = {
-  "GET /targets": () => ({ page: "1", pageSize: "50", sort: "einsteinRadiusMas", direction: "desc", q: "TB", status: "candidate", lensModel: "point", tag: "bulge", resolutionVerdict: "feasible" }),
+  "GET /targets": () => ({ page: "1", pageSize: "50", sort: "einsteinRadiusMas", direction: "desc", q: "TB", status: "candidate", lensModel: "point", tag: "bulge", caseVerdict: "feasible", answeredCase: "photometric-microlensing" }),
   "GET /activity": () => ({ limit: "30", before: "1000000" }),
   "GET /admin/accounts": () => ({ q: "pi", page: "1", pageSize: "5" }),
   "GET /exports/targets": () => ({ format: "json", columns: "name,einsteinRadiusMas,raDeg", digits: "raDeg:6,3" }),

@@ -1,5 +1,34 @@
+import type { CaseAnswer } from "@/lib/lensing/science-cases";
 import type { TargetView } from "@/lib/server/targets";
 import { buildProvenance } from "@/lib/exports/provenance";
+
+/** A photometric event's answers as the science case words them (one feasible, one marginal, one not). */
+export const pointAnswers: CaseAnswer[] = [
+  {
+    id: "peak-magnification",
+    question: "Peak magnification",
+    verdict: "feasible",
+    figure: "A = 3.437",
+    sentence: "At u0 = 0.3 the source brightens 3.437 times at the peak.",
+    source: "Paczyński 1986, ApJ 304, 1",
+  },
+  {
+    id: "event-visits",
+    question: "Visits over the event (t0 ± t_E)",
+    verdict: "marginal",
+    figure: "6 visits",
+    sentence: "The schedule collects 6 visits within t0 ± t_E.",
+    source: "Common practice",
+  },
+  {
+    id: "peak-window",
+    question: "Peak in usable time",
+    verdict: "infeasible",
+    figure: "—",
+    sentence: "The peak falls in daylight at the site.",
+    source: "Our rule",
+  },
+];
 
 /** Two targets: a point lens with every value, and an isothermal galaxy with gaps and hostile text. */
 export const exportRows: TargetView[] = [
@@ -20,6 +49,11 @@ export const exportRows: TargetView[] = [
     sourceRedshift: null,
     sourceOffsetThetaE: 0.3,
     properMotionMasPerYr: 5,
+    scienceCase: null,
+    eventPeakJdUtc: 2461571.6875,
+    sourceRadiusSolar: 1.2,
+    sourceRadiusThetaE: null,
+    limbDarkeningU: 0.6,
     priority: 2,
     status: "candidate",
     tags: ["bulge", "night-1"],
@@ -29,9 +63,9 @@ export const exportRows: TargetView[] = [
     timeDelayDays: 1.2345678e-7,
     crossingTimeDays: 46.5128,
     shadowDiameterMicroarcsec: 0.00521837,
-    resolutionVerdict: "infeasible",
-    cadenceVerdict: "feasible",
-    campaignVerdict: "feasible",
+    answeredCase: "photometric-microlensing",
+    caseVerdict: "infeasible",
+    caseAnswers: pointAnswers,
     updatedAt: "2031-01-02T03:04:05.000Z",
   },
   {
@@ -51,6 +85,11 @@ export const exportRows: TargetView[] = [
     sourceRedshift: 2,
     sourceOffsetThetaE: 1.2,
     properMotionMasPerYr: null,
+    scienceCase: "resolved-images",
+    eventPeakJdUtc: null,
+    sourceRadiusSolar: null,
+    sourceRadiusThetaE: null,
+    limbDarkeningU: null,
     priority: 5,
     status: "accepted",
     tags: [],
@@ -60,9 +99,9 @@ export const exportRows: TargetView[] = [
     timeDelayDays: null,
     crossingTimeDays: null,
     shadowDiameterMicroarcsec: null,
-    resolutionVerdict: "unknown",
-    cadenceVerdict: "unknown",
-    campaignVerdict: "unknown",
+    answeredCase: "resolved-images",
+    caseVerdict: "unknown",
+    caseAnswers: [],
     updatedAt: "2031-01-02T03:04:05.000Z",
   },
 ];

@@ -259,3 +259,44 @@ describe("JSON export", () => {
     expect(body.provenance.constants.map((c) => c.name)).toContain("GM_sun");
   });
 });
+
+describe("the science case's columns", () => {
+  const caseColumns = tableColumnsQuerySchema.parse({ columns: "name,answeredCase,caseVerdict,caseAnswers,eventPeakJdUtc,sourceRadiusSolar,limbDarkeningU" });
+  const caseTable: TargetTable = { ...table, columns: caseColumns };
+
+  it("are in the default columns (the case and its worst verdict; the answers on request), the old verdict columns gone", () => {
+    const defaults = tableColumnsQuerySchema.parse({}).map((c) => c.column.key);
+    expect(defaults).toContain("answeredCase");
+    expect(defaults).toContain("caseVerdict");
+    expect(defaults).not.toContain("caseAnswers");
+    expect(tableColumnsQuerySchema.safeParse({ columns: "name,resolutionVerdict" }).success).toBe(false);
+  });
+
+  it("write every answer in one CSV cell, question, verdict and figure, and nothing for a target without answers", () => {
+    const [header, first, second] = Papa.parse<string[]>(targetTableCsv(caseTable), { skipEmptyLines: true }).data;
+    expect(header).toEqual(["Name", "Science case", "Case verdict", "Case answers", "Event peak t0 (JD, UTC) [d]", "Source radius [Rsun]", "Limb-darkening coefficient"]);
+    expect(first.slice(1, 4)).toEqual([
+      "photometric-microlensing",
+      "infeasible",
+      "Peak magnification: Feasible (A = 3.437); Visits over the event (t0 ± t_E): Marginal (6 visits); Peak in usable time: Not feasible",
+    ]);
+    // Inputs are written as stored: t0 to the last digit, so a re-import keeps it.
+    expect(first.slice(4)).toEqual(["2461571.6875", "1.2", "0.6"]);
+    expect(second.slice(1, 5)).toEqual(["resolved-images", "unknown", "", ""]);
+  });
+
+  it("declare t0 an epoch in days and the source radius in solar radii (VOTable units and UCDs)", () => {
+    const doc = new XMLParser({ ignoreAttributes: false, attributeNamePrefix: "" }).parse(targetTableVotable(caseTable));
+    const fields = doc.VOTABLE.RESOURCE.TABLE.FIELD as { name: string; unit?: string; ucd: string }[];
+    expect(fields.find((f) => f.name === "eventPeakJdUtc")).toMatchObject({ unit: "d", ucd: "time.epoch" });
+    expect(fields.find((f) => f.name === "sourceRadiusSolar")).toMatchObject({ unit: "solRad", ucd: "phys.size.radius" });
+    expect(fields.find((f) => f.name === "caseVerdict")).toMatchObject({ ucd: "meta.code" });
+  });
+
+  it("wrap the answers in a paragraph column in LaTeX, escaped", () => {
+    const tex = targetTableLatex(caseTable);
+    expect(tex).toContain("\\begin{tabular}{lllp{7cm}rrr}");
+    expect(tex).toContain("Visits over the event (t0 ± t\\_E): Marginal (6 visits)");
+    expect(bracesBalance(tex)).toBe(true);
+  });
+});

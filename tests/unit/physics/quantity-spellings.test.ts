@@ -86,6 +86,7 @@ describe("every unit the table exports write reads back (lib/exports/tables/colu
   // The column key names the unit its numbers are in (columns.ts: "Numbers are exported in the units
   // the column key names"); the header unit and the VOUnit must both read as that unit.
   const byKeySuffix: [RegExp, SpellingRow["kind"], string][] = [
+    [/RadiusSolar$/, "length", "Rsun"],
     [/Solar$/, "mass", "Msun"],
     [/KmPerS$/, "velocity", "km/s"],
     [/Pc$/, "distance", "pc"],
@@ -94,6 +95,7 @@ describe("every unit the table exports write reads back (lib/exports/tables/colu
     [/Mas$/, "angle", "mas"],
     [/Deg$/, "angle", "deg"],
     [/Days$/, "time", "d"],
+    [/JdUtc$/, "time", "d"],
   ];
   const quantityColumns = exportColumns.filter((column) => column.voUnit !== "" && column.kind === "double");
 

@@ -2,6 +2,8 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { NightFigureDownloads, SeasonFigureDownloads } from "@/components/exports/sky-figure-downloads";
 import { TableDownloads } from "@/components/exports/table-downloads";
+import { verdictClass } from "@/components/workspace/format";
+import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import { provenanceLines } from "@/lib/exports/provenance";
 import { loadTargetTable } from "@/lib/exports/server/target-table";
@@ -11,7 +13,8 @@ import { SummaryPdfDownload } from "@/components/exports/summary-pdf-download";
 export const metadata: Metadata = { title: "Technical summary" };
 
 /**
- * A proposal's technical summary, printable (white paper, black text, controls hidden, the table
+ * A proposal's technical summary (the target table, then each target's science case answered in
+ * sentences with their verdicts, numbers and sources), printable (white paper, black text, controls hidden, the table
  * kept whole where it fits) and downloadable as a PDF built on the server; any member may open it.
  */
 export default async function SummaryPage({ params }: { params: Promise<{ proposalId: string }> }) {
@@ -26,7 +29,7 @@ export default async function SummaryPage({ params }: { params: Promise<{ propos
   .summary-sheet * { color: #000 !important; border-color: #666 !important; background: transparent !important; }
   header[role="banner"], nav, .summary-controls { display: none !important; }
   .summary-table { page-break-inside: auto; }
-  .summary-table tr { page-break-inside: avoid; }
+  .summary-table tr, .summary-case { page-break-inside: avoid; }
   .summary-provenance { page-break-before: always; }
 }`}</style>
       <header className="space-y-1">
@@ -62,6 +65,26 @@ export default async function SummaryPage({ params }: { params: Promise<{ propos
           ))}
         </tbody>
       </table>
+      <section aria-labelledby="summary-cases-heading" className="space-y-4" data-testid="summary-cases">
+        <h2 id="summary-cases-heading" className="text-xl font-semibold">
+          Science cases
+        </h2>
+        {table.rows.map(summaryCaseOf).map((target) => (
+          <section key={target.targetId} aria-label={target.targetName} className="summary-case space-y-1 text-sm" data-testid="summary-case">
+            <h3 className="font-semibold">{target.targetName}</h3>
+            <p data-testid="science-case">{target.caseText}</p>
+            <ul className="space-y-1 pl-4">
+              {target.answers.map((answer) => (
+                <li key={answer.question}>
+                  <span className="text-dusk-dim">{answer.question}: </span>
+                  <span className={`font-semibold ${verdictClass[answer.verdict]}`}>{answer.verdictText}.</span> {answer.sentence}{" "}
+                  <span className="text-xs text-dusk-dim">Rule: {answer.source}</span>
+                </li>
+              ))}
+            </ul>
+          </section>
+        ))}
+      </section>
       <section aria-label="Provenance" className="summary-provenance text-xs text-dusk-dim">
         <h2 className="mb-1 text-base font-semibold text-dusk">Provenance</h2>
         <ul>

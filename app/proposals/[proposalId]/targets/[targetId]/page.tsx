@@ -1,16 +1,18 @@
 import type { Metadata } from "next";
 import Link from "next/link";
 import { ConfirmDelete } from "@/components/workspace/confirm-delete";
-import { FeasibilityList } from "@/components/sky/feasibility-list";
 import { TargetNightPanel } from "@/components/sky/target-night-panel";
 import { formatQuantity, formatWithUnit } from "@/components/workspace/format";
+import { CaseAnswers } from "@/components/workspace/case-answers";
 import { TargetEditForm } from "@/components/workspace/target-edit-form";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
 import { nightDateSchema } from "@/lib/astro/inputs";
 import { currentNightIso } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
-import { targetFeasibility } from "@/lib/workspace/derived";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
+import { targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
+import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { skySiteOf } from "@/lib/workspace/proposal-schema";
 import { statusLabels } from "@/lib/workspace/status";
 import { lensModelLabels } from "@/lib/workspace/target-schema";
@@ -46,6 +48,17 @@ export default async function TargetPage({
     ...(target.lensRedshift != null ? [["Lens / source redshift", `${target.lensRedshift} / ${target.sourceRedshift}`] as [string, string]] : []),
     ["Source offset", `${formatQuantity(target.sourceOffsetThetaE)} θE`],
     ["Relative proper motion", formatWithUnit(target.properMotionMasPerYr, "mas/yr")],
+    ["Science case", target.scienceCase == null ? "Inferred from the model and numbers" : scienceCaseLabels[target.scienceCase]],
+    ["Event peak t0", target.eventPeakJdUtc == null ? "—" : formatEventPeak(target.eventPeakJdUtc)],
+    [
+      "Source radius",
+      target.sourceRadiusSolar != null
+        ? `${formatQuantity(target.sourceRadiusSolar)} R☉`
+        : target.sourceRadiusThetaE != null
+          ? `ρ = ${formatQuantity(target.sourceRadiusThetaE)} θE`
+          : "— (a point source)",
+    ],
+    ["Limb darkening", target.limbDarkeningU == null ? "— (a uniform disk)" : formatQuantity(target.limbDarkeningU)],
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
   ];
@@ -63,7 +76,8 @@ export default async function TargetPage({
         : "—",
     ],
   ];
-  const feasibility = targetFeasibility(target, proposal);
+  // Answered live from the stored hypothesis and the proposal as it is now, with the target's schedule.
+  const report = targetCaseReport(target, proposal, targetSchedules(proposal, [target])[0]);
   const site = skySiteOf(proposal.site);
   // The night in the address bar, else tonight at the site, or the cycle's first night while it is ahead.
   const tonightIso = currentNightIso(new Date(), site.longitudeEastDeg);
@@ -86,7 +100,7 @@ export default async function TargetPage({
           ) : (
             <p className="text-sm">Status: {statusLabels[target.status]}</p>
           )}
-          <Link href={benchLink(target, instrument)} className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
+          <Link href={benchLink(target, proposal)} className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
             Open in the lens bench
           </Link>
           {proposal.permissions.canEdit && (
@@ -131,12 +145,32 @@ export default async function TargetPage({
           </dl>
         </section>
       </div>
-      <section aria-labelledby="feasibility-heading">
-        <h2 id="feasibility-heading" className="mb-2 text-xl font-semibold">
-          Feasibility
+      <section aria-labelledby="science-case-heading" className="space-y-3">
+        <h2 id="science-case-heading" className="text-xl font-semibold">
+          Science case
         </h2>
-        <FeasibilityList items={feasibility} />
+        {report === null ? (
+          <p className="text-sm text-dusk-dim" data-testid="science-case">
+            The stored numbers do not give a lens solution, so no case can be answered; correct the lens hypothesis in the edit form.
+          </p>
+        ) : (
+          <>
+            <div className="space-y-1 text-sm" data-testid="science-case" data-case={report.scienceCase.caseId}>
+              <p className="text-base font-semibold">{scienceCaseLabels[report.scienceCase.caseId]}</p>
+              {report.scienceCase.reason === null ? (
+                <p className="text-dusk-dim">Chosen by the team.</p>
+              ) : (
+                <>
+                  <p>{report.scienceCase.reason}</p>
+                  <p className="text-dusk-dim">Inferred from the model and numbers; choose another in the edit form.</p>
+                </>
+              )}
+            </div>
+            <CaseAnswers answers={report.answers} />
+          </>
+        )}
       </section>
+      {/* The event's timeline with the schedule's visits and gaps belongs here, between the answers and the night. */}
       <TargetNightPanel
         site={site}
         target={{ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }}

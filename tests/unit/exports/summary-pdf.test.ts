@@ -1,0 +1,62 @@
+import { PDFParse } from "pdf-parse";
+import { describe, expect, it } from "vitest";
+import { pdfTextRuns, PDF_FONT, PDF_FONT_SEMIBOLD } from "@/lib/exports/figures/pdf";
+import { technicalSummaryPdf } from "@/lib/exports/figures/summary-pdf";
+import { summaryCaseOf } from "@/lib/exports/case-summary";
+import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
+import { exportProvenance, exportRows } from "./fixtures";
+
+const table = { title: "Arcs", columns: tableColumnsQuerySchema.parse({ columns: "name,einsteinRadiusMas" }), rows: exportRows, provenance: exportProvenance };
+
+describe("technical summary: each target's science case in sentences (issue 16, item 6)", () => {
+  it("states the case, whether it was inferred, and each answer's verdict with its number, sentence and source", () => {
+    const [point, galaxy] = exportRows.map(summaryCaseOf);
+    expect(point.caseText).toBe("Photometric microlensing event (inferred from the model and numbers)");
+    expect(point.answers[1]).toEqual({
+      question: "Visits over the event (t0 ± t_E)",
+      verdict: "marginal",
+      verdictText: "Marginal (6 visits)",
+      sentence: "The schedule collects 6 visits within t0 ± t_E.",
+      source: "Common practice",
+    });
+    expect(point.answers[2].verdictText).toBe("Not feasible");
+    expect(galaxy.caseText).toBe("Resolved multiple images (chosen by the team)");
+    expect(summaryCaseOf({ ...exportRows[1], answeredCase: null }).caseText).toMatch(/no lens solution/);
+  });
+
+  it("prints them in the PDF after the table, the old verdict columns gone", async () => {
+    const pdf = await technicalSummaryPdf(table, [], exportProvenance);
+    const parser = new PDFParse({ data: pdf });
+    const { text } = await parser.getText();
+    await parser.destroy();
+    expect(text).toContain("Science cases");
+    expect(text).toContain("Photometric microlensing event (inferred from the model and numbers)");
+    expect(text).toContain("Marginal (6 visits).");
+    expect(text).toContain("The schedule collects 6 visits within t0 ± t");
+    expect(text).toContain("Rule: Paczyński 1986, ApJ 304, 1");
+    expect(text).not.toMatch(/Resolution verdict/);
+  });
+
+  it("keeps the Greek and Latin-extended letters of the answers (the PDF's Latin font alone dropped the ń of Paczyński)", async () => {
+    const answer = { ...exportRows[0].caseAnswers[0], sentence: "The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas." };
+    const pdf = await technicalSummaryPdf({ ...table, rows: [{ ...exportRows[0], caseAnswers: [answer] }] }, [], exportProvenance);
+    const parser = new PDFParse({ data: pdf });
+    const { text } = await parser.getText();
+    await parser.destroy();
+    expect(text).toContain("The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas.");
+    expect(text).toContain("Paczyński");
+  });
+
+  it("cuts a text into runs per font: Latin, Latin extended, Greek, then the fallback face for symbols", () => {
+    expect(pdfTextRuns("Paczyński θ_E ☉", 400, true)).toEqual([
+      { font: PDF_FONT, text: "Paczy" },
+      { font: `${PDF_FONT}-latin-ext`, text: "ń" },
+      { font: PDF_FONT, text: "ski " },
+      { font: `${PDF_FONT}-greek`, text: "θ" },
+      { font: PDF_FONT, text: "_E " },
+      { font: "Fallback", text: "☉" },
+    ]);
+    // Without the system face a symbol stays in the text font (drawn as its missing-glyph box, not dropped from the run).
+    expect(pdfTextRuns("M☉", 600, false)).toEqual([{ font: PDF_FONT_SEMIBOLD, text: "M☉" }]);
+  });
+});
