@@ -14,8 +14,9 @@ export default async function ProposalSettingsPage({ params }: { params: Promise
     <div className="space-y-6">
       <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Proposal settings">
         <p className="max-w-3xl text-sm text-dusk-dim">
-          The cycle dates span the season view and the dark-hours verdict; the site and airmass limit decide
-          when a target counts as observable; the instrument defaults grade every target.
+          The cycle dates span the season view and each target&apos;s simulated observing schedule; the site, airmass
+          limit and Moon constraint decide when a target counts as observable; the instrument settings answer every
+          target&apos;s science case.
         </p>
       </ProposalPageHeader>
       {proposal.permissions.canManage ? (
