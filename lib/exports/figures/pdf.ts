@@ -76,10 +76,24 @@ export function pdfTextRuns(text: string, weight: PdfWeight, hasFallback = exist
   return runs;
 }
 
-/** Writes a text in the flow at the current size, each run in the font that has its glyphs; `continued` as in pdfkit. */
-export function writePdfText(doc: PDFKit.PDFDocument, text: string, weight: PdfWeight, options: PDFKit.Mixins.TextOptions & { continued?: boolean } = {}): void {
+/**
+ * Writes a text at the current size, each run in the font that has its glyphs: in the flow, or from
+ * `at` (a table cell); `continued` as in pdfkit.
+ */
+export function writePdfText(
+  doc: PDFKit.PDFDocument,
+  text: string,
+  weight: PdfWeight,
+  options: PDFKit.Mixins.TextOptions & { continued?: boolean } = {},
+  at?: { x: number; y: number },
+): void {
   const runs = pdfTextRuns(text, weight);
-  runs.forEach((run, index) => doc.font(run.font).text(run.text, { ...options, continued: index < runs.length - 1 || options.continued === true }));
+  runs.forEach((run, index) => {
+    const runOptions = { ...options, continued: index < runs.length - 1 || options.continued === true };
+    doc.font(run.font);
+    if (index === 0 && at !== undefined) doc.text(run.text, at.x, at.y, runOptions);
+    else doc.text(run.text, runOptions);
+  });
 }
 
 /** Collects a finished pdfkit document into bytes. */

@@ -18,8 +18,10 @@ export const SUMMARY_MAX_ROWS = 200;
 export async function technicalSummaryPdf(table: TargetTable, figures: PlotExport[], provenance: Provenance): Promise<Uint8Array> {
   const doc = provenancePdf(provenance, `Technical summary: ${table.title}`);
   const width = doc.page.width - 2 * doc.page.margins.left;
-  doc.font(PDF_FONT_SEMIBOLD).fontSize(16).fillColor("#000000").text(`Technical summary: ${table.title}`);
-  doc.moveDown(0.5).font(PDF_FONT).fontSize(9).text(provenance.subject);
+  doc.fontSize(16).fillColor("#000000");
+  writePdfText(doc, `Technical summary: ${table.title}`, 600);
+  doc.moveDown(0.5).fontSize(9);
+  writePdfText(doc, provenance.subject, 400);
   doc.moveDown();
   const columnWidth = width / table.columns.length;
   const drawRow = (cells: string[], isHeader: boolean) => {
@@ -28,7 +30,7 @@ export async function technicalSummaryPdf(table: TargetTable, figures: PlotExpor
     const heights = cells.map((cell, i) => doc.heightOfString(cell, { width: columnWidth - 4 }));
     if (y + Math.max(...heights) > doc.page.height - doc.page.margins.bottom) doc.addPage();
     const top = doc.y;
-    cells.forEach((cell, i) => doc.text(cell, doc.page.margins.left + i * columnWidth, top, { width: columnWidth - 4 }));
+    cells.forEach((cell, i) => writePdfText(doc, cell, isHeader ? 600 : 400, { width: columnWidth - 4 }, { x: doc.page.margins.left + i * columnWidth, y: top }));
     doc.x = doc.page.margins.left;
     doc.y = top + Math.max(...heights) + 3;
     doc.moveTo(doc.page.margins.left, doc.y - 1.5).lineTo(doc.page.margins.left + width, doc.y - 1.5).lineWidth(0.3).stroke("#888888");

@@ -39,12 +39,15 @@ describe("technical summary: each target's science case in sentences (issue 16, 
 
   it("keeps the Greek and Latin-extended letters of the answers (the PDF's Latin font alone dropped the ń of Paczyński)", async () => {
     const answer = { ...exportRows[0].caseAnswers[0], sentence: "The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas." };
-    const pdf = await technicalSummaryPdf({ ...table, rows: [{ ...exportRows[0], caseAnswers: [answer] }] }, [], exportProvenance);
+    const pdf = await technicalSummaryPdf({ ...table, title: "Łódź arcs", rows: [{ ...exportRows[0], name: "HE 0435−1223 Ω", caseAnswers: [answer] }] }, [], exportProvenance);
     const parser = new PDFParse({ data: pdf });
     const { text } = await parser.getText();
     await parser.destroy();
     expect(text).toContain("The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas.");
     expect(text).toContain("Paczyński");
+    // The title and the table's cells too.
+    expect(text).toContain("Technical summary: Łódź arcs");
+    expect(text).toContain("HE 0435−1223 Ω 0.6372");
   });
 
   it("cuts a text into runs per font: Latin, Latin extended, Greek, then the fallback face for symbols", () => {
