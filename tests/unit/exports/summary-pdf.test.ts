@@ -6,6 +6,14 @@ import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { exportProvenance, exportRows } from "./fixtures";
 
+/** The text a PDF reader extracts from the document. */
+async function pdfText(pdf: Uint8Array): Promise<string> {
+  const parser = new PDFParse({ data: pdf });
+  const { text } = await parser.getText();
+  await parser.destroy();
+  return text;
+}
+
 const table = { title: "Arcs", columns: tableColumnsQuerySchema.parse({ columns: "name,einsteinRadiusMas" }), rows: exportRows, provenance: exportProvenance };
 
 describe("technical summary: each target's science case in sentences (issue 16, item 6)", () => {
@@ -25,10 +33,7 @@ describe("technical summary: each target's science case in sentences (issue 16, 
   });
 
   it("prints them in the PDF after the table, the old verdict columns gone", async () => {
-    const pdf = await technicalSummaryPdf(table, [], exportProvenance);
-    const parser = new PDFParse({ data: pdf });
-    const { text } = await parser.getText();
-    await parser.destroy();
+    const text = await pdfText(await technicalSummaryPdf(table, [], exportProvenance));
     expect(text).toContain("Science cases");
     expect(text).toContain("Photometric microlensing event (inferred from the model and numbers)");
     expect(text).toContain("Marginal (6 visits).");
@@ -39,10 +44,7 @@ describe("technical summary: each target's science case in sentences (issue 16, 
 
   it("keeps the Greek and Latin-extended letters of the answers (the PDF's Latin font alone dropped the ń of Paczyński)", async () => {
     const answer = { ...exportRows[0].caseAnswers[0], sentence: "The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas." };
-    const pdf = await technicalSummaryPdf({ ...table, title: "Łódź arcs", rows: [{ ...exportRows[0], name: "HE 0435−1223 Ω", caseAnswers: [answer] }] }, [], exportProvenance);
-    const parser = new PDFParse({ data: pdf });
-    const { text } = await parser.getText();
-    await parser.destroy();
+    const text = await pdfText(await technicalSummaryPdf({ ...table, title: "Łódź arcs", rows: [{ ...exportRows[0], name: "HE 0435−1223 Ω", caseAnswers: [answer] }] }, [], exportProvenance));
     expect(text).toContain("The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas.");
     expect(text).toContain("Paczyński");
     // The title and the table's cells too.
