@@ -1,9 +1,10 @@
 "use client";
 
 import { useCallback, useMemo, useState } from "react";
+import { benchCaseReport, benchScheduleRequest } from "@/lib/bench/case-report";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
 import { readUnitChoices, withUnitChoice } from "@/lib/bench/display-units";
-import { parseSketch } from "@/lib/bench/parse-sketch";
+import { parseSketch, type SketchInputs } from "@/lib/bench/parse-sketch";
 import { demoSketch, type Sketch } from "@/lib/bench/sketch-state";
 import { isSolarSketch, solarCautionText } from "@/lib/bench/solar-caution";
 import { isStaleSketch, STALE_PLOTS_TEXT, STALE_RESULTS_TEXT } from "@/lib/bench/stale-results";
@@ -12,6 +13,7 @@ import { RayBundlePanel } from "./ray-bundle-panel";
 import { ResultsPanel, type UnitChoices } from "./results-panel";
 import { SaveTarget } from "./save-target";
 import { SketchForm } from "./sketch-form";
+import { useSchedule } from "./use-schedule";
 import { useSketchUrl } from "./use-sketch-url";
 import { VerdictList } from "./verdict-list";
 
@@ -46,10 +48,15 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
   const computed = useMemo(() => (parsed.ok ? computeResults(parsed.inputs) : undefined), [parsed]);
 
   // Derived state kept across renders: replaced only by a sketch that parses and computes.
-  const [lastGood, setLastGood] = useState<{ results: BenchResults; isSolar: boolean } | undefined>(undefined);
+  const [lastGood, setLastGood] = useState<{ results: BenchResults; inputs: SketchInputs; isSolar: boolean } | undefined>(undefined);
   if (parsed.ok && computed?.ok && computed.results !== lastGood?.results) {
-    setLastGood({ results: computed.results, isSolar: isSolarSketch(parsed.inputs) });
+    setLastGood({ results: computed.results, inputs: parsed.inputs, isSolar: isSolarSketch(parsed.inputs) });
   }
+  // The case is graded on the sketch shown (the last good one), its schedule simulated in a worker.
+  const goodInputs = lastGood?.inputs;
+  const scheduleRequest = useMemo(() => (goodInputs === undefined ? null : benchScheduleRequest(goodInputs)), [goodInputs]);
+  const schedule = useSchedule(scheduleRequest);
+  const report = useMemo(() => (goodInputs === undefined ? null : benchCaseReport(goodInputs, schedule)), [goodInputs, schedule]);
 
   const fieldErrors = parsed.ok ? {} : parsed.fieldErrors;
   const warnings = parsed.ok ? parsed.warnings : {};
@@ -96,12 +103,12 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
           {lastGood !== undefined ? (
             <StaleFrame isStale={isStale} testId="bench-results">
               <div className="space-y-4">
-                <VerdictList verdicts={lastGood.results.verdicts} />
+                <VerdictList report={report} />
                 <ResultsPanel results={lastGood.results} units={units} />
               </div>
             </StaleFrame>
           ) : null}
-          <SaveTarget sketch={sketch} parsed={parsed} betaThetaE={isStale ? undefined : lastGood?.results.lensPlane.betaThetaE} />
+          <SaveTarget sketch={sketch} parsed={parsed} isComputable={parsed.ok && !isStale} />
         </div>
       </div>
 

@@ -6,7 +6,7 @@ import useSWR from "swr";
 import type { ParsedSketch } from "@/lib/bench/parse-sketch";
 import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { DEFAULT_COSMOLOGY } from "@/lib/physics";
-import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
+import { targetBodyFromSketch } from "@/lib/workspace/bench-link";
 import { roleCan, roleLabels } from "@/lib/workspace/roles";
 import type { ProposalSummary } from "@/lib/server/proposals";
 import type { TargetView } from "@/lib/server/targets";
@@ -22,16 +22,16 @@ interface SessionAnswer {
 interface SaveTargetProps {
   sketch: Sketch;
   parsed: ParsedSketch;
-  /** β in units of θ_E from the last computed results; undefined while the sketch does not compute. */
-  betaThetaE: number | undefined;
+  /** The sketch parses and computes (the results on screen are its own). */
+  isComputable: boolean;
 }
 
 /**
- * "Save as target": the bench's lens hypothesis becomes a target of one of the astronomer's proposals
- * (where they are Co-I or PI), through the same targets API the proposal page uses. Signed out, it
- * links to sign-in and back to this very sketch.
+ * "Save as target": the sketch becomes a target of one of the astronomer's proposals (where they are
+ * Co-I or PI), through the same targets API the proposal page uses, with every input a target keeps
+ * (`targetBodyFromSketch`). Signed out, it links to sign-in and back to this very sketch.
  */
-export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
+export function SaveTarget({ sketch, parsed, isComputable }: SaveTargetProps) {
   const session = useSWR<SessionAnswer>("/api/auth/session", (url: string) => fetch(url).then((r) => r.json()));
   const isSignedIn = Boolean(session.data?.user);
   const proposals = useSWR<{ proposals: ProposalSummary[] }>(isSignedIn ? "/api/proposals" : null, swrFetcher);
@@ -53,7 +53,6 @@ export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
     );
   }
 
-  const isComputable = parsed.ok && betaThetaE !== undefined;
   const usesOtherCosmology =
     parsed.ok && sketch.geometry === "redshift" && (Number(sketch.h0) !== DEFAULT_COSMOLOGY.H0 || Number(sketch.om0) !== DEFAULT_COSMOLOGY.Om0);
   return (
@@ -62,9 +61,9 @@ export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
       className="space-y-3 rounded-lg border border-void-edge bg-void-raised p-4"
       onSubmit={(event) => {
         event.preventDefault();
-        if (!parsed.ok || betaThetaE === undefined) return;
+        if (!parsed.ok || !isComputable) return;
         const v = formValues(event.currentTarget);
-        const body = { ...hypothesisFromSketch(sketch, parsed.inputs, betaThetaE), name: v.name, ra: v.ra, dec: v.dec, priority: Number(v.priority), tags: [] };
+        const body = { ...targetBodyFromSketch(sketch, parsed.inputs), name: v.name, priority: Number(v.priority), tags: [] };
         void run(async () => {
           const { target } = await apiFetch<{ target: TargetView }>(`/api/proposals/${v.proposalId}/targets`, { method: "POST", body });
           setSaved({ target, proposalId: v.proposalId });
@@ -91,8 +90,6 @@ export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
           <div className="grid gap-3 sm:grid-cols-2">
             <Field label="Target name" name="name" required errors={fields.name} />
             <Field label="Priority (1–5)" name="priority" inputMode="numeric" defaultValue="3" required errors={fields.priority} />
-            <Field label="Right ascension" name="ra" placeholder="17 45 40.04 or 266.417" required errors={fields.ra} />
-            <Field label="Declination" name="dec" placeholder="-29 00 28.1 or -29.008" required errors={fields.dec} />
           </div>
           {usesOtherCosmology && (
             <p className="text-xs text-dusk-dim">
@@ -100,9 +97,18 @@ export function SaveTarget({ sketch, parsed, betaThetaE }: SaveTargetProps) {
             </p>
           )}
           <p className="text-xs text-dusk-dim" data-testid="save-target-radius-hint">
-            A target keeps the lens&apos;s mass, distances, source offset and proper motion; it has no field for the lens radius or the
-            source radius, so those stay in this bench link only.
+            A target keeps the sketch&apos;s lens, distances, source offset, proper motion, position, science case, event peak and source
+            size; it has no field for the lens radius, so that stays in this bench link only. The saved target is graded with the
+            chosen proposal&apos;s instrument, site and cycle, not the sketch&apos;s.
           </p>
+          {/* Refusals of the sketch's own fields (position, event, source): the form has no input to show them beside. */}
+          {Object.entries(fields)
+            .filter(([field]) => field !== "name" && field !== "priority")
+            .map(([field, messages]) => (
+              <p key={field} role="alert" className="text-sm text-alarm">
+                {messages?.join(" ")}
+              </p>
+            ))}
           {!isComputable && <p className="text-sm text-alarm">Fix the marked fields first: only a sketch that computes can be saved.</p>}
           <FormError message={message} />
           {saved && (

@@ -1,8 +1,9 @@
 "use client";
 
 import type { FieldErrors, FieldWarnings } from "@/lib/bench/parse-sketch";
-import { lensSketches, type Sketch, type SketchField } from "@/lib/bench/sketch-state";
+import { caseChoices, fieldLabels, lensSketches, type Sketch, type SketchField } from "@/lib/bench/sketch-state";
 import { lensModels } from "@/lib/lensing/registry";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { Fragment } from "react";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 
@@ -29,7 +30,31 @@ const lensFieldHints: Partial<Record<SketchField, string>> = {
   sigma: "e.g. 220 km/s; a bare number is km/s",
 };
 
-/** The lens sketch: lens, geometry, source and light curve, instrument. Every field is typed text with units. */
+/** The science case as a list: the inferred one first, then each case by its name. */
+function CaseField({ value, onChange }: { value: Sketch["case"]; onChange: (value: Sketch["case"]) => void }) {
+  return (
+    <label className="flex flex-col gap-1 text-sm font-semibold text-dusk">
+      {fieldLabels.case}
+      <select
+        value={value}
+        onChange={(event) => onChange(event.target.value as Sketch["case"])}
+        className="rounded border border-void-edge bg-void px-2 py-1 font-normal"
+      >
+        {caseChoices.map((choice) => (
+          <option key={choice} value={choice}>
+            {choice === "inferred" ? "Inferred from the lens and the instrument" : scienceCaseLabels[choice]}
+          </option>
+        ))}
+      </select>
+    </label>
+  );
+}
+
+/**
+ * The lens sketch: lens, geometry, the target (position, case, event, source), the instrument, and the
+ * site and cycle the schedule is simulated for. Every field is typed text with units; an empty field is
+ * "not set", as on a target or a proposal.
+ */
 export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: SketchFormProps) {
   const text = sketchTextFields(sketch, fieldErrors, onFieldChange, warnings);
   return (
@@ -71,7 +96,12 @@ export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: Ske
         )}
       </Section>
 
-      <Section title="Source and light curve">
+      <Section title="Target and event">
+        <div className="grid grid-cols-2 gap-3">
+          {text("ra", "hours \"17 57 12.4\" or degrees \"269.30\"")}
+          {text("dec", "degrees \"-29 12 05\" or \"-29.20\"")}
+        </div>
+        <CaseField value={sketch.case} onChange={(value) => onFieldChange("case", value)} />
         <ChoiceField
           legend="Source offset β given"
           value={sketch.betaUnit}
@@ -81,35 +111,41 @@ export function SketchForm({ sketch, fieldErrors, warnings, onFieldChange }: Ske
             { value: "angle", label: "as an angle" },
           ]}
         />
-        {text("beta", sketch.betaUnit === "thetaE" ? "a plain number, e.g. 0.3" : "e.g. 45 uas, 0.2 mas, 1 deg; a bare number is mas")}
+        {text("beta", `the impact parameter u0 at the peak; ${sketch.betaUnit === "thetaE" ? "a plain number, e.g. 0.3" : "e.g. 45 uas, 0.2 mas, 1 deg; a bare number is mas"}`)}
         <div className="grid grid-cols-2 gap-3">
-          {text("mu", "e.g. 6 mas/yr, 6 mas yr-1; a bare number is mas/yr")}
-          {text("u0", "units of θ_E, e.g. 0.2")}
-          {text("t0", "from the campaign start, e.g. 45 d; a bare number is days")}
-          {lensSketches[sketch.lens].hasLightCurve ? text("rstar", "caps the peak magnification (uniform disk); e.g. 1 Rsun, 10 Rsun; a bare number is R☉") : null}
+          {text("mu", "e.g. 6 mas/yr, 6 mas yr-1; a bare number is mas/yr; empty: not set")}
+          {text("t0", "a UTC date, e.g. 2027-07-10 04:30, or JD 2461596.69; empty: not set")}
+          {text("rstar", "e.g. 1 Rsun, 10 Rsun; a bare number is R☉; empty: a point source")}
+          {text("rho", "the source radius in θ_E instead of R_*, e.g. 0.002")}
+          {text("limb", "linear coefficient 0 (uniform disk) to 1; empty: uniform")}
         </div>
       </Section>
 
-      <Section title="Instrument and campaign">
-        <ChoiceField
-          legend="Resolution from"
-          value={sketch.resolution}
-          onChange={(value) => onFieldChange("resolution", value)}
-          options={[
-            { value: "fwhm", label: "PSF FWHM" },
-            { value: "interferometer", label: "Interferometer λ and baseline" },
-          ]}
-        />
-        {sketch.resolution === "fwhm" ? (
-          text("fwhm", "e.g. 50 mas, 0.8 arcsec; a bare number is mas")
-        ) : (
-          <div className="grid grid-cols-2 gap-3">
-            {text("lambda", "e.g. 2.2 um, 1.3 mm, 230 GHz; a bare number is µm")}
-            {text("baseline", "e.g. 130 m, 10000 km; a bare number is metres")}
-          </div>
-        )}
+      <Section title="Instrument">
+        {text("fwhm", "e.g. 50 mas, 0.8 arcsec; a bare number is mas")}
         <div className="grid grid-cols-2 gap-3">
-          {text("cadence", "time between epochs, e.g. 1 d, 6 h; a bare number is days")}
+          {text("lambda", "an interferometer, with B: e.g. 2.2 um, 1.3 mm, 230 GHz; a bare number is µm; empty: none")}
+          {text("baseline", "e.g. 130 m, 10000 km; a bare number is metres")}
+          {text("astrometry", "e.g. 0.1 mas, 100 uas; a bare number is mas; empty: not set")}
+          {text("contrast", "largest flux ratio, e.g. 100; empty: not set")}
+        </div>
+      </Section>
+
+      <Section title="Site, cycle and campaign">
+        {text("site", "a name for the site")}
+        <div className="grid grid-cols-2 gap-3">
+          {text("lat", "e.g. -30.2 deg; a bare number is degrees")}
+          {text("lon", "east positive, e.g. -70.7 deg; a bare number is degrees")}
+          {text("elev", "e.g. 2200 m; a bare number is metres")}
+          {text("horizon", "lowest altitude, e.g. 20 deg; a bare number is degrees")}
+          {text("cycleStart", "evening date YYYY-MM-DD; empty: no schedule")}
+          {text("cycleEnd", "evening date YYYY-MM-DD, at most a year later")}
+          {text("airmass", "e.g. 2")}
+          {text("moonSep", "e.g. 30 deg; a bare number is degrees; empty: no Moon limit")}
+          {text("moonIllum", "fraction 0 to 1; empty: any Moon")}
+          {text("cadence", "time between visits, e.g. 1 d, 6 h; a bare number is days")}
+          {text("visit", "e.g. 20 min; a bare number is minutes")}
+          {text("clear", "share of clear nights, e.g. 0.7; 1: every night")}
           {text("campaign", "e.g. 90 d, 2 yr; a bare number is days")}
         </div>
       </Section>

@@ -1,29 +1,31 @@
-import type { Verdict, VerdictOutlook } from "@/lib/bench/verdicts";
+import { CaseAnswers } from "@/components/workspace/case-answers";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
+import type { TargetCaseReport } from "@/lib/workspace/derived";
 
-/** A word and a symbol for each outlook, so the verdict never depends on colour alone. */
-const outlookStyle: Record<VerdictOutlook, { word: string; symbol: string; className: string }> = {
-  feasible: { word: "Feasible", symbol: "●", className: "text-glint" },
-  marginal: { word: "Marginal", symbol: "◐", className: "text-ember" },
-  infeasible: { word: "Not feasible", symbol: "○", className: "text-alarm" },
-};
-
-export function VerdictList({ verdicts }: { verdicts: Verdict[] }) {
+/**
+ * The sketch's science case and its answered questions, from the same grading as a stored target
+ * (`lib/bench/case-report.ts`); the inferred case states why it was inferred.
+ */
+export function VerdictList({ report }: { report: TargetCaseReport | null }) {
   return (
     <section aria-label="Feasibility" className="space-y-2 rounded-md border border-void-edge bg-void-raised p-4">
       <h2 className="text-base font-semibold text-dusk">Feasibility</h2>
-      <ul className="space-y-1.5">
-        {verdicts.map((verdict) => {
-          const style = outlookStyle[verdict.outlook];
-          return (
-            <li key={verdict.id} data-testid={`verdict-${verdict.id}`} className="flex gap-2 text-sm">
-              <span aria-hidden="true" className={style.className}>{style.symbol}</span>
-              <span>
-                <span className={`font-semibold ${style.className}`}>{style.word}:</span> {verdict.text}
-              </span>
-            </li>
-          );
-        })}
-      </ul>
+      {report === null ? (
+        <p className="text-sm text-dusk-dim">This sketch cannot be graded as a target: bring its values inside what a target accepts.</p>
+      ) : (
+        <>
+          <p className="text-sm" data-testid="bench-case" data-case={report.scienceCase.caseId}>
+            <span className="font-semibold">Science case: {scienceCaseLabels[report.scienceCase.caseId]}</span>{" "}
+            <span className="text-dusk-dim">{report.scienceCase.isChosen ? "(chosen in the sketch)" : "(inferred)"}</span>
+          </p>
+          {report.scienceCase.reason !== null ? (
+            <p className="text-sm text-dusk-dim" data-testid="bench-case-reason">
+              {report.scienceCase.reason}
+            </p>
+          ) : null}
+          <CaseAnswers answers={report.answers} />
+        </>
+      )}
     </section>
   );
 }

@@ -4,15 +4,16 @@
  * them in rows, so the panel, the copy-as-text and the tests read one structure.
  */
 
-import { exactDeflection, photonSphereRadius, PARSEC_M, SOLAR_MASS_LENGTH_M, virbhadraEllisImages, weakFieldDeflection } from "@/lib/physics";
-import { sourceRadiusInThetaE } from "@/lib/lensing/microlensing";
+import { DAY_S, exactDeflection, photonSphereRadius, PARSEC_M, SOLAR_MASS_LENGTH_M, virbhadraEllisImages, weakFieldDeflection } from "@/lib/physics";
 import type { LensSolution } from "@/lib/lensing/solution";
 import { lensModelOf } from "@/lib/lensing/registry";
+import { nightStartJdUtc } from "@/lib/astro/time";
+import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
+import { eventTimingOf } from "@/lib/workspace/derived";
 import { formatPlain, type DisplayKind } from "./display-units";
 import { eventMagnification } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
-import { lensParametersOf, type SketchInputs } from "./parse-sketch";
-import { occultedImageVerdict, resolutionVerdict, samplingVerdict, singleImageVerdict, timeDelayVerdict, type Verdict } from "./verdicts";
+import { lensParametersOf, sourceOffsetThetaEOf, type SketchInputs } from "./parse-sketch";
 
 export interface ResultRow {
   id: string;
@@ -52,9 +53,8 @@ export interface LensPlaneLayout {
 export interface BenchResults {
   rows: ResultRow[];
   deflections: DeflectionRow[];
-  verdicts: Verdict[];
   lensPlane: LensPlaneLayout;
-  /** The microlensing event for the light-curve and astrometric plots; point lens only. */
+  /** The microlensing event for the light-curve and astrometric plots; point lens with a proper motion only. */
   event?: MicrolensingEvent;
   /** Statements about the whole sketch (a lens with no photon sphere), shown under the rows. */
   notes: { id: string; text: string }[];
@@ -63,12 +63,16 @@ export interface BenchResults {
 export interface MicrolensingEvent {
   thetaERad: number;
   einsteinTimeS: number;
+  /** The peak, seconds from the campaign's start (`peakFromCampaignStartS`). */
   peakTimeS: number;
+  /** β, the impact parameter at the peak, units of θ_E. */
   u0ThetaE: number;
   cadenceS: number;
   campaignS: number;
-  /** The source's radius in θ_E (ρ): the uniform disk whose finite-source magnification is drawn. */
-  sourceRadiusThetaE: number;
+  /** The source's radius in θ_E (ρ), whose finite-source magnification is drawn; null for a point source. */
+  sourceRadiusThetaE: number | null;
+  /** Linear limb-darkening coefficient of the source disk (0: uniform). */
+  limbDarkeningU: number;
   /** Images closer to the lens than this (θ_E) are behind its body; 0 for a compact lens. */
   occultingRadiusThetaE: number;
 }
@@ -94,10 +98,18 @@ const HIDDEN_NOTE = "behind the lens: its ray passes closer than the lens's radi
 /** The lens model's solution of the sketch (β typed as an angle is turned into θ_E units first). */
 function solveSketch(inputs: SketchInputs): LensSolution {
   const model = lensModelOf(inputs.lens.model);
-  const parameters = lensParametersOf(inputs.lens);
-  const { sourceOffset } = inputs;
-  const u = sourceOffset.unit === "thetaE" ? sourceOffset.betaThetaE : sourceOffset.betaRad / model.einsteinRadiusRad(parameters, inputs.geometry);
-  return model.solve({ parameters, geometry: inputs.geometry, sourceOffsetThetaE: u, properMotionRadPerS: inputs.lightCurve.muRelRadPerS });
+  return model.solve({ parameters: lensParametersOf(inputs.lens), geometry: inputs.geometry, sourceOffsetThetaE: sourceOffsetThetaEOf(inputs), properMotionRadPerS: inputs.lightCurve.muRelRadPerS });
+}
+
+/**
+ * Where the light curve's time axis starts: the first night of the cycle (local mean noon before it,
+ * as the schedule counts), so the peak sits at its date; without a cycle or a peak date the peak is
+ * drawn in the middle of the campaign.
+ */
+function peakFromCampaignStartS(inputs: SketchInputs, peakJdUtc: number | null, campaignS: number): number {
+  const { cycleStartDate, site } = inputs.settings;
+  if (peakJdUtc === null || cycleStartDate === null) return campaignS / 2;
+  return (peakJdUtc - nightStartJdUtc(cycleStartDate, site.longitudeDeg)) * DAY_S;
 }
 
 const nanIfNull = (value: number | null) => value ?? Number.NaN;
@@ -123,19 +135,25 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
   const separationRad = nanIfNull(solution.imageSeparationRad);
   const timeDelayS = nanIfNull(solution.timeDelayS);
   const einsteinTimeS = nanIfNull(solution.einsteinTimeS);
-  const sourceRadiusThetaE = sourceRadiusInThetaE(inputs.lightCurve.sourceRadiusM, dSourcePc, thetaERad);
-  const { instrument, lightCurve } = inputs;
-  const event: MicrolensingEvent = {
-    thetaERad,
-    einsteinTimeS,
-    peakTimeS: lightCurve.peakTimeS,
-    u0ThetaE: lightCurve.u0ThetaE,
-    cadenceS: instrument.cadenceS,
-    campaignS: instrument.campaignS,
-    sourceRadiusThetaE,
-    occultingRadiusThetaE: surfaceImpactM / (lensDistanceM * thetaERad),
-  };
-  const peak = eventMagnification(lightCurve.u0ThetaE, event);
+  // The source's size and limb darkening as the stored target reads them (ρ typed, else R*/D_S over θ_E).
+  const timing = eventTimingOf(hypothesisFromSketch(inputs), solution, inputs.geometry);
+  const sourceRadiusThetaE = timing.sourceRadiusThetaE;
+  const { instrument } = inputs.settings;
+  const campaignS = instrument.campaignLengthDays * DAY_S;
+  const source = { sourceRadiusThetaE, limbDarkeningU: timing.limbDarkeningU, occultingRadiusThetaE: surfaceImpactM / (lensDistanceM * thetaERad) };
+  const event: MicrolensingEvent | undefined =
+    solution.einsteinTimeS === null
+      ? undefined
+      : {
+          thetaERad,
+          einsteinTimeS,
+          peakTimeS: peakFromCampaignStartS(inputs, timing.peakJdUtc, campaignS),
+          u0ThetaE: u,
+          cadenceS: instrument.cadenceHours * 3600,
+          campaignS,
+          ...source,
+        };
+  const peak = eventMagnification(u, source);
 
   // What an observer sees: only the images not behind the body count in the total and the centroid.
   const visibleMagnification = (isPlusHidden ? 0 : images.magnificationPlus) + (isMinusHidden ? 0 : Math.abs(images.magnificationMinus));
@@ -168,11 +186,18 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       kind: "ratio",
       value: peak.magnification,
       ...(peak.isLimitedBySourceSize
-        ? { note: `limited by the source's size: for a uniform disk of ρ = ${formatPlain(sourceRadiusThetaE, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}` }
+        ? { note: `limited by the source's size: for a disk of ρ = ${formatPlain(sourceRadiusThetaE ?? 0, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}` }
         : {}),
       ...(peak.magnification === 0 ? { note: "the source is behind the lens at closest approach: no image is seen" } : {}),
     },
-    { id: "rho", label: "Source radius in Einstein radii", symbol: "ρ", kind: "ratio", value: sourceRadiusThetaE },
+    {
+      id: "rho",
+      label: "Source radius in Einstein radii",
+      symbol: "ρ",
+      kind: "ratio",
+      value: nanIfNull(sourceRadiusThetaE),
+      ...(sourceRadiusThetaE === null ? { note: "no source radius set: a point source" } : {}),
+    },
     { id: "centroid-shift", label: isPair ? "Astrometric centroid shift" : "Shift of the image seen from the source", symbol: "δθ", kind: "angle", value: visibleCentroidShift * thetaERad },
     { id: "r-s", label: "Schwarzschild radius", symbol: "R_S", kind: "length", value: 2 * massLengthM },
   ];
@@ -204,16 +229,21 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
     deflections.push(deflectionRow("deflection-limb", "Ray grazing the lens's surface", surfaceImpactM / massLengthM));
   }
 
-  const verdicts: Verdict[] = isPair
-    ? [resolutionVerdict(separationRad, instrument.resolutionRad, instrument.resolutionName)]
-    : [occultedImageVerdict(isPlusHidden && isMinusHidden)];
-  verdicts.push(samplingVerdict(einsteinTimeS, instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS));
-  if (isPair) verdicts.push(timeDelayVerdict(timeDelayS, instrument.cadenceS, instrument.campaignS));
+  if (!isPair) {
+    // The science case's answers come from the target's hypothesis, which has no lens body: say what it leaves out.
+    notes.push({
+      id: "occulted-image",
+      text:
+        isPlusHidden && isMinusHidden
+          ? "Both images lie behind the lens's body (their rays pass closer than its radius): the source is hidden. A target has no lens radius, so the science case below grades the images of a compact lens."
+          : "The inner image lies behind the lens's body (its ray passes closer than its radius): one image is seen, no pair to resolve and no time delay. A target has no lens radius, so the science case below grades the images of a compact lens.",
+    });
+  }
 
   const lensPlaneImages = [];
   if (!isPlusHidden) lensPlaneImages.push({ thetaThetaE: images.thetaPlus, magnification: images.magnificationPlus });
   if (!isMinusHidden) lensPlaneImages.push({ thetaThetaE: images.thetaMinus, magnification: images.magnificationMinus });
-  return { rows, deflections, verdicts, lensPlane: { thetaERad, betaThetaE: u, images: lensPlaneImages }, event, notes };
+  return { rows, deflections, lensPlane: { thetaERad, betaThetaE: u, images: lensPlaneImages }, ...(event === undefined ? {} : { event }), notes };
 }
 
 /** Results for a singular isothermal sphere: no Schwarzschild rows, one image when β ≥ θ_E. */
@@ -229,8 +259,6 @@ function sisResults(inputs: SketchInputs): BenchResults {
     { id: "mu-total", label: "Total magnification", symbol: "μ", kind: "ratio", value: solution.magnificationTotal },
     { id: "t-e", label: "Einstein crossing time", symbol: "t_E", kind: "time", value: nanIfNull(solution.einsteinTimeS) },
   ];
-  const { instrument, lightCurve } = inputs;
-  const verdicts: Verdict[] = [];
   if (inner !== undefined && solution.imageSeparationRad !== null && solution.timeDelayS !== null) {
     rows.splice(
       3,
@@ -245,16 +273,10 @@ function sisResults(inputs: SketchInputs): BenchResults {
       { id: "flux-ratio", label: "Flux ratio, outer/inner", symbol: "|μ₊/μ₋|", kind: "ratio", value: nanIfNull(solution.fluxRatio) },
     );
     rows.push({ id: "time-delay", label: "Time delay between images", symbol: "Δt", kind: "time", value: solution.timeDelayS });
-    verdicts.push(resolutionVerdict(solution.imageSeparationRad, instrument.resolutionRad, instrument.resolutionName));
-    verdicts.push(timeDelayVerdict(solution.timeDelayS, instrument.cadenceS, instrument.campaignS));
-  } else {
-    verdicts.push(singleImageVerdict());
   }
-  verdicts.push(samplingVerdict(nanIfNull(solution.einsteinTimeS), instrument.cadenceS, instrument.campaignS, lightCurve.peakTimeS));
   return {
     rows,
     deflections: [],
-    verdicts,
     lensPlane: { thetaERad, betaThetaE: u, images: solution.images.map(({ positionThetaE, magnification }) => ({ thetaThetaE: positionThetaE, magnification })) },
     notes: [],
   };

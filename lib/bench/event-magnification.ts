@@ -1,6 +1,7 @@
 /**
  * The magnification the bench draws for a microlensing event at lens–source offset u: the source is
- * a uniform disk of radius ρ (its finite-source magnification, lib/lensing), and point-lens images
+ * a disk of radius ρ, uniform or linearly limb-darkened (its finite-source magnification, lib/lensing),
+ * or a point when no radius is set, and point-lens images
  * behind the lens's body are left out. Leaving an image out is a stated approximation: the image is
  * taken as hidden or seen whole (its ray passes inside or outside the body), and then the seen images
  * are taken as a point source's, never above the whole disk's magnification.
@@ -21,12 +22,12 @@ export interface EventMagnification {
   isLimitedBySourceSize: boolean;
 }
 
-/** Magnification at offset `u` (θ_E, ≥ 0) of the event's source, as an observer sees it. */
-export function eventMagnification(u: number, event: Pick<MicrolensingEvent, "sourceRadiusThetaE" | "occultingRadiusThetaE">): EventMagnification {
+/** Magnification at offset `u` (θ_E, ≥ 0) of the event's source, as an observer sees it; a point source when ρ is null. */
+export function eventMagnification(u: number, event: Pick<MicrolensingEvent, "sourceRadiusThetaE" | "limbDarkeningU" | "occultingRadiusThetaE">): EventMagnification {
   const images = pointLensImages(u);
   const isPlusSeen = images.thetaPlus >= event.occultingRadiusThetaE;
   const isMinusSeen = Math.abs(images.thetaMinus) >= event.occultingRadiusThetaE;
-  const wholeDisk = finiteSourceMagnification(u, event.sourceRadiusThetaE);
+  const wholeDisk = event.sourceRadiusThetaE === null ? images.magnificationTotal : finiteSourceMagnification(u, event.sourceRadiusThetaE, event.limbDarkeningU);
   const pointSource = isPlusSeen && isMinusSeen ? images.magnificationTotal : (isPlusSeen ? images.magnificationPlus : 0) + (isMinusSeen ? Math.abs(images.magnificationMinus) : 0);
   const magnification = isPlusSeen && isMinusSeen ? wholeDisk : Math.min(pointSource, wholeDisk);
   const isLimitedBySourceSize = Math.abs(magnification - pointSource) > SOURCE_SIZE_LIMIT_SHARE * pointSource;

@@ -4,8 +4,41 @@
  */
 
 import { echoQuantity, type QuantityEcho, type QuantityKind } from "@/lib/physics";
+import { EventPeakError, formatEventPeak, parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
+import { proposalQuantities } from "@/lib/workspace/proposal-schema";
+import { quantityEcho, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { targetQuantities } from "@/lib/workspace/target-schema";
 import { defaultUnits, isCompactRadiusText } from "./parse-sketch";
 import type { Sketch, SketchField } from "./sketch-state";
+
+/** The fields read as a target's or a proposal's quantity: their echo is the form's, in the stored unit. */
+const storedSpecs: Partial<Record<SketchField, QuantitySpec>> = {
+  rstar: targetQuantities.sourceRadiusSolar,
+  rho: targetQuantities.sourceRadiusThetaE,
+  limb: targetQuantities.limbDarkeningU,
+  lat: proposalQuantities.latitudeDeg,
+  lon: proposalQuantities.longitudeDeg,
+  elev: proposalQuantities.elevationM,
+  horizon: proposalQuantities.horizonLimitDeg,
+  airmass: proposalQuantities.airmassLimit,
+  moonSep: proposalQuantities.moonMinSeparationDeg,
+  moonIllum: proposalQuantities.moonMaxIllumination,
+  visit: proposalQuantities.visitMinutes,
+  clear: proposalQuantities.clearNightFraction,
+  astrometry: proposalQuantities.astrometricPrecisionMas,
+  contrast: proposalQuantities.reachableContrast,
+};
+
+/** The event peak as the date it is read as ("= 2027-07-10 00:00 UTC (JD 2461596.50)"). */
+function eventPeakEcho(text: string): QuantityEcho | undefined {
+  if (text.trim() === "") return undefined;
+  try {
+    return { ok: true, text: `= ${formatEventPeak(parseEventPeakJdUtc(text))}`, assumedUnit: false };
+  } catch (error) {
+    if (!(error instanceof EventPeakError)) throw error;
+    return { ok: false, message: error.message };
+  }
+}
 
 /** The quantity each typed field holds (β depends on how it is given). */
 const fieldKinds = {
@@ -18,8 +51,6 @@ const fieldKinds = {
   h0: "number",
   om0: "number",
   mu: "proper motion",
-  t0: "time",
-  u0: "number",
   fwhm: "angle",
   lambda: "wavelength",
   baseline: "length",
@@ -29,7 +60,6 @@ const fieldKinds = {
   bmin: "number",
   bmax: "number",
   radius: "length",
-  rstar: "length",
 } as const satisfies Partial<Record<SketchField, QuantityKind>>;
 
 /**
@@ -39,6 +69,12 @@ const fieldKinds = {
 export function fieldEcho(sketch: Sketch, field: SketchField): QuantityEcho | undefined {
   if (field === "radius" && isCompactRadiusText(sketch.radius)) {
     return { ok: true, text: "= compact object (no surface outside its photon sphere)", assumedUnit: false };
+  }
+  if (field === "t0") return eventPeakEcho(sketch.t0);
+  const spec = storedSpecs[field];
+  if (spec !== undefined) {
+    const echo = quantityEcho(spec, sketch[field]);
+    return echo === null ? undefined : echo.ok ? { ok: true, text: echo.text, assumedUnit: false } : echo;
   }
   const kind: QuantityKind | undefined = field === "beta" ? (sketch.betaUnit === "angle" ? "angle" : "number") : (fieldKinds as Partial<Record<SketchField, QuantityKind>>)[field];
   if (kind === undefined) return undefined;

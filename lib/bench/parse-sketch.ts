@@ -1,7 +1,11 @@
 /**
  * Turns the typed sketch into numbers through the physics units module, collecting one message per
- * field so the form can show each error beside its input. Only the fields the chosen lens model,
- * geometry and instrument actually use are parsed: a stale value in a hidden field is not an error.
+ * field so the form can show each error beside its input. Only the fields the chosen lens model and
+ * geometry actually use are parsed: a stale value in a hidden field is not an error. The target's own
+ * inputs (position, science case, event peak, source size) and the proposal's settings (instrument,
+ * site, cycle, observing constraints) are read by the very readers the target and proposal forms use
+ * (`lib/workspace/quantity-field.ts`, `coordinates.ts`, `event-peak.ts`), into their stored units, so
+ * a sketch means what the same text means on a target or a proposal.
  */
 
 import {
@@ -21,10 +25,18 @@ import {
   SOLAR_MASS_LENGTH_M,
 } from "@/lib/physics";
 import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, boundText, rangeText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
-import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
+import { DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import type { LensParameterKey } from "@/lib/lensing/lens-model";
 import { lensModelOf } from "@/lib/lensing/registry";
-import { fieldLabels, lensSketches, type Sketch, type SketchField } from "./sketch-state";
+import type { ScienceCaseId } from "@/lib/lensing/science-cases";
+import { nightDateSchema } from "@/lib/astro/inputs";
+import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+import type { FeasibilitySettings } from "@/lib/workspace/derived";
+import { EventPeakError, parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
+import { proposalQuantities, proposalSettingsErrors } from "@/lib/workspace/proposal-schema";
+import { readQuantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { targetQuantities } from "@/lib/workspace/target-schema";
+import { fieldLabels, type Sketch, type SketchField } from "./sketch-state";
 
 /** Most rays the bench traces at once (issue 4: "count up to 5,000"). */
 export const MAX_RAY_COUNT = 5000;
@@ -56,6 +68,12 @@ export function lensParametersOf(lens: LensInputs): Record<LensParameterKey, num
   }
 }
 
+/** β in units of θ_E: as typed, or an angle divided by the lens's θ_E (a target stores it so). */
+export function sourceOffsetThetaEOf({ lens, geometry, sourceOffset }: Pick<SketchInputs, "lens" | "geometry" | "sourceOffset">): number {
+  if (sourceOffset.unit === "thetaE") return sourceOffset.betaThetaE;
+  return sourceOffset.betaRad / lensModelOf(lens.model).einsteinRadiusRad(lensParametersOf(lens), geometry);
+}
+
 /** Distances in parsecs; `zLens` is 0 for a Galactic (distance-only) sketch. */
 export interface GeometryInputs {
   dLensPc: number;
@@ -67,23 +85,26 @@ export interface GeometryInputs {
 /** β is either an angle or a multiple of θ_E, which is only known once the lens is solved. */
 export type SourceOffsetInputs = { unit: "angle"; betaRad: number } | { unit: "thetaE"; betaThetaE: number };
 
-export interface InstrumentInputs {
-  /** Smallest separation the instrument resolves: the PSF FWHM, or λ/B for an interferometer. */
-  resolutionRad: number;
-  /** How the resolution is named in verdicts ("FWHM" or "λ/B"). */
-  resolutionName: "FWHM" | "λ/B";
-  cadenceS: number;
-  campaignS: number;
+export interface LightCurveInputs {
+  /** Relative proper motion, rad/s; null when not set (no t_E, no light curve). */
+  muRelRadPerS: number | null;
 }
 
-export interface LightCurveInputs {
-  muRelRadPerS: number;
-  /** Peak time, seconds from the start of the campaign. */
-  peakTimeS: number;
-  /** Impact parameter at peak, units of θ_E. */
-  u0ThetaE: number;
-  /** The source's radius, metres (its finite-source magnification along the light curve). */
-  sourceRadiusM: number;
+/**
+ * The target's own inputs beyond the lens, in a target's stored units; null where the field is empty
+ * (not set). β is the impact parameter u0 at the peak, as on a target.
+ */
+export interface EventInputs {
+  /** ICRS position, degrees. */
+  raDeg: number;
+  decDeg: number;
+  /** The case chosen; null: inferred from the lens and the instrument. */
+  scienceCase: ScienceCaseId | null;
+  /** The event's peak, Julian date UTC. */
+  eventPeakJdUtc: number | null;
+  sourceRadiusSolar: number | null;
+  sourceRadiusThetaE: number | null;
+  limbDarkeningU: number | null;
 }
 
 export interface BundleInputs {
@@ -96,9 +117,13 @@ export interface BundleInputs {
 export interface SketchInputs {
   lens: LensInputs;
   geometry: GeometryInputs;
+  /** The redshifts of a redshift sketch (a target keeps them, not the distances); null for distances. */
+  redshifts: { lens: number; source: number } | null;
   sourceOffset: SourceOffsetInputs;
   lightCurve: LightCurveInputs;
-  instrument: InstrumentInputs;
+  event: EventInputs;
+  /** The proposal's side: instrument, site and cycle, in a proposal's stored units. */
+  settings: FeasibilitySettings;
   bundle: BundleInputs;
 }
 
@@ -128,6 +153,19 @@ class FieldReader {
       return Number.NaN;
     }
   }
+
+  /** A target's or proposal's quantity, read by its form's reader into its stored unit. */
+  quantity(field: SketchField, spec: QuantitySpec): number {
+    const reading = readQuantityField(spec, this.sketch[field]);
+    if (reading.ok) return reading.value;
+    this.errors[field] = reading.message;
+    return Number.NaN;
+  }
+
+  /** The same, empty text being "not set". */
+  optionalQuantity(field: SketchField, spec: QuantitySpec): number | null {
+    return this.sketch[field].trim() === "" ? null : this.quantity(field, spec);
+  }
 }
 
 /** A bare number ("0.3", "2e3", "4,100,000"), with the comma rules of every field; units are not allowed. */
@@ -137,7 +175,8 @@ export function parsePlainNumber(text: string): number {
 
 /**
  * The unit a bare number is read in, per field (the hint says so and the echo repeats it). Fields
- * that are plain numbers (redshifts, u0, β in θ_E, ray inputs) have none.
+ * that are plain numbers (redshifts, β in θ_E, ray inputs) have none. The target's and proposal's
+ * own fields read a bare number in their stored unit (`targetQuantities`, `proposalQuantities`).
  */
 export const defaultUnits = {
   mass: "Msun",
@@ -145,14 +184,12 @@ export const defaultUnits = {
   dl: "kpc",
   ds: "kpc",
   mu: "mas/yr",
-  t0: "d",
   cadence: "d",
   campaign: "d",
   fwhm: "mas",
   lambda: "um",
   baseline: "m",
   radius: "Rsun",
-  rstar: "Rsun",
   beta: "mas",
 } as const satisfies Partial<Record<SketchField, string>>;
 
@@ -174,12 +211,8 @@ const positive = (message: string) => (value: number) => (value > 0 ? undefined 
  */
 const within = (range: AcceptedRange, message: string, toRangeUnit = 1) => (value: number) => (isInRange(value * toRangeUnit, range) ? undefined : message);
 
-/** Bench-only bounds (our rule): H0 from 10 to 200 km/s/Mpc (measured values are 67–74); times within ±100 years. */
+/** Bench-only bound (our rule): H0 from 10 to 200 km/s/Mpc (measured values are 67–74). */
 const HUBBLE_RANGE: AcceptedRange = { min: 10, max: 200 };
-const MAX_TIME_S = 100 * JULIAN_YEAR_S;
-/** Resolution from 1e-12 rad (0.2 nanoarcseconds) to 1 rad; wavelengths and baselines from 1 nm to 1e10 m (our rule). */
-const RESOLUTION_RANGE_RAD: AcceptedRange = { min: 1e-12, max: 1 };
-const INTERFEROMETER_LENGTH_RANGE_M: AcceptedRange = { min: 1e-9, max: 1e10 };
 
 function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
   switch (sketch.lens) {
@@ -207,9 +240,8 @@ function readLens(reader: FieldReader, sketch: Sketch): LensInputs {
   }
 }
 
-/** Lens and source radii, metres (our rule): from 1 mm to 1 pc, beyond any body that lenses as one mass. */
+/** Lens radii, metres (our rule): from 1 mm to 1 pc, beyond any body that lenses as one mass. */
 const LENS_RADIUS_RANGE_M: AcceptedRange = { min: 1e-3, max: PARSEC_M };
-const SOURCE_RADIUS_RANGE_M: AcceptedRange = { min: 1e-3, max: PARSEC_M };
 
 /**
  * Velocity dispersions above this are accepted with a warning (our rule): the richest galaxy clusters
@@ -217,7 +249,7 @@ const SOURCE_RADIUS_RANGE_M: AcceptedRange = { min: 1e-3, max: PARSEC_M };
  */
 export const SIGMA_WARNING_KM_PER_S = 1500;
 
-function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
+function readGeometry(reader: FieldReader, sketch: Sketch): Pick<SketchInputs, "geometry" | "redshifts"> {
   if (sketch.geometry === "distance") {
     const distanceMessage = "Distances lie between 1e-6 pc (0.2 au) and 20 Gpc";
     const dLensPc = reader.read("dl", (text) => parseDistance(text, { defaultUnit: defaultUnits.dl }), within(acceptedRanges.distancePc, distanceMessage));
@@ -225,7 +257,7 @@ function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
       if (!isInRange(value, acceptedRanges.distancePc)) return distanceMessage;
       return value > dLensPc || Number.isNaN(dLensPc) ? undefined : "The source must lie behind the lens (D_S > D_L)";
     });
-    return { dLensPc, dSourcePc, dLensSourcePc: dSourcePc - dLensPc, zLens: 0 };
+    return { geometry: { dLensPc, dSourcePc, dLensSourcePc: dSourcePc - dLensPc, zLens: 0 }, redshifts: null };
   }
   const h0 = reader.read("h0", parsePlainNumber, within(HUBBLE_RANGE, "H0 must lie between 10 and 200 km/s/Mpc"));
   const om0 = reader.read("om0", parsePlainNumber, (value) => (value >= 0 && value <= 1 ? undefined : "Ωm must lie between 0 and 1"));
@@ -235,13 +267,17 @@ function readGeometry(reader: FieldReader, sketch: Sketch): GeometryInputs {
     if (!isInRange(value, acceptedRanges.redshift)) return redshiftMessage;
     return value > zLens || Number.isNaN(zLens) ? undefined : "The source must lie behind the lens (z_S > z_L)";
   });
-  if ([h0, om0, zLens, zSource].some(Number.isNaN)) return { dLensPc: NaN, dSourcePc: NaN, dLensSourcePc: NaN, zLens };
+  const redshifts = { lens: zLens, source: zSource };
+  if ([h0, om0, zLens, zSource].some(Number.isNaN)) return { geometry: { dLensPc: NaN, dSourcePc: NaN, dLensSourcePc: NaN, zLens }, redshifts };
   const cosmology = { H0: h0, Om0: om0 };
   return {
-    dLensPc: angularDiameterDistance(zLens, cosmology),
-    dSourcePc: angularDiameterDistance(zSource, cosmology),
-    dLensSourcePc: angularDiameterDistanceBetween(zLens, zSource, cosmology),
-    zLens,
+    geometry: {
+      dLensPc: angularDiameterDistance(zLens, cosmology),
+      dSourcePc: angularDiameterDistance(zSource, cosmology),
+      dLensSourcePc: angularDiameterDistanceBetween(zLens, zSource, cosmology),
+      zLens,
+    },
+    redshifts,
   };
 }
 
@@ -254,37 +290,126 @@ function readSourceOffset(reader: FieldReader, sketch: Sketch): SourceOffsetInpu
   return { unit: "thetaE", betaThetaE: reader.read("beta", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, sourceOffsetMessage)) };
 }
 
-function readInstrument(reader: FieldReader, sketch: Sketch): InstrumentInputs {
-  const cadenceS = reader.read("cadence", (text) => parseTime(text, { defaultUnit: defaultUnits.cadence }), (value) => (value >= 1 && value <= MAX_TIME_S ? undefined : "The cadence must lie between 1 second and 100 years"));
-  const campaignS = reader.read("campaign", (text) => parseTime(text, { defaultUnit: defaultUnits.campaign }), (value) => {
-    if (!(value <= MAX_TIME_S)) return "The campaign lasts at most 100 years";
-    return value >= cadenceS || Number.isNaN(cadenceS) ? undefined : "The campaign must last at least one cadence interval";
-  });
-  if (sketch.resolution === "fwhm") {
-    const fwhmRad = reader.read("fwhm", (text) => parseAngle(text, { defaultUnit: defaultUnits.fwhm }), within(RESOLUTION_RANGE_RAD, "The FWHM must lie between 0.2 nanoarcseconds and 1 radian"));
-    return { resolutionRad: fwhmRad, resolutionName: "FWHM", cadenceS, campaignS };
+/**
+ * Twelve significant digits: a unit conversion ("4 kpc" → 3999.9999999999995 pc, "6 h" in seconds and
+ * back) comes back as typed, so a stored value carried through a link is the stored value again.
+ */
+export const tidy = (value: number) => Number(value.toPrecision(12));
+
+/** The proposal's instrument: the bench's typed fields in a proposal's stored units (mas, h, d, mm, km). */
+function readInstrument(reader: FieldReader, sketch: Sketch): FeasibilitySettings["instrument"] {
+  const cadenceS = reader.read("cadence", (text) => parseTime(text, { defaultUnit: defaultUnits.cadence }), within(proposalQuantities.cadenceHours.range, proposalQuantities.cadenceHours.rangeMessage, 1 / 3600));
+  const campaignS = reader.read("campaign", (text) => parseTime(text, { defaultUnit: defaultUnits.campaign }), within(proposalQuantities.campaignLengthDays.range, proposalQuantities.campaignLengthDays.rangeMessage, 1 / DAY_S));
+  const fwhmRad = reader.read("fwhm", (text) => parseAngle(text, { defaultUnit: defaultUnits.fwhm }), within(proposalQuantities.resolutionMas.range, proposalQuantities.resolutionMas.rangeMessage, 1 / MILLIARCSECOND_RAD));
+  const isInterferometer = sketch.lambda.trim() !== "" || sketch.baseline.trim() !== "";
+  const wavelengthM = isInterferometer
+    ? reader.read("lambda", (text) => parseWavelength(text, { defaultUnit: defaultUnits.lambda }), within(proposalQuantities.interferometerWavelengthMm.range, proposalQuantities.interferometerWavelengthMm.rangeMessage, 1000))
+    : null;
+  const baselineM = isInterferometer
+    ? reader.read("baseline", (text) => parseLength(text, { defaultUnit: defaultUnits.baseline }), within(proposalQuantities.interferometerBaselineKm.range, proposalQuantities.interferometerBaselineKm.rangeMessage, 1 / 1000))
+    : null;
+  return {
+    resolutionMas: tidy(fwhmRad / MILLIARCSECOND_RAD),
+    cadenceHours: tidy(cadenceS / 3600),
+    campaignLengthDays: tidy(campaignS / DAY_S),
+    airmassLimit: reader.quantity("airmass", proposalQuantities.airmassLimit),
+    interferometerWavelengthMm: wavelengthM === null ? null : tidy(wavelengthM * 1000),
+    interferometerBaselineKm: baselineM === null ? null : tidy(baselineM / 1000),
+    moonMinSeparationDeg: reader.optionalQuantity("moonSep", proposalQuantities.moonMinSeparationDeg),
+    moonMaxIllumination: reader.optionalQuantity("moonIllum", proposalQuantities.moonMaxIllumination),
+    visitMinutes: reader.quantity("visit", proposalQuantities.visitMinutes),
+    clearNightFraction: reader.quantity("clear", proposalQuantities.clearNightFraction),
+    astrometricPrecisionMas: reader.optionalQuantity("astrometry", proposalQuantities.astrometricPrecisionMas),
+    reachableContrast: reader.optionalQuantity("contrast", proposalQuantities.reachableContrast),
+  };
+}
+
+/** A cycle date: empty is "not set". */
+function readNightDate(reader: FieldReader, sketch: Sketch, field: "cycleStart" | "cycleEnd"): string | null {
+  const text = sketch[field].trim();
+  if (text === "") return null;
+  const date = nightDateSchema.safeParse(text);
+  if (date.success) return date.data;
+  reader.errors[field] = `${fieldLabels[field]}: ${date.error.issues[0]?.message ?? "The date must be written YYYY-MM-DD."}`;
+  return null;
+}
+
+/** The proposal's side: instrument, site and cycle, checked across fields by the proposal's own rule. */
+function readSettings(reader: FieldReader, sketch: Sketch): FeasibilitySettings {
+  const settings: FeasibilitySettings = {
+    site: {
+      name: sketch.site.trim() === "" ? "Site of the sketch" : sketch.site.trim(),
+      latitudeDeg: reader.quantity("lat", proposalQuantities.latitudeDeg),
+      longitudeDeg: reader.quantity("lon", proposalQuantities.longitudeDeg),
+      elevationM: reader.quantity("elev", proposalQuantities.elevationM),
+      horizonLimitDeg: reader.quantity("horizon", proposalQuantities.horizonLimitDeg),
+    },
+    instrument: readInstrument(reader, sketch),
+    cycleStartDate: readNightDate(reader, sketch, "cycleStart"),
+    cycleEndDate: readNightDate(reader, sketch, "cycleEnd"),
+  };
+  const crossFieldFields: Record<string, SketchField> = {
+    cycleStartDate: "cycleStart",
+    cycleEndDate: "cycleEnd",
+    "instrument.interferometerWavelengthMm": "lambda",
+    "instrument.interferometerBaselineKm": "baseline",
+  };
+  if (reader.errors.cycleStart === undefined && reader.errors.cycleEnd === undefined) {
+    const isInterferometer = sketch.lambda.trim() !== "" || sketch.baseline.trim() !== "";
+    // Both λ and B are read once either is typed, so an empty one is already its own field error.
+    const checked = isInterferometer ? { ...settings.instrument, interferometerWavelengthMm: 1, interferometerBaselineKm: 1 } : settings.instrument;
+    for (const [key, messages] of Object.entries(proposalSettingsErrors({ ...settings, instrument: checked }))) {
+      const field = crossFieldFields[key];
+      if (field !== undefined && messages?.[0] !== undefined) reader.errors[field] ??= messages[0];
+    }
   }
-  const lengthCheck = within(INTERFEROMETER_LENGTH_RANGE_M, "Lengths here lie between 1 nm and 10 million km");
-  const wavelengthM = reader.read("lambda", (text) => parseWavelength(text, { defaultUnit: defaultUnits.lambda }), lengthCheck);
-  const baselineM = reader.read("baseline", (text) => parseLength(text, { defaultUnit: defaultUnits.baseline }), lengthCheck);
-  // λ/B is the interferometric resolution element (fringe spacing) for the longest baseline.
-  return { resolutionRad: wavelengthM / baselineM, resolutionName: "λ/B", cadenceS, campaignS };
+  return settings;
 }
 
 function readLightCurve(reader: FieldReader, sketch: Sketch): LightCurveInputs {
+  if (sketch.mu.trim() === "") return { muRelRadPerS: null };
   return {
     muRelRadPerS: reader.read(
       "mu",
       (text) => parseProperMotion(text, { defaultUnit: defaultUnits.mu }),
       within(acceptedRanges.properMotionMasPerYr, `The relative proper motion must lie between ${rangeText(acceptedRanges.properMotionMasPerYr)} mas/yr`, JULIAN_YEAR_S / MILLIARCSECOND_RAD),
     ),
-    peakTimeS: reader.read("t0", (text) => parseTime(text, { defaultUnit: defaultUnits.t0 }), (value) => (Math.abs(value) <= MAX_TIME_S ? undefined : "The peak time lies within 100 years of the campaign start")),
-    u0ThetaE: reader.read("u0", parsePlainNumber, within(acceptedRanges.sourceOffsetThetaE, `u0 must lie between ${rangeText(acceptedRanges.sourceOffsetThetaE)} (closer, a real source's size caps the peak magnification)`)),
-    // The source's size matters only to the point lens's light curve.
-    sourceRadiusM:
-      lensSketches[sketch.lens].hasLightCurve
-        ? reader.read("rstar", (text) => parseLength(text, { defaultUnit: defaultUnits.rstar }), within(SOURCE_RADIUS_RANGE_M, "The source radius lies between 1 mm and 1 pc"))
-        : Number.NaN,
+  };
+}
+
+/** A coordinate as the target form reads it. */
+function readCoordinate(reader: FieldReader, sketch: Sketch, field: "ra" | "dec"): number {
+  try {
+    return (field === "ra" ? parseRightAscensionDeg : parseDeclinationDeg)(sketch[field]);
+  } catch (error) {
+    if (!(error instanceof CoordinateError)) throw error;
+    reader.errors[field] = error.message;
+    return Number.NaN;
+  }
+}
+
+/** The target's inputs beyond the lens: position, case, event peak and source size, as a target reads them. */
+function readEvent(reader: FieldReader, sketch: Sketch): EventInputs {
+  let eventPeakJdUtc: number | null = null;
+  if (sketch.t0.trim() !== "") {
+    try {
+      eventPeakJdUtc = parseEventPeakJdUtc(sketch.t0);
+    } catch (error) {
+      if (!(error instanceof EventPeakError)) throw error;
+      reader.errors.t0 = error.message;
+    }
+  }
+  const sourceRadiusSolar = reader.optionalQuantity("rstar", targetQuantities.sourceRadiusSolar);
+  const sourceRadiusThetaE = reader.optionalQuantity("rho", targetQuantities.sourceRadiusThetaE);
+  if (sourceRadiusSolar !== null && sourceRadiusThetaE !== null) reader.errors.rho ??= "Give the source's radius R_* or ρ, not both.";
+  return {
+    raDeg: readCoordinate(reader, sketch, "ra"),
+    decDeg: readCoordinate(reader, sketch, "dec"),
+    scienceCase: sketch.case === "inferred" ? null : sketch.case,
+    eventPeakJdUtc,
+    sourceRadiusSolar,
+    sourceRadiusThetaE,
+    limbDarkeningU: reader.optionalQuantity("limb", targetQuantities.limbDarkeningU),
   };
 }
 
@@ -332,12 +457,15 @@ function checkLensScales(errors: FieldErrors, sketch: Sketch, { lens, geometry, 
 /** Parses every field the sketch uses; on any error returns all the field errors at once. */
 export function parseSketch(sketch: Sketch): ParsedSketch {
   const reader = new FieldReader(sketch);
+  const { geometry, redshifts } = readGeometry(reader, sketch);
   const inputs: SketchInputs = {
     lens: readLens(reader, sketch),
-    geometry: readGeometry(reader, sketch),
+    geometry,
+    redshifts,
     sourceOffset: readSourceOffset(reader, sketch),
     lightCurve: readLightCurve(reader, sketch),
-    instrument: readInstrument(reader, sketch),
+    event: readEvent(reader, sketch),
+    settings: readSettings(reader, sketch),
     bundle: readBundle(reader, sketch),
   };
   const lensFields = ["mass", "sigma", "dl", "ds", "h0", "om0", "zl", "zs", "beta", "radius"] as const;

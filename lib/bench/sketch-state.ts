@@ -6,6 +6,7 @@
 
 import { z } from "zod";
 import { lensModelIds, type LensModelId } from "@/lib/lensing/registry";
+import { scienceCaseIds } from "@/lib/lensing/science-cases";
 
 /** Longest text a field accepts from a URL; far above any real quantity, short enough to bound work. */
 const MAX_FIELD_CHARS = 80;
@@ -13,7 +14,11 @@ const MAX_FIELD_CHARS = 80;
 /** Longest unit-choice list from a URL: every results row with its longest unit name fits. */
 const MAX_UNITS_CHARS = 600;
 
-/** The demo sketch: a Galactic microlensing event by a half-solar-mass star seen with an interferometer. */
+/**
+ * The demo sketch: a Galactic-bulge microlensing event by a half-solar-mass star peaking in the
+ * southern winter, seen from a southern site over one semester, with an interferometer as well as a
+ * single telescope's PSF. An empty field is "not set", as on a target or a proposal.
+ */
 export const demoSketch = {
   lens: "point",
   mass: "0.5 Msun",
@@ -28,13 +33,30 @@ export const demoSketch = {
   beta: "0.3",
   betaUnit: "thetaE",
   mu: "6 mas/yr",
-  t0: "45 d",
-  u0: "0.2",
-  resolution: "interferometer",
+  ra: "17 57 12.4",
+  dec: "-29 12 05",
+  case: "inferred",
+  t0: "2027-07-10 00:00 UTC",
+  rho: "",
+  limb: "",
   fwhm: "50 mas",
   lambda: "2.2 um",
   baseline: "130 m",
+  astrometry: "",
+  contrast: "",
+  site: "Sketch site",
+  lat: "-30.2",
+  lon: "-70.7",
+  elev: "2200",
+  horizon: "20",
+  cycleStart: "2027-04-01",
+  cycleEnd: "2027-09-30",
+  airmass: "2",
+  moonSep: "30",
+  moonIllum: "",
   cadence: "1 d",
+  visit: "20 min",
+  clear: "1",
   campaign: "90 d",
   rays: "2000",
   bmin: "0.5",
@@ -57,7 +79,8 @@ function choiceField<const T extends readonly [string, ...string[]]>(options: T,
 export const lensModels = lensModelIds;
 export const geometryModes = ["distance", "redshift"] as const;
 export const betaUnits = ["thetaE", "angle"] as const;
-export const resolutionModes = ["fwhm", "interferometer"] as const;
+/** A science case of `lib/lensing/science-cases.ts`, or "inferred": the one the lens and instrument suggest. */
+export const caseChoices = ["inferred", ...scienceCaseIds] as const;
 export const rayLayouts = ["fan", "cylinder"] as const;
 
 /** Query-string schema; a missing or malformed key falls back to the demo value, never to an error page. */
@@ -75,13 +98,34 @@ export const sketchSchema = z.object({
   beta: textField("beta"),
   betaUnit: choiceField(betaUnits, demoSketch.betaUnit),
   mu: textField("mu"),
+  ra: textField("ra"),
+  dec: textField("dec"),
+  case: choiceField(caseChoices, demoSketch.case),
+  /** The event's peak as a UTC date or a Julian date (`lib/workspace/event-peak.ts`); empty: not set. */
   t0: textField("t0"),
-  u0: textField("u0"),
-  resolution: choiceField(resolutionModes, demoSketch.resolution),
+  /** The source's radius in θ_E, typed instead of its radius in length; empty: not set. */
+  rho: textField("rho"),
+  limb: textField("limb"),
   fwhm: textField("fwhm"),
+  /** The interferometer's wavelength and longest baseline, both or neither (empty). */
   lambda: textField("lambda"),
   baseline: textField("baseline"),
+  astrometry: textField("astrometry"),
+  contrast: textField("contrast"),
+  /** The observing site and cycle of the simulated schedule; empty cycle dates: no schedule. */
+  site: textField("site"),
+  lat: textField("lat"),
+  lon: textField("lon"),
+  elev: textField("elev"),
+  horizon: textField("horizon"),
+  cycleStart: textField("cycleStart"),
+  cycleEnd: textField("cycleEnd"),
+  airmass: textField("airmass"),
+  moonSep: textField("moonSep"),
+  moonIllum: textField("moonIllum"),
   cadence: textField("cadence"),
+  visit: textField("visit"),
+  clear: textField("clear"),
   campaign: textField("campaign"),
   rays: textField("rays"),
   bmin: textField("bmin"),
@@ -89,7 +133,7 @@ export const sketchSchema = z.object({
   layout: choiceField(rayLayouts, demoSketch.layout),
   /** The lens's physical radius, or "compact" for a body inside its photon sphere (a black hole). */
   radius: textField("radius"),
-  /** The source's radius, for its finite-source magnification along the light curve. */
+  /** The source's radius, for its finite-source magnification along the light curve; empty: not set. */
   rstar: textField("rstar"),
   /** Result units the user chose over the readable default: "t-e:yr,theta-e:arcsec" (see display-units). */
   units: z.string().trim().max(MAX_UNITS_CHARS).catch(demoSketch.units),
@@ -112,13 +156,30 @@ export const fieldLabels = {
   beta: "Source offset β",
   betaUnit: "Source offset β given",
   mu: "Relative proper motion μ_rel",
-  t0: "Peak time t0",
-  u0: "Impact parameter at peak u0",
-  resolution: "Resolution from",
+  ra: "Right ascension",
+  dec: "Declination",
+  case: "Science case",
+  t0: "Event peak t0",
+  rho: "Source radius ρ",
+  limb: "Limb darkening",
   fwhm: "PSF FWHM",
   lambda: "Wavelength λ",
   baseline: "Longest baseline B",
+  astrometry: "Astrometric precision per epoch",
+  contrast: "Reachable contrast",
+  site: "Site name",
+  lat: "Latitude",
+  lon: "Longitude",
+  elev: "Elevation",
+  horizon: "Horizon limit",
+  cycleStart: "First night of the cycle",
+  cycleEnd: "Last night of the cycle",
+  airmass: "Airmass limit",
+  moonSep: "Minimum Moon separation",
+  moonIllum: "Largest Moon illumination",
   cadence: "Cadence",
+  visit: "Time per visit",
+  clear: "Clear-night fraction",
   campaign: "Campaign length",
   rays: "Number of rays",
   bmin: "Smallest impact parameter b (M)",
@@ -130,13 +191,10 @@ export const fieldLabels = {
 } as const satisfies Record<keyof typeof demoSketch, string>;
 export type SketchField = keyof Sketch;
 
-/**
- * The bench's side of each lens model: the sketch fields of its own inputs (its parameter, and a point
- * mass's body radius) and whether its sketch draws a microlensing event (light curve, finite source).
- */
-export const lensSketches: Record<LensModelId, { fields: readonly SketchField[]; hasLightCurve: boolean }> = {
-  point: { fields: ["mass", "radius"], hasLightCurve: true },
-  sis: { fields: ["sigma"], hasLightCurve: false },
+/** The bench's side of each lens model: the sketch fields of its own inputs (its parameter, and a point mass's body radius). */
+export const lensSketches: Record<LensModelId, { fields: readonly SketchField[] }> = {
+  point: { fields: ["mass", "radius"] },
+  sis: { fields: ["sigma"] },
 };
 
 /** Next's `searchParams` (or any record of query values) to a complete sketch; repeated keys use the first. */

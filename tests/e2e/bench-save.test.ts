@@ -14,7 +14,8 @@ afterAll(async () => {
 
 const run = Date.now().toString(36);
 const demoProposalTitle = "Bending starlight in the Cinder bulge window";
-// A link like the target page's "Open in the lens bench": a 0.5 M☉ point lens at 4 kpc, source at 8 kpc.
+// A link like the target page's "Open in the lens bench": a 0.5 M☉ point lens at 4 kpc, source at 8 kpc,
+// in the bulge; the keys it leaves out (site, cycle, event peak, source) take the bench's demo values.
 const benchQuery = new URLSearchParams({
   lens: "point",
   mass: "0.5 Msun",
@@ -24,7 +25,9 @@ const benchQuery = new URLSearchParams({
   beta: "0.3",
   betaUnit: "thetaE",
   mu: "5 mas/yr",
-  resolution: "fwhm",
+  ra: "17 59 02.3",
+  dec: "-29 33 10",
+  case: "photometric-microlensing",
   fwhm: "60 mas",
   cadence: "6 h",
   campaign: "120 d",
@@ -55,8 +58,6 @@ describe("lens bench → proposal", () => {
     await expect(save.getByTestId("save-target-radius-hint").textContent()).resolves.toMatch(/no field for the lens radius/);
     const name = `BENCH-${run}`;
     await save.getByLabel("Target name").fill(name);
-    await save.getByLabel("Right ascension").fill("17 59 02.3");
-    await save.getByLabel("Declination").fill("-29 33 10");
     await save.getByRole("button", { name: "Save as target" }).click();
     // θ_E = sqrt(4 GM/c² · D_LS/(D_L D_S)) for 0.5 M☉, D_L = 4 kpc, D_S = 8 kpc: 0.7134 mas
     // (IAU 2015 nominal GM☉, IAU 2012 au; the same case as tests/e2e/workspace.test.ts).

@@ -175,6 +175,32 @@ describe("lens bench", () => {
     await context.close();
   });
 
+  it("grades the sketch by its science case, stating the inference, with the visits its simulated schedule collects", async () => {
+    const { page, context } = await newPage(browser);
+    await page.goto(benchLink({}));
+    const sentence = (id: string) => page.getByTestId(`case-answer-${id}`).getByTestId("case-answer-sentence");
+    await expect(page.getByTestId("bench-case").getAttribute("data-case")).resolves.toBe("photometric-microlensing");
+    await expect(page.getByTestId("bench-case-reason").textContent()).resolves.toMatch(/blend within the PSF FWHM of 50 mas.*a photometric microlensing event\.$/);
+    // The demo's southern site sees the bulge all night in July: the worker's schedule counts the visits.
+    await page.waitForFunction(() => /^The schedule collects \d+ visits within t0 ± t_E/.test(document.querySelector('[data-testid="case-answer-event-visits"] [data-testid="case-answer-sentence"]')?.textContent ?? ""), undefined, { timeout: 30_000 });
+    await expect(page.getByTestId("case-answer-event-visits").getAttribute("data-verdict")).resolves.toBe("feasible");
+    await expect(sentence("peak-window").textContent()).resolves.toBe("The peak (t0 = 2027-07-10 00:00 UTC) falls in a usable window.");
+    // No image-resolution or time-delay question for a microlensing event.
+    for (const id of ["image-separation", "delay-season"]) await expect(page.getByTestId(`case-answer-${id}`).count()).resolves.toBe(0);
+
+    // The team's own case replaces the inferred one.
+    await page.getByLabel("Science case").selectOption("resolved-images");
+    await page.getByTestId("case-answer-image-separation").waitFor();
+    await expect(page.getByTestId("bench-case-reason").count()).resolves.toBe(0);
+    expect(new URL(page.url()).searchParams.get("case")).toBe("resolved-images");
+
+    // Without cycle dates the sampling questions say what to set.
+    await page.goto(benchLink({ cycleStart: "", cycleEnd: "" }));
+    await expect(sentence("event-visits").textContent()).resolves.toMatch(/^Set the proposal's observing site and cycle dates/);
+    await expect(page.getByTestId("case-answer-event-visits").getAttribute("data-verdict")).resolves.toBe("unknown");
+    await context.close();
+  });
+
   it("warns about solar filters when the sketch is deflection by the Sun", async () => {
     const { page, context } = await newPage(browser);
     await page.goto(benchLink({ mass: "1 Msun", dl: "1 au" }));
@@ -191,7 +217,7 @@ describe("lens bench", () => {
     for (const id of ["shadow", "photon-ring", "rel-plus", "r-ph"]) await expect(page.getByTestId(`result-${id}`).count()).resolves.toBe(0);
     await expect(page.getByTestId("result-theta-minus-note").textContent()).resolves.toMatch(/^behind the lens/);
     await expect(page.getByTestId("result-theta-plus-note").count()).resolves.toBe(0);
-    await expect(page.getByTestId("verdict-resolution").textContent()).resolves.toMatch(/inner image lies behind the lens's body/);
+    await expect(page.getByTestId("result-note-occulted-image").textContent()).resolves.toMatch(/inner image lies behind the lens's body/);
     // 4GM☉/(c²R☉) = 1.7512″ for the ray grazing the limb (IAU 2015 B3 nominal GM☉ and R☉).
     await page.getByLabel("Unit for deflection angles").selectOption("arcsec");
     await expect(page.getByTestId("deflection-limb").textContent()).resolves.toMatch(/1\.751\d* arcsec/);

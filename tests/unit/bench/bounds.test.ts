@@ -66,14 +66,14 @@ describe("Einstein radius of a point lens", () => {
 });
 
 describe("peak magnification", () => {
-  it("refuses u0 = 1e-9 (the issue's unbounded peak) and accepts the range's floor, 1e-6", () => {
-    const tiny = parseSketch(sketch({ u0: "1e-9" }));
-    expect(tiny.ok || tiny.fieldErrors.u0).toMatch(/^u0 must lie between 1e-6 and 1000/);
-    expect(parseSketch(sketch({ u0: "1e-6" })).ok).toBe(true);
+  it("refuses u0 = β = 1e-9 (the issue's unbounded peak) and accepts the range's floor, 1e-6", () => {
+    const tiny = parseSketch(sketch({ beta: "1e-9" }));
+    expect(tiny.ok || tiny.fieldErrors.beta).toMatch(/^β must lie between 1e-6 and 1000/);
+    expect(parseSketch(sketch({ beta: "1e-6" })).ok).toBe(true);
   });
 
   it("gives the peak of a Sun-sized source as its finite-source magnification, near √(1 + 4/ρ²), and says the source's size limits it", () => {
-    const results = resultsOf({ u0: "1e-6", rstar: "1 Rsun" });
+    const results = resultsOf({ beta: "1e-6", rstar: "1 Rsun" });
     const thetaERad = rowOf(results, "theta-e").value;
     // ρ = (R☉ / D_S) / θ_E with R☉ = 6.957e8 m (IAU 2015 B3 nominal), D_S = 8 kpc.
     const rho = SOLAR_RADIUS_M / (8000 * PARSEC_M) / thetaERad;
@@ -83,28 +83,36 @@ describe("peak magnification", () => {
     // u0 = 1e-6 ≪ ρ ≈ 8e-4 changes that by ~(u0/ρ)², far below the digit checked.
     expect(peak.value).toBe(peakMagnification(1e-6, rowOf(results, "rho").value));
     expect(peak.value).toBeCloseTo(2454.6, 0);
-    expect(peak.note).toMatch(/^limited by the source's size: for a uniform disk of ρ = .* it differs by more than 1% from a point source's 1(\.0*)? × 10⁶/);
+    expect(peak.note).toMatch(/^limited by the source's size: for a disk of ρ = .* it differs by more than 1% from a point source's 1(\.0*)? × 10⁶/);
   });
 
-  it("gives the demo's peak (u0 = 0.2) within 1% of the point-source value (u²+2)/(u√(u²+4)) = 5.075 (Paczyński 1986), without the source-size note", () => {
+  it("gives the demo's peak (u0 = β = 0.3) within 1% of the point-source value (u²+2)/(u√(u²+4)) = 3.445 (Paczyński 1986), without the source-size note", () => {
     const results = resultsOf({});
     const peak = rowOf(results, "peak");
-    expect(peak.value).toBe(peakMagnification(0.2, rowOf(results, "rho").value));
-    expect(Math.abs(peak.value / (2.04 / (0.2 * Math.sqrt(4.04))) - 1)).toBeLessThan(1e-5);
+    expect(peak.value).toBe(peakMagnification(0.3, rowOf(results, "rho").value));
+    expect(Math.abs(peak.value / (2.09 / (0.3 * Math.sqrt(4.09))) - 1)).toBeLessThan(1e-5);
     expect(peak.note).toBeUndefined();
   });
 
-  it("refuses a source radius without a length unit and reads a bare number in R☉", () => {
+  it("refuses a source radius without a length unit and reads a bare number in R☉, as a target's field does", () => {
     const parsed = parseSketch(sketch({ rstar: "2 kg" }));
-    expect(parsed.ok || parsed.fieldErrors.rstar).toMatch(/^Source radius R_\*: '2 kg'/);
+    expect(parsed.ok || parsed.fieldErrors.rstar).toMatch(/^Source radius: '2 kg'/);
     const bare = parseSketch(sketch({ rstar: "2" }));
-    expect(bare.ok && bare.inputs.lightCurve.sourceRadiusM).toBe(2 * SOLAR_RADIUS_M);
+    expect(bare.ok && bare.inputs.event.sourceRadiusSolar).toBe(2);
+  });
+
+  it("takes the source's radius or ρ, not both, and a point source when neither is set", () => {
+    const both = parseSketch(sketch({ rstar: "1 Rsun", rho: "0.01" }));
+    expect(both.ok || both.fieldErrors.rho).toBe("Give the source's radius R_* or ρ, not both.");
+    const pointSource = resultsOf({ rstar: "" });
+    expect(rowOf(pointSource, "rho").note).toBe("no source radius set: a point source");
+    expect(rowOf(pointSource, "peak").value).toBe(pointLensMagnification(0.3));
   });
 });
 
 describe("light curve", () => {
   it("marks the curve limited by the source's size when a finite source moves it more than 1%, and draws no peak above the disk's", () => {
-    const limited = resultsOf({ u0: "1e-6", t0: "45 d" });
+    const limited = resultsOf({ beta: "1e-6" });
     const curve = lightCurve(limited.event!);
     expect(curve.isLimitedBySourceSize).toBe(true);
     expect(Math.max(...curve.curve.map((point) => point.y))).toBeLessThanOrEqual(rowOf(limited, "peak").value);
@@ -112,8 +120,8 @@ describe("light curve", () => {
   });
 
   it("draws the exact finite-source magnification along the curve, not a point source's capped at the peak", () => {
-    const event = resultsOf({ u0: "1e-6", t0: "45 d" }).event!;
-    const rho = event.sourceRadiusThetaE;
+    const event = resultsOf({ beta: "1e-6" }).event!;
+    const rho = event.sourceRadiusThetaE!;
     // Inside the disk the cap would have drawn the point-source value (below its √(1 + 4/ρ²) cap at u ≈ ρ/2); the disk gives less.
     const u = 0.5 * rho;
     expect(finiteSourceMagnification(u, rho)).toBeLessThan(0.99 * pointLensMagnification(u));

@@ -38,12 +38,11 @@ describe("point-lens results", () => {
     expect(ring?.fractionalDifference).toBeCloseTo(-((15 * Math.PI) / 16) / (ring?.bOverM ?? 1), 12);
   });
 
-  it("gives verdicts for resolution, sampling and time delay of the demo event", () => {
-    expect(results.verdicts.map((verdict) => [verdict.id, verdict.outlook])).toEqual([
-      ["resolution", "infeasible"],
-      ["sampling", "feasible"],
-      ["time-delay", "infeasible"],
-    ]);
+  it("draws the event with the peak at its date: t0 = 2027-07-10 00:00 UTC is 99.5 d after local mean noon before the cycle's first night (2027-04-01) at 70.7° W", () => {
+    // Local mean noon at longitude −70.7° is 12:00 + 70.7/15 h = 16:42:48 UTC; to 2027-07-10 00:00 UTC: 99 d 7 h 17 min 12 s.
+    expect(results.event!.peakTimeS / 86_400).toBeCloseTo(99 + (7 * 3600 + 17 * 60 + 12) / 86_400, 9);
+    expect(resultsOf({ cycleStart: "", cycleEnd: "" }).event!.peakTimeS / 86_400).toBe(45);
+    expect(resultsOf({ mu: "" }).event).toBeUndefined();
   });
 
   it("is not a solar sketch, but the Sun seen from 1 au is", () => {
@@ -63,7 +62,7 @@ describe("isothermal-sphere results", () => {
     expect(pair.deflections).toEqual([]);
     const single = resultsOf({ lens: "sis", sigma: "220 km/s", beta: "1.5" });
     expect(single.rows.some((candidate) => candidate.id === "theta-minus")).toBe(false);
-    expect(single.verdicts[0].text).toMatch(/single image/);
+    expect(single.rows.some((candidate) => candidate.id === "time-delay")).toBe(false);
     expect(sisEinsteinRadius(220, 4000, 8000)).toBe(row(single, "theta-e"));
   });
 });

@@ -17,7 +17,14 @@ describe("field echo", () => {
     expect(fieldEcho(sketch({ dl: "4" }), "dl")).toEqual(echoQuantity("distance", "4", { defaultUnit: "kpc" }));
     expect(fieldEcho(sketch({ dl: "4" }), "dl")).toMatchObject({ ok: true, assumedUnit: true });
     expect(fieldEcho(sketch({ mass: "0.5" }), "mass")).toMatchObject({ ok: true, assumedUnit: true });
-    expect(fieldEcho(sketch({ u0: "0.2" }), "u0")).toEqual(echoQuantity("number", "0.2"));
+    expect(fieldEcho(sketch({ rays: "200" }), "rays")).toEqual(echoQuantity("number", "200"));
+  });
+
+  it("echoes a target's and a proposal's fields as their forms do, and the event peak as a date", () => {
+    expect(fieldEcho(sketch({ visit: "0.5 h" }), "visit")).toEqual({ ok: true, text: "= 30 min", assumedUnit: false });
+    expect(fieldEcho(sketch({ moonSep: "" }), "moonSep")).toBeUndefined();
+    expect(fieldEcho(sketch({ t0: "JD 2461596.5" }), "t0")).toEqual({ ok: true, text: "= 2027-07-10 00:00 UTC (JD 2461596.50)", assumedUnit: false });
+    expect(fieldEcho(sketch({ t0: "45 d" }), "t0")).toMatchObject({ ok: false });
   });
 
   it("reads β as an angle or a number, as the form gives it, and the lens radius's default as compact", () => {

@@ -32,7 +32,7 @@ describe("the Sun as a lens", () => {
   it("has no photon sphere, shadow or relativistic images, and says why", () => {
     for (const id of ["r-ph", "shadow", "photon-ring", "rel-plus", "rel-plus-mu", "rel-minus", "rel-minus-mu"]) expect(rowIds(results)).not.toContain(id);
     expect(results.deflections.map((row) => row.id)).not.toContain("deflection-rel-plus");
-    expect(results.notes.map((note) => note.id)).toEqual(["no-photon-sphere"]);
+    expect(results.notes.map((note) => note.id)).toEqual(["no-photon-sphere", "occulted-image"]);
   });
 
   it("marks the inner image occulted, counts only the outer one and says there is no pair", () => {
@@ -41,9 +41,8 @@ describe("the Sun as a lens", () => {
     expect(Number.isNaN(rowOf(results, "separation").value)).toBe(true);
     expect(rowOf(results, "mu-total").value).toBe(rowOf(results, "mu-plus").value);
     expect(rowOf(results, "mu-total").note).toBe("images behind the lens are not counted");
-    expect(results.verdicts[0]).toMatchObject({ id: "resolution", outlook: "infeasible" });
-    expect(results.verdicts[0].text).toMatch(/^the inner image lies behind the lens's body/);
-    expect(results.verdicts.map((verdict) => verdict.id)).not.toContain("time-delay");
+    // A target has no lens radius: the page says the science case grades a compact lens's images.
+    expect(results.notes.find((note) => note.id === "occulted-image")?.text).toMatch(/^The inner image lies behind the lens's body.*grades the images of a compact lens\.$/);
     expect(results.lensPlane.images).toHaveLength(1);
     expect(results.deflections.find((row) => row.id === "deflection-minus")?.hitsSurface).toBe(true);
     expect(results.deflections.find((row) => row.id === "deflection-plus")?.hitsSurface).toBe(false);
@@ -76,7 +75,7 @@ describe("the Sun as a lens", () => {
     const behind = resultsOf({ ...sun, betaUnit: "thetaE", beta: "0.3" });
     expect(rowOf(behind, "mu-total").value).toBe(0);
     expect(rowOf(behind, "peak")).toMatchObject({ value: 0, note: "the source is behind the lens at closest approach: no image is seen" });
-    expect(behind.verdicts[0].text).toMatch(/^both images lie behind the lens's body/);
+    expect(behind.notes.find((note) => note.id === "occulted-image")?.text).toMatch(/^Both images lie behind the lens's body/);
     expect(behind.lensPlane.images).toEqual([]);
   });
 });

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { parseBundle, parseSketch } from "@/lib/bench/parse-sketch";
 import { demoSketch, sketchFromSearchParams, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
-import { MILLIARCSECOND_RAD, PARSEC_M } from "@/lib/physics";
+import { MILLIARCSECOND_RAD } from "@/lib/physics";
 
 const sketch = (changes: Partial<Sketch>): Sketch => ({ ...demoSketch, ...changes });
 
@@ -12,10 +12,28 @@ describe("parseSketch", () => {
     expect(parsed.inputs.lens).toEqual({ model: "point", massSolar: 0.5, radiusM: 0 });
     expect(parsed.inputs.geometry.dLensPc).toBe(4000);
     expect(parsed.inputs.geometry.dLensSourcePc).toBe(4000);
-    // λ/B = 2.2 µm / 130 m, back from parsecs to metres.
-    expect(parsed.inputs.instrument.resolutionRad).toBeCloseTo(2.2e-6 / 130, 18);
-    expect(parsed.inputs.instrument.resolutionName).toBe("λ/B");
-    expect(parsed.inputs.lightCurve.peakTimeS).toBe(45 * 86_400);
+    // The proposal's side in a proposal's stored units: 2.2 µm = 0.0022 mm, 130 m = 0.13 km, 1 d = 24 h.
+    expect(parsed.inputs.settings).toEqual({
+      site: { name: "Sketch site", latitudeDeg: -30.2, longitudeDeg: -70.7, elevationM: 2200, horizonLimitDeg: 20 },
+      cycleStartDate: "2027-04-01",
+      cycleEndDate: "2027-09-30",
+      instrument: {
+        resolutionMas: 50,
+        cadenceHours: 24,
+        campaignLengthDays: 90,
+        airmassLimit: 2,
+        interferometerWavelengthMm: 0.0022,
+        interferometerBaselineKm: 0.13,
+        moonMinSeparationDeg: 30,
+        moonMaxIllumination: null,
+        visitMinutes: 20,
+        clearNightFraction: 1,
+        astrometricPrecisionMas: null,
+        reachableContrast: null,
+      },
+    });
+    // 2027-07-10 00:00 UTC is JD 2461596.5 (JD 2451545.0 is 2000-01-01 12:00 UTC, plus 10050.5 days).
+    expect(parsed.inputs.event).toEqual({ raDeg: expect.closeTo(269.30166666666667, 12), decDeg: expect.closeTo(-29.201388888888889, 12), scienceCase: null, eventPeakJdUtc: 2461596.5, sourceRadiusSolar: 1, sourceRadiusThetaE: null, limbDarkeningU: null });
     expect(parsed.inputs.bundle).toEqual({ rayCount: 2000, bMinM: 0.5, bMaxM: 15, layout: "fan" });
   });
 
@@ -41,10 +59,11 @@ describe("parseSketch", () => {
   });
 
   it("rejects zero, negative and unitless values where they make no sense", () => {
-    const parsed = parseSketch(sketch({ mass: "-1 Msun", u0: "0", cadence: "1 kg", rays: "5001", bmax: "0.1" }));
+    const parsed = parseSketch(sketch({ mass: "-1 Msun", beta: "0", cadence: "1 kg", rays: "5001", bmax: "0.1", clear: "0" }));
     if (parsed.ok) throw new Error("expected errors");
     expect(parsed.fieldErrors.mass).toMatch(/^Lens mass: '-1 Msun' .*greater than zero/);
-    expect(parsed.fieldErrors.u0).toBe("u0 must lie between 1e-6 and 1000 (closer, a real source's size caps the peak magnification)");
+    expect(parsed.fieldErrors.beta).toBe("β must lie between 1e-6 and 1000 θ_E (closer, a real source's size caps the magnification)");
+    expect(parsed.fieldErrors.clear).toBe("The clear-night fraction is from 0.01 to 1 (every night clear).");
     expect(parsed.fieldErrors.cadence).toMatch(/^Cadence: '1 kg' /);
     expect(parsed.fieldErrors.rays).toBe("The ray count must be a whole number from 1 to 5000");
     expect(parsed.fieldErrors.bmax).toBe("The largest impact parameter must exceed the smallest");
@@ -77,14 +96,35 @@ describe("parseSketch", () => {
     if (!parsed.ok) throw new Error(JSON.stringify(parsed.fieldErrors));
     expect(parsed.inputs.lens).toEqual({ model: "point", massSolar: 0.5, radiusM: 0 });
     expect(parsed.inputs.geometry.dLensPc).toBeCloseTo(4000, 9);
-    expect(parsed.inputs.instrument.cadenceS).toBe(86_400);
+    expect(parsed.inputs.settings.instrument.cadenceHours).toBe(24);
   });
 
-  it("converts wavelength and baseline without losing digits", () => {
-    const parsed = parseSketch(sketch({ lambda: "1.3 mm", baseline: "10000 km" }));
+  it("converts wavelength and baseline to the proposal's mm and km without losing digits", () => {
+    const parsed = parseSketch(sketch({ lambda: "230 GHz", baseline: "10700 km" }));
     if (!parsed.ok) throw new Error(JSON.stringify(parsed.fieldErrors));
-    expect(parsed.inputs.instrument.resolutionRad / (1.3e-3 / 1e7) - 1).toBeLessThan(1e-14);
-    expect(PARSEC_M).toBeGreaterThan(3e16);
+    // λ = c/ν = 299792458 m/s / 230 GHz = 1.303445469565 mm.
+    expect(parsed.inputs.settings.instrument.interferometerWavelengthMm).toBe(1.30344546957);
+    expect(parsed.inputs.settings.instrument.interferometerBaselineKm).toBe(10700);
+  });
+
+  it("reads the target's and the proposal's own fields as their forms do, and an empty one as not set", () => {
+    const parsed = parseSketch(sketch({ lambda: "", baseline: "", t0: "", rstar: "", mu: "", case: "time-delay", cycleStart: "", cycleEnd: "", moonSep: "", astrometry: "100 uas", contrast: "1e3", elev: "-5" }));
+    if (!parsed.ok) throw new Error(JSON.stringify(parsed.fieldErrors));
+    const { instrument } = parsed.inputs.settings;
+    expect([instrument.interferometerWavelengthMm, instrument.interferometerBaselineKm, instrument.moonMinSeparationDeg]).toEqual([null, null, null]);
+    expect([instrument.astrometricPrecisionMas, instrument.reachableContrast, parsed.inputs.settings.site.elevationM]).toEqual([0.1, 1000, -5]);
+    expect([parsed.inputs.settings.cycleStartDate, parsed.inputs.settings.cycleEndDate]).toEqual([null, null]);
+    expect(parsed.inputs.event).toMatchObject({ scienceCase: "time-delay", eventPeakJdUtc: null, sourceRadiusSolar: null });
+    expect(parsed.inputs.lightCurve.muRelRadPerS).toBeNull();
+  });
+
+  it("refuses a half-given interferometer, a cycle in the wrong order and a peak that is not a date, beside their fields", () => {
+    const parsed = parseSketch(sketch({ lambda: "1.3 mm", baseline: "", cycleStart: "2027-09-30", cycleEnd: "2027-04-01", t0: "45 d", ra: "25 00 00" }));
+    if (parsed.ok) throw new Error("expected errors");
+    expect(parsed.fieldErrors.baseline).toMatch(/^Longest baseline B: '' /);
+    expect(parsed.fieldErrors.cycleEnd).toBe("The last night comes on or after the first.");
+    expect(parsed.fieldErrors.t0).toMatch(/^The event peak "45 d" is not a date/);
+    expect(parsed.fieldErrors.ra).toBe("Right ascension: hours must be below 24 (got 25).");
   });
 });
 
