@@ -1,7 +1,7 @@
 "use client";
 
 import { useCallback, useMemo, useState } from "react";
-import { benchCaseReport, benchScheduleRequest } from "@/lib/bench/case-report";
+import { benchCaseReport, benchScheduleRequest, TARGET_COSMOLOGY_TEXT, usesOtherCosmology } from "@/lib/bench/case-report";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
 import { readUnitChoices, withUnitChoice } from "@/lib/bench/display-units";
 import { parseSketch, type SketchInputs } from "@/lib/bench/parse-sketch";
@@ -103,7 +103,7 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
           {lastGood !== undefined ? (
             <StaleFrame isStale={isStale} testId="bench-results">
               <div className="space-y-4">
-                <VerdictList report={report} />
+                <VerdictList report={report} cosmologyNote={usesOtherCosmology(sketch) ? TARGET_COSMOLOGY_TEXT : undefined} />
                 <ResultsPanel results={lastGood.results} units={units} />
               </div>
             </StaleFrame>

@@ -5,7 +5,7 @@ import { useState } from "react";
 import useSWR from "swr";
 import type { ParsedSketch } from "@/lib/bench/parse-sketch";
 import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
-import { DEFAULT_COSMOLOGY } from "@/lib/physics";
+import { TARGET_COSMOLOGY_TEXT, usesOtherCosmology } from "@/lib/bench/case-report";
 import { targetBodyFromSketch } from "@/lib/workspace/bench-link";
 import { roleCan, roleLabels } from "@/lib/workspace/roles";
 import type { ProposalSummary } from "@/lib/server/proposals";
@@ -53,8 +53,6 @@ export function SaveTarget({ sketch, parsed, isComputable }: SaveTargetProps) {
     );
   }
 
-  const usesOtherCosmology =
-    parsed.ok && sketch.geometry === "redshift" && (Number(sketch.h0) !== DEFAULT_COSMOLOGY.H0 || Number(sketch.om0) !== DEFAULT_COSMOLOGY.Om0);
   return (
     <form
       aria-label="Save as target"
@@ -91,11 +89,7 @@ export function SaveTarget({ sketch, parsed, isComputable }: SaveTargetProps) {
             <Field label="Target name" name="name" required errors={fields.name} />
             <Field label="Priority (1–5)" name="priority" inputMode="numeric" defaultValue="3" required errors={fields.priority} />
           </div>
-          {usesOtherCosmology && (
-            <p className="text-xs text-dusk-dim">
-              Targets use H0 = {DEFAULT_COSMOLOGY.H0} km/s/Mpc and Ωm = {DEFAULT_COSMOLOGY.Om0}; the saved target keeps the redshifts, so its distances follow those values.
-            </p>
-          )}
+          {parsed.ok && usesOtherCosmology(sketch) && <p className="text-xs text-dusk-dim">{TARGET_COSMOLOGY_TEXT}</p>}
           <p className="text-xs text-dusk-dim" data-testid="save-target-radius-hint">
             A target keeps the sketch&apos;s lens, distances, source offset, proper motion, position, science case, event peak and source
             size; it has no field for the lens radius, so that stays in this bench link only. The saved target is graded with the

@@ -6,7 +6,7 @@ import type { TargetCaseReport } from "@/lib/workspace/derived";
  * The sketch's science case and its answered questions, from the same grading as a stored target
  * (`lib/bench/case-report.ts`); the inferred case states why it was inferred.
  */
-export function VerdictList({ report }: { report: TargetCaseReport | null }) {
+export function VerdictList({ report, cosmologyNote }: { report: TargetCaseReport | null; cosmologyNote?: string }) {
   return (
     <section aria-label="Feasibility" className="space-y-2 rounded-md border border-void-edge bg-void-raised p-4">
       <h2 className="text-base font-semibold text-dusk">Feasibility</h2>
@@ -21,6 +21,11 @@ export function VerdictList({ report }: { report: TargetCaseReport | null }) {
           {report.scienceCase.reason !== null ? (
             <p className="text-sm text-dusk-dim" data-testid="bench-case-reason">
               {report.scienceCase.reason}
+            </p>
+          ) : null}
+          {cosmologyNote !== undefined ? (
+            <p className="text-sm text-ember" data-testid="bench-case-cosmology">
+              {cosmologyNote}
             </p>
           ) : null}
           <CaseAnswers answers={report.answers} />

@@ -6,10 +6,12 @@
  */
 
 import { NO_SCHEDULE_SENTENCE } from "@/lib/lensing/science-case-words";
+import { DEFAULT_COSMOLOGY } from "@/lib/physics";
 import type { ObservingSchedule } from "@/lib/schedule";
 import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
 import { scheduleConditionsOf, targetCaseReport, targetSchedules, type FeasibilitySettings, type TargetCaseReport } from "@/lib/workspace/derived";
-import type { SketchInputs } from "./parse-sketch";
+import { parsePlainNumber, type SketchInputs } from "./parse-sketch";
+import type { Sketch } from "./sketch-state";
 
 /** What the schedule of a sketch needs: the proposal's settings and the target's position (ICRS degrees). */
 export interface BenchScheduleRequest {
@@ -52,3 +54,20 @@ export function benchCaseReport(inputs: SketchInputs, schedule: BenchSchedule): 
   const sentence = schedule.status === "computing" ? COMPUTING_SCHEDULE_SENTENCE : `The schedule could not be simulated: ${schedule.message}`;
   return { ...report, answers: report.answers.map((answer) => (answer.sentence === NO_SCHEDULE_SENTENCE ? { ...answer, verdict: "unknown", figure: "—", sentence } : answer)) };
 }
+
+/**
+ * A redshift sketch in another cosmology than the physics module's default, which a target (and so the
+ * case, graded on the target's hypothesis) uses: the page says that the distances differ.
+ */
+export function usesOtherCosmology(sketch: Sketch): boolean {
+  if (sketch.geometry !== "redshift") return false;
+  try {
+    return parsePlainNumber(sketch.h0) !== DEFAULT_COSMOLOGY.H0 || parsePlainNumber(sketch.om0) !== DEFAULT_COSMOLOGY.Om0;
+  } catch {
+    // An unreadable H0 or Ωm is its own field's error; the sketch is not graded then.
+    return false;
+  }
+}
+
+/** What the page says when `usesOtherCosmology`. */
+export const TARGET_COSMOLOGY_TEXT = `Targets use H0 = ${DEFAULT_COSMOLOGY.H0} km/s/Mpc and Ωm = ${DEFAULT_COSMOLOGY.Om0}: the science case is graded, and a saved target keeps its redshifts, with those values, so its distances differ from this sketch's.`;

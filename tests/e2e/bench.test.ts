@@ -184,7 +184,7 @@ describe("lens bench", () => {
     // The demo's southern site sees the bulge all night in July: the worker's schedule counts the visits.
     await page.waitForFunction(() => /^The schedule collects \d+ visits within t0 ± t_E/.test(document.querySelector('[data-testid="case-answer-event-visits"] [data-testid="case-answer-sentence"]')?.textContent ?? ""), undefined, { timeout: 30_000 });
     await expect(page.getByTestId("case-answer-event-visits").getAttribute("data-verdict")).resolves.toBe("feasible");
-    await expect(sentence("peak-window").textContent()).resolves.toBe("The peak (t0 = 2027-07-10 00:00 UTC) falls in a usable window.");
+    await expect(sentence("peak-window").textContent()).resolves.toMatch(/^The peak \(t0 = 2027-07-10 00:00 UTC\) falls in a usable window/);
     // No image-resolution or time-delay question for a microlensing event.
     for (const id of ["image-separation", "delay-season"]) await expect(page.getByTestId(`case-answer-${id}`).count()).resolves.toBe(0);
 
