@@ -301,13 +301,15 @@ function readInstrument(reader: FieldReader, sketch: Sketch): FeasibilitySetting
   const cadenceS = reader.read("cadence", (text) => parseTime(text, { defaultUnit: defaultUnits.cadence }), within(proposalQuantities.cadenceHours.range, proposalQuantities.cadenceHours.rangeMessage, 1 / 3600));
   const campaignS = reader.read("campaign", (text) => parseTime(text, { defaultUnit: defaultUnits.campaign }), within(proposalQuantities.campaignLengthDays.range, proposalQuantities.campaignLengthDays.rangeMessage, 1 / DAY_S));
   const fwhmRad = reader.read("fwhm", (text) => parseAngle(text, { defaultUnit: defaultUnits.fwhm }), within(proposalQuantities.resolutionMas.range, proposalQuantities.resolutionMas.rangeMessage, 1 / MILLIARCSECOND_RAD));
-  const isInterferometer = sketch.lambda.trim() !== "" || sketch.baseline.trim() !== "";
-  const wavelengthM = isInterferometer
-    ? reader.read("lambda", (text) => parseWavelength(text, { defaultUnit: defaultUnits.lambda }), within(proposalQuantities.interferometerWavelengthMm.range, proposalQuantities.interferometerWavelengthMm.rangeMessage, 1000))
-    : null;
-  const baselineM = isInterferometer
-    ? reader.read("baseline", (text) => parseLength(text, { defaultUnit: defaultUnits.baseline }), within(proposalQuantities.interferometerBaselineKm.range, proposalQuantities.interferometerBaselineKm.rangeMessage, 1 / 1000))
-    : null;
+  // Each is read when typed; one without the other is the proposal's both-or-neither rule (readSettings).
+  const wavelengthM =
+    sketch.lambda.trim() === ""
+      ? null
+      : reader.read("lambda", (text) => parseWavelength(text, { defaultUnit: defaultUnits.lambda }), within(proposalQuantities.interferometerWavelengthMm.range, proposalQuantities.interferometerWavelengthMm.rangeMessage, 1000));
+  const baselineM =
+    sketch.baseline.trim() === ""
+      ? null
+      : reader.read("baseline", (text) => parseLength(text, { defaultUnit: defaultUnits.baseline }), within(proposalQuantities.interferometerBaselineKm.range, proposalQuantities.interferometerBaselineKm.rangeMessage, 1 / 1000));
   return {
     resolutionMas: tidy(fwhmRad / MILLIARCSECOND_RAD),
     cadenceHours: tidy(cadenceS / 3600),
@@ -354,14 +356,9 @@ function readSettings(reader: FieldReader, sketch: Sketch): FeasibilitySettings 
     "instrument.interferometerWavelengthMm": "lambda",
     "instrument.interferometerBaselineKm": "baseline",
   };
-  if (reader.errors.cycleStart === undefined && reader.errors.cycleEnd === undefined) {
-    const isInterferometer = sketch.lambda.trim() !== "" || sketch.baseline.trim() !== "";
-    // Both λ and B are read once either is typed, so an empty one is already its own field error.
-    const checked = isInterferometer ? { ...settings.instrument, interferometerWavelengthMm: 1, interferometerBaselineKm: 1 } : settings.instrument;
-    for (const [key, messages] of Object.entries(proposalSettingsErrors({ ...settings, instrument: checked }))) {
-      const field = crossFieldFields[key];
-      if (field !== undefined && messages?.[0] !== undefined) reader.errors[field] ??= messages[0];
-    }
+  for (const [key, messages] of Object.entries(proposalSettingsErrors(settings))) {
+    const field = crossFieldFields[key];
+    if (field !== undefined && messages?.[0] !== undefined) reader.errors[field] ??= messages[0];
   }
   return settings;
 }
