@@ -9,6 +9,7 @@ import { DeflectionPlot } from "@/lib/figures/deflection-plot";
 import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
 import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
+import type { ObservingSchedule } from "@/lib/schedule";
 
 const PLOT_WIDTH = 540;
 const PLOT_HEIGHT = 340;
@@ -21,11 +22,15 @@ function PlotCard({ children, testId }: { children: React.ReactNode; testId: str
   );
 }
 
-/** The four plots of the sketch; the deflection curves are in units of M and never change. */
-export function BenchPlots({ results }: { results: BenchResults }) {
+/**
+ * The four plots of the sketch; the deflection curves are in units of M and never change. The event's
+ * epochs are the simulated schedule's visits once it is known, the ones the science case counts.
+ */
+export function BenchPlots({ results, schedule }: { results: BenchResults; schedule: ObservingSchedule | undefined }) {
   const curves = useMemo(() => deflectionCurves(), []);
   const event = results.event;
-  const eventPlots = useMemo(() => (event === undefined ? undefined : { light: lightCurve(event), track: astrometricTrack(event) }), [event]);
+  const eventPlots = useMemo(() => (event === undefined ? undefined : { light: lightCurve(event, schedule), track: astrometricTrack(event, schedule) }), [event, schedule]);
+  const isScheduled = schedule !== undefined && event?.campaignStartJdUtc != null;
   const thetaERad = results.lensPlane.thetaERad;
   const angleUnit = naturalAngleUnit(thetaERad);
   const thetaEInUnit = angleInUnit(thetaERad, angleUnit);
@@ -45,6 +50,11 @@ export function BenchPlots({ results }: { results: BenchResults }) {
         <>
           <PlotCard testId="plot-light-curve">
             <LightCurvePlot lightCurve={eventPlots.light} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+            <figcaption className="px-2 text-xs text-dusk-dim" data-testid="light-curve-epochs">
+              {isScheduled
+                ? "Epochs: the visits the simulated schedule places in the campaign (dark, above the limits, clear nights), from the cycle's first night."
+                : "Epochs: one per cadence interval from the campaign's start, until a schedule is simulated (it needs the cycle dates and the event peak)."}
+            </figcaption>
             {eventPlots.light.isLimitedBySourceSize ? (
               <figcaption className="px-2 text-xs text-ember" data-testid="light-curve-capped">
                 The peak is limited by the source&apos;s size: the curve is a uniform disk&apos;s finite-source magnification, which differs there

@@ -116,7 +116,7 @@ export function LensBench({ initialSketch }: { initialSketch: Sketch }) {
         <div className="space-y-2">
           {isStale ? <p className="text-sm font-semibold text-ember">⚠ {STALE_PLOTS_TEXT}</p> : null}
           <StaleFrame isStale={isStale} testId="bench-plots">
-            <BenchPlots results={lastGood.results} />
+            <BenchPlots results={lastGood.results} schedule={schedule.status === "done" ? schedule.schedule : undefined} />
           </StaleFrame>
         </div>
       ) : null}

@@ -65,6 +65,8 @@ export interface MicrolensingEvent {
   einsteinTimeS: number;
   /** The peak, seconds from the campaign's start (`peakFromCampaignStartS`). */
   peakTimeS: number;
+  /** The campaign's start, Julian date UTC: the cycle's start; null without cycle dates or a peak date. */
+  campaignStartJdUtc: number | null;
   /** β, the impact parameter at the peak, units of θ_E. */
   u0ThetaE: number;
   cadenceS: number;
@@ -106,10 +108,11 @@ function solveSketch(inputs: SketchInputs): LensSolution {
  * as the schedule counts), so the peak sits at its date; without a cycle or a peak date the peak is
  * drawn in the middle of the campaign.
  */
-function peakFromCampaignStartS(inputs: SketchInputs, peakJdUtc: number | null, campaignS: number): number {
+function campaignTiming(inputs: SketchInputs, peakJdUtc: number | null, campaignS: number): Pick<MicrolensingEvent, "peakTimeS" | "campaignStartJdUtc"> {
   const { cycleStartDate, site } = inputs.settings;
-  if (peakJdUtc === null || cycleStartDate === null) return campaignS / 2;
-  return (peakJdUtc - nightStartJdUtc(cycleStartDate, site.longitudeDeg)) * DAY_S;
+  if (peakJdUtc === null || cycleStartDate === null) return { peakTimeS: campaignS / 2, campaignStartJdUtc: null };
+  const campaignStartJdUtc = nightStartJdUtc(cycleStartDate, site.longitudeDeg);
+  return { peakTimeS: (peakJdUtc - campaignStartJdUtc) * DAY_S, campaignStartJdUtc };
 }
 
 const nanIfNull = (value: number | null) => value ?? Number.NaN;
@@ -147,7 +150,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       : {
           thetaERad,
           einsteinTimeS,
-          peakTimeS: peakFromCampaignStartS(inputs, timing.peakJdUtc, campaignS),
+          ...campaignTiming(inputs, timing.peakJdUtc, campaignS),
           u0ThetaE: u,
           cadenceS: instrument.cadenceHours * 3600,
           campaignS,

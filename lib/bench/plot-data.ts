@@ -1,6 +1,8 @@
 /**
  * The series the bench plots draw, sampled from lib/physics: deflection against impact parameter,
- * the Paczyński light curve with the campaign's epochs, and the astrometric centroid track.
+ * the Paczyński light curve with the campaign's epochs, and the astrometric centroid track. The epochs
+ * are the simulated schedule's visits when it is known (the ones the science case counts), else one
+ * per cadence interval from the campaign's start.
  */
 
 import {
@@ -11,6 +13,7 @@ import {
   strongFieldDeflection,
   weakFieldDeflection,
 } from "@/lib/physics";
+import type { ObservingSchedule } from "@/lib/schedule";
 import type { MicrolensingEvent } from "./compute-results";
 import { eventMagnification } from "./event-magnification";
 
@@ -56,7 +59,7 @@ export function deflectionCurves(): DeflectionCurves {
 export interface LightCurve {
   /** Magnification against days from the campaign start. */
   curve: CurvePoint[];
-  /** The campaign's epochs (every cadence interval) with the magnification each would see. */
+  /** The campaign's epochs (the schedule's visits, else every cadence interval) with the magnification each would see. */
   epochs: CurvePoint[];
   peakTimeDays: number;
   campaignDays: number;
@@ -65,15 +68,35 @@ export interface LightCurve {
 }
 
 const LIGHT_CURVE_POINTS = 400;
-/** An epoch list longer than this is thinned for drawing (the verdict still counts every epoch). */
+/** An epoch list longer than this is thinned for drawing (the science case still counts every visit). */
 const MAX_DRAWN_EPOCHS = 600;
+
+/**
+ * The campaign's epochs, seconds from its start, thinned to at most `MAX_DRAWN_EPOCHS`: the schedule's
+ * visit starts inside the campaign when a schedule is given and the campaign has a date, else every
+ * cadence interval.
+ */
+function epochTimesS(event: MicrolensingEvent, schedule: Pick<ObservingSchedule, "visitsJdUtc"> | undefined): number[] {
+  const times: number[] = [];
+  if (schedule !== undefined && event.campaignStartJdUtc !== null) {
+    for (const jd of schedule.visitsJdUtc) {
+      const timeS = (jd - event.campaignStartJdUtc) * DAY_S;
+      if (timeS >= 0 && timeS <= event.campaignS) times.push(timeS);
+    }
+  } else {
+    const epochCount = Math.floor(event.campaignS / event.cadenceS) + 1;
+    for (let k = 0; k < epochCount; k++) times.push(k * event.cadenceS);
+  }
+  const stride = Math.max(1, Math.ceil(times.length / MAX_DRAWN_EPOCHS));
+  return times.filter((_, index) => index % stride === 0);
+}
 
 /**
  * The light curve A(t) with u(t)² = u0² + ((t − t0)/t_E)² (Paczyński 1986), as an observer sees it:
  * a uniform source disk's finite-source magnification, images behind the lens's body left out (event-magnification).
  */
-export function lightCurve(event: MicrolensingEvent): LightCurve {
-  const { campaignS, cadenceS, peakTimeS, einsteinTimeS, u0ThetaE } = event;
+export function lightCurve(event: MicrolensingEvent, schedule?: Pick<ObservingSchedule, "visitsJdUtc">): LightCurve {
+  const { campaignS, peakTimeS, einsteinTimeS, u0ThetaE } = event;
   const magnificationAt = (timeS: number) => eventMagnification(Math.hypot(u0ThetaE, (timeS - peakTimeS) / einsteinTimeS), event);
   const curve: CurvePoint[] = [];
   let isLimitedBySourceSize = magnificationAt(peakTimeS).isLimitedBySourceSize;
@@ -83,13 +106,7 @@ export function lightCurve(event: MicrolensingEvent): LightCurve {
     isLimitedBySourceSize ||= point.isLimitedBySourceSize;
     curve.push({ x: timeS / DAY_S, y: point.magnification });
   }
-  const epochCount = Math.floor(campaignS / cadenceS) + 1;
-  const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
-  const epochs: CurvePoint[] = [];
-  for (let k = 0; k < epochCount; k += stride) {
-    const timeS = k * cadenceS;
-    epochs.push({ x: timeS / DAY_S, y: magnificationAt(timeS).magnification });
-  }
+  const epochs = epochTimesS(event, schedule).map((timeS) => ({ x: timeS / DAY_S, y: magnificationAt(timeS).magnification }));
   return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S, isLimitedBySourceSize };
 }
 
@@ -107,15 +124,11 @@ function centroidAt(timeS: number, event: MicrolensingEvent): CurvePoint {
 }
 
 /** The track from t0 − 6 t_E to t0 + 6 t_E (nearly the whole ellipse), and the campaign's epochs on it. */
-export function astrometricTrack(event: MicrolensingEvent): AstrometricTrack {
+export function astrometricTrack(event: MicrolensingEvent, schedule?: Pick<ObservingSchedule, "visitsJdUtc">): AstrometricTrack {
   const track: CurvePoint[] = [];
   const span = 6 * event.einsteinTimeS;
   for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
     track.push(centroidAt(event.peakTimeS - span + (2 * span * i) / (LIGHT_CURVE_POINTS - 1), event));
   }
-  const epochCount = Math.floor(event.campaignS / event.cadenceS) + 1;
-  const stride = Math.max(1, Math.ceil(epochCount / MAX_DRAWN_EPOCHS));
-  const epochs: CurvePoint[] = [];
-  for (let k = 0; k < epochCount; k += stride) epochs.push(centroidAt(k * event.cadenceS, event));
-  return { track, epochs };
+  return { track, epochs: epochTimesS(event, schedule).map((timeS) => centroidAt(timeS, event)) };
 }
