@@ -49,7 +49,7 @@ export const exportColumns = [
   input({ key: "eventPeakJdUtc", label: "Event peak t0 (JD, UTC)", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.epoch", kind: "double", defaultDigits: 10 }),
   input({ key: "sourceRadiusSolar", label: "Source radius", unit: "Rsun", latexUnit: "$R_\\odot$", voUnit: "solRad", ucd: "phys.size.radius", kind: "double", defaultDigits: 4 }),
   input({ key: "sourceRadiusThetaE", label: "Source radius rho", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "phys.angSize;arith.ratio", kind: "double", defaultDigits: 4 }),
-  input({ key: "limbDarkeningU", label: "Limb-darkening coefficient", unit: "", latexUnit: "", voUnit: "", ucd: "phys.limbDark", kind: "double", defaultDigits: 4 }),
+  input({ key: "limbDarkeningU", label: "Limb-darkening coefficient", unit: "", latexUnit: "", voUnit: "", ucd: "phot.limbDark", kind: "double", defaultDigits: 4 }),
   input({ key: "priority", label: "Priority", unit: "", latexUnit: "", voUnit: "", ucd: "meta.code.qual", kind: "int", defaultDigits: 0 }),
   input({ key: "status", label: "Status", ucd: "meta.code.status", ...text }),
   input({ key: "tags", label: "Tags", ucd: "meta.note", ...text }),
