@@ -10,6 +10,7 @@ import { lensModelOf } from "@/lib/lensing/registry";
 import { nightStartJdUtc } from "@/lib/astro/time";
 import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
 import { eventTimingOf } from "@/lib/workspace/derived";
+import { FINITE_SOURCE_METHOD } from "@/lib/lensing/finite-source";
 import { formatPlain, type DisplayKind } from "./display-units";
 import { eventMagnification } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
@@ -189,7 +190,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       kind: "ratio",
       value: peak.magnification,
       ...(peak.isLimitedBySourceSize
-        ? { note: `limited by the source's size: for a disk of ρ = ${formatPlain(sourceRadiusThetaE ?? 0, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}` }
+        ? { note: `limited by the source's size: for a disk of ρ = ${formatPlain(sourceRadiusThetaE ?? 0, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}; ${FINITE_SOURCE_METHOD}` }
         : {}),
       ...(peak.magnification === 0 ? { note: "the source is behind the lens at closest approach: no image is seen" } : {}),
     },
@@ -202,6 +203,15 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       ...(sourceRadiusThetaE === null ? { note: "no source radius set: a point source" } : {}),
     },
     { id: "centroid-shift", label: isPair ? "Astrometric centroid shift" : "Shift of the image seen from the source", symbol: "δθ", kind: "angle", value: visibleCentroidShift * thetaERad },
+    { id: "max-centroid-shift", label: "Largest centroid shift over the event (at u = √2)", symbol: "θ_E/√8", kind: "angle", value: nanIfNull(solution.maxAstrometricShiftRad) },
+    {
+      id: "pi-e",
+      label: "Microlens parallax",
+      symbol: "π_E",
+      kind: "ratio",
+      value: nanIfNull(solution.microlensParallax),
+      ...(solution.microlensParallax === null ? { note: "needs the distances (a redshift sketch gives none)" } : {}),
+    },
     { id: "r-s", label: "Schwarzschild radius", symbol: "R_S", kind: "length", value: 2 * massLengthM },
   ];
   if (radiusM > 0) rows.push({ id: "lens-angular-radius", label: "Angular radius of the lens's body", symbol: "θ_R", kind: "angle", value: radiusM / lensDistanceM });

@@ -27,6 +27,10 @@
 import { pointLensMagnification } from "@/lib/physics/point-lens";
 import { integrateTanhSinh } from "./tanh-sinh";
 
+/** How the finite-source magnification is computed, as the pages name the method. */
+export const FINITE_SOURCE_METHOD =
+  "finite source by a one-dimensional quadrature over the disk (Lee et al. 2009, ApJ 695, 200; the uniform disk as Witt & Mao 1994, ApJ 430, 505), linear limb darkening as a sum of uniform disks";
+
 /** Below this relative finite-source correction the point-source magnification is returned. */
 const FINITE_SOURCE_NEGLIGIBLE = 1e-7;
 

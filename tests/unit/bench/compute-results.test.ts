@@ -30,6 +30,13 @@ describe("point-lens results", () => {
     expect(row(results, "t-e") / 86_400).toBeCloseTo((thetaERad / ((6e-3 / 206_265) / (365.25 * 86_400))) / 86_400, 3);
   });
 
+  it("gives the event's microlens parallax π_E = π_rel/θ_E (Gould 2000, ApJ 542, 785) and largest centroid shift θ_E/√8 (Walker 1995, from memory)", () => {
+    const thetaERad = einsteinRadius(0.5, 4000, 8000);
+    // π_rel = 1 au (1/4 kpc − 1/8 kpc) = 0.125 mas = 0.125 / 206 264 806.2 rad.
+    expect(row(results, "pi-e")).toBeCloseTo((0.125 / 206_264_806.247) / thetaERad, 9);
+    expect(row(results, "max-centroid-shift")).toBeCloseTo(thetaERad / Math.sqrt(8), 20);
+  });
+
   it("compares exact and weak-field deflection for each image ray, flagging only the relativistic one", () => {
     const flags = Object.fromEntries(results.deflections.map((deflection) => [deflection.id, deflection.isWeakFieldOff]));
     expect(flags).toEqual({ "deflection-plus": false, "deflection-minus": false, "deflection-ring": false, "deflection-rel-plus": true });

@@ -13,6 +13,8 @@ import { benchLink } from "@/lib/workspace/bench-link";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
+import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
+import { angleWords, numberWords } from "@/lib/lensing/science-case-words";
 import { skySiteOf } from "@/lib/workspace/proposal-schema";
 import { statusLabels } from "@/lib/workspace/status";
 import { lensModelLabels } from "@/lib/workspace/target-schema";
@@ -22,6 +24,25 @@ import { getProposal } from "@/lib/server/proposals";
 import { getTarget } from "@/lib/server/targets";
 
 export const metadata: Metadata = { title: "Target" };
+
+/** The event's figures as rows of the computed list (a compact lens only). */
+function microlensingRows(figures: MicrolensingFigures | null): [string, string, string][] {
+  if (figures === null) return [];
+  const { finiteSourcePeak: disk } = figures;
+  return [
+    ["peak-magnification", "Peak magnification A(u0), point source", figures.pointSourcePeak === null ? "— (no finite value at u0 = 0)" : numberWords(figures.pointSourcePeak)],
+    [
+      "finite-source-peak",
+      "Peak magnification of the source's disk",
+      disk === null
+        ? "— (give the source's radius or ρ)"
+        : `${numberWords(disk.magnification)} (ρ = ${numberWords(disk.rho)}, limb darkening ${numberWords(disk.limbDarkeningU)}; ${disk.method})`,
+    ],
+    ["microlens-parallax", "Microlens parallax π_E", figures.microlensParallax === null ? "— (needs distances, not redshifts)" : numberWords(figures.microlensParallax)],
+    ["astrometric-shift", "Largest astrometric shift θ_E/√8", figures.maxAstrometricShiftRad === null ? "—" : angleWords(figures.maxAstrometricShiftRad)],
+    ["photon-ring", "Photon ring (n = 1) diameter", figures.photonRingDiameterRad === null ? "—" : angleWords(figures.photonRingDiameterRad)],
+  ];
+}
 
 export default async function TargetPage({
   params,
@@ -68,13 +89,8 @@ export default async function TargetPage({
     ["magnification", "Total magnification", formatQuantity(target.magnificationTotal)],
     ["time-delay", "Time delay between images", formatWithUnit(target.timeDelayDays, "d")],
     ["crossing-time", "Einstein crossing time", formatWithUnit(target.crossingTimeDays, "d")],
-    [
-      "shadow",
-      "Shadow angular diameter",
-      target.shadowDiameterMicroarcsec != null
-        ? `${formatQuantity(target.shadowDiameterMicroarcsec)} µas (${formatQuantity(target.shadowDiameterMicroarcsec / 1000 / instrument.resolutionMas, 3)} × resolution)`
-        : "—",
-    ],
+    ["shadow", "Shadow angular diameter", formatWithUnit(target.shadowDiameterMicroarcsec, "µas")],
+    ...microlensingRows(microlensingFigures(target)),
   ];
   // Answered live from the stored hypothesis and the proposal as it is now, with the target's schedule.
   const report = targetCaseReport(target, proposal, targetSchedules(proposal, [target])[0]);
