@@ -7,6 +7,7 @@ import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
 import { TargetFieldset, targetBodyOf, type GeometrySource, type TargetFieldTexts } from "@/components/workspace/target-edit-fields";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
+import { eventPeakText } from "@/lib/workspace/event-peak";
 
 /**
  * Degrees as text that parses back to the same double (`String` gives the shortest round-trip form),
@@ -36,7 +37,7 @@ export function targetFieldTexts(t: TargetView): TargetFieldTexts {
     properMotionMasPerYr: textOf(t.properMotionMasPerYr),
     scienceCase: t.scienceCase ?? "",
     // As a Julian date with every stored digit, so saving an untouched form keeps t0.
-    eventPeakJdUtc: t.eventPeakJdUtc == null ? "" : `JD ${t.eventPeakJdUtc}`,
+    eventPeakJdUtc: t.eventPeakJdUtc == null ? "" : eventPeakText(t.eventPeakJdUtc),
     sourceRadiusSolar: textOf(t.sourceRadiusSolar),
     sourceRadiusThetaE: textOf(t.sourceRadiusThetaE),
     limbDarkeningU: textOf(t.limbDarkeningU),

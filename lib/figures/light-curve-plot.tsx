@@ -32,7 +32,7 @@ export function LightCurvePlot({ lightCurve, width, height }: LightCurvePlotProp
         y={margins.top + 6}
         entries={[
           { label: "A(t)", color: plotPalette.skyBlue },
-          { label: "epochs at the cadence", color: plotPalette.orange, marker: "circle" },
+          { label: "visits of the schedule", color: plotPalette.orange, marker: "circle" },
           { label: "peak t0", color: plotPalette.frame, dash: dashPatterns.dotted },
         ]}
       />

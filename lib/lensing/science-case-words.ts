@@ -79,4 +79,4 @@ export function gapReasonWords(reason: ScheduleGapReason): string {
 export const SEASON_GAP_WORDS = "in the season gap: at that time of year the target is not up in darkness, being too close to the Sun in the sky";
 
 /** Asked where a question needs the schedule and the proposal has no site or cycle. */
-export const NO_SCHEDULE_SENTENCE = "Set the proposal's observing site and cycle dates to simulate the nights and count the visits.";
+export const NO_SCHEDULE_SENTENCE = "Set the observing site and the cycle's first and last nights to simulate the nights and count the visits.";

@@ -5,6 +5,7 @@ import { lensParameters } from "@/lib/lensing/registry";
 import { DEFAULT_COSMOLOGY, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics";
 import type { FeasibilitySettings } from "@/lib/workspace/derived";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
+import { eventPeakText } from "@/lib/workspace/event-peak";
 
 /** What "Open in the lens bench" reads of a target: its hypothesis and its position (ICRS degrees). */
 export interface BenchTarget extends LensHypothesis {
@@ -47,7 +48,7 @@ export function benchSketchOf(h: BenchTarget, proposal: FeasibilitySettings): Sk
     ra: degreesText(h.raDeg),
     dec: degreesText(h.decDeg),
     case: h.scienceCase ?? "inferred",
-    t0: h.eventPeakJdUtc == null ? "" : `JD ${h.eventPeakJdUtc}`,
+    t0: h.eventPeakJdUtc == null ? "" : eventPeakText(h.eventPeakJdUtc),
     rstar: typed(h.sourceRadiusSolar),
     rho: typed(h.sourceRadiusThetaE),
     limb: typed(h.limbDarkeningU),

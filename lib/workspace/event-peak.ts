@@ -55,3 +55,8 @@ export function formatEventPeak(jdUtc: number): string {
   const iso = dateFromJdUtc(jdUtc).toISOString();
   return `${iso.slice(0, 10)} ${iso.slice(11, 16)} UTC (JD ${jdUtc.toFixed(2)})`;
 }
+
+/** A stored peak as text the peak field reads back exactly ("JD 2461571.6875"), for forms and links. */
+export function eventPeakText(jdUtc: number): string {
+  return `JD ${jdUtc}`;
+}

@@ -196,7 +196,7 @@ describe("lens bench", () => {
 
     // Without cycle dates the sampling questions say what to set.
     await page.goto(benchLink({ cycleStart: "", cycleEnd: "" }));
-    await expect(sentence("event-visits").textContent()).resolves.toMatch(/^Set the proposal's observing site and cycle dates/);
+    await expect(sentence("event-visits").textContent()).resolves.toMatch(/^Set the observing site and the cycle's first and last nights/);
     await expect(page.getByTestId("case-answer-event-visits").getAttribute("data-verdict")).resolves.toBe("unknown");
     await context.close();
   });

@@ -1,5 +1,7 @@
 import { renderStaticSvg } from "./static-markup";
+import { benchSchedule, benchScheduleRequest } from "@/lib/bench/case-report";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
+import type { ObservingSchedule } from "@/lib/schedule";
 import { angleInUnit, naturalAngleUnit, unitLabel } from "@/lib/bench/display-units";
 import { parsePlainNumber, parseSketch } from "@/lib/bench/parse-sketch";
 import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
@@ -23,11 +25,11 @@ export const BENCH_PLOT_HEIGHT_PX = 340;
 const titles: Record<BenchFigureKind, string> = {
   "lens-plane": "Lens plane: source, images and Einstein ring",
   deflection: "Deflection angle against impact parameter",
-  "light-curve": "Microlensing light curve with the campaign epochs",
+  "light-curve": "Microlensing light curve with the schedule's visits",
   "astrometric-track": "Astrometric centroid track",
 };
 
-function plotElement(kind: BenchFigureKind, results: BenchResults) {
+function plotElement(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined) {
   const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX };
   const thetaERad = results.lensPlane.thetaERad;
   if (kind === "deflection") return <DeflectionPlot curves={deflectionCurves()} {...size} />;
@@ -37,10 +39,10 @@ function plotElement(kind: BenchFigureKind, results: BenchResults) {
   }
   const event = results.event;
   if (event === undefined) throw new AppError("bad_request:figure", "The light curve and astrometric track are drawn for a compact (point) lens.", { lens: ["Choose the point lens for this figure."] });
-  if (kind === "light-curve") return <LightCurvePlot lightCurve={lightCurve(event)} {...size} />;
+  if (kind === "light-curve") return <LightCurvePlot lightCurve={lightCurve(event, schedule)} {...size} />;
   // The same unit choice as the bench: the centroid shift is ~θ_E/3.
   const shiftUnit = naturalAngleUnit(thetaERad / 3);
-  return <AstrometricTrackPlot track={astrometricTrack(event)} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />;
+  return <AstrometricTrackPlot track={astrometricTrack(event, schedule)} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />;
 }
 
 /**
@@ -61,7 +63,10 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
     console.error("bench figure not computed:", computed.message);
     throw new AppError("bad_request:figure", "This sketch cannot be computed.", { _: ["Check the lens, the distances and the source offset."] });
   }
-  const markup = renderStaticSvg(plotElement(kind, computed.results));
+  // The visits of the sketch's simulated schedule, as the page marks them (none without a cycle).
+  const scheduleRequest = kind === "light-curve" || kind === "astrometric-track" ? benchScheduleRequest(parsed.inputs) : null;
+  const schedule = scheduleRequest === null ? undefined : benchSchedule(scheduleRequest);
+  const markup = renderStaticSvg(plotElement(kind, computed.results, schedule));
   const cosmology = sketch.geometry === "redshift" ? { H0: parsePlainNumber(sketch.h0), Om0: parsePlainNumber(sketch.om0) } : undefined;
   const provenance = buildProvenance({
     subject: `Lens bench figure: ${titles[kind]}`,

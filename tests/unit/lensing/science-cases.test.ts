@@ -276,7 +276,7 @@ describe("missing inputs are named in words (issue 16, item 8)", () => {
 
   it("asks for the site and cycle when there is no schedule", () => {
     const answers = scienceCaseQuestions("photometric-microlensing", bulgeInputs({ schedule: null }));
-    expect(answer(answers, "event-visits")).toMatchObject({ verdict: "unknown", sentence: "Set the proposal's observing site and cycle dates to simulate the nights and count the visits." });
+    expect(answer(answers, "event-visits")).toMatchObject({ verdict: "unknown", sentence: "Set the observing site and the cycle's first and last nights to simulate the nights and count the visits." });
   });
 
   it("asks for the relative proper motion when t_E is unknown", () => {

@@ -93,7 +93,7 @@ describe("a bulge microlensing event graded by its science case", () => {
     const answers = deriveTargetColumns(inWinter, noCycle, null).caseAnswers;
     const visits = answers.find((answer) => answer.id === "event-visits")!;
     expect(visits.verdict).toBe("unknown");
-    expect(visits.sentence).toMatch(/cycle dates/);
+    expect(visits.sentence).toMatch(/first and last nights/);
   });
 
   it("honours a case the team chose over the inferred one", () => {
