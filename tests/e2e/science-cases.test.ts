@@ -43,6 +43,20 @@ describe("the demo proposal answered by science case", () => {
     expect(await page.getByTestId("case-answer-image-separation").count()).toBe(0);
     expect(await page.getByTestId("case-answer-delay-season").count()).toBe(0);
 
+    // The same target opened in the lens bench: the bench grades it with the same code, from the same
+    // inputs, site and cycle (its schedule computed in a worker), so every answer reads the same.
+    const onTarget = await page.getByTestId("case-answers").locator("li").evaluateAll((items) =>
+      items.map((item) => [item.getAttribute("data-testid"), item.getAttribute("data-verdict"), item.querySelector('[data-testid="case-answer-sentence"]')?.textContent]),
+    );
+    await page.getByRole("link", { name: "Open in the lens bench" }).click();
+    await page.waitForURL(/\/bench\?/);
+    expect(await page.getByTestId("bench-case").getAttribute("data-case")).toBe("photometric-microlensing");
+    await page.waitForFunction(() => /^The schedule collects/.test(document.querySelector('[data-testid="case-answer-event-visits"] [data-testid="case-answer-sentence"]')?.textContent ?? ""), undefined, { timeout: 30_000 });
+    const onBench = await page.getByTestId("case-answers").locator("li").evaluateAll((items) =>
+      items.map((item) => [item.getAttribute("data-testid"), item.getAttribute("data-verdict"), item.querySelector('[data-testid="case-answer-sentence"]')?.textContent]),
+    );
+    expect(onBench).toEqual(onTarget);
+
     // Its peak in early February, before the bulge clears the morning twilight: the season gap.
     await openTarget(page, proposalUrl, "CBW-24-0733");
     expect(await sentenceOf(page, "peak-window")).toMatch(/season gap/);
