@@ -6,6 +6,7 @@ import { NightChart } from "@/lib/figures/night-chart";
 import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
 import { SeasonChart } from "@/lib/figures/season-chart";
+import { seasonViewOfWindows } from "@/lib/figures/season-view";
 import { SeasonTable } from "./season-table";
 import { parseSkyQuery, skyQuantitySpecs, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
@@ -110,10 +111,10 @@ export function SkyPlanner({ initialQuery }: { initialQuery: SkyQuery }) {
         <h2 className="text-xl font-semibold text-dusk">Season</h2>
         {season.status === "failed" ? <p role="alert" className="text-alarm">The season could not be computed: {season.error}</p> : null}
         {season.status === "computing" ? <p className="text-dusk-dim">Computing the season…</p> : null}
-        {season.season ? (
+        {season.value ? (
           <>
-            <SeasonChart season={season.season} targetIndices={season.season.targets.map((_, index) => index)} />
-            <SeasonTable season={season.season} targetIndices={season.season.targets.map((_, index) => index)} />
+            <SeasonChart view={seasonViewOfWindows(season.value)} targetIndices={season.value.targets.map((_, index) => index)} />
+            <SeasonTable season={season.value} targetIndices={season.value.targets.map((_, index) => index)} />
           </>
         ) : null}
       </section>

@@ -1,11 +1,11 @@
 import { interpolateCividis, scaleLinear, scaleSequential } from "d3";
-import type { SeasonWindows } from "@/lib/astro/season";
 import { PlotAxes } from "./plot-axes";
 import { plotFont, plotPalette } from "./plot-palette";
+import type { SeasonView } from "./season-view";
 
 interface SeasonChartProps {
-  season: SeasonWindows;
-  /** Which targets get a row (the chart stays legible and light at a few dozen rows). */
+  view: SeasonView;
+  /** Which rows of the view are drawn (the chart stays legible and light at a few dozen rows). */
   targetIndices: number[];
   width?: number;
 }
@@ -15,19 +15,19 @@ const LEGEND_Y = 24;
 const margins = { top: 58, right: 16, bottom: 46, left: 150 };
 
 /**
- * Usable dark hours per night (columns) for each target (rows), shaded on the cividis scale
- * (Nuñez, Anderton & Renslow 2018, PLoS ONE 13, e0199239: monotonic in lightness, so it reads in
- * grayscale and for colour-blind readers). Nights too close to the Sun are hatched; never-observable
- * rows are marked ✕.
+ * Usable hours per night (columns) for each target (rows) of a season view (the sky page's dark
+ * hours, or a proposal's schedule), shaded on the cividis scale from 0 to the view's
+ * `scaleMaxHours` (Nuñez, Anderton & Renslow 2018, PLoS ONE 13, e0199239: monotonic in lightness,
+ * so it reads in grayscale and for colour-blind readers). Nights too close to the Sun are hatched;
+ * rows with nothing usable in the range are marked ✕.
  */
-export function SeasonChart({ season, targetIndices, width = 900 }: SeasonChartProps) {
-  const nightCount = season.nightDatesIso.length;
+export function SeasonChart({ view, targetIndices, width = 900 }: SeasonChartProps) {
+  const nightCount = view.nightDatesIso.length;
   const height = margins.top + margins.bottom + Math.max(1, targetIndices.length) * ROW_HEIGHT;
   const x = scaleLinear().domain([0, nightCount]).range([margins.left, width - margins.right]);
-  x.tickFormat = () => (value) => season.nightDatesIso[Math.min(nightCount - 1, Math.round(Number(value)))]?.slice(5) ?? "";
+  x.tickFormat = () => (value) => view.nightDatesIso[Math.min(nightCount - 1, Math.round(Number(value)))]?.slice(5) ?? "";
   const y = scaleLinear().domain([0, Math.max(1, targetIndices.length)]).range([margins.top, height - margins.bottom]);
-  let maxHours = 0;
-  for (const hours of season.hoursDarkPerNight) maxHours = Math.max(maxHours, hours);
+  const maxHours = view.scaleMaxHours;
   const colour = scaleSequential(interpolateCividis).domain([0, Math.max(1, maxHours)]);
   const cellWidth = (width - margins.left - margins.right) / nightCount;
   const legendStops = [0, 0.25, 0.5, 0.75, 1];
@@ -41,10 +41,10 @@ export function SeasonChart({ season, targetIndices, width = 900 }: SeasonChartP
       </defs>
       <PlotAxes x={x} y={scaleLinear().domain([0, 1]).range([height - margins.bottom, margins.top])} yTicks={0} width={width} height={height} margins={margins} xLabel="night (month-day of the evening)" yLabel="" title="Usable dark hours per night" />
       {targetIndices.map((targetIndex, row) => {
-        const target = season.targets[targetIndex];
+        const target = view.rows[targetIndex];
         return (
           <g key={targetIndex}>
-            {Array.from(target.hoursDarkPerNight, (hours, night) => (
+            {Array.from(target.hoursPerNight, (hours, night) => (
               <rect
                 key={night}
                 x={x(night)}
@@ -54,9 +54,9 @@ export function SeasonChart({ season, targetIndices, width = 900 }: SeasonChartP
                 fill={target.tooCloseToSunPerNight[night] ? "url(#season-sun-hatch)" : colour(hours)}
               />
             ))}
-            <text x={margins.left - 6} y={y(row) + ROW_HEIGHT / 2 + 4} textAnchor="end" fontFamily={plotFont} fontSize={11} fill={target.isNeverObservable ? plotPalette.vermillion : plotPalette.text}>
-              {(target.name ?? `target ${targetIndex + 1}`).slice(0, 22)}
-              {target.isNeverObservable ? " ✕" : ""}
+            <text x={margins.left - 6} y={y(row) + ROW_HEIGHT / 2 + 4} textAnchor="end" fontFamily={plotFont} fontSize={11} fill={target.isEmpty ? plotPalette.vermillion : plotPalette.text}>
+              {target.name.slice(0, 22)}
+              {target.isEmpty ? " ✕" : ""}
             </text>
           </g>
         );

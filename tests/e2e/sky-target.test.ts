@@ -57,9 +57,15 @@ describe("sky windows of a proposal's targets", () => {
     const { total } = (await listing.json()) as { total: number };
     expect(total).toBeGreaterThanOrEqual(13);
     expect(await table.getByRole("row").count()).toBe(Math.min(total, 25) + 1);
+    // The season view reads the proposal's simulated observing schedule, the one the verdicts count.
+    expect(await page.getByTestId("season-conditions").textContent()).toMatch(/Moon.*clear-night fraction/);
     const k17 = table.getByRole("row", { name: /K-17 core/ });
     // Best weeks of the bulge from 31° S in a February–August cycle fall in the southern winter.
     expect(await k17.textContent()).toMatch(/2031-0[5-7]-\d\d – 2031-0[5-8]-\d\d/);
+    // One season from mid-February (the bulge first clears airmass 2 before dawn) to the last night,
+    // about 174 d in node with the seeded settings; visits at the 4 h cadence through it.
+    expect(await k17.getByTestId("observing-seasons").textContent()).toMatch(/^2031-0[23]-\d\d – 2031-0[78]-\d\d \(1\d\d d\)$/);
+    expect(Number(await k17.getByTestId("planned-visits").textContent())).toBeGreaterThan(100);
     expect(await page.getByTestId("never-observable").textContent()).toBe("none");
     // The list's headline week counts targets at their best; hours of different targets are never added.
     expect(await page.getByTestId("best-week-overall").textContent()).toMatch(/^2031-\d\d-\d\d – 2031-\d\d-\d\d \(\d+ of \d+ targets\)$/);

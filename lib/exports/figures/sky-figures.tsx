@@ -5,6 +5,7 @@ import { nightlyVisibility } from "@/lib/astro/visibility";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
 import { NightChart } from "@/lib/figures/night-chart";
 import { SeasonChart } from "@/lib/figures/season-chart";
+import { seasonViewOfWindows } from "@/lib/figures/season-view";
 import { skyQueryToString } from "@/lib/astro/sky-query";
 import type { PlotExport } from "./figure-response";
 
@@ -70,7 +71,7 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
 export function seasonPlotExport(targets: (SkyTarget & { name: string })[], startNightIso: string, nightCount: number, context: SkyContext & { reproducePath: string }): PlotExport {
   const shown = targets.slice(0, SEASON_FIGURE_MAX_ROWS);
   const season = seasonWindows({ site: context.site, targets: shown, startNightIso, nightCount, limits: context.limits });
-  const markup = renderStaticSvg(<SeasonChart season={season} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
+  const markup = renderStaticSvg(<SeasonChart view={seasonViewOfWindows(season)} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
   const title = `Usable dark hours per night from ${startNightIso} (${nightCount} nights)`;
   const provenance = buildProvenance({
     subject: `Season chart: ${title}`,

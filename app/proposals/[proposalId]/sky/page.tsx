@@ -2,27 +2,34 @@ import Link from "next/link";
 import type { Metadata } from "next";
 import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
 import { ProposalSeason } from "@/components/sky/proposal-season";
-import { cycleNightCount, skySiteOf } from "@/lib/workspace/proposal-schema";
+import { DEFAULT_SAFE_SUN_ELONGATION_DEG } from "@/lib/astro/constants";
+import { clearNightsText, moonRuleText } from "@/lib/figures/season-view";
+import { SEASON_BRIDGE_NIGHTS } from "@/lib/schedule";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposalSky } from "@/lib/server/proposals";
+import { scheduleConditionsOf } from "@/lib/workspace/derived";
 
 export const metadata: Metadata = { title: "Season view" };
 
-/** Any member: usable dark hours per night for every target of the proposal over its cycle. */
+/** Any member: the simulated observing schedule of every target of the proposal over its cycle. */
 export default async function ProposalSkyPage({ params }: { params: Promise<{ proposalId: string }> }) {
   const { proposalId } = await params;
   const { proposal, targets, total } = await loadForPage(`/proposals/${proposalId}/sky`, (actor) => getProposalSky({ proposalId }, actor));
-  const { cycleStartDate: start, cycleEndDate: end, site, instrument } = proposal;
+  const { site, instrument } = proposal;
+  const conditions = scheduleConditionsOf(proposal);
   return (
     <div className="space-y-6">
       <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Season view">
-        <p className="max-w-3xl text-sm text-dusk-dim">
-          From {site.name} ({site.latitudeDeg}°, {site.longitudeDeg}° east, {site.elevationM} m; horizon {site.horizonLimitDeg}°), air mass ≤{" "}
-          {instrument.airmassLimit}: the hours each night in astronomical darkness with the target above the limit and at least the
-          safe elongation from the Sun (closer nights count as unusable).
+        <p className="max-w-3xl text-sm text-dusk-dim" data-testid="season-conditions">
+          The proposal&apos;s simulated observing schedule, the one every verdict counts. From {site.name} ({site.latitudeDeg}°, {site.longitudeDeg}° east,{" "}
+          {site.elevationM} m; horizon {site.horizonLimitDeg}°), air mass ≤ {instrument.airmassLimit}: the usable hours each night count astronomical
+          darkness, the target above the limit, at least {DEFAULT_SAFE_SUN_ELONGATION_DEG}° from the Sun, and {moonRuleText({ minSeparationDeg: instrument.moonMinSeparationDeg, maxIlluminatedFraction: instrument.moonMaxIllumination })}; they are the
+          hours of a clear night. Visits of {instrument.visitMinutes} min every {instrument.cadenceHours} h are planned in them on the clear nights:{" "}
+          {clearNightsText(instrument.clearNightFraction)}. An observing season is a run of nights that can hold a visit, with interruptions of up to{" "}
+          {SEASON_BRIDGE_NIGHTS} nights bridged.
         </p>
       </ProposalPageHeader>
-      {start === null || end === null ? (
+      {conditions === null ? (
         <p role="alert" className="text-ember">
           This proposal has no cycle dates yet.{" "}
           {proposal.permissions.canManage ? <Link href={`/proposals/${proposal.id}/settings`}>Set them in the proposal settings.</Link> : "Ask the PI to set them."}
@@ -36,7 +43,7 @@ export default async function ProposalSkyPage({ params }: { params: Promise<{ pr
               Showing the first {targets.length} of {total} targets by priority.
             </p>
           )}
-          <ProposalSeason site={skySiteOf(site)} targets={targets} startNightIso={start} nightCount={cycleNightCount(start, end)} airmassLimit={instrument.airmassLimit} />
+          <ProposalSeason conditions={conditions} targets={targets} />
         </>
       )}
     </div>
