@@ -3,9 +3,11 @@
 import Link from "next/link";
 import { useRef, useState } from "react";
 import { useVirtualizer } from "@tanstack/react-virtual";
-import { defaultUnits, importFieldKinds, importFieldLabels, importFields, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
+import { defaultUnits, importFieldKinds, importFieldLabels, importFields, isComputedColumn, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
 import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill, matchToleranceSpec } from "@/lib/imports/request";
 import { lensModelOf } from "@/lib/lensing/registry";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
+import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
 import { apiFetch } from "@/components/workspace/api-client";
@@ -74,7 +76,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
         <h2 id="upload-heading" className="text-xl font-semibold">
           1. Target list
         </h2>
-        <p className="text-sm text-dusk-dim">A CSV (header row first) or a VOTable with TABLEDATA, up to 5 MB and 10,000 rows.</p>
+        <p className="text-sm text-dusk-dim">A CSV (header row first; an ECSV&apos;s header gives each column&apos;s unit) or a VOTable with TABLEDATA, up to 5 MB and 10,000 rows.</p>
         <div data-testid="list-dropzone">
           <UploadDropzone
             endpoint="targetList"
@@ -129,9 +131,11 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
                     <select className={inputClass} value={assignment?.column ?? ""} onChange={(e) => setColumn(field, e.target.value)}>
                       <option value="">— not in the file —</option>
                       {preview.columns.map((column, index) => (
-                        <option key={index} value={index}>
+                        // A column this product computes (our own export's θ_E, case verdicts) is no input.
+                        <option key={index} value={index} disabled={isComputedColumn(column)}>
                           {column.name}
                           {column.unit ? ` [${column.unit}]` : ""}
+                          {isComputedColumn(column) ? " (computed, not imported)" : ""}
                         </option>
                       ))}
                     </select>
@@ -224,6 +228,11 @@ function valueText(row: ImportRowView): string {
   if (v.sourceDistancePc != null) parts.push(`D_S ${formatQuantity(v.sourceDistancePc)} pc`);
   if (v.lensRedshift != null) parts.push(`z_L ${v.lensRedshift}`);
   if (v.sourceRedshift != null) parts.push(`z_S ${v.sourceRedshift}`);
+  if (v.scienceCase != null) parts.push(scienceCaseLabels[v.scienceCase]);
+  if (v.eventPeakJdUtc != null) parts.push(`t0 ${formatEventPeak(v.eventPeakJdUtc)}`);
+  if (v.sourceRadiusSolar != null) parts.push(`R* ${formatQuantity(v.sourceRadiusSolar)} R☉`);
+  if (v.sourceRadiusThetaE != null) parts.push(`ρ ${formatQuantity(v.sourceRadiusThetaE)}`);
+  if (v.limbDarkeningU != null) parts.push(`LD ${v.limbDarkeningU}`);
   return parts.join(" · ");
 }
 

@@ -1,4 +1,6 @@
+import { exportColumns } from "@/lib/exports/tables/columns";
 import type { ImportColumn } from "@/lib/imports/import-table";
+import { targetQuantities } from "@/lib/workspace/target-schema";
 
 /** The target fields an imported column can fill, in the order the mapping step shows them. */
 export const importFields = [
@@ -14,6 +16,11 @@ export const importFields = [
   "velocityDispersionKmPerS",
   "sourceOffsetThetaE",
   "properMotionMasPerYr",
+  "scienceCase",
+  "eventPeakJdUtc",
+  "sourceRadiusSolar",
+  "sourceRadiusThetaE",
+  "limbDarkeningU",
   "priority",
   "tags",
 ] as const;
@@ -35,12 +42,17 @@ export const importFieldLabels: Record<ImportField, string> = {
   velocityDispersionKmPerS: "Velocity dispersion",
   sourceOffsetThetaE: "Source offset (θ_E)",
   properMotionMasPerYr: "Relative proper motion",
+  scienceCase: "Science case",
+  eventPeakJdUtc: "Event peak t0",
+  sourceRadiusSolar: `${targetQuantities.sourceRadiusSolar.label} (R☉)`,
+  sourceRadiusThetaE: `${targetQuantities.sourceRadiusThetaE.label} (θ_E)`,
+  limbDarkeningU: targetQuantities.limbDarkeningU.label,
   priority: "Priority",
   tags: "Tags",
 };
 
-/** How a field's cells are read; the quantity kinds take a unit. */
-export type FieldKind = "text" | "ra" | "dec" | "lensModel" | "number" | "integer" | "tags" | "mass" | "distance" | "velocity" | "properMotion";
+/** How a field's cells are read; the quantity kinds and the epoch take a unit. */
+export type FieldKind = "text" | "ra" | "dec" | "lensModel" | "scienceCase" | "epoch" | "number" | "integer" | "tags" | "mass" | "distance" | "radius" | "velocity" | "properMotion";
 
 export const importFieldKinds: Record<ImportField, FieldKind> = {
   name: "text",
@@ -55,14 +67,24 @@ export const importFieldKinds: Record<ImportField, FieldKind> = {
   velocityDispersionKmPerS: "velocity",
   sourceOffsetThetaE: "number",
   properMotionMasPerYr: "properMotion",
+  scienceCase: "scienceCase",
+  eventPeakJdUtc: "epoch",
+  sourceRadiusSolar: "radius",
+  sourceRadiusThetaE: "number",
+  limbDarkeningU: "number",
   priority: "integer",
   tags: "tags",
 };
 
-/** The unit a bare number is read in when the file names none (the unit in the field's name). */
+/**
+ * The unit a bare number is read in when the file names none (the unit in the field's name); for
+ * the event peak, the day count a bare number is in: JD (read as written) or MJD.
+ */
 export const defaultUnits: Partial<Record<FieldKind, string>> = {
+  epoch: "JD",
   mass: "Msun",
   distance: "pc",
+  radius: "Rsun",
   velocity: "km/s",
   properMotion: "mas/yr",
 };
@@ -94,6 +116,13 @@ const headerSpellings: Record<ImportField, string[]> = {
   velocityDispersionKmPerS: ["sigma", "sigmav", "sigmal", "veldisp", "velocitydispersion", "vdisp", "sigmalens", "lenssigma"],
   sourceOffsetThetaE: ["u0", "umin", "beta", "offset", "sourceoffset", "impactparameter", "betathetae", "sourceoffsetthetae"],
   properMotionMasPerYr: ["mu", "murel", "mul", "pm", "pmrel", "propermotion", "relativepropermotion", "relpm"],
+  scienceCase: ["case", "sciencecase", "sciencecaseid", "chosencase", "observingcase"],
+  // A time-series catalogue's t0 (microlensing fits write t0, t_0, tmax or a bare HJD column); the
+  // last two spellings are this product's own VOTable/ECSV name and CSV header.
+  eventPeakJdUtc: ["t0", "tpeak", "peak", "peaktime", "timeofpeak", "peakdate", "tmax", "eventpeak", "jd", "hjd", "bjd", "mjd", "eventpeakjdutc", "eventpeakt0jdutc"],
+  sourceRadiusSolar: ["rstar", "rsource", "rsrc", "sourceradius", "starradius", "stellarradius", "sourceradiussolar"],
+  sourceRadiusThetaE: ["rho", "rhostar", "rhos", "rhosource", "sourceradiusrho", "sourceradiusthetae"],
+  limbDarkeningU: ["ld", "ldu", "ldcoeff", "ldcoefficient", "limbdarkening", "limbdarkeningu", "limbdarkeningcoefficient", "ulimb", "ulinear"],
   priority: ["priority", "prio", "rank"],
   tags: ["tags", "tag", "labels", "label", "keywords"],
 };
@@ -109,6 +138,13 @@ const headerUnitWords: Record<string, string> = {
   solmass: "Msun",
   kms: "km/s",
   masyr: "mas/yr",
+  rsun: "Rsun",
+  rsol: "Rsun",
+  solrad: "Rsun",
+  jd: "JD",
+  hjd: "HJD",
+  bjd: "BJD",
+  mjd: "MJD",
   deg: "deg",
   hms: "h",
   dms: "deg",
@@ -116,13 +152,47 @@ const headerUnitWords: Record<string, string> = {
 
 // UCD1+ words (IVOA UCD1+ controlled vocabulary 1.5) that name one field without doubt. Redshift
 // (src.redshift) and distance (pos.distance) do not say lens or source, so only the header can.
+// A radius (phys.size.radius) is a source's only in solar radii (a lens galaxy's effective radius is
+// given in kpc or arcsec), and time.epoch a peak only in days: an epoch in years is a position's epoch.
 const ucdFields: Record<string, ImportField> = {
   "pos.eq.ra": "ra",
   "pos.eq.dec": "dec",
   "phys.mass": "lensMassSolar",
   "phys.veloc.dispersion": "velocityDispersionKmPerS",
   "pos.pm": "properMotionMasPerYr",
+  "time.epoch": "eventPeakJdUtc",
+  "phys.size.radius": "sourceRadiusSolar",
+  "phot.limbdark": "limbDarkeningU",
 };
+const ucdUnitRules: Partial<Record<ImportField, (unit: string) => boolean>> = {
+  eventPeakJdUtc: (unit) => epochScaleOf(unit) !== undefined,
+  sourceRadiusSolar: (unit) => headerUnitWords[unit.toLowerCase().replace(/[^a-z]/g, "")] === "Rsun",
+};
+
+/**
+ * The day count a t0 column's bare numbers are in, from its unit or header word: "JD" (as written;
+ * an HJD or BJD differs from the JD by at most 8.3 min, below what a schedule of nights resolves,
+ * and is read as one, as lib/workspace/event-peak.ts reads "HJD") or "MJD"; undefined for a unit
+ * that is no day count. VOUnit "d" on a time.epoch column is a Julian date (common practice).
+ */
+export function epochScaleOf(unit: string): "JD" | "MJD" | undefined {
+  const word = unit.trim().replace(/^"(.*)"$/, "$1").toLowerCase();
+  if (word === "mjd") return "MJD";
+  return ["jd", "hjd", "bjd", "d", "day", "days"].includes(word) ? "JD" : undefined;
+}
+
+// Our own export's computed columns by their VOTable/ECSV name (the key) and CSV header (the label).
+const computedColumnNames = new Set(exportColumns.filter((column) => column.origin === "computed").flatMap((column) => [column.key.toLowerCase(), column.label.toLowerCase()]));
+
+/**
+ * Whether a column is one this product computes from a target's inputs (the Einstein radius, the
+ * science case answered, its verdicts) as its own table export names it: such a column is never
+ * read as an input, since re-importing it would turn a computed value (an inferred case) into a
+ * typed one.
+ */
+export function isComputedColumn(column: ImportColumn): boolean {
+  return computedColumnNames.has(column.name.trim().toLowerCase());
+}
 
 function headerWords(name: string): string[] {
   return name
@@ -132,28 +202,34 @@ function headerWords(name: string): string[] {
     .filter(Boolean);
 }
 
-/** A header read as a field spelling and perhaps a trailing unit word. */
+/** A header read as a field spelling and perhaps a trailing unit word; a lone "HJD" is both. */
 function readHeader(name: string): { spelling: string; unit?: string } {
   const words = headerWords(name);
   const last = words.at(-1);
   if (words.length > 1 && last !== undefined && last in headerUnitWords) {
     return { spelling: words.slice(0, -1).join(""), unit: headerUnitWords[last] };
   }
-  return { spelling: words.join("") };
+  const spelling = words.join("");
+  const dayCount = words.length === 1 ? headerUnitWords[spelling] : undefined;
+  return dayCount !== undefined && epochScaleOf(dayCount) !== undefined ? { spelling, unit: dayCount } : { spelling };
 }
 
-function fieldFromUcd(ucd: string | undefined): ImportField | undefined {
+function fieldFromUcd({ ucd, unit }: ImportColumn): ImportField | undefined {
   if (ucd === undefined) return undefined;
   const words = ucd.toLowerCase().split(";").map((word) => word.trim());
   if (words[0] === "meta.id" && words.includes("meta.main")) return "name";
-  return ucdFields[words[0]];
+  const field = ucdFields[words[0]];
+  const unitRule = field === undefined ? undefined : ucdUnitRules[field];
+  return unitRule === undefined || (unit !== undefined && unitRule(unit)) ? field : undefined;
 }
 
 /**
  * Proposes which column fills which field: header spellings first, then VOTable UCDs for the fields
  * still open; each column fills at most one field and each field comes from one column (the first).
- * Units come from the file (VOTable unit, "[kpc]" in a header, a trailing unit word); where none is
- * given the field's default unit is assumed and marked so the mapping step can show it.
+ * Our own export's computed columns fill none. Units come from the file (VOTable unit, "[kpc]" in a
+ * header, a trailing unit word; for the event peak a header's "MJD" before a unit "d", which gives
+ * only the dimension); where none is given the field's default unit is assumed and marked so the
+ * mapping step can show it.
  */
 export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
   const mapping: ColumnMapping = {};
@@ -162,7 +238,8 @@ export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
   const assign = (field: ImportField, column: number) => {
     if (mapping[field] !== undefined || taken.has(column)) return;
     taken.add(column);
-    const fileUnit = columns[column].unit ?? units.get(column);
+    const headerUnit = units.get(column);
+    const fileUnit = importFieldKinds[field] === "epoch" && headerUnit !== undefined ? headerUnit : (columns[column].unit ?? headerUnit);
     const fallback = defaultUnits[importFieldKinds[field]];
     mapping[field] =
       fileUnit !== undefined && (fallback !== undefined || field === "ra")
@@ -171,15 +248,16 @@ export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
           ? { column, unit: fallback, isUnitAssumed: true }
           : { column };
   };
-  columns.forEach((column, index) => {
+  const inputs = columns.flatMap((column, index) => (isComputedColumn(column) ? [] : [{ column, index }]));
+  for (const { column, index } of inputs) {
     const header = readHeader(column.name);
     units.set(index, header.unit);
     const field = importFields.find((candidate) => headerSpellings[candidate].includes(header.spelling));
     if (field) assign(field, index);
-  });
-  columns.forEach((column, index) => {
-    const field = fieldFromUcd(column.ucd);
+  }
+  for (const { column, index } of inputs) {
+    const field = fieldFromUcd(column);
     if (field) assign(field, index);
-  });
+  }
   return mapping;
 }

@@ -1,5 +1,6 @@
 import Papa from "papaparse";
 import { AppError } from "@/lib/errors";
+import { readEcsvHeader } from "@/lib/imports/ecsv-header";
 import type { ImportColumn, ImportTable } from "@/lib/imports/import-table";
 import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
 
@@ -40,10 +41,13 @@ export function columnFromHeader(header: string, index: number): ImportColumn {
  * pipe as spreadsheets write them). The first row is the header. Blank lines are skipped. A quoted
  * field that is never closed or has text after its closing quote makes the whole file malformed
  * (RFC 4180 §2.5–2.7); a row with the wrong number of fields is left for row validation to report.
+ * An ECSV file (a CSV under a "# %ECSV" YAML header) is read with its header's delimiter, and each
+ * column takes the unit and UCD the header gives it.
  */
 export function parseCsvTable(text: string): ImportTable {
+  const ecsv = readEcsvHeader(text);
   // One row past the limit is enough to know the file is too long, without parsing the rest.
-  const result = Papa.parse<string[]>(text, { skipEmptyLines: "greedy", preview: MAX_IMPORT_ROWS + 2 });
+  const result = Papa.parse<string[]>(ecsv?.body ?? text, { skipEmptyLines: "greedy", preview: MAX_IMPORT_ROWS + 2, ...(ecsv ? { delimiter: ecsv.delimiter } : {}) });
   const quoteError = result.errors.find((error) => error.type === "Quotes");
   if (quoteError) {
     const where = quoteError.row === undefined ? "" : quoteError.row === 0 ? "In the header: " : `Row ${quoteError.row}: `;
@@ -58,7 +62,7 @@ export function parseCsvTable(text: string): ImportTable {
   }
   return {
     format: "csv",
-    columns: header.map(columnFromHeader),
+    columns: header.map((text, index) => ({ ...columnFromHeader(text, index), ...ecsv?.columns.get(text.trim()) })),
     rows: dataRows.map((cells, index) => ({ rowNumber: index + 1, cells })),
   };
 }

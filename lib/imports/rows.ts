@@ -1,9 +1,11 @@
 import { AppError, type FieldErrors } from "@/lib/errors";
 import {
   defaultUnits,
+  epochScaleOf,
   importFieldKinds,
   importFieldLabels,
   importFields,
+  isComputedColumn,
   requiredImportFields,
   type ColumnMapping,
   type FieldKind,
@@ -11,8 +13,9 @@ import {
 } from "@/lib/imports/columns";
 import type { ImportTable } from "@/lib/imports/import-table";
 import { lensModelIds, lensModelOfAlias, lensModelOfParameters, lensModels } from "@/lib/lensing/registry";
-import { JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
-import { QuantityError, parseDistance, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
+import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
+import { JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
+import { QuantityError, parseDistance, parseLength, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
 import { wordedIssue } from "@/lib/workspace/issue-words";
 import { createTargetSchema, lensHypothesisErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 
@@ -51,18 +54,53 @@ class CellError extends Error {}
 /** How a row names its model without the column: "a lens mass for a point mass or a velocity dispersion for a singular isothermal sphere". */
 const modelByParameterText = lensModels.map((m) => `${m.parameters.map((p) => `a ${p.label.toLowerCase()}`).join(" and ")} for a ${m.label.toLowerCase()}`).join(" or ");
 
+/** The science cases as a refused cell lists them: "photometric-microlensing (Photometric microlensing event), …". */
+const scienceCaseChoicesText = scienceCaseIds.map((id) => `${id} (${scienceCaseLabels[id]})`).join(", ");
+
+/** A science case written as its id or its label, in any case ("Time-delay monitoring", "TIME-DELAY"). */
+function scienceCaseOfText(text: string): ScienceCaseId | undefined {
+  const written = text.trim().toLowerCase();
+  return scienceCaseIds.find((id) => id === written || scienceCaseLabels[id].toLowerCase() === written);
+}
+
 /** A file's unit without the quotes some tables put around it; the units parser reads VOUnits ("km.s-1") itself. */
 function readableUnit(unit: string): string {
   return unit.trim().replace(/^"(.*)"$/, "$1");
 }
 
+type QuantityParse = (text: string, options: { defaultUnit?: string }) => number;
+
+// Remembered answers of `isFieldUnit`; units come from files, so the memory is bounded.
+const sameAsDefaultUnit = new Map<string, boolean>();
+const MAX_REMEMBERED_UNITS = 256;
+
+/** Whether the column's unit reads as the field's own ("solMass" as "Msun"), by the one parser. */
+function isFieldUnit(kind: FieldKind, parse: QuantityParse, unit: string): boolean {
+  const fieldUnit = defaultUnits[kind];
+  if (unit === fieldUnit) return true;
+  const key = `${kind} ${unit}`;
+  let isSame = sameAsDefaultUnit.get(key);
+  if (isSame === undefined) {
+    try {
+      isSame = fieldUnit !== undefined && parse("1", { defaultUnit: unit }) === parse("1", { defaultUnit: fieldUnit });
+    } catch (error) {
+      if (!(error instanceof QuantityError)) throw error;
+      isSame = false;
+    }
+    if (sameAsDefaultUnit.size >= MAX_REMEMBERED_UNITS) sameAsDefaultUnit.clear();
+    sameAsDefaultUnit.set(key, isSame);
+  }
+  return isSame;
+}
+
 /**
- * A quantity cell in the field's unit. A bare number already in that unit is taken as written, so
- * "5.5" mas/yr stays 5.5 rather than passing through rad/s and back.
+ * A quantity cell in the field's unit. A bare number already in that unit (or one that reads as it,
+ * "solRad" for "Rsun") is taken as written, so "5.5" mas/yr stays 5.5 rather than passing through
+ * rad/s and back, and our own export re-imports to the same double.
  */
-function quantity(kind: FieldKind, parse: (text: string, options: { defaultUnit?: string }) => number, text: string, unit: string | undefined): number {
+function quantity(kind: FieldKind, parse: QuantityParse, text: string, unit: string | undefined): number {
   const defaultUnit = unit === undefined ? undefined : readableUnit(unit);
-  if (PLAIN_NUMBER.test(text) && defaultUnit === defaultUnits[kind]) return Number(text);
+  if (PLAIN_NUMBER.test(text) && defaultUnit !== undefined && isFieldUnit(kind, parse, defaultUnit)) return Number(text);
   try {
     return parse(text, { defaultUnit });
   } catch (error) {
@@ -91,6 +129,18 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
       if (model === undefined) throw new CellError(`is not a lens model: write ${lensModelIds.map((id) => `"${id}"`).join(" or ")}`);
       return model;
     }
+    case "scienceCase": {
+      const id = scienceCaseOfText(text);
+      if (id === undefined) throw new CellError(`is not a science case: write one of ${scienceCaseChoicesText}, or leave the cell empty to use the inferred case`);
+      return id;
+    }
+    case "epoch": {
+      // Read by the target schema with the workspace's one reader of peak times (lib/workspace/event-peak.ts):
+      // a calendar date as written, a bare number as the column's day count.
+      const scale = unit === undefined ? "JD" : epochScaleOf(unit);
+      if (scale === undefined) throw new CellError(`is in ${unit}; the event peak is a Julian date (unit JD, HJD, MJD or d) or a UTC date such as 2027-06-15 04:30`);
+      return scale === "MJD" && PLAIN_NUMBER.test(text) ? `MJD ${text}` : text;
+    }
     case "number":
     case "integer":
       // Read by the target schema with the parser's number rules (a decimal comma, thousands groups).
@@ -101,6 +151,8 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
       return quantity(kind, (t, o) => parseMass(t, o).massSolar, text, unit);
     case "distance":
       return quantity(kind, parseDistance, text, unit);
+    case "radius":
+      return quantity(kind, (t, o) => parseLength(t, o) / SOLAR_RADIUS_M, text, unit);
     case "velocity":
       return quantity(kind, parseVelocity, text, unit);
     case "properMotion":
@@ -127,6 +179,10 @@ export function checkColumnMapping(table: ImportTable, mapping: ColumnMapping): 
       add(field, `${importFieldLabels[field]}: there is no column ${column + 1}.`);
       continue;
     }
+    if (isComputedColumn(table.columns[column])) {
+      add(field, `Column "${table.columns[column].name}" is computed from a target's inputs, not an input; it cannot fill ${importFieldLabels[field]}.`);
+      continue;
+    }
     const other = users.get(column);
     if (other !== undefined) add(field, `Column "${table.columns[column].name}" is already used for ${importFieldLabels[other]}.`);
     users.set(column, field);
@@ -138,9 +194,11 @@ export function checkColumnMapping(table: ImportTable, mapping: ColumnMapping): 
 
 /**
  * Reads every row into a target as the workspace's target schema defines it (coordinates through
- * lib/workspace/coordinates, quantities through lib/physics/units), and collects row-level errors
- * that name the row and the field. The lens model, when neither a column nor `fill` gives it, follows
- * from what the row has: a mass means a point lens, a velocity dispersion an isothermal sphere.
+ * lib/workspace/coordinates, quantities through lib/physics/units, the event peak through
+ * lib/workspace/event-peak), and collects row-level errors that name the row and the field (and the
+ * file's column, for a cell that cannot be read at all). The lens model, when neither a column nor
+ * `fill` gives it, follows from what the row has: a mass means a point lens, a velocity dispersion
+ * an isothermal sphere.
  */
 export function validateImportRows(table: ImportTable, mapping: ColumnMapping, fill: ImportFill = {}): ImportPreview {
   checkColumnMapping(table, mapping);
@@ -163,7 +221,9 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
         input[field] = readCell(importFieldKinds[field], text, mapping[field]?.unit);
       } catch (error) {
         if (!(error instanceof CellError)) throw error;
-        errors.push(`${prefix}: ${importFieldLabels[field]} ${text} ${error.message}.`);
+        // The file's own header too, so the cell can be found in a table whose header differs from the field.
+        const column = table.columns[mapping[field]!.column].name;
+        errors.push(`${prefix}: ${importFieldLabels[field]} ${text} (column "${column}") ${error.message}.`);
       }
     }
     if (errors.length > 0) return { rowNumber: row.rowNumber, cells, errors };

@@ -11,7 +11,9 @@ import { targetTableExportRoutes } from "@/lib/exports/server/routes";
 import { demoTargets } from "@/db/seed/demo-scenario";
 import { descriptionOf, exportColumnKeys, exportColumnOf, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTableJson } from "@/lib/exports/tables/json";
-import { previewImport } from "@/lib/server/imports";
+import { commitImport, previewImport } from "@/lib/server/imports";
+import { targets } from "@/db/schema";
+import { and, eq } from "drizzle-orm";
 import { createWorld, pointTargetInput, proposalInput, type World } from "./support/world";
 import { startUploadService, type UploadService } from "./support/upload-service";
 import { createProposal } from "@/lib/server/proposals";
@@ -126,21 +128,46 @@ describe("GET /api/proposals/:id/exports/targets", () => {
   });
 });
 
+/** The peak of the event added to the demo-like world: a JD with every digit a double holds. */
+const EXTRA_EVENT_PEAK_JD = 2462668.8337962963;
+const EXTRA_EVENT_NAME = "OB-31-0042";
+
 /**
  * The test world with the demo scenario's targets added (bulge point lenses, whose time delays are
- * ~1e-11 d and shadows ~1e-5 µas, galaxy lenses, the compact object), plus a name with a true minus
- * sign and Ω as copied from papers that starts with #, which a CSV reader could take for a comment.
+ * ~1e-11 d and shadows ~1e-5 µas, galaxy lenses, the compact object; events with their peak t0, a
+ * source radius and limb darkening, chosen science cases), plus a name with a true minus sign and Ω
+ * as copied from papers that starts with #, which a CSV reader could take for a comment, and an event
+ * whose source is given as ρ with a 17-digit t0 and a chosen case.
  */
 async function demoLikeWorld(): Promise<World> {
   const world = await createWorld();
   const extra = { ...demoTargets[0], name: "#2 HE 0435−1223 Ω", ra: "04 38 14.9", dec: "-12 17 14" };
-  for (const { notes: _notes, status: _status, ...target } of [...demoTargets, extra]) {
+  const event = {
+    ...demoTargets.find((target) => target.eventPeakJdUtc !== undefined)!,
+    name: EXTRA_EVENT_NAME,
+    ra: "17 59 02.6",
+    dec: "-29 05 41",
+    eventPeakJdUtc: EXTRA_EVENT_PEAK_JD,
+    sourceRadiusSolar: undefined,
+    sourceRadiusThetaE: 0.0021,
+    limbDarkeningU: 0.55,
+    scienceCase: "photometric-microlensing" as const,
+  };
+  for (const { notes: _notes, status: _status, ...target } of [...demoTargets, extra, event]) {
     await createTarget({ proposalId: world.proposalId }, target, world.actors.pi);
   }
   return world;
 }
 
 const allColumns = `columns=${exportColumnKeys.join(",")}`;
+
+/** Uploads a target list as the Co-I and previews its import with the proposed mapping. */
+async function previewOf(world: World, text: string, name = "targets.vot") {
+  const type = name.endsWith(".vot") ? "application/x-votable+xml" : "text/csv";
+  const upload = await service.uploadAs(world.actors.coi, "targetList", { proposalId: world.proposalId }, { name, bytes: new TextEncoder().encode(text), type });
+  if (upload.stage !== "stored" || !upload.serverData.ok) throw new Error(`upload refused: ${JSON.stringify(upload)}`);
+  return previewImport({ proposalId: world.proposalId }, { fileId: upload.serverData.fileId }, world.actors.coi);
+}
 
 describe("table exports read by astropy and STILTS (tests/validators/check_tables.py)", () => {
   it("VOTable, CSV and ECSV parse, survive astropy's rewrite and STILTS with every value to 1e-9 and their units (VOTable precision='4' rewrote 1.752e-11 d as 0.0000)", async () => {
@@ -188,14 +215,41 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
     }
   });
 
-  it("our own VOTable of every column re-imports with every unchanged target unchanged (9-digit RA/Dec made 16 of 20 an update)", async () => {
+  it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
     const world = await demoLikeWorld();
     const votable = await (await download(world.actors.coi, world.proposalId, `format=votable&${allColumns}`)).text();
-    const upload = await service.uploadAs(world.actors.coi, "targetList", { proposalId: world.proposalId }, { name: "targets.vot", bytes: new TextEncoder().encode(votable), type: "application/x-votable+xml" });
-    if (upload.stage !== "stored" || !upload.serverData.ok) throw new Error(`upload refused: ${JSON.stringify(upload)}`);
-    const preview = await previewImport({ proposalId: world.proposalId }, { fileId: upload.serverData.fileId }, world.actors.coi);
-    expect(preview.rows).toHaveLength(demoTargets.length + 2);
+    const preview = await previewOf(world, votable);
+    expect(preview.rows).toHaveLength(demoTargets.length + 3);
+    // The event's inputs are read back as inputs; the computed columns (answeredCase, verdicts, θ_E) fill nothing.
+    const mappedNames = Object.entries(preview.mapping).map(([field, assignment]) => `${field}: ${preview.columns[assignment!.column].name}`);
+    expect(mappedNames).toEqual(expect.arrayContaining(["eventPeakJdUtc: eventPeakJdUtc", "sourceRadiusSolar: sourceRadiusSolar", "sourceRadiusThetaE: sourceRadiusThetaE", "limbDarkeningU: limbDarkeningU"]));
+    expect(mappedNames.filter((entry) => /answeredCase|caseVerdict|caseAnswers|einsteinRadiusMas/.test(entry))).toEqual([]);
+    const event = preview.rows.find((row) => row.cells.name === EXTRA_EVENT_NAME)!;
+    expect(event.values).toMatchObject({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD, sourceRadiusThetaE: 0.0021, limbDarkeningU: 0.55 });
+    expect(preview.rows.filter((row) => row.values?.sourceRadiusSolar != null && row.values.eventPeakJdUtc != null)).toHaveLength(1);
     expect(preview.rows.filter((row) => row.action !== "skip").map((row) => `row ${row.rowNumber}: ${row.action}, ${row.detail}`)).toEqual([]);
-    expect(preview.counts).toEqual({ added: 0, updated: 0, skipped: demoTargets.length + 2, invalid: 0 });
+    expect(preview.counts).toEqual({ added: 0, updated: 0, skipped: demoTargets.length + 3, invalid: 0 });
+    // The ECSV export carries the same units and UCDs in its YAML header, and reads back the same.
+    const ecsv = await (await download(world.actors.coi, world.proposalId, `format=ecsv&${allColumns}`)).text();
+    const fromEcsv = await previewOf(world, ecsv, "targets.ecsv");
+    expect(fromEcsv.mapping).toEqual(preview.mapping);
+    expect(fromEcsv.counts).toEqual(preview.counts);
+  });
+
+  it("our own VOTable with one event's t0 edited updates that target alone, and the commit stores the new t0", async () => {
+    const world = await demoLikeWorld();
+    const votable = await (await download(world.actors.coi, world.proposalId, `format=votable&${allColumns}`)).text();
+    const cell = `<TD>${EXTRA_EVENT_PEAK_JD}</TD>`;
+    expect(votable.split(cell)).toHaveLength(2);
+    const edited = votable.replace(cell, `<TD>${EXTRA_EVENT_PEAK_JD + 3}</TD>`);
+    const preview = await previewOf(world, edited);
+    expect(preview.rows.filter((row) => row.action !== "skip").map((row) => `${row.action}: ${row.detail}`)).toEqual([`update: updates ${EXTRA_EVENT_NAME} (same name)`]);
+    expect(preview.counts).toEqual({ added: 0, updated: 1, skipped: demoTargets.length + 2, invalid: 0 });
+    await commitImport({ proposalId: world.proposalId }, { fileId: preview.file.id, mapping: preview.mapping, toleranceArcsec: 1 }, world.actors.coi);
+    const [stored] = await dbClient()
+      .db.select({ eventPeakJdUtc: targets.eventPeakJdUtc, sourceRadiusThetaE: targets.sourceRadiusThetaE, scienceCase: targets.scienceCase })
+      .from(targets)
+      .where(and(eq(targets.proposalId, world.proposalId), eq(targets.name, EXTRA_EVENT_NAME)));
+    expect(stored).toEqual({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD + 3, sourceRadiusThetaE: 0.0021, scienceCase: "photometric-microlensing" });
   });
 });

@@ -59,8 +59,8 @@ describe("validateImportRows", () => {
     const { rows } = preview("A,10,10,heavy,4 km/s,8,0.2,5,2,");
     // Each refusal says what to type instead (issue #15), with the parser's examples for the kind.
     expect(rows[0].errors).toEqual([
-      "row 1: Lens distance 4 km/s is a velocity, not a distance; type e.g. 8 kpc or 2.5e4 ly.",
-      "row 1: Lens mass heavy is not a number followed by a unit; type e.g. 4e6 Msun, 1 Mjup or 3 Mearth.",
+      'row 1: Lens distance 4 km/s (column "D_L") is a velocity, not a distance; type e.g. 8 kpc or 2.5e4 ly.',
+      'row 1: Lens mass heavy (column "mass") is not a number followed by a unit; type e.g. 4e6 Msun, 1 Mjup or 3 Mearth.',
     ]);
   });
 
