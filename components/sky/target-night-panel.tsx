@@ -4,6 +4,8 @@ import { useEffect, useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { NightChart } from "@/lib/figures/night-chart";
+import type { ObservingSchedule } from "@/lib/schedule";
+import { nightPlan } from "@/lib/schedule/timeline-plot";
 import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
 
@@ -13,13 +15,17 @@ interface TargetNightPanelProps {
   airmassLimit: number;
   /** The night shown first, `YYYY-MM-DD` (the page picks it from the address bar or the cycle). */
   initialNightIso: string;
+  /** The target's simulated schedule over the proposal's cycle (computed on the server); null without cycle dates. */
+  schedule: ObservingSchedule | null;
 }
 
 /**
- * One target's night from its proposal's site: chart, figures (with the Sun caution when it applies)
- * and the date control. The night lives in the address bar (`?night=`), so a link reopens it.
+ * One target's night from its proposal's site: chart, figures (with the Sun caution when it applies),
+ * the visits the target's schedule plans that night (read from the whole cycle's schedule, so a
+ * cadence longer than a night carries over from the nights before) and the date control. The night
+ * lives in the address bar (`?night=`), so a link reopens it.
  */
-export function TargetNightPanel({ site, target, airmassLimit, initialNightIso }: TargetNightPanelProps) {
+export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, schedule }: TargetNightPanelProps) {
   const [nightIso, setNightIso] = useState(initialNightIso);
   const result = useMemo(() => {
     try {
@@ -28,6 +34,7 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso }
       return { visibility: null, error: error instanceof Error ? error.message : String(error) };
     }
   }, [site, target, nightIso, airmassLimit]);
+  const plan = useMemo(() => nightPlan(schedule, nightIso), [schedule, nightIso]);
 
   useEffect(() => {
     const url = new URL(window.location.href);
@@ -45,10 +52,13 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso }
       {result.visibility ? (
         <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
           <div className="rounded-md border border-void-edge">
-            <NightChart visibility={result.visibility} />
+            <NightChart visibility={result.visibility} plannedVisits={schedule === null ? undefined : { visitsJdUtc: plan.visitsJdUtc, visitLengthDays: schedule.visitLengthDays }} />
+            <p className="px-3 pt-2 text-sm" data-testid="night-planned-visits" data-count={plan.visitsJdUtc.length}>
+              {plan.sentence}
+            </p>
             <p className="px-3 py-2 text-xs text-dusk-dim">
               Sky shading from light to dark: day, civil, nautical and astronomical twilight, darkness (Sun below −18°).
-              Green fill: dark time above the limit (air mass ≤ {airmassLimit}, Pickering 2002; site horizon {site.horizonLimitDeg}°). Times UTC.
+              Green fill: dark time above the limit (air mass ≤ {airmassLimit}, Pickering 2002; site horizon {site.horizonLimitDeg}°). White bands and diamonds: the visits the simulated schedule plans. Times UTC.
             </p>
           </div>
           <NightFigures visibility={result.visibility} />

@@ -1,13 +1,23 @@
-import { area, line, scaleLinear } from "d3";
+import { area, bisectLeft, line, scaleLinear } from "d3";
 import type { NightVisibility } from "@/lib/astro/visibility";
 import { SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG } from "@/lib/astro/constants";
 import { apparentAltitudeForAirmassDeg } from "@/lib/astro/airmass";
-import { defaultMargins, PlotAxes, PlotLegend } from "./plot-axes";
+import { defaultMargins, Marker, PlotAxes, PlotLegend } from "./plot-axes";
 import { dashPatterns, plotFont, plotPalette } from "./plot-palette";
 import { formatUtcClock } from "@/lib/astro/sky-format";
+import { visitMarks } from "@/lib/schedule/timeline-plot";
+
+/** The night's visits planned by the target's simulated schedule (lib/schedule). */
+export interface PlannedVisits {
+  /** Start times, JD UTC, ascending. */
+  visitsJdUtc: readonly number[];
+  visitLengthDays: number;
+}
 
 interface NightChartProps {
   visibility: NightVisibility;
+  /** Drawn as bands over the visits' time with a mark on the target's curve; absent: none drawn. */
+  plannedVisits?: PlannedVisits;
   width?: number;
   height?: number;
 }
@@ -32,11 +42,12 @@ const HOUR = 1 / 24;
 
 /**
  * Altitude of the target through one night (apparent, degrees) with its air mass on the right-hand
- * axis, the Moon's altitude, the altitude limit, transit, and the sky shaded by twilight. Times on
- * the axis are UTC hours; the view spans an hour before sunset to an hour after sunrise (the whole
- * noon-to-noon window when the Sun does not set or rise).
+ * axis, the Moon's altitude, the altitude limit, transit, the sky shaded by twilight and, when
+ * given, the visits the schedule plans that night. Times on the axis are UTC hours; the view spans
+ * an hour before sunset to an hour after sunrise (the whole noon-to-noon window when the Sun does
+ * not set or rise).
  */
-export function NightChart({ visibility, width = 760, height = 360 }: NightChartProps) {
+export function NightChart({ visibility, plannedVisits, width = 760, height = 360 }: NightChartProps) {
   const { samples, twilight, passages, limit } = visibility;
   const margins = { ...defaultMargins, right: 56 };
   const count = samples.jdUtc.length;
@@ -75,6 +86,14 @@ export function NightChart({ visibility, width = 760, height = 360 }: NightChart
   const transitX = x(toHours(passages.transitJdUtc));
   const isTransitShown = passages.transitJdUtc >= from && passages.transitJdUtc <= to;
   const clipId = `night-clip-${visibility.nightDateIso}`;
+  // Visits closer than a pixel are drawn as one band; the mark sits on the altitude curve at its middle.
+  const daysPerPx = (to - from) / (x1 - x0);
+  const visits = plannedVisits === undefined ? [] : visitMarks(plannedVisits.visitsJdUtc, plannedVisits.visitLengthDays, daysPerPx);
+  const altitudeAt = (jdUtc: number) => {
+    const k = Math.min(count - 1, Math.max(1, bisectLeft(samples.jdUtc, jdUtc)));
+    const [ja, jb] = [samples.jdUtc[k - 1], samples.jdUtc[k]];
+    return samples.altitudeDeg[k - 1] + ((samples.altitudeDeg[k] - samples.altitudeDeg[k - 1]) * (jdUtc - ja)) / (jb - ja);
+  };
 
   return (
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={`Altitude and air mass through the night of ${visibility.nightDateIso}`} data-testid="night-chart" data-night={visibility.nightDateIso}>
@@ -94,7 +113,14 @@ export function NightChart({ visibility, width = 760, height = 360 }: NightChart
         <path d={darkAbove} fill={plotPalette.bluishGreen} fillOpacity={0.3} />
         <line x1={x0} x2={x1} y1={y(limit.apparentDeg)} y2={y(limit.apparentDeg)} stroke={plotPalette.orange} strokeDasharray={dashPatterns.dashed} strokeWidth={1.5} />
         <path d={curve(samples.moonAltitudeDeg)} fill="none" stroke={plotPalette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={2} />
+        {visits.map((visit) => (
+          <rect key={visit.startJdUtc} x={x(toHours(visit.startJdUtc))} width={Math.max(1.5, x(toHours(visit.endJdUtc)) - x(toHours(visit.startJdUtc)))} y={y1} height={y0 - y1} fill={plotPalette.white} fillOpacity={0.12} />
+        ))}
         <path d={curve(samples.altitudeDeg)} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2.5} />
+        {visits.map((visit) => {
+          const middle = (visit.startJdUtc + visit.endJdUtc) / 2;
+          return <Marker key={visit.startJdUtc} shape="diamond" cx={x(toHours(middle))} cy={y(altitudeAt(middle))} size={8} color={plotPalette.white} />;
+        })}
         {isTransitShown ? (
           <g>
             <line x1={transitX} x2={transitX} y1={y0} y2={y1} stroke={plotPalette.white} strokeDasharray={dashPatterns.dashDot} strokeWidth={1} />
@@ -127,6 +153,7 @@ export function NightChart({ visibility, width = 760, height = 360 }: NightChart
           { label: "Moon", color: plotPalette.yellow, dash: dashPatterns.dotted },
           { label: `limit ${limit.apparentDeg.toFixed(1)}° (${limit.binding})`, color: plotPalette.orange, dash: dashPatterns.dashed },
           { label: "transit", color: plotPalette.white, dash: dashPatterns.dashDot },
+          ...(visits.length > 0 ? [{ label: "planned visit", color: plotPalette.white, marker: "diamond" as const }] : []),
         ]}
       />
     </svg>
