@@ -11,7 +11,8 @@ import { nightDateSchema } from "@/lib/astro/inputs";
 import { currentNightIso } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
-import { targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
+import { eventTimingOf, lensSolutionOf, targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
+import { ScheduleTimeline } from "@/components/workspace/schedule-timeline";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
 import { angleWords, numberWords } from "@/lib/lensing/science-case-words";
@@ -93,7 +94,10 @@ export default async function TargetPage({
     ...microlensingRows(microlensingFigures(target)),
   ];
   // Answered live from the stored hypothesis and the proposal as it is now, with the target's schedule.
-  const report = targetCaseReport(target, proposal, targetSchedules(proposal, [target])[0]);
+  const schedule = targetSchedules(proposal, [target])[0];
+  const report = targetCaseReport(target, proposal, schedule);
+  const solved = lensSolutionOf(target);
+  const event = solved === null ? null : eventTimingOf(target, solved.solution, solved.geometry);
   const site = skySiteOf(proposal.site);
   // The night in the address bar, else tonight at the site, or the cycle's first night while it is ahead.
   const tonightIso = currentNightIso(new Date(), site.longitudeEastDeg);
@@ -186,12 +190,13 @@ export default async function TargetPage({
           </>
         )}
       </section>
-      {/* The event's timeline with the schedule's visits and gaps belongs here, between the answers and the night. */}
+      <ScheduleTimeline schedule={schedule} caseId={report?.scienceCase.caseId ?? null} solution={report?.solution ?? null} event={event} />
       <TargetNightPanel
         site={site}
         target={{ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }}
         airmassLimit={instrument.airmassLimit}
         initialNightIso={initialNightIso}
+        schedule={schedule}
       />
       <TargetNotes notesUrl={`${apiBase}/notes`} initialNotes={notes} canEdit={proposal.permissions.canEdit} />
     </div>
