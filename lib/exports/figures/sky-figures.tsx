@@ -1,11 +1,11 @@
 import { renderStaticSvg } from "./static-markup";
 import type { SkyLimitsInput, SkySiteInput, SkyTarget } from "@/lib/astro/inputs";
-import { seasonWindows } from "@/lib/astro/season";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
 import { NightChart } from "@/lib/figures/night-chart";
 import { SeasonChart } from "@/lib/figures/season-chart";
-import { seasonViewOfWindows } from "@/lib/figures/season-view";
+import { seasonViewOfSchedules } from "@/lib/figures/season-view";
+import { observingSchedules, type ScheduleConditions } from "@/lib/schedule";
 import { skyQueryToString } from "@/lib/astro/sky-query";
 import type { PlotExport } from "./figure-response";
 
@@ -67,12 +67,19 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
   return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance };
 }
 
-/** Usable dark hours per night for up to `SEASON_FIGURE_MAX_ROWS` targets from `startNightIso`. */
-export function seasonPlotExport(targets: (SkyTarget & { name: string })[], startNightIso: string, nightCount: number, context: SkyContext & { reproducePath: string }): PlotExport {
+/**
+ * A proposal's season as its view shows it: each target's usable hours per night of its simulated
+ * observing schedule (darkness, the limits, the Sun rule and the Moon constraint), for up to
+ * `SEASON_FIGURE_MAX_ROWS` targets over the conditions' nights.
+ */
+export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })[], conditions: ScheduleConditions, context: SkyContext & { reproducePath: string }): PlotExport {
   const shown = targets.slice(0, SEASON_FIGURE_MAX_ROWS);
-  const season = seasonWindows({ site: context.site, targets: shown, startNightIso, nightCount, limits: context.limits });
-  const markup = renderStaticSvg(<SeasonChart view={seasonViewOfWindows(season)} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
-  const title = `Usable dark hours per night from ${startNightIso} (${nightCount} nights)`;
+  const schedules = observingSchedules({ ...conditions, targets: shown });
+  const view = seasonViewOfSchedules(shown.map((t) => t.name), schedules);
+  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
+  const nightCount = view.nightDatesIso.length;
+  const { cycleStartNightIso: startNightIso, moon } = conditions;
+  const title = `Usable dark hours per night of the observing schedule from ${startNightIso} (${nightCount} nights)`;
   const provenance = buildProvenance({
     subject: `Season chart: ${title}`,
     reproduceUrl: new URL(context.reproducePath, context.appOrigin).toString(),
@@ -82,6 +89,9 @@ export function seasonPlotExport(targets: (SkyTarget & { name: string })[], star
       startNightIso,
       nightCount,
       ...siteInputs(context),
+      moonMinSeparationDeg: moon?.minSeparationDeg ?? null,
+      moonMaxIlluminatedFraction: moon?.maxIlluminatedFraction ?? null,
+      visitMinutes: conditions.visitMinutes,
       targets: shown.map((t) => `${t.name} (${t.raDeg}, ${t.decDeg})`).join("; "),
       targetsLeftOut: targets.length - shown.length,
     },
@@ -89,3 +99,4 @@ export function seasonPlotExport(targets: (SkyTarget & { name: string })[], star
   });
   return { markup, title, fileStem: `season-${startNightIso}`, provenance };
 }
+

@@ -8,7 +8,10 @@ import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
 import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
-import { nightPlotExport, seasonPlotExport, skyFigureKinds } from "@/lib/exports/figures/sky-figures";
+import { nightPlotExport, scheduleSeasonPlotExport, skyFigureKinds } from "@/lib/exports/figures/sky-figures";
+import { addDaysIso } from "@/lib/astro/time";
+import { scheduleConditionsOf } from "@/lib/workspace/derived";
+import { feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
@@ -78,5 +81,7 @@ export async function loadSkyFigure(params: unknown, query: Record<string, strin
   }
   const start = season?.start ?? proposal.cycleStartDate ?? new Date().toISOString().slice(0, 10);
   const nights = season?.nights ?? cycleNights(proposal) ?? DEFAULT_SEASON_NIGHTS;
-  return seasonPlotExport(rows, start, nights, { ...context, reproducePath: `/proposals/${proposal.id}` });
+  // The proposal's schedule conditions over the requested nights (the cycle's by default).
+  const conditions = scheduleConditionsOf({ ...feasibilitySettingsOf(proposal), cycleStartDate: start, cycleEndDate: addDaysIso(start, nights - 1) })!;
+  return scheduleSeasonPlotExport(rows, conditions, { ...context, reproducePath: `/proposals/${proposal.id}` });
 }
