@@ -4,6 +4,7 @@ import { useState } from "react";
 import { useSWRConfig } from "swr";
 import { lensModels, targetQuantities, type LensModel } from "@/lib/workspace/target-schema";
 import { readQuantityField } from "@/lib/workspace/quantity-field";
+import { unsolvedColumns } from "@/lib/workspace/derived";
 import type { TargetPage, TargetView } from "@/lib/server/targets";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass } from "@/components/workspace/field";
@@ -49,15 +50,7 @@ function pendingRowOf(proposalId: string, body: TargetBody): TargetView {
     priority: numberOr("priority", body.priority, Number.NaN) as number,
     status: "candidate",
     tags: body.tags,
-    einsteinRadiusMas: null,
-    imageSeparationMas: null,
-    magnificationTotal: null,
-    timeDelayDays: null,
-    crossingTimeDays: null,
-    shadowDiameterMicroarcsec: null,
-    answeredCase: null,
-    caseVerdict: "unknown",
-    caseAnswers: [],
+    ...unsolvedColumns,
     updatedAt: new Date().toISOString(),
   };
 }

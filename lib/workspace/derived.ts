@@ -152,6 +152,19 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
   return { solution, scienceCase, answers };
 }
 
+/** The derived columns of a hypothesis without a solution (incomplete, or outside today's ranges). */
+export const unsolvedColumns: Omit<DerivedColumns, "derivationVersion"> = {
+  einsteinRadiusMas: null,
+  imageSeparationMas: null,
+  magnificationTotal: null,
+  timeDelayDays: null,
+  crossingTimeDays: null,
+  shadowDiameterMicroarcsec: null,
+  answeredCase: null,
+  caseVerdict: "unknown",
+  caseAnswers: [],
+};
+
 /**
  * A target's stored derived columns: the lens model's solution in table units, and its science
  * case's answers from the proposal's settings and the target's simulated schedule (null when the
@@ -159,20 +172,7 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
  */
 export function deriveTargetColumns(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null): DerivedColumns {
   const report = targetCaseReport(h, settings, schedule);
-  if (report === null) {
-    return {
-      einsteinRadiusMas: null,
-      imageSeparationMas: null,
-      magnificationTotal: null,
-      timeDelayDays: null,
-      crossingTimeDays: null,
-      shadowDiameterMicroarcsec: null,
-      answeredCase: null,
-      caseVerdict: "unknown",
-      caseAnswers: [],
-      derivationVersion: DERIVATION_VERSION,
-    };
-  }
+  if (report === null) return { ...unsolvedColumns, derivationVersion: DERIVATION_VERSION };
   const { solution, answers } = report;
   return {
     einsteinRadiusMas: solution.einsteinRadiusRad / MILLIARCSECOND_RAD,
