@@ -9,7 +9,7 @@ import { TARGET_COSMOLOGY_TEXT, usesOtherCosmology } from "@/lib/bench/case-repo
 import { targetBodyFromSketch } from "@/lib/workspace/bench-link";
 import { roleCan, roleLabels } from "@/lib/workspace/roles";
 import type { ProposalSummary } from "@/lib/server/proposals";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
 import { Field, FormError, buttonClass } from "@/components/workspace/field";
 import { formatQuantity } from "@/components/workspace/format";

@@ -2,7 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
 import { TargetFieldset, targetBodyOf, type GeometrySource, type TargetFieldTexts } from "@/components/workspace/target-edit-fields";

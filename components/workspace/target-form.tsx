@@ -5,7 +5,7 @@ import { useSWRConfig } from "swr";
 import { lensModels, targetQuantities, type LensModel } from "@/lib/workspace/target-schema";
 import { readQuantityField } from "@/lib/workspace/quantity-field";
 import { unsolvedColumns } from "@/lib/workspace/derived";
-import type { TargetPage, TargetView } from "@/lib/server/targets";
+import type { TargetPage, TargetView } from "@/lib/workspace/target-view";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass } from "@/components/workspace/field";
 import { formatQuantity } from "@/components/workspace/format";

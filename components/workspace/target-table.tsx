@@ -7,7 +7,7 @@ import useSWR from "swr";
 import { statusLabels, targetStatuses } from "@/lib/workspace/status";
 import { lensModelOf, type LensModelId } from "@/lib/lensing/registry";
 import { lensModelLabels, lensModels } from "@/lib/workspace/target-schema";
-import type { TargetPage, TargetView } from "@/lib/server/targets";
+import type { TargetPage, TargetView } from "@/lib/workspace/target-view";
 import { verdicts } from "@/lib/lensing/feasibility-rules";
 import { scienceCaseIds, scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { answerLine, caseVerdictLine } from "@/lib/workspace/case-verdict-words";

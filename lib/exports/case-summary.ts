@@ -5,7 +5,7 @@
  */
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import type { Verdict } from "@/lib/lensing/feasibility-rules";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { verdictWithFigure } from "@/lib/workspace/case-verdict-words";
 
 export interface SummaryAnswer {

@@ -4,7 +4,7 @@ import { dbClient } from "@/db/client";
 import { proposals, targets, type Target } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { formatDeclination, formatRightAscension } from "@/lib/workspace/coordinates";
-import type { DerivedColumns } from "@/lib/workspace/derived";
+import type { TargetPage, TargetView } from "@/lib/workspace/target-view";
 import type { CaseAnswer } from "@/lib/lensing/science-cases";
 import { proposalParamsSchema, targetParamsSchema } from "@/lib/workspace/ids";
 import { canChangeStatus } from "@/lib/workspace/status";
@@ -23,28 +23,6 @@ import { deriveOne, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
-
-/** A target as the API and the pages see it. */
-export interface TargetView extends LensHypothesis, Omit<DerivedColumns, "derivationVersion"> {
-  id: string;
-  proposalId: string;
-  name: string;
-  raDeg: number;
-  decDeg: number;
-  raText: string;
-  decText: string;
-  priority: number;
-  status: Target["status"];
-  tags: string[];
-  updatedAt: string;
-}
-
-export interface TargetPage {
-  rows: TargetView[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
 
 export function targetViewOf(t: Target): TargetView {
   return {

@@ -4,7 +4,7 @@
  * digits. Numbers are exported in the units the column key names.
  */
 import { z } from "zod";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { answersLine } from "@/lib/workspace/case-verdict-words";
 
 export type ColumnKind = "double" | "int" | "text";

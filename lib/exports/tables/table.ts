@@ -1,4 +1,4 @@
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import type { Provenance } from "@/lib/exports/provenance";
 import type { ChosenColumn } from "./columns";
 

@@ -1,5 +1,5 @@
 import type { CaseAnswer } from "@/lib/lensing/science-cases";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { buildProvenance } from "@/lib/exports/provenance";
 
 /** A photometric event's answers as the science case words them (one feasible, one marginal, one not). */

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { targetBodyOf } from "@/components/workspace/target-edit-fields";
 import { targetFieldTexts } from "@/components/workspace/target-edit-form";
-import type { TargetView } from "@/lib/server/targets";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { createTargetSchema } from "@/lib/workspace/target-schema";
 import { exportRows } from "../exports/fixtures";
 
