@@ -45,6 +45,8 @@ export const exportColumns = [
   input({ key: "sourceRedshift", label: "Source redshift", unit: "", latexUnit: "", voUnit: "", ucd: "src.redshift", kind: "double", defaultDigits: 4 }),
   input({ key: "sourceOffsetThetaE", label: "Source offset", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "pos.angDistance;arith.ratio", kind: "double", defaultDigits: 4 }),
   input({ key: "properMotionMasPerYr", label: "Relative proper motion", unit: "mas/yr", latexUnit: "mas/yr", voUnit: "mas/yr", ucd: "pos.pm", kind: "double", defaultDigits: 4 }),
+  // The case the team chose (empty while the inferred one applies); `answeredCase` below is the one answered.
+  input({ key: "scienceCase", label: "Chosen science case", ucd: "meta.code.class", ...text }),
   // t0 as a Julian date (UTC): ten digits show it to about two minutes.
   input({ key: "eventPeakJdUtc", label: "Event peak t0 (JD, UTC)", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.epoch", kind: "double", defaultDigits: 10 }),
   input({ key: "sourceRadiusSolar", label: "Source radius", unit: "Rsun", latexUnit: "$R_\\odot$", voUnit: "solRad", ucd: "phys.size.radius", kind: "double", defaultDigits: 4 }),

@@ -24,7 +24,7 @@ const documentedFilters = {
   answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"],
 } as const;
 const documentedExportColumns = [
-  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "priority", "status", "tags",
+  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "priority", "status", "tags",
   "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "answeredCase", "caseVerdict", "caseAnswers",
 ];
 
