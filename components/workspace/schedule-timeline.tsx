@@ -282,7 +282,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
 interface LegendEntry {
   label: string;
   color: string;
-  shape: "area" | "line" | "dashed" | "circle";
+  shape: "area" | "line" | "dashed" | "circle" | "diamond";
 }
 
 /** The event panel's entries: its curve(s), the visits on them and the dates marked. */
@@ -292,7 +292,8 @@ function eventLegend(panel: EventPanel): LegendEntry[] {
   return [
     { label: "brighter image (leads)", color: plotPalette.skyBlue, shape: "line" },
     { label: "fainter image (Δt later)", color: plotPalette.vermillion, shape: "dashed" },
-    visit,
+    { ...visit, label: "visit, brighter image" },
+    { label: "visit, fainter image", color: plotPalette.orange, shape: "diamond" },
   ];
 }
 
@@ -302,6 +303,8 @@ function LegendItem({ color, label, shape }: LegendEntry) {
       <span className="inline-block h-3 w-3 rounded-sm" style={{ backgroundColor: color }} />
     ) : shape === "circle" ? (
       <span className="inline-block h-2 w-2 rounded-full border-2" style={{ borderColor: color }} />
+    ) : shape === "diamond" ? (
+      <span className="inline-block h-2 w-2 rotate-45 border-2" style={{ borderColor: color }} />
     ) : (
       <span className="inline-block w-5 border-t-2" style={{ borderColor: color, borderTopStyle: shape === "dashed" ? "dashed" : "solid" }} />
     );
