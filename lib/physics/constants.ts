@@ -68,3 +68,6 @@ export const JUPITER_EQUATORIAL_RADIUS_M = 7.1492e7;
 
 /** Nominal equatorial radius of the Earth, m. IAU 2015 Resolution B3. */
 export const EARTH_EQUATORIAL_RADIUS_M = 6.3781e6;
+
+/** Planck constant, J s. Exact by definition of the kilogram (SI, 26th CGPM 2018). */
+export const PLANCK_CONSTANT_J_S = 6.626_070_15e-34;
