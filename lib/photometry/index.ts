@@ -1,6 +1,7 @@
 /**
- * Photon budget core (issue 17): moonlit sky brightness (Krisciunas & Schaefer 1991) and the CCD
- * equation (Howell 2006 eq. 4.4). Pure functions, no React, DOM or database.
+ * Photon budget core: standard bands and site defaults, the PSF and its encircled energy, photon
+ * rates from magnitudes, moonlit sky brightness (Krisciunas & Schaefer 1991) and the CCD equation
+ * (Howell 2006 eq. 4.4). Pure functions, no React, DOM or database.
  */
 export {
   darkSkyNanolamberts,
@@ -20,3 +21,25 @@ export {
   type CcdRates,
   type SaturationCheck,
 } from "./ccd";
+export {
+  AB_ZERO_POINT_JY,
+  standardBand,
+  standardBandIds,
+  standardBands,
+  typicalDarkSiteConditions,
+  validateCustomBand,
+  zeroPointPhotonsPerSPerM2PerNm,
+  type MagnitudeSystem,
+  type PhotometricBand,
+} from "./bands";
+export { aperturePixelCount, encircledEnergyFraction, KOLMOGOROV_MOFFAT_BETA, peakPixelFluxFraction, seeingFwhmAtAirmassArcsec, type PsfShape } from "./psf";
+export {
+  baselineMagnitude,
+  blendedFluxInBaselineUnits,
+  collectingAreaM2,
+  magnifiedBlendMagnitude,
+  magnitudeThroughAtmosphere,
+  skyElectronsPerSPerPixel,
+  sourceElectronsPerS,
+  type TelescopeOptics,
+} from "./source-flux";
