@@ -227,7 +227,8 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
     rows.push(
       { id: "r-ph", label: "Photon-sphere radius", symbol: "r_ph", kind: "length", value: photonSphereRadius(massLengthM) },
       { id: "shadow", label: "Shadow angular diameter", symbol: "θ_sh", kind: "angle", value: nanIfNull(solution.shadowDiameterRad) },
-      { id: "photon-ring", label: "Photon ring radius (exact lens equation)", symbol: "θ_∞", kind: "angle", value: exact.thetaInfinityRad },
+      { id: "photon-ring", label: "Photon ring radius, limit of the relativistic rings (exact lens equation)", symbol: "θ_∞", kind: "angle", value: exact.thetaInfinityRad },
+      { id: "photon-ring-n1", label: "First relativistic Einstein ring (n = 1), diameter", symbol: "2θ₁", kind: "angle", value: nanIfNull(solution.photonRingDiameterRad) },
       { id: "rel-plus", label: "Relativistic image, source side", symbol: "θ₁₊", kind: "angle", value: exact.relativisticPrimary.thetaRad },
       { id: "rel-plus-mu", label: "Relativistic image magnification, source side", symbol: "μ₁₊", kind: "ratio", value: exact.relativisticPrimary.magnification },
       { id: "rel-minus", label: "Relativistic image, far side", symbol: "θ₁₋", kind: "angle", value: exact.relativisticSecondary.thetaRad },

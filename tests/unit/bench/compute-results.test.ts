@@ -30,6 +30,14 @@ describe("point-lens results", () => {
     expect(row(results, "t-e") / 86_400).toBeCloseTo((thetaERad / ((6e-3 / 206_265) / (365.25 * 86_400))) / 86_400, 3);
   });
 
+  it("shows the n = 1 relativistic ring the target page and the horizon-scale case read, just outside the limit ring θ_∞", () => {
+    // Bozza 2002 (PRD 66, 103001; from memory): θ_n = θ_∞ (1 + e^((b̄ − 2nπ)/ā)) with ā = 1, b̄ = −0.4002 for
+    // Schwarzschild, so the n = 1 ring lies 0.125% outside θ_∞.
+    const ringRad = row(results, "photon-ring-n1") / 2;
+    expect(ringRad).toBeGreaterThan(row(results, "photon-ring"));
+    expect(ringRad / row(results, "photon-ring") - 1).toBeLessThan(0.003);
+  });
+
   it("gives the event's microlens parallax π_E = π_rel/θ_E (Gould 2000, ApJ 542, 785) and largest centroid shift θ_E/√8 (Walker 1995, from memory)", () => {
     const thetaERad = einsteinRadius(0.5, 4000, 8000);
     // π_rel = 1 au (1/4 kpc − 1/8 kpc) = 0.125 mas = 0.125 / 206 264 806.2 rad.
