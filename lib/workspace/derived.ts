@@ -135,8 +135,7 @@ export interface TargetCaseReport {
 }
 
 /** The case and answers of a solvable hypothesis under the proposal's settings and the target's schedule. */
-export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null): TargetCaseReport | null {
-  const solved = lensSolutionOf(h);
+export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null, solved = lensSolutionOf(h)): TargetCaseReport | null {
   if (solved === null) return null;
   const { solution, geometry } = solved;
   const instrument = caseInstrumentOf(settings.instrument);

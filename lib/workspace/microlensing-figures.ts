@@ -20,8 +20,7 @@ export interface MicrolensingFigures {
 }
 
 /** The figures of a compact lens's event; null for a hypothesis without a solution or a lens with no event (an extended lens). */
-export function microlensingFigures(h: LensHypothesis): MicrolensingFigures | null {
-  const solved = lensSolutionOf(h);
+export function microlensingFigures(h: LensHypothesis, solved = lensSolutionOf(h)): MicrolensingFigures | null {
   if (solved === null || solved.solution.maxAstrometricShiftRad === null) return null;
   const { solution, geometry } = solved;
   const event = eventTimingOf(h, solution, geometry);

@@ -84,6 +84,9 @@ export default async function TargetPage({
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
   ];
+  // Solved once (the photon ring is the costly part) and shared by the figures, the case and the timeline.
+  const solved = lensSolutionOf(target);
+  const schedule = targetSchedules(proposal, [target])[0];
   const computed: [string, string, string][] = [
     ["einstein-radius", "Einstein radius", formatWithUnit(target.einsteinRadiusMas, "mas")],
     ["image-separation", "Image separation", formatWithUnit(target.imageSeparationMas, "mas")],
@@ -91,12 +94,10 @@ export default async function TargetPage({
     ["time-delay", "Time delay between images", formatWithUnit(target.timeDelayDays, "d")],
     ["crossing-time", "Einstein crossing time", formatWithUnit(target.crossingTimeDays, "d")],
     ["shadow", "Shadow angular diameter", formatWithUnit(target.shadowDiameterMicroarcsec, "µas")],
-    ...microlensingRows(microlensingFigures(target)),
+    ...microlensingRows(microlensingFigures(target, solved)),
   ];
   // Answered live from the stored hypothesis and the proposal as it is now, with the target's schedule.
-  const schedule = targetSchedules(proposal, [target])[0];
-  const report = targetCaseReport(target, proposal, schedule);
-  const solved = lensSolutionOf(target);
+  const report = targetCaseReport(target, proposal, schedule, solved);
   const event = solved === null ? null : eventTimingOf(target, solved.solution, solved.geometry);
   const site = skySiteOf(proposal.site);
   // The night in the address bar, else tonight at the site, or the cycle's first night while it is ahead.
