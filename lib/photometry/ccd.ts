@@ -58,7 +58,14 @@ export function ccdSignalToNoise(input: CcdRates & { exposureS: number }): numbe
   checkRates(input);
   requireAboveZero("Exposure time (seconds)", input.exposureS);
   const { sourceElectronsPerS: s, skyElectronsPerSPerPixel: b, darkElectronsPerSPerPixel: d } = input;
-  const { readNoiseElectrons: r, pixelCount: n, exposureS: t } = input;
+  return signalToNoiseFromRates(s, b, d, input.readNoiseElectrons, input.pixelCount, input.exposureS);
+}
+
+/**
+ * Eq. 4.4 as `ccdSignalToNoise`, with positional arguments in the same units (source, sky and dark
+ * e⁻/s, read noise e⁻, pixels, seconds) and no checks: for loops whose inputs were checked once.
+ */
+export function signalToNoiseFromRates(s: number, b: number, d: number, r: number, n: number, t: number): number {
   if (s === 0) return 0;
   const signal = s * t;
   return signal / Math.sqrt(signal + n * ((b + d) * t + r * r));
@@ -82,6 +89,15 @@ export function exposureForSignalToNoise(input: CcdRates & { signalToNoise: numb
       `Source count rate is 0 electrons per second: no exposure reaches a signal-to-noise of ${g}.`,
     );
   }
+  return exposureFromRates(s, b, d, r, n, g);
+}
+
+/**
+ * The closed-form root of `exposureForSignalToNoise` with positional arguments in the same units and
+ * no checks; +Infinity for a source giving no electrons (no exposure reaches the goal).
+ */
+export function exposureFromRates(s: number, b: number, d: number, r: number, n: number, g: number): number {
+  if (s === 0) return Number.POSITIVE_INFINITY;
   const a = g * g * (s + n * (b + d));
   return (a + Math.hypot(a, 2 * s * g * Math.sqrt(n) * r)) / (2 * s * s);
 }
@@ -119,8 +135,7 @@ export function saturationCheck(input: {
   requireAtLeastZero("Dark current (electrons per second per pixel)", input.darkElectronsPerSPerPixel);
   requireAboveZero("Full well (electrons)", input.fullWellElectrons);
   requireAboveZero("Exposure time (seconds)", input.exposureS);
-  const peakRate = input.sourceElectronsPerS * input.peakPixelFraction
-    + input.skyElectronsPerSPerPixel + input.darkElectronsPerSPerPixel;
+  const peakRate = peakPixelElectronsPerS(input.sourceElectronsPerS, input.peakPixelFraction, input.skyElectronsPerSPerPixel, input.darkElectronsPerSPerPixel);
   const peakPixelElectrons = peakRate * input.exposureS;
   const fullWellFraction = peakPixelElectrons / input.fullWellElectrons;
   return {
@@ -129,4 +144,12 @@ export function saturationCheck(input: {
     isSaturated: fullWellFraction >= 1,
     longestUnsaturatedExposureS: peakRate === 0 ? Number.POSITIVE_INFINITY : input.fullWellElectrons / peakRate,
   };
+}
+
+/**
+ * Electrons per second in the brightest pixel: the share `peakPixelFraction` of the source's rate plus
+ * one pixel's sky and dark (all e⁻/s); no checks (see `saturationCheck`).
+ */
+export function peakPixelElectronsPerS(sourceElectronsPerS: number, peakPixelFraction: number, skyElectronsPerSPerPixel: number, darkElectronsPerSPerPixel: number): number {
+  return sourceElectronsPerS * peakPixelFraction + skyElectronsPerSPerPixel + darkElectronsPerSPerPixel;
 }

@@ -1,7 +1,9 @@
 /**
  * Photon budget core: standard bands and site defaults, the PSF and its encircled energy, photon
  * rates from magnitudes, moonlit sky brightness (Krisciunas & Schaefer 1991) and the CCD equation
- * (Howell 2006 eq. 4.4). Pure functions, no React, DOM or database.
+ * (Howell 2006 eq. 4.4), moonlight carried to other bands by the Sun's colour, and the budget of
+ * each visit (S/N, exposure for a goal, saturation) under its own sky. Pure functions, no React, DOM
+ * or database.
  */
 export {
   darkSkyNanolamberts,
@@ -43,3 +45,17 @@ export {
   sourceElectronsPerS,
   type TelescopeOptics,
 } from "./source-flux";
+export { moonMagPerArcsec2InBand, SOLAR_ABSOLUTE_MAGNITUDES, solarAbsoluteMagnitude, sunColourVMinusBandMag } from "./moon-colour";
+export {
+  centroidPrecisionMas,
+  skyBrightnessAtVisit,
+  visitPhotometry,
+  visitPhotometrySeries,
+  type BandSky,
+  type PhotometryInstrument,
+  type SkyBrightness,
+  type VisitPhotometry,
+  type VisitPhotometrySeries,
+  type VisitSkyArrays,
+  type VisitSkyConditions,
+} from "./visit-budget";

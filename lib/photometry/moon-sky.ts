@@ -86,12 +86,40 @@ export interface MoonSkyInput {
  */
 export function moonSkyBrightnessNanolamberts(input: MoonSkyInput): number {
   const { moonPhaseAngleDeg, moonZenithDeg, targetZenithDeg, moonTargetSeparationDeg, extinctionV } = input;
+  requireMoonGeometry(moonPhaseAngleDeg, moonZenithDeg, targetZenithDeg, moonTargetSeparationDeg);
+  requireExtinctionV(extinctionV);
+  return scatteredMoonlightNanolamberts(moonPhaseAngleDeg, moonZenithDeg, targetZenithDeg, moonTargetSeparationDeg, extinctionV);
+}
+
+/**
+ * Checks the angles of `MoonSkyInput` (degrees), throwing a RangeError naming the field in words; for
+ * callers that check once and then call `scatteredMoonlightNanolamberts` in a loop.
+ */
+export function requireMoonGeometry(moonPhaseAngleDeg: number, moonZenithDeg: number, targetZenithDeg: number, moonTargetSeparationDeg: number): void {
   requireInRange("Moon phase angle", moonPhaseAngleDeg, -180, 180);
   requireInRange("Moon zenith distance", moonZenithDeg, 0, 180);
   requireInRange("Target zenith distance", targetZenithDeg, 0, 90);
   requireInRange("Moon–target separation", moonTargetSeparationDeg, 0, 180);
+}
+
+/** Checks a V-band extinction coefficient (mag per air mass, ≥ 0), naming the field in words. */
+export function requireExtinctionV(extinctionV: number): void {
   requireFinite("V-band extinction", extinctionV);
   if (extinctionV < 0) throw domainError("V-band extinction", extinctionV, "at least 0 magnitudes per air mass");
+}
+
+/**
+ * K&S eq. 15 as `moonSkyBrightnessNanolamberts`, with positional arguments in the same units and no
+ * checks (callers check with `requireMoonGeometry` and `requireExtinctionV`): the per-visit loop of
+ * the photon budget calls it without building an object per visit.
+ */
+export function scatteredMoonlightNanolamberts(
+  moonPhaseAngleDeg: number,
+  moonZenithDeg: number,
+  targetZenithDeg: number,
+  moonTargetSeparationDeg: number,
+  extinctionV: number,
+): number {
   if (moonZenithDeg > 90) return 0;
   const moonTransmission = 10 ** (-0.4 * extinctionV * krisciunasSchaeferAirmass(moonZenithDeg));
   const scatteredShare = -Math.expm1(-0.4 * Math.LN10 * extinctionV * krisciunasSchaeferAirmass(targetZenithDeg));
@@ -131,10 +159,18 @@ export function darkSkyNanolamberts(input: {
   requireFinite("Dark sky at the zenith", zenithNanolamberts);
   if (zenithNanolamberts < 0) throw domainError("Dark sky at the zenith", zenithNanolamberts, "at least 0");
   requireInRange("Target zenith distance", targetZenithDeg, 0, 90);
-  requireFinite("V-band extinction", extinctionV);
-  if (extinctionV < 0) throw domainError("V-band extinction", extinctionV, "at least 0 magnitudes per air mass");
+  requireExtinctionV(extinctionV);
+  return zenithNanolamberts * darkSkyZenithDistanceFactor(targetZenithDeg, extinctionV);
+}
+
+/**
+ * The factor of K&S eq. 2 (from memory): B(Z) / B_zen = 10^(−0.4 k (X − 1)) X, X from eq. 3, for
+ * zenith distance `targetZenithDeg` (degrees, [0, 90]) and extinction k (mag per air mass, ≥ 0).
+ * Dimensionless, so it applies to a surface brightness in any unit; no checks (callers check).
+ */
+export function darkSkyZenithDistanceFactor(targetZenithDeg: number, extinctionMagPerAirmass: number): number {
   const x = krisciunasSchaeferAirmass(targetZenithDeg);
-  return zenithNanolamberts * 10 ** (-0.4 * extinctionV * (x - 1)) * x;
+  return 10 ** (-0.4 * extinctionMagPerAirmass * (x - 1)) * x;
 }
 
 /**

@@ -42,20 +42,27 @@ export function moffatAlphaFromFwhm(fwhm: number, beta: number): number {
   return fwhm / (2 * Math.sqrt(Math.expm1(Math.LN2 / beta)));
 }
 
-function requireShape(shape: PsfShape): void {
+/** Checks a PSF shape (a Moffat needs β > 1), throwing a RangeError naming the field in words. */
+export function requirePsfShape(shape: PsfShape): void {
   if (shape.kind === "moffat" && !(Number.isFinite(shape.beta) && shape.beta > 1)) {
     throw domainError("Moffat β", shape.beta, "a number above 1 (at or below 1 the profile holds infinite flux)");
   }
 }
 
-/** Encircled energy without argument checks (the quadrature below calls it many times). */
-function encircledEnergyUnchecked(shape: PsfShape, radius: number, fwhm: number): number {
+/** The profile's width parameter squared: 2σ² (Gaussian) or α² (Moffat), in the FWHM's unit squared. */
+function widthSquared(shape: PsfShape, fwhm: number): number {
   if (shape.kind === "gaussian") {
     const sigma = gaussianSigmaFromFwhm(fwhm);
-    return -Math.expm1(-(radius * radius) / (2 * sigma * sigma));
+    return 2 * sigma * sigma;
   }
   const alpha = moffatAlphaFromFwhm(fwhm, shape.beta);
-  return -Math.expm1((1 - shape.beta) * Math.log1p((radius * radius) / (alpha * alpha)));
+  return alpha * alpha;
+}
+
+/** Encircled energy at radius² over `widthSquared`, without argument checks (the quadrature below calls it many times). */
+function encircledEnergyUnchecked(shape: PsfShape, radiusSquaredOverWidthSquared: number): number {
+  if (shape.kind === "gaussian") return -Math.expm1(-radiusSquaredOverWidthSquared);
+  return -Math.expm1((1 - shape.beta) * Math.log1p(radiusSquaredOverWidthSquared));
 }
 
 /**
@@ -66,12 +73,12 @@ function encircledEnergyUnchecked(shape: PsfShape, radius: number, fwhm: number)
  * small radii keep full relative precision.
  */
 export function encircledEnergyFraction(shape: PsfShape, radiusArcsec: number, fwhmArcsec: number): number {
-  requireShape(shape);
+  requirePsfShape(shape);
   requirePositive("Seeing FWHM (arcsec)", fwhmArcsec);
   if (!(Number.isFinite(radiusArcsec) && radiusArcsec >= 0)) {
     throw domainError("Aperture radius (arcsec)", radiusArcsec, "a finite number of at least 0");
   }
-  return encircledEnergyUnchecked(shape, radiusArcsec, fwhmArcsec);
+  return encircledEnergyUnchecked(shape, (radiusArcsec * radiusArcsec) / widthSquared(shape, fwhmArcsec));
 }
 
 /** Number of pixels (fractional) in a circular aperture: π r² / p² for radius r and pixel scale p (arcsec). */
@@ -96,16 +103,17 @@ const PEAK_PIXEL_INTERVALS = 64;
  * of the Moffat (tests/fixtures/generate_psf.py) to the relative error the tests state.
  */
 export function peakPixelFluxFraction(shape: PsfShape, fwhmArcsec: number, pixelScaleArcsec: number): number {
-  requireShape(shape);
+  requirePsfShape(shape);
   requirePositive("Seeing FWHM (arcsec)", fwhmArcsec);
   requirePositive("Pixel scale (arcsec per pixel)", pixelScaleArcsec);
   const halfSide = pixelScaleArcsec / 2;
+  const halfSideSquaredOverWidthSquared = (halfSide * halfSide) / widthSquared(shape, fwhmArcsec);
   const step = 1 / PEAK_PIXEL_INTERVALS;
   let sum = 0;
   for (let i = 0; i <= PEAK_PIXEL_INTERVALS; i++) {
     const weight = i === 0 || i === PEAK_PIXEL_INTERVALS ? 1 : i % 2 === 1 ? 4 : 2;
     const secantSquared = 1 + (i * step) ** 2;
-    sum += (weight * encircledEnergyUnchecked(shape, halfSide * Math.sqrt(secantSquared), fwhmArcsec)) / secantSquared;
+    sum += (weight * encircledEnergyUnchecked(shape, halfSideSquaredOverWidthSquared * secantSquared)) / secantSquared;
   }
   return (4 / Math.PI) * (step / 3) * sum;
 }
