@@ -54,6 +54,17 @@ function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[
     { accessorKey: "magnificationTotal", header: "μ total", cell: numberCell(3) },
     { accessorKey: "timeDelayDays", header: "Δt (d)", cell: numberCell(3) },
     { accessorKey: "crossingTimeDays", header: "tE (d)", cell: numberCell(3) },
+    // The photon budget: "—" while a target has none (no telescope, source magnitude or schedule yet).
+    {
+      accessorKey: "timeRequestHours",
+      header: () => <span title="Hours requested over the visits the science case needs: exposures plus overheads">Time request (h)</span>,
+      cell: numberCell(3),
+    },
+    {
+      accessorKey: "peakSignalToNoise",
+      header: () => <span title="Signal-to-noise of the magnified source at the brightest visit the science case needs">S/N at brightest</span>,
+      cell: numberCell(3),
+    },
     {
       accessorKey: "answeredCase",
       header: "Science case",
@@ -95,9 +106,10 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
     keepPreviousData: true,
   });
   const rows = useMemo(() => data?.rows ?? [], [data]);
+  const columns = useMemo(() => columnsFor(proposalId), [proposalId]);
   const table = useTable({
     features,
-    columns: columnsFor(proposalId),
+    columns,
     data: rows,
     manualSorting: true,
     enableMultiSort: false,
@@ -170,7 +182,7 @@ export function TargetTable({ proposalId, initialPage }: { proposalId: string; i
             ))}
             {rows.length === 0 && data && (
               <tr>
-                <td colSpan={13} className="px-3 py-6 text-center text-dusk-dim">
+                <td colSpan={columns.length} className="px-3 py-6 text-center text-dusk-dim">
                   No targets match.
                 </td>
               </tr>

@@ -21,6 +21,9 @@ export const importFields = [
   "sourceRadiusSolar",
   "sourceRadiusThetaE",
   "limbDarkeningU",
+  "sourceMagnitude",
+  "sourceBand",
+  "blendFraction",
   "priority",
   "tags",
 ] as const;
@@ -47,12 +50,31 @@ export const importFieldLabels: Record<ImportField, string> = {
   sourceRadiusSolar: `${targetQuantities.sourceRadiusSolar.label} (R☉)`,
   sourceRadiusThetaE: `${targetQuantities.sourceRadiusThetaE.label} (θ_E)`,
   limbDarkeningU: targetQuantities.limbDarkeningU.label,
+  sourceMagnitude: targetQuantities.sourceMagnitude.label,
+  sourceBand: "Source band",
+  blendFraction: targetQuantities.blendFraction.label,
   priority: "Priority",
   tags: "Tags",
 };
 
 /** How a field's cells are read; the quantity kinds and the epoch take a unit. */
-export type FieldKind = "text" | "ra" | "dec" | "lensModel" | "scienceCase" | "epoch" | "number" | "integer" | "tags" | "mass" | "distance" | "radius" | "velocity" | "properMotion";
+export type FieldKind =
+  | "text"
+  | "ra"
+  | "dec"
+  | "lensModel"
+  | "scienceCase"
+  | "epoch"
+  | "number"
+  | "integer"
+  | "tags"
+  | "mass"
+  | "distance"
+  | "radius"
+  | "velocity"
+  | "properMotion"
+  | "magnitude"
+  | "band";
 
 export const importFieldKinds: Record<ImportField, FieldKind> = {
   name: "text",
@@ -72,6 +94,9 @@ export const importFieldKinds: Record<ImportField, FieldKind> = {
   sourceRadiusSolar: "radius",
   sourceRadiusThetaE: "number",
   limbDarkeningU: "number",
+  sourceMagnitude: "magnitude",
+  sourceBand: "band",
+  blendFraction: "number",
   priority: "integer",
   tags: "tags",
 };
@@ -87,6 +112,7 @@ export const defaultUnits: Partial<Record<FieldKind, string>> = {
   radius: "Rsun",
   velocity: "km/s",
   properMotion: "mas/yr",
+  magnitude: "mag",
 };
 
 /** Which column fills a field, and in which unit its bare numbers are read. */
@@ -123,6 +149,12 @@ const headerSpellings: Record<ImportField, string[]> = {
   sourceRadiusSolar: ["rstar", "rsource", "rsrc", "sourceradius", "starradius", "stellarradius", "sourceradiussolar"],
   sourceRadiusThetaE: ["rho", "rhostar", "rhos", "rhosource", "sourceradiusrho", "sourceradiusthetae"],
   limbDarkeningU: ["ld", "ldu", "ldcoeff", "ldcoefficient", "limbdarkening", "limbdarkeningu", "limbdarkeningcoefficient", "ulimb", "ulinear"],
+  // A light-curve fit's source magnitude (I_s, V_s) or a list's one magnitude column; the last two are
+  // our own VOTable/ECSV name and CSV header. A baseline (blended) magnitude is no source magnitude.
+  sourceMagnitude: ["sourcemag", "srcmag", "magsource", "magsrc", "smag", "mags", "is", "isource", "vs", "vsource", "mag", "magnitude", "sourcemagnitude"],
+  sourceBand: ["sourceband", "band", "filter", "passband", "bandpass", "magband", "photband", "sourcefilter"],
+  // f_s, or OGLE's Early Warning System "fbl" (the source's share of the baseline flux; from memory).
+  blendFraction: ["fs", "fsource", "fsrc", "blendfraction", "blending", "blendingfraction", "sourcefraction", "fbl", "blendfractionfs"],
   priority: ["priority", "prio", "rank"],
   tags: ["tags", "tag", "labels", "label", "keywords"],
 };
@@ -163,6 +195,13 @@ const ucdFields: Record<string, ImportField> = {
   "time.epoch": "eventPeakJdUtc",
   "phys.size.radius": "sourceRadiusSolar",
   "phot.limbdark": "limbDarkeningU",
+};
+// Whole UCDs that name one field: a flux ratio is f_s, a filter's identifier the source's band. A
+// magnitude (phot.mag) alone is not mapped: a catalogue's magnitudes are baselines in several bands,
+// so only a header can say which is the source's.
+const ucdPhraseFields: Record<string, ImportField> = {
+  "phot.flux;arith.ratio": "blendFraction",
+  "meta.id;instr.filter": "sourceBand",
 };
 const ucdUnitRules: Partial<Record<ImportField, (unit: string) => boolean>> = {
   eventPeakJdUtc: (unit) => epochScaleOf(unit) !== undefined,
@@ -218,6 +257,8 @@ function fieldFromUcd({ ucd, unit }: ImportColumn): ImportField | undefined {
   if (ucd === undefined) return undefined;
   const words = ucd.toLowerCase().split(";").map((word) => word.trim());
   if (words[0] === "meta.id" && words.includes("meta.main")) return "name";
+  const phraseField = ucdPhraseFields[words.join(";")];
+  if (phraseField !== undefined) return phraseField;
   const field = ucdFields[words[0]];
   const unitRule = field === undefined ? undefined : ucdUnitRules[field];
   return unitRule === undefined || (unit !== undefined && unitRule(unit)) ? field : undefined;

@@ -12,6 +12,7 @@ import {
   type ImportField,
 } from "@/lib/imports/columns";
 import type { ImportTable } from "@/lib/imports/import-table";
+import { sourceBandChoicesText, sourceBandOfText } from "@/lib/imports/source-band";
 import { lensModelIds, lensModelOfAlias, lensModelOfParameters, lensModels } from "@/lib/lensing/registry";
 import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
@@ -48,6 +49,8 @@ const MISSING = new Set(["", "nan", "null", "none", "--", "-", "n/a", "na"]);
 const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
 const HOUR_UNITS = new Set(["h", "hr", "hour", "hours", "hourangle"]);
 const DEGREE_UNITS = new Set(["deg", "degree", "degrees", "°"]);
+// A magnitude without a named system (VOUnit "mag"): the band's own system, as the target keeps it.
+const MAGNITUDE_UNITS = new Set(["mag", "mags", "magnitude", "magnitudes"]);
 
 class CellError extends Error {}
 
@@ -140,6 +143,18 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
       const scale = unit === undefined ? "JD" : epochScaleOf(unit);
       if (scale === undefined) throw new CellError(`is in ${unit}; the event peak is a Julian date (unit JD, HJD, MJD or d) or a UTC date such as 2027-06-15 04:30`);
       return scale === "MJD" && PLAIN_NUMBER.test(text) ? `MJD ${text}` : text;
+    }
+    case "magnitude": {
+      if (unit !== undefined && !MAGNITUDE_UNITS.has(readableUnit(unit).toLowerCase())) {
+        throw new CellError(`is in ${unit}; the source magnitude is a magnitude (unit mag) in its band's own system: Vega for Johnson–Cousins and 2MASS, AB for SDSS`);
+      }
+      // Read by the target schema with the parser's number rules, as for any number.
+      return text;
+    }
+    case "band": {
+      const id = sourceBandOfText(text);
+      if (id === undefined) throw new CellError(`is not a band we know: ${sourceBandChoicesText}`);
+      return id;
     }
     case "number":
     case "integer":

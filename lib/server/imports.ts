@@ -125,7 +125,7 @@ async function loadTargetList(db: Queryable, proposalId: string, fileId: string)
 
 async function existingTargets(db: Queryable, proposalId: string): Promise<ExistingTarget[]> {
   const rows = await db.select().from(targets).where(eq(targets.proposalId, proposalId));
-  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, priority, tags }) => ({
+  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, sourceMagnitude, sourceBand, blendFraction, priority, tags }) => ({
     id,
     name,
     raDeg,
@@ -144,6 +144,9 @@ async function existingTargets(db: Queryable, proposalId: string): Promise<Exist
     sourceRadiusSolar,
     sourceRadiusThetaE,
     limbDarkeningU,
+    sourceMagnitude,
+    sourceBand,
+    blendFraction,
     priority,
     tags,
   }));

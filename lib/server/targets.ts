@@ -74,6 +74,8 @@ const sortableColumns = {
   magnificationTotal: targets.magnificationTotal,
   timeDelayDays: targets.timeDelayDays,
   crossingTimeDays: targets.crossingTimeDays,
+  timeRequestHours: targets.timeRequestHours,
+  peakSignalToNoise: targets.peakSignalToNoise,
   caseVerdict: targets.caseVerdict,
   updatedAt: targets.updatedAt,
 } satisfies Record<TargetSortColumn, unknown>;

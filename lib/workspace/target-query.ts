@@ -17,6 +17,8 @@ export const targetSortColumns = [
   "magnificationTotal",
   "timeDelayDays",
   "crossingTimeDays",
+  "timeRequestHours",
+  "peakSignalToNoise",
   "caseVerdict",
   "updatedAt",
 ] as const;

@@ -16,7 +16,8 @@ import { targets } from "@/db/schema";
 import { and, eq } from "drizzle-orm";
 import { createWorld, pointTargetInput, proposalInput, type World } from "./support/world";
 import { startUploadService, type UploadService } from "./support/upload-service";
-import { createProposal } from "@/lib/server/proposals";
+import { createProposal, updateProposal } from "@/lib/server/proposals";
+import { demoCycle } from "@/db/seed/demo-sky-cycle";
 import { createTarget } from "@/lib/server/targets";
 import type { Provenance } from "@/lib/exports/provenance";
 import packageJson from "@/package.json";
@@ -131,16 +132,23 @@ describe("GET /api/proposals/:id/exports/targets", () => {
 /** The peak of the event added to the demo-like world: a JD with every digit a double holds. */
 const EXTRA_EVENT_PEAK_JD = 2462668.8337962963;
 const EXTRA_EVENT_NAME = "OB-31-0042";
+/** The event's source: a magnitude with every digit a double holds, in a band other than the proposal's. */
+const EXTRA_EVENT_SOURCE = { sourceMagnitude: 19.123456789012344, sourceBand: "sdss-i", blendFraction: 0.37 };
+/** The demo targets' sources: magnitudes 16.5, 16.9, … in the proposal's band (I), every third one blended. */
+const demoSourceOf = (index: number) => ({ sourceMagnitude: 16.5 + 0.4 * index, ...(index % 3 === 0 ? { blendFraction: 0.55 } : {}) });
 
 /**
  * The test world with the demo scenario's targets added (bulge point lenses, whose time delays are
  * ~1e-11 d and shadows ~1e-5 µas, galaxy lenses, the compact object; events with their peak t0, a
  * source radius and limb darkening, chosen science cases), plus a name with a true minus sign and Ω
  * as copied from papers that starts with #, which a CSV reader could take for a comment, and an event
- * whose source is given as ρ with a 17-digit t0 and a chosen case.
+ * whose source is given as ρ with a 17-digit t0 and a chosen case. The proposal has the demo cycle
+ * and a 2 m telescope in I, and every target a source magnitude, so the photon budget's columns hold
+ * values (the galaxy lenses' cases ask for no visits and keep them empty).
  */
 async function demoLikeWorld(): Promise<World> {
   const world = await createWorld();
+  await updateProposal({ proposalId: world.proposalId }, { ...demoCycle, photometry: { apertureM: 2, bandId: "jc-i" } }, world.actors.pi);
   const extra = { ...demoTargets[0], name: "#2 HE 0435−1223 Ω", ra: "04 38 14.9", dec: "-12 17 14" };
   const event = {
     ...demoTargets.find((target) => target.eventPeakJdUtc !== undefined)!,
@@ -152,9 +160,10 @@ async function demoLikeWorld(): Promise<World> {
     sourceRadiusThetaE: 0.0021,
     limbDarkeningU: 0.55,
     scienceCase: "photometric-microlensing" as const,
+    ...EXTRA_EVENT_SOURCE,
   };
-  for (const { notes: _notes, status: _status, ...target } of [...demoTargets, extra, event]) {
-    await createTarget({ proposalId: world.proposalId }, target, world.actors.pi);
+  for (const [index, { notes: _notes, status: _status, ...target }] of [...demoTargets, extra, event].entries()) {
+    await createTarget({ proposalId: world.proposalId }, { ...demoSourceOf(index), ...target }, world.actors.pi);
   }
   return world;
 }
@@ -176,6 +185,9 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
     // The values every file must hold: the JSON export's, the same numbers at the same digits.
     const json = (await (await get("json")).json()) as TargetTableJson;
     const values = json.rows.map((row) => exportColumnKeys.map((key) => (row[key] === "" ? null : row[key])));
+    // The photon budget's columns carry the stored budgets, and the provenance the band an empty source band means.
+    expect(json.rows.filter((row) => typeof row.timeRequestHours === "number" && typeof row.peakSignalToNoise === "number").length).toBeGreaterThan(0);
+    expect(json.provenance.inputs).toMatchObject({ photometryBandId: "jc-i", apertureM: 2 });
     // A CSV text cell starting like a formula carries the guard's apostrophe (OWASP CSV injection).
     const csvValues = values.map((row) => row.map((v) => (typeof v === "string" && /^[=+\-@\t\r]/.test(v) ? `'${v}` : v)));
     const columnsAs = (name: (key: (typeof exportColumnKeys)[number]) => string, withUnits: boolean) =>
@@ -215,17 +227,27 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
     }
   });
 
-  it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
+  it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening, the source's magnitude, band and f_s and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
     const world = await demoLikeWorld();
     const votable = await (await download(world.actors.coi, world.proposalId, `format=votable&${allColumns}`)).text();
     const preview = await previewOf(world, votable);
     expect(preview.rows).toHaveLength(demoTargets.length + 3);
     // The event's inputs are read back as inputs; the computed columns (answeredCase, verdicts, θ_E) fill nothing.
     const mappedNames = Object.entries(preview.mapping).map(([field, assignment]) => `${field}: ${preview.columns[assignment!.column].name}`);
-    expect(mappedNames).toEqual(expect.arrayContaining(["eventPeakJdUtc: eventPeakJdUtc", "sourceRadiusSolar: sourceRadiusSolar", "sourceRadiusThetaE: sourceRadiusThetaE", "limbDarkeningU: limbDarkeningU"]));
-    expect(mappedNames.filter((entry) => /answeredCase|caseVerdict|caseAnswers|einsteinRadiusMas/.test(entry))).toEqual([]);
+    expect(mappedNames).toEqual(
+      expect.arrayContaining([
+        "eventPeakJdUtc: eventPeakJdUtc",
+        "sourceRadiusSolar: sourceRadiusSolar",
+        "sourceRadiusThetaE: sourceRadiusThetaE",
+        "limbDarkeningU: limbDarkeningU",
+        "sourceMagnitude: sourceMagnitude",
+        "sourceBand: sourceBand",
+        "blendFraction: blendFraction",
+      ]),
+    );
+    expect(mappedNames.filter((entry) => /answeredCase|caseVerdict|caseAnswers|einsteinRadiusMas|timeRequestHours|peakSignalToNoise/.test(entry))).toEqual([]);
     const event = preview.rows.find((row) => row.cells.name === EXTRA_EVENT_NAME)!;
-    expect(event.values).toMatchObject({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD, sourceRadiusThetaE: 0.0021, limbDarkeningU: 0.55 });
+    expect(event.values).toMatchObject({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD, sourceRadiusThetaE: 0.0021, limbDarkeningU: 0.55, ...EXTRA_EVENT_SOURCE });
     expect(preview.rows.filter((row) => row.values?.sourceRadiusSolar != null && row.values.eventPeakJdUtc != null)).toHaveLength(1);
     expect(preview.rows.filter((row) => row.action !== "skip").map((row) => `row ${row.rowNumber}: ${row.action}, ${row.detail}`)).toEqual([]);
     expect(preview.counts).toEqual({ added: 0, updated: 0, skipped: demoTargets.length + 3, invalid: 0 });

@@ -6,6 +6,8 @@ import { AppError } from "@/lib/errors";
 import { toCsvField } from "@/lib/imports/formula";
 import type { ColumnMapping } from "@/lib/imports/columns";
 import { commitImport, previewImport } from "@/lib/server/imports";
+import { updateProposal } from "@/lib/server/proposals";
+import { demoCycle } from "@/db/seed/demo-sky-cycle";
 import { createWorld, type World } from "./support/world";
 import { startUploadService, type UploadService } from "./support/upload-service";
 
@@ -269,5 +271,46 @@ describe("who may upload and import", () => {
     // A file of another proposal is not found from this one.
     const other = await createWorld();
     expect((await refusalOf(previewImport({ proposalId: other.proposalId }, { fileId }, other.actors.coi))).code).toBe("not_found:file");
+  });
+});
+
+describe("the source's photometry through an import (magnitude, band, f_s)", () => {
+  // An event at the bulge peaking mid-cycle, a 2 m telescope observing in I: a budget to keep.
+  const eventList = (extra: string, cells: string) =>
+    [`name,ra,dec,mass [Msun],D_L [pc],D_S [pc],mu [mas/yr],u0,t0,priority${extra}`, `PB-0001,17:56:40.0,-29:30:00,0.5,4000,8000,5,0.1,2031-06-11 04:00,${cells}`].join("\n");
+
+  it("stores the magnitude, the band read from its label and f_s, and an update from a file without them keeps them and the time request they give", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId };
+    await updateProposal(params, { ...demoCycle, photometry: { apertureM: 2, bandId: "jc-i" } }, world.actors.pi);
+    const first = await uploadList(world, "events.csv", eventList(",I_s,band,f_s", "1,17.5,i (SDSS),0.7"));
+    const preview = await previewImport(params, { fileId: first }, world.actors.coi);
+    expect(preview.mapping).toMatchObject({ sourceMagnitude: { column: 10, unit: "mag", isUnitAssumed: true }, sourceBand: { column: 11 }, blendFraction: { column: 12 } });
+    await commitImport(params, { fileId: first, mapping: preview.mapping, toleranceArcsec: 1 }, world.actors.coi);
+    const [added] = await db.select().from(targets).where(eq(targets.name, "PB-0001"));
+    expect(added).toMatchObject({ sourceMagnitude: 17.5, sourceBand: "sdss-i", blendFraction: 0.7 });
+    expect(added.timeRequestHours).toBeGreaterThan(0);
+
+    // A file that changes only the priority: the update must derive from the stored source, not drop it.
+    const second = await uploadList(world, "priorities.csv", eventList("", "3"));
+    const update = await previewImport(params, { fileId: second }, world.actors.coi);
+    expect(update.counts).toMatchObject({ updated: 1, invalid: 0 });
+    await commitImport(params, { fileId: second, mapping: update.mapping, toleranceArcsec: 1 }, world.actors.coi);
+    const [updated] = await db.select().from(targets).where(eq(targets.name, "PB-0001"));
+    expect(updated).toMatchObject({ priority: 3, sourceMagnitude: 17.5, sourceBand: "sdss-i", blendFraction: 0.7 });
+    expect(updated.timeRequestHours).toBe(added.timeRequestHours);
+    expect(updated.peakSignalToNoise).toBe(added.peakSignalToNoise);
+  });
+
+  it("refuses a row whose band is none of ours, naming the row, the field and the column, and writes nothing", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId };
+    const fileId = await uploadList(world, "events.csv", eventList(",I_s,filter", "1,17.5,Gaia G"));
+    const preview = await previewImport(params, { fileId }, world.actors.coi);
+    expect(preview.rows[0].errors[0]).toMatch(/^row 1: Source band Gaia G \(column "filter"\) is not a band we know: write a band id such as jc-i/);
+    const before = await tableCounts(world.proposalId);
+    const refusal = await refusalOf(commitImport(params, { fileId, mapping: preview.mapping, toleranceArcsec: 1 }, world.actors.coi));
+    expect(refusal.code).toBe("bad_request:import");
+    expect(await tableCounts(world.proposalId)).toEqual(before);
   });
 });

@@ -9,6 +9,7 @@ import { dataDigitsOf, tableColumnsQuerySchema, type ChosenColumn } from "@/lib/
 import { tableFormats, type TableFormat } from "@/lib/exports/tables/formats";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
+import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { instrumentSettingsOf } from "@/lib/server/derived-columns";
@@ -43,6 +44,7 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
     .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
     .limit(MAX_EXPORT_ROWS);
   const instrument = instrumentSettingsOf(proposal);
+  const photometry = storedPhotometrySettings(proposal.photometry);
   // LaTeX shows the display digits; the data formats write inputs as stored (17) unless asked.
   const digitsOf = format === "tex" ? (c: ChosenColumn) => c.digits : dataDigitsOf;
   const provenance = buildProvenance({
@@ -56,6 +58,12 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
       cadenceHours: instrument.cadenceHours,
       campaignLengthDays: instrument.campaignLengthDays,
       cycleStartDate: proposal.cycleStartDate ?? null,
+      // What the photon budget columns were computed with; an empty source band is this band.
+      photometryBandId: photometry.bandId,
+      apertureM: photometry.apertureM,
+      signalToNoiseGoal: photometry.signalToNoiseGoal,
+      overheadPerVisitS: photometry.overheadS,
+      visitMinutes: instrument.visitMinutes,
       columns: columns.map((c) => c.column.key).join(","),
       digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${digitsOf(c)}`).join(","),
       rowCount: rows.length,

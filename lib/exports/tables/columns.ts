@@ -52,6 +52,11 @@ export const exportColumns = [
   input({ key: "sourceRadiusSolar", label: "Source radius", unit: "Rsun", latexUnit: "$R_\\odot$", voUnit: "solRad", ucd: "phys.size.radius", kind: "double", defaultDigits: 4 }),
   input({ key: "sourceRadiusThetaE", label: "Source radius rho", unit: "thetaE", latexUnit: "$\\theta_E$", voUnit: "", ucd: "phys.angSize;arith.ratio", kind: "double", defaultDigits: 4 }),
   input({ key: "limbDarkeningU", label: "Limb-darkening coefficient", unit: "", latexUnit: "", voUnit: "", ucd: "phot.limbDark", kind: "double", defaultDigits: 4 }),
+  // The source's own magnitude in its band's own system (Vega or AB, as the band defines it); an empty band is the proposal's.
+  input({ key: "sourceMagnitude", label: "Source magnitude", unit: "mag", latexUnit: "mag", voUnit: "mag", ucd: "phot.mag", kind: "double", defaultDigits: 4 }),
+  input({ key: "sourceBand", label: "Source band", ucd: "meta.id;instr.filter", ...text }),
+  // f_s: the source's flux over the baseline's (UCD1+: a ratio of fluxes).
+  input({ key: "blendFraction", label: "Blend fraction f_s", unit: "", latexUnit: "", voUnit: "", ucd: "phot.flux;arith.ratio", kind: "double", defaultDigits: 3 }),
   input({ key: "priority", label: "Priority", unit: "", latexUnit: "", voUnit: "", ucd: "meta.code.qual", kind: "int", defaultDigits: 0 }),
   input({ key: "status", label: "Status", ucd: "meta.code.status", ...text }),
   input({ key: "tags", label: "Tags", ucd: "meta.note", ...text }),
@@ -61,6 +66,10 @@ export const exportColumns = [
   computed({ key: "timeDelayDays", label: "Time delay", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.interval", kind: "double", defaultDigits: 4 }),
   computed({ key: "crossingTimeDays", label: "Einstein crossing time", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.duration", kind: "double", defaultDigits: 4 }),
   computed({ key: "shadowDiameterMicroarcsec", label: "Shadow diameter", unit: "uas", latexUnit: "$\\mu$as", voUnit: "uarcsec", ucd: "phys.angSize", kind: "double", defaultDigits: 4 }),
+  // The photon budget: hours over the visits the case needs (exposures and overheads, so time.duration;obs
+  // rather than obs.exposure), and the signal-to-noise at the brightest of them.
+  computed({ key: "timeRequestHours", label: "Time request", unit: "h", latexUnit: "h", voUnit: "h", ucd: "time.duration;obs", kind: "double", defaultDigits: 3 }),
+  computed({ key: "peakSignalToNoise", label: "S/N at brightest visit", unit: "", latexUnit: "", voUnit: "", ucd: "stat.snr", kind: "double", defaultDigits: 3 }),
   // The case's id (chosen, else inferred), its worst verdict, and every answer in one text cell.
   computed({ key: "answeredCase", label: "Science case", ucd: "meta.code", ...text }),
   computed({ key: "caseVerdict", label: "Case verdict", ucd: "meta.code", ...text }),
@@ -88,6 +97,7 @@ export const defaultExportColumns: ExportColumnKey[] = [
   "imageSeparationMas",
   "magnificationTotal",
   "crossingTimeDays",
+  "timeRequestHours",
   "answeredCase",
   "caseVerdict",
 ];

@@ -16,7 +16,7 @@ import { createWorld, pointTargetInput, type World } from "../support/world";
  * table's query string); anything else is a 400 naming the parameter, never text passed to SQL.
  * Written out here from the API's documentation, and checked against the schema's own lists.
  */
-const documentedSortColumns = ["name", "raDeg", "decDeg", "priority", "status", "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "caseVerdict", "updatedAt"];
+const documentedSortColumns = ["name", "raDeg", "decDeg", "priority", "status", "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "timeRequestHours", "peakSignalToNoise", "caseVerdict", "updatedAt"];
 const documentedFilters = {
   status: ["candidate", "accepted", "scheduled", "observed", "dropped"],
   lensModel: ["point", "sis"],
@@ -24,8 +24,8 @@ const documentedFilters = {
   answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"],
 } as const;
 const documentedExportColumns = [
-  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "priority", "status", "tags",
-  "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "answeredCase", "caseVerdict", "caseAnswers",
+  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "sourceMagnitude", "sourceBand", "blendFraction", "priority", "status", "tags",
+  "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "timeRequestHours", "peakSignalToNoise", "answeredCase", "caseVerdict", "caseAnswers",
 ];
 
 const runs = 60;

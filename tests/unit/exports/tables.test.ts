@@ -13,6 +13,11 @@ import { targetTableJson, type TargetTableJson } from "@/lib/exports/tables/json
 import { escapeLatex, targetTableLatex } from "@/lib/exports/tables/latex";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import { targetTableVotable, VOTABLE_NAMESPACE } from "@/lib/exports/tables/votable";
+import { proposeColumnMapping } from "@/lib/imports/columns";
+import { parseCsvTable } from "@/lib/imports/csv";
+import { validateImportRows } from "@/lib/imports/rows";
+import { parseVoTable } from "@/lib/imports/votable";
+import type { TargetView } from "@/lib/workspace/target-view";
 import packageJson from "@/package.json";
 import { parse as parseYaml } from "yaml";
 import { exportProvenance, exportRows } from "./fixtures";
@@ -298,5 +303,69 @@ describe("the science case's columns", () => {
     expect(tex).toContain("\\begin{tabular}{lllp{7cm}rrr}");
     expect(tex).toContain("Visits over the event (t0 ± t\\_E): Marginal (6 visits)");
     expect(bracesBalance(tex)).toBe(true);
+  });
+});
+
+describe("the photon budget's columns (the source's magnitude, band and f_s; the time request and the S/N at the brightest visit)", () => {
+  const budgetRows: TargetView[] = [
+    { ...exportRows[0], sourceMagnitude: 19.123456789012344, sourceBand: "jc-i", blendFraction: 0.6, timeRequestHours: 12.3456, peakSignalToNoise: 143.21 },
+    { ...exportRows[1], sourceMagnitude: null, sourceBand: null, blendFraction: null, timeRequestHours: null, peakSignalToNoise: null },
+  ];
+  const budgetColumns = tableColumnsQuerySchema.parse({
+    columns: "name,raDeg,decDeg,lensModel,lensMassSolar,velocityDispersionKmPerS,lensDistancePc,sourceDistancePc,lensRedshift,sourceRedshift,sourceOffsetThetaE,priority,sourceMagnitude,sourceBand,blendFraction,timeRequestHours,peakSignalToNoise",
+  });
+  const budgetTable: TargetTable = { ...table, columns: budgetColumns, rows: budgetRows };
+  const budgetKeys = ["sourceMagnitude", "sourceBand", "blendFraction", "timeRequestHours", "peakSignalToNoise"];
+
+  it("put the time request among the default columns (what a technical justification shows)", () => {
+    expect(tableColumnsQuerySchema.parse({}).map((c) => c.column.key)).toContain("timeRequestHours");
+  });
+
+  it("write CSV headers with units, inputs as stored and computed values at their digits, empty without a budget", () => {
+    const [header, first, second] = Papa.parse<string[]>(targetTableCsv(budgetTable), { skipEmptyLines: true }).data;
+    expect(header.slice(-5)).toEqual(["Source magnitude [mag]", "Source band", "Blend fraction f_s", "Time request [h]", "S/N at brightest visit"]);
+    expect(first.slice(-5)).toEqual(["19.123456789012344", "jc-i", "0.6", "12.3", "143"]);
+    expect(second.slice(-5)).toEqual(["", "", "", "", ""]);
+  });
+
+  it("declare VOUnits and UCD1+ words in the VOTable (phot.mag, meta.id;instr.filter, phot.flux;arith.ratio, time.duration;obs, stat.snr), precision only on the computed ones", () => {
+    const doc = new XMLParser({ ignoreAttributes: false, attributeNamePrefix: "" }).parse(targetTableVotable(budgetTable));
+    const fields = doc.VOTABLE.RESOURCE.TABLE.FIELD as Record<string, string>[];
+    const byName = Object.fromEntries(fields.map((f) => [f.name, f]));
+    expect(budgetKeys.map((key) => [key, byName[key].datatype, byName[key].unit, byName[key].ucd, byName[key].precision])).toEqual([
+      ["sourceMagnitude", "double", "mag", "phot.mag", undefined],
+      ["sourceBand", "char", undefined, "meta.id;instr.filter", undefined],
+      ["blendFraction", "double", undefined, "phot.flux;arith.ratio", undefined],
+      ["timeRequestHours", "double", "h", "time.duration;obs", "E3"],
+      ["peakSignalToNoise", "double", undefined, "stat.snr", "E3"],
+    ]);
+  });
+
+  it("carry units and UCDs in the ECSV header", () => {
+    const datatype = splitEcsv(targetTableEcsv(budgetTable)).header.datatype as Record<string, unknown>[];
+    const byName = Object.fromEntries(datatype.map((c) => [c.name, c]));
+    expect(byName.sourceMagnitude).toEqual({ name: "sourceMagnitude", unit: "mag", datatype: "float64", description: "Source magnitude (input)", meta: { ucd: "phot.mag" } });
+    expect(byName.timeRequestHours).toEqual({ name: "timeRequestHours", unit: "h", datatype: "float64", description: "Time request (computed)", meta: { ucd: "time.duration;obs" } });
+    expect(byName.blendFraction).not.toHaveProperty("unit");
+  });
+
+  it("typeset in LaTeX with their units in the header and an en dash without a budget", () => {
+    const tex = targetTableLatex(budgetTable);
+    expect(tex).toContain("Source magnitude (mag) & Source band & Blend fraction f\\_s & Time request (h) & S/N at brightest visit \\\\");
+    const rows = tex.split("\n").filter((line) => line.endsWith("\\\\")).slice(1);
+    expect(rows[0].endsWith("19.12 & jc-i & 0.6 & 12.3 & 143 \\\\")).toBe(true);
+    expect(rows[1].endsWith("-- & -- & -- & -- & -- \\\\")).toBe(true);
+  });
+
+  it("re-import from our own VOTable and ECSV with the magnitude to the last digit, the band and f_s; the computed columns fill no field", () => {
+    for (const imported of [parseVoTable(targetTableVotable(budgetTable)), parseCsvTable(targetTableEcsv(budgetTable))]) {
+      const mapping = proposeColumnMapping(imported.columns);
+      expect(mapping).toMatchObject({ sourceMagnitude: { column: 12, unit: "mag" }, sourceBand: { column: 13 }, blendFraction: { column: 14 } });
+      expect(Object.values(mapping).filter((assignment) => assignment!.column >= 15)).toEqual([]);
+      const { rows } = validateImportRows(imported, mapping);
+      expect(rows[0].errors).toEqual([]);
+      expect(rows[0].target).toMatchObject({ sourceMagnitude: 19.123456789012344, sourceBand: "jc-i", blendFraction: 0.6 });
+      expect(rows[1].target).not.toHaveProperty("sourceMagnitude");
+    }
   });
 });

@@ -54,6 +54,10 @@ describe("proposeColumnMapping", () => {
   });
 
   it("proposes nothing for an ambiguous bare redshift or unknown headers", () => {
-    expect(fromHeaders("z", "magnitude", "notes")).toEqual({});
+    expect(fromHeaders("z", "notes", "remarks")).toEqual({});
+  });
+
+  it("maps a lone magnitude column to the source magnitude (dropped silently before the photon budget read it)", () => {
+    expect(fromHeaders("name", "magnitude", "notes")).toEqual({ name: { column: 0 }, sourceMagnitude: { column: 1, unit: "mag", isUnitAssumed: true } });
   });
 });

@@ -5,6 +5,7 @@ import { columnFromHeader, parseCsvTable } from "@/lib/imports/csv";
 import { planImport, type ExistingTarget } from "@/lib/imports/plan";
 import { checkColumnMapping, validateImportRows } from "@/lib/imports/rows";
 import { parseVoTable } from "@/lib/imports/votable";
+import { existingPointTarget, LENS, LENS_CELLS } from "./existing-target";
 
 // 2027-06-15 04:30 UTC as a Julian date: JD 2461571.5 at 0h that day (Meeus, Astronomical
 // Algorithms, ch. 7) + 4.5/24; astropy 5.2.1 Time("2027-06-15 04:30", scale="utc").jd gives the same.
@@ -18,8 +19,6 @@ function readCsv(text: string) {
   return validateImportRows(table, proposeColumnMapping(table.columns), { priority: 2, sourceOffsetThetaE: 0.2 });
 }
 
-const LENS = "name,ra,dec,mass [Msun],D_L [pc],D_S [pc]";
-const LENS_CELLS = "OB-1,268.1,-29.7,0.3,4000,8000";
 
 describe("the event's inputs in an imported list (science case, t0, source radius, limb darkening)", () => {
   it("maps catalogue headers for t0, ρ, the source radius, limb darkening and the case (common practice)", () => {
@@ -143,28 +142,7 @@ describe("the event's inputs in an imported list (science case, t0, source radiu
 });
 
 describe("planImport with the event's inputs", () => {
-  const existing: ExistingTarget = {
-    id: "t1",
-    name: "OB-1",
-    raDeg: 268.1,
-    decDeg: -29.7,
-    lensModel: "point",
-    lensMassSolar: 0.3,
-    velocityDispersionKmPerS: null,
-    lensDistancePc: 4000,
-    sourceDistancePc: 8000,
-    lensRedshift: null,
-    sourceRedshift: null,
-    sourceOffsetThetaE: 0.2,
-    properMotionMasPerYr: null,
-    scienceCase: "photometric-microlensing",
-    eventPeakJdUtc: PEAK_JD,
-    sourceRadiusSolar: 1.4,
-    sourceRadiusThetaE: null,
-    limbDarkeningU: 0.6,
-    priority: 2,
-    tags: [],
-  };
+  const existing: ExistingTarget = { ...existingPointTarget, scienceCase: "photometric-microlensing", eventPeakJdUtc: PEAK_JD, sourceRadiusSolar: 1.4, limbDarkeningU: 0.6 };
   const plan = (cells: string) => {
     const table = parseCsvTable(`${LENS},t0,case,R_star,LD\n${LENS_CELLS},${cells}\n`);
     const mapping = proposeColumnMapping(table.columns);
