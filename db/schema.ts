@@ -156,6 +156,8 @@ export const proposals = pgTable("proposals", {
   /** Astrometric precision of one epoch, and the largest flux ratio of two images the instrument separates. */
   astrometricPrecisionMas: doublePrecision("astrometric_precision_mas"),
   reachableContrast: doublePrecision("reachable_contrast"),
+  /** The photon budget's telescope, detector, band and site sky (`lib/workspace/photometry-schema.ts`; read through its schema). */
+  photometry: jsonb("photometry").notNull().default(sql`'{}'::jsonb`),
   createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
   createdAt: createdAt(),
   updatedAt: updatedAt(),
@@ -234,6 +236,10 @@ export const targets = pgTable(
     sourceRadiusSolar: doublePrecision("source_radius_solar"),
     sourceRadiusThetaE: doublePrecision("source_radius_theta_e"),
     limbDarkeningU: doublePrecision("limb_darkening_u"),
+    /** The lensed source's own magnitude (unmagnified, without blended light) in a band's own system; the band (null: the proposal's); its share f_s of the baseline flux (null: 1, no blend). */
+    sourceMagnitude: doublePrecision("source_magnitude"),
+    sourceBand: text("source_band"),
+    blendFraction: doublePrecision("blend_fraction"),
     priority: integer("priority").notNull(),
     status: targetStatus("status").notNull().default("candidate"),
     tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
@@ -243,6 +249,9 @@ export const targets = pgTable(
     timeDelayDays: doublePrecision("time_delay_days"),
     crossingTimeDays: doublePrecision("crossing_time_days"),
     shadowDiameterMicroarcsec: doublePrecision("shadow_diameter_microarcsec"),
+    /** The photon budget: hours requested over the visits the case needs (exposures and overheads), and the S/N at the brightest of them. */
+    timeRequestHours: doublePrecision("time_request_hours"),
+    peakSignalToNoise: doublePrecision("peak_signal_to_noise"),
     /** The science case the answers below were given for (the chosen one, or the inferred one). */
     answeredCase: scienceCase("answered_case"),
     /** The worst verdict among the case's answers, and the answers themselves (`CaseAnswer[]`). */

@@ -4,6 +4,7 @@ import type { Database } from "@/db/client";
 import { activity, proposalMembers, proposals, users } from "@/db/schema";
 import { seedDemoSkyCycle } from "@/db/seed/demo-sky-cycle";
 import { seedDemoScienceCases } from "@/db/seed/demo-science-cases";
+import { seedDemoPhotonBudget } from "@/db/seed/demo-photon-budget";
 import { insertDemoTargets } from "@/db/seed/demo-targets";
 import { runSeedOnce, type SeedTransaction as Tx } from "@/db/seed/run-once";
 import {
@@ -43,6 +44,7 @@ export async function seedDemo(db: Database): Promise<boolean> {
   const applied = await seedDemoWorkspace(db);
   await seedDemoSkyCycle(db);
   await seedDemoScienceCases(db);
+  await seedDemoPhotonBudget(db);
   // Targets are inserted without derived columns (version 0); derive them once the cycle is set.
   await rederiveStaleTargets(db);
   return applied;

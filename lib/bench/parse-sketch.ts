@@ -347,6 +347,8 @@ function readSettings(reader: FieldReader, sketch: Sketch): FeasibilitySettings 
       horizonLimitDeg: reader.quantity("horizon", proposalQuantities.horizonLimitDeg),
     },
     instrument: readInstrument(reader, sketch),
+    // The bench has no camera: the photon budget is the proposal's (its target page).
+    photometry: null,
     cycleStartDate: readNightDate(reader, sketch, "cycleStart"),
     cycleEndDate: readNightDate(reader, sketch, "cycleEnd"),
   };

@@ -3,8 +3,7 @@
  * lensing layer, or, for time-delay monitoring, an illustrative flare of the source as the two images
  * show it Δt apart. Times are Julian dates UTC, spans in days.
  */
-import { finiteSourceMagnification } from "@/lib/lensing";
-import { pointLensMagnification } from "@/lib/physics/point-lens";
+import { eventMagnificationAtOffset } from "@/lib/lensing/microlensing";
 
 export interface TimelinePoint {
   jdUtc: number;
@@ -47,25 +46,6 @@ function sampleTimes(span: TimeSpan, centresJdUtc: readonly number[], halfWidthD
   return times.filter((jd) => jd >= startJdUtc && jd <= endJdUtc).sort((a, b) => a - b);
 }
 
-/** Relative change of A below which a drawing cannot show it (a 0.01-pixel move on a 100-pixel-tall curve). */
-const DRAWN_PRECISION = 1e-4;
-
-/**
- * A(u) of the event's source: the finite-source magnification of a disk of radius ρ (uniform or
- * linearly limb-darkened; lib/lensing) when ρ > 0, else the point-lens magnification (Paczyński
- * 1986, ApJ 304, 1); Infinity for a point source at u = 0. Where the uniform disk's value is within
- * DRAWN_PRECISION of the point source's, it is drawn for a limb-darkened disk too: limb darkening
- * weights the disk's centre and moves A less than the uniform disk does (finite-source.ts), and the
- * limb-darkened quadrature costs about 40 times as much.
- */
-function magnificationAtOffset(u: number, event: LightCurveEvent): number {
-  const rho = event.sourceRadiusThetaE;
-  if (rho === null || rho <= 0) return pointLensMagnification(u);
-  const uniform = finiteSourceMagnification(u, rho);
-  if (event.limbDarkeningU === 0 || (u > 0 && Math.abs(uniform / pointLensMagnification(u) - 1) < DRAWN_PRECISION)) return uniform;
-  return finiteSourceMagnification(u, rho, event.limbDarkeningU);
-}
-
 export interface LightCurveTimeline {
   /** A(t) over the span, finite values only (a point source at u0 = 0 has no finite peak). */
   points: TimelinePoint[];
@@ -81,7 +61,7 @@ export interface LightCurveTimeline {
  */
 export function lightCurveTimeline(event: LightCurveEvent, span: TimeSpan, markJdUtc: readonly number[]): LightCurveTimeline {
   const { peakJdUtc, einsteinTimeDays, impactParameterThetaE: u0 } = event;
-  const at = (jdUtc: number): TimelinePoint => ({ jdUtc, value: magnificationAtOffset(Math.hypot(u0, (jdUtc - peakJdUtc) / einsteinTimeDays), event) });
+  const at = (jdUtc: number): TimelinePoint => ({ jdUtc, value: eventMagnificationAtOffset(Math.hypot(u0, (jdUtc - peakJdUtc) / einsteinTimeDays), event) });
   const peakHalfWidthDays = PEAK_HALF_WIDTHS * Math.max(u0, event.sourceRadiusThetaE ?? 0) * einsteinTimeDays;
   const points = sampleTimes(span, [peakJdUtc], peakHalfWidthDays).map(at).filter((point) => Number.isFinite(point.value));
   const isPeakInSpan = peakJdUtc >= span.startJdUtc && peakJdUtc <= span.endJdUtc;

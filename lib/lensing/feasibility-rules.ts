@@ -208,3 +208,15 @@ export function caseVerdictOf(answers: readonly Verdict[]): Verdict {
   for (const worst of ["infeasible", "marginal", "unknown"] as const) if (answers.includes(worst)) return worst;
   return answers.length === 0 ? "unknown" : "feasible";
 }
+
+// ── Photon budget ─────────────────────────────────────────────────────────────────────────────────
+
+/**
+ * Depth: the S/N the worst visit the case needs reaches in the exposure a visit leaves, over the
+ * team's S/N goal. Our rule: the goal at every visit is feasible; half the goal at the worst visit
+ * is marginal (the light curve or image is still measured there, at twice the error asked for);
+ * less is infeasible. A visit whose exposure saturates the brightest pixel makes the answer at most
+ * marginal: the exposure must be split into shorter ones, which adds read noise and overheads
+ * (common practice).
+ */
+export const DEPTH_RULE: RatioRule = { feasibleAt: 1, marginalAt: 0.5 };

@@ -16,7 +16,9 @@ import {
   RESOLUTION_RULE,
   type Verdict,
 } from "./feasibility-rules";
+import type { PhotonBudgetOutcome } from "./photon-budget";
 import { astrometricAnswers } from "./science-case-astrometric";
+import { depthAnswer } from "./science-case-depth";
 import { timeDelayAnswers } from "./science-case-delay";
 import { horizonAnswers, resolutionElement, resolvedImagesAnswers } from "./science-case-imaging";
 import { photometricAnswers } from "./science-case-photometric";
@@ -79,6 +81,8 @@ export interface ScienceCaseInputs {
   /** The target's simulated schedule over the cycle; null when the proposal has no site or cycle dates. */
   schedule: ObservingSchedule | null;
   campaign: CampaignSettings;
+  /** The target's photon budget in this case, or why there is none (photon-budget.ts). */
+  photonBudget: PhotonBudgetOutcome;
 }
 
 /** Stable question ids (also test ids on the page). */
@@ -97,7 +101,8 @@ export type CaseQuestionId =
   | "delay-cadence"
   | "seasons-covered"
   | "shadow"
-  | "photon-ring";
+  | "photon-ring"
+  | "depth";
 
 /** One answered question. */
 export interface CaseAnswer {
@@ -115,17 +120,19 @@ export interface CaseAnswer {
 
 /** The questions of a case with their answers, in the order the page shows them. */
 export function scienceCaseQuestions(caseId: ScienceCaseId, inputs: ScienceCaseInputs): CaseAnswer[] {
+  const depth = depthAnswer(inputs.photonBudget);
+  const withDepth = (answers: CaseAnswer[]) => (depth === null ? answers : [...answers, depth]);
   switch (caseId) {
     case "photometric-microlensing":
-      return photometricAnswers(inputs);
+      return withDepth(photometricAnswers(inputs));
     case "astrometric-microlensing":
-      return astrometricAnswers(inputs);
+      return withDepth(astrometricAnswers(inputs));
     case "resolved-images":
-      return resolvedImagesAnswers(inputs);
+      return withDepth(resolvedImagesAnswers(inputs));
     case "time-delay":
-      return timeDelayAnswers(inputs);
+      return withDepth(timeDelayAnswers(inputs));
     case "horizon-scale":
-      return horizonAnswers(inputs);
+      return withDepth(horizonAnswers(inputs));
   }
 }
 

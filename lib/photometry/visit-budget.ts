@@ -88,9 +88,12 @@ export interface VisitPhotometry {
   precisionMmag: number;
   /** Exposure that reaches the S/N goal, s. */
   exposureForGoalS: number;
-  /** The brightest pixel reaches the full well in the exposure. */
+  /**
+   * The brightest pixel reaches the full well in the exposure the visit uses: the one that reaches the
+   * goal, at most the time available (`exposureS`); a brighter source exposes for less.
+   */
   isSaturated: boolean;
-  /** Electrons in the brightest pixel over the full well. */
+  /** Electrons in the brightest pixel over the full well, after the exposure the visit uses. */
   peakPixelFullWellFraction: number;
   skyMagPerArcsec2: number;
   moonMagPerArcsec2: number;
@@ -211,9 +214,9 @@ function newScratch(): VisitScratch {
  * Electrons in the brightest pixel over the full well after the exposure, when it holds the share
  * `peakFraction` of the source's `sourceElectronsPerS` (all its light) plus one pixel's sky and dark.
  */
-function fullWellShare(budget: PreparedBudget, sourceElectronsPerS: number, peakFraction: number, skyElectronsPerSPerPixel: number): number {
+function fullWellShare(budget: PreparedBudget, exposureS: number, sourceElectronsPerS: number, peakFraction: number, skyElectronsPerSPerPixel: number): number {
   const { darkElectronsPerSPerPixel, fullWellElectrons } = budget.instrument;
-  return (peakPixelElectronsPerS(sourceElectronsPerS, peakFraction, skyElectronsPerSPerPixel, darkElectronsPerSPerPixel) * budget.exposureS) / fullWellElectrons;
+  return (peakPixelElectronsPerS(sourceElectronsPerS, peakFraction, skyElectronsPerSPerPixel, darkElectronsPerSPerPixel) * exposureS) / fullWellElectrons;
 }
 
 /**
@@ -252,10 +255,11 @@ function evaluateVisit(
   // its share; when both bounds fall on one side of the full well the quadrature cannot change the
   // verdict and a series (which keeps only the verdict) skips it.
   const halfSide = instrument.pixelScaleArcsec / 2;
-  const upper = fullWellShare(budget, sourceTotal, encircledEnergyFraction(instrument.psf, halfSide * Math.SQRT2, seeing), skyPerPixel);
-  const lower = fullWellShare(budget, sourceTotal, encircledEnergyFraction(instrument.psf, halfSide, seeing), skyPerPixel);
+  const usedExposureS = Math.min(out.exposureForGoalS, budget.exposureS);
+  const upper = fullWellShare(budget, usedExposureS, sourceTotal, encircledEnergyFraction(instrument.psf, halfSide * Math.SQRT2, seeing), skyPerPixel);
+  const lower = fullWellShare(budget, usedExposureS, sourceTotal, encircledEnergyFraction(instrument.psf, halfSide, seeing), skyPerPixel);
   if (needsPeakShare || (lower < 1 && upper >= 1)) {
-    out.peakPixelFullWellFraction = fullWellShare(budget, sourceTotal, peakPixelFluxFraction(instrument.psf, seeing, instrument.pixelScaleArcsec), skyPerPixel);
+    out.peakPixelFullWellFraction = fullWellShare(budget, usedExposureS, sourceTotal, peakPixelFluxFraction(instrument.psf, seeing, instrument.pixelScaleArcsec), skyPerPixel);
     out.isSaturated = out.peakPixelFullWellFraction >= 1;
   } else {
     out.peakPixelFullWellFraction = Number.NaN;

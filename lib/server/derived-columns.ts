@@ -5,6 +5,7 @@ import type { Database } from "@/db/client";
 import { proposals, targets, type Proposal, type Target } from "@/db/schema";
 import { DERIVATION_VERSION, deriveTargetColumns, targetSchedules, type DerivedColumns, type FeasibilitySettings } from "@/lib/workspace/derived";
 import type { InstrumentSettings } from "@/lib/workspace/proposal-schema";
+import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
 
 /** Every instrument default of a proposal: the lensing scales, the airmass limit, λ and B, the schedule's constraints. */
 export function instrumentSettingsOf(p: Proposal): InstrumentSettings {
@@ -29,6 +30,7 @@ export function feasibilitySettingsOf(p: Proposal): FeasibilitySettings {
   return {
     site: { name: p.siteName, latitudeDeg: p.siteLatitudeDeg, longitudeDeg: p.siteLongitudeDeg, elevationM: p.siteElevationM, horizonLimitDeg: p.siteHorizonLimitDeg },
     instrument: instrumentSettingsOf(p),
+    photometry: storedPhotometrySettings(p.photometry),
     cycleStartDate: p.cycleStartDate,
     cycleEndDate: p.cycleEndDate,
   };
@@ -82,6 +84,8 @@ async function writeDerived(tx: Pick<Database, "execute">, rows: readonly Target
       time_delay_days: d.timeDelayDays,
       crossing_time_days: d.crossingTimeDays,
       shadow_diameter_microarcsec: d.shadowDiameterMicroarcsec,
+      time_request_hours: d.timeRequestHours,
+      peak_signal_to_noise: d.peakSignalToNoise,
       answered_case: d.answeredCase,
       case_verdict: d.caseVerdict,
       case_answers: d.caseAnswers,
@@ -95,13 +99,15 @@ async function writeDerived(tx: Pick<Database, "execute">, rows: readonly Target
         time_delay_days = d.time_delay_days,
         crossing_time_days = d.crossing_time_days,
         shadow_diameter_microarcsec = d.shadow_diameter_microarcsec,
+        time_request_hours = d.time_request_hours,
+        peak_signal_to_noise = d.peak_signal_to_noise,
         answered_case = d.answered_case,
         case_verdict = d.case_verdict,
         case_answers = d.case_answers,
         derivation_version = d.derivation_version
       from jsonb_to_recordset(${JSON.stringify(derived)}::jsonb) as d(
         id uuid, einstein_radius_mas float8, image_separation_mas float8, magnification_total float8,
-        time_delay_days float8, crossing_time_days float8, shadow_diameter_microarcsec float8,
+        time_delay_days float8, crossing_time_days float8, shadow_diameter_microarcsec float8, time_request_hours float8, peak_signal_to_noise float8,
         answered_case science_case, case_verdict feasibility_verdict, case_answers jsonb, derivation_version int)
       where ${targets.id} = d.id`);
   }

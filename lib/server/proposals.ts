@@ -1,5 +1,5 @@
 import "server-only";
-import { asc, count, desc, eq } from "drizzle-orm";
+import { asc, count, desc, eq, sum } from "drizzle-orm";
 import { dbClient } from "@/db/client";
 import { proposalMembers, proposals, targets, uploadedFiles, type Proposal } from "@/db/schema";
 import { SEASON_MAX_TARGETS } from "@/lib/astro/season";
@@ -16,6 +16,7 @@ import { authorize, loadAccess, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { changesDerivation, feasibilitySettingsOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
+import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
@@ -55,6 +56,7 @@ function detailOf(p: Proposal, { role, isAudit }: { role: ProposalRole; isAudit:
       horizonLimitDeg: p.siteHorizonLimitDeg,
     },
     instrument: instrumentSettingsOf(p),
+    photometry: storedPhotometrySettings(p.photometry),
     role,
     isAudit,
     permissions: permissionsFor(role),
@@ -80,6 +82,7 @@ function columnsOf(input: Partial<ProposalInput>) {
         }
       : {}),
     ...(input.instrument ? input.instrument : {}),
+    ...(input.photometry ? { photometry: input.photometry } : {}),
   };
 }
 
@@ -149,6 +152,7 @@ export async function updateProposal(params: unknown, input: unknown, actor: Act
         cycleStartDate: data.cycleStartDate === undefined ? current.cycleStartDate : data.cycleStartDate,
         cycleEndDate: data.cycleEndDate === undefined ? current.cycleEndDate : data.cycleEndDate,
         instrument: data.instrument ?? current.instrument,
+        photometry: data.photometry ?? current.photometry,
       }),
     );
     const [proposal] = await tx
@@ -188,6 +192,27 @@ export async function getProposalSky(params: unknown, actor: Actor | null): Prom
     db.select({ total: count() }).from(targets).where(eq(targets.proposalId, proposalId)),
   ]);
   return { proposal: detailOf(access.proposal, access), targets: rows, total };
+}
+
+/** The hours a proposal asks for: the sum over its targets' photon budgets, and how many targets have one. */
+export interface ProposalTimeRequest {
+  /** Σ of the targets' time requests (exposures and overheads over the visits each case needs), h. */
+  totalHours: number;
+  /** Targets with a photon budget (the rest lack an input it needs: aperture, source magnitude, cycle). */
+  budgetedTargets: number;
+  targetCount: number;
+}
+
+/** Any member: the proposal's time request, summed in SQL from the targets' stored budgets. */
+export async function getProposalTimeRequest(params: unknown, actor: Actor | null): Promise<ProposalTimeRequest> {
+  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
+  const { db } = dbClient();
+  await authorize(db, proposalId, requireActor(actor), "read", "proposal");
+  const [row] = await db
+    .select({ totalHours: sum(targets.timeRequestHours).mapWith(Number), budgetedTargets: count(targets.timeRequestHours), targetCount: count() })
+    .from(targets)
+    .where(eq(targets.proposalId, proposalId));
+  return { totalHours: row.totalHours ?? 0, budgetedTargets: row.budgetedTargets, targetCount: row.targetCount };
 }
 
 /** PI only; targets, notes, members and the feed go with it. */

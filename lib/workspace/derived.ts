@@ -12,16 +12,21 @@ import {
   type ScienceCaseId,
 } from "@/lib/lensing/science-cases";
 import type { LensSolution } from "@/lib/lensing/solution";
+import { targetPhotonBudget, type PhotonBudgetInputs, type PhotonBudgetOutcome } from "@/lib/lensing/photon-budget";
+import { photometryBandOf, psfShapeOf, siteSkyOf } from "@/lib/workspace/photometry-schema";
 import { observingSchedules, type ObservingSchedule, type ScheduleConditions } from "@/lib/schedule";
 import { skySiteOf, type ProposalInput } from "@/lib/workspace/proposal-schema";
 import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
+
+/** The band whose extinction the moonlit-sky model (V only) reads. */
+const V_BAND_ID = "jc-v";
 
 /**
  * The version of the rules the stored derived columns were computed with. Raise it with every change
  * of a lensing formula, a feasibility rule or the schedule: startup re-derives every older row, so no
  * stored verdict is ever stale.
  */
-export const DERIVATION_VERSION = 1;
+export const DERIVATION_VERSION = 2;
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -31,6 +36,9 @@ export interface DerivedColumns {
   timeDelayDays: number | null;
   crossingTimeDays: number | null;
   shadowDiameterMicroarcsec: number | null;
+  /** The photon budget: hours requested over the visits the case needs, and the S/N at the brightest of them; null without a budget. */
+  timeRequestHours: number | null;
+  peakSignalToNoise: number | null;
   /** The case the answers are for (chosen, else inferred); null when the hypothesis cannot be solved. */
   answeredCase: ScienceCaseId | null;
   /** The worst of the answers' verdicts ("unknown" when none is known). */
@@ -39,8 +47,11 @@ export interface DerivedColumns {
   derivationVersion: number;
 }
 
-/** What the derivation needs of a proposal: its instrument, site and cycle. */
-export type FeasibilitySettings = Pick<ProposalInput, "site" | "instrument" | "cycleStartDate" | "cycleEndDate">;
+/**
+ * What the derivation needs of a proposal: its instrument, site and cycle, and its photometry
+ * settings; null photometry (the lens bench, which has no camera) asks for no photon budget.
+ */
+export type FeasibilitySettings = Pick<ProposalInput, "site" | "instrument" | "cycleStartDate" | "cycleEndDate"> & { photometry: ProposalInput["photometry"] | null };
 
 /**
  * Distances from what the target gives: Galactic distances (then D_LS = D_S − D_L and z_L = 0, where
@@ -127,11 +138,55 @@ export interface TargetCase {
   reason: string | null;
 }
 
-/** A target's case and its answered questions. */
+/** A target's case, its photon budget and its answered questions. */
 export interface TargetCaseReport {
   solution: LensSolution;
   scienceCase: TargetCase;
+  photonBudget: PhotonBudgetOutcome;
   answers: CaseAnswer[];
+}
+
+/**
+ * What the photon budget needs of the proposal's photometry settings and the target's source, or the
+ * first missing input in words: the telescope's aperture, the source's magnitude, a described band
+ * and the site's sky in it.
+ */
+export function photonBudgetInputsOf(h: LensHypothesis, settings: FeasibilitySettings): PhotonBudgetInputs {
+  const p = settings.photometry;
+  if (p === null) return { notApplicable: true };
+  if (p.apertureM === null) return { missing: "Set the telescope's aperture in the proposal's photometry settings to compute the photon budget." };
+  if (h.sourceMagnitude == null) return { missing: "Set the source's magnitude (in the proposal's band, or name its band) to compute the photon budget." };
+  const bandId = h.sourceBand ?? p.bandId;
+  const band = photometryBandOf(p, bandId);
+  if (band === undefined) return { missing: "Set the proposal's own band in the photometry settings (the source's magnitude is given in it), or choose a built-in band for the source." };
+  const sky = siteSkyOf(p, bandId);
+  if (sky === null) return { missing: `Set the site's dark sky and extinction in ${band.label} in the photometry settings.` };
+  const visitExposureS = settings.instrument.visitMinutes * 60 - p.overheadS;
+  return {
+    setup: {
+      instrument: {
+        optics: { apertureM: p.apertureM, centralObstructionM: p.centralObstructionM, throughput: p.throughput },
+        readNoiseElectrons: p.readNoiseElectrons,
+        darkElectronsPerSPerPixel: p.darkElectronsPerSPerPixel,
+        gainElectronsPerAdu: p.gainElectronsPerAdu,
+        fullWellElectrons: p.fullWellElectrons,
+        pixelScaleArcsec: p.pixelScaleArcsec,
+        seeingFwhmZenithArcsec: p.seeingFwhmArcsec,
+        apertureRadiusFwhm: p.apertureRadiusFwhm,
+        psf: psfShapeOf(p.psfShape),
+        overheadS: p.overheadS,
+      },
+      sky: {
+        band,
+        darkSkyZenithMagPerArcsec2: sky.darkSkyMagPerArcsec2,
+        extinctionMagPerAirmass: sky.extinctionMagPerAirmass,
+        extinctionV: siteSkyOf(p, V_BAND_ID)!.extinctionMagPerAirmass,
+      },
+      signalToNoiseGoal: p.signalToNoiseGoal,
+      visitExposureS,
+    },
+    source: { sourceMagnitude: h.sourceMagnitude, blendFraction: h.blendFraction ?? 1 },
+  };
 }
 
 /** The case and answers of a solvable hypothesis under the proposal's settings and the target's schedule. */
@@ -141,14 +196,17 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
   const instrument = caseInstrumentOf(settings.instrument);
   const inferred = h.scienceCase == null ? defaultScienceCase(solution, instrument) : null;
   const scienceCase: TargetCase = inferred === null ? { caseId: h.scienceCase!, isChosen: true, reason: null } : { caseId: inferred.caseId, isChosen: false, reason: inferred.reason };
+  const event = eventTimingOf(h, solution, geometry);
+  const photonBudget = targetPhotonBudget({ caseId: scienceCase.caseId, solution, event, schedule, inputs: photonBudgetInputsOf(h, settings) });
   const answers = scienceCaseQuestions(scienceCase.caseId, {
     solution,
-    event: eventTimingOf(h, solution, geometry),
+    event,
     instrument,
     schedule,
     campaign: { lengthDays: settings.instrument.campaignLengthDays, cadenceHours: settings.instrument.cadenceHours },
+    photonBudget,
   });
-  return { solution, scienceCase, answers };
+  return { solution, scienceCase, photonBudget, answers };
 }
 
 /** The derived columns of a hypothesis without a solution (incomplete, or outside today's ranges). */
@@ -159,6 +217,8 @@ export const unsolvedColumns: Omit<DerivedColumns, "derivationVersion"> = {
   timeDelayDays: null,
   crossingTimeDays: null,
   shadowDiameterMicroarcsec: null,
+  timeRequestHours: null,
+  peakSignalToNoise: null,
   answeredCase: null,
   caseVerdict: "unknown",
   caseAnswers: [],
@@ -172,7 +232,8 @@ export const unsolvedColumns: Omit<DerivedColumns, "derivationVersion"> = {
 export function deriveTargetColumns(h: LensHypothesis, settings: FeasibilitySettings, schedule: ObservingSchedule | null): DerivedColumns {
   const report = targetCaseReport(h, settings, schedule);
   if (report === null) return { ...unsolvedColumns, derivationVersion: DERIVATION_VERSION };
-  const { solution, answers } = report;
+  const { solution, answers, photonBudget } = report;
+  const budget = "budget" in photonBudget && photonBudget.budget.brightestVisit >= 0 ? photonBudget.budget : null;
   return {
     einsteinRadiusMas: solution.einsteinRadiusRad / MILLIARCSECOND_RAD,
     imageSeparationMas: solution.imageSeparationRad === null ? null : solution.imageSeparationRad / MILLIARCSECOND_RAD,
@@ -180,6 +241,8 @@ export function deriveTargetColumns(h: LensHypothesis, settings: FeasibilitySett
     timeDelayDays: perDay(solution.timeDelayS),
     crossingTimeDays: perDay(solution.einsteinTimeS),
     shadowDiameterMicroarcsec: solution.shadowDiameterRad === null ? null : solution.shadowDiameterRad / MICROARCSECOND_RAD,
+    timeRequestHours: budget === null ? null : budget.timeRequestHours,
+    peakSignalToNoise: budget === null ? null : budget.series.signalToNoise[budget.brightestVisit],
     answeredCase: report.scienceCase.caseId,
     caseVerdict: caseVerdictOf(answers.map((answer) => answer.verdict)),
     caseAnswers: answers,

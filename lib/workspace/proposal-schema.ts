@@ -5,6 +5,7 @@ import { nightDateSchema, type SkySiteInput } from "@/lib/astro/inputs";
 import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
 import { addDaysIso } from "@/lib/astro/time";
 import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { photometrySettingsErrors, photometrySettingsSchema, type PhotometrySettings } from "@/lib/workspace/photometry-schema";
 
 /**
  * The proposal's quantities: each a number in its stored unit (API clients) or typed text with a
@@ -208,6 +209,8 @@ const proposalFields = {
   cycleEndDate: cycleDateSchema,
   site: siteSchema,
   instrument: instrumentSchema,
+  /** The photon budget's telescope, detector, band and site sky. */
+  photometry: photometrySettingsSchema,
 };
 
 export const proposalSchema = z.object({
@@ -215,6 +218,7 @@ export const proposalSchema = z.object({
   abstract: proposalFields.abstract.default(""),
   cycleStartDate: cycleDateSchema.default(null),
   cycleEndDate: cycleDateSchema.default(null),
+  photometry: photometrySettingsSchema.prefault({}),
 });
 
 export type ProposalInput = z.infer<typeof proposalSchema>;
@@ -237,10 +241,19 @@ export function cycleNightCount(startIso: string, endIso: string): number {
 /**
  * The checks across fields, on the proposal as it will be stored: cycle dates both or neither, in
  * order and at most `SEASON_MAX_NIGHTS` nights long (what the season view computes); wavelength and
- * baseline both or neither. Empty when all hold.
+ * baseline both or neither; the photometry's own (`photometrySettingsErrors`). Empty when all hold.
  */
-export function proposalSettingsErrors(p: Pick<ProposalInput, "cycleStartDate" | "cycleEndDate"> & { instrument: Pick<InstrumentSettings, "interferometerWavelengthMm" | "interferometerBaselineKm"> }): FieldErrors {
-  const fields: FieldErrors = {};
+export function proposalSettingsErrors(
+  p: Pick<ProposalInput, "cycleStartDate" | "cycleEndDate"> & {
+    instrument: Pick<InstrumentSettings, "interferometerWavelengthMm" | "interferometerBaselineKm" | "visitMinutes">;
+    /** Null where there is no camera (the lens bench). */
+    photometry: PhotometrySettings | null;
+  },
+): FieldErrors {
+  const fields: FieldErrors = p.photometry === null ? {} : photometrySettingsErrors(p.photometry);
+  if (p.photometry !== null && p.photometry.overheadS >= p.instrument.visitMinutes * 60) {
+    fields["photometry.overheadS"] = [`The overhead per visit must be shorter than the time per visit (${p.instrument.visitMinutes} min), or no time is left to expose.`];
+  }
   const { cycleStartDate: start, cycleEndDate: end } = p;
   if ((start === null) !== (end === null)) {
     fields[start === null ? "cycleStartDate" : "cycleEndDate"] = ["Give both the first and the last night of the cycle, or neither."];

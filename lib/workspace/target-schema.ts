@@ -11,6 +11,7 @@ import { isothermalSphereModel } from "@/lib/lensing/models/isothermal-sphere";
 import { pointMassModel } from "@/lib/lensing/models/point-mass";
 import { lensModelIds, lensModelLabels, lensModelOf, usesParameter, type LensModelId } from "@/lib/lensing/registry";
 import type { LensParameter } from "@/lib/lensing/lens-model";
+import { photometryBandIds } from "@/lib/workspace/photometry-schema";
 
 /** The lens models of the registry (`lib/lensing/registry.ts`): ids, labels. */
 export const lensModels = lensModelIds;
@@ -126,6 +127,21 @@ export const targetQuantities = {
     range: { min: 0, max: 1 },
     rangeMessage: "The linear limb-darkening coefficient is from 0 (a uniform disk) to 1.",
   },
+  // Magnitudes from the brightest stars to the faintest a large telescope reaches, with room (our rule).
+  sourceMagnitude: {
+    label: "Source magnitude",
+    kind: "number",
+    example: "19.5",
+    range: { min: -5, max: 35 },
+    rangeMessage: "The source magnitude is from -5 to 35 (in the band's own system).",
+  },
+  blendFraction: {
+    label: "Blend fraction f_s",
+    kind: "number",
+    example: "0.6",
+    range: { min: 0.001, max: 1 },
+    rangeMessage: "The blend fraction f_s (the lensed source's share of the baseline flux) is from 0.001 to 1 (no blended light).",
+  },
   priority: {
     label: "Priority",
     kind: "number",
@@ -174,6 +190,9 @@ export const targetFieldsSchema = z.object({
   sourceRadiusSolar: optionalQuantityField(targetQuantities.sourceRadiusSolar),
   sourceRadiusThetaE: optionalQuantityField(targetQuantities.sourceRadiusThetaE),
   limbDarkeningU: optionalQuantityField(targetQuantities.limbDarkeningU),
+  sourceMagnitude: optionalQuantityField(targetQuantities.sourceMagnitude),
+  sourceBand: z.enum(photometryBandIds, { error: "The source's band is one of the built-in bands or the proposal's own; leave it empty for the proposal's band." }).nullable().optional(),
+  blendFraction: optionalQuantityField(targetQuantities.blendFraction),
   priority: quantityField(targetQuantities.priority),
   status: z.enum(targetStatuses, { error: `The status is one of ${targetStatuses.join(", ")}.` }),
   tags: z.array(tagSchema, { error: "Tags are a list of words." }).max(12, "At most 12 tags."),
@@ -205,6 +224,9 @@ export const lensHypothesisSchema = targetFieldsSchema.pick({
   sourceRadiusSolar: true,
   sourceRadiusThetaE: true,
   limbDarkeningU: true,
+  sourceMagnitude: true,
+  sourceBand: true,
+  blendFraction: true,
 });
 
 /** The part of a target that its derived columns are computed from. */
@@ -224,6 +246,9 @@ export type LensHypothesis = Pick<
   | "sourceRadiusSolar"
   | "sourceRadiusThetaE"
   | "limbDarkeningU"
+  | "sourceMagnitude"
+  | "sourceBand"
+  | "blendFraction"
 >;
 
 const present = (value: number | null | undefined): value is number => value !== null && value !== undefined;

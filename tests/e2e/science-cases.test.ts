@@ -45,7 +45,8 @@ describe("the demo proposal answered by science case", () => {
 
     // The same target opened in the lens bench: the bench grades it with the same code, from the same
     // inputs, site and cycle (its schedule computed in a worker), so every answer reads the same.
-    const onTarget = await page.getByTestId("case-answers").locator("li").evaluateAll((items) =>
+    // The depth question is the proposal's own (its camera); the bench, which has none, does not ask it.
+    const onTarget = await page.getByTestId("case-answers").locator("li:not([data-testid='case-answer-depth'])").evaluateAll((items) =>
       items.map((item) => [item.getAttribute("data-testid"), item.getAttribute("data-verdict"), item.querySelector('[data-testid="case-answer-sentence"]')?.textContent]),
     );
     await page.getByRole("link", { name: "Open in the lens bench" }).click();

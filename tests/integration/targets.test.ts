@@ -1,3 +1,4 @@
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { afterAll, describe, expect, it, vi } from "vitest";
 
 vi.mock("server-only", () => ({}));
@@ -14,7 +15,7 @@ import { createTarget, listTargets, updateTarget } from "@/lib/server/targets";
 import { createWorld, pointTargetInput, proposalInput } from "./support/world";
 
 /** The world's proposal as the derivation reads it (no cycle dates: no schedule). */
-const worldSettings: FeasibilitySettings = { site: proposalInput.site, instrument: instrumentSchema.parse(proposalInput.instrument), cycleStartDate: null, cycleEndDate: null };
+const worldSettings: FeasibilitySettings = { site: proposalInput.site, instrument: instrumentSchema.parse(proposalInput.instrument), photometry: defaultPhotometrySettings, cycleStartDate: null, cycleEndDate: null };
 
 afterAll(async () => {
   await dbClient().sql.end();

@@ -9,7 +9,8 @@ import { initialTargetSorting, targetPageSize } from "@/components/workspace/tar
 import { roleLabels } from "@/lib/workspace/roles";
 import { listMembers } from "@/lib/server/members";
 import { loadForPage } from "@/lib/server/page-access";
-import { getProposal } from "@/lib/server/proposals";
+import { getProposal, getProposalTimeRequest } from "@/lib/server/proposals";
+import { formatQuantity } from "@/components/workspace/format";
 import { listTargets } from "@/lib/server/targets";
 
 export const metadata: Metadata = { title: "Proposal" };
@@ -17,14 +18,16 @@ export const metadata: Metadata = { title: "Proposal" };
 export default async function ProposalPage({ params }: { params: Promise<{ proposalId: string }> }) {
   const { proposalId } = await params;
   const sort = initialTargetSorting[0];
-  const { proposal, targets, members } = await loadForPage(`/proposals/${proposalId}`, async (actor) => {
+  const { proposal, targets, members, timeRequest } = await loadForPage(`/proposals/${proposalId}`, async (actor) => {
     const proposal = await getProposal({ proposalId }, actor);
-    const [targets, members] = await Promise.all([
+    const [targets, members, timeRequest] = await Promise.all([
       listTargets({ proposalId }, { sort: sort.id, direction: sort.desc ? "desc" : "asc", page: 1, pageSize: targetPageSize }, actor),
       listMembers({ proposalId }, actor),
+      getProposalTimeRequest({ proposalId }, actor),
     ]);
-    return { proposal, targets, members };
+    return { proposal, targets, members, timeRequest };
   });
+  const unbudgeted = timeRequest.targetCount - timeRequest.budgetedTargets;
   const { site, instrument, permissions } = proposal;
   return (
     <div className="space-y-8">
@@ -73,6 +76,15 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
               {instrument.interferometerWavelengthMm !== null && instrument.interferometerBaselineKm !== null
                 ? ` · λ ${instrument.interferometerWavelengthMm} mm, B ${instrument.interferometerBaselineKm} km`
                 : ""}
+            </dd>
+          </div>
+          <div>
+            <dt className="inline text-dusk-dim">Time requested </dt>
+            <dd className="inline" data-testid="time-request">
+              {timeRequest.budgetedTargets === 0
+                ? "no photon budget yet: give the telescope aperture in the proposal settings and each target's source magnitude"
+                : `${formatQuantity(timeRequest.totalHours, 3)} h (exposures and overheads over the visits each case needs) for ${timeRequest.budgetedTargets} of ${timeRequest.targetCount} targets`}
+              {timeRequest.budgetedTargets > 0 && unbudgeted > 0 ? `; ${unbudgeted} without a photon budget (see each target's depth answer)` : ""}
             </dd>
           </div>
         </dl>

@@ -1,8 +1,9 @@
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { describe, expect, it } from "vitest";
 import { currentNightIso } from "@/lib/astro/time";
 import { cycleNightCount, proposalSettingsErrors } from "@/lib/workspace/proposal-schema";
 
-const noInterferometer = { interferometerWavelengthMm: null, interferometerBaselineKm: null };
+const noInterferometer = { interferometerWavelengthMm: null, interferometerBaselineKm: null, visitMinutes: 20 };
 
 describe("cycle nights", () => {
   it("counts nights inclusively across month ends (proleptic Gregorian calendar)", () => {
@@ -14,10 +15,10 @@ describe("cycle nights", () => {
 
   it("refuses a cycle longer than the season view computes", () => {
     // 2031-01-01 + 399 days = 2032-02-04 (365 days to 2032-01-01, then 34): the 400th night.
-    expect(proposalSettingsErrors({ cycleStartDate: "2031-01-01", cycleEndDate: "2032-02-05", instrument: noInterferometer })).toEqual({
+    expect(proposalSettingsErrors({ cycleStartDate: "2031-01-01", cycleEndDate: "2032-02-05", instrument: noInterferometer, photometry: defaultPhotometrySettings })).toEqual({
       cycleEndDate: ["The cycle is at most 400 nights (last night 2032-02-04 at the latest)."],
     });
-    expect(proposalSettingsErrors({ cycleStartDate: "2031-01-01", cycleEndDate: "2032-02-04", instrument: noInterferometer })).toEqual({});
+    expect(proposalSettingsErrors({ cycleStartDate: "2031-01-01", cycleEndDate: "2032-02-04", instrument: noInterferometer, photometry: defaultPhotometrySettings })).toEqual({});
   });
 });
 

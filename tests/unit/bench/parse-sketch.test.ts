@@ -31,6 +31,7 @@ describe("parseSketch", () => {
         astrometricPrecisionMas: null,
         reachableContrast: null,
       },
+      photometry: null,
     });
     // 2027-07-10 00:00 UTC is JD 2461596.5 (JD 2451545.0 is 2000-01-01 12:00 UTC, plus 10050.5 days).
     expect(parsed.inputs.event).toEqual({ raDeg: expect.closeTo(269.30166666666667, 12), decDeg: expect.closeTo(-29.201388888888889, 12), scienceCase: null, eventPeakJdUtc: 2461596.5, sourceRadiusSolar: 1, sourceRadiusThetaE: null, limbDarkeningU: null });

@@ -25,34 +25,41 @@ const camera = {
   reachableContrast: null,
 };
 
-/** Proposals: each instrument and observing constraint appears set and unset somewhere; one has no cycle. */
+/**
+ * Proposals: each instrument and observing constraint appears set and unset somewhere; one has no
+ * cycle. No photometry: the bench has no camera, so bench and proposal are compared without a photon budget.
+ */
 export const proposals: FeasibilitySettings[] = [
-  { site: southernRidge, cycleStartDate: "2027-06-01", cycleEndDate: "2027-07-15", instrument: camera },
+  { site: southernRidge, cycleStartDate: "2027-06-01", cycleEndDate: "2027-07-15", instrument: camera, photometry: null },
   {
     site: southernRidge,
     cycleStartDate: "2027-02-01",
     cycleEndDate: "2027-03-17",
     instrument: { ...camera, resolutionMas: 0.6, cadenceHours: 6, campaignLengthDays: 30, astrometricPrecisionMas: 0.05, reachableContrast: 100, moonMaxIllumination: 0.6, clearNightFraction: 0.7 },
+    photometry: null,
   },
   {
     site: northernPeak,
     cycleStartDate: "2027-09-10",
     cycleEndDate: "2027-10-24",
     instrument: { ...camera, resolutionMas: 25, cadenceHours: 72, campaignLengthDays: 365, visitMinutes: 45, airmassLimit: 1.5, moonMinSeparationDeg: null, reachableContrast: 30 },
+    photometry: null,
   },
   {
     site: northernPeak,
     cycleStartDate: "2027-04-01",
     cycleEndDate: "2027-05-15",
     instrument: { ...camera, resolutionMas: 1000, interferometerWavelengthMm: 1.3, interferometerBaselineKm: 10700, astrometricPrecisionMas: 0.005, cadenceHours: 12, campaignLengthDays: 45 },
+    photometry: null,
   },
   {
     site: southernRidge,
     cycleStartDate: "2027-08-01",
     cycleEndDate: "2027-09-14",
     instrument: { ...camera, resolutionMas: 0.05, interferometerWavelengthMm: 0.0022, interferometerBaselineKm: 0.13, astrometricPrecisionMas: 0.2, reachableContrast: 1000, visitMinutes: 10, clearNightFraction: 0.5 },
+    photometry: null,
   },
-  { site: northernPeak, cycleStartDate: null, cycleEndDate: null, instrument: { ...camera, resolutionMas: 80, astrometricPrecisionMas: 0.1 } },
+  { site: northernPeak, cycleStartDate: null, cycleEndDate: null, instrument: { ...camera, resolutionMas: 80, astrometricPrecisionMas: 0.1 }, photometry: null },
 ];
 
 /** Target positions (ICRS degrees): the Galactic bulge, and fields up at other times of the year. */

@@ -1,3 +1,4 @@
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
@@ -131,6 +132,7 @@ describe("the stored columns are the model's solution", () => {
   const settings: FeasibilitySettings = {
     site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 },
     instrument: instrumentSchema.parse({ resolutionMas: 1, cadenceHours: 24, campaignLengthDays: 90 }),
+    photometry: defaultPhotometrySettings,
     cycleStartDate: null,
     cycleEndDate: null,
   };

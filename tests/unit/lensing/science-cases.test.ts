@@ -146,6 +146,13 @@ function nightlySchedule(options: NightlyScheduleOptions): ObservingSchedule {
     gaps,
     visitsJdUtc: Float64Array.from(visits),
     visitLengthDays: 20 / 1440,
+    visitSky: {
+      airmass: new Float32Array(visits.length).fill(1),
+      targetZenithDeg: new Float32Array(visits.length),
+      moonZenithDeg: new Float32Array(visits.length).fill(180),
+      moonSeparationDeg: new Float32Array(visits.length).fill(180),
+      moonPhaseAngleDeg: new Float32Array(visits.length).fill(180),
+    },
     seasons: season,
     usableHoursPerNight: new Float32Array(nights),
     weeklyUsableHours: new Float32Array(Math.ceil(nights / 7)),
@@ -172,6 +179,7 @@ function bulgeInputs(overrides: Partial<ScienceCaseInputs> = {}, event: Partial<
     instrument: { ...noInstrument, psfFwhmMas: 100 },
     schedule: bulgeSchedule,
     campaign: { lengthDays: 120, cadenceHours: 2 },
+    photonBudget: { notApplicable: true },
     ...overrides,
   };
 }

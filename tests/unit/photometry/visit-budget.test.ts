@@ -177,7 +177,9 @@ describe("visitPhotometrySeries", () => {
     visits.moonPhaseAngleDeg[i] = ((i * 17.9) % 360) - 180;
     magnitudes[i] = 8 + (i * 0.0671) % 16;
   }
-  const common = { instrument: endToEnd.instrument, sky: endToEnd.sky, exposureS: 120, signalToNoiseGoal: 50 };
+  // A goal no 120 s exposure reaches: every visit then exposes the whole 120 s, so the full well's
+  // verdict varies with the magnitude (a visit that reaches its goal exposes for less, see below).
+  const common = { instrument: endToEnd.instrument, sky: endToEnd.sky, exposureS: 120, signalToNoiseGoal: 1e5 };
   const series = visitPhotometrySeries({ ...common, visits, magnitudes });
 
   it("equals visitPhotometry visit by visit (to float32), saturation verdicts included", () => {
@@ -207,7 +209,7 @@ describe("visitPhotometrySeries", () => {
   it("decides saturation right next to the full well, where only the quadrature can", () => {
     // The well fills as a 10^(−0.4 m) + b (b: sky and dark); find the magnitude at which it just
     // fills, then step 1e-4 mag either side.
-    const at = (magnitude: number) => visitPhotometry({ ...endToEnd, magnitude });
+    const at = (magnitude: number) => visitPhotometry({ ...endToEnd, signalToNoiseGoal: 1e5, magnitude });
     const b = at(60).peakPixelFullWellFraction;
     const a = at(endToEnd.magnitude).peakPixelFullWellFraction - b;
     const threshold = endToEnd.magnitude - 2.5 * Math.log10((1 - b) / a);
@@ -216,6 +218,14 @@ describe("visitPhotometrySeries", () => {
     const result = visitPhotometrySeries({ ...common, instrument: endToEnd.instrument, visits: two, magnitudes: near });
     expect([...result.saturated]).toEqual([at(near[0]).isSaturated ? 1 : 0, at(near[1]).isSaturated ? 1 : 0]);
     expect([...result.saturated]).toEqual([1, 0]);
+  });
+
+  it("fills the well only over the exposure that reaches the goal: a bright source exposes for less", () => {
+    const capped = visitPhotometry({ ...endToEnd, signalToNoiseGoal: 1e5 });
+    const goalDriven = visitPhotometry(endToEnd);
+    expect(goalDriven.exposureForGoalS).toBeLessThan(endToEnd.exposureS);
+    // The well fills in proportion to the exposure used: the goal's, not the whole 120 s.
+    expect(goalDriven.peakPixelFullWellFraction / capped.peakPixelFullWellFraction).toBeCloseTo(goalDriven.exposureForGoalS / endToEnd.exposureS, 12);
   });
 
   it("refuses arrays of different lengths and names the bad visit, counted from 1", () => {

@@ -4,13 +4,14 @@ import { demoCycle, demoInterferometer } from "@/db/seed/demo-sky-cycle";
 import { deriveTargetColumns, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 
 /**
  * The demo scenario's answers, as the seed stores them: every demo target has a case, and some fail
  * for a real reason a review panel would accept (issue 16 item 6).
  */
 function answersOf(proposal: typeof demoProposal | typeof demoShadowProposal, list: DemoTarget[]) {
-  const settings: FeasibilitySettings = { site: proposal.site, instrument: instrumentSchema.parse({ ...proposal.instrument, ...demoInterferometer }), ...demoCycle };
+  const settings: FeasibilitySettings = { site: proposal.site, instrument: instrumentSchema.parse({ ...proposal.instrument, ...demoInterferometer }), photometry: defaultPhotometrySettings, ...demoCycle };
   const rows = list.map((t) => ({ ...t, raDeg: parseRightAscensionDeg(t.ra), decDeg: parseDeclinationDeg(t.dec) }));
   const schedules = targetSchedules(settings, rows);
   return new Map(rows.map((row, index) => [row.name, deriveTargetColumns(row, settings, schedules[index])]));

@@ -1,3 +1,4 @@
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { describe, expect, it } from "vitest";
 import { DERIVATION_VERSION, deriveTargetColumns, targetCaseReport, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
@@ -7,6 +8,7 @@ import { parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
 const southern: FeasibilitySettings = {
   site: { name: "Test ridge", latitudeDeg: -30.2, longitudeDeg: -70.7, elevationM: 2200, horizonLimitDeg: 20 },
   instrument: instrumentSchema.parse({ resolutionMas: 50, cadenceHours: 4, campaignLengthDays: 90 }),
+  photometry: defaultPhotometrySettings,
   cycleStartDate: "2031-02-01",
   cycleEndDate: "2031-08-02",
 };

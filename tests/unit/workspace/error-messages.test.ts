@@ -18,6 +18,7 @@ import * as ids from "@/lib/workspace/ids";
 import * as members from "@/lib/workspace/member-schema";
 import * as notes from "@/lib/workspace/note-schema";
 import * as proposals from "@/lib/workspace/proposal-schema";
+import * as photometry from "@/lib/workspace/photometry-schema";
 import * as targetQuery from "@/lib/workspace/target-query";
 import * as targets from "@/lib/workspace/target-schema";
 
@@ -66,6 +67,34 @@ const fieldWords: Record<string, RegExp> = {
   sourceRadiusSolar: /source radius/i,
   sourceRadiusThetaE: /source radius|ρ/i,
   limbDarkeningU: /limb.darkening/i,
+  sourceMagnitude: /source magnitude/i,
+  sourceBand: /band/i,
+  blendFraction: /blend fraction/i,
+  photometry: /photometry/i,
+  apertureM: /telescope aperture/i,
+  centralObstructionM: /central obstruction/i,
+  throughput: /throughput/i,
+  readNoiseElectrons: /read noise/i,
+  darkElectronsPerSPerPixel: /dark current/i,
+  gainElectronsPerAdu: /gain/i,
+  fullWellElectrons: /full well/i,
+  pixelScaleArcsec: /pixel scale/i,
+  seeingFwhmArcsec: /seeing/i,
+  apertureRadiusFwhm: /aperture radius/i,
+  psfShape: /PSF/,
+  overheadS: /overhead/i,
+  signalToNoiseGoal: /signal-to-noise/i,
+  bandId: /band/i,
+  customBand: /band/i,
+  skyByBand: /band|site values/i,
+  darkSkyMagPerArcsec2: /dark.sky/i,
+  extinctionMagPerAirmass: /extinction/i,
+  label: /band name/i,
+  effectiveWavelengthNm: /wavelength/i,
+  widthNm: /band width/i,
+  zeroPointWPerM2PerNm: /zero point/i,
+  zeroPointSystem: /magnitude system/i,
+  abMinusVegaMag: /AB − Vega/i,
   moonMinSeparationDeg: /moon separation/i,
   moonMaxIllumination: /moon illumination/i,
   visitMinutes: /time per visit/i,
@@ -198,6 +227,7 @@ const parsedByParseOrThrow: Record<string, z.ZodType> = {
   instrumentSchema: proposals.instrumentSchema,
   createProposalSchema: proposals.createProposalSchema,
   updateProposalSchema: proposals.updateProposalSchema,
+  photometrySettingsSchema: photometry.photometrySettingsSchema,
   membershipSchema: members.membershipSchema,
   changeRoleSchema: members.changeRoleSchema,
   createInvitationSchema: members.createInvitationSchema,
@@ -311,6 +341,7 @@ describe("the walk covers every schema of the product", () => {
   const walked = new Set([
     "lib/workspace/target-schema.ts",
     "lib/workspace/proposal-schema.ts",
+    "lib/workspace/photometry-schema.ts",
     "lib/workspace/member-schema.ts",
     "lib/workspace/note-schema.ts",
     "lib/workspace/admin-schema.ts",

@@ -1,3 +1,4 @@
+import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { computeResults } from "@/lib/bench/compute-results";
@@ -28,7 +29,7 @@ const sisByDistance = { lensModel: "sis", velocityDispersionKmPerS: 250, lensDis
 const numericTargetFields = ["lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU"] as const;
 const instrument = instrumentSchema.parse({ resolutionMas: 0.025, cadenceHours: 24, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100 });
 /** Settings without cycle dates: no schedule, so these tests exercise the lensing and its rules alone. */
-const settings = (i: typeof instrument) => ({ site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 }, instrument: i, cycleStartDate: null, cycleEndDate: null });
+const settings = (i: typeof instrument) => ({ site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 }, instrument: i, photometry: defaultPhotometrySettings, cycleStartDate: null, cycleEndDate: null });
 
 /** No answer's words may show a number that is not one. */
 const expectWordsFinite = (answers: { figure: string; sentence: string }[], context: string) => {

@@ -4,6 +4,7 @@ import { ConfirmDelete } from "@/components/workspace/confirm-delete";
 import { TargetNightPanel } from "@/components/sky/target-night-panel";
 import { formatQuantity, formatWithUnit } from "@/components/workspace/format";
 import { CaseAnswers } from "@/components/workspace/case-answers";
+import { PhotonBudgetPanel } from "@/components/workspace/photon-budget-panel";
 import { TargetEditForm } from "@/components/workspace/target-edit-form";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
@@ -17,6 +18,7 @@ import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
 import { angleWords, numberWords } from "@/lib/lensing/science-case-words";
 import { skySiteOf } from "@/lib/workspace/proposal-schema";
+import { photometryBandOf } from "@/lib/workspace/photometry-schema";
 import { statusLabels } from "@/lib/workspace/status";
 import { lensModelLabels } from "@/lib/workspace/target-schema";
 import { listNotes } from "@/lib/server/notes";
@@ -81,6 +83,13 @@ export default async function TargetPage({
           : "— (a point source)",
     ],
     ["Limb darkening", target.limbDarkeningU == null ? "— (a uniform disk)" : formatQuantity(target.limbDarkeningU)],
+    [
+      "Source magnitude",
+      target.sourceMagnitude == null
+        ? "— (needed for the photon budget)"
+        : `${formatQuantity(target.sourceMagnitude)} in ${photometryBandOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId)?.label ?? "the proposal's own band (not described yet)"}`,
+    ],
+    ["Blend fraction f_s", target.blendFraction == null ? "1 (no blended light)" : formatQuantity(target.blendFraction)],
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
   ];
@@ -191,6 +200,7 @@ export default async function TargetPage({
           </>
         )}
       </section>
+      {report !== null && <PhotonBudgetPanel outcome={report.photonBudget} />}
       <ScheduleTimeline schedule={schedule} caseId={report?.scienceCase.caseId ?? null} solution={report?.solution ?? null} event={event} />
       <TargetNightPanel
         site={site}

@@ -1,0 +1,250 @@
+/**
+ * A target's photon budget: the signal-to-noise of what its science case measures at each planned
+ * visit, under that visit's air mass, seeing and Moon, and the hours the visits ask for. The lensing
+ * layer says what is measured and how bright it is at each visit; the photometry layer
+ * (lib/photometry) turns that magnitude into electrons, sky, noise and exposure time.
+ *
+ * What is measured, by case (our rule):
+ * - the microlensing cases: the source and its blend, A(t) f_s + (1 − f_s) times the baseline flux
+ *   (the standard blending model), A(t) of the source's disk along u(t)² = u0² + ((t − t0)/t_E)²;
+ *   the visits the case needs are those in t0 ± t_E (the event-visits question's span). Without t0
+ *   the event cannot be placed, so every planned visit is graded at the peak brightness;
+ * - resolved images and time delays: the fainter primary image alone, |μ| times the source's flux
+ *   (blended light is not added: the images are measured apart from the lens's light), at every
+ *   planned visit;
+ * - horizon-scale imaging has no budget here (an interferometer's sensitivity is not a CCD's).
+ * Each visit's exposure is what reaches the S/N goal, at most the time the visit leaves after its
+ * overhead; the time request sums exposure and overhead over the visits the case needs.
+ */
+import { DAY_S } from "@/lib/physics/constants";
+import { baselineMagnitude, magnifiedBlendMagnitude } from "@/lib/photometry/source-flux";
+import {
+  centroidPrecisionMas,
+  visitPhotometry,
+  visitPhotometrySeries,
+  type BandSky,
+  type PhotometryInstrument,
+  type VisitPhotometry,
+  type VisitPhotometrySeries,
+  type VisitSkyConditions,
+} from "@/lib/photometry/visit-budget";
+import type { ObservingSchedule, VisitSky } from "@/lib/schedule/types";
+import { eventMagnificationAtOffset } from "./microlensing";
+import { firstVisitFrom } from "./science-case-schedule";
+import type { EventTiming, ScienceCaseId } from "./science-cases";
+import type { LensSolution } from "./solution";
+
+/** What the proposal's photometry settings give the budget. */
+export interface PhotonBudgetSetup {
+  instrument: PhotometryInstrument;
+  sky: BandSky;
+  signalToNoiseGoal: number;
+  /** Time a visit leaves for exposing: its length minus the overhead, s (> 0). */
+  visitExposureS: number;
+}
+
+/** The target's source: its own magnitude in the band (unmagnified, no blend) and its share f_s of the baseline flux. */
+export interface SourceBrightness {
+  sourceMagnitude: number;
+  blendFraction: number;
+}
+
+/** The budget's inputs, the missing one named in words, or none asked for (a lens bench without a camera). */
+export type PhotonBudgetInputs = { setup: PhotonBudgetSetup; source: SourceBrightness } | { missing: string } | { notApplicable: true };
+
+/** Which light the budget measures (see the module comment). */
+export type MeasuredLight = "blended-source" | "fainter-image";
+
+export interface TargetPhotonBudget {
+  measured: MeasuredLight;
+  bandLabel: string;
+  signalToNoiseGoal: number;
+  visitExposureS: number;
+  overheadS: number;
+  /** Start times of the visits the case needs (JD UTC), ascending, and each one's magnitude above the atmosphere. */
+  visitsJdUtc: Float64Array;
+  magnitudes: Float64Array;
+  /** Each visit's sky (views into the schedule's arrays). */
+  visitSky: VisitSky;
+  /** Per visit: S/N in the whole exposure available, the exposure that reaches the goal, saturation, sky. */
+  series: VisitPhotometrySeries;
+  /** The visit with the lowest S/N in the time available, and the one with the brightest light; −1 without visits. */
+  worstVisit: number;
+  brightestVisit: number;
+  /** Σ (exposure used + overhead) over the visits, h. Exposure used: the goal's, at most the time available. */
+  timeRequestHours: number;
+  /** Visits on which the goal is not reached in the time available. */
+  shortVisits: number;
+  /** Visits whose exposure saturates the brightest pixel. */
+  saturatedVisits: number;
+  /** Baseline (unmagnified blend) and peak at the conditions of the visit nearest the peak; null for the image cases or without visits. */
+  baseline: VisitPhotometry | null;
+  peak: VisitPhotometry | null;
+  /** Photon-limited centroid precision at the worst visit, mas; astrometric microlensing only. */
+  worstCentroidPrecisionMas: number | null;
+}
+
+/** The budget's answer: a budget, or why there is none (a missing input, a case without one). */
+export type PhotonBudgetOutcome = { budget: TargetPhotonBudget } | { missing: string } | { notApplicable: true };
+
+const NO_SCHEDULE = "Set the proposal's cycle dates to plan the visits the photon budget is computed for.";
+
+/** Visits whose start lies in [startJdUtc, endJdUtc]: the index range [from, to). */
+function visitRange(visitsJdUtc: Float64Array, startJdUtc: number, endJdUtc: number): { from: number; to: number } {
+  const from = firstVisitFrom(visitsJdUtc, startJdUtc);
+  let to = firstVisitFrom(visitsJdUtc, endJdUtc);
+  while (to < visitsJdUtc.length && visitsJdUtc[to] <= endJdUtc) to++;
+  return { from, to };
+}
+
+function skyAt(sky: VisitSky, index: number): VisitSkyConditions {
+  return {
+    airmass: sky.airmass[index],
+    targetZenithDeg: sky.targetZenithDeg[index],
+    moonZenithDeg: sky.moonZenithDeg[index],
+    moonSeparationDeg: sky.moonSeparationDeg[index],
+    moonPhaseAngleDeg: sky.moonPhaseAngleDeg[index],
+  };
+}
+
+function slice<T extends Float32Array | Float64Array>(array: T, from: number, to: number): T {
+  return array.subarray(from, to) as T;
+}
+
+/** Magnitude of the blend at each visit: the source's disk magnified along the event, or at its peak when t0 is unknown. */
+function blendedMagnitudes(visitsJdUtc: Float64Array, source: SourceBrightness, event: EventTiming, einsteinTimeDays: number | null): Float64Array {
+  const base = baselineMagnitude(source.sourceMagnitude, source.blendFraction);
+  const u0 = event.impactParameterThetaE ?? 0;
+  const magnitudes = new Float64Array(visitsJdUtc.length);
+  const peakKnown = event.peakJdUtc !== null && einsteinTimeDays !== null;
+  const peakMag = magnifiedBlendMagnitude(base, eventMagnificationAtOffset(u0, event), source.blendFraction);
+  for (let i = 0; i < visitsJdUtc.length; i++) {
+    if (!peakKnown) {
+      magnitudes[i] = peakMag;
+      continue;
+    }
+    const u = Math.hypot(u0, (visitsJdUtc[i] - event.peakJdUtc!) / einsteinTimeDays!);
+    magnitudes[i] = magnifiedBlendMagnitude(base, eventMagnificationAtOffset(u, event), source.blendFraction);
+  }
+  return magnitudes;
+}
+
+/**
+ * The photon budget of a target in `caseId` (see the module comment), or why there is none. Throws
+ * only for inputs outside the photometry layer's domains, which the settings' schema keeps out.
+ */
+export function targetPhotonBudget(input: {
+  caseId: ScienceCaseId;
+  solution: LensSolution;
+  event: EventTiming;
+  schedule: ObservingSchedule | null;
+  inputs: PhotonBudgetInputs;
+}): PhotonBudgetOutcome {
+  const { caseId, solution, event, schedule } = input;
+  if (caseId === "horizon-scale" || "notApplicable" in input.inputs) return { notApplicable: true };
+  if ("missing" in input.inputs) return { missing: input.inputs.missing };
+  const { setup, source } = input.inputs;
+  if (schedule === null) return { missing: NO_SCHEDULE };
+  if (event.impactParameterThetaE === 0 && (event.sourceRadiusThetaE === null || event.sourceRadiusThetaE === 0) && (caseId === "photometric-microlensing" || caseId === "astrometric-microlensing")) {
+    return { missing: "Set the source's radius ρ: a point source exactly behind the lens (u0 = 0) has no finite peak brightness to budget." };
+  }
+
+  const isEvent = caseId === "photometric-microlensing" || caseId === "astrometric-microlensing";
+  const einsteinTimeDays = solution.einsteinTimeS === null ? null : solution.einsteinTimeS / DAY_S;
+  const { from, to } =
+    isEvent && event.peakJdUtc !== null && einsteinTimeDays !== null
+      ? visitRange(schedule.visitsJdUtc, event.peakJdUtc - einsteinTimeDays, event.peakJdUtc + einsteinTimeDays)
+      : { from: 0, to: schedule.visitsJdUtc.length };
+  const visitsJdUtc = slice(schedule.visitsJdUtc, from, to);
+  let magnitudes: Float64Array;
+  if (isEvent) {
+    magnitudes = blendedMagnitudes(visitsJdUtc, source, event, einsteinTimeDays);
+  } else {
+    const faintest = solution.images.length < 2 ? solution.images[0] : solution.images[1];
+    const imageMag = source.sourceMagnitude - 2.5 * Math.log10(Math.abs(faintest.magnification));
+    magnitudes = new Float64Array(visitsJdUtc.length).fill(imageMag);
+  }
+  const all = schedule.visitSky;
+  const visitSky: VisitSky = {
+    airmass: slice(all.airmass, from, to),
+    targetZenithDeg: slice(all.targetZenithDeg, from, to),
+    moonZenithDeg: slice(all.moonZenithDeg, from, to),
+    moonSeparationDeg: slice(all.moonSeparationDeg, from, to),
+    moonPhaseAngleDeg: slice(all.moonPhaseAngleDeg, from, to),
+  };
+  const series = visitPhotometrySeries({
+    instrument: setup.instrument,
+    sky: setup.sky,
+    visits: visitSky,
+    magnitudes,
+    exposureS: setup.visitExposureS,
+    signalToNoiseGoal: setup.signalToNoiseGoal,
+  });
+
+  let worstVisit = -1;
+  let brightestVisit = -1;
+  let exposureSum = 0;
+  let shortVisits = 0;
+  let saturatedVisits = 0;
+  for (let i = 0; i < visitsJdUtc.length; i++) {
+    if (worstVisit < 0 || series.signalToNoise[i] < series.signalToNoise[worstVisit]) worstVisit = i;
+    if (brightestVisit < 0 || magnitudes[i] < magnitudes[brightestVisit]) brightestVisit = i;
+    const needed = series.exposureForGoalS[i];
+    if (needed > setup.visitExposureS) shortVisits++;
+    exposureSum += Math.min(needed, setup.visitExposureS);
+    if (series.saturated[i]) saturatedVisits++;
+  }
+  const overheadS = setup.instrument.overheadS;
+  const timeRequestHours = (exposureSum + visitsJdUtc.length * overheadS) / 3600;
+
+  let baseline: VisitPhotometry | null = null;
+  let peak: VisitPhotometry | null = null;
+  if (isEvent && visitsJdUtc.length > 0) {
+    const nearPeak = event.peakJdUtc === null ? brightestVisit : nearestVisit(visitsJdUtc, event.peakJdUtc);
+    const conditions = skyAt(visitSky, nearPeak);
+    const common = { instrument: setup.instrument, sky: setup.sky, visit: conditions, exposureS: setup.visitExposureS, signalToNoiseGoal: setup.signalToNoiseGoal };
+    baseline = visitPhotometry({ ...common, magnitude: baselineMagnitude(source.sourceMagnitude, source.blendFraction) });
+    const peakMag = magnifiedBlendMagnitude(baselineMagnitude(source.sourceMagnitude, source.blendFraction), eventMagnificationAtOffset(event.impactParameterThetaE ?? 0, event), source.blendFraction);
+    peak = visitPhotometry({ ...common, magnitude: peakMag });
+  }
+  const worstCentroidPrecisionMas =
+    caseId === "astrometric-microlensing" && worstVisit >= 0
+      ? centroidPrecisionMas(visitPhotometry({ instrument: setup.instrument, sky: setup.sky, visit: skyAt(visitSky, worstVisit), magnitude: magnitudes[worstVisit], exposureS: setup.visitExposureS, signalToNoiseGoal: setup.signalToNoiseGoal }).seeingFwhmArcsec, series.signalToNoise[worstVisit])
+      : null;
+
+  return {
+    budget: {
+      measured: isEvent ? "blended-source" : "fainter-image",
+      bandLabel: setup.sky.band.label,
+      signalToNoiseGoal: setup.signalToNoiseGoal,
+      visitExposureS: setup.visitExposureS,
+      overheadS,
+      visitsJdUtc,
+      magnitudes,
+      visitSky,
+      series,
+      worstVisit,
+      brightestVisit,
+      timeRequestHours,
+      shortVisits,
+      saturatedVisits,
+      baseline,
+      peak,
+      worstCentroidPrecisionMas,
+    },
+  };
+}
+
+/** Index of the visit starting nearest `jdUtc` (visits ascending, at least one). */
+function nearestVisit(visitsJdUtc: Float64Array, jdUtc: number): number {
+  const after = firstVisitFrom(visitsJdUtc, jdUtc);
+  if (after === 0) return 0;
+  if (after === visitsJdUtc.length) return after - 1;
+  return jdUtc - visitsJdUtc[after - 1] <= visitsJdUtc[after] - jdUtc ? after - 1 : after;
+}
+
+/** The S/N the worst visit reaches in the time available, over the goal: what the depth question grades. */
+export function worstVisitShareOfGoal(budget: TargetPhotonBudget): number | null {
+  return budget.worstVisit < 0 ? null : budget.series.signalToNoise[budget.worstVisit] / budget.signalToNoiseGoal;
+}
+

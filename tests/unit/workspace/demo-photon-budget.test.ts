@@ -1,0 +1,56 @@
+import { describe, expect, it } from "vitest";
+import { demoPhotometry, demoSourcePhotometry } from "@/db/seed/demo-photon-budget";
+import { demoProposal, demoTargets } from "@/db/seed/demo-scenario";
+import { demoCycle, demoInterferometer } from "@/db/seed/demo-sky-cycle";
+import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+import { deriveTargetColumns, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { photometrySettingsSchema } from "@/lib/workspace/photometry-schema";
+import { instrumentSchema } from "@/lib/workspace/proposal-schema";
+
+/** The demo proposal as the seed stores it: its camera (db/seed/demo-photon-budget.ts), cycle and targets' sources. */
+const settings: FeasibilitySettings = {
+  site: demoProposal.site,
+  instrument: instrumentSchema.parse({ ...demoProposal.instrument, ...demoInterferometer }),
+  photometry: photometrySettingsSchema.parse(demoPhotometry),
+  ...demoCycle,
+};
+const rows = demoTargets.map((t) => ({ ...t, ...demoSourcePhotometry[t.name], raDeg: parseRightAscensionDeg(t.ra), decDeg: parseDeclinationDeg(t.dec) }));
+const schedules = targetSchedules(settings, rows);
+const derived = new Map(rows.map((row, index) => [row.name, deriveTargetColumns(row, settings, schedules[index])]));
+
+/** Every target with a photon budget: horizon-scale imaging (K-17 core) has none (an interferometer is not a CCD). */
+const budgeted = [...derived].filter(([, columns]) => columns.answeredCase !== "horizon-scale");
+const depthOf = (name: string) => derived.get(name)!.caseAnswers.find((answer) => answer.id === "depth")!;
+
+describe("the demo proposal's photon budget", () => {
+  it("grades every target's depth at its worst visit and names that visit's sky", () => {
+    for (const [name, columns] of budgeted) {
+      const depth = depthOf(name);
+      expect(depth.verdict, `${name}: ${depth.sentence}`).not.toBe("unknown");
+      expect(depth.sentence).toMatch(/^At the worst of the \d+ visits the case needs \(2031-\d\d-\d\d, air mass [\d.]+, Moon (down|\d+% lit \d+° away)\)/);
+      expect(columns.timeRequestHours).toBeGreaterThan(0);
+    }
+  });
+
+  it("asks no depth of the horizon-scale case", () => {
+    expect(derived.get("K-17 core")!.caseAnswers.some((answer) => answer.id === "depth")).toBe(false);
+    expect(derived.get("K-17 core")!.timeRequestHours).toBeNull();
+  });
+
+  it("fails the faint dwarf in a bright blend, and passes the bright giants", () => {
+    // CBW-24-0203: Ks 23.4 with f_s = 0.1 at A(0.45) = 2.3: S/N 13 where 50 is asked (infeasible, our rule: below half).
+    expect(depthOf("CBW-24-0203").verdict).toBe("infeasible");
+    expect(depthOf("CBW-24-0203").sentence).toMatch(/reaches only S\/N 13\.\d in the 1110 s a visit leaves \(goal 50/);
+    expect(depthOf("CBW-24-0117").verdict).toBe("feasible");
+    expect(depthOf("CBW-24-0422").sentence).toMatch(/The centroid is then measured to [\d.]+ mas \(photon-limited\)\./);
+  });
+
+  it("asks for exposures and overheads over the visits: fewer hours than whole visits, more than overheads alone", () => {
+    // 20 min visits, 90 s overhead: each visit asks between 90 s and 1200 s.
+    for (const [name, columns] of budgeted) {
+      const visits = Number(/of the (\d+) visits/.exec(depthOf(name).sentence)![1]);
+      expect(columns.timeRequestHours! * 3600, name).toBeGreaterThanOrEqual(visits * 90);
+      expect(columns.timeRequestHours! * 3600, name).toBeLessThanOrEqual(visits * 1200 + 1e-6);
+    }
+  });
+});
