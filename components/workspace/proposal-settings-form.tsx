@@ -5,12 +5,15 @@ import { useState } from "react";
 import type { ProposalInput } from "@/lib/workspace/proposal-schema";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass } from "@/components/workspace/field";
+import { PhotometryFields } from "@/components/workspace/photometry-fields";
+import { photometryBody } from "@/components/workspace/photometry-body";
 import { ProposalFields, proposalBody } from "@/components/workspace/proposal-fields";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
 
 /**
- * The PI's edit form for a proposal: details, cycle dates, site and instrument defaults. Saving new
- * instrument scales re-grades every target on the server, in the same transaction.
+ * The PI's edit form for a proposal: details, cycle dates, site, instrument defaults and the photon
+ * budget's photometry (sent complete, like the instrument). Saving new instrument scales or photometry
+ * re-grades every target on the server, in the same transaction.
  */
 export function ProposalSettingsForm({ proposalId, initial }: { proposalId: string; initial: ProposalInput }) {
   const router = useRouter();
@@ -22,7 +25,8 @@ export function ProposalSettingsForm({ proposalId, initial }: { proposalId: stri
       className="space-y-4 rounded-lg border border-void-edge bg-void-raised p-5"
       onSubmit={(event) => {
         event.preventDefault();
-        const body = proposalBody(formValues(event.currentTarget));
+        const values = formValues(event.currentTarget);
+        const body = { ...proposalBody(values), photometry: photometryBody(values) };
         setSavedAt(null);
         void run(async () => {
           await apiFetch(`/api/proposals/${proposalId}`, { method: "PATCH", body });
@@ -32,6 +36,7 @@ export function ProposalSettingsForm({ proposalId, initial }: { proposalId: stri
       }}
     >
       <ProposalFields fields={fields} initial={initial} />
+      <PhotometryFields fields={fields} initial={initial.photometry} />
       <FormError message={message} />
       <div className="flex items-center gap-4">
         <button type="submit" className={buttonClass} disabled={isBusy}>

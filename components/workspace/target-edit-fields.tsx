@@ -6,6 +6,7 @@ import type { LensParameterKey } from "@/lib/lensing/lens-model";
 import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
 import { lensModelLabels, lensModels, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
+import { BandOptions } from "@/components/workspace/photometry-fields";
 import { Field } from "@/components/workspace/field";
 import { QuantityInput } from "@/components/workspace/quantity-input";
 
@@ -46,6 +47,10 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     sourceRadiusSolar: optionalTyped(v.sourceRadiusSolar),
     sourceRadiusThetaE: optionalTyped(v.sourceRadiusThetaE),
     limbDarkeningU: optionalTyped(v.limbDarkeningU),
+    sourceMagnitude: optionalTyped(v.sourceMagnitude),
+    // Empty: the proposal's band, which follows a later change of the proposal's settings.
+    sourceBand: optionalTyped(v.sourceBand),
+    blendFraction: optionalTyped(v.blendFraction),
     priority: optionalTyped(v.priority),
     tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
   };
@@ -140,6 +145,23 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
         <QuantityInput spec={targetQuantities.sourceRadiusSolar} label="Source radius (R☉)" name="sourceRadiusSolar" defaultValue={initial.sourceRadiusSolar} hint="or give ρ instead, not both" errors={fields.sourceRadiusSolar} />
         <QuantityInput spec={targetQuantities.sourceRadiusThetaE} label="Source radius ρ (θE)" name="sourceRadiusThetaE" inputMode="decimal" defaultValue={initial.sourceRadiusThetaE} hint="θ* / θE, typed directly" errors={fields.sourceRadiusThetaE} />
         <QuantityInput spec={targetQuantities.limbDarkeningU} label="Limb-darkening coefficient" name="limbDarkeningU" inputMode="decimal" defaultValue={initial.limbDarkeningU} hint="linear, 0 (uniform disk) to 1" errors={fields.limbDarkeningU} />
+      </fieldset>
+      <fieldset className="grid gap-4 md:grid-cols-3">
+        <legend className="mb-2 text-sm text-dusk-dim">The source&apos;s brightness (the photon budget; leave empty when it does not apply)</legend>
+        <QuantityInput spec={targetQuantities.sourceMagnitude} label="Source magnitude" name="sourceMagnitude" inputMode="decimal" defaultValue={initial.sourceMagnitude} hint="the lensed source alone, unmagnified, in the source band" errors={fields.sourceMagnitude} />
+        <label className="flex flex-col text-sm font-semibold text-dusk">
+          Source band
+          <select name="sourceBand" defaultValue={initial.sourceBand ?? ""} className="mt-1 rounded border border-void-edge bg-void px-2 py-1 font-normal">
+            <option value="">The proposal&apos;s band (default)</option>
+            <BandOptions customLabel="The proposal's own band" />
+          </select>
+          {fields.sourceBand && (
+            <span role="alert" className="mt-1 font-normal text-alarm">
+              {fields.sourceBand.join(" ")}
+            </span>
+          )}
+        </label>
+        <QuantityInput spec={targetQuantities.blendFraction} label="Blend fraction f_s" name="blendFraction" inputMode="decimal" defaultValue={initial.blendFraction} hint="the lensed source's share of the baseline flux; 1 = no blended light" errors={fields.blendFraction} />
       </fieldset>
     </>
   );

@@ -41,6 +41,9 @@ export function targetFieldTexts(t: TargetView): TargetFieldTexts {
     sourceRadiusSolar: textOf(t.sourceRadiusSolar),
     sourceRadiusThetaE: textOf(t.sourceRadiusThetaE),
     limbDarkeningU: textOf(t.limbDarkeningU),
+    sourceMagnitude: textOf(t.sourceMagnitude),
+    sourceBand: t.sourceBand ?? "",
+    blendFraction: textOf(t.blendFraction),
     priority: String(t.priority),
     tags: t.tags.join(", "),
   };

@@ -16,7 +16,8 @@ export default async function ProposalSettingsPage({ params }: { params: Promise
         <p className="max-w-3xl text-sm text-dusk-dim">
           The cycle dates span the season view and each target&apos;s simulated observing schedule; the site, airmass
           limit and Moon constraint decide when a target counts as observable; the instrument settings answer every
-          target&apos;s science case.
+          target&apos;s science case; the photometry gives each target&apos;s signal-to-noise per visit and the hours
+          requested.
         </p>
       </ProposalPageHeader>
       {proposal.permissions.canManage ? (
