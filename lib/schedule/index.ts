@@ -5,4 +5,4 @@ export { isClearNight } from "./clear-nights";
 export { placeVisits } from "./visits";
 export { SEASON_BRIDGE_NIGHTS } from "./seasons";
 export type { MoonConstraintInput, ScheduleConditions, ScheduleRequest, SchedulesRequest } from "./request";
-export type { EmptyScheduleReason, ObservingSchedule, ObservingSeason, ScheduleGap, ScheduleGapReason, TimeSpanJd } from "./types";
+export type { EmptyScheduleReason, ObservingSchedule, ObservingSeason, ScheduleGap, ScheduleGapReason, TimeSpanJd, VisitSky } from "./types";

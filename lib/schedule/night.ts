@@ -16,7 +16,10 @@ export interface ScheduleNight {
   /** Index from the cycle's first night. */
   index: number;
   grid: NightGrid;
-  /** The Moon over the dark samples; null without darkness or without a Moon constraint. */
+  /**
+   * The Moon over the dark samples; null without darkness. Computed on every night (the visits'
+   * sky reads it, `visit-sky.ts`), whether or not a Moon rule is set.
+   */
   moon: NightMoon | null;
   isClear: boolean;
   /**
@@ -34,8 +37,7 @@ export interface ScheduleNight {
  */
 export function buildScheduleNight(settings: ScheduleSettings, index: number): ScheduleNight {
   const grid = buildNightGrid(settings.site, addDaysIso(settings.firstNightIso, index), settings.limits.stepMinutes);
-  const hasMoonRule = settings.moonMinSeparationDeg !== null || settings.moonMaxIlluminatedFraction !== null;
-  const moon = hasMoonRule ? nightMoon(grid, settings.site) : null;
+  const moon = nightMoon(grid, settings.site);
   let brightMoonMargin: Float64Array | null = null;
   const maxFraction = settings.moonMaxIlluminatedFraction;
   if (moon !== null && maxFraction !== null && moon.illuminatedFraction > maxFraction) {

@@ -16,6 +16,7 @@ import { parseScheduleConditions, parseScheduleTarget, parseScheduleTargets, typ
 import { observingSeasons } from "./seasons";
 import { TargetTimeline } from "./timeline";
 import type { ObservingSchedule } from "./types";
+import { VisitSkyNights } from "./visit-sky";
 import { placeVisits } from "./visits";
 
 const DEG = Math.PI / 180;
@@ -27,10 +28,12 @@ const DEG = Math.PI / 180;
  * the safe elongation (nightly rule), the Moon at least the minimum separation away and, with a
  * largest illumination, no brighter Moon above the horizon; nights lost to the clear-night fraction
  * (`isClearNight`) have none. Visits: `placeVisits`; seasons: `observingSeasons`; best weeks: the
- * season view's rule (`bestWeekIndices`) on this target's own hours.
+ * season view's rule (`bestWeekIndices`) on this target's own hours; the sky at each visit:
+ * `VisitSkyNights.skyOf` (`visit-sky.ts`).
  * Methods: the shared night grid (`lib/astro/night-grid.ts`), the Moon of `lib/astro/night-moon.ts`.
  * Accuracy: window edges to about a minute (tests: 1 minute against astropy).
- * Cost: about 0.2 ms per night plus about 3 µs per target-night (`npm run bench -- schedule`).
+ * Cost: about 0.2 ms per night (the Moon's ~0.05 ms included) plus about 3 µs per target-night and
+ * under 1 µs per visit for its sky (`npm run bench -- schedule`).
  * Throws `AppError("bad_request:sky")` naming the invalid field.
  */
 export function observingSchedule(request: ScheduleRequest): ObservingSchedule {
@@ -54,15 +57,17 @@ function planSchedules(settings: ScheduleSettings, targets: readonly SkyTarget[]
     cosSafeSunElongation: Math.cos(settings.limits.safeSunElongationDeg * DEG),
     cosMinMoonSeparation: settings.moonMinSeparationDeg ? Math.cos(settings.moonMinSeparationDeg * DEG) : null,
   };
+  const startJdUtc = nightStartJdUtc(settings.firstNightIso, settings.site.longitudeEastDeg);
+  const cycle = { startJdUtc, endJdUtc: startJdUtc + settings.nightCount };
   const timelines = targets.map(() => new TargetTimeline(settings.nightCount));
+  const skyNights = new VisitSkyNights(settings.site, startJdUtc, settings.nightCount, limit.refractionScale);
   const scratch = classifyScratch();
   for (let index = 0; index < settings.nightCount; index++) {
     const night = buildScheduleNight(settings, index);
     for (let t = 0; t < targets.length; t++) classifyTargetNight(night, rules, targets[t], scratch, timelines[t]);
+    skyNights.add(night);
   }
 
-  const startJdUtc = nightStartJdUtc(settings.firstNightIso, settings.site.longitudeEastDeg);
-  const cycle = { startJdUtc, endJdUtc: startJdUtc + settings.nightCount };
   return targets.map((target, t) => {
     const timeline = timelines[t];
     timeline.finish(cycle.endJdUtc);
@@ -77,6 +82,7 @@ function planSchedules(settings: ScheduleSettings, targets: readonly SkyTarget[]
       gaps: timeline.gaps,
       visitsJdUtc,
       visitLengthDays: settings.visitDays,
+      visitSky: skyNights.skyOf(target, visitsJdUtc, settings.visitDays),
       seasons: observingSeasons(timeline, settings.visitDays, settings.firstNightIso),
       usableHoursPerNight: timeline.usableHoursPerNight,
       weeklyUsableHours,

@@ -64,6 +64,23 @@ export type EmptyScheduleReason =
   /** Windows long enough for a visit exist only on nights lost to the clear-night fraction. */
   | "weather";
 
+/**
+ * Sky conditions at the middle of each planned visit, index-aligned with `visitsJdUtc`
+ * (see `visit-sky.ts` for the method and accuracy).
+ */
+export interface VisitSky {
+  /** Air mass (Pickering 2002 of the apparent altitude, the same formula as the airmass limit, lib/astro/airmass.ts), ≥ 1. */
+  airmass: Float32Array;
+  /** Target's geometric zenith distance, degrees [0, 90]. */
+  targetZenithDeg: Float32Array;
+  /** Moon's geometric topocentric zenith distance, degrees [0, 180] (> 90: below the horizon). */
+  moonZenithDeg: Float32Array;
+  /** Topocentric Moon–target separation, degrees [0, 180]. */
+  moonSeparationDeg: Float32Array;
+  /** Sun–Moon–Earth phase angle α from the night's illuminated fraction k: α = acos(2k − 1), degrees [0, 180] (0 full). */
+  moonPhaseAngleDeg: Float32Array;
+}
+
 export interface ObservingSchedule {
   /** From local mean noon before the first night to local mean noon after the last. */
   cycle: TimeSpanJd;
@@ -77,6 +94,8 @@ export interface ObservingSchedule {
   /** Start times of the planned visits, ascending. */
   visitsJdUtc: Float64Array;
   visitLengthDays: number;
+  /** The sky at the middle of each visit (air mass, zenith distances, the Moon), aligned with `visitsJdUtc`. */
+  visitSky: VisitSky;
   seasons: ObservingSeason[];
   /**
    * Usable hours of each night as if it were clear (dark, above the limit, Sun and Moon rules; the

@@ -4,8 +4,15 @@
 // season view's usable hours for the same targets and nights (`seasonWindows`: no Moon, no visits,
 // no gaps), and the schedules computed one target at a time (no night shared between targets).
 import { cpus, loadavg } from "node:os";
+import type { NightGrid } from "@/lib/astro/night-grid";
+import { nightMoon } from "@/lib/astro/night-moon";
+import { refractionScale } from "@/lib/astro/refraction";
 import { seasonWindows } from "@/lib/astro/season";
-import { observingSchedule, observingSchedules, type ScheduleConditions } from "@/lib/schedule";
+import { nightStartJdUtc } from "@/lib/astro/time";
+import { observingSchedule, observingSchedules, type ObservingSchedule, type ScheduleConditions } from "@/lib/schedule";
+import { buildScheduleNight } from "@/lib/schedule/night";
+import { parseScheduleConditions } from "@/lib/schedule/request";
+import { VisitSkyNights } from "@/lib/schedule/visit-sky";
 import { deriveMany } from "@/lib/server/derived-columns";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import { bestSeconds, fibonacciSky } from "../lib/bench-sky";
@@ -36,8 +43,9 @@ observingSchedules({ ...conditions, cycleEndNightIso: "2027-02-10", targets: tar
 
 let visits = 0;
 let empty = 0;
+let schedules: ObservingSchedule[] = [];
 const manySeconds = bestSeconds(() => {
-  const schedules = observingSchedules({ ...conditions, targets });
+  schedules = observingSchedules({ ...conditions, targets });
   visits = schedules.reduce((sum, schedule) => sum + schedule.visitsJdUtc.length, 0);
   empty = schedules.filter((schedule) => schedule.emptyReason !== null).length;
 }, 3);
@@ -58,6 +66,28 @@ const oneSeasonSeconds = bestSeconds(() => seasonWindows({ site, targets: [bulge
 console.log(`(b) one target (the bulge) over ${NIGHT_COUNT} nights: ${(oneSeconds * 1000).toFixed(1)} ms (best of 5); ${(oneSeconds / ONE_TARGET_SECONDS).toFixed(3)} of the ${ONE_TARGET_SECONDS * 1000} ms target; ${bulgeVisits} visits`);
 console.log(`    baseline, the season view's hours for that target: ${(oneSeasonSeconds * 1000).toFixed(1)} ms; the schedule costs ${(oneSeconds / oneSeasonSeconds).toFixed(2)}x`);
 
+// (d) What the sky at each visit (air mass, zenith distances, the Moon; `visit-sky.ts`) adds to (a):
+// its per-visit arithmetic for every visit of (a), and the Moon, which every night now computes
+// (before, only nights with a Moon rule did; (a) has one, so there it was paid already).
+const planSettings = parseScheduleConditions(conditions);
+const skyNights = new VisitSkyNights(planSettings.site, nightStartJdUtc(planSettings.firstNightIso, site.longitudeEastDeg), NIGHT_COUNT, refractionScale(site.elevationM));
+const grids: NightGrid[] = [];
+for (let index = 0; index < NIGHT_COUNT; index++) {
+  const night = buildScheduleNight(planSettings, index);
+  skyNights.add(night);
+  grids.push(night.grid);
+}
+const skySeconds = bestSeconds(() => {
+  schedules.forEach((schedule, t) => skyNights.skyOf(targets[t], schedule.visitsJdUtc, schedule.visitLengthDays));
+}, 3);
+const moonSeconds = bestSeconds(() => {
+  for (const grid of grids) nightMoon(grid, planSettings.site);
+}, 3);
+console.log(`(d) the sky at each visit, ${visits} visits of (a): ${(skySeconds * 1000).toFixed(1)} ms (best of 3), ${((skySeconds / visits) * 1e6).toFixed(2)} µs per visit; ` +
+  `${((skySeconds / manySeconds) * 100).toFixed(1)}% of (a)`);
+console.log(`    the Moon on every night, now also without a Moon rule: ${(moonSeconds * 1000).toFixed(1)} ms per ${NIGHT_COUNT} nights; ` +
+  `${((moonSeconds / oneSeconds) * 100).toFixed(0)}% of one target's schedule (b), ${((moonSeconds / manySeconds) * 100).toFixed(1)}% of (a)`);
+
 // (c) The stored columns of a whole proposal: schedules and every science case's answers for 1,000
 // targets (the issue's 2 s budget covers both), against the schedules alone from (a).
 const settings = {
@@ -77,6 +107,7 @@ const settings = {
   }),
   cycleStartDate: conditions.cycleStartNightIso,
   cycleEndDate: conditions.cycleEndNightIso,
+  photometry: null,
 };
 const peakJdUtc = 2_461_570.5; // 2027-06-14
 const hypotheses = [
