@@ -2,6 +2,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, newPage } from "./support/browser";
 import { signInAsDemo } from "./support/demo";
+import { echoOf } from "./support/quantity-echo";
 
 let browser: Browser;
 
@@ -18,13 +19,6 @@ const run = Date.now().toString(36);
 /** The API's answer for a path, fetched by the signed-in page (its session cookie). */
 function apiGet<T>(page: Page, path: string): Promise<T> {
   return page.evaluate(async (url) => (await fetch(url)).json(), path) as Promise<T>;
-}
-
-/** The text a quantity field shows beside its input, once it reads `expected`. */
-async function echoOf(page: Page, name: string, expected: RegExp): Promise<string> {
-  const echo = page.getByTestId(`echo-${name}`);
-  await expect.poll(async () => (await echo.count()) > 0 && expected.test((await echo.textContent()) ?? "")).toBe(true);
-  return (await echo.textContent()) ?? "";
 }
 
 describe("quantities typed as astronomers type them (issue #15)", () => {
