@@ -17,6 +17,7 @@
  * overhead; the time request sums exposure and overhead over the visits the case needs.
  */
 import { DAY_S } from "@/lib/physics/constants";
+import { MOONLIGHT_MODEL_MIN_SEPARATION_DEG } from "@/lib/photometry/moon-sky";
 import { baselineMagnitude, magnifiedBlendMagnitude } from "@/lib/photometry/source-flux";
 import {
   centroidPrecisionMas,
@@ -77,6 +78,8 @@ export interface TargetPhotonBudget {
   shortVisits: number;
   /** Visits whose exposure saturates the brightest pixel. */
   saturatedVisits: number;
+  /** Visits with the Moon up nearer than the moonlight model's fitted range (their sky is underestimated). */
+  nearMoonVisits: number;
   /** Baseline (unmagnified blend) and peak at the conditions of the visit nearest the peak; null for the image cases or without visits. */
   baseline: VisitPhotometry | null;
   peak: VisitPhotometry | null;
@@ -186,6 +189,7 @@ export function targetPhotonBudget(input: {
   let exposureSum = 0;
   let shortVisits = 0;
   let saturatedVisits = 0;
+  let nearMoonVisits = 0;
   for (let i = 0; i < visitsJdUtc.length; i++) {
     if (worstVisit < 0 || series.signalToNoise[i] < series.signalToNoise[worstVisit]) worstVisit = i;
     if (brightestVisit < 0 || magnitudes[i] < magnitudes[brightestVisit]) brightestVisit = i;
@@ -193,6 +197,7 @@ export function targetPhotonBudget(input: {
     if (needed > setup.visitExposureS) shortVisits++;
     exposureSum += Math.min(needed, setup.visitExposureS);
     if (series.saturated[i]) saturatedVisits++;
+    if (visitSky.moonZenithDeg[i] <= 90 && visitSky.moonSeparationDeg[i] < MOONLIGHT_MODEL_MIN_SEPARATION_DEG) nearMoonVisits++;
   }
   const overheadS = setup.instrument.overheadS;
   const timeRequestHours = (exposureSum + visitsJdUtc.length * overheadS) / 3600;
@@ -228,6 +233,7 @@ export function targetPhotonBudget(input: {
       timeRequestHours,
       shortVisits,
       saturatedVisits,
+      nearMoonVisits,
       baseline,
       peak,
       worstCentroidPrecisionMas,

@@ -3,6 +3,7 @@
  * the worst visit it needs, under that night's sky? Graded by `DEPTH_RULE`; the numbers come from the
  * target's photon budget (photon-budget.ts).
  */
+import { MOONLIGHT_MODEL_MIN_SEPARATION_DEG } from "@/lib/photometry/moon-sky";
 import { DEPTH_RULE, gradeAtLeast, worseVerdict } from "./feasibility-rules";
 import type { PhotonBudgetOutcome, TargetPhotonBudget } from "./photon-budget";
 import { missingInput, type Question } from "./science-case-answer";
@@ -53,11 +54,15 @@ export function depthAnswer(outcome: PhotonBudgetOutcome): CaseAnswer | null {
       ? `reaches S/N ${numberWords(goal)} in ${seconds(needed)} of the ${seconds(budget.visitExposureS)} a visit leaves after its overhead`
       : `reaches only S/N ${numberWords(reached)} in the ${seconds(budget.visitExposureS)} a visit leaves (goal ${numberWords(goal)}; it would need ${seconds(needed)}); ${budget.shortVisits} of ${visitsWords(count)} fall short`;
   const saturation = budget.saturatedVisits > 0 ? ` The brightest pixel saturates on ${visitsWords(budget.saturatedVisits)}: split those exposures.` : "";
+  const nearMoon =
+    budget.nearMoonVisits > 0
+      ? ` ${visitsWords(budget.nearMoonVisits)} ${budget.nearMoonVisits === 1 ? "lies" : "lie"} within ${MOONLIGHT_MODEL_MIN_SEPARATION_DEG}° of the Moon, where the moonlight model underestimates the sky (Krisciunas & Schaefer 1991 fit separations above about ${MOONLIGHT_MODEL_MIN_SEPARATION_DEG}°).`
+      : "";
   const centroid = budget.worstCentroidPrecisionMas === null ? "" : ` The centroid is then measured to ${numberWords(budget.worstCentroidPrecisionMas)} mas (photon-limited).`;
   return {
     ...QUESTION,
     verdict,
     figure: `S/N ${numberWords(reached)} at the worst visit (goal ${numberWords(goal)})`,
-    sentence: `At the worst of the ${visitsWords(count)} the case needs (${where}) ${what} in ${budget.bandLabel} ${reach}. Hours requested: ${numberWords(budget.timeRequestHours)} h.${saturation}${centroid}`,
+    sentence: `At the worst of the ${visitsWords(count)} the case needs (${where}) ${what} in ${budget.bandLabel} ${reach}. Hours requested: ${numberWords(budget.timeRequestHours)} h.${saturation}${nearMoon}${centroid}`,
   };
 }

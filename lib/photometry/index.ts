@@ -11,6 +11,7 @@ export {
   moonIlluminance,
   moonScattering,
   moonSkyBrightnessNanolamberts,
+  MOONLIGHT_MODEL_MIN_SEPARATION_DEG,
   nanolambertsFromVMagPerArcsec2,
   skyWithMoonVMagPerArcsec2,
   vMagPerArcsec2FromNanolamberts,

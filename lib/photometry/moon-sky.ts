@@ -23,6 +23,12 @@ const NANOLAMBERT_SCALE = 34.08;
 const NANOLAMBERT_EXPONENT_OFFSET = 20.7233;
 const NANOLAMBERT_PER_MAG = 0.92104;
 
+/**
+ * Smallest Moon–target separation the model is fitted to, degrees (K&S's data; from memory): nearer
+ * the Moon its forward-scattering peak is steeper than eq. 21 and the moonlight is underestimated.
+ */
+export const MOONLIGHT_MODEL_MIN_SEPARATION_DEG = 10;
+
 /** Opposition surge (our rule, from K&S's "up to 35% within 7°"): ×1.35 at full, linearly to ×1 at 7°. */
 const OPPOSITION_SURGE_AT_FULL = 0.35;
 const OPPOSITION_SURGE_WIDTH_DEG = 7;

@@ -17,6 +17,7 @@ import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { changesDerivation, feasibilitySettingsOf, instrumentSettingsOf, rederiveTargets } from "@/lib/server/derived-columns";
 import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
+import type { ProposalTimeRequest } from "@/lib/workspace/time-request";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
@@ -192,15 +193,6 @@ export async function getProposalSky(params: unknown, actor: Actor | null): Prom
     db.select({ total: count() }).from(targets).where(eq(targets.proposalId, proposalId)),
   ]);
   return { proposal: detailOf(access.proposal, access), targets: rows, total };
-}
-
-/** The hours a proposal asks for: the sum over its targets' photon budgets, and how many targets have one. */
-export interface ProposalTimeRequest {
-  /** Σ of the targets' time requests (exposures and overheads over the visits each case needs), h. */
-  totalHours: number;
-  /** Targets with a photon budget (the rest lack an input it needs: aperture, source magnitude, cycle). */
-  budgetedTargets: number;
-  targetCount: number;
 }
 
 /** Any member: the proposal's time request, summed in SQL from the targets' stored budgets. */

@@ -10,7 +10,7 @@ import { roleLabels } from "@/lib/workspace/roles";
 import { listMembers } from "@/lib/server/members";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposal, getProposalTimeRequest } from "@/lib/server/proposals";
-import { formatQuantity } from "@/components/workspace/format";
+import { timeRequestSentence } from "@/lib/workspace/time-request";
 import { listTargets } from "@/lib/server/targets";
 
 export const metadata: Metadata = { title: "Proposal" };
@@ -27,7 +27,6 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
     ]);
     return { proposal, targets, members, timeRequest };
   });
-  const unbudgeted = timeRequest.targetCount - timeRequest.budgetedTargets;
   const { site, instrument, permissions } = proposal;
   return (
     <div className="space-y-8">
@@ -81,10 +80,7 @@ export default async function ProposalPage({ params }: { params: Promise<{ propo
           <div>
             <dt className="inline text-dusk-dim">Time requested </dt>
             <dd className="inline" data-testid="time-request">
-              {timeRequest.budgetedTargets === 0
-                ? "no photon budget yet: give the telescope aperture in the proposal settings and each target's source magnitude"
-                : `${formatQuantity(timeRequest.totalHours, 3)} h (exposures and overheads over the visits each case needs) for ${timeRequest.budgetedTargets} of ${timeRequest.targetCount} targets`}
-              {timeRequest.budgetedTargets > 0 && unbudgeted > 0 ? `; ${unbudgeted} without a photon budget (see each target's depth answer)` : ""}
+              {timeRequestSentence(timeRequest)}
             </dd>
           </div>
         </dl>

@@ -1,5 +1,6 @@
 import "server-only";
 import { provenanceLines, type Provenance } from "@/lib/exports/provenance";
+import { timeRequestOf, timeRequestSentence } from "@/lib/workspace/time-request";
 import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTable } from "@/lib/exports/tables/table";
@@ -22,6 +23,8 @@ export async function technicalSummaryPdf(table: TargetTable, figures: PlotExpor
   writePdfText(doc, `Technical summary: ${table.title}`, 600);
   doc.moveDown(0.5).fontSize(9);
   writePdfText(doc, provenance.subject, 400);
+  doc.moveDown(0.3);
+  writePdfText(doc, `Time requested: ${timeRequestSentence(timeRequestOf(table.rows))}.`, 400, { width });
   doc.moveDown();
   const columnWidth = width / table.columns.length;
   const drawRow = (cells: string[], isHeader: boolean) => {

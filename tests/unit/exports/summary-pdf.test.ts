@@ -42,6 +42,12 @@ describe("technical summary: each target's science case in sentences (issue 16, 
     expect(text).not.toMatch(/Resolution verdict/);
   });
 
+  it("states the hours the proposal asks for, summed over the targets' photon budgets (issue 17, item 5)", async () => {
+    const rows = [{ ...exportRows[0], timeRequestHours: 3.25 }, { ...exportRows[1], timeRequestHours: 1.5 }, { ...exportRows[1], id: "third", timeRequestHours: null }];
+    const text = await pdfText(await technicalSummaryPdf({ ...table, rows }, [], exportProvenance));
+    expect(text).toContain("Time requested: 4.75 h (exposures and overheads over the visits each case needs) for 2 of 3 targets; 1 without a photon budget");
+  });
+
   it("keeps the Greek and Latin-extended letters of the answers (the PDF's Latin font alone dropped the ń of Paczyński)", async () => {
     const answer = { ...exportRows[0].caseAnswers[0], sentence: "The shadow spans 1.7 λ/B; Δt = 3 d; θ_E = 0.64 mas." };
     const text = await pdfText(await technicalSummaryPdf({ ...table, title: "Łódź arcs", rows: [{ ...exportRows[0], name: "HE 0435−1223 Ω", caseAnswers: [answer] }] }, [], exportProvenance));

@@ -8,6 +8,7 @@ import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import { provenanceLines } from "@/lib/exports/provenance";
 import { loadTargetTable } from "@/lib/exports/server/target-table";
 import { loadForPage } from "@/lib/server/page-access";
+import { timeRequestOf, timeRequestSentence } from "@/lib/workspace/time-request";
 import { SummaryPdfDownload } from "@/components/exports/summary-pdf-download";
 
 export const metadata: Metadata = { title: "Technical summary" };
@@ -38,6 +39,9 @@ export default async function SummaryPage({ params }: { params: Promise<{ propos
         </p>
         <h1 className="text-3xl font-bold">Technical summary: {table.title}</h1>
         <p className="text-sm text-dusk-dim">{table.provenance.inputs.site} · resolution {table.provenance.inputs.resolutionMas} mas · cadence {table.provenance.inputs.cadenceHours} h · campaign {table.provenance.inputs.campaignLengthDays} d</p>
+        <p className="text-sm" data-testid="summary-time-request">
+          Time requested: {timeRequestSentence(timeRequestOf(table.rows))}
+        </p>
       </header>
       <div className="summary-controls space-y-3">
         <SummaryPdfDownload proposalId={proposalId} targets={table.rows.map((row) => ({ id: row.id, name: row.name }))} initialNightIso={today} />
