@@ -6,6 +6,11 @@ import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coo
 import { deriveTargetColumns, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { photometrySettingsSchema } from "@/lib/workspace/photometry-schema";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
+import { eventMagnificationAtOffset } from "@/lib/lensing/microlensing";
+import { visitPhotometry } from "@/lib/photometry/visit-budget";
+import { baselineMagnitude, magnifiedBlendMagnitude } from "@/lib/photometry/source-flux";
+import { eventTimingOf, lensSolutionOf, photonBudgetInputsOf } from "@/lib/workspace/derived";
+import { loadBudgetFixture } from "../photometry/budget-fixture";
 
 /** The demo proposal as the seed stores it: its camera (db/seed/demo-photon-budget.ts), cycle and targets' sources. */
 const settings: FeasibilitySettings = {
@@ -52,5 +57,29 @@ describe("the demo proposal's photon budget", () => {
       expect(columns.timeRequestHours! * 3600, name).toBeGreaterThanOrEqual(visits * 90);
       expect(columns.timeRequestHours! * 3600, name).toBeLessThanOrEqual(visits * 1200 + 1e-6);
     }
+  });
+});
+
+describe("one demo target's S/N at its peak, against the fixture generator's own calculation", () => {
+  // tests/fixtures/generate_photometry.py, case "demo target CBW-24-0117 at its peak": every step from
+  // its paper in mpmath (Paczyński's A(u0), the blend, Bouguer extinction, the moonlit sky of
+  // Krisciunas & Schaefer 1991, the Moffat PSF, Howell's CCD equation), none of our code.
+  const fixture = loadBudgetFixture<{ cases: { input: Record<string, number | string> & { name: string }; expected: { signalToNoise: number; exposureForGoalS: number } }[] }>("visit-budget.json");
+  const worked = fixture.cases.find((c) => c.input.name.startsWith("demo target CBW-24-0117"))!;
+
+  it("reads the demo's camera and source through the product's own path to the same S/N", () => {
+    const target = rows.find((row) => row.name === "CBW-24-0117")!;
+    const solved = lensSolutionOf(target)!;
+    const event = eventTimingOf(target, solved.solution, solved.geometry);
+    const magnification = eventMagnificationAtOffset(event.impactParameterThetaE!, event);
+    expect(magnification).toBeCloseTo(worked.input.magnification as number, 12);
+    const inputs = photonBudgetInputsOf(target, settings);
+    if (!("setup" in inputs)) throw new Error("the demo target has no photon budget");
+    const visit = { airmass: 1.1, targetZenithDeg: 24.6, moonZenithDeg: 45, moonSeparationDeg: 70, moonPhaseAngleDeg: 90 };
+    const magnitude = magnifiedBlendMagnitude(baselineMagnitude(inputs.source.sourceMagnitude, inputs.source.blendFraction), magnification, inputs.source.blendFraction);
+    const result = visitPhotometry({ instrument: inputs.setup.instrument, sky: inputs.setup.sky, visit, magnitude, exposureS: inputs.setup.visitExposureS, signalToNoiseGoal: inputs.setup.signalToNoiseGoal });
+    expect(inputs.setup.visitExposureS).toBe(worked.input.exposureS);
+    expect(Math.abs(result.signalToNoise / worked.expected.signalToNoise - 1)).toBeLessThan(1e-6);
+    expect(Math.abs(result.exposureForGoalS / worked.expected.exposureForGoalS - 1)).toBeLessThan(1e-6);
   });
 });
