@@ -1,7 +1,7 @@
 import { importFields, type ColumnMapping } from "@/lib/imports/columns";
 import { TargetMatcher, type PositionedTarget } from "@/lib/imports/matching";
 import type { ImportPreview, PreviewRow } from "@/lib/imports/rows";
-import { lensHypothesisErrors, type CreateTargetInput, type TargetFields } from "@/lib/workspace/target-schema";
+import { lensHypothesisErrors, sourcePhotometryErrors, type CreateTargetInput, type TargetFields } from "@/lib/workspace/target-schema";
 
 /** A proposal's target as the planner compares it: position, name and the importable fields. */
 export type ExistingTarget = PositionedTarget & Omit<TargetFields, "name" | "ra" | "dec" | "status">;
@@ -97,7 +97,8 @@ export function planImport(preview: ImportPreview, mapping: ColumnMapping, exist
       counts.skipped += 1;
       return { ...row, action: { kind: "skip", reason: "unchanged", targetName: current.name } };
     }
-    const problems = Object.entries(lensHypothesisErrors(mergedHypothesis(current, patch)));
+    const merged = mergedHypothesis(current, patch);
+    const problems = Object.entries({ ...lensHypothesisErrors(merged), ...sourcePhotometryErrors(merged) });
     if (problems.length > 0) {
       counts.invalid += 1;
       const errors = problems.flatMap(([field, messages]) => messages.map((m) => `row ${row.rowNumber}: updating ${current.name}, ${field} — ${m}`));

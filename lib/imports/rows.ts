@@ -18,7 +18,7 @@ import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/len
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
 import { QuantityError, parseDistance, parseLength, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
 import { wordedIssue } from "@/lib/workspace/issue-words";
-import { createTargetSchema, lensHypothesisErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
+import { createTargetSchema, lensHypothesisErrors, sourcePhotometryErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 
 /** Values used for every row where the file has no column (or an empty cell) for the field. */
 export interface ImportFill {
@@ -265,7 +265,7 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
       }
       return { rowNumber: row.rowNumber, cells, errors };
     }
-    for (const [field, messages] of Object.entries(lensHypothesisErrors(parsed.data))) {
+    for (const [field, messages] of Object.entries({ ...lensHypothesisErrors(parsed.data), ...sourcePhotometryErrors(parsed.data) })) {
       for (const message of messages) errors.push(`${prefix}: ${importFieldLabels[field as ImportField] ?? field} — ${message}`);
     }
     return errors.length > 0 ? { rowNumber: row.rowNumber, cells, errors } : { rowNumber: row.rowNumber, cells, target: parsed.data, errors };

@@ -12,6 +12,7 @@ import { targetListQuerySchema, type TargetSortColumn } from "@/lib/workspace/ta
 import {
   createTargetSchema,
   lensHypothesisErrors,
+  sourcePhotometryErrors,
   updateTargetSchema,
   type LensHypothesis,
 } from "@/lib/workspace/target-schema";
@@ -128,7 +129,7 @@ export async function getTarget(params: unknown, actor: Actor | null): Promise<T
 }
 
 function requireCompleteHypothesis(h: LensHypothesis): void {
-  const fields = lensHypothesisErrors(h);
+  const fields = { ...lensHypothesisErrors(h), ...sourcePhotometryErrors(h) };
   if (Object.keys(fields).length > 0) throw new AppError("bad_request:target", summaryOf(fields), fields);
 }
 

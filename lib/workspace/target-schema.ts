@@ -258,6 +258,18 @@ const present = (value: number | null | undefined): value is number => value !==
  * both distances or both redshifts, with the lens in front of the source. Checked on the merged record
  * so that a partial update cannot leave a target without a complete hypothesis.
  */
+/**
+ * The checks of a target's source photometry across fields: a band names what the magnitude is in,
+ * so a band without a magnitude is refused (it would silently give no photon budget). Kept apart from
+ * `lensHypothesisErrors`: the lens is solved without its photometry.
+ */
+export function sourcePhotometryErrors(h: Pick<LensHypothesis, "sourceBand" | "sourceMagnitude" | "blendFraction">): FieldErrors {
+  const fields: FieldErrors = {};
+  if (h.sourceBand != null && !present(h.sourceMagnitude)) fields.sourceMagnitude = ["Give the source magnitude in the band chosen for it, or clear the source's band."];
+  if (present(h.blendFraction) && !present(h.sourceMagnitude)) fields.sourceMagnitude = [...(fields.sourceMagnitude ?? []), "Give the source magnitude the blend fraction f_s refers to, or clear f_s."];
+  return fields;
+}
+
 export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
   const fields: FieldErrors = {};
   const add = (field: string, message: string) => (fields[field] ??= []).push(message);

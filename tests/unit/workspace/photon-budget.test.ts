@@ -6,7 +6,7 @@ import type { ObservingSchedule } from "@/lib/schedule";
 import { eventTimingOf, lensSolutionOf, photonBudgetInputsOf, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { defaultPhotometrySettings, photometrySettingsSchema } from "@/lib/workspace/photometry-schema";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
-import type { LensHypothesis } from "@/lib/workspace/target-schema";
+import { sourcePhotometryErrors, type LensHypothesis } from "@/lib/workspace/target-schema";
 
 /** A 1 m telescope in I (typical dark site), 20 min visits with 60 s overhead: 1140 s to expose. */
 const settings: FeasibilitySettings = {
@@ -120,5 +120,18 @@ describe("a target's photon budget", () => {
     expect(budgetOf(event, visits, "horizon-scale")).toEqual({ notApplicable: true });
     expect(budgetOf(event, visits, "photometric-microlensing", { ...settings, photometry: null })).toEqual({ notApplicable: true });
     expect(depthAnswer({ notApplicable: true })).toBeNull();
+  });
+});
+
+describe("a target's source photometry, checked across fields", () => {
+  it("refuses a band or a blend fraction without the magnitude they qualify, naming the field in words", () => {
+    expect(sourcePhotometryErrors({ sourceBand: "jc-i", sourceMagnitude: null, blendFraction: null })).toEqual({
+      sourceMagnitude: ["Give the source magnitude in the band chosen for it, or clear the source's band."],
+    });
+    expect(sourcePhotometryErrors({ sourceBand: null, sourceMagnitude: undefined, blendFraction: 0.5 }).sourceMagnitude).toEqual([
+      "Give the source magnitude the blend fraction f_s refers to, or clear f_s.",
+    ]);
+    expect(sourcePhotometryErrors({ sourceBand: "jc-i", sourceMagnitude: 19, blendFraction: 0.5 })).toEqual({});
+    expect(sourcePhotometryErrors({ sourceBand: null, sourceMagnitude: null, blendFraction: null })).toEqual({});
   });
 });
