@@ -62,6 +62,14 @@ function BudgetDetails({ budget }: { budget: TargetPhotonBudget }) {
           {measuredWords[budget.measured]}, in {budget.bandLabel}; S/N goal {formatQuantity(budget.signalToNoiseGoal, 3)}, up to {formatQuantity(budget.visitExposureS, 3)} s
           of exposure per visit after {formatQuantity(budget.overheadS, 3)} s of overhead
         </dd>
+        {budget.imageMagnitudes.length > 0 && (
+          <>
+            <dt className="text-dusk-dim">Images</dt>
+            <dd className="tabular-nums" data-testid="image-magnitudes">
+              {budget.imageMagnitudes.map((magnitude) => formatQuantity(magnitude, 4)).join(", ")} mag (the source's magnitude less 2.5 log₁₀ |μ| of each image, brightest first)
+            </dd>
+          </>
+        )}
         {budget.baseline !== null && <ReferenceRow label="Baseline" photometry={budget.baseline} exposureS={budget.visitExposureS} />}
         {budget.peak !== null && <ReferenceRow label="Peak" photometry={budget.peak} exposureS={budget.visitExposureS} />}
         <dt className="text-dusk-dim">Hours requested</dt>

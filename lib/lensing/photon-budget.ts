@@ -80,6 +80,8 @@ export interface TargetPhotonBudget {
   saturatedVisits: number;
   /** Visits with the Moon up nearer than the moonlight model's fitted range (their sky is underestimated). */
   nearMoonVisits: number;
+  /** Each image's magnitude from its magnification |μ| (images brightest first); empty for the microlensing cases, whose images blend. */
+  imageMagnitudes: number[];
   /** Baseline (unmagnified blend) and peak at the conditions of the visit nearest the peak; null for the image cases or without visits. */
   baseline: VisitPhotometry | null;
   peak: VisitPhotometry | null;
@@ -159,14 +161,11 @@ export function targetPhotonBudget(input: {
       ? visitRange(schedule.visitsJdUtc, event.peakJdUtc - einsteinTimeDays, event.peakJdUtc + einsteinTimeDays)
       : { from: 0, to: schedule.visitsJdUtc.length };
   const visitsJdUtc = slice(schedule.visitsJdUtc, from, to);
-  let magnitudes: Float64Array;
-  if (isEvent) {
-    magnitudes = blendedMagnitudes(visitsJdUtc, source, event, einsteinTimeDays);
-  } else {
-    const faintest = solution.images.length < 2 ? solution.images[0] : solution.images[1];
-    const imageMag = source.sourceMagnitude - 2.5 * Math.log10(Math.abs(faintest.magnification));
-    magnitudes = new Float64Array(visitsJdUtc.length).fill(imageMag);
-  }
+  const imageMagnitudes = isEvent ? [] : solution.images.map((image) => source.sourceMagnitude - 2.5 * Math.log10(Math.abs(image.magnification)));
+  // The fainter primary image (the second, images being brightest first), or the only one.
+  const magnitudes = isEvent
+    ? blendedMagnitudes(visitsJdUtc, source, event, einsteinTimeDays)
+    : new Float64Array(visitsJdUtc.length).fill(imageMagnitudes[Math.min(1, imageMagnitudes.length - 1)]);
   const all = schedule.visitSky;
   const visitSky: VisitSky = {
     airmass: slice(all.airmass, from, to),
@@ -234,6 +233,7 @@ export function targetPhotonBudget(input: {
       shortVisits,
       saturatedVisits,
       nearMoonVisits,
+      imageMagnitudes,
       baseline,
       peak,
       worstCentroidPrecisionMas,

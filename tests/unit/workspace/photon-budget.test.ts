@@ -112,6 +112,8 @@ describe("a target's photon budget", () => {
     const faint = lensSolutionOf(lens)!.solution.images[1];
     expect(outcome.budget.visitsJdUtc.length).toBe(41);
     expect(outcome.budget.magnitudes[0]).toBeCloseTo(19 - 2.5 * Math.log10(Math.abs(faint.magnification)), 12);
+    const images = lensSolutionOf(lens)!.solution.images;
+    expect(outcome.budget.imageMagnitudes).toEqual(images.map((image) => 19 - 2.5 * Math.log10(Math.abs(image.magnification))));
   });
 
   it("names the missing input in words, and asks nothing of horizon-scale imaging or of a bench without a camera", () => {
