@@ -80,17 +80,29 @@ function logUnavailable(error: unknown): void {
   unavailableLog.suppressed = 0;
 }
 
-const unavailableCodes = new Set(["ECONNREFUSED", "ECONNRESET", "ETIMEDOUT", "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED", "57P01", "57P03", "57014"]);
+/**
+ * Codes that mean the database cannot be reached or is going away: Node's socket errors (refused,
+ * reset, a write to a closed socket, timeouts), postgres.js's connection states, and PostgreSQL's
+ * SQLSTATE class 08 (connection exception) and 57P01–57P03 (shutdown, crash, cannot connect now) and
+ * 57014 (statement timeout) — PostgreSQL documentation, Appendix A.
+ */
+const unavailableCodes = new Set([
+  "ECONNREFUSED", "ECONNRESET", "ECONNABORTED", "EPIPE", "ETIMEDOUT", "EHOSTUNREACH", "ENETUNREACH",
+  "CONNECT_TIMEOUT", "CONNECTION_CLOSED", "CONNECTION_ENDED", "CONNECTION_DESTROYED",
+  "08000", "08001", "08003", "08004", "08006", "57P01", "57P02", "57P03", "57014",
+]);
 
-/** True for errors that mean "PostgreSQL is down or too slow", not "the query is wrong". */
-export function isDatabaseUnavailable(error: unknown): boolean {
-  let current: unknown = error;
-  for (let depth = 0; depth < 4 && current && typeof current === "object"; depth++) {
-    const code = (current as { code?: unknown }).code;
-    if (typeof code === "string" && unavailableCodes.has(code)) return true;
-    current = (current as { cause?: unknown }).cause;
-  }
-  return false;
+/**
+ * True for errors that mean "PostgreSQL is down or too slow", not "the query is wrong": the error,
+ * its causes, and the errors an AggregateError gathers (a connection tried on several addresses).
+ */
+export function isDatabaseUnavailable(error: unknown, depth = 0): boolean {
+  if (depth > 4 || !error || typeof error !== "object") return false;
+  const code = (error as { code?: unknown }).code;
+  if (typeof code === "string" && unavailableCodes.has(code)) return true;
+  const gathered = (error as { errors?: unknown }).errors;
+  if (Array.isArray(gathered) && gathered.some((inner) => isDatabaseUnavailable(inner, depth + 1))) return true;
+  return isDatabaseUnavailable((error as { cause?: unknown }).cause, depth + 1);
 }
 
 /**

@@ -1,7 +1,7 @@
 import postgres from "postgres";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoAccounts, demoProposal, type DemoAccount } from "@/db/seed/demo-scenario";
-import { startCluster, startInstance, tailOf, type AppInstance, type TestCluster } from "./support/instances";
+import { startCluster, startInstance, unexpectedErrorsOf, type AppInstance, type TestCluster } from "./support/instances";
 import { call, callOk, proposalIdByTitle, signIn } from "./support/members";
 
 // Issue #9, item 2: PostgreSQL goes away for 20 s in the middle of a steady mixed load and comes back.
@@ -178,7 +178,7 @@ describe("PostgreSQL stopped for 20 s under load, then started again", () => {
         `page during the outage ${page} in ${pageMs.toFixed(0)} ms; 2xx again ${(recoveredAt - startEnd).toFixed(0)} ms after PostgreSQL was up, then ${failedAfterRecovery.length} of ${afterRecovery.length} failed` +
         (failedAfterRecovery.length > 0 ? ` (${failedAfterRecovery.slice(0, 3).map(describeSample).join("; ")})` : ""),
     );
-    const appLog = () => tailOf(app!.logFile);
+    const appLog = () => unexpectedErrorsOf(app!.logFile);
 
     // No request hangs: every one has an answer within the bound, before, during and after.
     expect(samples.filter((s) => s.status === 0 || s.durationMs >= maxRequestMs).map(describeSample), appLog()).toEqual([]);

@@ -43,6 +43,17 @@ export function tailOf(logFile: string, lines = 40): string {
   }
 }
 
+/** The app's "unexpected error" reports (a 500's cause), each with the lines after it; the log's tail when there is none. */
+export function unexpectedErrorsOf(logFile: string, linesEach = 25): string {
+  try {
+    const lines = readFileSync(logFile, "utf8").split("\n");
+    const reports = lines.flatMap((line, index) => (line.includes("unexpected error") ? [lines.slice(index, index + linesEach).join("\n")] : []));
+    return reports.length > 0 ? reports.slice(0, 3).join("\n---\n") : tailOf(logFile);
+  } catch {
+    return "(no log)";
+  }
+}
+
 export interface TestCluster {
   /** Folder for this cluster and for the logs of everything the test starts. */
   root: string;
