@@ -62,7 +62,7 @@ function columnsFor(proposalId: string): ColumnDef<typeof features, TargetView>[
     },
     {
       accessorKey: "peakSignalToNoise",
-      header: () => <span title="Signal-to-noise of the magnified source at the brightest visit the science case needs">S/N at brightest</span>,
+      header: () => <span title="Signal-to-noise of what the science case measures at its brightest visit, exposing the whole time a visit leaves after its overhead">S/N at brightest</span>,
       cell: numberCell(3),
     },
     {

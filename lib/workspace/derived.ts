@@ -13,13 +13,10 @@ import {
 } from "@/lib/lensing/science-cases";
 import type { LensSolution } from "@/lib/lensing/solution";
 import { targetPhotonBudget, type PhotonBudgetInputs, type PhotonBudgetOutcome } from "@/lib/lensing/photon-budget";
-import { photometryBandOf, psfShapeOf, siteSkyOf } from "@/lib/workspace/photometry-schema";
+import { bandSkyOf, psfShapeOf } from "@/lib/workspace/photometry-schema";
 import { observingSchedules, type ObservingSchedule, type ScheduleConditions } from "@/lib/schedule";
 import { skySiteOf, type ProposalInput } from "@/lib/workspace/proposal-schema";
 import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from "@/lib/workspace/target-schema";
-
-/** The band whose extinction the moonlit-sky model (V only) reads. */
-const V_BAND_ID = "jc-v";
 
 /**
  * The version of the rules the stored derived columns were computed with. Raise it with every change
@@ -36,7 +33,7 @@ export interface DerivedColumns {
   timeDelayDays: number | null;
   crossingTimeDays: number | null;
   shadowDiameterMicroarcsec: number | null;
-  /** The photon budget: hours requested over the visits the case needs, and the S/N at the brightest of them; null without a budget. */
+  /** The photon budget: hours requested over the visits the case needs, and the S/N at the brightest of them in the whole exposure a visit leaves; null without a budget. */
   timeRequestHours: number | null;
   peakSignalToNoise: number | null;
   /** The case the answers are for (chosen, else inferred); null when the hypothesis cannot be solved. */
@@ -156,11 +153,8 @@ export function photonBudgetInputsOf(h: LensHypothesis, settings: FeasibilitySet
   if (p === null) return { notApplicable: true };
   if (p.apertureM === null) return { missing: "Set the telescope's aperture in the proposal's photometry settings to compute the photon budget." };
   if (h.sourceMagnitude == null) return { missing: "Set the source's magnitude (in the proposal's band, or name its band) to compute the photon budget." };
-  const bandId = h.sourceBand ?? p.bandId;
-  const band = photometryBandOf(p, bandId);
-  if (band === undefined) return { missing: "Set the proposal's own band in the photometry settings (the source's magnitude is given in it), or choose a built-in band for the source." };
-  const sky = siteSkyOf(p, bandId);
-  if (sky === null) return { missing: `Set the site's dark sky and extinction in ${band.label} in the photometry settings.` };
+  const bandSky = bandSkyOf(p, h.sourceBand ?? p.bandId);
+  if ("missing" in bandSky) return bandSky;
   const visitExposureS = settings.instrument.visitMinutes * 60 - p.overheadS;
   return {
     setup: {
@@ -176,12 +170,7 @@ export function photonBudgetInputsOf(h: LensHypothesis, settings: FeasibilitySet
         psf: psfShapeOf(p.psfShape),
         overheadS: p.overheadS,
       },
-      sky: {
-        band,
-        darkSkyZenithMagPerArcsec2: sky.darkSkyMagPerArcsec2,
-        extinctionMagPerAirmass: sky.extinctionMagPerAirmass,
-        extinctionV: siteSkyOf(p, V_BAND_ID)!.extinctionMagPerAirmass,
-      },
+      sky: bandSky.sky,
       signalToNoiseGoal: p.signalToNoiseGoal,
       visitExposureS,
     },
