@@ -27,3 +27,12 @@ export function SeasonFigureDownloads({ proposalId }: { proposalId: string }) {
     </section>
   );
 }
+
+/** The sky brightness through one target's night in its band, exported with the proposal's site and photometry settings. */
+export function NightSkyFigureDownloads({ proposalId, targetId, nightIso }: { proposalId: string; targetId: string; nightIso: string }) {
+  return (
+    <section aria-label="Sky brightness figure export" className="text-sm">
+      <FigureDownloads path={`/api/proposals/${proposalId}/exports/figures/night-sky`} query={{ targetId, date: nightIso }} figureName="sky brightness figure" />
+    </section>
+  );
+}

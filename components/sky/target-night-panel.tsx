@@ -4,6 +4,10 @@ import { useEffect, useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { NightChart } from "@/lib/figures/night-chart";
+import { NightSkyBrightnessChart } from "@/lib/figures/night-sky-brightness";
+import { nightSkyBrightness } from "@/lib/photometry/night-sky";
+import type { BandSky } from "@/lib/photometry/visit-budget";
+import { NightSkyFigureDownloads } from "@/components/exports/sky-figure-downloads";
 import type { ObservingSchedule } from "@/lib/schedule";
 import { nightPlan } from "@/lib/schedule/timeline-plot";
 import { NightDateControl } from "./night-date-control";
@@ -17,6 +21,10 @@ interface TargetNightPanelProps {
   initialNightIso: string;
   /** The target's simulated schedule over the proposal's cycle (computed on the server); null without cycle dates. */
   schedule: ObservingSchedule | null;
+  /** The target's band with the site's sky in it (the proposal's photometry settings), or why there is none, in words. */
+  bandSky: { sky: BandSky } | { missing: string };
+  /** Where the sky brightness figure is exported from; absent: no download buttons. */
+  figureExport?: { proposalId: string; targetId: string };
 }
 
 /**
@@ -25,7 +33,7 @@ interface TargetNightPanelProps {
  * cadence longer than a night carries over from the nights before) and the date control. The night
  * lives in the address bar (`?night=`), so a link reopens it.
  */
-export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, schedule }: TargetNightPanelProps) {
+export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, schedule, bandSky, figureExport }: TargetNightPanelProps) {
   const [nightIso, setNightIso] = useState(initialNightIso);
   const result = useMemo(() => {
     try {
@@ -35,6 +43,14 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, 
     }
   }, [site, target, nightIso, airmassLimit]);
   const plan = useMemo(() => nightPlan(schedule, nightIso), [schedule, nightIso]);
+  const nightSky = useMemo(() => {
+    if ("missing" in bandSky) return { sky: null, error: bandSky.missing };
+    try {
+      return { sky: nightSkyBrightness({ site, target, nightDateIso: nightIso, bandSky: bandSky.sky }), error: null };
+    } catch (error) {
+      return { sky: null, error: `The sky brightness could not be computed: ${error instanceof Error ? error.message : String(error)}` };
+    }
+  }, [site, target, nightIso, bandSky]);
 
   useEffect(() => {
     const url = new URL(window.location.href);
@@ -62,6 +78,28 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, 
             </p>
           </div>
           <NightFigures visibility={result.visibility} />
+          <div className="rounded-md border border-void-edge lg:col-span-2" data-testid="night-sky-panel">
+            {nightSky.sky !== null ? (
+              <>
+                <NightSkyBrightnessChart sky={nightSky.sky} />
+                <p className="px-3 py-2 text-xs text-dusk-dim">
+                  Sky surface brightness at the target in its band through astronomical darkness while it is up (brighter up): the dark sky at the target&apos;s zenith distance (the site&apos;s zenith value,
+                  Krisciunas &amp; Schaefer 1991 eq. 2) dashed, and with the Moon&apos;s light added (K&amp;S eq. 15 in V, carried to the band by the Sun&apos;s colour), the Moon&apos;s share hatched
+                  between them. The model adds the Moon&apos;s light from the moment its centre clears the horizon, hence the step at moonrise. The same sky the photon budget grades
+                  each visit under. Times UTC.
+                </p>
+                {figureExport !== undefined ? (
+                  <div className="px-3 pb-2">
+                    <NightSkyFigureDownloads proposalId={figureExport.proposalId} targetId={figureExport.targetId} nightIso={nightIso} />
+                  </div>
+                ) : null}
+              </>
+            ) : (
+              <p className="px-3 py-2 text-sm text-dusk-dim" data-testid="night-sky-missing">
+                No sky brightness figure: {nightSky.error}
+              </p>
+            )}
+          </div>
         </div>
       ) : (
         <p role="alert" className="text-alarm">

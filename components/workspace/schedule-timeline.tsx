@@ -3,7 +3,9 @@ import { line, scaleLinear, scaleLog, type ScaleContinuousNumeric } from "d3";
 import { addDaysIso } from "@/lib/astro/time";
 import { defaultMargins, Marker, PlotAxes } from "@/lib/figures/plot-axes";
 import { dashPatterns, plotFont, plotPalette } from "@/lib/figures/plot-palette";
+import { signalToNoiseAxis, signalToNoiseMarks } from "@/lib/figures/signal-to-noise-track";
 import { delayedImagesTimeline, lightCurveTimeline, type TimelinePoint } from "@/lib/figures/timeline-event";
+import type { TargetPhotonBudget } from "@/lib/lensing/photon-budget";
 import type { EventTiming, ScienceCaseId } from "@/lib/lensing/science-cases";
 import { dateWords, dayWords, daysWords, numberWords } from "@/lib/lensing/science-case-words";
 import type { LensSolution } from "@/lib/lensing/solution";
@@ -19,6 +21,8 @@ interface ScheduleTimelineProps {
   solution: LensSolution | null;
   /** t0, u0, ρ and limb darkening; null without a lens solution. */
   event: EventTiming | null;
+  /** The target's photon budget: its S/N per visit is drawn as a track under the event; null or absent without one. */
+  photonBudget?: TargetPhotonBudget | null;
   width?: number;
 }
 
@@ -29,6 +33,7 @@ const PANEL_TOP = 56;
 const EVENT_HEIGHT = 170;
 const PANEL_GAP = 22;
 const NIGHTS_HEIGHT = 140;
+const SIGNAL_TO_NOISE_HEIGHT = 120;
 /** Width of a character of the 11-px plot font, roughly (as PlotLegend reckons it), and the space kept between labels. */
 const CHAR_WIDTH_PX = 5.6;
 const LABEL_SPACING_PX = 4;
@@ -172,8 +177,9 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
   const curveMarks = visitMarks(schedule.visitsJdUtc, schedule.visitLengthDays, daysPerPx);
   const panel = eventPanelOf(props, schedule, curveMarks.map((mark) => (mark.startJdUtc + mark.endJdUtc) / 2));
   const hasCurve = panel !== null && typeof panel !== "string";
-  const eventBottom = PANEL_TOP + EVENT_HEIGHT;
-  const nightsTop = hasCurve ? eventBottom + PANEL_GAP : PANEL_TOP;
+  const budget = props.photonBudget != null && props.photonBudget.visitsJdUtc.length > 0 ? props.photonBudget : null;
+  const signalToNoiseTop = hasCurve ? PANEL_TOP + EVENT_HEIGHT + PANEL_GAP : PANEL_TOP;
+  const nightsTop = budget !== null ? signalToNoiseTop + SIGNAL_TO_NOISE_HEIGHT + PANEL_GAP : signalToNoiseTop;
   const nightsBottom = nightsTop + NIGHTS_HEIGHT;
   const height = nightsBottom + margins.bottom;
 
@@ -197,7 +203,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
   const idBase = `schedule-${useId().replace(/[^A-Za-z0-9-]/g, "")}`;
   const clipId = `${idBase}-nights`;
   const hatchId = `${idBase}-sun`;
-  const title = panel !== null && typeof panel !== "string" && panel.kind === "delay" ? "Delayed images (illustrative) and the schedule" : hasCurve ? "Light curve and the schedule" : "Usable windows and visits";
+  const title = panel !== null && typeof panel !== "string" && panel.kind === "delay" ? "Delayed images (illustrative) and the schedule" : hasCurve ? "Light curve and the schedule" : budget !== null ? "S/N per visit and the schedule" : "Usable windows and visits";
 
   return (
     <>
@@ -230,6 +236,9 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
             ))}
           </g>
           {hasCurve ? <EventPlot panel={panel} x={x} xGrid={xGrid} width={width} height={height} toDay={toDay} runs={runs} clipId={`${idBase}-event`} /> : null}
+          {budget !== null ? (
+            <SignalToNoisePlot budget={budget} schedule={schedule} x={x} xGrid={xGrid} width={width} height={height} top={signalToNoiseTop} toDay={toDay} daysPerPx={daysPerPx} clipId={`${idBase}-snr`} />
+          ) : null}
           <PlotAxes x={x} y={y} width={width} height={height} margins={{ ...margins, top: nightsTop }} xLabel={`night (evening date, ${firstNightIso.slice(0, 4)}${addDaysIso(firstNightIso, nightCount - 1).slice(0, 4) !== firstNightIso.slice(0, 4) ? `–${addDaysIso(firstNightIso, nightCount - 1).slice(0, 4)}` : ""})`} yLabel="local mean time" yTicks={4} title={title} />
           <g clipPath={`url(#${clipId})`}>
             <rect x={x0} y={nightsTop} width={x1 - x0} height={NIGHTS_HEIGHT} fill={spanFill.daylight} fillOpacity={0.6} />
@@ -263,6 +272,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
         <figcaption className="space-y-1 text-xs text-dusk-dim">
           <p>{scheduleSummary(schedule)}</p>
           {typeof panel === "string" ? <p>{panel}</p> : panel !== null ? <p>{panel.note}</p> : null}
+          {budget !== null ? <p data-testid="schedule-snr-note">{signalToNoiseNote(budget, hasCurve)}</p> : null}
           <p>
             {hasCurve ? "Top: nights with usable time shaded green; long runs of nights without any are named above the chart. Bottom: each" : "Long runs of nights without usable time are named above the chart. Each"}{" "}
             night of the cycle as a column, from evening (top) to morning in local mean time: usable windows in green, the rest coloured by why it is lost, visits in white.
@@ -270,6 +280,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
         </figcaption>
         <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs" aria-label="Legend">
           {hasCurve ? eventLegend(panel).map((entry) => <LegendItem key={entry.label} {...entry} />) : null}
+          {budget !== null ? signalToNoiseLegend(budget).map((entry) => <LegendItem key={entry.label} {...entry} />) : null}
           <LegendItem shape="area" color={spanFill.usable} label="usable window" />
           <LegendItem shape="area" color={plotPalette.white} label="visit (nights below)" />
           {gapReasons.map((reason) => (reason === "daylight" || shownKinds.has(reason) ? <LegendItem key={reason} shape="area" color={spanFill[reason]} label={gapReasonLabels[reason]} /> : null))}
@@ -282,7 +293,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
 interface LegendEntry {
   label: string;
   color: string;
-  shape: "area" | "line" | "dashed" | "circle" | "diamond";
+  shape: "area" | "line" | "dashed" | "circle" | "diamond" | "triangle" | "square";
 }
 
 /** The event panel's entries: its curve(s), the visits on them and the dates marked. */
@@ -305,6 +316,12 @@ function LegendItem({ color, label, shape }: LegendEntry) {
       <span className="inline-block h-2 w-2 rounded-full border-2" style={{ borderColor: color }} />
     ) : shape === "diamond" ? (
       <span className="inline-block h-2 w-2 rotate-45 border-2" style={{ borderColor: color }} />
+    ) : shape === "square" ? (
+      <span className="inline-block h-2.5 w-2.5 border-2" style={{ borderColor: color }} />
+    ) : shape === "triangle" ? (
+      <svg width="10" height="10" viewBox="0 0 10 10">
+        <path d="M1,1 L9,1 L5,9 Z" fill={color} />
+      </svg>
     ) : (
       <span className="inline-block w-5 border-t-2" style={{ borderColor: color, borderTopStyle: shape === "dashed" ? "dashed" : "solid" }} />
     );
@@ -398,6 +415,108 @@ function EventPlot({ panel, x, xGrid, width, height, toDay, runs, clipId }: Even
         ))}
       <PlotAxes x={xGrid} y={y} width={width} height={height} margins={margins} xLabel="" yLabel={yLabel} yTicks={4} title="" />
       <g clipPath={`url(#${clipId})`}>{curves}</g>
+    </g>
+  );
+}
+
+/** The S/N track's sentence for the caption: what is drawn and how many visits fall short. */
+function signalToNoiseNote(budget: TargetPhotonBudget, hasCurve: boolean): string {
+  const count = budget.visitsJdUtc.length;
+  const worst = budget.series.signalToNoise[budget.worstVisit];
+  const short = budget.shortVisits === 0 ? "every visit reaches the goal" : `${budget.shortVisits} of ${count} ${count === 1 ? "visit falls" : "visits fall"} short of it (drawn as triangles)`;
+  return `${hasCurve ? "Middle" : "Top"}: the S/N each of the ${count} ${count === 1 ? "visit" : "visits"} the case needs reaches in ${budget.bandLabel} in the ${numberWords(budget.visitExposureS)} s a visit leaves after its overhead, under its own air mass and Moon (the photon budget), against the S/N goal of ${numberWords(budget.signalToNoiseGoal)}: ${short}; the worst visit (S/N ${numberWords(worst)}, ${dateWords(budget.visitsJdUtc[budget.worstVisit])}) is boxed.`;
+}
+
+/** The S/N track's legend entries (the states drawn): each by its own shape as well as its colour. */
+function signalToNoiseLegend(budget: TargetPhotonBudget): LegendEntry[] {
+  const count = budget.visitsJdUtc.length;
+  return [
+    ...(budget.shortVisits < count ? [{ label: "visit S/N, goal reached", color: plotPalette.skyBlue, shape: "circle" } as const] : []),
+    ...(budget.shortVisits > 0 ? [{ label: "visit S/N, below the goal", color: plotPalette.vermillion, shape: "triangle" } as const] : []),
+    { label: `S/N goal ${numberWords(budget.signalToNoiseGoal)}`, color: plotPalette.orange, shape: "dashed" },
+    { label: "worst visit", color: plotPalette.white, shape: "square" },
+  ];
+}
+
+interface SignalToNoisePlotProps {
+  budget: TargetPhotonBudget;
+  schedule: ObservingSchedule;
+  x: ScaleContinuousNumeric<number, number>;
+  xGrid: ScaleContinuousNumeric<number, number>;
+  width: number;
+  height: number;
+  top: number;
+  toDay: (jdUtc: number) => number;
+  daysPerPx: number;
+  clipId: string;
+}
+
+/**
+ * The S/N track: each visit the case needs at its middle, at the S/N it reaches in the time the
+ * visit leaves (`series.signalToNoise`), the goal as a labelled dashed line, visits below it as
+ * filled triangles and the others as hollow circles (the lowest and highest per pixel column), the
+ * worst visit boxed and labelled; log axis when the S/N spans more than a factor of ten.
+ */
+function SignalToNoisePlot({ budget, schedule, x, xGrid, width, height, top, toDay, daysPerPx, clipId }: SignalToNoisePlotProps) {
+  const bottom = top + SIGNAL_TO_NOISE_HEIGHT;
+  const margins = { ...defaultMargins, top, bottom: height - bottom };
+  const [x0, x1] = x.range();
+  const { signalToNoise } = budget.series;
+  const goal = budget.signalToNoiseGoal;
+  const axis = signalToNoiseAxis(signalToNoise, goal);
+  const y: ScaleContinuousNumeric<number, number> = axis.isLog
+    ? scaleLog().domain([axis.low, axis.high]).range([bottom, top]).clamp(true)
+    : scaleLinear().domain([axis.low, axis.high]).nice().range([bottom, top]);
+  // On a log axis every 1–9 × 10ⁿ has a grid line; only 1, 2 and 5 × 10ⁿ are labelled, so the S/N range always carries numbers.
+  if (axis.isLog) y.tickFormat = () => (value) => ([1, 2, 5].includes(Math.round(Number(value) / 10 ** Math.floor(Math.log10(Number(value)) + 1e-9))) ? numberWords(Number(value)) : "");
+  const marks = signalToNoiseMarks(budget.visitsJdUtc, schedule.visitLengthDays, signalToNoise, goal, daysPerPx, schedule.cycle.startJdUtc);
+  const worstJdUtc = budget.visitsJdUtc[budget.worstVisit] + schedule.visitLengthDays / 2;
+  const worstX = tenth(x(toDay(worstJdUtc)));
+  const worstY = tenth(y(signalToNoise[budget.worstVisit]));
+  const worstText = `worst: S/N ${numberWords(signalToNoise[budget.worstVisit])}`;
+  const isWorstOnRight = worstX > (x0 + x1) / 2;
+  return (
+    <g data-testid="schedule-snr-track">
+      <defs>
+        <clipPath id={clipId}>
+          <rect x={x0} y={top} width={x1 - x0} height={bottom - top} />
+        </clipPath>
+      </defs>
+      <PlotAxes x={xGrid} y={y} width={width} height={height} margins={margins} xLabel="" yLabel={axis.isLog ? "S/N per visit (log)" : "S/N per visit"} yTicks={4} title="" />
+      <g clipPath={`url(#${clipId})`}>
+        <line x1={x0} x2={x1} y1={tenth(y(goal))} y2={tenth(y(goal))} stroke={plotPalette.orange} strokeWidth={1.5} strokeDasharray={dashPatterns.dashed} />
+        <text x={x1 - 4} y={tenth(y(goal)) - 4} textAnchor="end" fontFamily={plotFont} fontSize={11} fill={plotPalette.orange} data-testid="schedule-snr-goal">
+          S/N goal {numberWords(goal)}
+        </text>
+        {marks.map((mark) =>
+          mark.isBelowGoal ? (
+            <path
+              key={mark.visit}
+              d={`M${tenth(x(toDay(mark.jdUtc)) - 3.5)},${tenth(y(mark.signalToNoise) - 3)} L${tenth(x(toDay(mark.jdUtc)) + 3.5)},${tenth(y(mark.signalToNoise) - 3)} L${tenth(x(toDay(mark.jdUtc)))},${tenth(y(mark.signalToNoise) + 3.5)} Z`}
+              fill={plotPalette.vermillion}
+              data-below-goal="true"
+            />
+          ) : (
+            <Marker key={mark.visit} shape="circle" cx={tenth(x(toDay(mark.jdUtc)))} cy={tenth(y(mark.signalToNoise))} size={4} color={plotPalette.skyBlue} isHollow />
+          ),
+        )}
+      </g>
+      <g>
+        <rect x={worstX - 6} y={worstY - 6} width={12} height={12} fill="none" stroke={plotPalette.white} strokeWidth={1.5} data-testid="schedule-snr-worst" />
+        <text
+          x={isWorstOnRight ? worstX - 9 : worstX + 9}
+          y={worstY + (worstY - top < 16 ? 14 : -8)}
+          textAnchor={isWorstOnRight ? "end" : "start"}
+          fontFamily={plotFont}
+          fontSize={11}
+          fill={plotPalette.white}
+          stroke={plotPalette.ground}
+          strokeWidth={3}
+          paintOrder="stroke"
+        >
+          {worstText}
+        </text>
+      </g>
     </g>
   );
 }

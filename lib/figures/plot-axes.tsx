@@ -96,23 +96,33 @@ export function Marker({ shape, cx, cy, size, color, isHollow = false }: { shape
   }
 }
 
-/** A boxed legend at (x, y): a line sample (with its dash) and/or a marker per entry. */
-export function PlotLegend({ entries, x, y }: { entries: LegendEntry[]; x: number; y: number }) {
+/**
+ * A legend at (x, y): a line sample (with its dash) and/or a marker per entry, in a box one entry a
+ * row, or with `isRow` side by side without a box (for a strip between a title and its plot).
+ */
+export function PlotLegend({ entries, x, y, isRow = false }: { entries: LegendEntry[]; x: number; y: number; isRow?: boolean }) {
   const rowHeight = 15;
   const width = 12 + 30 + 6 + Math.max(...entries.map((entry) => entry.label.length)) * 5.6;
+  let left = x;
+  const places = entries.map((entry, index) => {
+    if (!isRow) return { x, cy: y + 11 + index * rowHeight };
+    const place = { x: left, cy: y + 11 };
+    left += 48 + entry.label.length * 5.6;
+    return place;
+  });
   return (
     <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
-      <rect x={x} y={y} width={width} height={entries.length * rowHeight + 8} fill={plotPalette.ground} fillOpacity={0.85} stroke={plotPalette.grid} />
+      {isRow ? null : <rect x={x} y={y} width={width} height={entries.length * rowHeight + 8} fill={plotPalette.ground} fillOpacity={0.85} stroke={plotPalette.grid} />}
       {entries.map((entry, index) => {
-        const cy = y + 11 + index * rowHeight;
+        const { x: at, cy } = places[index];
         return (
           <g key={entry.label}>
             {entry.marker === undefined ? (
-              <line x1={x + 6} x2={x + 36} y1={cy} y2={cy} stroke={entry.color} strokeWidth={2} strokeDasharray={entry.dash} />
+              <line x1={at + 6} x2={at + 36} y1={cy} y2={cy} stroke={entry.color} strokeWidth={2} strokeDasharray={entry.dash} />
             ) : (
-              <Marker shape={entry.marker} cx={x + 21} cy={cy} size={7} color={entry.color} />
+              <Marker shape={entry.marker} cx={at + 21} cy={cy} size={7} color={entry.color} />
             )}
-            <text x={x + 42} y={cy + 4}>
+            <text x={at + 42} y={cy + 4}>
               {entry.label}
             </text>
           </g>

@@ -8,6 +8,8 @@ import { airmassPickering } from "@/lib/astro/airmass";
 import { apparentDirectionOfDate, type ApparentPlaceContext } from "@/lib/astro/apparent-place";
 import { SIDEREAL_RATE_DEG_PER_DAY } from "@/lib/astro/constants";
 import type { SkySite, SkyTarget } from "@/lib/astro/inputs";
+import type { NightGrid } from "@/lib/astro/night-grid";
+import type { NightMoon } from "@/lib/astro/night-moon";
 import { apparentAltitudeDeg } from "@/lib/astro/refraction";
 import type { ScheduleNight } from "./night";
 import type { VisitSky } from "./types";
@@ -53,7 +55,7 @@ export class VisitSkyNights {
   }
 
   /** Keeps what the visits of `night` need; a night without darkness keeps nothing (it holds no visit). */
-  add(night: ScheduleNight): void {
+  add(night: Pick<ScheduleNight, "index" | "grid" | "moon">): void {
     const { grid, moon } = night;
     if (moon === null) return;
     const from = moon.fromSample;
@@ -139,4 +141,20 @@ export class VisitSkyNights {
     }
     return sky;
   }
+}
+
+/**
+ * The sky of `target` (ICRS degrees) at each of `timesJdUtc` (JD UTC, ascending, inside the dark
+ * span of the night of `grid` and `moon`, built by `buildNightGrid` and `nightMoon` as the schedule
+ * builds its nights): what `VisitSkyNights.skyOf` gives a visit of zero length at each time, so a
+ * figure through the night reads the same conditions as the visits (method and accuracy: `skyOf`).
+ * `refractionScale` of the site's elevation (`lib/astro/refraction.ts`). Null when the night has no
+ * astronomical darkness (`moon` null). A time outside the dark span takes the Moon of the span's
+ * nearer end.
+ */
+export function skyAtTimes(site: SkySite, grid: NightGrid, moon: NightMoon | null, refractionScale: number, target: SkyTarget, timesJdUtc: Float64Array): VisitSky | null {
+  if (moon === null) return null;
+  const nights = new VisitSkyNights(site, grid.startJdUtc, 1, refractionScale);
+  nights.add({ index: 0, grid, moon });
+  return nights.skyOf(target, timesJdUtc, 0);
 }

@@ -14,6 +14,7 @@ import { z } from "zod";
 import type { FieldErrors } from "@/lib/errors";
 import { standardBand, standardBandIds, typicalDarkSiteConditions, validateCustomBand, type PhotometricBand } from "@/lib/photometry/bands";
 import { KOLMOGOROV_MOFFAT_BETA, type PsfShape } from "@/lib/photometry/psf";
+import type { BandSky } from "@/lib/photometry/visit-budget";
 import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 
 export const photometryQuantities = {
@@ -226,6 +227,29 @@ export function siteSkyOf(p: Pick<PhotometrySettings, "skyByBand">, bandId: stri
   if (own !== undefined) return { ...own, isTypical: false };
   const typical = typicalDarkSiteConditions[bandId];
   return typical === undefined ? null : { darkSkyMagPerArcsec2: typical.darkSkyMagPerArcsec2, extinctionMagPerAirmass: typical.extinctionMagPerAirmass, isTypical: true };
+}
+
+/** The band whose extinction the moonlit-sky model (V only) reads. */
+const V_BAND_ID = "jc-v";
+
+/**
+ * The band `bandId` (a target's source band, else the proposal's) with the site's sky in it, as the
+ * photometry layer reads them, or the missing setting in words: a custom band not described yet, or
+ * a custom band without the site's dark sky and extinction in it.
+ */
+export function bandSkyOf(p: Pick<PhotometrySettings, "customBand" | "skyByBand">, bandId: string): { sky: BandSky } | { missing: string } {
+  const band = photometryBandOf(p, bandId);
+  if (band === undefined) return { missing: "Set the proposal's own band in the photometry settings (the source's magnitude is given in it), or choose a built-in band for the source." };
+  const sky = siteSkyOf(p, bandId);
+  if (sky === null) return { missing: `Set the site's dark sky and extinction in ${band.label} in the photometry settings.` };
+  return {
+    sky: {
+      band,
+      darkSkyZenithMagPerArcsec2: sky.darkSkyMagPerArcsec2,
+      extinctionMagPerAirmass: sky.extinctionMagPerAirmass,
+      extinctionV: siteSkyOf(p, V_BAND_ID)!.extinctionMagPerAirmass,
+    },
+  };
 }
 
 /** The PSF model of the settings (Moffat with the Kolmogorov β, or Gaussian). */

@@ -3,18 +3,22 @@ import type { SkyLimitsInput, SkySiteInput, SkyTarget } from "@/lib/astro/inputs
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
 import { NightChart } from "@/lib/figures/night-chart";
+import { NightSkyBrightnessChart, nightSkyBrightnessTitle } from "@/lib/figures/night-sky-brightness";
+import { nightSkyBrightness } from "@/lib/photometry/night-sky";
+import type { BandSky } from "@/lib/photometry/visit-budget";
 import { SeasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfSchedules } from "@/lib/figures/season-view";
 import { observingSchedules, type ScheduleConditions } from "@/lib/schedule";
 import { skyQueryToString } from "@/lib/astro/sky-query";
 import type { PlotExport } from "./figure-response";
 
-export const skyFigureKinds = ["night", "season"] as const;
+export const skyFigureKinds = ["night", "season", "night-sky"] as const;
 export type SkyFigureKind = (typeof skyFigureKinds)[number];
 
 /** The sky views draw at these sizes (CSS px); the season chart grows one row per target. */
 export const NIGHT_CHART_WIDTH_PX = 760;
 export const NIGHT_CHART_HEIGHT_PX = 360;
+export const NIGHT_SKY_CHART_HEIGHT_PX = 340;
 export const SEASON_CHART_WIDTH_PX = 900;
 /** Rows the season figure draws at most: beyond a few dozen the names stop being legible on a page. */
 export const SEASON_FIGURE_MAX_ROWS = 60;
@@ -65,6 +69,38 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
     exportedAt: context.exportedAt,
   });
   return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance };
+}
+
+/**
+ * The sky brightness at one target through one night in its band (`nightSkyBrightness`), drawn by
+ * the target page's own component; the link back opens the target page on that night.
+ */
+export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, bandSky: BandSky, context: SkyContext & { reproducePath: string }): PlotExport {
+  const sky = nightSkyBrightness({ site: context.site, target, nightDateIso, bandSky });
+  const markup = renderStaticSvg(<NightSkyBrightnessChart sky={sky} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_SKY_CHART_HEIGHT_PX} />);
+  const title = nightSkyBrightnessTitle(sky);
+  const reproduceUrl = new URL(context.reproducePath, context.appOrigin);
+  reproduceUrl.searchParams.set("night", nightDateIso);
+  const provenance = buildProvenance({
+    subject: `Sky brightness: ${title}`,
+    reproduceUrl: reproduceUrl.toString(),
+    inputs: {
+      figure: "night-sky",
+      ...context.inputs,
+      target: target.name,
+      raDeg: target.raDeg,
+      decDeg: target.decDeg,
+      nightDateIso,
+      ...siteInputs(context),
+      band: bandSky.band.label,
+      darkSkyZenithMagPerArcsec2: bandSky.darkSkyZenithMagPerArcsec2,
+      extinctionMagPerAirmass: bandSky.extinctionMagPerAirmass,
+      extinctionV: bandSky.extinctionV,
+      method: "Krisciunas & Schaefer 1991 eq. 2 dark sky and eq. 15 moonlight (V, carried to the band by the Sun's colour), summed in flux; astronomy-engine 2.1 Sun and Moon",
+    },
+    exportedAt: context.exportedAt,
+  });
+  return { markup, title, fileStem: `sky-${target.name}-${nightDateIso}`, provenance };
 }
 
 /**

@@ -8,9 +8,10 @@ import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
 import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
-import { nightPlotExport, scheduleSeasonPlotExport, skyFigureKinds } from "@/lib/exports/figures/sky-figures";
+import { nightPlotExport, nightSkyPlotExport, scheduleSeasonPlotExport, skyFigureKinds } from "@/lib/exports/figures/sky-figures";
 import { addDaysIso } from "@/lib/astro/time";
 import { scheduleConditionsOf } from "@/lib/workspace/derived";
+import { bandSkyOf, storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
@@ -53,13 +54,14 @@ function cycleNights(p: Proposal): number | undefined {
 }
 
 /**
- * A proposal's sky figure as any member sees it: `night` (one target, `targetId` and `date`) or
- * `season` (every target, from `start` for `nights` nights; defaults: the proposal's cycle, else
- * today for 183 nights). Order: validate → session → load and role → compute.
+ * A proposal's sky figure as any member sees it: `night` (one target, `targetId` and `date`),
+ * `night-sky` (the sky brightness at one target through that night, in its band: the target's source
+ * band, else the proposal's) or `season` (every target, from `start` for `nights` nights; defaults:
+ * the proposal's cycle, else today for 183 nights). Order: validate → session → load and role → compute.
  */
 export async function loadSkyFigure(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<PlotExport> {
   const { proposalId, figure } = parseIds(skyFigureParamsSchema, params, "figure");
-  const night = figure === "night" ? parseOrThrow(nightQuerySchema, { targetId: query.targetId, date: query.date }, "figure") : undefined;
+  const night = figure === "night" || figure === "night-sky" ? parseOrThrow(nightQuerySchema, { targetId: query.targetId, date: query.date }, "figure") : undefined;
   const season = figure === "season" ? parseOrThrow(seasonQuerySchema, { start: query.start, nights: query.nights }, "figure") : undefined;
   const who = requireActor(actor);
   const { db } = dbClient();
@@ -68,6 +70,13 @@ export async function loadSkyFigure(params: unknown, query: Record<string, strin
   if (night) {
     const [target] = await db.select().from(targets).where(and(eq(targets.id, night.targetId), eq(targets.proposalId, proposalId))).limit(1);
     if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
+    if (figure === "night-sky") {
+      const photometry = storedPhotometrySettings(proposal.photometry);
+      const bandSky = bandSkyOf(photometry, target.sourceBand ?? photometry.bandId);
+      if ("missing" in bandSky) throw new AppError("bad_request:figure", bandSky.missing, { _: [bandSky.missing] });
+      const inputs = { ...context.inputs, targetId: target.id };
+      return nightSkyPlotExport({ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }, night.date, bandSky.sky, { ...context, inputs, reproducePath: `/proposals/${proposal.id}/targets/${target.id}` });
+    }
     return nightPlotExport({ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }, night.date, { ...context, inputs: { ...context.inputs, targetId: target.id } });
   }
   const rows = await db

@@ -18,7 +18,7 @@ import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
 import { angleWords, numberWords } from "@/lib/lensing/science-case-words";
 import { skySiteOf } from "@/lib/workspace/proposal-schema";
-import { photometryBandOf } from "@/lib/workspace/photometry-schema";
+import { bandSkyOf, photometryBandOf } from "@/lib/workspace/photometry-schema";
 import { statusLabels } from "@/lib/workspace/status";
 import { lensModelLabels } from "@/lib/workspace/target-schema";
 import { listNotes } from "@/lib/server/notes";
@@ -201,13 +201,21 @@ export default async function TargetPage({
         )}
       </section>
       {report !== null && <PhotonBudgetPanel outcome={report.photonBudget} />}
-      <ScheduleTimeline schedule={schedule} caseId={report?.scienceCase.caseId ?? null} solution={report?.solution ?? null} event={event} />
+      <ScheduleTimeline
+        schedule={schedule}
+        caseId={report?.scienceCase.caseId ?? null}
+        solution={report?.solution ?? null}
+        event={event}
+        photonBudget={report !== null && "budget" in report.photonBudget ? report.photonBudget.budget : null}
+      />
       <TargetNightPanel
         site={site}
         target={{ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }}
         airmassLimit={instrument.airmassLimit}
         initialNightIso={initialNightIso}
         schedule={schedule}
+        bandSky={bandSkyOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId)}
+        figureExport={{ proposalId: proposal.id, targetId: target.id }}
       />
       <TargetNotes notesUrl={`${apiBase}/notes`} initialNotes={notes} canEdit={proposal.permissions.canEdit} />
     </div>
