@@ -17,7 +17,7 @@ function nightSky(actor: Actor | null, proposalId: string, query: string) {
 }
 
 describe("sky brightness figure export: the same role rules as the night chart", () => {
-  it("signed out 401, non-member 404; a viewer gets the SVG in the proposal's band with the night and band in its provenance, and a PNG at the chosen width", async () => {
+  it("signed out 401, non-member 404; a viewer gets the SVG in the proposal's band (no telescope aperture set: the sky needs none) with the night and band in its provenance, and a PNG at the chosen width", async () => {
     const world = await createWorld();
     const query = `targetId=${world.targetId}&date=2031-06-15&format=svg`;
     expect((await nightSky(null, world.proposalId, query)).status).toBe(401);
