@@ -73,8 +73,10 @@ async function main() {
   const { phases, filters } = parseArgs(process.argv.slice(2));
   const startedAt = Date.now();
   ensureNodeModules(repoRoot);
-  // The table exports are read back by astropy and STILTS (tests/validators/check_tables.py).
-  const validators = phases.includes("unit") || phases.includes("integration") ? ["python3-astropy", "stilts"] : [];
+  // The table exports are read back by astropy and STILTS (tests/validators/check_tables.py); the
+  // LaTeX export is compiled by pdflatex with Latin Modern fonts and read back by pdftotext
+  // (tests/integration/exports-latex.test.ts).
+  const validators = phases.includes("unit") || phases.includes("integration") ? ["python3-astropy", "stilts", "texlive-latex-base", "lmodern", "poppler-utils"] : [];
   ensureDebianPackages(["postgresql", ...validators, ...(phases.includes("e2e") ? ["chromium"] : [])]);
 
   const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));

@@ -10,19 +10,20 @@ import { loadTargetTable } from "./target-table";
 type ProposalParams = { proposalId: string };
 
 /**
- * /api/proposals/[proposalId]/exports/targets?format=csv|ecsv|tex|votable|json&columns=…&digits=…
+ * /api/proposals/[proposalId]/exports/targets?format=csv|ecsv|tex|votable|json&columns=…&digits=…&fit=shrink|landscape|split
+ * (`fit`: the LaTeX table's layout).
  * Every format's download carries the provenance record as JSON in the `Arcwright-Provenance`
  * header; a CSV file, which holds nothing but its table, also names its time of export.
  */
 export function targetTableExportRoutes(getActor: GetActor) {
   return {
     GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
-      const { table, format } = await loadTargetTable(params, queryOf(request), actor);
+      const { table, format, options } = await loadTargetTable(params, queryOf(request), actor);
       const writer = tableWriters[format];
       const stamp = writer.carriesProvenance ? "" : `-${exportStampOf(table.provenance)}`;
       const fileName = `${fileSlug(table.title)}-targets${stamp}.${writer.extension}`;
       const headers = { ...attachmentHeaders(fileName, writer.contentType), [PROVENANCE_HEADER]: provenanceHeaderValue(table.provenance) };
-      return new Response(writer.write(table), { headers });
+      return new Response(writer.write(table, options), { headers });
     }),
   };
 }

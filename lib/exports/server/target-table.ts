@@ -6,7 +6,7 @@ import { targets } from "@/db/schema";
 import { serverEnv } from "@/lib/env";
 import { buildProvenance } from "@/lib/exports/provenance";
 import { dataDigitsOf, tableColumnsQuerySchema, type ChosenColumn } from "@/lib/exports/tables/columns";
-import { tableFormats, type TableFormat } from "@/lib/exports/tables/formats";
+import { tableFormats, tableWriteOptionsSchema, type TableFormat, type TableWriteOptions } from "@/lib/exports/tables/formats";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
 import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
@@ -19,7 +19,7 @@ import { targetViewOf } from "@/lib/server/targets";
 /** Most rows one table export writes; far above a proposal's target list, low enough to bound the work. */
 export const MAX_EXPORT_ROWS = 20_000;
 
-const tableQuerySchema = z.object({
+const tableQuerySchema = tableWriteOptionsSchema.extend({
   format: z.enum(tableFormats, { error: `The format must be one of ${tableFormats.join(", ")}.` }).default("csv"),
   columns: z.string().optional(),
   digits: z.string().optional(),
@@ -30,9 +30,9 @@ const tableQuerySchema = z.object({
  * of the export. Any member may export, viewers included (the same rule as reading the table).
  * Order: validate the id and the query → session → load and role → read.
  */
-export async function loadTargetTable(params: unknown, query: unknown, actor: Actor | null): Promise<{ table: TargetTable; format: TableFormat }> {
+export async function loadTargetTable(params: unknown, query: unknown, actor: Actor | null): Promise<{ table: TargetTable; format: TableFormat; options: TableWriteOptions }> {
   const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
-  const { format, ...columnQuery } = parseOrThrow(tableQuerySchema, query, "export");
+  const { format, fit, ...columnQuery } = parseOrThrow(tableQuerySchema, query, "export");
   const columns = parseOrThrow(tableColumnsQuerySchema, columnQuery, "export");
   const who = requireActor(actor);
   const { db } = dbClient();
@@ -66,9 +66,10 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
       visitMinutes: instrument.visitMinutes,
       columns: columns.map((c) => c.column.key).join(","),
       digits: columns.filter((c) => c.column.kind === "double").map((c) => `${c.column.key}:${digitsOf(c)}`).join(","),
+      ...(format === "tex" ? { latexFit: fit } : {}),
       rowCount: rows.length,
       order: "priority, name",
     },
   });
-  return { table: { title: proposal.title, columns, rows: rows.map(targetViewOf), provenance }, format };
+  return { table: { title: proposal.title, columns, rows: rows.map(targetViewOf), provenance }, format, options: { fit } };
 }

@@ -1,68 +1,160 @@
 import { provenanceLines } from "@/lib/exports/provenance";
-import { cellOf, cellText, type ExportColumn } from "./columns";
+import { cellOf, cellText, type ChosenColumn } from "./columns";
+import { latexText } from "./latex-text";
 import { singleLine, type TargetTable } from "./table";
 
-const latexEscapes: Record<string, string> = {
-  "\\": "\\textbackslash{}",
-  "&": "\\&",
-  "%": "\\%",
-  $: "\\$",
-  "#": "\\#",
-  _: "\\_",
-  "{": "\\{",
-  "}": "\\}",
-  "~": "\\textasciitilde{}",
-  "^": "\\textasciicircum{}",
-};
+/**
+ * How a LaTeX table meets the text width (our names): `shrink` scales the table down to the line
+ * width when it is wider (never up); `landscape` turns it onto a page of its own (`sidewaystable`),
+ * shrunk to the page's length if still wider; `split` cuts the columns into several tables sized by
+ * estimate to fit, the first column repeated in each. Every table is also shrunk to the page's
+ * height when taller (see `float`), so none runs over the page.
+ */
+export const latexFits = ["shrink", "landscape", "split"] as const;
+export type LatexFit = (typeof latexFits)[number];
 
-/** Text safe in a LaTeX paragraph or table cell: the ten special characters escaped in one pass. */
-export function escapeLatex(text: string): string {
-  return text.replace(/[\\&%$#_{}~^]/g, (c) => latexEscapes[c]);
-}
-
-/** A number as LaTeX: exponent forms become $m\times10^{e}$, so they typeset as astronomers write them. */
+/** A number as LaTeX: negatives with a true minus, exponent forms as $m\times10^{e}$, as astronomers write them. */
 function latexNumber(text: string): string {
-  const match = /^(-?[\d.]+)e([+-]?\d+)$/.exec(text);
-  if (!match) return text;
-  const exponent = Number(match[2]);
-  return `$${match[1]}\\times10^{${exponent}}$`;
-}
-
-function latexHeader(column: ExportColumn): string {
-  const label = escapeLatex(column.label);
-  return column.latexUnit === "" ? label : `${label} (${column.latexUnit})`;
+  const exponential = /^(-?[\d.]+)e([+-]?\d+)$/.exec(text);
+  if (exponential) return `$${exponential[1]}\\times10^{${Number(exponential[2])}}$`;
+  if (/^-?Infinity$/.test(text)) return `$${text.replace("Infinity", "\\infty")}$`;
+  return text.startsWith("-") ? `$${text}$` : text;
 }
 
 /** Width of a paragraph column (the case's answers): about half an A4 text block. */
-const PARAGRAPH_WIDTH = "7cm";
+const PARAGRAPH_WIDTH_CM = 7;
+const PT_PER_CM = 72.27 / 2.54;
+/** \textwidth of LaTeX's article class at 10 pt, the width `split` sizes its parts for. */
+const SPLIT_TEXT_WIDTH_PT = 345;
+/** Mean width of a character of Computer Modern Roman 10 pt (digits are 5 pt; from memory of cmr10's metrics). */
+const CHARACTER_WIDTH_PT = 5;
+/** 2\tabcolsep of the standard classes: the space around each column. */
+const COLUMN_PADDING_PT = 12;
 
-/**
- * The table as a plain LaTeX `tabular` (no package needed: compiles with the LaTeX kernel alone),
- * preceded by `%` comment lines holding the provenance. Text columns left-aligned (a paragraph
- * column wrapped), numbers right; a value the model does not give is an en dash.
- */
-export function targetTableLatex(table: TargetTable): string {
-  const comments = provenanceLines(table.provenance).map((line) => `% ${singleLine(line)}`);
-  const alignment = table.columns.map(({ column }) => (column.isParagraph ? `p{${PARAGRAPH_WIDTH}}` : column.kind === "text" ? "l" : "r")).join("");
-  const header = table.columns.map(({ column }) => latexHeader(column)).join(" & ");
-  const rows = table.rows.map((row) =>
-    table.columns
-      .map((chosen) => {
-        const value = cellOf(row, chosen.column);
-        if (value === null) return "--";
-        return typeof value === "number" ? latexNumber(cellText(value, chosen)) : escapeLatex(singleLine(value));
-      })
-      .join(" & "),
-  );
+/** Text left, numbers right (common practice). */
+const sideOf = ({ column }: ChosenColumn): "l" | "r" => (column.kind === "text" ? "l" : "r");
+
+function alignmentOf(chosen: ChosenColumn): string {
+  return chosen.column.isParagraph ? `p{${PARAGRAPH_WIDTH_CM}cm}` : sideOf(chosen);
+}
+
+function cellLatex(row: TargetTable["rows"][number], chosen: ChosenColumn): string {
+  const value = cellOf(row, chosen.column);
+  if (value === null) return "--";
+  return typeof value === "number" ? latexNumber(cellText(value, chosen)) : latexText(singleLine(value));
+}
+
+/** Labels longer than this many characters are set on two lines. */
+const MAX_LABEL_LINE_LENGTH = 12;
+
+/** A label as one or two lines, broken at the space nearest its middle. */
+function labelLines(label: string): string[] {
+  if (label.length <= MAX_LABEL_LINE_LENGTH) return [label];
+  const spaces = [...label.matchAll(/ /g)].map((match) => match.index);
+  if (spaces.length === 0) return [label];
+  const middle = spaces.reduce((best, at) => (Math.abs(at - label.length / 2) < Math.abs(best - label.length / 2) ? at : best));
+  return [label.slice(0, middle), label.slice(middle + 1)];
+}
+
+/** A header cell: a two-line label stacked in a tabular of its own (no package needed), aligned as its column. */
+function headerLatex(chosen: ChosenColumn): string {
+  const lines = labelLines(chosen.column.label).map(latexText);
+  if (lines.length === 1) return lines[0];
+  return `\\begin{tabular}[b]{@{}${sideOf(chosen)}@{}}${lines.join(" \\\\ ")}\\end{tabular}`;
+}
+
+/** A column's estimated typeset width in points: its widest header line or cell, plus padding. */
+function estimatedWidthPt(table: TargetTable, chosen: ChosenColumn): number {
+  if (chosen.column.isParagraph) return PARAGRAPH_WIDTH_CM * PT_PER_CM + COLUMN_PADDING_PT;
+  const lengths = [
+    ...labelLines(chosen.column.label).map((line) => line.length),
+    chosen.column.unit.length + 2,
+    ...table.rows.map((row) => cellText(cellOf(row, chosen.column), chosen).length),
+  ];
+  return Math.max(...lengths) * CHARACTER_WIDTH_PT + COLUMN_PADDING_PT;
+}
+
+/** The columns cut into parts that each fit `SPLIT_TEXT_WIDTH_PT` by estimate, the first column leading each part. */
+function columnParts(table: TargetTable): ChosenColumn[][] {
+  const [first, ...rest] = table.columns;
+  const firstWidthPt = estimatedWidthPt(table, first);
+  const parts: ChosenColumn[][] = [[first]];
+  let widthPt = firstWidthPt;
+  for (const chosen of rest) {
+    const columnWidthPt = estimatedWidthPt(table, chosen);
+    if (widthPt + columnWidthPt > SPLIT_TEXT_WIDTH_PT && parts.at(-1)!.length > 1) {
+      parts.push([first]);
+      widthPt = firstWidthPt;
+    }
+    parts.at(-1)!.push(chosen);
+    widthPt += columnWidthPt;
+  }
+  return parts;
+}
+
+/** A `tabular` of some columns: labels, then units (when any column has one), then the rows. */
+function tabular(table: TargetTable, columns: ChosenColumn[]): string[] {
+  const labels = columns.map(headerLatex).join(" & ");
+  const hasUnits = columns.some(({ column }) => column.latexUnit !== "");
+  const units = columns.map(({ column }) => (column.latexUnit === "" ? "" : `(${column.latexUnit})`)).join(" & ");
   return [
-    ...comments,
-    `\\begin{tabular}{${alignment}}`,
+    `\\begin{tabular}{${columns.map(alignmentOf).join("")}}`,
     "\\hline",
-    `${header} \\\\`,
+    `${labels} \\\\`,
+    ...(hasUnits ? [`${units} \\\\`] : []),
     "\\hline",
-    ...rows.map((r) => `${r} \\\\`),
+    ...table.rows.map((row) => `${columns.map((chosen) => cellLatex(row, chosen)).join(" & ")} \\\\`),
     "\\hline",
     "\\end{tabular}",
-    "",
-  ].join("\n");
+  ];
+}
+
+/**
+ * One float: caption and label above the table (common practice for tables), then the table scaled
+ * down (never up) to the line's width and, when still taller, to the page: 90% of the text height,
+ * room left for the caption (our rule), or of the text width for a `sidewaystable`, whose height
+ * runs across the page.
+ */
+function float(environment: "table" | "sidewaystable", caption: string, label: string, body: string[]): string[] {
+  const maxHeight = environment === "sidewaystable" ? "0.9\\textwidth" : "0.9\\textheight";
+  return [
+    `\\begin{${environment}}`,
+    "\\centering",
+    `\\caption{${caption}}`,
+    `\\label{${label}}`,
+    `\\resizebox*{!}{\\ifdim\\totalheight>${maxHeight}${maxHeight}\\else\\totalheight\\fi}{%`,
+    "\\resizebox{\\ifdim\\width>\\linewidth\\linewidth\\else\\width\\fi}{!}{%",
+    ...body,
+    "}}",
+    `\\end{${environment}}`,
+  ];
+}
+
+/** The preamble a table of `fit` needs, stated in its comment: the `% Preamble:` line is meant to be copied as it is. */
+function preambleLines(fit: LatexFit): string[] {
+  const rotating = fit === "landscape" ? " \\usepackage{rotating}" : "";
+  return [
+    `% Preamble: \\usepackage[T1]{fontenc} \\usepackage{lmodern} \\usepackage{graphicx}${rotating}`,
+    "% (T1: accented letters as single glyphs, and letters with an ogonek, eth, thorn, eng or d with stroke exist only",
+    `% in T1; lmodern: outline fonts for T1, or any T1 font family; graphicx: \\resizebox${rotating === "" ? "" : "; rotating: sidewaystable"}.)`,
+  ];
+}
+
+/**
+ * The table as LaTeX: `%` comment lines with the provenance and the preamble the document needs,
+ * then one `table` float (a `sidewaystable` for `landscape`, several for `split`) with a caption
+ * and a label (`tab:targets`, then `tab:targets-2`, … for the parts of a split). The table's
+ * source is printable ASCII whatever the target names hold (`latexText`). Text columns left-aligned
+ * (a paragraph column wrapped), numbers right; a value the model does not give is an en dash.
+ */
+export function targetTableLatex(table: TargetTable, fit: LatexFit = "shrink"): string {
+  const comments = provenanceLines(table.provenance).map((line) => `% ${singleLine(line)}`);
+  const caption = `Targets of the proposal \`\`${latexText(singleLine(table.title))}''.`;
+  const parts = fit === "split" ? columnParts(table) : [table.columns];
+  const floats = parts.flatMap((columns, index) => {
+    const partCaption = parts.length === 1 ? caption : `${caption} Part ${index + 1} of ${parts.length}.`;
+    const label = index === 0 ? "tab:targets" : `tab:targets-${index + 1}`;
+    return float(fit === "landscape" ? "sidewaystable" : "table", partCaption, label, tabular(table, columns));
+  });
+  return [...comments, ...preambleLines(fit), ...floats, ""].join("\n");
 }
