@@ -2,10 +2,18 @@
 
 import { useId, useState } from "react";
 import { defaultExportColumns, exportColumns, headerOf, type ExportColumnKey } from "@/lib/exports/tables/columns";
-import { tableFormats } from "@/lib/exports/tables/formats";
+import { tableFormats, tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
+import { latexFits, type LatexFit } from "@/lib/exports/tables/latex";
 import { useDownload } from "./use-download";
 
 const formatLabels: Record<(typeof tableFormats)[number], string> = { csv: "CSV", ecsv: "ECSV (CSV with units and provenance)", tex: "LaTeX", votable: "VOTable", json: "JSON" };
+
+const fitLabels: Record<LatexFit, string> = {
+  shrink: "One table, scaled to the text width",
+  landscape: "One table, turned sideways",
+  split: "Split into parts that fit, names repeated",
+};
+const defaultFit: LatexFit = tableWriteOptionsSchema.parse({}).fit;
 
 /**
  * The target table download: format, columns (inputs and computed quantities) and significant
@@ -16,12 +24,14 @@ export function TableDownloads({ proposalId }: { proposalId: string }) {
   const [format, setFormat] = useState<(typeof tableFormats)[number]>("csv");
   const [columns, setColumns] = useState<ExportColumnKey[]>(defaultExportColumns);
   const [digits, setDigits] = useState("");
+  const [fit, setFit] = useState<LatexFit>(defaultFit);
   const { download, error, isBusy } = useDownload();
   const toggle = (key: ExportColumnKey) =>
     setColumns((current) => (current.includes(key) ? current.filter((k) => k !== key) : exportColumns.map((c) => c.key).filter((k) => k === key || current.includes(k))));
   function url(): string {
     const params = new URLSearchParams({ format, columns: columns.join(",") });
     if (digits.trim() !== "") params.set("digits", digits.trim());
+    if (format === "tex") params.set("fit", fit);
     return `/api/proposals/${proposalId}/exports/targets?${params}`;
   }
   return (
@@ -35,6 +45,16 @@ export function TableDownloads({ proposalId }: { proposalId: string }) {
             ))}
           </select>
         </div>
+        {format === "tex" && (
+          <div className="flex flex-col gap-1">
+            <label htmlFor={`${id}-fit`} className="text-dusk-dim">LaTeX layout for a wide table</label>
+            <select id={`${id}-fit`} value={fit} onChange={(e) => setFit(e.target.value as LatexFit)} className="rounded border border-void-edge bg-void px-2 py-1 text-dusk">
+              {latexFits.map((f) => (
+                <option key={f} value={f}>{fitLabels[f]}</option>
+              ))}
+            </select>
+          </div>
+        )}
         <div className="flex flex-col gap-1">
           <label htmlFor={`${id}-digits`} className="text-dusk-dim">Significant digits (e.g. 4, or einsteinRadiusMas:3)</label>
           <input id={`${id}-digits`} value={digits} onChange={(e) => setDigits(e.target.value)} placeholder="per column default" className="rounded border border-void-edge bg-void px-2 py-1 font-mono text-dusk" />
