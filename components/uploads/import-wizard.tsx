@@ -3,12 +3,25 @@
 import Link from "next/link";
 import { useRef, useState } from "react";
 import { useVirtualizer } from "@tanstack/react-virtual";
-import { defaultUnits, importFieldKinds, importFieldLabels, importFields, isComputedColumn, requiredImportFields, type ColumnMapping, type ImportField } from "@/lib/imports/columns";
+import {
+  defaultUnits,
+  importFieldKinds,
+  importFieldLabels,
+  importFields,
+  isComputedColumn,
+  requiredImportFields,
+  unitChoicesFor,
+  unmappedColumns,
+  type ColumnMapping,
+  type ImportField,
+} from "@/lib/imports/columns";
+import { refusedRowsCsv, refusedRowsFileName } from "@/lib/imports/refused-rows";
 import { DEFAULT_MATCH_TOLERANCE_ARCSEC, defaultImportFill, matchToleranceSpec } from "@/lib/imports/request";
 import { lensModelOf } from "@/lib/lensing/registry";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
+import type { FieldErrors } from "@/lib/errors";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
@@ -36,6 +49,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
   const [priorityText, setPriorityText] = useState(String(defaultImportFill.priority));
   const [offsetText, setOffsetText] = useState(String(defaultImportFill.sourceOffsetThetaE));
   const [result, setResult] = useState<ImportResult | null>(null);
+  const [isLeavingOutRefused, setLeavingOutRefused] = useState(false);
   const previewing = useFormSubmit();
   const committing = useFormSubmit();
   const base = `/api/proposals/${proposalId}/imports`;
@@ -55,6 +69,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
       setPreview(next);
       setMapping(next.mapping);
       setResult(null);
+      setLeavingOutRefused(false);
     });
   }
 
@@ -65,9 +80,23 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
     setMapping(next);
   }
 
+  /** A unit chosen from the field's list: the rows are read again with it at once. */
   function setUnit(field: ImportField, unit: string) {
     const current = mapping[field];
-    if (current) setMapping({ ...mapping, [field]: { column: current.column, ...(unit.trim() ? { unit: unit.trim() } : {}) } });
+    if (!current || !fileId) return;
+    const next = { ...mapping, [field]: { column: current.column, ...(unit ? { unit } : {}) } };
+    setMapping(next);
+    runPreview(fileId, next);
+  }
+
+  function downloadRefusedRows(view: ImportPreviewView) {
+    const refused = view.rows.flatMap((row) => (row.fileCells ? [{ rowNumber: row.rowNumber, cells: row.fileCells, errors: row.errors }] : []));
+    const url = URL.createObjectURL(new Blob([refusedRowsCsv(view.columns, refused)], { type: "text/csv;charset=utf-8" }));
+    const link = document.createElement("a");
+    link.href = url;
+    link.download = refusedRowsFileName(view.file.name);
+    link.click();
+    URL.revokeObjectURL(url);
   }
 
   return (
@@ -99,7 +128,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
         </div>
         <FormError message={uploadError} />
         {/* A file with no proposal of columns (no name, RA or Dec found) has no mapping step to show the refusal in. */}
-        {!preview && <FormError message={previewing.message} />}
+        {!preview && <PreviewRefusal message={previewing.message} fields={previewing.fields} />}
         {preview && (
           <p className="text-sm" data-testid="uploaded-list">
             {preview.file.name} · {preview.file.format === "csv" ? "CSV" : "VOTable"} · {preview.rows.length.toLocaleString("en-US")} rows
@@ -143,7 +172,13 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
                   {assignment && hasUnit(field) && (
                     <label className="flex items-center gap-1">
                       <span className="text-dusk-dim">unit</span>
-                      <input className={`${inputClass} w-20`} aria-label={`${importFieldLabels[field]} unit`} value={assignment.unit ?? ""} onChange={(e) => setUnit(field, e.target.value)} />
+                      <select className={inputClass} aria-label={`${importFieldLabels[field]} unit`} value={assignment.unit ?? ""} disabled={previewing.isBusy} onChange={(e) => setUnit(field, e.target.value)}>
+                        {unitChoicesFor(field, assignment.unit ?? (field === "ra" ? "" : undefined)).map((unit) => (
+                          <option key={unit} value={unit}>
+                            {unit === "" ? "as written (h:m:s or degrees)" : unit}
+                          </option>
+                        ))}
+                      </select>
                     </label>
                   )}
                   {assignment?.isUnitAssumed && (
@@ -155,6 +190,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
               );
             })}
           </div>
+          <UnmappedColumns preview={preview} mapping={mapping} />
           <div className="flex flex-wrap gap-6 text-sm">
             <label className="flex items-center gap-2">
               Position tolerance for matching existing targets (″)
@@ -170,7 +206,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
               <input className={`${inputClass} w-20`} inputMode="decimal" value={offsetText} onChange={(e) => setOffsetText(e.target.value)} />
             </label>
           </div>
-          <FormError message={previewing.message} />
+          <PreviewRefusal message={previewing.message} fields={previewing.fields} />
           <button type="submit" className={quietButtonClass} disabled={previewing.isBusy}>
             Read the rows again
           </button>
@@ -188,26 +224,42 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
           <PreviewRows rows={preview.rows} />
           {result ? (
             <p className="text-sm" role="status" data-testid="import-result">
-              Imported: {result.added} added, {result.updated} updated, {result.skipped} skipped.{" "}
+              Imported: {result.added} added, {result.updated} updated, {result.skipped} skipped
+              {result.leftOut > 0 ? `; ${result.leftOut} refused rows left out` : ""}.{" "}
               <Link href={`/proposals/${proposalId}`}>Back to the proposal</Link>
             </p>
           ) : (
             <>
+              {preview.counts.invalid > 0 && (
+                <div className="space-y-2 text-sm" data-testid="refused-rows">
+                  <p className="text-alarm">
+                    {preview.counts.invalid.toLocaleString("en-US")} of {preview.rows.length.toLocaleString("en-US")} rows cannot be imported. Fix them in the file (or the mapping) and upload it again, or import the other rows without them.
+                  </p>
+                  <button type="button" className={quietButtonClass} onClick={() => downloadRefusedRows(preview)}>
+                    Download the {preview.counts.invalid.toLocaleString("en-US")} refused rows with their reasons (CSV)
+                  </button>
+                  <label className="flex items-center gap-2">
+                    <input type="checkbox" checked={isLeavingOutRefused} onChange={(e) => setLeavingOutRefused(e.target.checked)} />
+                    Leave out the {preview.counts.invalid.toLocaleString("en-US")} refused rows and import the others
+                  </label>
+                </div>
+              )}
               <FormError message={committing.message} />
               <button
                 type="button"
                 className={buttonClass}
-                disabled={committing.isBusy || previewing.isBusy || preview.counts.invalid > 0}
+                disabled={committing.isBusy || previewing.isBusy || (preview.counts.invalid > 0 && !isLeavingOutRefused)}
                 onClick={() =>
                   void committing.run(async () => {
-                    const { import: done } = await apiFetch<{ import: ImportResult }>(base, { method: "POST", body: requestBody(fileId, mapping) });
+                    const leaveOut = preview.counts.invalid > 0 ? { leaveOutRefusedRows: preview.counts.invalid } : {};
+                    const { import: done } = await apiFetch<{ import: ImportResult }>(base, { method: "POST", body: { ...requestBody(fileId, mapping), ...leaveOut } });
                     setResult(done);
                   })
                 }
               >
                 Import {(preview.counts.added + preview.counts.updated).toLocaleString("en-US")} targets
+                {preview.counts.invalid > 0 ? ` without the ${preview.counts.invalid.toLocaleString("en-US")} refused rows` : ""}
               </button>
-              {preview.counts.invalid > 0 && <p className="text-sm text-alarm">Fix the rows with errors in the file (or the mapping) first: an import is all rows or none.</p>}
             </>
           )}
         </section>
@@ -217,6 +269,44 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
 }
 
 const ROW_HEIGHT_PX = 44;
+
+/** A refused preview in words: its message, and each field's problem the message does not already say. */
+function PreviewRefusal({ message, fields }: { message: string | null; fields: FieldErrors }) {
+  if (message === null) return null;
+  const more = Object.values(fields)
+    .flat()
+    .filter((text) => !message.includes(text));
+  return (
+    <div role="alert" data-testid="preview-refusal" className="space-y-1 text-sm text-alarm">
+      <p>{message}</p>
+      {more.length > 0 && (
+        <ul className="list-disc pl-5">
+          {more.map((text) => (
+            <li key={text}>{text}</li>
+          ))}
+        </ul>
+      )}
+    </div>
+  );
+}
+
+/** The file's columns no field takes, by name, with what each could be. */
+function UnmappedColumns({ preview, mapping }: { preview: ImportPreviewView; mapping: ColumnMapping }) {
+  const unmapped = unmappedColumns(preview.columns, mapping);
+  if (unmapped.length === 0) return null;
+  return (
+    <div className="text-sm" data-testid="unmapped-columns">
+      <p className="text-dusk-dim">Columns of the file that fill no field:</p>
+      <ul className="list-disc pl-5">
+        {unmapped.map(({ column, name, reason }) => (
+          <li key={column}>
+            <span className="font-semibold">{name}</span> — {reason}
+          </li>
+        ))}
+      </ul>
+    </div>
+  );
+}
 
 function valueText(row: ImportRowView): string {
   const v = row.values;

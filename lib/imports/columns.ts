@@ -115,6 +115,28 @@ export const defaultUnits: Partial<Record<FieldKind, string>> = {
   magnitude: "mag",
 };
 
+/**
+ * The units the mapping step offers for a field's bare numbers, the default first: each one a unit
+ * the quantity parser reads for the field's kind (checked in tests/unit/imports/columns.test.ts).
+ * RA's "" is "as written": sexagesimal hours or decimal degrees, as the coordinate parser reads them.
+ */
+export const unitChoices: Partial<Record<FieldKind | "ra", readonly string[]>> = {
+  ra: ["", "deg", "h"],
+  epoch: ["JD", "MJD", "HJD", "BJD"],
+  mass: ["Msun", "Mjup", "Mearth", "kg"],
+  distance: ["pc", "kpc", "Mpc", "Gpc", "ly", "au"],
+  radius: ["Rsun", "Rjup", "km", "au"],
+  velocity: ["km/s", "m/s"],
+  properMotion: ["mas/yr", "arcsec/yr", "uas/yr"],
+  magnitude: ["mag"],
+};
+
+/** The unit choices for a field, with the file's own unit first when it is none of them ("km.s-1"). */
+export function unitChoicesFor(field: ImportField, current: string | undefined): readonly string[] {
+  const choices = unitChoices[field === "ra" ? "ra" : importFieldKinds[field]] ?? [];
+  return current === undefined || choices.includes(current) ? choices : [current, ...choices];
+}
+
 /** Which column fills a field, and in which unit its bare numbers are read. */
 export interface ColumnAssignment {
   /** Index into the table's columns. */
@@ -301,4 +323,46 @@ export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
     if (field) assign(field, index);
   }
   return mapping;
+}
+
+/** A column of the file that fills no field, and what it could have been. */
+export interface UnmappedColumn {
+  column: number;
+  name: string;
+  /** Why it is not imported, in the user's words. */
+  reason: string;
+}
+
+// Headers of free text about a target (common practice in observing lists).
+const noteSpellings = new Set(["note", "notes", "comment", "comments", "remark", "remarks", "description"]);
+
+/**
+ * The columns no field takes under `mapping`, each with what it could be: a computed column of our
+ * own export, a field already filled from another column, a magnitude beyond the one source
+ * magnitude a target keeps, free text (notes), or nothing the import knows.
+ */
+export function unmappedColumns(columns: readonly ImportColumn[], mapping: ColumnMapping): UnmappedColumn[] {
+  const taken = new Map<number, ImportField>();
+  for (const field of importFields) {
+    const assignment = mapping[field];
+    if (assignment !== undefined) taken.set(assignment.column, field);
+  }
+  return columns.flatMap((column, index): UnmappedColumn[] => {
+    if (taken.has(index)) return [];
+    const spelling = readHeader(column.name).spelling;
+    const field = importFields.find((candidate) => headerSpellings[candidate].includes(spelling)) ?? fieldFromUcd(column);
+    const filledFrom = field === undefined ? undefined : mapping[field];
+    const reason = isComputedColumn(column)
+      ? "computed from a target's inputs; not imported"
+      : field !== undefined && filledFrom !== undefined
+        ? `could be ${importFieldLabels[field]}, which comes from column "${columns[filledFrom.column]?.name}"; not imported`
+        : field !== undefined
+          ? `could be ${importFieldLabels[field]}: choose it above; not imported`
+          : /mag/.test(spelling) || column.ucd?.toLowerCase().startsWith("phot.mag")
+            ? "a magnitude: a target keeps one source magnitude (with its band); not imported"
+            : noteSpellings.has(spelling)
+              ? "notes: the import does not create notes; not imported"
+              : "not imported";
+    return [{ column: index, name: column.name, reason }];
+  });
 }

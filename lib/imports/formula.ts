@@ -4,13 +4,16 @@
  * Imported values are stored as written; these functions neutralize them on the way out.
  */
 
-const FORMULA_LEAD = /^[=+\-@\t\r]/;
-// A plain decimal number is inert in every spreadsheet, so "-12.5" is left as it is.
-const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
+/**
+ * A text that would start a formula: it leads with one of those characters and is not a plain
+ * decimal number, which is inert in every spreadsheet (so "-12.5" is left as it is). A RegExp, so
+ * papaparse's `escapeFormulae` can take it for text cells kept as text.
+ */
+export const FORMULA_CELL = /^(?![+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$)[=+\-@\t\r]/i;
 
 /** Whether a text cell would start a formula in a spreadsheet. */
 export function isFormulaLike(text: string): boolean {
-  return FORMULA_LEAD.test(text) && !PLAIN_NUMBER.test(text);
+  return FORMULA_CELL.test(text);
 }
 
 /** Prefixes a formula-like text with an apostrophe (OWASP), which spreadsheets show as plain text. */

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { importFieldLabels, importFields, type ImportField } from "@/lib/imports/columns";
+import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
 import { MAX_MATCH_TOLERANCE_ARCSEC } from "@/lib/imports/matching";
 import { lensModels, targetFieldsSchema } from "@/lib/workspace/target-schema";
 import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
@@ -79,7 +80,21 @@ export const importPreviewSchema = z.object({
   toleranceArcsec: quantityField(matchToleranceSpec).default(DEFAULT_MATCH_TOLERANCE_ARCSEC),
 });
 
-/** Body of a commit: as a preview, with the mapping required (the one the user saw). */
-export const importCommitSchema = importPreviewSchema.extend({ mapping: columnMappingSchema });
+const refusedCountError = "The number of refused rows to leave out must be the count the preview showed.";
+
+/**
+ * Body of a commit: as a preview, with the mapping required (the one the user saw). When some rows
+ * are refused, `leaveOutRefusedRows` is the user's explicit choice to commit the others, stating how
+ * many refused rows they saw; without it any refused row refuses the whole commit.
+ */
+export const importCommitSchema = importPreviewSchema.extend({
+  mapping: columnMappingSchema,
+  leaveOutRefusedRows: z
+    .number({ error: refusedCountError })
+    .int({ error: refusedCountError })
+    .min(1, { error: refusedCountError })
+    .max(MAX_IMPORT_ROWS, { error: refusedCountError })
+    .optional(),
+});
 
 export type ImportPreviewRequest = z.input<typeof importPreviewSchema>;

@@ -32,6 +32,8 @@ export interface ImportRowView {
   action: PlannedRow["action"]["kind"];
   /** What the action means for this row ("updates TB-ML-0001, matched by position 0.4″"). */
   detail: string;
+  /** For a refused row, every cell as the file wrote it, for the refused-rows download. */
+  fileCells?: string[];
 }
 
 export interface ImportPreviewView {
@@ -50,6 +52,8 @@ export interface ImportResult {
   added: number;
   updated: number;
   skipped: number;
+  /** Refused rows the user chose to leave out (0 for a file imported whole). */
+  leftOut: number;
 }
 
 /** What a target-list upload's middleware hands to its completion step. */
@@ -210,7 +214,15 @@ export async function previewImport(params: unknown, input: unknown, actor: Acto
     mapping,
     fill: request.fill,
     toleranceArcsec: request.toleranceArcsec,
-    rows: plan.rows.map((row) => ({ rowNumber: row.rowNumber, cells: row.cells, values: row.target ?? null, errors: row.errors, action: row.action.kind, detail: detailOf(row.action) })),
+    rows: plan.rows.map((row, index) => ({
+      rowNumber: row.rowNumber,
+      cells: row.cells,
+      values: row.target ?? null,
+      errors: row.errors,
+      action: row.action.kind,
+      detail: detailOf(row.action),
+      ...(row.action.kind === "error" ? { fileCells: table.rows[index].cells } : {}),
+    })),
     counts: plan.counts,
   };
 }
@@ -221,6 +233,9 @@ const INSERT_CHUNK_ROWS = 500;
 /**
  * Co-I or PI. Commits the import in one transaction: every row is added, updated or skipped, or —
  * when any row cannot be imported — nothing is written at all and the answer lists the row errors.
+ * With `leaveOutRefusedRows` (the user's choice, stating the count the preview showed) the refused
+ * rows are left out and every other row is committed, still in one transaction; a count that no
+ * longer matches (the proposal's targets changed since the preview) refuses the commit whole.
  * The targets' derived columns are computed as for a target added by hand; the original file stays
  * attached to the import record; one activity entry tells the team.
  */
@@ -236,11 +251,20 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
     await tx.select({ id: proposals.id }).from(proposals).where(eq(proposals.id, proposalId)).for("update");
     const existing = await existingTargets(tx, proposalId);
     const plan = readPlan(table, request.mapping, request.fill, existing, request.toleranceArcsec);
-    if (plan.counts.invalid > 0) {
+    const leftOut = plan.counts.invalid;
+    if (leftOut > 0 && request.leaveOutRefusedRows === undefined) {
       const rowErrors = plan.rows.flatMap((row) => row.errors);
-      const summary = `${plan.counts.invalid} of ${plan.rows.length} rows cannot be imported, so nothing was imported.`;
+      const summary = `${leftOut} of ${plan.rows.length} rows cannot be imported, so nothing was imported; fix them, or choose to import the other rows without them.`;
       // The rows of the file under this mapping are at fault, not one field: "_", the request as a whole.
       throw new AppError("bad_request:import", `${summary} ${rowErrors.slice(0, 3).join(" ")}`, { _: [summary] }, { rowErrors: rowErrors.slice(0, 200) });
+    }
+    if (request.leaveOutRefusedRows !== undefined && request.leaveOutRefusedRows !== leftOut) {
+      const rows = (n: number) => `${n.toLocaleString("en-US")} row${n === 1 ? "" : "s"}`;
+      throw new AppError(
+        "conflict:import",
+        `The file now has ${rows(leftOut)} that cannot be imported, not ${rows(request.leaveOutRefusedRows)} as the preview showed (the proposal's targets changed since); nothing was imported. Read the rows again.`,
+        { leaveOutRefusedRows: [`The preview is out of date: ${rows(leftOut)} would be left out now.`] },
+      );
     }
     const settings = feasibilitySettingsOf(access.proposal);
     const byId = new Map(existing.map((target) => [target.id, target]));
@@ -301,8 +325,8 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
       proposalId,
       actorId: who.userId,
       action: "target.added",
-      subject: `targets from ${file.name} (${counted(addedCount)} added, ${counted(updated)} updated, ${counted(skipped)} skipped)`,
+      subject: `targets from ${file.name} (${counted(addedCount)} added, ${counted(updated)} updated, ${counted(skipped)} skipped${leftOut > 0 ? `, ${counted(leftOut)} refused rows left out` : ""})`,
     });
-    return { importId: record.id, added: addedCount, updated, skipped };
+    return { importId: record.id, added: addedCount, updated, skipped, leftOut };
   });
 }

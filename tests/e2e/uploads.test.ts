@@ -44,9 +44,9 @@ describe("uploads in the browser through the upload service fake", () => {
     const mapping = page.getByRole("form", { name: "Column mapping" });
     // The file states no units: the page says which units are assumed, until the user sets them.
     expect(await page.getByTestId("unit-assumed-lensDistancePc").textContent()).toBe("assumed: the file gives no unit for this column; check it");
-    await mapping.getByLabel("Lens distance unit").fill("kpc");
+    await mapping.getByLabel("Lens distance unit").selectOption("kpc");
     expect(await page.getByTestId("unit-assumed-lensDistancePc").count()).toBe(0);
-    await mapping.getByLabel("Source distance unit").fill("kpc");
+    await mapping.getByLabel("Source distance unit").selectOption("kpc");
     await mapping.getByRole("button", { name: "Read the rows again" }).click();
     await page.getByTestId("preview-row").first().filter({ hasText: "D_L 4000 pc" }).waitFor();
     expect(await page.getByTestId("import-counts").textContent()).toBe("2 to add · 0 to update · 0 to skip · 0 with errors");

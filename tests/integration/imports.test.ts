@@ -128,7 +128,7 @@ describe("target-list import through the upload service", () => {
     const before = await tableCounts(world.proposalId);
     const error = await refusalOf(commitImport(params, { fileId, mapping: preview.mapping }, world.actors.coi));
     expect(error.code).toBe("bad_request:import");
-    expect(error.message).toMatch(/^1 of 4 rows cannot be imported, so nothing was imported\. row 4: Dec/);
+    expect(error.message).toMatch(/^1 of 4 rows cannot be imported, so nothing was imported; fix them, or choose to import the other rows without them\. row 4: Dec/);
     expect(await tableCounts(world.proposalId)).toEqual(before);
   });
 
