@@ -45,6 +45,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
   const [uploadError, setUploadError] = useState<string | null>(null);
   const [preview, setPreview] = useState<ImportPreviewView | null>(null);
   const [mapping, setMapping] = useState<ColumnMapping>({});
+  const [noteColumn, setNoteColumn] = useState<number | null>(null);
   const [toleranceText, setToleranceText] = useState(String(DEFAULT_MATCH_TOLERANCE_ARCSEC));
   const [priorityText, setPriorityText] = useState(String(defaultImportFill.priority));
   const [offsetText, setOffsetText] = useState(String(defaultImportFill.sourceOffsetThetaE));
@@ -57,6 +58,8 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
   const requestBody = (id: string, chosen: ColumnMapping | undefined) => ({
     fileId: id,
     mapping: chosen,
+    // With no mapping chosen yet the server proposes the notes column too.
+    ...(chosen === undefined ? {} : { noteColumn }),
     // Sent as typed ("0.5", "500 mas"): the server reads it with the one quantity parser.
     toleranceArcsec: toleranceText,
     // Sent as typed: the server reads them as the target form's fields are read, and names the one refused.
@@ -68,6 +71,7 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
       const next = await apiFetch<ImportPreviewView>(`${base}/preview`, { method: "POST", body: requestBody(id, chosen) });
       setPreview(next);
       setMapping(next.mapping);
+      setNoteColumn(next.noteColumn);
       setResult(null);
       setLeavingOutRefused(false);
     });
@@ -190,7 +194,18 @@ export function ImportWizard({ proposalId }: { proposalId: string }) {
               );
             })}
           </div>
-          <UnmappedColumns preview={preview} mapping={mapping} />
+          <label className="flex flex-wrap items-center gap-2 text-sm">
+            <span className="w-40">First note of each new target</span>
+            <select className={inputClass} value={noteColumn ?? ""} onChange={(e) => setNoteColumn(e.target.value === "" ? null : Number(e.target.value))}>
+              <option value="">— none —</option>
+              {preview.columns.map((column, index) => (
+                <option key={index} value={index} disabled={isComputedColumn(column)}>
+                  {column.name}
+                </option>
+              ))}
+            </select>
+          </label>
+          <UnmappedColumns preview={preview} mapping={mapping} noteColumn={noteColumn} />
           <div className="flex flex-wrap gap-6 text-sm">
             <label className="flex items-center gap-2">
               Position tolerance for matching existing targets (″)
@@ -291,8 +306,8 @@ function PreviewRefusal({ message, fields }: { message: string | null; fields: F
 }
 
 /** The file's columns no field takes, by name, with what each could be. */
-function UnmappedColumns({ preview, mapping }: { preview: ImportPreviewView; mapping: ColumnMapping }) {
-  const unmapped = unmappedColumns(preview.columns, mapping);
+function UnmappedColumns({ preview, mapping, noteColumn }: { preview: ImportPreviewView; mapping: ColumnMapping; noteColumn: number | null }) {
+  const unmapped = unmappedColumns(preview.columns, mapping, noteColumn);
   if (unmapped.length === 0) return null;
   return (
     <div className="text-sm" data-testid="unmapped-columns">

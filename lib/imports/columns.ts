@@ -325,6 +325,19 @@ export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
   return mapping;
 }
 
+// Headers of free text about a target (common practice in observing lists).
+const noteSpellings = new Set(["note", "notes", "comment", "comments", "remark", "remarks", "description"]);
+
+/**
+ * The column whose text becomes the first note of each new target: the first column no field takes
+ * whose header is a notes header ("notes", "comment", "remarks"); undefined when there is none.
+ */
+export function proposeNoteColumn(columns: readonly ImportColumn[], mapping: ColumnMapping): number | undefined {
+  const taken = new Set(Object.values(mapping).map((assignment) => assignment.column));
+  const index = columns.findIndex((column, i) => !taken.has(i) && !isComputedColumn(column) && noteSpellings.has(readHeader(column.name).spelling));
+  return index < 0 ? undefined : index;
+}
+
 /** A column of the file that fills no field, and what it could have been. */
 export interface UnmappedColumn {
   column: number;
@@ -333,16 +346,15 @@ export interface UnmappedColumn {
   reason: string;
 }
 
-// Headers of free text about a target (common practice in observing lists).
-const noteSpellings = new Set(["note", "notes", "comment", "comments", "remark", "remarks", "description"]);
 
 /**
  * The columns no field takes under `mapping`, each with what it could be: a computed column of our
  * own export, a field already filled from another column, a magnitude beyond the one source
  * magnitude a target keeps, free text (notes), or nothing the import knows.
  */
-export function unmappedColumns(columns: readonly ImportColumn[], mapping: ColumnMapping): UnmappedColumn[] {
-  const taken = new Map<number, ImportField>();
+export function unmappedColumns(columns: readonly ImportColumn[], mapping: ColumnMapping, noteColumn?: number | null): UnmappedColumn[] {
+  const taken = new Map<number, ImportField | "note">();
+  if (noteColumn != null) taken.set(noteColumn, "note");
   for (const field of importFields) {
     const assignment = mapping[field];
     if (assignment !== undefined) taken.set(assignment.column, field);
@@ -361,7 +373,7 @@ export function unmappedColumns(columns: readonly ImportColumn[], mapping: Colum
           : /mag/.test(spelling) || column.ucd?.toLowerCase().startsWith("phot.mag")
             ? "a magnitude: a target keeps one source magnitude (with its band); not imported"
             : noteSpellings.has(spelling)
-              ? "notes: the import does not create notes; not imported"
+              ? "notes: choose it as the first note of each new target; not imported"
               : "not imported";
     return [{ column: index, name: column.name, reason }];
   });

@@ -76,6 +76,14 @@ export const importFillSchema = z.object(
 export const importPreviewSchema = z.object({
   fileId: z.uuid({ error: "The uploaded file is missing: upload a target list first." }),
   mapping: columnMappingSchema.optional(),
+  /** The column whose text becomes each new target's first note: null for none, absent for the proposed one. */
+  noteColumn: z
+    .number({ error: "The notes column: choose a column of the file." })
+    .int({ error: "The notes column: choose a column of the file." })
+    .min(0, { error: "The notes column: choose a column of the file." })
+    .max(9_999, { error: "The notes column: choose a column of the file." })
+    .nullable()
+    .optional(),
   fill: importFillSchema.default(defaultImportFill),
   toleranceArcsec: quantityField(matchToleranceSpec).default(DEFAULT_MATCH_TOLERANCE_ARCSEC),
 });

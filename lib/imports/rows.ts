@@ -18,6 +18,7 @@ import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/len
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
 import { QuantityError, parseDistance, parseLength, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
 import { wordedIssue } from "@/lib/workspace/issue-words";
+import { createNoteSchema } from "@/lib/workspace/note-schema";
 import { createTargetSchema, lensHypothesisErrors, sourcePhotometryErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 
 /** Values used for every row where the file has no column (or an empty cell) for the field. */
@@ -34,6 +35,8 @@ export interface PreviewRow {
   cells: Partial<Record<ImportField, string>>;
   /** Present exactly when `errors` is empty. */
   target?: CreateTargetInput;
+  /** The notes column's text, trimmed, when the row has one: the first note of a new target. */
+  note?: string;
   /** Each one names the row and the field: "row 17: Dec +95:00:00 — Declination must be in ...". */
   errors: string[];
 }
@@ -207,6 +210,19 @@ export function checkColumnMapping(table: ImportTable, mapping: ColumnMapping): 
   }
 }
 
+/** The notes column, when chosen, is a column of the table that no field takes. */
+function checkNoteColumn(table: ImportTable, mapping: ColumnMapping, noteColumn: number | null | undefined): void {
+  if (noteColumn == null) return;
+  const field = importFields.find((candidate) => mapping[candidate]?.column === noteColumn);
+  const problem =
+    noteColumn >= table.columns.length
+      ? `The notes column: there is no column ${noteColumn + 1}.`
+      : field !== undefined
+        ? `Column "${table.columns[noteColumn].name}" is already used for ${importFieldLabels[field]}; it cannot also be the notes.`
+        : undefined;
+  if (problem !== undefined) throw new AppError("bad_request:import", problem, { noteColumn: [problem] });
+}
+
 /**
  * Reads every row into a target as the workspace's target schema defines it (coordinates through
  * lib/workspace/coordinates, quantities through lib/physics/units, the event peak through
@@ -215,8 +231,9 @@ export function checkColumnMapping(table: ImportTable, mapping: ColumnMapping): 
  * `fill` gives it, follows from what the row has: a mass means a point lens, a velocity dispersion
  * an isothermal sphere.
  */
-export function validateImportRows(table: ImportTable, mapping: ColumnMapping, fill: ImportFill = {}): ImportPreview {
+export function validateImportRows(table: ImportTable, mapping: ColumnMapping, fill: ImportFill = {}, noteColumn?: number | null): ImportPreview {
   checkColumnMapping(table, mapping);
+  checkNoteColumn(table, mapping, noteColumn);
   const rows = table.rows.map((row): PreviewRow => {
     const prefix = `row ${row.rowNumber}`;
     const cells: PreviewRow["cells"] = {};
@@ -241,7 +258,13 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
         errors.push(`${prefix}: ${importFieldLabels[field]} ${text} (column "${column}") ${error.message}.`);
       }
     }
+    const noteText = noteColumn == null ? "" : (row.cells[noteColumn] ?? "").trim();
+    const note = noteText === "" ? undefined : createNoteSchema.shape.body.safeParse(noteText);
+    if (note !== undefined && !note.success) {
+      errors.push(`${prefix}: Note (column "${table.columns[noteColumn!].name}") — ${note.error.issues[0].message}`);
+    }
     if (errors.length > 0) return { rowNumber: row.rowNumber, cells, errors };
+    const noteOf = note?.success ? { note: note.data } : {};
     for (const field of ["lensModel", "priority", "sourceOffsetThetaE"] as const) {
       if (input[field] === undefined && fill[field] !== undefined) input[field] = fill[field];
     }
@@ -268,7 +291,7 @@ export function validateImportRows(table: ImportTable, mapping: ColumnMapping, f
     for (const [field, messages] of Object.entries({ ...lensHypothesisErrors(parsed.data), ...sourcePhotometryErrors(parsed.data) })) {
       for (const message of messages) errors.push(`${prefix}: ${importFieldLabels[field as ImportField] ?? field} — ${message}`);
     }
-    return errors.length > 0 ? { rowNumber: row.rowNumber, cells, errors } : { rowNumber: row.rowNumber, cells, target: parsed.data, errors };
+    return errors.length > 0 ? { rowNumber: row.rowNumber, cells, errors } : { rowNumber: row.rowNumber, cells, target: parsed.data, ...noteOf, errors };
   });
   const validRowCount = rows.filter((row) => row.target !== undefined).length;
   return { rows, validRowCount, invalidRowCount: rows.length - validRowCount };

@@ -3,7 +3,7 @@ import { and, eq } from "drizzle-orm";
 import { dbClient, type Database } from "@/db/client";
 import { imports, proposals, targets, uploadedFiles, type UploadedFile } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import { proposeColumnMapping, type ColumnMapping } from "@/lib/imports/columns";
+import { proposeColumnMapping, proposeNoteColumn, type ColumnMapping } from "@/lib/imports/columns";
 import { formatMebibytes, type ImportColumn, type ImportTable } from "@/lib/imports/import-table";
 import { MAX_IMPORT_BYTES } from "@/lib/imports/limits";
 import { mergedHypothesis, planImport, type ExistingTarget, type ImportPlan, type PlannedRow } from "@/lib/imports/plan";
@@ -14,6 +14,7 @@ import { proposalParamsSchema } from "@/lib/workspace/ids";
 import type { CreateTargetInput } from "@/lib/workspace/target-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
+import { insertFirstNotes } from "@/lib/server/notes";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { deriveMany, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
@@ -41,6 +42,8 @@ export interface ImportPreviewView {
   columns: ImportColumn[];
   proposedMapping: ColumnMapping;
   mapping: ColumnMapping;
+  /** The column whose text becomes each new target's first note; null for none. */
+  noteColumn: number | null;
   fill: ImportFill;
   toleranceArcsec: number;
   rows: ImportRowView[];
@@ -190,10 +193,14 @@ function checkRequestMapping(table: ImportTable, mapping: ColumnMapping): void {
   }
 }
 
-function readPlan(table: ImportTable, mapping: ColumnMapping, fill: ImportFill, existing: ExistingTarget[], toleranceArcsec: number): ImportPlan {
+function readPlan(table: ImportTable, mapping: ColumnMapping, fill: ImportFill, noteColumn: number | null, existing: ExistingTarget[], toleranceArcsec: number): ImportPlan {
   checkRequestMapping(table, mapping);
-  return planImport(validateImportRows(table, mapping, fill), mapping, existing, toleranceArcsec);
+  return planImport(validateImportRows(table, mapping, fill, noteColumn), mapping, existing, toleranceArcsec);
 }
+
+/** The notes column asked for; when the request names none, the proposed one (null: none). */
+const noteColumnOf = (requested: number | null | undefined, table: ImportTable, mapping: ColumnMapping): number | null =>
+  requested === undefined ? (proposeNoteColumn(table.columns, mapping) ?? null) : requested;
 
 /**
  * Co-I or PI. Reads the uploaded file with the mapping given (or the proposed one) and shows what a
@@ -206,12 +213,14 @@ export async function previewImport(params: unknown, input: unknown, actor: Acto
   const { db, file, table } = await readUploadedList(proposalId, request.fileId, who);
   const proposedMapping = proposeColumnMapping(table.columns);
   const mapping = request.mapping ?? proposedMapping;
-  const plan = readPlan(table, mapping, request.fill, await existingTargets(db, proposalId), request.toleranceArcsec);
+  const noteColumn = noteColumnOf(request.noteColumn, table, mapping);
+  const plan = readPlan(table, mapping, request.fill, noteColumn, await existingTargets(db, proposalId), request.toleranceArcsec);
   return {
     file: { id: file.id, name: file.name, sizeBytes: file.sizeBytes, format: table.format },
     columns: table.columns,
     proposedMapping,
     mapping,
+    noteColumn,
     fill: request.fill,
     toleranceArcsec: request.toleranceArcsec,
     rows: plan.rows.map((row, index) => ({
@@ -250,7 +259,7 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
     // One import at a time per proposal: two commits of the same file must not both add its rows.
     await tx.select({ id: proposals.id }).from(proposals).where(eq(proposals.id, proposalId)).for("update");
     const existing = await existingTargets(tx, proposalId);
-    const plan = readPlan(table, request.mapping, request.fill, existing, request.toleranceArcsec);
+    const plan = readPlan(table, request.mapping, request.fill, noteColumnOf(request.noteColumn, table, request.mapping), existing, request.toleranceArcsec);
     const leftOut = plan.counts.invalid;
     if (leftOut > 0 && request.leaveOutRefusedRows === undefined) {
       const rowErrors = plan.rows.flatMap((row) => row.errors);
@@ -268,7 +277,9 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
     }
     const settings = feasibilitySettingsOf(access.proposal);
     const byId = new Map(existing.map((target) => [target.id, target]));
-    const added = plan.rows.flatMap((row) => (row.action.kind === "add" ? [row.action.target] : []));
+    const addedRows = plan.rows.flatMap((row) => (row.action.kind === "add" ? [{ target: row.action.target, note: row.note }] : []));
+    const added = addedRows.map((row) => row.target);
+    const firstNotes: { targetId: string; body: string }[] = [];
     for (let start = 0; start < added.length; start += INSERT_CHUNK_ROWS) {
       const chunk = added.slice(start, start + INSERT_CHUNK_ROWS);
       const derived = deriveMany(chunk.map(({ ra, dec, ...target }) => ({ ...target, raDeg: ra, decDeg: dec })), settings);
@@ -280,7 +291,12 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
         proposalId,
         createdBy: who.userId,
       }));
-      await tx.insert(targets).values(values);
+      const ids = await tx.insert(targets).values(values).returning({ id: targets.id });
+      // PostgreSQL returns a multi-row INSERT's rows in the order of its VALUES.
+      ids.forEach(({ id }, index) => {
+        const body = addedRows[start + index].note;
+        if (body !== undefined) firstNotes.push({ targetId: id, body });
+      });
     }
     const updates = plan.rows.flatMap((row) => (row.action.kind === "update" ? [row.action] : []));
     const updatedDerived = deriveMany(
@@ -303,6 +319,7 @@ export async function commitImport(params: unknown, input: unknown, actor: Actor
         })
         .where(eq(targets.id, targetId));
     }
+    await insertFirstNotes(tx, who.userId, firstNotes);
     const { added: addedCount, updated, skipped } = plan.counts;
     const [record] = await tx
       .insert(imports)

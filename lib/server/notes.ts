@@ -97,6 +97,22 @@ export async function getNoteHistory(params: unknown, actor: Actor | null): Prom
   return { note, revisions: revisions.map((r) => ({ ...r, editedAt: r.editedAt.toISOString() })) };
 }
 
+/**
+ * The first note of each of many new targets, each kept as revision 1, inside the caller's
+ * transaction (an import, which has checked the role and records its own activity entry).
+ */
+export async function insertFirstNotes(tx: Pick<Database, "insert">, authorId: string, entries: readonly { targetId: string; body: string }[]): Promise<void> {
+  // 500 notes × 4 values stays far below PostgreSQL's 65,535 parameters per statement.
+  for (let start = 0; start < entries.length; start += 500) {
+    const chunk = entries.slice(start, start + 500);
+    const inserted = await tx
+      .insert(notes)
+      .values(chunk.map(({ targetId, body }) => ({ targetId, body, authorId, updatedBy: authorId })))
+      .returning({ id: notes.id, body: notes.body });
+    await tx.insert(noteRevisions).values(inserted.map((note) => ({ noteId: note.id, version: 1, body: note.body, editedBy: authorId })));
+  }
+}
+
 /** Co-I or PI. The first text is kept as revision 1. */
 export async function createNote(params: unknown, input: unknown, actor: Actor | null): Promise<NoteView> {
   const { proposalId, targetId } = parseIds(targetParamsSchema, params, "target");

@@ -1,7 +1,7 @@
-import { count, eq, sql } from "drizzle-orm";
+import { and, count, eq, like, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
-import { activity, imports, targets } from "@/db/schema";
+import { activity, imports, noteRevisions, notes, targets } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { commitImport, previewImport } from "@/lib/server/imports";
 import { createWorld, type World } from "./support/world";
@@ -79,5 +79,31 @@ describe("partial import: the good rows only, by the user's explicit choice", ()
     expect(bad).toMatchObject({ fields: { leaveOutRefusedRows: ["The number of refused rows to leave out must be the count the preview showed."] } });
     const [{ n: after }] = await db.select({ n: count() }).from(targets).where(eq(targets.proposalId, world.proposalId));
     expect(after).toBe(before);
+  });
+});
+
+describe("a notes column becomes the first note of each new target", () => {
+  it("proposes the notes column, stores each new target's note with revision 1 in the commit, and none for a row without text", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId };
+    const list = ["name,ra,dec,mass,D_L,D_S,comments", "NOTE-1,17:56:40.0,-29:30:00,0.5,4000,8000,Seen by OGLE; check =1+1", "NOTE-2,17:58:01.0,-29:20:00,0.3,3000,8000,"].join("\n");
+    const fileId = await uploadList(world, "with notes.csv", list);
+    const preview = await previewImport(params, { fileId }, world.actors.coi);
+    expect(preview.noteColumn).toBe(6);
+    await commitImport(params, { fileId, mapping: preview.mapping, noteColumn: preview.noteColumn }, world.actors.coi);
+    const stored = await db
+      .select({ name: targets.name, body: notes.body, version: notes.version, revision: noteRevisions.version })
+      .from(notes)
+      .innerJoin(targets, eq(targets.id, notes.targetId))
+      .innerJoin(noteRevisions, eq(noteRevisions.noteId, notes.id))
+      .where(and(eq(targets.proposalId, world.proposalId), like(targets.name, "NOTE-%")));
+    expect(stored).toEqual([{ name: "NOTE-1", body: "Seen by OGLE; check =1+1", version: 1, revision: 1 }]);
+
+    // Chosen as none, or as a column a field uses: no notes, or a refusal naming the notes column.
+    const again = await uploadList(world, "with notes.csv", list.replace(/NOTE-/g, "NOTE-B"));
+    expect((await previewImport(params, { fileId: again, mapping: preview.mapping, noteColumn: null }, world.actors.coi)).noteColumn).toBeNull();
+    await expect(previewImport(params, { fileId: again, mapping: preview.mapping, noteColumn: 0 }, world.actors.coi)).rejects.toMatchObject({
+      fields: { noteColumn: ['Column "name" is already used for Name; it cannot also be the notes.'] },
+    });
   });
 });

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { importFieldKinds, importFields, proposeColumnMapping, unitChoices, unitChoicesFor, unmappedColumns } from "@/lib/imports/columns";
+import { importFieldKinds, importFields, proposeColumnMapping, proposeNoteColumn, unitChoices, unitChoicesFor, unmappedColumns } from "@/lib/imports/columns";
 import { parseCsvTable } from "@/lib/imports/csv";
 import { defaultImportFill } from "@/lib/imports/request";
 import { validateImportRows } from "@/lib/imports/rows";
@@ -45,7 +45,7 @@ describe("columns the import leaves out are listed by name with what they could 
     const listed = unmappedColumns(table.columns, mapping).map(({ name, reason }) => [name, reason]);
     expect(listed).toEqual([
       ["V_mag", "a magnitude: a target keeps one source magnitude (with its band); not imported"],
-      ["notes", "notes: the import does not create notes; not imported"],
+      ["notes", "notes: choose it as the first note of each new target; not imported"],
       ...listed.filter(([name]) => name === "theta_E"),
       ["target", 'could be Name, which comes from column "name"; not imported'],
       ["colour", "not imported"],
@@ -56,5 +56,23 @@ describe("columns the import leaves out are listed by name with what they could 
     const table = parseCsvTable(`name,ra,dec,mass\nA,1,2,0.5`);
     const { lensMassSolar: _dropped, ...mapping } = proposeColumnMapping(table.columns);
     expect(unmappedColumns(table.columns, mapping)).toEqual([{ column: 3, name: "mass", reason: "could be Lens mass: choose it above; not imported" }]);
+  });
+});
+
+describe("a notes column read as each new target's first note", () => {
+  const table = parseCsvTable(`name,ra,dec,mass,D_L,D_S,Remarks\nA,17:56:40,-29:30:00,0.5,4000,8000,  seen twice  \nB,17:56:41,-29:30:00,0.5,4000,8000,\nC,17:56:42,-29:30:00,0.5,4000,8000,${"x".repeat(20_001)}`);
+  const mapping = proposeColumnMapping(table.columns);
+
+  it("is proposed from a notes header and then no longer listed as unmapped", () => {
+    expect(proposeNoteColumn(table.columns, mapping)).toBe(6);
+    expect(unmappedColumns(table.columns, mapping, 6)).toEqual([]);
+  });
+
+  it("gives a row its trimmed note, none for an empty cell, and refuses a note over the notes' 20,000-character limit naming the row and column", () => {
+    const rows = validateImportRows(table, mapping, defaultImportFill, 6).rows;
+    expect(rows[0]).toMatchObject({ note: "seen twice", errors: [] });
+    expect(rows[1].note).toBeUndefined();
+    expect(rows[1].errors).toEqual([]);
+    expect(rows[2].errors).toEqual(['row 3: Note (column "Remarks") — A note is at most 20,000 characters.']);
   });
 });
