@@ -396,7 +396,7 @@ export const noteAttachments = pgTable(
       .notNull()
       .references(() => uploadedFiles.id, { onDelete: "cascade" }),
     kind: attachmentKind("kind").notNull(),
-    /** lib/imports/fits-header FitsHeader (keywords, BITPIX, axes, sizes) for FITS; null otherwise. */
+    /** lib/imports/fits-header FitsHeader (each HDU: type, keywords, BITPIX, axes, sizes) for FITS; null otherwise. */
     fitsHeader: jsonb("fits_header"),
     sizeBytes: integer("size_bytes").notNull(),
     createdAt: createdAt(),

@@ -61,21 +61,29 @@ export function NoteAttachments({ noteUrl, canEdit }: { noteUrl: string; canEdit
               {a.kind === "fits" && a.fitsHeader && (
                 <details className="text-sm">
                   <summary>
-                    FITS header: BITPIX {a.fitsHeader.bitpix}, {a.fitsHeader.axes.length > 0 ? a.fitsHeader.axes.join(" × ") : "no data array"}, data{" "}
-                    {formatBytes(a.fitsHeader.dataBytes)}
-                    {a.fitsHeader.isTruncated && <span className="text-alarm"> (file shorter than its header says)</span>}
+                    FITS file: {a.fitsHeader.hdus.length} {a.fitsHeader.hdus.length === 1 ? "HDU" : "HDUs"}
+                    {a.fitsHeader.hasMoreHdus && " listed; the file has more, which are not listed"}
+                    {a.fitsHeader.isTruncated && <span className="text-alarm"> (file shorter than its headers say)</span>}
                   </summary>
-                  <table className="mt-1 font-mono text-xs">
-                    <tbody>
-                      {a.fitsHeader.keywords.map((k, i) => (
-                        <tr key={i}>
-                          <td className="pr-3">{k.key}</td>
-                          <td className="pr-3 text-glint">{k.value === null ? "" : String(k.value)}</td>
-                          <td className="text-dusk-dim">{k.comment}</td>
-                        </tr>
-                      ))}
-                    </tbody>
-                  </table>
+                  {a.fitsHeader.hdus.map((hdu, h) => (
+                    <div key={h} className="mt-1">
+                      <p>
+                        HDU {h + 1}: {hdu.type}, BITPIX {hdu.bitpix}, {hdu.axes.length > 0 ? hdu.axes.join(" × ") : "no data"}, data {formatBytes(hdu.dataBytes)}
+                      </p>
+                      <table className="font-mono text-xs">
+                        <tbody>
+                          {hdu.keywords.map((k, i) => (
+                            <tr key={i}>
+                              <td className="pr-3">{k.key}</td>
+                              <td className="whitespace-pre-wrap pr-3 text-glint">{k.text === null ? "" : k.isString ? `'${k.text}'` : k.text}</td>
+                              <td className="text-dusk-dim">{k.comment}</td>
+                            </tr>
+                          ))}
+                        </tbody>
+                      </table>
+                      {hdu.omittedCards > 0 && <p className="text-dusk-dim">{hdu.omittedCards} more cards in this header are not shown.</p>}
+                    </div>
+                  ))}
                 </details>
               )}
             </li>

@@ -57,7 +57,7 @@ export interface CheckedAttachment {
   kind: AttachmentKind;
   mimeType: string;
   sizeBytes: number;
-  /** For FITS files: the primary header, to show its keywords and data size. */
+  /** For FITS files: every HDU's header, to show its type, keywords and data size. */
   fitsHeader?: FitsHeader;
 }
 

@@ -8,3 +8,9 @@ export const MAX_IMPORT_ROWS = 10_000;
 
 /** A note attachment (PNG, JPEG, PDF, FITS) is at most 16 MiB. */
 export const MAX_ATTACHMENT_BYTES = 16 * 1024 * 1024;
+
+/** A FITS attachment's headers are listed for at most 64 HDUs; past them the list says more HDUs follow (our rule). */
+export const MAX_FITS_HDUS = 64;
+
+/** At most 1,000 cards of one FITS header are kept; past them the list says how many more there are (our rule). */
+export const MAX_FITS_CARDS_PER_HDU = 1_000;

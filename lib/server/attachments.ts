@@ -118,7 +118,8 @@ const viewOf = (ids: { proposalId: string; targetId: string }, row: AttachmentRo
   name: row.name,
   kind: row.kind,
   sizeBytes: row.sizeBytes,
-  fitsHeader: (row.fitsHeader as FitsHeader | null) ?? null,
+  // A header stored before every HDU was listed (no `hdus`, values re-typed) is not shown rather than misread.
+  fitsHeader: row.fitsHeader !== null && typeof row.fitsHeader === "object" && "hdus" in row.fitsHeader ? (row.fitsHeader as FitsHeader) : null,
   fileUrl: `/api/proposals/${ids.proposalId}/targets/${ids.targetId}/notes/${row.noteId}/attachments/${row.id}/file`,
   createdAt: row.createdAt.toISOString(),
 });

@@ -69,10 +69,10 @@ describe("note attachments through the upload service", () => {
       ["chart.png", "png", png.length],
       ["spectrum.fits", "fits", fits.length],
     ]);
-    const header = attachments[1].fitsHeader!;
+    const [header] = attachments[1].fitsHeader!.hdus;
     expect(header.dataBytes).toBe(400);
     expect(header.axes).toEqual([10, 20]);
-    expect(header.keywords.find((k) => k.key === "OBJECT")?.value).toBe("K-17 core");
+    expect(header.keywords.find((k) => k.key === "OBJECT")?.text).toBe("K-17 core");
   });
 
   it("refuses a file whose content is no attachment type, deletes it and records nothing", async () => {

@@ -63,7 +63,7 @@ describe("checkAttachment", () => {
   it("reads a FITS file's header along with its type", () => {
     const fits = checkAttachment(fitsFile([card("SIMPLE", "T"), card("BITPIX", "16"), card("NAXIS", "1"), card("NAXIS1", "10")], 20));
     expect(fits.mimeType).toBe("application/fits");
-    expect(fits.fitsHeader?.dataBytes).toBe(20);
+    expect(fits.fitsHeader?.hdus[0].dataBytes).toBe(20);
   });
 
   it("refuses a file whose content is none of the kinds", () => {
