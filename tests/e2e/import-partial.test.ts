@@ -34,9 +34,9 @@ describe("import page: refusals in words, units chosen per column, and the good 
     // Distances in kpc without a unit, a row past the pole, a magnitude beyond the one kept and a colour column.
     const csv = [
       "name,ra,dec,mass,D_L,D_S,mag,V_mag,colour",
-      `PI-${run}-1,17:56:40.0,-29:30:00,0.5,4,8,18,19,red`,
+      `PI-${run}-1,17:50:10.0,-30:10:00,0.5,4,8,18,19,red`,
       `PI-${run}-2,18:02:00,+95:00:00,0.5,4,8,18,19,=1+1`,
-      `PI-${run}-3,17:58:01.0,-29:20:00,0.3,3,8,18,19,blue`,
+      `PI-${run}-3,17:52:20.0,-30:40:00,0.3,3,8,18,19,blue`,
     ].join("\n");
     await dropzone.setInputFiles({ name: `mixed-${run}.csv`, mimeType: "text/csv", buffer: Buffer.from(csv) });
     await page.getByTestId("uploaded-list").waitFor();
