@@ -105,8 +105,9 @@ function readValueField(field: string): ValueField {
  * ESO hierarchical keyword whose name runs to the first "="; anything else is commentary.
  */
 function readCard(card: string): FitsKeyword {
-  const hierarch = /^HIERARCH +([^=]*?) *=(.*)$/.exec(card);
-  if (hierarch) return { key: hierarch[1], ...readValueField(hierarch[2]) };
+  // Split at the first "=" by position (no regular expression: a card of spaces must not backtrack).
+  const equals = card.startsWith("HIERARCH ") ? card.indexOf("=") : -1;
+  if (equals > 0) return { key: card.slice(9, equals).trim(), ...readValueField(card.slice(equals + 1)) };
   const key = card.slice(0, 8).trimEnd();
   if (!/^[A-Z0-9_-]*$/.test(key)) throw new Error(`the keyword "${key}" has characters other than A–Z, 0–9, - and _`);
   if (card.slice(8, 10) !== "= ") return { key, text: null, isString: false, comment: card.slice(8).trim() };

@@ -9,6 +9,7 @@ import * as astro from "@/lib/astro/inputs";
 import * as schedule from "@/lib/schedule/request";
 import { figureFormatQuerySchema } from "@/lib/exports/figures/figure-format";
 import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
+import { tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
 import * as importRequest from "@/lib/imports/request";
 import { parseCsvTable } from "@/lib/imports/csv";
 import { proposeColumnMapping } from "@/lib/imports/columns";
@@ -68,6 +69,9 @@ const fieldWords: Record<string, RegExp> = {
   sourceRadiusThetaE: /source radius|ρ/i,
   limbDarkeningU: /limb.darkening/i,
   sourceMagnitude: /source magnitude/i,
+  noteColumn: /notes column/i,
+  leaveOutRefusedRows: /refused rows/i,
+  fit: /LaTeX table layout/i,
   sourceBand: /band/i,
   blendFraction: /blend fraction/i,
   photometry: /photometry/i,
@@ -256,6 +260,7 @@ const parsedByParseOrThrow: Record<string, z.ZodType> = {
   importCommitSchema: importRequest.importCommitSchema,
   figureFormatQuerySchema,
   tableColumnsQuerySchema,
+  tableWriteOptionsSchema,
 };
 
 describe("every schema's refusals are in the user's words and name the field", () => {
@@ -351,6 +356,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/imports/request.ts",
     "lib/exports/figures/figure-format.ts",
     "lib/exports/tables/columns.ts",
+    "lib/exports/tables/formats.ts",
     "lib/astro/inputs.ts",
     "lib/schedule/request.ts",
   ]);
