@@ -1,15 +1,10 @@
 import { formatQuantity } from "@/components/workspace/format";
-import type { PhotonBudgetOutcome, TargetPhotonBudget } from "@/lib/lensing/photon-budget";
+import { measuredLightWords, type PhotonBudgetOutcome, type TargetPhotonBudget } from "@/lib/lensing/photon-budget";
 import type { VisitPhotometry } from "@/lib/photometry/visit-budget";
 import { dateWords } from "@/lib/lensing/science-case-words";
 
 /** Rows of the per-visit table shown at once; the rest are counted (the figures carry every visit). */
 const SHOWN_VISITS = 400;
-
-const measuredWords: Record<TargetPhotonBudget["measured"], string> = {
-  "blended-source": "the source with its blend, magnified along the event",
-  "fainter-image": "the fainter image",
-};
 
 function snrText(snr: number, precisionMmag: number): string {
   return `S/N ${formatQuantity(snr, 3)} (${formatQuantity(precisionMmag, 3)} mmag)`;
@@ -59,7 +54,7 @@ function BudgetDetails({ budget }: { budget: TargetPhotonBudget }) {
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-dusk-dim">Measured</dt>
         <dd>
-          {measuredWords[budget.measured]}, in {budget.bandLabel}; S/N goal {formatQuantity(budget.signalToNoiseGoal, 3)}, up to {formatQuantity(budget.visitExposureS, 3)} s
+          {measuredLightWords[budget.measured]}, in {budget.bandLabel}; S/N goal {formatQuantity(budget.signalToNoiseGoal, 3)}, up to {formatQuantity(budget.visitExposureS, 3)} s
           of exposure per visit after {formatQuantity(budget.overheadS, 3)} s of overhead
         </dd>
         {budget.imageMagnitudes.length > 0 && (

@@ -56,6 +56,12 @@ export type PhotonBudgetInputs = { setup: PhotonBudgetSetup; source: SourceBrigh
 /** Which light the budget measures (see the module comment). */
 export type MeasuredLight = "blended-source" | "fainter-image";
 
+/** The measured light in words, as the depth answer and the target page name it. */
+export const measuredLightWords: Record<MeasuredLight, string> = {
+  "blended-source": "the magnified source with its blend",
+  "fainter-image": "the fainter image",
+};
+
 export interface TargetPhotonBudget {
   measured: MeasuredLight;
   bandLabel: string;

@@ -5,7 +5,7 @@
  */
 import { MOONLIGHT_MODEL_MIN_SEPARATION_DEG } from "@/lib/photometry/moon-sky";
 import { DEPTH_RULE, gradeAtLeast, worseVerdict } from "./feasibility-rules";
-import type { PhotonBudgetOutcome, TargetPhotonBudget } from "./photon-budget";
+import { measuredLightWords, type PhotonBudgetOutcome, type TargetPhotonBudget } from "./photon-budget";
 import { missingInput, type Question } from "./science-case-answer";
 import type { CaseAnswer } from "./science-cases";
 import { dayWords, numberWords, visitsWords } from "./science-case-words";
@@ -15,11 +15,6 @@ const QUESTION: Question = {
   question: "Depth at the worst visit",
   source:
     "CCD equation: Merline & Howell 1995, Exp. Astron. 6, 163 (Howell, Handbook of CCD Astronomy, 2006, eq. 4.4); moonlit sky: Krisciunas & Schaefer 1991, PASP 103, 1033; thresholds: our rule (the goal at every visit; half of it marginal), saturation common practice",
-};
-
-const measuredWords: Record<TargetPhotonBudget["measured"], string> = {
-  "blended-source": "the magnified source with its blend",
-  "fainter-image": "the fainter image",
 };
 
 /** "air mass 1.3, Moon 62% lit 35° away" or "air mass 1.3, Moon down". */
@@ -47,7 +42,7 @@ export function depthAnswer(outcome: PhotonBudgetOutcome): CaseAnswer | null {
   const goal = budget.signalToNoiseGoal;
   let verdict = gradeAtLeast(reached / goal, DEPTH_RULE);
   if (budget.saturatedVisits > 0) verdict = worseVerdict(verdict, "marginal");
-  const what = measuredWords[budget.measured];
+  const what = measuredLightWords[budget.measured];
   const where = conditionsWords(budget, worst);
   const reach =
     needed <= budget.visitExposureS
