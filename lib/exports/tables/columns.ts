@@ -6,6 +6,9 @@
 import { z } from "zod";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { answersLine } from "@/lib/workspace/case-verdict-words";
+import { headerOf, roundSignificant } from "./data-table";
+
+export { headerOf };
 
 export type ColumnKind = "double" | "int" | "text";
 
@@ -102,11 +105,6 @@ export const defaultExportColumns: ExportColumnKey[] = [
   "caseVerdict",
 ];
 
-/** "Einstein radius [mas]": the header text with its unit, for CSV and JSON. */
-export function headerOf(column: ExportColumn): string {
-  return column.unit === "" ? column.label : `${column.label} [${column.unit}]`;
-}
-
 /**
  * A column in words for VOTable and ECSV descriptions: its label and whether it is an input or
  * computed; a scale that is no unit (θ_E) is said here, since no unit attribute can carry it.
@@ -138,11 +136,6 @@ export function cellOf(row: TargetView, column: ExportColumn): CellValue {
   if (Array.isArray(value)) return value.join("; ");
   if (value === null || value === undefined) return null;
   return value as number | string;
-}
-
-/** Rounds to `digits` significant digits (IEEE round-trip of `toPrecision`). */
-export function roundSignificant(value: number, digits: number): number {
-  return Number(value.toPrecision(digits));
 }
 
 /**

@@ -8,7 +8,8 @@ import { targetTableEcsv } from "@/lib/exports/tables/ecsv";
 import { targetTableJson, type TargetTableJson } from "@/lib/exports/tables/json";
 import { targetTableLatex } from "@/lib/exports/tables/latex";
 import type { TargetTable } from "@/lib/exports/tables/table";
-import { targetTableVotable, VOTABLE_NAMESPACE } from "@/lib/exports/tables/votable";
+import { VOTABLE_NAMESPACE } from "@/lib/exports/tables/data-table";
+import { targetTableVotable } from "@/lib/exports/tables/votable";
 import { proposeColumnMapping } from "@/lib/imports/columns";
 import { parseCsvTable } from "@/lib/imports/csv";
 import { validateImportRows } from "@/lib/imports/rows";
@@ -146,7 +147,8 @@ describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () 
     expect(byName.einsteinRadiusMas).toMatchObject({ datatype: "double", unit: "mas", ucd: "phys.angSize", precision: "E3" });
     expect(byName.timeDelayDays).toMatchObject({ unit: "d", ucd: "time.interval" });
     expect(byName.shadowDiameterMicroarcsec.unit).toBe("uarcsec");
-    expect(byName.priority).toMatchObject({ datatype: "int", ucd: "meta.code.qual" });
+    // A whole number is a 64-bit long, as ECSV's int64.
+    expect(byName.priority).toMatchObject({ datatype: "long", ucd: "meta.code.qual" });
     expect(byName.priority.unit).toBeUndefined();
     expect(byName.name).toMatchObject({ datatype: "char", arraysize: "*" });
   });
@@ -173,10 +175,13 @@ describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () 
     expect(rows[0].TD[3]).toBe("0.637");
     expect(rows[1].TD[4]).toBe("");
     const infos = Object.fromEntries((resource.INFO as Record<string, string>[]).map((i) => [i.name, i.value]));
-    expect(infos.product).toBe(`Arcwright ${packageJson.version}`);
+    expect(infos.product).toBe("Arcwright");
+    expect(infos.version).toBe(packageJson.version);
     expect(infos.exportedAt).toBe("2031-02-03T04:05:06.000Z");
     expect(infos.reproduceUrl).toContain("/proposals/");
-    expect(infos["constant.GM_sun"]).toBe("132712440000000000000 m3 s-2");
+    expect(infos["constants.GM_sun.value"]).toBe("132712440000000000000");
+    expect(infos["constants.GM_sun.unit"]).toBe("m3 s-2");
+    expect(infos["cosmology.H0KmPerSPerMpc"]).toBe(String(exportProvenance.cosmology.H0KmPerSPerMpc));
   });
 });
 
