@@ -69,14 +69,31 @@ async function vitestProject(project, env, tmp, filters) {
   if (code !== 0) failures.push(`vitest ${project} (exit ${code})`);
 }
 
+/** Type-checks the whole project (app, tests, scripts); resolves with whether it passed, counted in the totals. */
+async function typecheckRun(env) {
+  log("test", "type check (tsc --noEmit), beside the unit tests");
+  const code = await run(bin("tsc"), ["--noEmit", "-p", "."], { cwd: repoRoot, env });
+  if (code === 0) {
+    totals.passed += 1;
+    log("test", "type check passed");
+    return true;
+  }
+  totals.failed += 1;
+  failures.push("typecheck");
+  return false;
+}
+
 async function main() {
   const { phases, filters } = parseArgs(process.argv.slice(2));
   const startedAt = Date.now();
   ensureNodeModules(repoRoot);
-  // The table exports are read back by astropy and STILTS (tests/validators/check_tables.py); the
-  // LaTeX export is compiled by pdflatex with Latin Modern fonts and read back by pdftotext
-  // (tests/integration/exports-latex.test.ts).
-  const validators = phases.includes("unit") || phases.includes("integration") ? ["python3-astropy", "stilts", "texlive-latex-base", "lmodern", "poppler-utils"] : [];
+  // The outside validators of the exports (tests/validators/): astropy and STILTS read the tables back;
+  // pdflatex compiles the LaTeX export with Latin Modern fonts; qpdf, pdffonts and pdftotext check the
+  // PDFs, pngcheck the PNGs, and Python's icalendar parses the calendars.
+  const validators =
+    phases.includes("unit") || phases.includes("integration")
+      ? ["python3-astropy", "stilts", "texlive-latex-base", "lmodern", "poppler-utils", "qpdf", "pngcheck", "python3-icalendar"]
+      : [];
   ensureDebianPackages(["postgresql", ...validators, ...(phases.includes("e2e") ? ["chromium"] : [])]);
 
   const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));
@@ -92,18 +109,11 @@ async function main() {
     const baseEnv = appEnvironment({ databaseUrl: cluster.url("arcwright_test"), appUrl, secrets, nodeEnv: "test" });
     await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env: baseEnv });
 
-    if (phases.includes("typecheck")) {
-      log("test", "type check (tsc --noEmit)");
-      const code = await run(bin("tsc"), ["--noEmit", "-p", "."], { cwd: repoRoot, env: baseEnv });
-      if (code === 0) totals.passed += 1;
-      else {
-        totals.failed += 1;
-        failures.push("typecheck");
-      }
-    }
-    for (const project of ["unit", "integration"]) {
-      if (phases.includes(project)) await vitestProject(project, baseEnv, tmp, filters);
-    }
+    // tsc checks on one thread, so it runs beside the unit tests, which have the other core.
+    const typecheck = phases.includes("typecheck") ? typecheckRun(baseEnv) : Promise.resolve(false);
+    if (phases.includes("unit")) await vitestProject("unit", baseEnv, tmp, filters);
+    const typesChecked = await typecheck;
+    if (phases.includes("integration")) await vitestProject("integration", baseEnv, tmp, filters);
 
     if (phases.includes("e2e")) {
       // The shared build folder is reused while the sources are unchanged; a run that finds it in use
@@ -113,7 +123,9 @@ async function main() {
       cleanups.push(release ?? (() => rmSync(join(repoRoot, distDir), { recursive: true, force: true })));
       const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
       cleanups.push(fakes.stop);
-      const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir };
+      // A build after this run's own passing tsc (which covers the app, its tests and scripts) does not
+      // type-check again (next.config.mjs).
+      const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir, ...(typesChecked ? { ARCWRIGHT_TYPES_CHECKED: "1" } : {}) };
       await ensureBuild(repoRoot, distDir, env);
       await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
       // Served as `npm start` serves it: one `next start` per core (scripts/serve.mjs).
