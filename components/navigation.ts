@@ -3,4 +3,5 @@ export const primaryNavigation = [
   { href: "/bench", label: "Lens bench" },
   { href: "/proposals", label: "Proposals" },
   { href: "/sky", label: "Sky windows" },
+  { href: "/references", label: "References" },
 ] as const;

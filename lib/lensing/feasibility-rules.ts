@@ -3,7 +3,9 @@
  * each with its source. "Common practice" marks a trade rule without a single published source,
  * "our rule" a choice of ours (the reasoning is given), "from memory" a reference not re-checked here.
  * Pure numbers in, verdicts out; the wording lives with the science cases (science-case-*.ts).
+ * The published sources are keys of lib/citations (`feasibilityRuleReferences`, at the end).
  */
+import type { CitationKey } from "@/lib/citations/references";
 
 /** The answers a feasibility question can have; "unknown" when an input it needs is missing. */
 export const verdicts = ["feasible", "marginal", "infeasible", "unknown"] as const;
@@ -220,3 +222,16 @@ export function caseVerdictOf(answers: readonly Verdict[]): Verdict {
  * (common practice).
  */
 export const DEPTH_RULE: RatioRule = { feasibleAt: 1, marginalAt: 0.5 };
+
+// ── Published sources ─────────────────────────────────────────────────────────────────────────────
+
+/**
+ * The rules above that rest on a publication, each with its references (keys of lib/citations);
+ * common-practice rules and our own have none. Read by the References page.
+ */
+export const feasibilityRuleReferences: readonly { rule: string; references: readonly CitationKey[] }[] = [
+  { rule: "Peak magnification of an event (A ≥ 1.34 is u0 ≤ 1)", references: ["paczynski1986"] },
+  { rule: "Resolution of an interferometer, λ/B", references: ["thompson2017"] },
+  { rule: "Shadow and photon ring over λ/B", references: ["eht2019", "synge1966", "virbhadra2000"] },
+  { rule: "The astrometric default case", references: ["sahu2017"] },
+];

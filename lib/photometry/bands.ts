@@ -13,6 +13,7 @@
  * estimates); it ignores the shape of the passband and the colour of the star, which moves the rate by
  * a few per cent for a star of colours unlike the zero-point star's.
  */
+import { citationText } from "@/lib/citations/cite";
 import type { FieldErrors } from "@/lib/errors";
 import { PLANCK_CONSTANT_J_S, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics/constants";
 
@@ -69,12 +70,11 @@ export function fLambdaFromJanskyWPerM2PerNm(fluxDensityJy: number, wavelengthNm
   return (fluxDensityJy * JANSKY_W_PER_M2_PER_HZ * SPEED_OF_LIGHT_M_PER_S) / (wavelengthM * wavelengthM) * 1e-9;
 }
 
-const BESSELL_2005 =
-  "Bessell 2005, ARA&A 43, 293, Table 1 (zero points of Bessell, Castelli & Plez 1998, A&A 333, 231, Table A2); widths from memory";
-const FUKUGITA_1996 =
-  "Fukugita et al. 1996, AJ 111, 1748, Table 2 (effective wavelength and FWHM, from memory); zero point 3631 Jy by the AB definition (Oke & Gunn 1983)";
-const COHEN_2003 = "Cohen, Wheaton & Megeath 2003, AJ 126, 1090, Table 2 (isophotal wavelength, bandwidth, F_λ)";
-const BLANTON_ROWEIS_2007 = "Blanton & Roweis 2007, AJ 133, 734, Table 1";
+// The sources in words, from the references' one home (lib/citations).
+const BESSELL_2005 = `${citationText("bessell2005")}, Table 1 (zero points of ${citationText("bessell1998")}, Table A2); widths from memory`;
+const FUKUGITA_1996 = `${citationText("fukugita1996")}, Table 2 (effective wavelength and FWHM, from memory); zero point 3631 Jy by the AB definition (${citationText("oke1983")})`;
+const COHEN_2003 = `${citationText("cohen2003")}, Table 2 (isophotal wavelength, bandwidth, F_λ)`;
+const BLANTON_ROWEIS_2007 = `${citationText("blanton2007")}, Table 1`;
 
 /** A built-in row before the offset's source is added; every built-in band has a known offset. */
 type BandRow = Omit<PhotometricBand, "offsetSource" | "abMinusVegaMag"> & { abMinusVegaMag: number };

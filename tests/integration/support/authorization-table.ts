@@ -150,6 +150,7 @@ export const checkedByOwnTest: (RouteMethod & { test: string })[] = [
 export const openRoutes: (RouteMethod & { why: string; sessionOnlyFor?: string })[] = [
   { method: "GET", route: "/favicon.ico", why: "browsers ask for it unprompted; it only redirects to the app icon" },
   { method: "GET", route: "/api/health", why: "liveness and database reachability, for monitoring" },
+  { method: "GET", route: "/api/references", why: "the BibTeX of the product's references: public knowledge, read from the code's registry" },
   { method: "GET", route: "/api/bench/exports/[figure]", why: "the lens bench is open without signing in, so are its figures", sessionOnlyFor: "a PNG wider than 2000 px (exports-figures.test.ts)" },
   { method: "POST", route: "/api/account/sign-up", why: "creating an account comes before having a session" },
   { method: "POST", route: "/api/account/sign-in-link", why: "asking for a sign-in link comes before having a session" },

@@ -1,0 +1,3 @@
+import { referencesRoutes } from "@/lib/citations/bibtex-route";
+
+export const { GET } = referencesRoutes();
