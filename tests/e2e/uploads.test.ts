@@ -77,18 +77,31 @@ describe("uploads in the browser through the upload service fake", () => {
     expect(await page.getByTestId("uploaded-list").count()).toBe(0);
   });
 
-  it("a Co-I attaches a PNG to a new note and sees it previewed", async () => {
-    const { page } = await newPage(browser);
+  it("a Co-I writes a note with math, sees it typeset, attaches a PNG and sees it previewed", async () => {
+    const { page, consoleErrors } = await newPage(browser);
     await signInAsDemo(page, "coi");
     await openProposal(page);
     await page.getByRole("link", { name: "K-17 core" }).click();
     await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
     const noteText = `Finding chart ${run}`;
     const add = page.getByRole("form", { name: "Add a note" });
-    await add.getByLabel("New note (Markdown)").fill(noteText);
+    await add.getByLabel("New note (Markdown)").fill(`${noteText}\n\nEinstein radius $\\theta_E = \\sqrt{4GM/c^2 \\cdot D}$\n\n$$\nA = \\frac{u^2+2}{u\\sqrt{u^2+4}}\n$$`);
     await add.getByRole("button", { name: "Add note" }).click();
     const note = page.getByTestId("note").filter({ hasText: noteText });
     await note.waitFor();
+
+    // KaTeX typesets both formulas in the page, its fonts served by the app itself (font-src 'self').
+    expect(await note.locator(".katex").count()).toBe(2);
+    expect(await note.locator(".katex-display").count()).toBe(1);
+    expect(await note.locator('annotation[encoding="application/x-tex"]').first().textContent()).toBe("\\theta_E = \\sqrt{4GM/c^2 \\cdot D}");
+    const fontsLoaded = await page.evaluate(async () => {
+      await document.fonts.ready;
+      return [...document.fonts].filter((face) => face.family.replace(/"/g, "") === "KaTeX_Main" && face.status === "loaded").length;
+    });
+    expect(fontsLoaded).toBeGreaterThan(0);
+    // No Content-Security-Policy report (a refused font or style) or any other error in the console.
+    expect(consoleErrors, consoleErrors.join("\n")).toEqual([]);
+
     await note.getByTestId("note-attachments").locator('input[type="file"]').setInputFiles({ name: `chart-${run}.png`, mimeType: "image/png", buffer: onePixelPng });
     const image = note.getByRole("img", { name: `Attachment chart-${run}.png` });
     await image.waitFor();
