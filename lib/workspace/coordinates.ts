@@ -101,3 +101,24 @@ export function formatDeclination(decDeg: number): string {
   const [degrees, minutes, seconds] = splitSexagesimal(Math.abs(decDeg), 1);
   return `${decDeg < 0 ? "−" : "+"}${two(degrees)}°${two(minutes)}′${seconds}″`;
 }
+
+/**
+ * "17:45:40.036": right ascension as hours:minutes:seconds with `secondDecimals` decimals of a
+ * second (3: 0.001 s, 15 mas at the equator), the form observatory proposal forms and astropy's
+ * `Angle.to_string(unit=hourangle, sep=":")` write; ASCII only, so table readers parse it.
+ */
+export function formatRightAscensionColons(raDeg: number, secondDecimals: number): string {
+  const [hours, minutes, seconds] = splitSexagesimal(raDeg / 15, secondDecimals);
+  return `${two(hours % 24)}:${two(minutes)}:${seconds}`;
+}
+
+/**
+ * "-29:00:28.17": declination as signed degrees:arcminutes:arcseconds with `secondDecimals`
+ * decimals of an arcsecond (2: 10 mas), an ASCII hyphen-minus or plus always written, as astropy's
+ * `Angle.to_string(sep=":", alwayssign=True)` writes it.
+ */
+export function formatDeclinationColons(decDeg: number, secondDecimals: number): string {
+  const [degrees, minutes, seconds] = splitSexagesimal(Math.abs(decDeg), secondDecimals);
+  const isNegative = decDeg < 0 && (degrees > 0 || minutes > 0 || Number(seconds) > 0);
+  return `${isNegative ? "-" : "+"}${two(degrees)}:${two(minutes)}:${seconds}`;
+}

@@ -11,6 +11,7 @@ import { targetTableExportRoutes } from "@/lib/exports/server/routes";
 import { demoTargets } from "@/db/seed/demo-scenario";
 import { descriptionOf, exportColumnKeys, exportColumnOf, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTableJson } from "@/lib/exports/tables/json";
+import { DEC_SECOND_DECIMALS, RA_SECOND_DECIMALS, sexagesimalColumns } from "@/lib/exports/tables/table";
 import { commitImport, previewImport } from "@/lib/server/imports";
 import { targets } from "@/db/schema";
 import { and, eq } from "drizzle-orm";
@@ -91,15 +92,15 @@ describe("GET /api/proposals/:id/exports/targets", () => {
     expect(response.status).toBe(200);
     const csv = await response.text();
     const lines = csv.split("\r\n");
-    expect(lines[0]).toBe("Name,RA (ICRS) [deg],Dec (ICRS) [deg],Priority,Tags");
+    expect(lines[0]).toBe("Name,RA (ICRS) [deg],RA (ICRS) hms,Dec (ICRS) [deg],Dec (ICRS) dms,Priority,Tags");
     expect(lines.filter((line) => line.startsWith("#"))).toEqual([]);
     expect(csv).not.toContain("HYPERLINK");
     const parsed = Papa.parse<string[]>(csv, { skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     const cells = parsed.data.flat();
     // OWASP CSV injection: a cell starting with = + - @ tab or CR runs as a formula, unless it is a
-    // plain decimal number ("-29.2"), which every spreadsheet reads as a number.
-    expect(cells.filter((cell) => /^[=+\-@\t\r]/.test(cell) && !/^-?\d+(\.\d+)?(e[+-]?\d+)?$/i.test(cell))).toEqual([]);
+    // plain decimal number ("-29.2") or a signed sexagesimal one ("-29:00:28.17"), which call nothing.
+    expect(cells.filter((cell) => /^[=+\-@\t\r]/.test(cell) && !/^-?\d+(\.\d+)?(e[+-]?\d+)?$/i.test(cell) && !/^[+-]\d{2}:\d{2}:\d{2}\.\d+$/.test(cell))).toEqual([]);
     expect(parsed.data[1][0]).toBe("'-2+3");
 
     // The provenance moved to the download: an ASCII JSON header and the time of export in the file name.
@@ -203,11 +204,19 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
         provenanceOf[format] = JSON.parse(response.headers.get("arcwright-provenance")!);
         writeFileSync(join(directory, file), Buffer.from(await response.arrayBuffer()));
       }
+      // RA and Dec in sexagesimal beside their degrees, parsed back by astropy's Angle within half their last digit.
+      const sexagesimalAs = (csv: boolean) =>
+        sexagesimalColumns.map(({ after, column }) => ({
+          text: csv ? headerOf(column) : column.name,
+          degrees: csv ? headerOf(exportColumnOf(after)) : after,
+          unit: after === "raDeg" ? "hourangle" : "deg",
+          precision: after === "raDeg" ? RA_SECOND_DECIMALS : DEC_SECOND_DECIMALS,
+        }));
       const expected = {
         files: {
-          votable: { path: "targets.vot", columns: columnsAs((key) => key, true), rows: values },
-          csv: { path: "targets.csv", columns: columnsAs((key) => headerOf(exportColumnOf(key)), false), rows: csvValues },
-          ecsv: { path: "targets.ecsv", columns: columnsAs((key) => key, true), rows: values },
+          votable: { path: "targets.vot", columns: columnsAs((key) => key, true), rows: values, sexagesimal: sexagesimalAs(false) },
+          csv: { path: "targets.csv", columns: columnsAs((key) => headerOf(exportColumnOf(key)), false), rows: csvValues, sexagesimal: sexagesimalAs(true) },
+          ecsv: { path: "targets.ecsv", columns: columnsAs((key) => key, true), rows: values, sexagesimal: sexagesimalAs(false) },
         },
         // The ECSV header's meta is the record its download was sent with.
         provenance: provenanceOf.ecsv,

@@ -63,8 +63,10 @@ function writtenCell(value: DataCell, column: DataColumn): DataCell {
 const writtenRows = (t: DataTable): DataCell[][] => t.rows.map((row) => t.columns.map((column, i) => writtenCell(row[i] ?? null, column)));
 
 // papaparse's own guard pattern (`^[=+\-@\t\r].*$`) fails on a formula followed by a line break,
-// since `.` stops there; the lead character alone decides.
-const FORMULA_LEAD = /^[=+\-@\t\r]/;
+// since `.` stops there; the lead character alone decides. A text that is a signed sexagesimal or
+// decimal number and nothing else ("-29:00:28.17") calls nothing and is written as it is, so table
+// readers parse it (our rule, within OWASP's aim: formulas, not signed numbers).
+const FORMULA_LEAD = /^(?![+-]\d+(?::\d+){0,2}(?:\.\d+)?$)[=+\-@\t\r]/;
 
 /** Quotes a text starting with #, which astropy's CSV and ECSV readers take for a comment line when it opens a row. */
 export const quoteCommentLike = (value: unknown): boolean => typeof value === "string" && value.startsWith("#");

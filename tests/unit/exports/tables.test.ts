@@ -56,11 +56,11 @@ describe("CSV export (RFC 4180, read back with papaparse)", () => {
   it("round-trips: header with units, numbers at their significant digits, empty where no value", () => {
     expect(parsed.errors).toEqual([]);
     const [header, first, second] = parsed.data;
-    expect(header).toEqual(["Name", "RA (ICRS) [deg]", "Lens model", "Einstein radius [mas]", "Time delay [d]", "Priority", "Tags", "Shadow diameter [uas]"]);
-    // Inputs as stored (RA to the last digit), computed quantities at their digits.
-    expect(first).toEqual(["TB-ML-0001", "269.301666667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
-    expect(second[3]).toBe("1030");
-    expect(second[4]).toBe("");
+    expect(header).toEqual(["Name", "RA (ICRS) [deg]", "RA (ICRS) hms", "Lens model", "Einstein radius [mas]", "Time delay [d]", "Priority", "Tags", "Shadow diameter [uas]"]);
+    // Inputs as stored (RA to the last digit), computed quantities at their digits; RA also in hours.
+    expect(first).toEqual(["TB-ML-0001", "269.301666667", "17:57:12.400", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
+    expect(second[4]).toBe("1030");
+    expect(second[5]).toBe("");
     expect(csv.includes("\r\n")).toBe(true);
   });
 
@@ -161,19 +161,20 @@ describe("VOTable export (IVOA VOTable 1.4), read by a hardened XML parser", () 
     // Inputs are written as stored, so they declare no precision; computed columns their significant figures.
     expect(fields.map((f) => [f.name, f.precision])).toEqual([
       ["raDeg", undefined],
+      ["raHms", undefined],
       ["lensMassSolar", undefined],
       ["timeDelayDays", "E4"],
       ["shadowDiameterMicroarcsec", "E4"],
     ]);
-    expect((doc.VOTABLE.RESOURCE.TABLE.DATA.TABLEDATA.TR as { TD: string[] }[])[0].TD).toEqual(["269.301666667", "0.4", "1.752e-11", "0.0000063"]);
+    expect((doc.VOTABLE.RESOURCE.TABLE.DATA.TABLEDATA.TR as { TD: string[] }[])[0].TD).toEqual(["269.301666667", "17:57:12.400", "0.4", "1.752e-11", "0.0000063"]);
   });
 
   it("escapes markup in cells and reads back the same values; provenance in INFO elements", () => {
     const resource = parser.parse(xml).VOTABLE.RESOURCE;
     const rows = resource.TABLE.DATA.TABLEDATA.TR as { TD: string[] }[];
     expect(rows[1].TD[0]).toBe(hostileName);
-    expect(rows[0].TD[3]).toBe("0.637");
-    expect(rows[1].TD[4]).toBe("");
+    expect(rows[0].TD[4]).toBe("0.637");
+    expect(rows[1].TD[5]).toBe("");
     const infos = Object.fromEntries((resource.INFO as Record<string, string>[]).map((i) => [i.name, i.value]));
     expect(infos.product).toBe("Arcwright");
     expect(infos.version).toBe(packageJson.version);
@@ -203,7 +204,7 @@ describe("ECSV export (Astropy's Enhanced CSV 1.0, APE6)", () => {
     expect(ecsv.split("\n").slice(0, 2)).toEqual(["# %ECSV 1.0", "# ---"]);
     expect(header.delimiter).toBe(",");
     const datatype = header.datatype as Record<string, unknown>[];
-    expect(datatype.map((c) => c.name)).toEqual(columns.map((c) => c.column.key));
+    expect(datatype.map((c) => c.name)).toEqual(["name", "raDeg", "raHms", ...columns.slice(2).map((c) => c.column.key)]);
     expect(datatype[1]).toEqual({ name: "raDeg", unit: "deg", datatype: "float64", description: "RA (ICRS) (input)", meta: { ucd: "pos.eq.ra;meta.main" } });
     expect(datatype.find((c) => c.name === "shadowDiameterMicroarcsec")).toMatchObject({ unit: "uarcsec", datatype: "float64" });
     expect(datatype.find((c) => c.name === "priority")).toMatchObject({ datatype: "int64" });
@@ -218,10 +219,10 @@ describe("ECSV export (Astropy's Enhanced CSV 1.0, APE6)", () => {
   });
 
   it("has a body of the column names, then every value as stored (no apostrophe: it is for table tools), empty where no value", () => {
-    expect(body[0]).toEqual(columns.map((c) => c.column.key));
-    expect(body[1]).toEqual(["TB-ML-0001", "269.301666667", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
+    expect(body[0]).toEqual(["name", "raDeg", "raHms", ...columns.slice(2).map((c) => c.column.key)]);
+    expect(body[1]).toEqual(["TB-ML-0001", "269.301666667", "17:57:12.400", "point", "0.637", "1.2e-7", "2", "bulge; night-1", "0.005218"]);
     expect(body[2][0]).toBe(hostileName);
-    expect(body[2][4]).toBe("");
+    expect(body[2][5]).toBe("");
   });
 
   it("quotes a name starting with #, so the row is not read as a comment line", () => {
@@ -338,8 +339,10 @@ describe("the photon budget's columns (the source's magnitude, band and f_s; the
   it("re-import from our own VOTable and ECSV with the magnitude to the last digit, the band and f_s; the computed columns fill no field", () => {
     for (const imported of [parseVoTable(targetTableVotable(budgetTable)), parseCsvTable(targetTableEcsv(budgetTable))]) {
       const mapping = proposeColumnMapping(imported.columns);
-      expect(mapping).toMatchObject({ sourceMagnitude: { column: 12, unit: "mag" }, sourceBand: { column: 13 }, blendFraction: { column: 14 } });
-      expect(Object.values(mapping).filter((assignment) => assignment!.column >= 15)).toEqual([]);
+      // RA and Dec in degrees (columns 1, 3), each followed by its sexagesimal text, which fills no field.
+      expect(mapping).toMatchObject({ ra: { column: 1, unit: "deg" }, dec: { column: 3 } });
+      expect(mapping).toMatchObject({ sourceMagnitude: { column: 14, unit: "mag" }, sourceBand: { column: 15 }, blendFraction: { column: 16 } });
+      expect(Object.values(mapping).filter((assignment) => assignment!.column >= 17 || [2, 4].includes(assignment!.column))).toEqual([]);
       const { rows } = validateImportRows(imported, mapping);
       expect(rows[0].errors).toEqual([]);
       expect(rows[0].target).toMatchObject({ sourceMagnitude: 19.123456789012344, sourceBand: "jc-i", blendFraction: 0.6 });
