@@ -5,6 +5,7 @@ import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
 import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
 import { targetTableExportRoutes, technicalSummaryRoutes } from "@/lib/exports/server/routes";
+import { calendarRoutes } from "@/lib/exports/calendar/server";
 import { attachmentCollectionRoutes, attachmentFileRoutes, attachmentRoutes, importCollectionRoutes, importPreviewRoutes } from "@/lib/server/api/upload-routes";
 import type { GetActor } from "@/lib/server/actor";
 import { proposalInput, pointTargetInput, type World } from "./world";
@@ -109,6 +110,8 @@ export const endpoints: Endpoint[] = [
   { name: "GET /attachments/:id/file", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]/attachments/[attachmentId]/file", siteAdmin: 404, handler: as(attachmentFileRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}/file`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 404, 404, 404] },
   { name: "GET /exports/targets", route: "/api/proposals/[proposalId]/exports/targets", siteAdmin: 200, handler: as(targetTableExportRoutes, "GET"), path: (w) => `${base(w)}/exports/targets?format=json&columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
   { name: "GET /exports/figures/:figure", route: "/api/proposals/[proposalId]/exports/figures/[figure]", siteAdmin: 200, handler: as(skyFigureRoutes, "GET"), path: (w) => `${base(w)}/exports/figures/season?start=2031-03-01&nights=10&format=svg`, params: (w) => ({ proposalId: w.proposalId, figure: "season" }), expected: [401, 404, 200, 200, 200] },
+  // A proposal without cycle dates has no schedule: members get the 400 that says so, after the role check.
+  { name: "GET /exports/calendar", route: "/api/proposals/[proposalId]/exports/calendar", siteAdmin: 400, handler: as(calendarRoutes, "GET"), path: (w) => `${base(w)}/exports/calendar?targetId=${w.targetId}`, params: proposalParams, expected: [401, 404, 400, 400, 400] },
   { name: "GET /exports/summary", route: "/api/proposals/[proposalId]/exports/summary", siteAdmin: 200, handler: as(technicalSummaryRoutes, "GET"), path: (w) => `${base(w)}/exports/summary?columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
   // The site's own area: only a site admin lists accounts or changes a site role (see siteAdminExpected).
   { name: "GET /admin/accounts", route: "/api/admin/accounts", siteAdmin: 200, handler: as(accountCollectionRoutes, "GET"), path: () => "http://arcwright.test/api/admin/accounts?pageSize=5", params: () => ({}), expected: [401, 403, 403, 403, 403] },

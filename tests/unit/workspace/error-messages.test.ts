@@ -365,6 +365,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/exports/server/sky-figures.ts",
     "lib/exports/server/summary.ts",
     "lib/exports/server/target-table.ts",
+    "lib/exports/calendar/server.ts",
     "lib/citations/bibtex-route.ts",
     "lib/server/imports.ts",
   ]);

@@ -133,6 +133,11 @@ export default async function TargetPage({
           <Link href={benchLink(target, proposal)} className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
             Open in the lens bench
           </Link>
+          {proposal.cycleStartDate !== null && (
+            <a href={`/api/proposals/${proposal.id}/exports/calendar?targetId=${target.id}`} download className="rounded-md border border-void-edge px-3 py-1.5 text-sm no-underline">
+              Calendar of windows and visits (.ics)
+            </a>
+          )}
           {proposal.permissions.canEdit && (
             <ConfirmDelete
               label="Delete target"
