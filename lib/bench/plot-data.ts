@@ -110,22 +110,27 @@ export function lightCurve(event: MicrolensingEvent, schedule?: Pick<ObservingSc
   return { curve, epochs, peakTimeDays: peakTimeS / DAY_S, campaignDays: campaignS / DAY_S, isLimitedBySourceSize };
 }
 
-/** Centroid shift on the sky in units of θ_E: along the lens–source vector (τ, u0), length u/(u²+2). */
-export interface AstrometricTrack {
-  track: CurvePoint[];
-  epochs: CurvePoint[];
+/** A centroid shift (x along the lens–source motion, y across it, θ_E) at a time, days from the campaign start. */
+export interface TrackPoint extends CurvePoint {
+  timeDays: number;
 }
 
-function centroidAt(timeS: number, event: MicrolensingEvent): CurvePoint {
+/** Centroid shift on the sky in units of θ_E: along the lens–source vector (τ, u0), length u/(u²+2). */
+export interface AstrometricTrack {
+  track: TrackPoint[];
+  epochs: TrackPoint[];
+}
+
+function centroidAt(timeS: number, event: MicrolensingEvent): TrackPoint {
   const tau = (timeS - event.peakTimeS) / event.einsteinTimeS;
   const u = Math.hypot(tau, event.u0ThetaE);
   const shift = pointLensImages(u).centroidShift;
-  return { x: (shift * tau) / u, y: (shift * event.u0ThetaE) / u };
+  return { x: (shift * tau) / u, y: (shift * event.u0ThetaE) / u, timeDays: timeS / DAY_S };
 }
 
 /** The track from t0 − 6 t_E to t0 + 6 t_E (nearly the whole ellipse), and the campaign's epochs on it. */
 export function astrometricTrack(event: MicrolensingEvent, schedule?: Pick<ObservingSchedule, "visitsJdUtc">): AstrometricTrack {
-  const track: CurvePoint[] = [];
+  const track: TrackPoint[] = [];
   const span = 6 * event.einsteinTimeS;
   for (let i = 0; i < LIGHT_CURVE_POINTS; i++) {
     track.push(centroidAt(event.peakTimeS - span + (2 * span * i) / (LIGHT_CURVE_POINTS - 1), event));
