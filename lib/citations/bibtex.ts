@@ -70,9 +70,11 @@ export function latexText(text: string): string {
   for (const char of text.normalize("NFD")) {
     const accent = ACCENTS[char];
     if (accent !== undefined) {
-      // The accent follows its base letter in NFD: wrap the letter just written (dotless i and j).
-      const base = out.slice(-1);
-      out = `${out.slice(0, -1)}{\\${accent}${base === "i" ? "\\i" : base === "j" ? "\\j" : base}}`;
+      // The accent follows its base letter in NFD: wrap the letter just written (dotless i and j). A
+      // letter command takes its argument braced ({\\v{s}}: "\\vs" would be one control word).
+      const last = out.slice(-1);
+      const base = last === "i" ? "\\i" : last === "j" ? "\\j" : last;
+      out = `${out.slice(0, -1)}{\\${accent}${/[a-z]/i.test(accent) ? `{${base}}` : base}}`;
     } else if (SPECIALS[char] !== undefined) out += SPECIALS[char];
     else if (LETTERS[char] !== undefined) out += LETTERS[char];
     else if (char >= " " && char <= "~") out += char;

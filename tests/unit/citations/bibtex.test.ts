@@ -34,7 +34,7 @@ describe("the references as BibTeX, read back by bibtex-parse", () => {
     expect(bibtexEntry("hog1995")).toContain("H{\\o}g, Erik");
     expect(bibtexEntry("einstein1915")).toContain("K{\\\"o}niglich Preu{\\ss}ischen");
     expect(bibtexEntry("eht2019")).toContain("author = {{Event Horizon Telescope Collaboration}}");
-    expect(bibtexEntry("prsa2016")).toContain("Torres, Guillermo and others}");
+    expect(bibtexEntry("prsa2016")).toContain("author = {Pr{\\v{s}}a, Andrej and Harmanec, Petr and Torres, Guillermo and others}");
   });
 
   it("writes DOIs, arXiv ids and ADS links as they are", () => {
@@ -58,6 +58,7 @@ describe("LaTeX spelling of reference text", () => {
     expect(latexText("Sæmundsson, Þorsteinn")).toBe("S{\\ae}mundsson, {\\TH}orsteinn");
     expect(latexText("Gutiérrez – Nørsett")).toBe("Guti{\\'e}rrez -- N{\\o}rsett");
     expect(latexText("í")).toBe("{\\'\\i}");
+    expect(latexText("Prša, Šafařík")).toBe("Pr{\\v{s}}a, {\\v{S}}afa{\\v{r}}{\\'\\i}k");
   });
 
   it("refuses a character it has no spelling for rather than writing a file classic BibTeX misreads", () => {
