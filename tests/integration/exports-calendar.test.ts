@@ -5,13 +5,13 @@ import { join } from "node:path";
 import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
-import { proposals } from "@/db/schema";
+import { proposals, targets } from "@/db/schema";
 import { dateFromJdUtc } from "@/lib/astro/time";
 import { calendarRoutes } from "@/lib/exports/calendar/server";
 import type { Actor } from "@/lib/server/actor";
 import { getProposal } from "@/lib/server/proposals";
 import { getTarget } from "@/lib/server/targets";
-import { targetSchedules } from "@/lib/workspace/derived";
+import { targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
 import { createWorld, proposalInput } from "./support/world";
 
 const folder = mkdtempSync(join(tmpdir(), "arcwright-calendar-"));
@@ -120,6 +120,32 @@ describe("iCalendar of a target's windows and visits (RFC 5545), read by python3
     const all = await calendar(world.actors.pi, world.proposalId, "");
     expect(all.headers.get("content-disposition")).toBe('attachment; filename="arcs-over-the-tessellate-bulge-field-all-targets.ics"');
     expect(readWithIcalendar(await all.text(), "all.ics").events.map((e) => e.uid)).toEqual(uids);
+  });
+
+  it("gives each visit the exposure of the target page's photon budget once the telescope and the source's magnitude are set", async () => {
+    const world = await createWorld();
+    await dbClient().db.update(proposals).set({ cycleStartDate: "2031-06-01", cycleEndDate: "2031-06-07", photometry: { apertureM: 1 } }).where(eq(proposals.id, world.proposalId));
+    await dbClient().db.update(targets).set({ sourceMagnitude: 19 }).where(eq(targets.id, world.targetId));
+    const checked = readWithIcalendar(await (await calendar(world.actors.viewer, world.proposalId, `?targetId=${world.targetId}`)).text(), "budget.ics");
+
+    const ids = { proposalId: world.proposalId, targetId: world.targetId };
+    const [proposal, target] = await Promise.all([getProposal(ids, world.actors.viewer), getTarget(ids, world.actors.viewer)]);
+    const schedule = targetSchedules(proposal, [target])[0]!;
+    const report = targetCaseReport(target, proposal, schedule)!;
+    if (!("budget" in report.photonBudget)) throw new Error(`expected a budget: ${JSON.stringify(report.photonBudget)}`);
+    const { budget } = report.photonBudget;
+    const visits = checked.events.filter((e) => e.summary === "TB-ML-0001: planned visit");
+    expect(budget.visitsJdUtc.length).toBeGreaterThan(0);
+    // Without t0 every planned visit is graded at the peak (lib/lensing/photon-budget.ts): the budget's visits are the schedule's.
+    expect(Array.from(budget.visitsJdUtc)).toEqual(Array.from(schedule.visitsJdUtc));
+    budget.visitsJdUtc.forEach((_, i) => {
+      const needed = budget.series.exposureForGoalS[i];
+      const words =
+        needed <= budget.visitExposureS
+          ? `Exposure ${needed.toFixed(0)} s reaches the S/N goal of ${budget.signalToNoiseGoal} in ${budget.bandLabel}`
+          : `reaches S/N ${budget.series.signalToNoise[i].toFixed(1)} in ${budget.bandLabel}, short of the goal`;
+      expect(visits[i].description, `visit ${i}`).toContain(words);
+    });
   });
 
   it("says in words that a proposal without cycle dates has no schedule to put in a calendar", async () => {
