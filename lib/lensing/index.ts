@@ -4,6 +4,8 @@
  */
 
 export { finiteSourceMagnification } from "./finite-source";
+export { fitPointLens, FitInputError, MAX_FIT_ROWS } from "./fit";
+export type { DatasetFit, PhotometryPoint, PointLensFit, PointLensFitOptions } from "./fit";
 export { microlensParallax, peakMagnification } from "./microlensing";
 export {
   lensModelIds,
