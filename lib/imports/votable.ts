@@ -2,6 +2,7 @@ import { XMLParser, XMLValidator } from "fast-xml-parser";
 import { AppError } from "@/lib/errors";
 import type { ImportColumn, ImportRow, ImportTable } from "@/lib/imports/import-table";
 import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { decodeBinaryStream, type BinaryField } from "@/lib/imports/votable-binary";
 
 const importError = (message: string) => new AppError("bad_request:import", message);
 
@@ -61,12 +62,39 @@ function cellText(td: unknown): string {
   return "";
 }
 
+/** The rows of a TABLEDATA element, each cell as written; a cell equal to its FIELD's VALUES/@null is empty (§4.5). */
+function tableDataRows(tableData: XmlNode, nullValues: (string | undefined)[]): string[][] {
+  const trs = asNodes(tableData.TR);
+  if (trs.length > MAX_IMPORT_ROWS) {
+    throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+  }
+  return trs.map((tr) =>
+    (Array.isArray(tr.TD) ? tr.TD : []).map((td, column) => {
+      const value = cellText(td);
+      return nullValues[column] !== undefined && value.trim() === nullValues[column] ? "" : value;
+    }),
+  );
+}
+
+/** The base64 text of a BINARY or BINARY2 element's inline STREAM (§5); a STREAM elsewhere (href) or compressed is refused. */
+function streamText(serialization: XmlNode, name: string): string {
+  const stream = serialization.STREAM;
+  if (typeof stream === "string") return stream;
+  if (typeof stream !== "object" || stream === null || Array.isArray(stream)) throw importError(`The VOTable's ${name} data hold no STREAM.`);
+  const node = stream as XmlNode;
+  if (attribute(node, "href") !== undefined) throw importError(`The VOTable's ${name} data are in another file (a STREAM with href); export the table with its data inside the file.`);
+  const encoding = attribute(node, "encoding")?.trim();
+  if (encoding !== undefined && encoding !== "base64") throw importError(`The VOTable's ${name} data are encoded as "${encoding}"; export them as base64 or TABLEDATA.`);
+  return typeof node["#text"] === "string" ? node["#text"] : "";
+}
+
 /**
  * Reads a VOTable target list (IVOA VOTable 1.4): the one TABLE it holds, its FIELDs as columns (with
- * `unit` and `ucd`) and its TABLEDATA rows. A cell equal to its FIELD's VALUES/@null is read as empty
- * (§4.5). Refused with a clear message: a DOCTYPE or ENTITY declaration, malformed XML, elements nested
- * more than MAX_VOTABLE_DEPTH deep, a root other than VOTABLE, more than one table,
- * BINARY/BINARY2/FITS serializations, no rows, or too many rows.
+ * `unit` and `ucd`) and its rows, from TABLEDATA or from a base64 BINARY or BINARY2 stream
+ * (`decodeBinaryStream`). A cell equal to its FIELD's VALUES/@null is read as empty (§4.5).
+ * Refused with a clear message: a DOCTYPE or ENTITY declaration, malformed XML, elements nested
+ * more than MAX_VOTABLE_DEPTH deep, a root other than VOTABLE, more than one table, the FITS
+ * serialization, no rows, or too many rows.
  */
 export function parseVoTable(text: string): ImportTable {
   if (DECLARATION.test(text)) {
@@ -107,20 +135,22 @@ export function parseVoTable(text: string): ImportTable {
   }));
 
   const data = (typeof table.DATA === "object" && table.DATA !== null ? table.DATA : {}) as XmlNode;
-  const binary = ["BINARY", "BINARY2", "FITS"].find((name) => name in data);
-  if (binary) throw importError(`The VOTable's data are in ${binary} serialization; export it with TABLEDATA (plain XML rows).`);
-  const tableData = (typeof data.TABLEDATA === "object" && data.TABLEDATA !== null ? data.TABLEDATA : {}) as XmlNode;
-  const trs = asNodes(tableData.TR);
-  if (trs.length === 0) throw importError("The VOTable has its columns but no data rows.");
-  if (trs.length > MAX_IMPORT_ROWS) {
-    throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+  if ("FITS" in data) throw importError("The VOTable's data are in FITS serialization; export it with TABLEDATA, BINARY or BINARY2.");
+  const binaryName = (["BINARY2", "BINARY"] as const).find((name) => name in data);
+  let cells: string[][];
+  if (binaryName !== undefined) {
+    const serialization = (typeof data[binaryName] === "object" && data[binaryName] !== null ? data[binaryName] : {}) as XmlNode;
+    const binaryFields: BinaryField[] = fields.map((field, index) => ({
+      name: columns[index].name,
+      datatype: attribute(field, "datatype"),
+      arraysize: attribute(field, "arraysize"),
+      nullValue: nullValues[index],
+    }));
+    cells = decodeBinaryStream(decodeReferences(streamText(serialization, binaryName)), binaryFields, binaryName === "BINARY2");
+  } else {
+    cells = tableDataRows((typeof data.TABLEDATA === "object" && data.TABLEDATA !== null ? data.TABLEDATA : {}) as XmlNode, nullValues);
   }
-  const rows: ImportRow[] = trs.map((tr, index) => ({
-    rowNumber: index + 1,
-    cells: (Array.isArray(tr.TD) ? tr.TD : []).map((td, column) => {
-      const value = cellText(td);
-      return nullValues[column] !== undefined && value.trim() === nullValues[column] ? "" : value;
-    }),
-  }));
+  if (cells.length === 0) throw importError("The VOTable has its columns but no data rows.");
+  const rows: ImportRow[] = cells.map((row, index) => ({ rowNumber: index + 1, cells: row }));
   return { format: "votable", columns, rows };
 }

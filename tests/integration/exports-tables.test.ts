@@ -234,7 +234,8 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
     } finally {
       rmSync(directory, { recursive: true, force: true });
     }
-  });
+    // Four JVMs (STILTS) and astropy beside the database: 3 s on an idle machine, several times that under load.
+  }, 90_000);
 
   it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening, the source's magnitude, band and f_s and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
     const world = await demoLikeWorld();

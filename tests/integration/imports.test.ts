@@ -1,3 +1,4 @@
+import { readFileSync } from "node:fs";
 import { count, eq, sql } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
@@ -312,5 +313,26 @@ describe("the source's photometry through an import (magnitude, band, f_s)", () 
     const refusal = await refusalOf(commitImport(params, { fileId, mapping: preview.mapping, toleranceArcsec: 1 }, world.actors.coi));
     expect(refusal.code).toBe("bad_request:import");
     expect(await tableCounts(world.proposalId)).toEqual(before);
+  });
+});
+
+describe("target lists written by astropy and STILTS (tests/fixtures/generate_import_tables.py)", () => {
+  it("a BINARY2 VOTable from astropy and a BINARY one from STILTS upload, preview and commit every row; the second re-import changes nothing", async () => {
+    const world = await createWorld();
+    const params = { proposalId: world.proposalId };
+    const fixture = (file: string) => readFileSync(`tests/fixtures/import-tables/${file}`, "utf8");
+    const first = await uploadList(world, "astropy-binary2.vot", fixture("astropy-binary2.vot"));
+    const preview = await previewImport(params, { fileId: first }, world.actors.coi);
+    expect(preview.file.format).toBe("votable");
+    expect(preview.counts).toEqual({ added: 4, updated: 0, skipped: 0, invalid: 0 });
+    await commitImport(params, { fileId: first, mapping: preview.mapping, toleranceArcsec: 1 }, world.actors.coi);
+    const [galaxy] = await db.select().from(targets).where(eq(targets.name, "HE 0435\u22121223 \u03a9"));
+    // 250.5 km/s as astropy wrote it, 1.2 kpc (a float32) read as 1200 pc.
+    expect(galaxy).toMatchObject({ lensModel: "sis", velocityDispersionKmPerS: 250.5, lensDistancePc: 1200, priority: 4 });
+
+    // The same table as STILTS writes it (BINARY, its own FIELDs): every target matches and is unchanged.
+    const second = await uploadList(world, "stilts-binary.vot", fixture("stilts-binary.vot"));
+    const again = await previewImport(params, { fileId: second }, world.actors.coi);
+    expect(again.counts).toEqual({ added: 0, updated: 0, skipped: 4, invalid: 0 });
   });
 });

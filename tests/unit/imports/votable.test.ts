@@ -89,9 +89,9 @@ describe("parseVoTable", () => {
     expect(refusal(() => parseVoTable(two)).message).toBe("The VOTable holds 2 tables; import one table per file.");
   });
 
-  it("refuses BINARY2 data, which is not plain XML rows (VOTable 1.4 §5.4)", () => {
-    const binary = `<VOTABLE><RESOURCE><TABLE><FIELD name="a" datatype="int"/><DATA><BINARY2><STREAM encoding="base64">AAAAAQ==</STREAM></BINARY2></DATA></TABLE></RESOURCE></VOTABLE>`;
-    expect(refusal(() => parseVoTable(binary)).message).toBe("The VOTable's data are in BINARY2 serialization; export it with TABLEDATA (plain XML rows).");
+  it("refuses FITS data inside a VOTable, naming the serializations it reads (VOTable 1.4 §5.3)", () => {
+    const fits = `<VOTABLE><RESOURCE><TABLE><FIELD name="a" datatype="int"/><DATA><FITS extnum="1"><STREAM href="table.fits"/></FITS></DATA></TABLE></RESOURCE></VOTABLE>`;
+    expect(refusal(() => parseVoTable(fits)).message).toBe("The VOTable's data are in FITS serialization; export it with TABLEDATA, BINARY or BINARY2.");
   });
 
   it("refuses a table with FIELDs but no rows (headers only)", () => {
