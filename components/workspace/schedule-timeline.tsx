@@ -263,7 +263,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
                   width={tenth(Math.max(0.8, cellWidth * 0.7))}
                   y={tenth(y((day - night) * 24))}
                   height={tenth(Math.max(1.5, y((toDay(mark.endJdUtc) - night) * 24) - y((day - night) * 24)))}
-                  fill={plotPalette.white}
+                  fill={plotPalette.ink}
                 />
               );
             })}
@@ -282,7 +282,7 @@ function ScheduleFigure(props: ScheduleTimelineProps & { schedule: ObservingSche
           {hasCurve ? eventLegend(panel).map((entry) => <LegendItem key={entry.label} {...entry} />) : null}
           {budget !== null ? signalToNoiseLegend(budget).map((entry) => <LegendItem key={entry.label} {...entry} />) : null}
           <LegendItem shape="area" color={spanFill.usable} label="usable window" />
-          <LegendItem shape="area" color={plotPalette.white} label="visit (nights below)" />
+          <LegendItem shape="area" color={plotPalette.ink} label="visit (nights below)" />
           {gapReasons.map((reason) => (reason === "daylight" || shownKinds.has(reason) ? <LegendItem key={reason} shape="area" color={spanFill[reason]} label={gapReasonLabels[reason]} /> : null))}
         </ul>
       </figure>
@@ -434,7 +434,7 @@ function signalToNoiseLegend(budget: TargetPhotonBudget): LegendEntry[] {
     ...(budget.shortVisits < count ? [{ label: "visit S/N, goal reached", color: plotPalette.skyBlue, shape: "circle" } as const] : []),
     ...(budget.shortVisits > 0 ? [{ label: "visit S/N, below the goal", color: plotPalette.vermillion, shape: "triangle" } as const] : []),
     { label: `S/N goal ${numberWords(budget.signalToNoiseGoal)}`, color: plotPalette.orange, shape: "dashed" },
-    { label: "worst visit", color: plotPalette.white, shape: "square" },
+    { label: "worst visit", color: plotPalette.ink, shape: "square" },
   ];
 }
 
@@ -502,14 +502,14 @@ function SignalToNoisePlot({ budget, schedule, x, xGrid, width, height, top, toD
         )}
       </g>
       <g>
-        <rect x={worstX - 6} y={worstY - 6} width={12} height={12} fill="none" stroke={plotPalette.white} strokeWidth={1.5} data-testid="schedule-snr-worst" />
+        <rect x={worstX - 6} y={worstY - 6} width={12} height={12} fill="none" stroke={plotPalette.ink} strokeWidth={1.5} data-testid="schedule-snr-worst" />
         <text
           x={isWorstOnRight ? worstX - 9 : worstX + 9}
           y={worstY + (worstY - top < 16 ? 14 : -8)}
           textAnchor={isWorstOnRight ? "end" : "start"}
           fontFamily={plotFont}
           fontSize={11}
-          fill={plotPalette.white}
+          fill={plotPalette.ink}
           stroke={plotPalette.ground}
           strokeWidth={3}
           paintOrder="stroke"

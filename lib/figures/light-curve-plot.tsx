@@ -1,16 +1,18 @@
 import { extent, line, scaleLinear } from "d3";
 import type { CurvePoint, LightCurve } from "@/lib/bench/plot-data";
 import { defaultMargins, Marker, PlotAxes, PlotLegend, PlotSurface } from "./plot-axes";
-import { dashPatterns, plotPalette } from "./plot-palette";
+import { dashPatterns, plotPalette, type PlotPalette } from "./plot-palette";
 
 interface LightCurvePlotProps {
   lightCurve: LightCurve;
   width: number;
   height: number;
+  /** The screen style unless given; exports draw in `printPalette`. */
+  palette?: PlotPalette;
 }
 
 /** Point-lens magnification over the campaign, with the magnification seen at each epoch. */
-export function LightCurvePlot({ lightCurve, width, height }: LightCurvePlotProps) {
+export function LightCurvePlot({ lightCurve, width, height, palette = plotPalette }: LightCurvePlotProps) {
   const margins = defaultMargins;
   const x = scaleLinear().domain([0, lightCurve.campaignDays]).range([margins.left, width - margins.right]);
   const [low, high] = extent(lightCurve.curve, (point) => point.y) as [number, number];
@@ -18,22 +20,22 @@ export function LightCurvePlot({ lightCurve, width, height }: LightCurvePlotProp
   const path = line<CurvePoint>().x((point) => x(point.x)).y((point) => y(point.y));
   const isPeakInCampaign = lightCurve.peakTimeDays >= 0 && lightCurve.peakTimeDays <= lightCurve.campaignDays;
   return (
-    <PlotSurface width={width} height={height} label="Microlensing light curve">
-      <PlotAxes x={x} y={y} width={width} height={height} margins={margins} xLabel="time from campaign start (d)" yLabel="magnification A" title="Light curve (point source, point lens)" />
+    <PlotSurface palette={palette} width={width} height={height} label="Microlensing light curve">
+      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="time from campaign start (d)" yLabel="magnification A" title="Light curve (point source, point lens)" />
       {isPeakInCampaign ? (
-        <line x1={x(lightCurve.peakTimeDays)} x2={x(lightCurve.peakTimeDays)} y1={margins.top} y2={height - margins.bottom} stroke={plotPalette.frame} strokeDasharray={dashPatterns.dotted} />
+        <line x1={x(lightCurve.peakTimeDays)} x2={x(lightCurve.peakTimeDays)} y1={margins.top} y2={height - margins.bottom} stroke={palette.frame} strokeDasharray={dashPatterns.dotted} />
       ) : null}
-      <path d={path(lightCurve.curve) ?? ""} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2} />
+      <path d={path(lightCurve.curve) ?? ""} fill="none" stroke={palette.skyBlue} strokeWidth={2} />
       {lightCurve.epochs.map((epoch) => (
-        <Marker key={epoch.x} shape="circle" cx={x(epoch.x)} cy={y(epoch.y)} size={4} color={plotPalette.orange} isHollow />
+        <Marker key={epoch.x} shape="circle" cx={x(epoch.x)} cy={y(epoch.y)} size={4} color={palette.orange} isHollow />
       ))}
-      <PlotLegend
+      <PlotLegend palette={palette}
         x={margins.left + 8}
         y={margins.top + 6}
         entries={[
-          { label: "A(t)", color: plotPalette.skyBlue },
-          { label: "visits of the schedule", color: plotPalette.orange, marker: "circle" },
-          { label: "peak t0", color: plotPalette.frame, dash: dashPatterns.dotted },
+          { label: "A(t)", color: palette.skyBlue },
+          { label: "visits of the schedule", color: palette.orange, marker: "circle" },
+          { label: "peak t_0", color: palette.frame, dash: dashPatterns.dotted },
         ]}
       />
     </PlotSurface>

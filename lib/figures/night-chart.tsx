@@ -3,7 +3,7 @@ import type { NightVisibility } from "@/lib/astro/visibility";
 import { SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG } from "@/lib/astro/constants";
 import { apparentAltitudeForAirmassDeg } from "@/lib/astro/airmass";
 import { defaultMargins, Marker, PlotAxes, PlotLegend } from "./plot-axes";
-import { dashPatterns, plotFont, plotPalette } from "./plot-palette";
+import { dashPatterns, plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 import { formatUtcClock } from "@/lib/astro/sky-format";
 import { visitMarks } from "@/lib/schedule/timeline-plot";
 
@@ -18,23 +18,28 @@ interface NightChartProps {
   visibility: NightVisibility;
   /** Drawn as bands over the visits' time with a mark on the target's curve; absent: none drawn. */
   plannedVisits?: PlannedVisits;
+  /** Named in the title when given (a figure standing alone on a page says whose night it is). */
+  targetName?: string;
+  siteName?: string;
   width?: number;
   height?: number;
+  /** The screen style unless given; exports draw in `printPalette`. */
+  palette?: PlotPalette;
 }
 
-/** Sky brightness from the Sun's altitude, lightest (day) to darkest (astronomical darkness). */
-const skyShades = [
-  { below: Infinity, fill: "#3a4356", label: "day" },
-  { below: SUNRISE_GEOMETRIC_ALTITUDE_DEG, fill: "#2c3446", label: "civil twilight" },
-  { below: TWILIGHT_ALTITUDE_DEG.civil, fill: "#212838", label: "nautical twilight" },
-  { below: TWILIGHT_ALTITUDE_DEG.nautical, fill: "#171d2a", label: "astronomical twilight" },
-  { below: TWILIGHT_ALTITUDE_DEG.astronomical, fill: plotPalette.ground, label: "darkness" },
-] as const;
+/** The Sun's altitude (deg) below which each shade of `PlotPalette.skyShades` begins: day to darkness. */
+const skyShadeBelowDeg = [Infinity, SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG.civil, TWILIGHT_ALTITUDE_DEG.nautical, TWILIGHT_ALTITUDE_DEG.astronomical] as const;
 
 function shadeIndex(sunAltitudeDeg: number): number {
   let index = 0;
-  for (let i = 1; i < skyShades.length; i++) if (sunAltitudeDeg <= skyShades[i].below) index = i;
+  for (let i = 1; i < skyShadeBelowDeg.length; i++) if (sunAltitudeDeg <= skyShadeBelowDeg[i]) index = i;
   return index;
+}
+
+/** "TB-ML-0001 from Cerro Velado, night of 2031-06-15", with what is known of target and site. */
+export function nightChartTitle(nightDateIso: string, targetName?: string, siteName?: string): string {
+  const who = [targetName, siteName === undefined ? undefined : `from ${siteName}`].filter((part) => part !== undefined).join(" ");
+  return who === "" ? `Night of ${nightDateIso}` : `${who}, night of ${nightDateIso}`;
 }
 
 const AIRMASS_TICKS = [1.1, 1.3, 1.5, 2, 3];
@@ -47,7 +52,7 @@ const HOUR = 1 / 24;
  * an hour before sunset to an hour after sunrise (the whole noon-to-noon window when the Sun does
  * not set or rise).
  */
-export function NightChart({ visibility, plannedVisits, width = 760, height = 360 }: NightChartProps) {
+export function NightChart({ visibility, plannedVisits, targetName, siteName, width = 760, height = 360, palette = plotPalette }: NightChartProps) {
   const { samples, twilight, passages, limit } = visibility;
   const margins = { ...defaultMargins, right: 56 };
   const count = samples.jdUtc.length;
@@ -97,7 +102,7 @@ export function NightChart({ visibility, plannedVisits, width = 760, height = 36
 
   return (
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={`Altitude and air mass through the night of ${visibility.nightDateIso}`} data-testid="night-chart" data-night={visibility.nightDateIso}>
-      <rect width={width} height={height} fill={plotPalette.ground} />
+      <rect width={width} height={height} fill={palette.ground} />
       <defs>
         <clipPath id={clipId}>
           <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} />
@@ -105,38 +110,38 @@ export function NightChart({ visibility, plannedVisits, width = 760, height = 36
       </defs>
       <g clipPath={`url(#${clipId})`}>
         {bands.map((band) => (
-          <rect key={band.start} x={x(toHours(band.start))} width={Math.max(0, x(toHours(band.end + 1 / 288)) - x(toHours(band.start)))} y={y1} height={y0 - y1} fill={skyShades[band.shade].fill} />
+          <rect key={band.start} x={x(toHours(band.start))} width={Math.max(0, x(toHours(band.end + 1 / 288)) - x(toHours(band.start)))} y={y1} height={y0 - y1} fill={palette.skyShades[band.shade]} />
         ))}
       </g>
-      <PlotAxes x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC)" yLabel="apparent altitude (°)" yTicks={6} title={`Night of ${visibility.nightDateIso}`} />
+      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC)" yLabel="apparent altitude (°)" yTicks={6} title={nightChartTitle(visibility.nightDateIso, targetName, siteName)} />
       <g clipPath={`url(#${clipId})`}>
-        <path d={darkAbove} fill={plotPalette.bluishGreen} fillOpacity={0.3} />
-        <line x1={x0} x2={x1} y1={y(limit.apparentDeg)} y2={y(limit.apparentDeg)} stroke={plotPalette.orange} strokeDasharray={dashPatterns.dashed} strokeWidth={1.5} />
-        <path d={curve(samples.moonAltitudeDeg)} fill="none" stroke={plotPalette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={2} />
+        <path d={darkAbove} fill={palette.bluishGreen} fillOpacity={0.3} />
+        <line x1={x0} x2={x1} y1={y(limit.apparentDeg)} y2={y(limit.apparentDeg)} stroke={palette.orange} strokeDasharray={dashPatterns.dashed} strokeWidth={1.5} />
+        <path d={curve(samples.moonAltitudeDeg)} fill="none" stroke={palette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={2} />
         {visits.map((visit) => (
-          <rect key={visit.startJdUtc} x={x(toHours(visit.startJdUtc))} width={Math.max(1.5, x(toHours(visit.endJdUtc)) - x(toHours(visit.startJdUtc)))} y={y1} height={y0 - y1} fill={plotPalette.white} fillOpacity={0.12} />
+          <rect key={visit.startJdUtc} x={x(toHours(visit.startJdUtc))} width={Math.max(1.5, x(toHours(visit.endJdUtc)) - x(toHours(visit.startJdUtc)))} y={y1} height={y0 - y1} fill={palette.ink} fillOpacity={0.12} />
         ))}
-        <path d={curve(samples.altitudeDeg)} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2.5} />
+        <path d={curve(samples.altitudeDeg)} fill="none" stroke={palette.skyBlue} strokeWidth={2.5} />
         {visits.map((visit) => {
           const middle = (visit.startJdUtc + visit.endJdUtc) / 2;
-          return <Marker key={visit.startJdUtc} shape="diamond" cx={x(toHours(middle))} cy={y(altitudeAt(middle))} size={8} color={plotPalette.white} />;
+          return <Marker key={visit.startJdUtc} shape="diamond" cx={x(toHours(middle))} cy={y(altitudeAt(middle))} size={8} color={palette.ink} />;
         })}
         {isTransitShown ? (
           <g>
-            <line x1={transitX} x2={transitX} y1={y0} y2={y1} stroke={plotPalette.white} strokeDasharray={dashPatterns.dashDot} strokeWidth={1} />
-            <text x={transitX + 4} y={y1 + 14} fontFamily={plotFont} fontSize={11} fill={plotPalette.white}>
+            <line x1={transitX} x2={transitX} y1={y0} y2={y1} stroke={palette.ink} strokeDasharray={dashPatterns.dashDot} strokeWidth={1} />
+            <text x={transitX + 4} y={y1 + 14} fontFamily={plotFont} fontSize={11} fill={palette.ink}>
               transit {formatUtcClock(passages.transitJdUtc)}
             </text>
           </g>
         ) : null}
       </g>
-      <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
+      <g fontFamily={plotFont} fontSize={11} fill={palette.text}>
         {AIRMASS_TICKS.map((airmass) => {
           // Each label sits where Pickering's air mass (not sec z) takes that value.
           const exact = apparentAltitudeForAirmassDeg(airmass);
           return (
             <g key={airmass}>
-              <line x1={x1} x2={x1 + 4} y1={y(exact)} y2={y(exact)} stroke={plotPalette.frame} />
+              <line x1={x1} x2={x1 + 4} y1={y(exact)} y2={y(exact)} stroke={palette.frame} />
               <text x={x1 + 7} y={y(exact) + 4}>{airmass}</text>
             </g>
           );
@@ -145,15 +150,15 @@ export function NightChart({ visibility, plannedVisits, width = 760, height = 36
           air mass
         </text>
       </g>
-      <PlotLegend
+      <PlotLegend palette={palette}
         x={x0 + 8}
         y={y1 + 22}
         entries={[
-          { label: "target", color: plotPalette.skyBlue },
-          { label: "Moon", color: plotPalette.yellow, dash: dashPatterns.dotted },
-          { label: `limit ${limit.apparentDeg.toFixed(1)}° (${limit.binding})`, color: plotPalette.orange, dash: dashPatterns.dashed },
-          { label: "transit", color: plotPalette.white, dash: dashPatterns.dashDot },
-          ...(visits.length > 0 ? [{ label: "planned visit", color: plotPalette.white, marker: "diamond" as const }] : []),
+          { label: "target", color: palette.skyBlue },
+          { label: "Moon", color: palette.yellow, dash: dashPatterns.dotted },
+          { label: `limit ${limit.apparentDeg.toFixed(1)}° (${limit.binding})`, color: palette.orange, dash: dashPatterns.dashed },
+          { label: "transit", color: palette.ink, dash: dashPatterns.dashDot },
+          ...(visits.length > 0 ? [{ label: "planned visit", color: palette.ink, marker: "diamond" as const }] : []),
         ]}
       />
     </svg>

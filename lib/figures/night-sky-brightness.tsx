@@ -3,12 +3,14 @@ import { area, line, scaleLinear } from "d3";
 import { formatUtcClock } from "@/lib/astro/sky-format";
 import type { NightSkyBrightness } from "@/lib/photometry/night-sky";
 import { defaultMargins, PlotAxes, PlotLegend } from "./plot-axes";
-import { dashPatterns, plotFont, plotPalette } from "./plot-palette";
+import { dashPatterns, plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 
 interface NightSkyBrightnessChartProps {
   sky: NightSkyBrightness;
   width?: number;
   height?: number;
+  /** The screen style unless given; exports draw in `printPalette`. */
+  palette?: PlotPalette;
 }
 
 /** One point of a drawn curve; null breaks the curve where the target is down between two samples. */
@@ -47,7 +49,7 @@ export function nightSkyBrightnessSummary(sky: NightSkyBrightness): string {
  * solid line, the Moon's added light shaded (and hatched) between them, and the Moon rising or
  * setting marked. Times on the axis are UTC hours; the view spans astronomical darkness.
  */
-export function NightSkyBrightnessChart({ sky, width = 760, height = 340 }: NightSkyBrightnessChartProps) {
+export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palette = plotPalette }: NightSkyBrightnessChartProps) {
   const idBase = `night-sky-${useId().replace(/[^A-Za-z0-9-]/g, "")}`;
   const margins = { ...defaultMargins, top: 46 };
   const [x0, x1] = [margins.left, width - margins.right];
@@ -100,45 +102,45 @@ export function NightSkyBrightnessChart({ sky, width = 760, height = 340 }: Nigh
 
   return (
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={label} data-testid="night-sky-brightness" data-night={sky.nightDateIso}>
-      <rect width={width} height={height} fill={plotPalette.ground} />
+      <rect width={width} height={height} fill={palette.ground} />
       <defs>
         <clipPath id={clipId}>
           <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} />
         </clipPath>
         <pattern id={hatchId} width="5" height="5" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">
-          <rect width="5" height="5" fill={plotPalette.yellow} fillOpacity={0.35} />
-          <line x1="0" y1="0" x2="0" y2="5" stroke={plotPalette.yellow} strokeWidth="1.2" />
+          <rect width="5" height="5" fill={palette.yellow} fillOpacity={0.35} />
+          <line x1="0" y1="0" x2="0" y2="5" stroke={palette.yellow} strokeWidth="1.2" />
         </pattern>
       </defs>
-      <PlotAxes x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC), astronomical darkness" yLabel="sky brightness (mag/arcsec²)" yTicks={5} title={title} />
+      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC), astronomical darkness" yLabel="sky brightness (mag/arcsec²)" yTicks={5} title={title} />
       {empty !== null ? (
-        <text x={(x0 + x1) / 2} y={(y0 + y1) / 2} textAnchor="middle" fontFamily={plotFont} fontSize={12} fill={plotPalette.text}>
+        <text x={(x0 + x1) / 2} y={(y0 + y1) / 2} textAnchor="middle" fontFamily={plotFont} fontSize={12} fill={palette.text}>
           {empty}
         </text>
       ) : (
         <>
           <g clipPath={`url(#${clipId})`}>
             <path d={moonShare} fill={`url(#${hatchId})`} stroke="none" />
-            <path d={curve((point) => point.total)} fill="none" stroke={plotPalette.white} strokeWidth={2} />
-            <path d={curve((point) => point.dark)} fill="none" stroke={plotPalette.skyBlue} strokeWidth={2} strokeDasharray={dashPatterns.dashed} />
+            <path d={curve((point) => point.total)} fill="none" stroke={palette.ink} strokeWidth={2} />
+            <path d={curve((point) => point.dark)} fill="none" stroke={palette.skyBlue} strokeWidth={2} strokeDasharray={dashPatterns.dashed} />
             {sky.moonCrossings.map((crossing) => (
               <g key={crossing.jdUtc}>
-                <line x1={x(toHours(crossing.jdUtc))} x2={x(toHours(crossing.jdUtc))} y1={y0} y2={y1} stroke={plotPalette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={1.5} />
-                <text x={x(toHours(crossing.jdUtc)) + (crossing.kind === "rise" ? 4 : -4)} y={y0 - 8} textAnchor={crossing.kind === "rise" ? "start" : "end"} fontFamily={plotFont} fontSize={11} fill={plotPalette.yellow}>
+                <line x1={x(toHours(crossing.jdUtc))} x2={x(toHours(crossing.jdUtc))} y1={y0} y2={y1} stroke={palette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={1.5} />
+                <text x={x(toHours(crossing.jdUtc)) + (crossing.kind === "rise" ? 4 : -4)} y={y0 - 8} textAnchor={crossing.kind === "rise" ? "start" : "end"} fontFamily={plotFont} fontSize={11} fill={palette.yellow}>
                   {crossing.kind === "rise" ? "Moon rises" : "Moon sets"} {formatUtcClock(crossing.jdUtc)}
                 </text>
               </g>
             ))}
           </g>
-          <PlotLegend
+          <PlotLegend palette={palette}
             isRow
             x={x0 - 6}
             y={19}
             entries={[
-              { label: "sky with the Moon", color: plotPalette.white },
-              { label: "dark sky (no Moon)", color: plotPalette.skyBlue, dash: dashPatterns.dashed },
-              { label: "Moon's added light (hatched)", color: plotPalette.yellow, marker: "square" },
-              ...(sky.moonCrossings.length > 0 ? [{ label: "Moon rises or sets", color: plotPalette.yellow, dash: dashPatterns.dotted }] : []),
+              { label: "sky with the Moon", color: palette.ink },
+              { label: "dark sky (no Moon)", color: palette.skyBlue, dash: dashPatterns.dashed },
+              { label: "Moon's added light (hatched)", color: palette.yellow, marker: "square" },
+              ...(sky.moonCrossings.length > 0 ? [{ label: "Moon rises or sets", color: palette.yellow, dash: dashPatterns.dotted }] : []),
             ]}
           />
         </>

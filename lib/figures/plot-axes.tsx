@@ -1,5 +1,7 @@
 import type { ScaleContinuousNumeric } from "d3";
-import { plotFont, plotPalette } from "./plot-palette";
+import { plotFont, plotPalette, type PlotPalette } from "./plot-palette";
+import { plainText, PlotText } from "./plot-text";
+import { axisTicks } from "./plot-ticks";
 
 export interface PlotMargins {
   top: number;
@@ -12,12 +14,6 @@ export const defaultMargins: PlotMargins = { top: 28, right: 16, bottom: 46, lef
 
 type Scale = ScaleContinuousNumeric<number, number>;
 
-/** Tick labels for a scale: d3's own format, which writes powers of ten compactly on log scales. */
-function ticksOf(scale: Scale, count: number): { value: number; label: string }[] {
-  const format = scale.tickFormat(count);
-  return scale.ticks(count).map((value) => ({ value, label: format(value) }));
-}
-
 interface AxesProps {
   x: Scale;
   y: Scale;
@@ -28,44 +24,50 @@ interface AxesProps {
   yLabel: string;
   xTicks?: number;
   yTicks?: number;
+  /** Plain text (it may carry a target's name); the axis labels take PlotText's `_` and `^` scripts. */
   title: string;
+  palette?: PlotPalette;
 }
 
 /** Frame, grid, ticks and axis labels (with units) drawn from d3 scales, as SVG elements. */
-export function PlotAxes({ x, y, width, height, margins, xLabel, yLabel, xTicks = 6, yTicks = 5, title }: AxesProps) {
+export function PlotAxes({ x, y, width, height, margins, xLabel, yLabel, xTicks = 6, yTicks = 5, title, palette = plotPalette }: AxesProps) {
   const [x0, x1] = [margins.left, width - margins.right];
   const [y0, y1] = [height - margins.bottom, margins.top];
-  const xTickList = ticksOf(x, xTicks).filter((tick) => x(tick.value) >= x0 - 0.5 && x(tick.value) <= x1 + 0.5);
-  const yTickList = ticksOf(y, yTicks).filter((tick) => y(tick.value) <= y0 + 0.5 && y(tick.value) >= y1 - 0.5);
+  const xTickList = axisTicks(x, xTicks).filter((tick) => x(tick.value) >= x0 - 0.5 && x(tick.value) <= x1 + 0.5);
+  const yTickList = axisTicks(y, yTicks).filter((tick) => y(tick.value) <= y0 + 0.5 && y(tick.value) >= y1 - 0.5);
   return (
-    <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
+    <g fontFamily={plotFont} fontSize={11} fill={palette.text}>
       <text x={margins.left} y={16} fontSize={13} fontWeight={600}>
         {title}
       </text>
       {xTickList.map((tick) => (
         <g key={`x${tick.value}`}>
-          <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y1} stroke={plotPalette.grid} />
-          <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y0 + 4} stroke={plotPalette.frame} />
-          <text x={x(tick.value)} y={y0 + 16} textAnchor="middle">
-            {tick.label}
-          </text>
+          {tick.label === null ? null : <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y1} stroke={palette.grid} />}
+          <line x1={x(tick.value)} x2={x(tick.value)} y1={y0} y2={y0 + (tick.label === null ? 2.5 : 4)} stroke={palette.frame} />
+          {tick.label === null ? null : (
+            <text x={x(tick.value)} y={y0 + 16} textAnchor="middle">
+              <PlotText text={tick.label} fontSize={11} />
+            </text>
+          )}
         </g>
       ))}
       {yTickList.map((tick) => (
         <g key={`y${tick.value}`}>
-          <line x1={x0} x2={x1} y1={y(tick.value)} y2={y(tick.value)} stroke={plotPalette.grid} />
-          <line x1={x0 - 4} x2={x0} y1={y(tick.value)} y2={y(tick.value)} stroke={plotPalette.frame} />
-          <text x={x0 - 7} y={y(tick.value) + 4} textAnchor="end">
-            {tick.label}
-          </text>
+          {tick.label === null ? null : <line x1={x0} x2={x1} y1={y(tick.value)} y2={y(tick.value)} stroke={palette.grid} />}
+          <line x1={x0 - (tick.label === null ? 2.5 : 4)} x2={x0} y1={y(tick.value)} y2={y(tick.value)} stroke={palette.frame} />
+          {tick.label === null ? null : (
+            <text x={x0 - 7} y={y(tick.value) + 4} textAnchor="end">
+              <PlotText text={tick.label} fontSize={11} />
+            </text>
+          )}
         </g>
       ))}
-      <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} fill="none" stroke={plotPalette.frame} />
+      <rect x={x0} y={y1} width={x1 - x0} height={y0 - y1} fill="none" stroke={palette.frame} />
       <text x={(x0 + x1) / 2} y={height - 8} textAnchor="middle" fontSize={12}>
-        {xLabel}
+        <PlotText text={xLabel} fontSize={12} />
       </text>
       <text transform={`translate(14 ${(y0 + y1) / 2}) rotate(-90)`} textAnchor="middle" fontSize={12}>
-        {yLabel}
+        <PlotText text={yLabel} fontSize={12} />
       </text>
     </g>
   );
@@ -100,19 +102,19 @@ export function Marker({ shape, cx, cy, size, color, isHollow = false }: { shape
  * A legend at (x, y): a line sample (with its dash) and/or a marker per entry, in a box one entry a
  * row, or with `isRow` side by side without a box (for a strip between a title and its plot).
  */
-export function PlotLegend({ entries, x, y, isRow = false }: { entries: LegendEntry[]; x: number; y: number; isRow?: boolean }) {
+export function PlotLegend({ entries, x, y, isRow = false, palette = plotPalette }: { entries: LegendEntry[]; x: number; y: number; isRow?: boolean; palette?: PlotPalette }) {
   const rowHeight = 15;
-  const width = 12 + 30 + 6 + Math.max(...entries.map((entry) => entry.label.length)) * 5.6;
+  const width = 12 + 30 + 6 + Math.max(...entries.map((entry) => plainText(entry.label).length)) * 5.6;
   let left = x;
   const places = entries.map((entry, index) => {
     if (!isRow) return { x, cy: y + 11 + index * rowHeight };
     const place = { x: left, cy: y + 11 };
-    left += 48 + entry.label.length * 5.6;
+    left += 48 + plainText(entry.label).length * 5.6;
     return place;
   });
   return (
-    <g fontFamily={plotFont} fontSize={11} fill={plotPalette.text}>
-      {isRow ? null : <rect x={x} y={y} width={width} height={entries.length * rowHeight + 8} fill={plotPalette.ground} fillOpacity={0.85} stroke={plotPalette.grid} />}
+    <g fontFamily={plotFont} fontSize={11} fill={palette.text}>
+      {isRow ? null : <rect x={x} y={y} width={width} height={entries.length * rowHeight + 8} fill={palette.ground} fillOpacity={0.85} stroke={palette.grid} />}
       {entries.map((entry, index) => {
         const { x: at, cy } = places[index];
         return (
@@ -123,7 +125,7 @@ export function PlotLegend({ entries, x, y, isRow = false }: { entries: LegendEn
               <Marker shape={entry.marker} cx={at + 21} cy={cy} size={7} color={entry.color} />
             )}
             <text x={at + 42} y={cy + 4}>
-              {entry.label}
+              <PlotText text={entry.label} fontSize={11} />
             </text>
           </g>
         );
@@ -132,11 +134,11 @@ export function PlotLegend({ entries, x, y, isRow = false }: { entries: LegendEn
   );
 }
 
-/** The self-contained SVG of one plot: its own size, dark ground and accessible name. */
-export function PlotSurface({ width, height, label, children }: { width: number; height: number; label: string; children: React.ReactNode }) {
+/** The self-contained SVG of one plot: its own size, its style's ground and accessible name. */
+export function PlotSurface({ width, height, label, palette = plotPalette, children }: { width: number; height: number; label: string; palette?: PlotPalette; children: React.ReactNode }) {
   return (
     <svg xmlns="http://www.w3.org/2000/svg" width={width} height={height} viewBox={`0 0 ${width} ${height}`} role="img" aria-label={label}>
-      <rect width={width} height={height} fill={plotPalette.ground} />
+      <rect width={width} height={height} fill={palette.ground} />
       {children}
     </svg>
   );

@@ -5,9 +5,25 @@
  * the one rule `bestWeekIndices` (lib/astro/season.ts); nothing here ranks weeks or adds hours across
  * targets.
  */
-import { SEASON_WEEK_NIGHTS, type SeasonWindows } from "@/lib/astro/season";
+import { z } from "zod";
+import { nightDateSchema } from "@/lib/astro/inputs";
+import { SEASON_MAX_NIGHTS, SEASON_WEEK_NIGHTS, type SeasonWindows } from "@/lib/astro/season";
 import { addDaysIso } from "@/lib/astro/time";
 import { emptyScheduleMessage, type MoonConstraintInput, type ObservingSchedule, type ObservingSeason } from "@/lib/schedule";
+
+/**
+ * A season window named in a URL: `start` (evening date of the first night) and `nights`. The season
+ * figure's export reads it, and its reproduce link carries it back to the season view.
+ */
+export const seasonWindowQuerySchema = z.object({
+  start: nightDateSchema.optional(),
+  nights: z.coerce
+    .number({ error: "The number of nights must be a whole number." })
+    .int("The number of nights must be a whole number.")
+    .min(1, "The number of nights is at least 1.")
+    .max(SEASON_MAX_NIGHTS, `The number of nights is at most ${SEASON_MAX_NIGHTS}.`)
+    .optional(),
+});
 
 /** One target's row. */
 export interface SeasonViewRow {

@@ -1,7 +1,14 @@
+import { spawnSync } from "node:child_process";
+import { mkdtempSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
 import extractChunks from "png-chunks-extract";
 import { PDFParse } from "pdf-parse";
+import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
+import { targets } from "@/db/schema";
+import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
 import type { Actor } from "@/lib/server/actor";
 import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
 import { technicalSummaryRoutes } from "@/lib/exports/server/routes";
@@ -25,6 +32,9 @@ function benchFigure(actor: Actor | null, figure: string, query: string) {
   return benchFigureRoutes(async () => actor).GET(new Request(`http://arcwright.test/api/bench/exports/${figure}?${query}`), { params: Promise.resolve({ figure }) });
 }
 
+/** The reproduce link in an exported SVG's provenance metadata. */
+const reproduceUrlOf = (svg: string) => /&quot;reproduceUrl&quot;:&quot;([^&]+(?:&amp;[^&]+)*)&quot;/.exec(svg)![1].replace(/&amp;/g, "&");
+
 const fieldsOf = async (response: Response) => ((await response.json()) as { error: { fields: Record<string, string[]> } }).error.fields;
 const pngWidthPx = async (response: Response) => Buffer.from(extractChunks(new Uint8Array(await response.arrayBuffer()))[0].data).readUInt32BE(0);
 
@@ -38,9 +48,9 @@ describe("figure and summary exports: the same role rules as the views", () => {
     expect(response.status).toBe(200);
     expect(response.headers.get("content-disposition")).toBe('attachment; filename="night-tb-ml-0001-2031-06-15.svg"');
     const svg = await response.text();
-    expect(svg).toContain("Night of 2031-06-15");
-    const reproduce = /&quot;reproduceUrl&quot;:&quot;([^&]+(?:&amp;[^&]+)*)&quot;/.exec(svg)?.[1].replace(/&amp;/g, "&");
-    const url = new URL(reproduce!);
+    // The figure names its target and site (it stands alone on a page).
+    expect(svg).toContain("TB-ML-0001 from Cerro Velado test site, night of 2031-06-15");
+    const url = new URL(reproduceUrlOf(svg));
     expect(url.pathname).toBe("/sky");
     // The site of the test proposal (world.ts): latitude −24.6°, horizon 20°.
     expect(url.searchParams.get("lat")).toBe("-24.6");
@@ -84,7 +94,8 @@ describe("figure and summary exports: the same role rules as the views", () => {
     expect(response.headers.get("content-type")).toBe("application/pdf");
     const parser = new PDFParse({ data: new Uint8Array(await response.arrayBuffer()) });
     const { text, total } = await parser.getText();
-    expect(total).toBe(3);
+    // The table, the season figure, and the provenance (one page or more, as its references grow).
+    expect(total).toBeGreaterThanOrEqual(3);
     expect(text).toContain("Einstein radius [mas]");
     // θ_E of the world's point lens (0.4 M☉, 4 kpc / 8 kpc): 0.6381 mas, at 3 digits.
     expect(text).toContain("TB-ML-0001");
@@ -154,4 +165,49 @@ describe("figure and summary exports: the same role rules as the views", () => {
     expect((await benchFigure(null, "deflection", "format=svg")).headers.get("cache-control")).toBe("private, no-store");
     expect((await summary(world.actors.viewer, world.proposalId)).headers.get("cache-control")).toBe("private, no-store");
   });
+});
+
+describe("figure exports read by qpdf, poppler and pngcheck (tests/validators/check_figures.py)", () => {
+  it("PDFs: sound, every font embedded, a Unicode target name extracted intact, the whole link, the exporter as Author; PNGs: sound with their DPI", async () => {
+    const world = await createWorld();
+    const name = "Śrī Ωmega−1";
+    await dbClient().db.update(targets).set({ name }).where(eq(targets.id, world.targetId));
+    const exporter = { ...world.actors.viewer, name: "Łucja Ōta" };
+    const night = `targetId=${world.targetId}&date=2031-06-15`;
+    const directory = mkdtempSync(join(tmpdir(), "arcwright-figures-"));
+    const save = async (fileName: string, response: Response) => {
+      expect(response.status).toBe(200);
+      const path = join(directory, fileName);
+      writeFileSync(path, new Uint8Array(await response.arrayBuffer()));
+      return path;
+    };
+    const nightLink = reproduceUrlOf(await (await skyFigure(exporter, world.proposalId, "night", `${night}&format=svg`)).text());
+    const benchLink = reproduceUrlOf(await (await benchFigure(null, "deflection", "format=svg&mass=0.3%20Msun")).text());
+    const seasonSvg = await (await skyFigure(exporter, world.proposalId, "season", "start=2031-03-01&nights=30&format=svg")).text();
+    // The season figure's link opens the season view on the window it was drawn for, not just the proposal.
+    const seasonLink = new URL(reproduceUrlOf(seasonSvg));
+    expect(seasonLink.pathname).toBe(`/proposals/${world.proposalId}/sky`);
+    expect(Object.fromEntries(seasonLink.searchParams)).toEqual({ start: "2031-03-01", nights: "30" });
+    const software = `${PRODUCT_NAME} ${PRODUCT_VERSION}`;
+    const expected = {
+      pdf: [
+        { path: await save("night.pdf", await skyFigure(exporter, world.proposalId, "night", `${night}&format=pdf`)), texts: [name], links: [nightLink], author: "Łucja Ōta", software },
+        { path: await save("bench.pdf", await benchFigure(null, "deflection", "format=pdf&mass=0.3%20Msun")), texts: ["Deflection angle against impact parameter"], links: [benchLink], author: null, software },
+        { path: await save("bench-signed-in.pdf", await benchFigure(exporter, "deflection", "format=pdf&mass=0.3%20Msun")), texts: [], links: [benchLink], author: "Łucja Ōta", software },
+        { path: await save("summary.pdf", await summary(exporter, world.proposalId, `figures=night&nightTargets=${world.targetId}&night=2031-06-15`)), texts: [name], links: [], author: "Łucja Ōta", software },
+      ],
+      png: [
+        { path: await save("season.png", await skyFigure(exporter, world.proposalId, "season", "start=2031-03-01&nights=30&format=png&width=900&dpi=150")), dpi: 150 },
+        { path: await save("bench.png", await benchFigure(null, "lens-plane", "format=png&width=1200&dpi=300")), dpi: 300 },
+      ],
+    };
+    writeFileSync(join(directory, "expected.json"), JSON.stringify(expected));
+    const run = spawnSync("/usr/bin/python3", ["tests/validators/check_figures.py", directory], { encoding: "utf8" });
+    const report = JSON.parse(run.stdout) as { problems: string[]; checked: Record<string, { fonts?: { name: string }[] }> };
+    expect(report.problems).toEqual([]);
+    expect(run.status).toBe(0);
+    // The caption's and the summary's text faces: Source Sans 3 (Latin, Latin Extended, Greek) at least.
+    expect(report.checked["night.pdf"].fonts!.length).toBeGreaterThanOrEqual(3);
+    // Ten exports and the validators: about 5 s on an idle machine; room for a loaded one.
+  }, 60_000);
 });

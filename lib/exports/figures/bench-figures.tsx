@@ -13,6 +13,7 @@ import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
 import { DeflectionPlot } from "@/lib/figures/deflection-plot";
 import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
 import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
+import { printPalette } from "@/lib/figures/plot-palette";
 import type { PlotExport } from "./figure-response";
 
 export const benchFigureKinds = ["lens-plane", "deflection", "light-curve", "astrometric-track"] as const;
@@ -30,7 +31,8 @@ const titles: Record<BenchFigureKind, string> = {
 };
 
 function plotElement(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined) {
-  const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX };
+  // Exports are drawn in the publication style: white ground, dark ink.
+  const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX, palette: printPalette };
   const thetaERad = results.lensPlane.thetaERad;
   if (kind === "deflection") return <DeflectionPlot curves={deflectionCurves()} {...size} />;
   if (kind === "lens-plane") {

@@ -15,11 +15,14 @@ export interface PlotExport {
   provenance: Provenance;
 }
 
-/** The download of one plot in the requested format (SVG with the font inlined, PNG, or PDF). */
-export async function figureResponse(plot: PlotExport, query: FigureFormatQuery): Promise<Response> {
+/**
+ * The download of one plot in the requested format (SVG with the fonts inlined, PNG, or PDF);
+ * `author`, the signed-in person exporting it, becomes the PDF's Author.
+ */
+export async function figureResponse(plot: PlotExport, query: FigureFormatQuery, { author }: { author?: string } = {}): Promise<Response> {
   const fileName = `${fileSlug(plot.fileStem)}.${query.format}`;
   if (query.format === "svg") {
-    const { svg } = standaloneSvg(plot.markup, { title: plot.title, provenance: plot.provenance, fontFaceCss: bundledFontFaceCss() });
+    const { svg } = standaloneSvg(plot.markup, { title: plot.title, provenance: plot.provenance, fontFaceCss: bundledFontFaceCss(plot.markup) });
     return new Response(svg, { headers: attachmentHeaders(fileName, "image/svg+xml; charset=utf-8") });
   }
   // Raster and PDF are laid out by resvg from the same SVG, with the font loaded from files instead.
@@ -28,6 +31,6 @@ export async function figureResponse(plot: PlotExport, query: FigureFormatQuery)
     const png = figurePng(figure, { widthPx: query.width, dpi: query.dpi, title: plot.title, provenance: plot.provenance });
     return new Response(Buffer.from(png), { headers: attachmentHeaders(fileName, "image/png") });
   }
-  const pdf = await figurePdf(figure, { title: plot.title, provenance: plot.provenance });
+  const pdf = await figurePdf(figure, { title: plot.title, provenance: plot.provenance, author });
   return new Response(Buffer.from(pdf), { headers: attachmentHeaders(fileName, "application/pdf") });
 }

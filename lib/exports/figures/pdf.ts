@@ -6,69 +6,69 @@ import type SVGtoPDFFunction from "svg-to-pdfkit";
 import { nodeRequire } from "./node-require";
 import { RESVG_PACKAGE } from "./png";
 import type { Provenance } from "@/lib/exports/provenance";
-import { existsSync } from "node:fs";
-import { BUNDLED_FONT_FAMILY, bundledPdfFont, bundledSfntFiles, bundledSubsets, FALLBACK_FONT_FILE, subsetHolds, type BundledSubset } from "./bundled-font";
+import { BUNDLED_FONT_FAMILY, bundledPdfFaces, bundledSfntFiles, bundledWeights, PDF_FONT, PDF_FONT_SEMIBOLD, type BundledWeight } from "./bundled-font";
+import { resvgSvg } from "./resvg-text";
 import type { SvgFigure } from "./svg-document";
+
+export { PDF_FONT, PDF_FONT_SEMIBOLD };
 
 /** CSS pixels to PDF points (1 px = 1/96 in, 1 pt = 1/72 in). */
 export const POINTS_PER_PX = 0.75;
 
-export const PDF_FONT = "SourceSans3";
-export const PDF_FONT_SEMIBOLD = "SourceSans3-Semibold";
-
-type PdfWeight = 400 | 600;
-const baseFontName: Record<PdfWeight, string> = { 400: PDF_FONT, 600: PDF_FONT_SEMIBOLD };
-/** The registered name of a bundled subset at a weight; the Latin ones keep the names above. */
-const subsetFontName = (weight: PdfWeight, subset: BundledSubset) => (subset === "latin" ? baseFontName[weight] : `${baseFontName[weight]}-${subset}`);
-const FALLBACK_PDF_FONT = "Fallback";
-
 /**
- * The figure's SVG with every glyph of its labels as outlines of the bundled font, laid out by resvg
+ * The figure's SVG with every glyph of its labels as outlines of the bundled fonts, laid out by resvg
  * exactly as in the PNG: svg-to-pdfkit then needs no font of its own for the plot, and characters
- * outside the font's Latin subset (α, θ) are drawn from the right subset file.
+ * outside Source Sans 3's Latin subset (α, θ, ∝, √) are drawn from the face that has them.
  */
 export function outlinedSvg(figure: SvgFigure): string {
   const { Resvg } = nodeRequire<{ Resvg: typeof ResvgClass }>(RESVG_PACKAGE);
-  return new Resvg(figure.svg, {
+  return new Resvg(resvgSvg(figure.svg), {
     font: { loadSystemFonts: false, fontFiles: bundledSfntFiles(), defaultFontFamily: BUNDLED_FONT_FAMILY, sansSerifFamily: BUNDLED_FONT_FAMILY },
   }).toString();
 }
 
-/** A new pdfkit document with the bundled font registered and the provenance in the info dictionary (ISO 32000-1 §14.3.3). */
-export function provenancePdf(provenance: Provenance, title: string, size?: [number, number]): PDFKit.PDFDocument {
+/**
+ * A new pdfkit document, without a page yet (pages added, and the flow's page breaks, take `size` and
+ * `margin` in pt), with the bundled faces registered and the provenance in
+ * the info dictionary (ISO 32000-1 §14.3.3): Author is the person who exported it (left out when
+ * nobody is signed in), Creator and Producer the software.
+ */
+export function provenancePdf(provenance: Provenance, title: string, { author, size = "A4", margin = 56 }: { author?: string; size?: string | [number, number]; margin?: number } = {}): PDFKit.PDFDocument {
   const PDFDocument = nodeRequire<typeof PDFDocumentClass>(["pdf", "kit"].join(""));
+  const software = `${provenance.product} ${provenance.version}`;
   const doc = new PDFDocument({
-    size: size ?? "A4",
-    margin: size ? 0 : 56,
-    font: bundledPdfFont(400) as unknown as string,
+    autoFirstPage: false,
+    size,
+    margin,
+    font: bundledPdfFaces(400)[0].data as unknown as string,
     info: {
       Title: title,
-      Author: `${provenance.product} ${provenance.version}`,
+      ...(author === undefined || author.trim() === "" ? {} : { Author: author }),
       Subject: provenance.subject,
       Keywords: `provenance; ${provenance.reproduceUrl}`,
-      Creator: `${provenance.product} ${provenance.version}`,
-      Producer: `${provenance.product} ${provenance.version} (pdfkit)`,
+      Creator: software,
+      Producer: `${software} (pdfkit)`,
       CreationDate: new Date(provenance.exportedAt),
     },
   });
   // Custom keys of the info dictionary are allowed (ISO 32000-1 §14.3.3) and read by pdf-parse and exiftool.
   Object.assign(doc.info, { ArcwrightProvenance: JSON.stringify(provenance), ArcwrightReproduce: provenance.reproduceUrl });
-  for (const weight of [400, 600] as const) for (const subset of bundledSubsets) doc.registerFont(subsetFontName(weight, subset), bundledPdfFont(weight, subset));
-  if (existsSync(FALLBACK_FONT_FILE)) doc.registerFont(FALLBACK_PDF_FONT, FALLBACK_FONT_FILE);
+  for (const weight of bundledWeights) for (const face of bundledPdfFaces(weight)) doc.registerFont(face.name, face.data);
   return doc;
 }
 
 /**
- * A text cut into runs that one registered font each can draw: the Latin subset, else the Latin
- * extension (ń), else Greek (θ, λ, Δ), else the system fallback face (☉, ≥, √) when it is installed.
- * pdfkit draws a text in a single font, and a glyph its font lacks would be lost.
+ * A text cut into runs that one registered face each can draw: the first of Source Sans 3 Latin,
+ * Latin Extended (ń, Ś), Greek (θ, Ω) and Noto Sans Math (☉, √, ∝) that has the glyph; a character
+ * none has stays in the text face (its missing-glyph box, not dropped). pdfkit draws a text in a
+ * single font, and a glyph its font lacks would be lost.
  */
-export function pdfTextRuns(text: string, weight: PdfWeight, hasFallback = existsSync(FALLBACK_FONT_FILE)): { font: string; text: string }[] {
+export function pdfTextRuns(text: string, weight: BundledWeight): { font: string; text: string }[] {
+  const faces = bundledPdfFaces(weight);
   const runs: { font: string; text: string }[] = [];
   for (const character of text) {
     const codePoint = character.codePointAt(0)!;
-    const subset = bundledSubsets.find((s) => subsetHolds(s, codePoint));
-    const font = subset !== undefined ? subsetFontName(weight, subset) : hasFallback ? FALLBACK_PDF_FONT : baseFontName[weight];
+    const font = (faces.find((face) => face.hasGlyph(codePoint)) ?? faces[0]).name;
     const last = runs.at(-1);
     if (last?.font === font) last.text += character;
     else runs.push({ font, text: character });
@@ -77,13 +77,13 @@ export function pdfTextRuns(text: string, weight: PdfWeight, hasFallback = exist
 }
 
 /**
- * Writes a text at the current size, each run in the font that has its glyphs: in the flow, or from
+ * Writes a text at the current size, each run in the face that has its glyphs: in the flow, or from
  * `at` (a table cell); `continued` as in pdfkit.
  */
 export function writePdfText(
   doc: PDFKit.PDFDocument,
   text: string,
-  weight: PdfWeight,
+  weight: BundledWeight,
   options: PDFKit.Mixins.TextOptions & { continued?: boolean } = {},
   at?: { x: number; y: number },
 ): void {
@@ -94,6 +94,48 @@ export function writePdfText(
     if (index === 0 && at !== undefined) doc.text(run.text, at.x, at.y, runOptions);
     else doc.text(run.text, runOptions);
   });
+}
+
+/** The width of a text at the current size, measured run by run in the faces that draw it (pt). */
+function runsWidthPt(doc: PDFKit.PDFDocument, text: string, weight: BundledWeight): number {
+  return pdfTextRuns(text, weight).reduce((sum, run) => sum + doc.font(run.font).widthOfString(run.text), 0);
+}
+
+/**
+ * A text broken into lines no wider than `widthPt` at the current size: at spaces, and a word longer
+ * than a line (a link) after one of / ? & = where it can be, else anywhere; nothing is cut off.
+ */
+export function pdfTextLines(doc: PDFKit.PDFDocument, text: string, weight: BundledWeight, widthPt: number): string[] {
+  const fits = (line: string) => runsWidthPt(doc, line, weight) <= widthPt;
+  const lines: string[] = [];
+  let line = "";
+  for (const word of text.split(" ")) {
+    const joined = line === "" ? word : `${line} ${word}`;
+    if (fits(joined)) {
+      line = joined;
+      continue;
+    }
+    if (line !== "") lines.push(line);
+    line = "";
+    let rest = word;
+    while (!fits(rest)) {
+      // The longest head that fits, by bisection (each width is a shaping pass).
+      let [low, high] = [1, rest.length - 1];
+      while (low < high) {
+        const middle = Math.ceil((low + high) / 2);
+        if (fits(rest.slice(0, middle))) low = middle;
+        else high = middle - 1;
+      }
+      let cut = low;
+      const breakAfter = Math.max(...["/", "?", "&", "="].map((mark) => rest.lastIndexOf(mark, cut - 1)));
+      if (breakAfter > cut / 2) cut = breakAfter + 1;
+      lines.push(rest.slice(0, cut));
+      rest = rest.slice(cut);
+    }
+    line = rest;
+  }
+  if (line !== "") lines.push(line);
+  return lines;
 }
 
 /** Collects a finished pdfkit document into bytes. */
@@ -107,8 +149,6 @@ export function pdfBytes(doc: PDFKit.PDFDocument): Promise<Uint8Array> {
   });
 }
 
-const CAPTION_HEIGHT_PT = 34;
-
 /** Draws a figure at (x, y) `widthPt` wide and returns its height in points. */
 export function drawFigure(doc: PDFKit.PDFDocument, figure: SvgFigure, x: number, y: number, widthPt: number): number {
   const heightPt = (widthPt * figure.heightPx) / figure.widthPx;
@@ -117,20 +157,47 @@ export function drawFigure(doc: PDFKit.PDFDocument, figure: SvgFigure, x: number
   return heightPt;
 }
 
+const CAPTION_MARGIN_PT = 6;
+const CAPTION_TITLE_PT = 8;
+const CAPTION_TEXT_PT = 6.5;
+const CAPTION_LEADING = 1.25;
+
 /**
- * One figure as a vector PDF page of the figure's own size (px → pt) with a caption band below in the
- * embedded Source Sans 3 naming the figure and how to reproduce it (so it is also extractable text).
+ * One figure as a vector PDF page of the figure's own size (px → pt) with a caption below in the
+ * embedded fonts naming the figure, the export and the whole reproduce link (wrapped onto as many
+ * lines as it takes, and a link annotation over it), so the caption is also extractable text.
  */
-export async function figurePdf(figure: SvgFigure, { title, provenance }: { title: string; provenance: Provenance }): Promise<Uint8Array> {
+export async function figurePdf(figure: SvgFigure, { title, provenance, author }: { title: string; provenance: Provenance; author?: string }): Promise<Uint8Array> {
   const widthPt = figure.widthPx * POINTS_PER_PX;
   const heightPt = figure.heightPx * POINTS_PER_PX;
-  const doc = provenancePdf(provenance, title, [widthPt, heightPt + CAPTION_HEIGHT_PT]);
+  const textWidthPt = widthPt - 2 * CAPTION_MARGIN_PT;
+  const doc = provenancePdf(provenance, title, { author, margin: 0 });
+  const titleLines = pdfTextLines(doc.fontSize(CAPTION_TITLE_PT), title, 600, textWidthPt);
+  const noteLines = pdfTextLines(doc.fontSize(CAPTION_TEXT_PT), `${provenance.product} ${provenance.version}, exported ${provenance.exportedAt}. Reproduce:`, 400, textWidthPt);
+  const linkLines = pdfTextLines(doc, provenance.reproduceUrl, 400, textWidthPt);
+  const titleLinePt = CAPTION_TITLE_PT * CAPTION_LEADING;
+  const textLinePt = CAPTION_TEXT_PT * CAPTION_LEADING;
+  const captionPt = 2 * CAPTION_MARGIN_PT + titleLines.length * titleLinePt + (noteLines.length + linkLines.length) * textLinePt;
+  doc.addPage({ size: [widthPt, heightPt + captionPt], margin: 0 });
   drawFigure(doc, figure, 0, 0, widthPt);
-  doc.rect(0, heightPt, widthPt, CAPTION_HEIGHT_PT).fill("#ffffff");
-  doc.fillColor("#000000").font(PDF_FONT_SEMIBOLD).fontSize(8).text(title, 6, heightPt + 5, { width: widthPt - 12, lineBreak: false });
-  doc
-    .font(PDF_FONT)
-    .fontSize(6.5)
-    .text(`${provenance.product} ${provenance.version}, exported ${provenance.exportedAt}. Reproduce: ${provenance.reproduceUrl}`, 6, heightPt + 16, { width: widthPt - 12, height: CAPTION_HEIGHT_PT - 18, ellipsis: true });
+  doc.rect(0, heightPt, widthPt, captionPt).fill("#ffffff");
+  doc.fillColor("#000000");
+  let y = heightPt + CAPTION_MARGIN_PT;
+  doc.fontSize(CAPTION_TITLE_PT);
+  for (const line of titleLines) {
+    writePdfText(doc, line, 600, { lineBreak: false }, { x: CAPTION_MARGIN_PT, y });
+    y += titleLinePt;
+  }
+  doc.fontSize(CAPTION_TEXT_PT);
+  for (const line of noteLines) {
+    writePdfText(doc, line, 400, { lineBreak: false }, { x: CAPTION_MARGIN_PT, y });
+    y += textLinePt;
+  }
+  const linkTop = y;
+  for (const line of linkLines) {
+    writePdfText(doc, line, 400, { lineBreak: false }, { x: CAPTION_MARGIN_PT, y });
+    y += textLinePt;
+  }
+  doc.link(CAPTION_MARGIN_PT, linkTop, textWidthPt, y - linkTop, provenance.reproduceUrl);
   return pdfBytes(doc);
 }

@@ -6,6 +6,7 @@ import { NightChart } from "@/lib/figures/night-chart";
 import { NightSkyBrightnessChart, nightSkyBrightnessTitle } from "@/lib/figures/night-sky-brightness";
 import { nightSkyBrightness } from "@/lib/photometry/night-sky";
 import type { BandSky } from "@/lib/photometry/visit-budget";
+import { printPalette } from "@/lib/figures/plot-palette";
 import { SeasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfSchedules } from "@/lib/figures/season-view";
 import { observingSchedules, type ScheduleConditions } from "@/lib/schedule";
@@ -47,7 +48,7 @@ const siteInputs = ({ site, limits }: SkyContext) => ({
  */
 export function nightPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, context: SkyContext): PlotExport {
   const visibility = nightlyVisibility(context.site, target, nightDateIso, context.limits);
-  const markup = renderStaticSvg(<NightChart visibility={visibility} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_CHART_HEIGHT_PX} />);
+  const markup = renderStaticSvg(<NightChart visibility={visibility} targetName={target.name} siteName={context.site.name} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_CHART_HEIGHT_PX} palette={printPalette} />);
   const s = siteInputs(context);
   const query = skyQueryToString({
     site: s.site,
@@ -77,7 +78,7 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
  */
 export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, bandSky: BandSky, context: SkyContext & { reproducePath: string }): PlotExport {
   const sky = nightSkyBrightness({ site: context.site, target, nightDateIso, bandSky });
-  const markup = renderStaticSvg(<NightSkyBrightnessChart sky={sky} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_SKY_CHART_HEIGHT_PX} />);
+  const markup = renderStaticSvg(<NightSkyBrightnessChart sky={sky} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_SKY_CHART_HEIGHT_PX} palette={printPalette} />);
   const title = nightSkyBrightnessTitle(sky);
   const reproduceUrl = new URL(context.reproducePath, context.appOrigin);
   reproduceUrl.searchParams.set("night", nightDateIso);
@@ -106,19 +107,23 @@ export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDa
 /**
  * A proposal's season as its view shows it: each target's usable hours per night of its simulated
  * observing schedule (darkness, the limits, the Sun rule and the Moon constraint), for up to
- * `SEASON_FIGURE_MAX_ROWS` targets over the conditions' nights.
+ * `SEASON_FIGURE_MAX_ROWS` targets over the conditions' nights. The link back opens the season view
+ * (`reproducePath`) on the same window: `start` and `nights`.
  */
 export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })[], conditions: ScheduleConditions, context: SkyContext & { reproducePath: string }): PlotExport {
   const shown = targets.slice(0, SEASON_FIGURE_MAX_ROWS);
   const schedules = observingSchedules({ ...conditions, targets: shown });
   const view = seasonViewOfSchedules(shown.map((t) => t.name), schedules);
-  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} />);
+  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} palette={printPalette} />);
   const nightCount = view.nightDatesIso.length;
   const { cycleStartNightIso: startNightIso, moon } = conditions;
   const title = `Usable dark hours per night of the observing schedule from ${startNightIso} (${nightCount} nights)`;
+  const reproduceUrl = new URL(context.reproducePath, context.appOrigin);
+  reproduceUrl.searchParams.set("start", startNightIso);
+  reproduceUrl.searchParams.set("nights", String(nightCount));
   const provenance = buildProvenance({
     subject: `Season chart: ${title}`,
-    reproduceUrl: new URL(context.reproducePath, context.appOrigin).toString(),
+    reproduceUrl: reproduceUrl.toString(),
     inputs: {
       figure: "season",
       ...context.inputs,

@@ -14,10 +14,12 @@ export const SUMMARY_MAX_ROWS = 200;
 /**
  * The proposal's technical summary as an A4 PDF (pdfkit, Source Sans 3 embedded): the target table
  * with the chosen columns, each target's science case answered in sentences (verdict, number, source),
- * then each chosen figure on its own page, then the provenance of each part.
+ * then each chosen figure on its own page, then the provenance of each part. `author`, the person
+ * exporting it, becomes the PDF's Author.
  */
-export async function technicalSummaryPdf(table: TargetTable, figures: PlotExport[], provenance: Provenance): Promise<Uint8Array> {
-  const doc = provenancePdf(provenance, `Technical summary: ${table.title}`);
+export async function technicalSummaryPdf(table: TargetTable, figures: PlotExport[], provenance: Provenance, { author }: { author?: string } = {}): Promise<Uint8Array> {
+  const doc = provenancePdf(provenance, `Technical summary: ${table.title}`, { author });
+  doc.addPage();
   const width = doc.page.width - 2 * doc.page.margins.left;
   doc.fontSize(16).fillColor("#000000");
   writePdfText(doc, `Technical summary: ${table.title}`, 600);
@@ -57,16 +59,19 @@ export async function technicalSummaryPdf(table: TargetTable, figures: PlotExpor
   }
   for (const plot of figures) {
     doc.addPage();
-    doc.font(PDF_FONT_SEMIBOLD).fontSize(11).text(plot.title);
+    doc.fontSize(11);
+    writePdfText(doc, plot.title, 600, { width });
     doc.moveDown(0.5);
     const height = drawFigure(doc, standaloneSvg(plot.markup, { title: plot.title, provenance: plot.provenance }), doc.page.margins.left, doc.y, width);
     doc.y += height + 8;
-    doc.font(PDF_FONT).fontSize(7).text(`Reproduce: ${plot.provenance.reproduceUrl}`, doc.page.margins.left, doc.y, { width });
+    doc.font(PDF_FONT).fontSize(7).text("Reproduce: ", doc.page.margins.left, doc.y, { width, continued: true });
+    doc.text(plot.provenance.reproduceUrl, { width, link: plot.provenance.reproduceUrl });
   }
   doc.addPage();
   doc.font(PDF_FONT_SEMIBOLD).fontSize(11).text("Provenance");
   for (const record of [table.provenance, ...figures.map((f) => f.provenance)]) {
-    doc.moveDown().font(PDF_FONT).fontSize(7).text(provenanceLines(record).join("\n"), { width });
+    doc.moveDown().fontSize(7);
+    writePdfText(doc, provenanceLines(record).join("\n"), 400, { width });
   }
   return pdfBytes(doc);
 }

@@ -40,7 +40,9 @@ export function benchFigureRoutes(getActor: GetActor) {
       const format = parseOrThrow(figureFormatQuerySchema, { format: query.format, width: query.width, dpi: query.dpi }, "figure");
       await checkSignedOutWidth(format, request, getActor);
       const plot = benchPlotExport(figure, sketchFromSearchParams(query), serverEnv().NEXTAUTH_URL);
-      return figureResponse(plot, format);
+      // A PDF names who exported it; the session is read for that only (none: no Author).
+      const author = format.format === "pdf" ? (await getActor(request))?.name : undefined;
+      return figureResponse(plot, format, { author });
     }),
   };
 }
@@ -51,7 +53,7 @@ export function skyFigureRoutes(getActor: GetActor) {
     GET: endpoint<{ proposalId: string; figure: string }>(getActor, async ({ request, params, actor }) => {
       const query = queryOf(request);
       const format = parseOrThrow(figureFormatQuerySchema, { format: query.format, width: query.width, dpi: query.dpi }, "figure");
-      return figureResponse(await loadSkyFigure(params, query, actor), format);
+      return figureResponse(await loadSkyFigure(params, query, actor), format, { author: actor?.name });
     }),
   };
 }

@@ -5,6 +5,7 @@ import { dbClient } from "@/db/client";
 import { targets, type Proposal } from "@/db/schema";
 import { nightDateSchema } from "@/lib/astro/inputs";
 import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
+import { seasonWindowQuerySchema } from "@/lib/figures/season-view";
 import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
@@ -22,16 +23,6 @@ const skyFigureParamsSchema = z.object({ proposalId: z.uuid(), figure: z.enum(sk
 const nightQuerySchema = z.object({
   targetId: z.uuid({ error: "Name the target by its id." }),
   date: nightDateSchema,
-});
-
-const seasonQuerySchema = z.object({
-  start: nightDateSchema.optional(),
-  nights: z.coerce
-    .number({ error: "The number of nights must be a whole number." })
-    .int("The number of nights must be a whole number.")
-    .min(1, "The number of nights is at least 1.")
-    .max(SEASON_MAX_NIGHTS, `The number of nights is at most ${SEASON_MAX_NIGHTS}.`)
-    .optional(),
 });
 
 function skyContextOf(p: Proposal) {
@@ -62,7 +53,7 @@ function cycleNights(p: Proposal): number | undefined {
 export async function loadSkyFigure(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<PlotExport> {
   const { proposalId, figure } = parseIds(skyFigureParamsSchema, params, "figure");
   const night = figure === "night" || figure === "night-sky" ? parseOrThrow(nightQuerySchema, { targetId: query.targetId, date: query.date }, "figure") : undefined;
-  const season = figure === "season" ? parseOrThrow(seasonQuerySchema, { start: query.start, nights: query.nights }, "figure") : undefined;
+  const season = figure === "season" ? parseOrThrow(seasonWindowQuerySchema, { start: query.start, nights: query.nights }, "figure") : undefined;
   const who = requireActor(actor);
   const { db } = dbClient();
   const { proposal } = await authorize(db, proposalId, who, "read", "figure");
@@ -92,5 +83,5 @@ export async function loadSkyFigure(params: unknown, query: Record<string, strin
   const nights = season?.nights ?? cycleNights(proposal) ?? DEFAULT_SEASON_NIGHTS;
   // The proposal's schedule conditions over the requested nights (the cycle's by default).
   const conditions = scheduleConditionsOf({ ...feasibilitySettingsOf(proposal), cycleStartDate: start, cycleEndDate: addDaysIso(start, nights - 1) })!;
-  return scheduleSeasonPlotExport(rows, conditions, { ...context, reproducePath: `/proposals/${proposal.id}` });
+  return scheduleSeasonPlotExport(rows, conditions, { ...context, reproducePath: `/proposals/${proposal.id}/sky` });
 }

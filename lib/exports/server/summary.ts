@@ -82,5 +82,5 @@ export async function technicalSummary(params: unknown, query: Record<string, st
     reproduceUrl: new URL(`/proposals/${proposalId}/summary`, serverEnv().NEXTAUTH_URL).toString(),
     inputs: { ...table.provenance.inputs, figures: figures.join(","), nightTargets: nightTargets.join(",") || null, night: night ?? null },
   });
-  return { pdf: await technicalSummaryPdf(table, plots, provenance), title: table.title };
+  return { pdf: await technicalSummaryPdf(table, plots, provenance, { author: actor?.name }), title: table.title };
 }

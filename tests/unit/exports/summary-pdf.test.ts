@@ -58,16 +58,16 @@ describe("technical summary: each target's science case in sentences (issue 16, 
     expect(text).toContain("HE 0435−1223 Ω 0.6372");
   });
 
-  it("cuts a text into runs per font: Latin, Latin extended, Greek, then the fallback face for symbols", () => {
-    expect(pdfTextRuns("Paczyński θ_E ☉", 400, true)).toEqual([
+  it("cuts a text into runs per font: Latin, Latin extended, Greek, then the bundled Noto Sans Math for symbols", () => {
+    expect(pdfTextRuns("Paczyński θ_E ☉", 400)).toEqual([
       { font: PDF_FONT, text: "Paczy" },
       { font: `${PDF_FONT}-latin-ext`, text: "ń" },
       { font: PDF_FONT, text: "ski " },
       { font: `${PDF_FONT}-greek`, text: "θ" },
       { font: PDF_FONT, text: "_E " },
-      { font: "Fallback", text: "☉" },
+      { font: "NotoSansMath", text: "☉" },
     ]);
-    // Without the system face a symbol stays in the text font (drawn as its missing-glyph box, not dropped from the run).
-    expect(pdfTextRuns("M☉", 600, false)).toEqual([{ font: PDF_FONT_SEMIBOLD, text: "M☉" }]);
+    // A character no bundled face has stays in the text face (drawn as its missing-glyph box, not dropped from the run).
+    expect(pdfTextRuns("M✕", 600)).toEqual([{ font: PDF_FONT_SEMIBOLD, text: "M✕" }]);
   });
 });

@@ -8,6 +8,7 @@ import * as auth from "@/lib/auth/schemas";
 import * as astro from "@/lib/astro/inputs";
 import * as schedule from "@/lib/schedule/request";
 import { figureFormatQuerySchema } from "@/lib/exports/figures/figure-format";
+import { seasonWindowQuerySchema } from "@/lib/figures/season-view";
 import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
 import * as importRequest from "@/lib/imports/request";
@@ -51,6 +52,8 @@ const leaks: [string, RegExp][] = [
  */
 const fieldWords: Record<string, RegExp> = {
   _: /request|site|instrument|mapping|column|values for empty cells/i,
+  start: /date|night/i,
+  nights: /night/i,
   name: /name|target|site/i,
   ra: /right ascension/i,
   dec: /declination/i,
@@ -259,6 +262,7 @@ const parsedByParseOrThrow: Record<string, z.ZodType> = {
   importPreviewSchema: importRequest.importPreviewSchema,
   importCommitSchema: importRequest.importCommitSchema,
   figureFormatQuerySchema,
+  seasonWindowQuerySchema,
   tableColumnsQuerySchema,
   tableWriteOptionsSchema,
 };
@@ -355,6 +359,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/auth/schemas.ts",
     "lib/imports/request.ts",
     "lib/exports/figures/figure-format.ts",
+    "lib/figures/season-view.ts",
     "lib/exports/tables/columns.ts",
     "lib/exports/tables/formats.ts",
     "lib/astro/inputs.ts",

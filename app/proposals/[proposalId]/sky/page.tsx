@@ -3,7 +3,8 @@ import type { Metadata } from "next";
 import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
 import { ProposalSeason } from "@/components/sky/proposal-season";
 import { DEFAULT_SAFE_SUN_ELONGATION_DEG } from "@/lib/astro/constants";
-import { clearNightsText, moonRuleText } from "@/lib/figures/season-view";
+import { clearNightsText, moonRuleText, seasonWindowQuerySchema } from "@/lib/figures/season-view";
+import { addDaysIso } from "@/lib/astro/time";
 import { SEASON_BRIDGE_NIGHTS } from "@/lib/schedule";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposalSky } from "@/lib/server/proposals";
@@ -11,12 +12,17 @@ import { scheduleConditionsOf } from "@/lib/workspace/derived";
 
 export const metadata: Metadata = { title: "Season view" };
 
-/** Any member: the simulated observing schedule of every target of the proposal over its cycle. */
-export default async function ProposalSkyPage({ params }: { params: Promise<{ proposalId: string }> }) {
+/**
+ * Any member: the simulated observing schedule of every target of the proposal over its cycle, or over
+ * the window `start` + `nights` a season figure was drawn for (its reproduce link).
+ */
+export default async function ProposalSkyPage({ params, searchParams }: { params: Promise<{ proposalId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const { proposalId } = await params;
   const { proposal, targets, total } = await loadForPage(`/proposals/${proposalId}/sky`, (actor) => getProposalSky({ proposalId }, actor));
   const { site, instrument } = proposal;
-  const conditions = scheduleConditionsOf(proposal);
+  const asked = seasonWindowQuerySchema.safeParse(await searchParams);
+  const chosen = asked.success && asked.data.start !== undefined && asked.data.nights !== undefined ? { start: asked.data.start, nights: asked.data.nights } : null;
+  const conditions = scheduleConditionsOf(chosen === null ? proposal : { ...proposal, cycleStartDate: chosen.start, cycleEndDate: addDaysIso(chosen.start, chosen.nights - 1) });
   return (
     <div className="space-y-6">
       <ProposalPageHeader proposalId={proposal.id} proposalTitle={proposal.title} heading="Season view">
@@ -38,6 +44,12 @@ export default async function ProposalSkyPage({ params }: { params: Promise<{ pr
         <p className="text-dusk-dim">No targets yet.</p>
       ) : (
         <>
+          {chosen !== null && (
+            <p role="status" className="text-sm text-dusk-dim" data-testid="season-window">
+              Showing {chosen.nights} nights from {chosen.start}, the window a season figure was drawn for.{" "}
+              <Link href={`/proposals/${proposal.id}/sky`}>Show the cycle</Link>
+            </p>
+          )}
           {total > targets.length && (
             <p role="status" className="text-ember">
               Showing the first {targets.length} of {total} targets by priority.

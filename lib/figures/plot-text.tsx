@@ -1,0 +1,58 @@
+import type { ReactNode } from "react";
+
+/**
+ * Label text with real subscripts and superscripts: `θ_E`, `t_0`, `b_c` (one character after `_`),
+ * `_{ab}` and `^{−3}` for longer runs. Each script is a `<tspan>` shifted by `dy` in smaller type, the
+ * text after it shifted back, which browsers, resvg and svg-to-pdfkit all lay out the same way.
+ */
+export function PlotText({ text, fontSize }: { text: string; fontSize: number }): ReactNode {
+  const parts = scriptParts(text);
+  if (parts.length === 1 && parts[0].shift === 0) return text;
+  const scriptSize = Math.round(fontSize * 0.72 * 10) / 10;
+  const nodes: ReactNode[] = [];
+  let baseline = 0;
+  parts.forEach((part, index) => {
+    const offset = Math.round(part.shift * fontSize * 10) / 10;
+    const dy = offset - baseline;
+    baseline = offset;
+    if (dy === 0 && part.shift === 0) nodes.push(part.text);
+    else
+      nodes.push(
+        <tspan key={index} dy={dy === 0 ? undefined : dy} fontSize={part.shift === 0 ? undefined : scriptSize}>
+          {part.text}
+        </tspan>,
+      );
+  });
+  return nodes;
+}
+
+/** Baseline shift of a subscript and a superscript, in em (down is positive, as SVG's y). */
+const SUBSCRIPT_EM = 0.28;
+const SUPERSCRIPT_EM = -0.38;
+
+/** The label cut into runs on the baseline (shift 0), subscript or superscript. */
+export function scriptParts(text: string): { text: string; shift: number }[] {
+  const parts: { text: string; shift: number }[] = [];
+  const push = (run: string, shift: number) => {
+    if (run === "") return;
+    const last = parts.at(-1);
+    if (last && last.shift === shift) last.text += run;
+    else parts.push({ text: run, shift });
+  };
+  const pattern = /([_^])(?:\{([^}]*)\}|([\p{L}\p{N}]))/gu;
+  let from = 0;
+  for (const match of text.matchAll(pattern)) {
+    push(text.slice(from, match.index), 0);
+    push(match[2] ?? match[3], match[1] === "_" ? SUBSCRIPT_EM : SUPERSCRIPT_EM);
+    from = match.index + match[0].length;
+  }
+  push(text.slice(from), 0);
+  return parts.length === 0 ? [{ text: "", shift: 0 }] : parts;
+}
+
+/** The label as plain text (for accessible names and widths): scripts without their markers. */
+export function plainText(text: string): string {
+  return scriptParts(text)
+    .map((part) => part.text)
+    .join("");
+}
