@@ -140,6 +140,9 @@ export interface VotableOptions {
 /** The COOSYS ID the ICRS columns refer to. */
 const ICRS_ID = "icrs";
 
+/** The VALUES/@null of a whole-number column with missing cells: the least 64-bit integer. */
+const LONG_NULL = "-9223372036854775808";
+
 const isAscii = (text: string) => /^[\x20-\x7E]*$/.test(text);
 
 /** A double as TABLEDATA writes it (VOTable 1.4 §6: NaN, +Inf, -Inf; an empty cell is null). */
@@ -169,6 +172,10 @@ function fieldOf(column: DataColumn, index: number, rows: DataCell[][], icrsColu
   field["@_ucd"] = column.ucd;
   if (icrsColumns.includes(column.name)) field["@_ref"] = ICRS_ID;
   field.DESCRIPTION = xmlCharacters(column.description);
+  // An empty TD is null in TABLEDATA, but a reader rewriting the file as BINARY or BINARY2, astropy
+  // among them, needs a null value for a whole-number column with missing cells (after DESCRIPTION:
+  // the schema's order).
+  if (column.kind === "int" && rows.some((row) => row[index] === null)) field.VALUES = { "@_null": LONG_NULL };
   return field;
 }
 

@@ -75,6 +75,9 @@ describe("generic data table writers (figure data, target tables)", () => {
       ["2461573.5", "+Inf", "0", ""],
     ]);
     expect(doc.VOTABLE.COOSYS).toBeUndefined();
+    // The whole-number column with a missing cell names a null value, after its DESCRIPTION, so astropy can rewrite it as BINARY2.
+    expect(fields[2].VALUES).toEqual({ null: "-9223372036854775808" });
+    expect(xml.indexOf("<VALUES", xml.indexOf('name="visits"'))).toBeGreaterThan(xml.indexOf("<DESCRIPTION>Visits that night</DESCRIPTION>"));
   });
 
   it("VOTable: the provenance as INFO elements named by path, whatever fields the record has", () => {
