@@ -28,10 +28,13 @@
  * - `rescaleErrors` (common practice in microlensing, no single source): each dataset's errors are
  *   multiplied by k_d so that its χ² equals its share of the degrees of freedom,
  *   n_d − 2 − p·n_d/n (p the nonlinear parameters), then the fit is repeated with the scaled errors.
- * - Annual parallax (π_E,N, π_E,E; A. Gould 2004, ApJ 606, 319) is not fitted yet.
+ * - `parallax`: annual microlens parallax (π_E,N, π_E,E) in the geocentric frame of A. Gould 2004
+ *   (ApJ 606, 319, eq. 5; fit-parallax.ts), t0,par fixed (default: t0 of the fit without parallax);
+ *   LM from that fit with both signs of u0 and π_E = 0 or 0.3 towards each direction.
  *
  * Accuracy: the best fit and covariance agree with scipy.optimize.least_squares (MINPACK LM, all
- * parameters free) to 1e-4 σ on synthetic events (tests/fixtures/generate_point_lens_fits.py).
+ * parameters free) to 1e-6 σ on synthetic events (tests/fixtures/generate_point_lens_fits.py); with
+ * parallax to 0.02 σ, set by the 8e-6 au between astronomy-engine's Earth and ERFA's that scipy used.
  */
 
 import { levenbergMarquardt } from "ml-levenberg-marquardt";
@@ -39,6 +42,7 @@ import { CholeskyDecomposition, Matrix } from "ml-matrix";
 import { pointLensMagnification } from "@/lib/physics/point-lens";
 import { finiteSourceMagnification } from "./finite-source";
 import { checkPhotometry, FitInputError, type CheckedPhotometry, type PhotometryPoint } from "./fit-input";
+import { parallaxOffsetsAu } from "./fit-parallax";
 
 export { FitInputError, MAX_FIT_ROWS } from "./fit-input";
 export type { PhotometryPoint } from "./fit-input";
@@ -48,6 +52,13 @@ export interface PointLensFitOptions {
   rescaleErrors?: boolean;
   /** Fit the source's radius ρ (θ_E); `limbDarkeningU` is the linear limb-darkening coefficient (0..1, default 0). */
   finiteSource?: boolean | { limbDarkeningU?: number };
+  /**
+   * Fit the annual microlens parallax (π_E,N, π_E,E) for an event at right ascension `raDeg` and
+   * declination `decDeg` (J2000, degrees); the points' times must then be Julian dates. `t0ParDays`
+   * (default: t0 of the fit without parallax) is the reference time of Gould 2004's geocentric frame.
+   * Both signs of u0 are tried.
+   */
+  parallax?: { raDeg: number; decDeg: number; t0ParDays?: number };
 }
 
 export interface DatasetFit {
@@ -66,19 +77,23 @@ export interface PointLensFit {
   /** False when the fit did not reach a minimum; `reason` then says why in words. */
   converged: boolean;
   reason: string | null;
-  /** Time of closest approach (days, the points' time scale), impact parameter (θ_E, ≥ 0), Einstein time (days). */
+  /**
+   * Time of closest approach (days, the points' time scale), impact parameter (θ_E; ≥ 0 without
+   * parallax, signed as in Gould 2004 with it), Einstein time (days).
+   */
   t0Days: number;
   u0: number;
   tEDays: number;
   /** Source radius (θ_E), with `finiteSource`. */
   rho?: number;
-  /** Microlens parallax components (north, east); not fitted yet. */
+  /** Microlens parallax components (north, east), dimensionless, with `parallax`; and the frame's reference time (days). */
   piEN?: number;
   piEE?: number;
+  t0ParDays?: number;
   datasets: DatasetFit[];
   chi2: number;
   dof: number;
-  /** Names of the covariance's rows and columns: t0Days, u0, tEDays, rho?, then sourceFlux:<dataset>, blendFlux:<dataset> per dataset. */
+  /** Names of the covariance's rows and columns: t0Days, u0, tEDays, rho?, piEN?, piEE?, then sourceFlux:<dataset>, blendFlux:<dataset> per dataset. */
   parameterOrder: string[];
   /** (JᵀJ)⁻¹ of the weighted residuals, in the units of the parameters; empty when JᵀJ is singular. */
   covariance: number[][];
@@ -111,16 +126,31 @@ const TE_MIN_DAYS = 0.05;
 const TE_MAX_DAYS = 3000;
 const RHO_MIN = 1e-4;
 const RHO_MAX = 10;
+const PI_E_MAX = 5;
+/** Parallax starts (our rule): none, and 0.3 towards each of the four directions, with each sign of u0. */
+const START_PI_E = [
+  [0, 0],
+  [0.3, 0],
+  [-0.3, 0],
+  [0, 0.3],
+  [0, -0.3],
+];
 /** Relative step of the finite-source magnification's numerical derivatives. */
 const FINITE_SOURCE_STEP = 1e-5;
 
 type Magnify = (u: number, rho: number) => number;
 
-/** Nonlinear parameters inside the search: [(t0 − tRef)/tScale, u0, ln t_E, (ln ρ)]. */
+/** Nonlinear parameters inside the search: [(t0 − tRef)/tScale, u0, ln t_E, (ln ρ), (π_E,N, π_E,E)]. */
 interface Frame {
   tRefDays: number;
   tScaleDays: number;
   finite: boolean;
+  /** Gould 2004's Δs of each point (au), with parallax. */
+  parallax: { north: Float64Array; east: Float64Array; t0ParDays: number } | null;
+}
+
+function parameterCountOf(frame: Frame): number {
+  return 3 + (frame.finite ? 1 : 0) + (frame.parallax ? 2 : 0);
 }
 
 class Problem {
@@ -144,7 +174,7 @@ class Problem {
   ) {
     this.n = data.tDays.length;
     this.datasetCount = data.datasets.length;
-    this.p = frame.finite ? 4 : 3;
+    this.p = parameterCountOf(frame);
     this.t = data.tDays.map((t) => t - frame.tRefDays);
     this.weight = new Float64Array(this.n);
     for (let i = 0; i < this.n; i++) this.weight[i] = 1 / (data.fluxErr[i] * errorScale[data.datasetIndex[i]]);
@@ -157,32 +187,44 @@ class Problem {
   /** Magnifications (and, if asked, their derivatives by the internal parameters) at `q`. */
   magnifications(q: ArrayLike<number>, withDerivatives: boolean): void {
     const { t, a, da, p } = this;
-    const t0 = q[0] * this.frame.tScaleDays;
+    const { tScaleDays, finite, parallax } = this.frame;
+    const t0 = q[0] * tScaleDays;
     const u0 = q[1];
     const tE = Math.exp(q[2]);
-    const rho = this.frame.finite ? Math.exp(q[3]) : 0;
+    const rho = finite ? Math.exp(q[3]) : 0;
+    const piN = parallax ? q[p - 2] : 0;
+    const piE = parallax ? q[p - 1] : 0;
     for (let i = 0; i < this.n; i++) {
-      const tau = (t[i] - t0) / tE;
-      const u = Math.sqrt(u0 * u0 + tau * tau);
-      if (!this.frame.finite) {
+      const tau0 = (t[i] - t0) / tE;
+      const sN = parallax ? parallax.north[i] : 0;
+      const sE = parallax ? parallax.east[i] : 0;
+      // Gould 2004 eq. 5: τ = τ0 + π_E·Δs, β = u0 + π_E × Δs.
+      const tau = tau0 + piN * sN + piE * sE;
+      const beta = u0 + piN * sE - piE * sN;
+      const u = Math.sqrt(tau * tau + beta * beta);
+      let dadu: number;
+      if (finite) {
+        a[i] = this.magnify(u, rho);
+        if (!withDerivatives) continue;
+        const hu = FINITE_SOURCE_STEP * Math.max(u, rho);
+        dadu = u > hu ? (this.magnify(u + hu, rho) - this.magnify(u - hu, rho)) / (2 * hu) : (this.magnify(u + hu, rho) - a[i]) / hu;
+        const hr = FINITE_SOURCE_STEP * rho;
+        da[i * p + 3] = (rho * (this.magnify(u, rho + hr) - this.magnify(u, rho - hr))) / (2 * hr);
+      } else {
         a[i] = pointLensMagnification(u);
         if (!withDerivatives) continue;
         const s2 = u * u + 4;
-        const dadu = -8 / (u * u * s2 * Math.sqrt(s2));
-        da[i * p] = (dadu * -tau * this.frame.tScaleDays) / (tE * u);
-        da[i * p + 1] = (dadu * u0) / u;
-        da[i * p + 2] = (dadu * -tau * tau) / u;
-        continue;
+        dadu = -8 / (u * u * s2 * Math.sqrt(s2));
       }
-      a[i] = this.magnify(u, rho);
-      if (!withDerivatives) continue;
-      const hu = FINITE_SOURCE_STEP * Math.max(u, rho);
-      const dadu = u > hu ? (this.magnify(u + hu, rho) - this.magnify(u - hu, rho)) / (2 * hu) : (this.magnify(u + hu, rho) - a[i]) / hu;
-      const hr = FINITE_SOURCE_STEP * rho;
-      da[i * p] = u > 0 ? (dadu * -tau * this.frame.tScaleDays) / (tE * u) : 0;
-      da[i * p + 1] = u > 0 ? (dadu * u0) / u : 0;
-      da[i * p + 2] = u > 0 ? (dadu * -tau * tau) / u : 0;
-      da[i * p + 3] = (rho * (this.magnify(u, rho + hr) - this.magnify(u, rho - hr))) / (2 * hr);
+      const dTau = u > 0 ? (dadu * tau) / u : 0;
+      const dBeta = u > 0 ? (dadu * beta) / u : 0;
+      da[i * p] = (-dTau * tScaleDays) / tE;
+      da[i * p + 1] = dBeta;
+      da[i * p + 2] = -dTau * tau0;
+      if (parallax) {
+        da[i * p + p - 2] = dTau * sN + dBeta * sE;
+        da[i * p + p - 1] = dTau * sE - dBeta * sN;
+      }
     }
   }
 
@@ -313,11 +355,15 @@ function bounds(problem: Problem): { min: number[]; max: number[] } {
   }
   const margin = hi - lo + 100;
   const scale = problem.frame.tScaleDays;
-  const min = [(lo - margin) / scale, U0_MIN, Math.log(TE_MIN_DAYS)];
+  const min = [(lo - margin) / scale, problem.frame.parallax ? -U0_MAX : U0_MIN, Math.log(TE_MIN_DAYS)];
   const max = [(hi + margin) / scale, U0_MAX, Math.log(TE_MAX_DAYS)];
   if (problem.frame.finite) {
     min.push(Math.log(RHO_MIN));
     max.push(Math.log(RHO_MAX));
+  }
+  if (problem.frame.parallax) {
+    min.push(-PI_E_MAX, -PI_E_MAX);
+    max.push(PI_E_MAX, PI_E_MAX);
   }
   return { min, max };
 }
@@ -428,39 +474,72 @@ function bestOf(searches: Search[]): Search {
   });
 }
 
-function fitFrame(data: CheckedPhotometry, finite: boolean, limbDarkeningU: number, errorScale: number[], previous: Search | null): { problem: Problem; best: Search; iterations: number } {
+interface ModelSpec {
+  finite: boolean;
+  limbDarkeningU: number;
+  parallax: { raDeg: number; decDeg: number; t0ParDays?: number } | null;
+}
+
+interface Fitted {
+  problem: Problem;
+  best: Search;
+  iterations: number;
+}
+
+function searchAll(problem: Problem, starts: number[][], iterationsBefore: number): Fitted {
+  const searches = starts.map((start) => search(problem, start));
+  return { problem, best: bestOf(searches), iterations: iterationsBefore + searches.reduce((sum, s) => sum + s.iterations, 0) };
+}
+
+/**
+ * The fit of `spec`: point source from the grid, then (if asked) the finite source from it, then
+ * the parallax from that with both signs of u0. With `previous` (same spec), one search from its
+ * best point in its frame (the refit with rescaled errors).
+ */
+function fitModel(data: CheckedPhotometry, spec: ModelSpec, errorScale: number[], previous: Fitted | null): Fitted {
+  const magnify: Magnify = (u, rho) => finiteSourceMagnification(u, rho, spec.limbDarkeningU);
+  if (previous) return searchAll(new Problem(data, previous.problem.frame, magnify, errorScale), [previous.best.q], 0);
   let lo = Infinity;
   let hi = -Infinity;
   for (const value of data.tDays) {
     lo = Math.min(lo, value);
     hi = Math.max(hi, value);
   }
-  const frame: Frame = { tRefDays: (lo + hi) / 2, tScaleDays: 10, finite: false };
-  const magnify: Magnify = (u, rho) => finiteSourceMagnification(u, rho, limbDarkeningU);
+  const frame: Frame = { tRefDays: (lo + hi) / 2, tScaleDays: 10, finite: false, parallax: null };
   const pointSource = new Problem(data, frame, magnify, errorScale);
-  const starts = previous ? [previous.q.slice(0, 3)] : pointSourceStarts(pointSource);
-  const searches = starts.map((start) => search(pointSource, start));
-  let best = bestOf(searches);
-  let iterations = searches.reduce((sum, s) => sum + s.iterations, 0);
-  if (!finite) return { problem: pointSource, best, iterations };
-  const finiteProblem = new Problem(data, { ...frame, finite: true }, magnify, errorScale);
-  // From the point-source fit and from the best grid point, each with ρ a multiple of u0: where the
-  // source's disk shapes the peak, the point-source fit itself can be far off.
-  const lnRho = (u0: number, ratio: number) => Math.log(Math.min(RHO_MAX, Math.max(RHO_MIN, ratio * u0)));
-  const finiteStarts = previous?.q.length === 4 ? [previous.q] : [best.q, starts[0]].flatMap((q) => START_RHO_PER_U0.map((ratio) => [...q.slice(0, 3), lnRho(q[1], ratio)]));
-  const finiteSearches = finiteStarts.map((start) => search(finiteProblem, start));
-  iterations += finiteSearches.reduce((sum, s) => sum + s.iterations, 0);
-  best = bestOf(finiteSearches);
-  return { problem: finiteProblem, best, iterations };
+  const gridStarts = pointSourceStarts(pointSource);
+  let fitted = searchAll(pointSource, gridStarts, 0);
+  if (spec.finite) {
+    // From the point-source fit and from the best grid point, each with ρ a multiple of u0: where the
+    // source's disk shapes the peak, the point-source fit itself can be far off.
+    const lnRho = (u0: number, ratio: number) => Math.log(Math.min(RHO_MAX, Math.max(RHO_MIN, ratio * u0)));
+    const starts = [fitted.best.q, gridStarts[0]].flatMap((q) => START_RHO_PER_U0.map((ratio) => [...q.slice(0, 3), lnRho(q[1], ratio)]));
+    fitted = searchAll(new Problem(data, { ...frame, finite: true }, magnify, errorScale), starts, fitted.iterations);
+  }
+  if (spec.parallax) {
+    const t0ParDays = spec.parallax.t0ParDays ?? frame.tRefDays + fitted.best.q[0] * frame.tScaleDays;
+    const offsets = parallaxOffsetsAu(data.tDays, spec.parallax.raDeg, spec.parallax.decDeg, t0ParDays);
+    const parallaxFrame: Frame = { ...fitted.problem.frame, parallax: { ...offsets, t0ParDays } };
+    const q = fitted.best.q;
+    const starts = [1, -1].flatMap((sign) => START_PI_E.map((piE) => [q[0], sign * Math.abs(q[1]), ...q.slice(2), ...piE]));
+    fitted = searchAll(new Problem(data, parallaxFrame, magnify, errorScale), starts, fitted.iterations);
+  }
+  return fitted;
 }
 
 /** The bound a search ended on, in words, or null. */
 function boundReached(problem: Problem, q: number[]): string | null {
   const { min, max } = bounds(problem);
-  const names = ["the peak time", "the impact parameter", "the Einstein time", "the source radius"];
+  const names = [
+    "the peak time",
+    "the impact parameter",
+    "the Einstein time",
+    ...(problem.frame.finite ? ["the source radius"] : []),
+    ...(problem.frame.parallax ? ["the parallax's north component", "the parallax's east component"] : []),
+  ];
   for (let k = 0; k < q.length; k++) {
     const span = max[k] - min[k];
-    if (k === 1 && q[k] <= min[k]) continue; // u0 → 0 is a legitimate high-magnification fit
+    if (k === 1 && !problem.frame.parallax && q[k] <= min[k]) continue; // u0 → 0 is a legitimate high-magnification fit
     if (q[k] <= min[k] + 1e-4 * span || q[k] >= max[k] - 1e-4 * span) return `${names[k]} ran to the limit of the search`;
   }
   return null;
@@ -473,9 +552,10 @@ function covarianceAt(problem: Problem, q: number[]): number[][] {
   problem.solveFluxes();
   const size = p + 2 * datasetCount;
   const tE = Math.exp(q[2]);
-  // d(internal)/d(reported): t0 → q0 = t0/tScale, tE → ln tE, ρ → ln ρ.
+  // d(internal)/d(reported): t0 → q0 = t0/tScale, tE → ln tE, ρ → ln ρ; u0 and π_E as they are.
   const chain = [1 / problem.frame.tScaleDays, 1, 1 / tE];
-  if (p === 4) chain.push(1 / Math.exp(q[3]));
+  if (problem.frame.finite) chain.push(1 / Math.exp(q[3]));
+  if (problem.frame.parallax) chain.push(1, 1);
   const normal = Matrix.zeros(size, size);
   const row = new Float64Array(size);
   for (let i = 0; i < n; i++) {
@@ -506,6 +586,22 @@ function datasetChi2(problem: Problem): number[] {
   return chi2;
 }
 
+/** Julian dates the ephemeris serves (our rule: 1900 to 2100). */
+const PARALLAX_MIN_JD = 2_415_020.5;
+const PARALLAX_MAX_JD = 2_488_069.5;
+
+function checkParallaxOptions(parallax: { raDeg: number; decDeg: number; t0ParDays?: number }): void {
+  if (!(Number.isFinite(parallax.raDeg) && parallax.raDeg >= 0 && parallax.raDeg < 360)) throw new FitInputError(`The event's right ascension must be 0 to 360 degrees (got ${parallax.raDeg}).`);
+  if (!(Number.isFinite(parallax.decDeg) && Math.abs(parallax.decDeg) <= 90)) throw new FitInputError(`The event's declination must be −90 to +90 degrees (got ${parallax.decDeg}).`);
+  const t0Par = parallax.t0ParDays;
+  if (t0Par !== undefined && !(t0Par >= PARALLAX_MIN_JD && t0Par <= PARALLAX_MAX_JD)) throw new FitInputError(`The parallax reference time must be a Julian date between 1900 and 2100 (got ${t0Par}).`);
+}
+
+function checkJulianDates(tDays: Float64Array): void {
+  const row = tDays.findIndex((t) => !(t >= PARALLAX_MIN_JD && t <= PARALLAX_MAX_JD));
+  if (row >= 0) throw new FitInputError(`Row ${row + 1}: a parallax fit needs times as Julian dates between 1900 and 2100 (got ${tDays[row]}).`, row + 1, "time");
+}
+
 /**
  * Fits a point-lens light curve to `points` (time in days on one scale, e.g. a Julian date; flux
  * and 1σ error in one linear unit per dataset). Without options: point source, blending per dataset,
@@ -518,20 +614,25 @@ export function fitPointLens(points: readonly PhotometryPoint[], options: PointL
   const finite = options.finiteSource !== undefined && options.finiteSource !== false;
   const limbDarkeningU = typeof options.finiteSource === "object" ? (options.finiteSource.limbDarkeningU ?? 0) : 0;
   if (!(limbDarkeningU >= 0 && limbDarkeningU <= 1)) throw new FitInputError(`The limb-darkening coefficient must lie between 0 and 1 (got ${limbDarkeningU}).`);
-  const nonlinear = finite ? 4 : 3;
+  const parallax = options.parallax ?? null;
+  if (parallax) checkParallaxOptions(parallax);
+  const nonlinear = 3 + (finite ? 1 : 0) + (parallax ? 2 : 0);
   const data = checkPhotometry(points, (datasetCount) => nonlinear + 2 * datasetCount);
+  if (parallax) checkJulianDates(data.tDays);
+  const spec: ModelSpec = { finite, limbDarkeningU, parallax };
   const n = data.tDays.length;
   const dof = n - nonlinear - 2 * data.datasets.length;
   let errorScale = data.datasets.map(() => 1);
-  let { problem, best, iterations } = fitFrame(data, finite, limbDarkeningU, errorScale, null);
-  if (options.rescaleErrors && best.converged) {
-    problem.chi2At(best.q);
-    const chi2 = datasetChi2(problem);
+  let fitted = fitModel(data, spec, errorScale, null);
+  let iterations = fitted.iterations;
+  if (options.rescaleErrors && fitted.best.converged) {
+    fitted.problem.chi2At(fitted.best.q);
+    const chi2 = datasetChi2(fitted.problem);
     errorScale = chi2.map((value, d) => Math.sqrt(value / (data.counts[d] - 2 - (nonlinear * data.counts[d]) / n)));
-    const refit = fitFrame(data, finite, limbDarkeningU, errorScale, best);
-    ({ problem, best } = refit);
-    iterations += refit.iterations;
+    fitted = fitModel(data, spec, errorScale, fitted);
+    iterations += fitted.iterations;
   }
+  const { problem, best } = fitted;
   const q = best.q;
   const bound = best.converged ? boundReached(problem, q) : null;
   const covariance = covarianceAt(problem, q);
@@ -559,11 +660,17 @@ export function fitPointLens(points: readonly PhotometryPoint[], options: PointL
       "u0",
       "tEDays",
       ...(finite ? ["rho"] : []),
+      ...(parallax ? ["piEN", "piEE"] : []),
       ...data.datasets.flatMap((dataset) => [`sourceFlux:${dataset}`, `blendFlux:${dataset}`]),
     ],
     covariance,
     iterations,
   };
   if (finite) result.rho = Math.exp(q[3]);
+  if (problem.frame.parallax) {
+    result.piEN = q[nonlinear - 2];
+    result.piEE = q[nonlinear - 1];
+    result.t0ParDays = problem.frame.parallax.t0ParDays;
+  }
   return result;
 }

@@ -2,7 +2,8 @@
 // figures and ratios only; never passes or fails on timing. Baselines in the same process:
 //   - one pass of the model over the points (the magnifications, fluxes solved), the unit of work;
 //   - the same fit with every dataset's fluxes as free nonlinear parameters of the package's LM
-//     (no linear solve), from the same best starting point, for as many iterations as the fit took.
+//     (no linear solve), from the same best starting point, for as many iterations as the fit took;
+// and (d) the same fit with annual parallax, for its cost.
 // The event is synthetic (fixed seed): a survey's 3,500 points over 200 days and a follow-up
 // telescope's 1,500 over the 20 days round the peak, blended differently, 1 % noise.
 import { cpus, loadavg } from "node:os";
@@ -76,4 +77,14 @@ const allFreeSeconds = bestSeconds(() => {
 }, REPEATS);
 console.log(
   `(c) baseline, fluxes as free nonlinear parameters (central-difference Jacobian, ${iterations} iterations from near the answer): ${(allFreeSeconds * 1000).toFixed(0)} ms, ${(allFreeSeconds / fitSeconds).toFixed(2)}x the fit [checksum ${checksum.toExponential(3)}]`,
+);
+
+// The same points with annual parallax (Galactic bulge direction; 10 searches: both signs of u0 × 5 starts).
+const bulge = { raDeg: 270.9, decDeg: -30.0 };
+let parallaxFit = fitPointLens(points, { parallax: bulge });
+const parallaxSeconds = bestSeconds(() => {
+  parallaxFit = fitPointLens(points, { parallax: bulge });
+}, REPEATS);
+console.log(
+  `(d) with parallax: ${(parallaxSeconds * 1000).toFixed(0)} ms (${(parallaxSeconds / TARGET_S).toFixed(2)}x the 1 s target, ${(parallaxSeconds / fitSeconds).toFixed(1)}x the fit without), ${parallaxFit.iterations} iterations, converged ${parallaxFit.converged}, π_E = (${parallaxFit.piEN?.toFixed(3)}, ${parallaxFit.piEE?.toFixed(3)})`,
 );

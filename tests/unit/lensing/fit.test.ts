@@ -2,6 +2,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { finiteSourceMagnification } from "@/lib/lensing/finite-source";
 import { fitPointLens, FitInputError, MAX_FIT_ROWS, type PhotometryPoint, type PointLensFit } from "@/lib/lensing/fit";
+import { projectedSunAu } from "@/lib/lensing/fit-parallax";
 
 // Synthetic events and scipy.optimize.least_squares (MINPACK LM) fits of them, written by
 // tests/fixtures/generate_point_lens_fits.py (Debian python3-numpy / python3-scipy, versions in the file).
@@ -15,8 +16,15 @@ interface Draw {
   flux: number[];
   scipy: { parameters: number[]; errors: number[]; chi2: number };
 }
+interface ParallaxEvent extends ScipyEvent {
+  event: { raDeg: number; decDeg: number };
+  t0ParDays: number;
+  projectedSun: { jd: number[]; northAu: number[]; eastAu: number[] };
+  scipy: ScipyEvent["scipy"] & { otherSignChi2: number };
+}
 const fixture = JSON.parse(readFileSync(new URL("../../fixtures/lensing/point-lens-fits.json", import.meta.url), "utf8")) as {
   events: ScipyEvent[];
+  parallax: ParallaxEvent;
   draws: { tDays: number[]; dataset: string[]; fluxErr: number[]; draws: Draw[] };
 };
 
@@ -26,6 +34,10 @@ function parametersOf(fit: PointLensFit): number[] {
 
 function truthOf(truth: ScipyEvent["truth"]): number[] {
   return [truth.t0Days, truth.u0, truth.tEDays, truth.sourceFlux[0], truth.blendFlux[0], truth.sourceFlux[1], truth.blendFlux[1]];
+}
+
+function pointsOf(event: ScipyEvent): PhotometryPoint[] {
+  return event.points.tDays.map((t, i) => ({ tDays: t, flux: event.points.flux[i], fluxErr: event.points.fluxErr[i], dataset: event.points.dataset[i] }));
 }
 
 function drawPoints(draw: Draw): PhotometryPoint[] {
@@ -40,7 +52,7 @@ describe("fitPointLens against scipy.optimize.least_squares (generate_point_lens
     let worstParameter = 0;
     let worstCovariance = 0;
     for (const event of fixture.events) {
-      const points = event.points.tDays.map((t, i) => ({ tDays: t, flux: event.points.flux[i], fluxErr: event.points.fluxErr[i], dataset: event.points.dataset[i] }));
+      const points = pointsOf(event);
       const fit = fitPointLens(points);
       expect(fit.converged).toBe(true);
       expect(fit.parameterOrder).toEqual(["t0Days", "u0", "tEDays", "sourceFlux:survey", "blendFlux:survey", "sourceFlux:follow-up", "blendFlux:follow-up"]);
@@ -75,6 +87,50 @@ describe("fitPointLens against scipy.optimize.least_squares (generate_point_lens
     // Measured: worst 5e-7 σ and 7e-8 relative.
     expect(worstParameter).toBeLessThan(1e-4);
     expect(worstError).toBeLessThan(1e-4);
+  });
+});
+
+describe("fitPointLens with annual parallax against astropy and scipy (generate_point_lens_fits.py)", () => {
+  const event = fixture.parallax;
+
+  it("projects the Sun as astropy's built-in ephemeris (ERFA epv00) does, to 2e-5 au", () => {
+    let worst = 0;
+    event.projectedSun.jd.forEach((jd, i) => {
+      const sun = projectedSunAu(jd, event.event.raDeg, event.event.decDeg);
+      worst = Math.max(worst, Math.abs(sun.northAu - event.projectedSun.northAu[i]), Math.abs(sun.eastAu - event.projectedSun.eastAu[i]));
+    });
+    // Measured: 8e-6 au, the difference between astronomy-engine's and ERFA's Earth (a sign or axis error would be ~1 au).
+    expect(worst).toBeLessThan(2e-5);
+  });
+
+  it("finds scipy's best fit of both signs of u0 (Gould 2004 eq. 5), within what the two ephemerides allow", () => {
+    const fit = fitPointLens(pointsOf(event), { parallax: { ...event.event, t0ParDays: event.t0ParDays } });
+    expect(fit.converged).toBe(true);
+    expect(fit.t0ParDays).toBe(event.t0ParDays);
+    expect(fit.parameterOrder.slice(0, 5)).toEqual(["t0Days", "u0", "tEDays", "piEN", "piEE"]);
+    // The lower of the two minima (scipy's other sign: χ² higher by ~0.5) — the sign of u0 is negative.
+    expect(fit.u0).toBeLessThan(0);
+    expect(fit.chi2).toBeLessThan(event.scipy.otherSignChi2);
+    const parameters = [fit.t0Days, fit.u0, fit.tEDays, fit.piEN ?? Number.NaN, fit.piEE ?? Number.NaN, ...fit.datasets.flatMap((d) => [d.sourceFlux, d.blendFlux])];
+    const sigma = event.scipy.parameters.map((_, k) => Math.sqrt(event.scipy.covariance[k][k]));
+    let worstParameter = 0;
+    let worstCovariance = 0;
+    parameters.forEach((value, k) => {
+      worstParameter = Math.max(worstParameter, Math.abs(value - event.scipy.parameters[k]) / sigma[k]);
+      parameters.forEach((_, l) => {
+        worstCovariance = Math.max(worstCovariance, Math.abs(fit.covariance[k][l] - event.scipy.covariance[k][l]) / (sigma[k] * sigma[l]));
+      });
+    });
+    // Measured: 1.6e-2 σ (t0) and 1.2e-4 in the covariance; the ephemerides' 8e-6 au sets it (with
+    // scipy's own offsets the no-parallax fits agree to 1e-8 σ above).
+    expect(worstParameter).toBeLessThan(0.05);
+    expect(worstCovariance).toBeLessThan(1e-3);
+  });
+
+  it("refuses parallax for times that are not Julian dates, and a position off the sky", () => {
+    const points = pointsOf(event).map((point) => ({ ...point, tDays: point.tDays - 2_400_000.5 }));
+    expect(() => fitPointLens(points, { parallax: event.event })).toThrow(`Row 1: a parallax fit needs times as Julian dates between 1900 and 2100 (got ${points[0].tDays}).`);
+    expect(() => fitPointLens(pointsOf(event), { parallax: { raDeg: 80, decDeg: -91 } })).toThrow("The event's declination must be −90 to +90 degrees (got -91).");
   });
 });
 
