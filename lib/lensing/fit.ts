@@ -48,7 +48,10 @@ export { FitInputError, MAX_FIT_ROWS } from "./fit-input";
 export type { PhotometryPoint } from "./fit-input";
 
 export interface PointLensFitOptions {
-  /** Scale each dataset's errors so that its χ²/dof ≈ 1, and fit again (common practice). Default false. */
+  /**
+   * Scale each dataset's errors so that its χ²/dof ≈ 1, and fit again (common practice). Default false.
+   * Skipped (factors 1) when the fit with the stated errors does not converge.
+   */
   rescaleErrors?: boolean;
   /** Fit the source's radius ρ (θ_E); `limbDarkeningU` is the linear limb-darkening coefficient (0..1, default 0). */
   finiteSource?: boolean | { limbDarkeningU?: number };
