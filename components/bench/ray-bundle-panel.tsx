@@ -11,7 +11,11 @@ import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
 import { PNG_SCALES, type PngScale } from "@/components/scene/png-scale";
 import { withRayViewProvenance } from "@/lib/bench/ray-view-png";
+import { withPngChunks } from "@/lib/exports/png-text";
 import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
+import type { FigureKeyEntry } from "@/components/scene/ray-figure";
+import { bundleMassSolar, captionChunk, figureDpi, physicalSizeChunk, rayFigureCaption } from "@/components/scene/ray-figure-text";
+import { sceneInks } from "@/components/scene/scene-ink";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
 
@@ -49,12 +53,22 @@ function FateLegend({ bundle, hasSurface }: { bundle?: AssembledBundle; hasSurfa
       })}
       <li className="flex items-center gap-2">
         <svg width="36" height="8" aria-hidden="true">
-          <line x1="0" y1="4" x2="36" y2="4" stroke="#f4f1ea" strokeWidth="1" />
+          <line x1="0" y1="4" x2="36" y2="4" stroke={sceneInks.wavefront.screen.color} strokeWidth="1" />
         </svg>
         Wavefronts (equal coordinate time)
       </li>
     </ul>
   );
+}
+
+/** The key under a saved figure: the fates drawn, in print ink, and the wavefronts. */
+function figureKey(hasSurface: boolean): FigureKeyEntry[] {
+  const fates = RAY_FATES.filter((fate) => hasSurface || fate !== "surface").map((fate) => ({
+    label: fateStyles[fate].label.split(" (")[0],
+    color: fateStyles[fate].print.color,
+    dashPx: fateStyles[fate].legendDash?.split(" ").map(Number) ?? [],
+  }));
+  return [...fates, { label: "Wavefronts", color: sceneInks.wavefront.print.color, dashPx: [] }];
 }
 
 /** The 3D ray bundle: its own inputs (kept in the URL like the rest), the trace control and the view. */
@@ -104,15 +118,19 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
 
   const savePng = () => {
     const view = viewRef.current;
-    if (view === undefined) return;
+    if (view === undefined || parsedBundle === undefined) return;
     const link = document.createElement("a");
     const rayCount = drawnBundle?.rayCount ?? 0;
-    const png = withRayViewProvenance(view.toPngDataUrl(pngScale), {
+    const massSolar = bundleMassSolar(sketch);
+    const caption = rayFigureCaption({ massSolar, bMinM: parsedBundle.bMinM, bMaxM: parsedBundle.bMaxM, rayCount, layout: parsedBundle.layout });
+    const dataUrl = view.toFigurePngDataUrl(pngScale, { surfaceRadiusM: hasSurface ? radiusOverM : 0, massSolar, caption, key: figureKey(hasSurface) });
+    const withProvenance = withRayViewProvenance(dataUrl, {
       rayCount,
       scale: pngScale,
       sketchInputs: { rays: sketch.rays, bminM: sketch.bmin, bmaxM: sketch.bmax, layout: sketch.layout },
       reproduceUrl: window.location.href,
     });
+    const png = Uint8Array.from(withPngChunks(withProvenance, [physicalSizeChunk(figureDpi(pngScale)), captionChunk(caption)], ["pHYs"]));
     const url = URL.createObjectURL(new Blob([png], { type: "image/png" }));
     const scaleSuffix = pngScale === 1 ? "" : `-${pngScale}x`;
     link.href = url;
@@ -156,7 +174,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
         <button
           type="button"
           onClick={savePng}
-          disabled={drawnBundle === undefined}
+          disabled={drawnBundle === undefined || parsedBundle === undefined}
           className="rounded-md border border-void-edge px-3 py-1.5 text-sm text-dusk hover:border-ember disabled:opacity-50"
         >
           Save view as PNG

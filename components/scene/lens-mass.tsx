@@ -1,5 +1,7 @@
 "use client";
 
+import { inkData, sceneInks } from "./scene-ink";
+
 /**
  * The mass at the centre, in units of M: for a compact lens the horizon r = 2M (opaque) inside the
  * photon sphere r = 3M (wire); for a body larger than its photon sphere, only the body (neither exists
@@ -10,7 +12,7 @@ export function LensMass({ surfaceRadiusM }: { surfaceRadiusM: number }) {
     return (
       <mesh>
         <sphereGeometry args={[surfaceRadiusM, 48, 24]} />
-        <meshBasicMaterial color="#3a3a3a" />
+        <meshBasicMaterial color={sceneInks.surface.screen.color} userData={inkData(sceneInks.surface)} />
       </mesh>
     );
   }
@@ -18,15 +20,15 @@ export function LensMass({ surfaceRadiusM }: { surfaceRadiusM: number }) {
     <group>
       <mesh>
         <sphereGeometry args={[2, 48, 24]} />
-        <meshBasicMaterial color="#000000" />
+        <meshBasicMaterial color={sceneInks.horizon.screen.color} userData={inkData(sceneInks.horizon)} />
       </mesh>
       <mesh>
         <sphereGeometry args={[2.02, 24, 12]} />
-        <meshBasicMaterial color="#8f8a80" wireframe transparent opacity={0.35} />
+        <meshBasicMaterial color={sceneInks.horizonWire.screen.color} wireframe transparent opacity={sceneInks.horizonWire.screen.opacity} userData={inkData(sceneInks.horizonWire)} />
       </mesh>
       <mesh>
         <sphereGeometry args={[3, 32, 16]} />
-        <meshBasicMaterial color="#CC79A7" wireframe transparent opacity={0.35} />
+        <meshBasicMaterial color={sceneInks.photonSphere.screen.color} wireframe transparent opacity={sceneInks.photonSphere.screen.opacity} userData={inkData(sceneInks.photonSphere)} />
       </mesh>
     </group>
   );

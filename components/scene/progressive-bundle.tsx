@@ -14,8 +14,8 @@ export interface ProgressiveBundleProps {
   bundle: AssembledBundle;
   /** Called once, after the frame that first completes `bundle` has been rendered. */
   onBundleDrawn: (bundle: AssembledBundle) => void;
-  /** Receives a function that draws whatever is left of the bundle at once (for saving the view). */
-  onDrawRemaining: (drawRemaining: () => void) => void;
+  /** Receives a function that draws the whole bundle again at once (for saving the view in other ink or size). */
+  onDrawWhole: (drawWhole: (() => void) | undefined) => void;
 }
 
 /**
@@ -25,7 +25,7 @@ export interface ProgressiveBundleProps {
  * steered by how long the frame before took. A change of view or of bundle starts again from the first
  * frame. Takes over rendering from the canvas (useFrame priority 1).
  */
-export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawRemaining }: ProgressiveBundleProps) {
+export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: ProgressiveBundleProps) {
   const rays = useRef<THREE.LineSegments>(null);
   const fronts = useRef<THREE.LineSegments>(null);
   const totalSegments = useMemo(() => segmentTotal(bundle.fateGroups), [bundle]);
@@ -122,11 +122,12 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawRemaining }: Pr
   const invalidate = useThree((state) => state.invalidate);
   useEffect(() => {
     invalidate();
-    onDrawRemaining(() => {
+    onDrawWhole(() => {
+      progress.current.drawnSegments = undefined;
       while (drawStep(getState(), Number.POSITIVE_INFINITY));
     });
-    return () => onDrawRemaining(() => {});
-  }, [drawStep, getState, invalidate, onDrawRemaining]);
+    return () => onDrawWhole(undefined);
+  }, [drawStep, getState, invalidate, onDrawWhole]);
 
   return (
     <>

@@ -1,19 +1,21 @@
 "use client";
 
 import { OrbitControls } from "@react-three/drei";
-import { Canvas } from "@react-three/fiber";
+import { Canvas, type RootState } from "@react-three/fiber";
 import { useCallback, useRef } from "react";
 import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { LensMass } from "./lens-mass";
 import type { PngScale } from "./png-scale";
 import { ProgressiveBundle } from "./progressive-bundle";
+import { composeRayFigure, type RayFigureLabels } from "./ray-figure";
+import { applyInk, sceneBackground } from "./scene-ink";
 
 /** Vertical field of view, degrees. */
 const FIELD_OF_VIEW_DEG = 45;
 
-/** What the page may do with the view: a PNG of it, with any bundle still being drawn completed first. */
+/** What the page may do with the view: a figure of it (PNG data URL), with the whole bundle drawn. */
 export interface RayBundleView {
-  toPngDataUrl: (scale: PngScale) => string;
+  toFigurePngDataUrl: (scale: PngScale, labels: RayFigureLabels) => string;
 }
 
 export interface RayBundleCanvasProps {
@@ -36,9 +38,9 @@ function cameraDistance(startRadiusM: number): number {
 /** The 3D ray-bundle view (client only: loaded with next/dynamic and ssr: false). */
 export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, onViewReady, onBundleDrawn }: RayBundleCanvasProps) {
   const distance = cameraDistance(bundle?.startRadiusM ?? startRadiusM);
-  const drawRemaining = useRef<() => void>(() => {});
-  const onDrawRemaining = useCallback((draw: () => void) => {
-    drawRemaining.current = draw;
+  const drawWhole = useRef<(() => void) | undefined>(undefined);
+  const onDrawWhole = useCallback((draw: (() => void) | undefined) => {
+    drawWhole.current = draw;
   }, []);
   return (
     <Canvas
@@ -48,28 +50,30 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
       // The drawing buffer is kept between frames: the bundle is drawn onto it over several frames,
       // and a PNG is read from it. No MSAA: software rendering multiplied the draw time by about 3.5.
       gl={{ preserveDrawingBuffer: true, antialias: false }}
-      onCreated={({ gl }) =>
+      onCreated={({ get }: RootState) =>
         onViewReady({
-          toPngDataUrl: (scale) => {
-            // A larger drawing buffer for the snapshot only: the bundle is redrawn into it at once
-            // (one long task, on the user's click), read out, and the view goes back to screen size.
+          toFigurePngDataUrl: (scale, labels) => {
+            const { gl, scene, camera } = get();
+            const redraw = () => (drawWhole.current ?? (() => gl.render(scene, camera)))();
+            // The figure is drawn in print ink into a drawing buffer `scale` times the screen's (one
+            // long task, on the user's click), read out, and the view goes back to the screen's ink and size.
             const screenRatio = gl.getPixelRatio();
-            if (scale !== screenRatio) gl.setPixelRatio(scale);
-            drawRemaining.current();
-            const dataUrl = gl.domElement.toDataURL("image/png");
-            if (scale !== screenRatio) {
-              gl.setPixelRatio(screenRatio);
-              drawRemaining.current();
-            }
-            return dataUrl;
+            gl.setPixelRatio(scale);
+            applyInk(scene, "print");
+            redraw();
+            const figure = composeRayFigure({ view: gl.domElement, camera, scale, ...labels });
+            gl.setPixelRatio(screenRatio);
+            applyInk(scene, "screen");
+            redraw();
+            return figure.toDataURL("image/png");
           },
         })
       }
       data-testid="ray-bundle-canvas"
     >
-      <color attach="background" args={["#05070c"]} />
+      <color attach="background" args={[sceneBackground.screen]} />
       <LensMass surfaceRadiusM={surfaceRadiusM} />
-      {bundle !== undefined ? <ProgressiveBundle bundle={bundle} onBundleDrawn={onBundleDrawn} onDrawRemaining={onDrawRemaining} /> : null}
+      {bundle !== undefined ? <ProgressiveBundle bundle={bundle} onBundleDrawn={onBundleDrawn} onDrawWhole={onDrawWhole} /> : null}
       <OrbitControls makeDefault enableDamping={false} />
     </Canvas>
   );

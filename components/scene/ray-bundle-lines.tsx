@@ -4,14 +4,14 @@ import { useEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
 import type { AssembledBundle, RayFate } from "@/lib/bench/assemble-bundle";
 import { fateStyles } from "./fate-styles";
+import { inkData, sceneInks } from "./scene-ink";
 
 function fateMaterials(): Record<RayFate, THREE.Material> {
-  const entries = Object.entries(fateStyles).map(([fate, style]) => [
-    fate,
-    style.dashM === undefined
-      ? new THREE.LineBasicMaterial({ color: style.color, transparent: true, opacity: style.opacity, depthWrite: false })
-      : new THREE.LineDashedMaterial({ color: style.color, dashSize: style.dashM, gapSize: style.gapM, transparent: true, opacity: style.opacity, depthWrite: false }),
-  ]);
+  const entries = Object.entries(fateStyles).map(([fate, style]) => {
+    const userData = inkData({ screen: { color: style.color, opacity: style.opacity }, print: style.print });
+    const common = { color: style.color, transparent: true, opacity: style.opacity, depthWrite: false, userData };
+    return [fate, style.dashM === undefined ? new THREE.LineBasicMaterial(common) : new THREE.LineDashedMaterial({ ...common, dashSize: style.dashM, gapSize: style.gapM })];
+  });
   return Object.fromEntries(entries) as Record<RayFate, THREE.Material>;
 }
 
@@ -51,7 +51,7 @@ export function WavefrontLines({ vertices, ref }: { vertices: Float32Array; ref:
   return (
     // Drawn last and over the rays, so the fronts stay visible inside a dense bundle.
     <lineSegments ref={ref} geometry={geometry} frustumCulled={false}>
-      <lineBasicMaterial color="#f4f1ea" depthTest={false} />
+      <lineBasicMaterial color={sceneInks.wavefront.screen.color} depthTest={false} userData={inkData(sceneInks.wavefront)} />
     </lineSegments>
   );
 }

@@ -150,6 +150,7 @@ describe("lens bench", () => {
     // The view saves as a PNG of the drawn bundle (a blank canvas compresses to a few kB), at 1×
     // and at 4× the canvas size on screen (IHDR width, PNG 3rd ed. §11.2.1, is bytes 16..19).
     const canvasWidthPx = await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.width);
+    const canvasHeightPx = await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.height);
     for (const [scale, suffix] of [[1, ""], [4, "-4x"]] as const) {
       await page.getByLabel("PNG resolution").selectOption(String(scale));
       const download = page.waitForEvent("download");
@@ -169,9 +170,67 @@ describe("lens bench", () => {
       const record = chunks.find((c) => c.name === "iTXt" && Buffer.from(c.data).toString("latin1").startsWith(PNG_PROVENANCE_KEYWORD));
       const json = Buffer.from(record!.data).subarray(PNG_PROVENANCE_KEYWORD.length + 5).toString("utf8");
       expect(JSON.parse(json).inputs).toMatchObject({ drawnRays: 2000, pngScale: scale });
+
+      // A figure for a page: it prints at its size on screen (pHYs, PNG 3rd ed. §11.3.5.3: pixels per
+      // metre, unit 1 = metre; 96 DPI per scale, CSS 1px = 1/96 in) and carries its caption.
+      const physical = chunks.find((c) => c.name === "pHYs");
+      expect(physical).toBeDefined();
+      const physicalData = Buffer.from(physical!.data);
+      expect(Math.round(physicalData.readUInt32BE(0) * 0.0254)).toBe(96 * scale);
+      expect(physicalData.readUInt32BE(4)).toBe(physicalData.readUInt32BE(0));
+      expect(physicalData[8]).toBe(1);
+      const description = chunks.find((c) => c.name === "iTXt" && Buffer.from(c.data).toString("latin1").startsWith("Description\0"));
+      expect(description).toBeDefined();
+      // 0.5 M☉: GM/c² = 0.5 × 1476.625 m (GM☉ IAU 2015 B3 nominal) = 738.3 m.
+      expect(Buffer.from(description!.data).subarray("Description".length + 5).toString("utf8")).toMatch(
+        /^Exact light paths past a Schwarzschild mass of 0\.5 M☉ \(lengths in units of M = GM\/c² = 738\.3 m\): 2000 rays in a planar fan, impact parameters b = 0\.5 to 15 M\. Arcwright \d+\.\d+\.\d+\.$/,
+      );
+      // White paper with dark ink: the view on a white ground, a caption band below it with text.
+      const heightPx = png.readUInt32BE(20);
+      expect(heightPx).toBeGreaterThan(canvasHeightPx * scale);
+      const paper = await page.evaluate(
+        async ({ base64, viewHeightPx }) => {
+          const bitmap = await createImageBitmap(new Blob([Uint8Array.from(atob(base64), (c) => c.charCodeAt(0))], { type: "image/png" }));
+          const copy = document.createElement("canvas");
+          copy.width = bitmap.width;
+          copy.height = bitmap.height;
+          const context2d = copy.getContext("2d")!;
+          context2d.drawImage(bitmap, 0, 0);
+          const count = (top: number, bottom: number, test: (r: number, g: number, b: number) => boolean) => {
+            const data = context2d.getImageData(0, top, copy.width, bottom - top).data;
+            let hits = 0;
+            for (let i = 0; i < data.length; i += 4) if (test(data[i], data[i + 1], data[i + 2])) hits += 1;
+            return hits / (data.length / 4);
+          };
+          const white = (r: number, g: number, b: number) => r > 245 && g > 245 && b > 245;
+          const dark = (r: number, g: number, b: number) => r + g + b < 200;
+          // The screen's ground is #05070c; on paper only the horizon's disc is that dark.
+          const night = (r: number, g: number, b: number) => r < 24 && g < 24 && b < 24;
+          return {
+            viewWhite: count(0, viewHeightPx, white),
+            viewNight: count(0, viewHeightPx, night),
+            captionWhite: count(viewHeightPx + 2, copy.height, white),
+            captionInk: count(viewHeightPx + 2, copy.height, dark),
+          };
+        },
+        { base64: png.toString("base64"), viewHeightPx: canvasHeightPx * scale },
+      );
+      expect(paper.viewWhite).toBeGreaterThan(0.3);
+      expect(paper.viewNight).toBeLessThan(0.01);
+      expect(paper.captionWhite).toBeGreaterThan(0.7);
+      expect(paper.captionInk).toBeGreaterThan(0.005);
     }
-    // Back at screen size afterwards.
+    // Back at screen size and in the screen's ink (its background is #05070c) afterwards.
     expect(await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((c: HTMLCanvasElement) => c.width)).toBe(canvasWidthPx);
+    const corner = await page.getByTestId("ray-bundle-canvas").locator("canvas").evaluate((source: HTMLCanvasElement) => {
+      const copy = document.createElement("canvas");
+      copy.width = source.width;
+      copy.height = source.height;
+      const context2d = copy.getContext("2d")!;
+      context2d.drawImage(source, 0, 0);
+      return Array.from(context2d.getImageData(1, 1, 1, 1).data.subarray(0, 3));
+    });
+    expect(corner).toEqual([5, 7, 12]);
     await context.close();
   });
 

@@ -1,0 +1,90 @@
+/**
+ * The words, numbers and PNG chunks of the 3D view's saved figure: its DPI, the length of its scale
+ * bar, the bar's length for the sketch's mass and the caption. Pure (no DOM), for the browser.
+ */
+import { formatInUnit, formatPlain, naturalLengthUnit } from "@/lib/bench/display-units";
+import { defaultUnits } from "@/lib/bench/parse-sketch";
+import { lensSketches, type Sketch } from "@/lib/bench/sketch-state";
+import type { PngChunk } from "@/lib/exports/png-text";
+import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
+import { parseMass, SOLAR_MASS_LENGTH_M } from "@/lib/physics";
+import type { PngScale } from "./png-scale";
+
+/** CSS pixels per inch: 1px = 1/96 in (CSS Values and Units Level 3, §5.2 absolute lengths). */
+const CSS_PX_PER_INCH = 96;
+const METRES_PER_INCH = 0.0254;
+
+/**
+ * The DPI that prints the figure at its size on screen: the view is `scale` drawing-buffer pixels per
+ * CSS pixel, so 96 DPI at 1×, 192 at 2×, 384 at 4×.
+ */
+export const figureDpi = (scale: PngScale): number => CSS_PX_PER_INCH * scale;
+
+/** pHYs: pixels per metre on both axes, unit metre (PNG 3rd ed. §11.3.5.3), so the DPI travels with the file. */
+export function physicalSizeChunk(dpi: number): PngChunk {
+  const data = new Uint8Array(9);
+  const view = new DataView(data.buffer);
+  const pixelsPerMetre = Math.round(dpi / METRES_PER_INCH);
+  view.setUint32(0, pixelsPerMetre);
+  view.setUint32(4, pixelsPerMetre);
+  data[8] = 1;
+  return { name: "pHYs", data };
+}
+
+/** Keyword of the caption's text chunk (PNG 3rd ed. §11.3.4.2: "Description", a long description of the image). */
+export const CAPTION_KEYWORD = "Description";
+
+/** The caption as an iTXt chunk (uncompressed, no language tag; PNG 3rd ed. §11.3.4.5), UTF-8 so M☉ survives. */
+export function captionChunk(caption: string): PngChunk {
+  const head = Uint8Array.from(`${CAPTION_KEYWORD}\0\0\0\0\0`, (character) => character.charCodeAt(0));
+  const body = new TextEncoder().encode(caption);
+  const data = new Uint8Array(head.length + body.length);
+  data.set(head);
+  data.set(body, head.length);
+  return { name: "iTXt", data };
+}
+
+/**
+ * The scale bar's length, units of M: the longest of 1, 2 or 5 × 10ⁿ M that spans at most `maxPx`
+ * pixels at `pxPerM` (common practice for map and micrograph scale bars).
+ */
+export function scaleBarLengthM(pxPerM: number, maxPx: number): number {
+  const longestM = maxPx / pxPerM;
+  const decade = 10 ** Math.floor(Math.log10(longestM));
+  return [5, 2, 1].map((step) => step * decade).find((lengthM) => lengthM <= longestM * (1 + 1e-12)) ?? decade;
+}
+
+/** The sketch's lens mass in M☉ when its lens is a point mass and the field reads; else undefined. */
+export function bundleMassSolar(sketch: Pick<Sketch, "lens" | "mass">): number | undefined {
+  if (!lensSketches[sketch.lens].fields.includes("mass")) return undefined;
+  try {
+    return parseMass(sketch.mass, { defaultUnit: defaultUnits.mass }).massSolar;
+  } catch {
+    return undefined;
+  }
+}
+
+/** `lengthM` (units of M = GM/c²) for a mass of `massSolar` M☉, in the readable unit: "14.77 km", "0.6595 au". */
+export function physicalLengthText(lengthM: number, massSolar: number): string {
+  const metres = lengthM * massSolar * SOLAR_MASS_LENGTH_M;
+  return formatInUnit("length", metres, naturalLengthUnit(metres));
+}
+
+export interface RayFigureCaptionRequest {
+  /** Undefined when the lens has no mass of its own (an isothermal sphere) or the field does not read. */
+  massSolar: number | undefined;
+  bMinM: number;
+  bMaxM: number;
+  rayCount: number;
+  layout: Sketch["layout"];
+}
+
+/** The caption printed under the figure and stored in its Description chunk. */
+export function rayFigureCaption({ massSolar, bMinM, bMaxM, rayCount, layout }: RayFigureCaptionRequest): string {
+  const mass =
+    massSolar === undefined
+      ? "a Schwarzschild mass M (lengths in units of M = GM/c²)"
+      : `a Schwarzschild mass of ${formatPlain(massSolar)} M☉ (lengths in units of M = GM/c² = ${physicalLengthText(1, massSolar)})`;
+  const shape = layout === "fan" ? "a planar fan" : "a full cylinder";
+  return `Exact light paths past ${mass}: ${rayCount} rays in ${shape}, impact parameters b = ${formatPlain(bMinM)} to ${formatPlain(bMaxM)} M. ${PRODUCT_NAME} ${PRODUCT_VERSION}.`;
+}
