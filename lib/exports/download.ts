@@ -1,3 +1,5 @@
+import { exportStampOf, PROVENANCE_HEADER, provenanceHeaderValue, type Provenance } from "@/lib/exports/provenance";
+
 /** A file-name-safe ASCII slug of a title ("Arcs over the bulge" → "arcs-over-the-bulge"), at most 60 characters. */
 export function fileSlug(title: string): string {
   const slug = title
@@ -19,4 +21,15 @@ export function attachmentHeaders(fileName: string, contentType: string): Record
     "Cache-Control": "private, no-store",
     "X-Content-Type-Options": "nosniff",
   };
+}
+
+/**
+ * The download of a table file (`<stem>.<extension>`): every format carries the provenance record in
+ * the `Arcwright-Provenance` header, and a file that holds nothing but its table (plain CSV) also
+ * names its time of export.
+ */
+export function tableDownload(text: string, { fileStem, file, provenance }: { fileStem: string; file: { extension: string; contentType: string; carriesProvenance: boolean }; provenance: Provenance }): Response {
+  const stamp = file.carriesProvenance ? "" : `-${exportStampOf(provenance)}`;
+  const headers = { ...attachmentHeaders(`${fileSlug(fileStem)}${stamp}.${file.extension}`, file.contentType), [PROVENANCE_HEADER]: provenanceHeaderValue(provenance) };
+  return new Response(text, { headers });
 }

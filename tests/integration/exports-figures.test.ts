@@ -8,7 +8,8 @@ import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { targets } from "@/db/schema";
-import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
+import { PRODUCT_NAME, PRODUCT_VERSION, PROVENANCE_HEADER } from "@/lib/exports/provenance";
+import { tableWriters } from "@/lib/exports/tables/formats";
 import type { Actor } from "@/lib/server/actor";
 import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
 import { technicalSummaryRoutes } from "@/lib/exports/server/routes";
@@ -82,6 +83,35 @@ describe("figure and summary exports: the same role rules as the views", () => {
     const bad = await benchFigure(null, "lens-plane", "format=svg&dl=far");
     expect(bad.status).toBe(400);
     expect(Object.keys((await bad.json()).error.fields)).toEqual(["dl"]);
+  });
+
+  it("the data behind a figure downloads as ECSV, VOTable and CSV through the figure's own route, with its roles and provenance", async () => {
+    const world = await createWorld();
+    const query = `targetId=${world.targetId}&date=2031-06-15`;
+    expect((await skyFigure(world.actors.outsider, world.proposalId, "night", `${query}&format=ecsv`)).status).toBe(404);
+    const night = await skyFigure(world.actors.viewer, world.proposalId, "night", `${query}&format=ecsv`);
+    expect(night.status).toBe(200);
+    expect(night.headers.get("content-disposition")).toBe('attachment; filename="night-tb-ml-0001-2031-06-15-data.ecsv"');
+    const ecsv = await night.text();
+    // ECSV 1.0 (Astropy APE 6): the version line, then the YAML header naming each column with its unit.
+    expect(ecsv.startsWith("# %ECSV 1.0\n")).toBe(true);
+    expect(ecsv).toMatch(/# +- \{ ?name: altitude, unit: deg,/);
+    expect(JSON.parse(night.headers.get(PROVENANCE_HEADER)!).inputs.target).toBe("TB-ML-0001");
+
+    const season = await skyFigure(world.actors.coi, world.proposalId, "season", "start=2031-03-01&nights=7&format=votable");
+    expect(season.status).toBe(200);
+    expect(season.headers.get("content-type")).toBe(tableWriters.votable.contentType);
+    const votable = await season.text();
+    // One row per target and night: the one target of the test proposal over 7 nights.
+    expect(votable.match(/<TR>/g)).toHaveLength(7);
+
+    // A plain CSV holds no provenance: its name carries the time of export (as the table exports do).
+    const csv = await benchFigure(null, "deflection", "format=csv&mass=0.3%20Msun");
+    expect(csv.status).toBe(200);
+    expect(csv.headers.get("content-disposition")).toMatch(/^attachment; filename="bench-deflection-data-\d{8}T\d{6}Z\.csv"$/);
+    const [header, ...rows] = (await csv.text()).trim().split("\r\n");
+    expect(header).toContain("[rad]");
+    expect(rows.length).toBeGreaterThan(100);
   });
 
   it("technical summary PDF: viewer may download it; it holds the target table and the season figure", async () => {

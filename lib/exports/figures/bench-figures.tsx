@@ -14,6 +14,10 @@ import { DeflectionPlot } from "@/lib/figures/deflection-plot";
 import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
 import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { printPalette } from "@/lib/figures/plot-palette";
+import type { Provenance } from "@/lib/exports/provenance";
+import { astrometricTrackData, deflectionData, lensPlaneData, lightCurveData } from "@/lib/exports/figure-data/bench-data";
+import type { DataTable } from "@/lib/exports/tables/data-table";
+import type { ReactElement } from "react";
 import type { PlotExport } from "./figure-response";
 
 export const benchFigureKinds = ["lens-plane", "deflection", "light-curve", "astrometric-track"] as const;
@@ -30,21 +34,35 @@ const titles: Record<BenchFigureKind, string> = {
   "astrometric-track": "Astrometric centroid track",
 };
 
-function plotElement(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined) {
+/** A bench figure's plot element and the table of what it draws (given the export's provenance). */
+function benchFigure(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined): { element: ReactElement; data: (provenance: Provenance) => DataTable } {
   // Exports are drawn in the publication style: white ground, dark ink.
   const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX, palette: printPalette };
   const thetaERad = results.lensPlane.thetaERad;
-  if (kind === "deflection") return <DeflectionPlot curves={deflectionCurves()} {...size} />;
+  if (kind === "deflection") {
+    const curves = deflectionCurves();
+    return { element: <DeflectionPlot curves={curves} {...size} />, data: (provenance) => deflectionData({ curves, provenance }) };
+  }
   if (kind === "lens-plane") {
     const unit = naturalAngleUnit(thetaERad);
-    return <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={angleInUnit(thetaERad, unit)} unitLabel={unitLabel(unit)} {...size} />;
+    return {
+      element: <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={angleInUnit(thetaERad, unit)} unitLabel={unitLabel(unit)} {...size} />,
+      data: (provenance) => lensPlaneData({ layout: results.lensPlane, unit, provenance }),
+    };
   }
   const event = results.event;
   if (event === undefined) throw new AppError("bad_request:figure", "The light curve and astrometric track are drawn for a compact (point) lens.", { lens: ["Choose the point lens for this figure."] });
-  if (kind === "light-curve") return <LightCurvePlot lightCurve={lightCurve(event, schedule)} {...size} />;
+  if (kind === "light-curve") {
+    const curve = lightCurve(event, schedule);
+    return { element: <LightCurvePlot lightCurve={curve} {...size} />, data: (provenance) => lightCurveData({ lightCurve: curve, event, provenance }) };
+  }
   // The same unit choice as the bench: the centroid shift is ~θ_E/3.
   const shiftUnit = naturalAngleUnit(thetaERad / 3);
-  return <AstrometricTrackPlot track={astrometricTrack(event, schedule)} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />;
+  const track = astrometricTrack(event, schedule);
+  return {
+    element: <AstrometricTrackPlot track={track} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />,
+    data: (provenance) => astrometricTrackData({ track, thetaERad, unit: shiftUnit, event, provenance }),
+  };
 }
 
 /**
@@ -68,7 +86,7 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
   // The visits of the sketch's simulated schedule, as the page marks them (none without a cycle).
   const scheduleRequest = kind === "light-curve" || kind === "astrometric-track" ? benchScheduleRequest(parsed.inputs) : null;
   const schedule = scheduleRequest === null ? undefined : benchSchedule(scheduleRequest);
-  const markup = renderStaticSvg(plotElement(kind, computed.results, schedule));
+  const figure = benchFigure(kind, computed.results, schedule);
   const cosmology = sketch.geometry === "redshift" ? { H0: parsePlainNumber(sketch.h0), Om0: parsePlainNumber(sketch.om0) } : undefined;
   const provenance = buildProvenance({
     subject: `Lens bench figure: ${titles[kind]}`,
@@ -77,5 +95,5 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
     cosmology,
     exportedAt,
   });
-  return { markup, title: titles[kind], fileStem: `bench-${kind}`, provenance };
+  return { markup: renderStaticSvg(figure.element), title: titles[kind], fileStem: `bench-${kind}`, provenance, data: figure.data(provenance) };
 }

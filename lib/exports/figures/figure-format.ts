@@ -1,7 +1,9 @@
 import { z } from "zod";
+import { figureDataFormats } from "@/lib/exports/figure-data/formats";
 import { MAX_PNG_DPI, MAX_PNG_WIDTH_PX, MIN_PNG_DPI, MIN_PNG_WIDTH_PX } from "./png-limits";
 
-export const figureFormats = ["svg", "png", "pdf"] as const;
+/** The figure itself (SVG, PNG, PDF), or the data it draws as a table (`figureDataFormats`). */
+export const figureFormats = ["svg", "png", "pdf", ...figureDataFormats] as const;
 export type FigureFormat = (typeof figureFormats)[number];
 
 /** `format`, and for PNG the pixel `width` and the `dpi` written into the file. */

@@ -11,6 +11,7 @@ import { SeasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfSchedules } from "@/lib/figures/season-view";
 import { observingSchedules, type ScheduleConditions } from "@/lib/schedule";
 import { skyQueryToString } from "@/lib/astro/sky-query";
+import { nightData, nightSkyData, seasonData } from "@/lib/exports/figure-data/sky-data";
 import type { PlotExport } from "./figure-response";
 
 export const skyFigureKinds = ["night", "season", "night-sky"] as const;
@@ -69,7 +70,7 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
     inputs: { figure: "night", ...context.inputs, target: target.name, raDeg: target.raDeg, decDeg: target.decDeg, nightDateIso, ...s, method: "astronomy-engine 2.1 Sun and Moon; Pickering 2002 air mass" },
     exportedAt: context.exportedAt,
   });
-  return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance };
+  return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance, data: nightData({ visibility, provenance }) };
 }
 
 /**
@@ -101,7 +102,7 @@ export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDa
     },
     exportedAt: context.exportedAt,
   });
-  return { markup, title, fileStem: `sky-${target.name}-${nightDateIso}`, provenance };
+  return { markup, title, fileStem: `sky-${target.name}-${nightDateIso}`, provenance, data: nightSkyData({ sky, provenance }) };
 }
 
 /**
@@ -114,7 +115,8 @@ export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })
   const shown = targets.slice(0, SEASON_FIGURE_MAX_ROWS);
   const schedules = observingSchedules({ ...conditions, targets: shown });
   const view = seasonViewOfSchedules(shown.map((t) => t.name), schedules);
-  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={shown.map((_, index) => index)} width={SEASON_CHART_WIDTH_PX} palette={printPalette} />);
+  const targetIndices = shown.map((_, index) => index);
+  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={targetIndices} width={SEASON_CHART_WIDTH_PX} palette={printPalette} />);
   const nightCount = view.nightDatesIso.length;
   const { cycleStartNightIso: startNightIso, moon } = conditions;
   const title = `Usable dark hours per night of the observing schedule from ${startNightIso} (${nightCount} nights)`;
@@ -138,6 +140,6 @@ export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })
     },
     exportedAt: context.exportedAt,
   });
-  return { markup, title, fileStem: `season-${startNightIso}`, provenance };
+  return { markup, title, fileStem: `season-${startNightIso}`, provenance, data: seasonData({ view, targetIndices, provenance }) };
 }
 

@@ -1,8 +1,7 @@
 import "server-only";
 import type { GetActor } from "@/lib/server/actor";
 import { endpoint, queryOf } from "@/lib/server/api/endpoint";
-import { attachmentHeaders, fileSlug } from "@/lib/exports/download";
-import { exportStampOf, PROVENANCE_HEADER, provenanceHeaderValue } from "@/lib/exports/provenance";
+import { attachmentHeaders, fileSlug, tableDownload } from "@/lib/exports/download";
 import { tableWriters } from "@/lib/exports/tables/formats";
 import { technicalSummary } from "./summary";
 import { loadTargetTable } from "./target-table";
@@ -20,10 +19,7 @@ export function targetTableExportRoutes(getActor: GetActor) {
     GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
       const { table, format, options } = await loadTargetTable(params, queryOf(request), actor);
       const writer = tableWriters[format];
-      const stamp = writer.carriesProvenance ? "" : `-${exportStampOf(table.provenance)}`;
-      const fileName = `${fileSlug(table.title)}-targets${stamp}.${writer.extension}`;
-      const headers = { ...attachmentHeaders(fileName, writer.contentType), [PROVENANCE_HEADER]: provenanceHeaderValue(table.provenance) };
-      return new Response(writer.write(table, options), { headers });
+      return tableDownload(writer.write(table, options), { fileStem: `${fileSlug(table.title)}-targets`, file: writer, provenance: table.provenance });
     }),
   };
 }
