@@ -33,7 +33,7 @@ export function resvgSvg(svg: string): string {
 }
 
 function attributesOf(text: string): Record<string, string> {
-  return Object.fromEntries([...text.matchAll(/([\w:-]+)="([^"]*)"/g)].map(([, key, value]) => [key, value]));
+  return Object.fromEntries([...text.matchAll(/(?<![\w:-])([\w:-]+)="([^"]*)"/g)].map(([, key, value]) => [key, value]));
 }
 
 const entities: Record<string, string> = { amp: "&", lt: "<", gt: ">", quot: '"', "#x27": "'", "#39": "'" };
