@@ -5,7 +5,7 @@
  */
 import { XMLBuilder } from "fast-xml-parser";
 import Papa from "papaparse";
-import { Document, isMap, isSeq } from "yaml";
+import { Document, isMap, isSeq, visit } from "yaml";
 import type { Provenance } from "@/lib/exports/provenance";
 import { xmlCharacters } from "./xml";
 
@@ -112,7 +112,24 @@ function ecsvHeaderOf(t: DataTable): string {
   const header = new Document({ datatype: t.columns.map(ecsvColumnOf), delimiter: ",", meta: t.provenance }, { version: "1.1" });
   const columns = header.get("datatype");
   if (isSeq(columns)) for (const item of columns.items) if (isMap(item)) item.flow = true;
-  return header.toString({ lineWidth: 0 });
+  // STILTS 3.4 reads the header's bytes as Latin-1, and its YAML parser then refuses a character
+  // whose UTF-8 bytes fall in 0x80–0x9F (U+2212 in "HE 0435−1223", en dashes, Ś): every text with a
+  // character outside ASCII is written double-quoted, where YAML spells it as an escape (YAML 1.1, escape sequences).
+  visit(header, {
+    Scalar(_, node) {
+      if (typeof node.value === "string" && NON_ASCII.test(node.value)) node.type = "QUOTE_DOUBLE";
+    },
+  });
+  return header.toString({ lineWidth: 0 }).replace(NON_ASCII_ALL, yamlEscape);
+}
+
+const NON_ASCII = /[^\x00-\x7F]/;
+const NON_ASCII_ALL = /[^\x00-\x7F]/gu;
+
+/** A character as a YAML double-quoted escape: \uXXXX, or \UXXXXXXXX beyond the Basic Multilingual Plane. */
+function yamlEscape(character: string): string {
+  const codePoint = character.codePointAt(0)!;
+  return codePoint > 0xffff ? `\\U${codePoint.toString(16).toUpperCase().padStart(8, "0")}` : `\\u${codePoint.toString(16).toUpperCase().padStart(4, "0")}`;
 }
 
 /**

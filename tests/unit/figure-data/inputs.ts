@@ -19,9 +19,9 @@ import { bandSkyOf, defaultPhotometrySettings } from "@/lib/workspace/photometry
 export const provenance = buildProvenance({
   subject: "Figure data test",
   reproduceUrl: "http://arcwright.test/bench",
-  // ASCII: STILTS 3.4 reads an ECSV header's bytes as Latin-1 and its YAML parser refuses a text holding
-  // U+2212 and the like (bytes 0x80-0x9F), which the ECSV writer still writes unescaped.
-  inputs: { figure: "test", site: "Southern ridge (invented)" },
+  // Characters whose UTF-8 bytes STILTS 3.4 would misread in an ECSV header unless escaped (U+2212,
+  // an en dash, Ś): astropy and STILTS must read them back as written.
+  inputs: { figure: "test", site: "Southern ridge (invented)", target: "HE 0435−1223 – Śrī Ω" },
   exportedAt: new Date("2031-02-03T04:05:06.000Z"),
 });
 
