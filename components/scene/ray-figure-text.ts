@@ -5,14 +5,13 @@
 import { formatInUnit, formatPlain, naturalLengthUnit } from "@/lib/bench/display-units";
 import { defaultUnits } from "@/lib/bench/parse-sketch";
 import { lensSketches, type Sketch } from "@/lib/bench/sketch-state";
-import type { PngChunk } from "@/lib/exports/png-text";
+import { internationalTextChunk, type PngChunk } from "@/lib/exports/png-text";
 import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { parseMass, SOLAR_MASS_LENGTH_M } from "@/lib/physics";
 import type { PngScale } from "./png-scale";
 
 /** CSS pixels per inch: 1px = 1/96 in (CSS Values and Units Level 3, §5.2 absolute lengths). */
 const CSS_PX_PER_INCH = 96;
-const METRES_PER_INCH = 0.0254;
 
 /**
  * The DPI that prints the figure at its size on screen: the view is `scale` drawing-buffer pixels per
@@ -20,29 +19,11 @@ const METRES_PER_INCH = 0.0254;
  */
 export const figureDpi = (scale: PngScale): number => CSS_PX_PER_INCH * scale;
 
-/** pHYs: pixels per metre on both axes, unit metre (PNG 3rd ed. §11.3.5.3), so the DPI travels with the file. */
-export function physicalSizeChunk(dpi: number): PngChunk {
-  const data = new Uint8Array(9);
-  const view = new DataView(data.buffer);
-  const pixelsPerMetre = Math.round(dpi / METRES_PER_INCH);
-  view.setUint32(0, pixelsPerMetre);
-  view.setUint32(4, pixelsPerMetre);
-  data[8] = 1;
-  return { name: "pHYs", data };
-}
-
 /** Keyword of the caption's text chunk (PNG 3rd ed. §11.3.4.2: "Description", a long description of the image). */
 export const CAPTION_KEYWORD = "Description";
 
-/** The caption as an iTXt chunk (uncompressed, no language tag; PNG 3rd ed. §11.3.4.5), UTF-8 so M☉ survives. */
-export function captionChunk(caption: string): PngChunk {
-  const head = Uint8Array.from(`${CAPTION_KEYWORD}\0\0\0\0\0`, (character) => character.charCodeAt(0));
-  const body = new TextEncoder().encode(caption);
-  const data = new Uint8Array(head.length + body.length);
-  data.set(head);
-  data.set(body, head.length);
-  return { name: "iTXt", data };
-}
+/** The caption as an iTXt chunk (PNG 3rd ed. §11.3.4.5), UTF-8 so M☉ survives. */
+export const captionChunk = (caption: string): PngChunk => internationalTextChunk(CAPTION_KEYWORD, caption);
 
 /**
  * The scale bar's length, units of M: the longest of 1, 2 or 5 × 10ⁿ M that spans at most `maxPx`

@@ -1,5 +1,5 @@
 /**
- * Provenance written into a PNG's text chunks, for figures rendered on the server and for the 3D
+ * Provenance, DPI and captions written into a PNG's chunks, for figures rendered on the server and for the 3D
  * view saved in the browser alike (Uint8Array and TextEncoder only, no Node Buffer).
  */
 import extractChunks from "png-chunks-extract";
@@ -16,13 +16,26 @@ export interface PngChunk {
 }
 
 /** An iTXt chunk, uncompressed, no language tag (PNG 3rd ed. §11.3.3.4), for UTF-8 text. */
-function internationalText(keyword: string, text: string): PngChunk {
+export function internationalTextChunk(keyword: string, text: string): PngChunk {
   const head = Uint8Array.from(`${keyword}\0\0\0\0\0`, (character) => character.charCodeAt(0));
   const body = new TextEncoder().encode(text);
   const data = new Uint8Array(head.length + body.length);
   data.set(head);
   data.set(body, head.length);
   return { name: "iTXt", data };
+}
+
+const METRES_PER_INCH = 0.0254;
+
+/** pHYs: pixels per metre on both axes, unit metre (PNG 3rd ed. §11.3.5.3), so the DPI travels with the file. */
+export function physicalSizeChunk(dpi: number): PngChunk {
+  const data = new Uint8Array(9);
+  const view = new DataView(data.buffer);
+  const pixelsPerMetre = Math.round(dpi / METRES_PER_INCH);
+  view.setUint32(0, pixelsPerMetre);
+  view.setUint32(4, pixelsPerMetre);
+  data[8] = 1;
+  return { name: "pHYs", data };
 }
 
 /** Latin-1 only, as tEXt requires: other characters become "?" (the iTXt copy keeps them). */
@@ -39,7 +52,7 @@ export function provenanceChunks(title: string, provenance: Provenance): PngChun
     encodeText("Creation Time", provenance.exportedAt),
     encodeText("Source", provenance.reproduceUrl),
     encodeText("Comment", latin1(provenanceLines(provenance).join("\n"))),
-    internationalText(PNG_PROVENANCE_KEYWORD, JSON.stringify(provenance)),
+    internationalTextChunk(PNG_PROVENANCE_KEYWORD, JSON.stringify(provenance)),
   ];
 }
 

@@ -1,7 +1,7 @@
 import "server-only";
 import type { Resvg as ResvgClass } from "@resvg/resvg-js";
 import { nodeRequire } from "./node-require";
-import { provenanceChunks, withPngChunks } from "@/lib/exports/png-text";
+import { physicalSizeChunk, provenanceChunks, withPngChunks } from "@/lib/exports/png-text";
 import type { Provenance } from "@/lib/exports/provenance";
 import { BUNDLED_FONT_FAMILY, bundledSfntFiles } from "./bundled-font";
 import { resvgSvg } from "./resvg-text";
@@ -9,18 +9,6 @@ import type { SvgFigure } from "./svg-document";
 
 /** Kept in a value so the bundler does not try to place resvg's native addon. */
 export const RESVG_PACKAGE = ["@resvg", "resvg-js"].join("/");
-
-const METRES_PER_INCH = 0.0254;
-
-/** pHYs: pixels per metre on both axes, unit metre (PNG 3rd ed. §11.3.5.3), so the DPI travels with the file. */
-function physicalSize(dpi: number): { name: string; data: Uint8Array } {
-  const data = Buffer.alloc(9);
-  const pixelsPerMetre = Math.round(dpi / METRES_PER_INCH);
-  data.writeUInt32BE(pixelsPerMetre, 0);
-  data.writeUInt32BE(pixelsPerMetre, 4);
-  data.writeUInt8(1, 8);
-  return { name: "pHYs", data };
-}
 
 /**
  * Renders a figure to PNG with resvg at `widthPx` (height in proportion), drawing text in the bundled
@@ -35,5 +23,5 @@ export function figurePng(figure: SvgFigure, { widthPx, dpi, title, provenance }
     font: { loadSystemFonts: false, fontFiles: bundledSfntFiles(), defaultFontFamily: BUNDLED_FONT_FAMILY, sansSerifFamily: BUNDLED_FONT_FAMILY },
     background: undefined,
   }).render();
-  return withPngChunks(rendered.asPng(), [physicalSize(dpi), ...provenanceChunks(title, provenance)], ["pHYs"]);
+  return withPngChunks(rendered.asPng(), [physicalSizeChunk(dpi), ...provenanceChunks(title, provenance)], ["pHYs"]);
 }

@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { bundleMassSolar, CAPTION_KEYWORD, captionChunk, figureDpi, physicalLengthText, physicalSizeChunk, rayFigureCaption, scaleBarLengthM } from "@/components/scene/ray-figure-text";
+import { bundleMassSolar, CAPTION_KEYWORD, captionChunk, figureDpi, physicalLengthText, rayFigureCaption, scaleBarLengthM } from "@/components/scene/ray-figure-text";
+import { physicalSizeChunk } from "@/lib/exports/png-text";
 import { PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { demoSketch } from "@/lib/bench/sketch-state";
 
