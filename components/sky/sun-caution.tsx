@@ -1,3 +1,5 @@
+import { SUN_POINTING_CAUTION } from "@/lib/astro/sun-caution";
+
 /** The caution shown whenever a pointing would come closer to the Sun than the safe elongation. */
 export function SunCaution({ elongationDeg, safeElongationDeg }: { elongationDeg: number; safeElongationDeg: number }) {
   return (
@@ -6,10 +8,7 @@ export function SunCaution({ elongationDeg, safeElongationDeg }: { elongationDeg
         Too close to the Sun: {elongationDeg.toFixed(1)}° away, safe elongation {safeElongationDeg.toFixed(0)}°. This
         night is marked unusable.
       </p>
-      <p className="mt-1 text-sm">
-        Never point a telescope, finder or camera near the Sun without a proper solar filter and the
-        observatory&apos;s procedures for solar avoidance.
-      </p>
+      <p className="mt-1 text-sm">{SUN_POINTING_CAUTION}</p>
     </div>
   );
 }

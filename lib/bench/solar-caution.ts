@@ -4,6 +4,7 @@
  * mass sits within the Solar System's scale (the only such lens an observer can point at is the Sun).
  */
 
+import { SUN_POINTING_CAUTION } from "@/lib/astro/sun-caution";
 import { AU_M, PARSEC_M } from "@/lib/physics";
 import type { SketchInputs } from "./parse-sketch";
 
@@ -12,8 +13,7 @@ const SOLAR_SYSTEM_LIMIT_PC = (1000 * AU_M) / PARSEC_M;
 
 const SOLAR_MASS_RANGE = { low: 0.8, high: 1.25 } as const;
 
-export const solarCautionText =
-  "This sketch describes deflection by the Sun. Never point a telescope, camera or binoculars at or near the Sun without a proper solar filter, and follow your observatory's procedures for solar observing.";
+export const solarCautionText = `This sketch describes deflection by the Sun. ${SUN_POINTING_CAUTION}`;
 
 export function isSolarSketch(inputs: SketchInputs): boolean {
   if (inputs.lens.model !== "point") return false;

@@ -263,7 +263,7 @@ describe("lens bench", () => {
   it("warns about solar filters when the sketch is deflection by the Sun", async () => {
     const { page, context } = await newPage(browser);
     await page.goto(benchLink({ mass: "1 Msun", dl: "1 au" }));
-    await expect(page.getByTestId("solar-caution").textContent()).resolves.toMatch(/Never point a telescope, camera or binoculars at or near the Sun without a proper solar filter/);
+    await expect(page.getByTestId("solar-caution").textContent()).resolves.toMatch(/Never point a telescope, finder, camera or binoculars at or near the Sun without a proper solar filter/);
     await page.goto(benchLink({}));
     await expect(page.getByTestId("solar-caution").count()).resolves.toBe(0);
     await context.close();

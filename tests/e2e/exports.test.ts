@@ -41,7 +41,8 @@ describe("exports in the browser", () => {
     const xml = await readFile((await table.path())!, "utf8");
     expect(xml).toContain('<VOTABLE version="1.4"');
     expect(xml).toContain('unit="mas" ucd="phys.angSize"');
-    expect(xml).toContain(`${proposalPath}"/>`);
+    // The provenance's link back to the proposal, as an INFO of the RESOURCE.
+    expect(xml).toMatch(new RegExp(`<INFO name="reproduceUrl" value="[^"]*${proposalPath}"`));
 
     // The summary PDF with a chosen target's night chart besides the season chart (ISO 32000-1 §7.5.2: "%PDF-").
     await page.getByLabel("Targets for night charts").selectOption({ label: "K-17 core" });

@@ -36,7 +36,7 @@ async function watchViolations(page: Page): Promise<() => Promise<string[]>> {
 describe("security headers (OWASP HTTP Headers Cheat Sheet; W3C CSP3)", () => {
   it("serves every page with a nonce policy, the nonce on each of its scripts, and a new nonce per response", async () => {
     const nonces = new Set<string>();
-    for (const path of ["/", "/bench", "/sign-in"]) {
+    for (const path of ["/", "/bench", "/sign-in", "/references"]) {
       const response = await fetch(`${baseUrl}${path}`);
       expect(response.status).toBe(200);
       const policy = response.headers.get("content-security-policy") ?? "";
@@ -89,6 +89,8 @@ describe("security headers (OWASP HTTP Headers Cheat Sheet; W3C CSP3)", () => {
     await page.goto(`${proposalPath}/sky`);
     await page.getByRole("heading", { level: 1 }).waitFor();
     await page.goto(`${proposalPath}/import`);
+    await page.getByRole("heading", { level: 1 }).waitFor();
+    await page.goto("/references");
     await page.getByRole("heading", { level: 1 }).waitFor();
     // A bench link traces its bundle on arrival, in workers, and draws it with WebGL.
     await page.goto(`/bench?${sketchToQueryString({ ...demoSketch, rays: "300" })}`);

@@ -4,6 +4,7 @@
  * exposure from the photon budget. Times come from the schedule itself (lib/schedule), the same one the
  * target page shows, rounded to the whole second a calendar holds.
  */
+import { SUN_POINTING_CAUTION } from "@/lib/astro/sun-caution";
 import { airmassPickering } from "@/lib/astro/airmass";
 import { altitudeAzimuth } from "@/lib/astro/horizontal";
 import type { SkySiteInput, SkyTarget } from "@/lib/astro/inputs";
@@ -29,8 +30,6 @@ export interface CalendarEvent {
  * The caution every calendar carries: its events are times to point a telescope (the windows keep the
  * schedule's safe Sun elongation, but a calendar entry is read without the page's warnings).
  */
-export const SUN_CAUTION =
-  "Never point a telescope, finder or camera near the Sun without a proper solar filter, and follow the observatory's procedures for solar avoidance.";
 
 /** The instant of a Julian date (UTC) to the nearest whole second, the resolution of an iCalendar DATE-TIME (RFC 5545 §3.3.5). */
 export function calendarInstant(jdUtc: number): Date {
@@ -82,7 +81,7 @@ function windowDescription(input: TargetCalendarInput, w: TimeSpanJd): string {
   return [
     `${input.target.name} is observable from ${input.site.name} for ${hours.toFixed(2)} h: dark, above the air-mass limit ${input.airmassLimit}, clear of the Sun and the Moon by the proposal's rules, on a night the clear-night fraction keeps.`,
     `Air mass ${start} at the start, ${middle} mid-window, ${end} at the end (Pickering 2002).`,
-    SUN_CAUTION,
+    SUN_POINTING_CAUTION,
   ].join("\n");
 }
 
@@ -106,7 +105,7 @@ function visitDescription(input: TargetCalendarInput, visitIndex: number, budget
     `Planned visit of ${minutes.toFixed(0)} min to ${input.target.name} from ${input.site.name}.`,
     `Air mass ${airmassText(sky.airmass[visitIndex])} at mid-visit (Pickering 2002); ${moonUp ? `the Moon is up, ${sky.moonSeparationDeg[visitIndex].toFixed(0)}° away` : "the Moon is down"}.`,
     exposureText(input, visitIndex, budgetIndex),
-    SUN_CAUTION,
+    SUN_POINTING_CAUTION,
   ].join("\n");
 }
 

@@ -5,7 +5,8 @@
  */
 import ical, { escape } from "ical-generator";
 import { PRODUCT_NAME, PRODUCT_VERSION, provenanceLines, type Provenance } from "@/lib/exports/provenance";
-import { SUN_CAUTION, type CalendarEvent } from "./events";
+import { SUN_POINTING_CAUTION } from "@/lib/astro/sun-caution";
+import type { CalendarEvent } from "./events";
 
 /** The media type of an iCalendar file (RFC 5545 §8.1). */
 export const CALENDAR_CONTENT_TYPE = "text/calendar; charset=utf-8";
@@ -25,7 +26,7 @@ export function calendarIcs({ name, site, events, provenance }: CalendarFile): s
     prodId: { company: PRODUCT_NAME, product: `${PRODUCT_NAME} ${PRODUCT_VERSION}`, language: "EN" },
     // ical-generator 11.1.2 writes X-WR-CALDESC as given, unlike an event's DESCRIPTION: a raw line
     // break would end the content line, so the text is escaped here (RFC 5545 §3.3.11).
-    description: escape([SUN_CAUTION, "", ...provenanceLines(provenance)].join("\n"), false),
+    description: escape([SUN_POINTING_CAUTION, "", ...provenanceLines(provenance)].join("\n"), false),
   });
   const stamp = new Date(provenance.exportedAt);
   for (const event of events) {
