@@ -1,7 +1,8 @@
 import { provenanceLines } from "@/lib/exports/provenance";
 import { cellOf, cellText, type ChosenColumn } from "./columns";
 import { latexText } from "./latex-text";
-import { singleLine, type TargetTable } from "./table";
+import { sexagesimalColumns, singleLine, type SexagesimalColumn, type TargetTable } from "./table";
+import type { TargetView } from "@/lib/workspace/target-view";
 
 /**
  * How a LaTeX table meets the text width (our names): `shrink` scales the table down to the line
@@ -31,17 +32,65 @@ const CHARACTER_WIDTH_PT = 5;
 /** 2\tabcolsep of the standard classes: the space around each column. */
 const COLUMN_PADDING_PT = 12;
 
-/** Text left, numbers right (common practice). */
-const sideOf = ({ column }: ChosenColumn): "l" | "r" => (column.kind === "text" ? "l" : "r");
-
-function alignmentOf(chosen: ChosenColumn): string {
-  return chosen.column.isParagraph ? `p{${PARAGRAPH_WIDTH_CM}cm}` : sideOf(chosen);
+/**
+ * A column as the LaTeX table sets it: a chosen export column, or the sexagesimal form of RA or Dec
+ * written after its degrees (`sexagesimalColumns`).
+ */
+interface LatexColumn {
+  label: string;
+  /** The unit in LaTeX, "" for none. */
+  latexUnit: string;
+  /** The unit's printed length in characters, for width estimates. */
+  unitLength: number;
+  /** Text left, numbers right (common practice). */
+  side: "l" | "r";
+  isParagraph: boolean;
+  /** The cell as LaTeX source. */
+  latex: (row: TargetView) => string;
+  /** The cell's printed length in characters, for width estimates. */
+  printedLength: (row: TargetView) => number;
 }
 
-function cellLatex(row: TargetTable["rows"][number], chosen: ChosenColumn): string {
-  const value = cellOf(row, chosen.column);
-  if (value === null) return "--";
-  return typeof value === "number" ? latexNumber(cellText(value, chosen)) : latexText(singleLine(value));
+function chosenLatexColumn(chosen: ChosenColumn): LatexColumn {
+  const { column } = chosen;
+  return {
+    label: column.label,
+    latexUnit: column.latexUnit,
+    unitLength: column.unit.length,
+    side: column.kind === "text" ? "l" : "r",
+    isParagraph: column.isParagraph === true,
+    latex: (row) => {
+      const value = cellOf(row, column);
+      if (value === null) return "--";
+      return typeof value === "number" ? latexNumber(cellText(value, chosen)) : latexText(singleLine(value));
+    },
+    printedLength: (row) => cellText(cellOf(row, column), chosen).length,
+  };
+}
+
+/** "17:45:40.036" as it is; "-29:00:28.17" with a true minus before the colons, which math mode would space. */
+function sexagesimalLatexColumn({ after, column, text }: SexagesimalColumn): LatexColumn {
+  return {
+    label: column.label,
+    latexUnit: "",
+    unitLength: 0,
+    side: "r",
+    isParagraph: false,
+    latex: (row) => text(row[after] as number).replace(/^-/, "$-$"),
+    printedLength: (row) => text(row[after] as number).length,
+  };
+}
+
+/** The table's columns in order: each chosen column, RA and Dec each followed by their sexagesimal form. */
+function latexColumnsOf(table: TargetTable): LatexColumn[] {
+  return table.columns.flatMap((chosen) => {
+    const companion = sexagesimalColumns.find(({ after }) => after === chosen.column.key);
+    return companion === undefined ? [chosenLatexColumn(chosen)] : [chosenLatexColumn(chosen), sexagesimalLatexColumn(companion)];
+  });
+}
+
+function alignmentOf(column: LatexColumn): string {
+  return column.isParagraph ? `p{${PARAGRAPH_WIDTH_CM}cm}` : column.side;
 }
 
 /** Labels longer than this many characters are set on two lines. */
@@ -57,53 +106,49 @@ function labelLines(label: string): string[] {
 }
 
 /** A header cell: a two-line label stacked in a tabular of its own (no package needed), aligned as its column. */
-function headerLatex(chosen: ChosenColumn): string {
-  const lines = labelLines(chosen.column.label).map(latexText);
+function headerLatex(column: LatexColumn): string {
+  const lines = labelLines(column.label).map(latexText);
   if (lines.length === 1) return lines[0];
-  return `\\begin{tabular}[b]{@{}${sideOf(chosen)}@{}}${lines.join(" \\\\ ")}\\end{tabular}`;
+  return `\\begin{tabular}[b]{@{}${column.side}@{}}${lines.join(" \\\\ ")}\\end{tabular}`;
 }
 
 /** A column's estimated typeset width in points: its widest header line or cell, plus padding. */
-function estimatedWidthPt(table: TargetTable, chosen: ChosenColumn): number {
-  if (chosen.column.isParagraph) return PARAGRAPH_WIDTH_CM * PT_PER_CM + COLUMN_PADDING_PT;
-  const lengths = [
-    ...labelLines(chosen.column.label).map((line) => line.length),
-    chosen.column.unit.length + 2,
-    ...table.rows.map((row) => cellText(cellOf(row, chosen.column), chosen).length),
-  ];
+function estimatedWidthPt(table: TargetTable, column: LatexColumn): number {
+  if (column.isParagraph) return PARAGRAPH_WIDTH_CM * PT_PER_CM + COLUMN_PADDING_PT;
+  const lengths = [...labelLines(column.label).map((line) => line.length), column.unitLength + 2, ...table.rows.map(column.printedLength)];
   return Math.max(...lengths) * CHARACTER_WIDTH_PT + COLUMN_PADDING_PT;
 }
 
 /** The columns cut into parts that each fit `SPLIT_TEXT_WIDTH_PT` by estimate, the first column leading each part. */
-function columnParts(table: TargetTable): ChosenColumn[][] {
-  const [first, ...rest] = table.columns;
+function columnParts(table: TargetTable, columns: LatexColumn[]): LatexColumn[][] {
+  const [first, ...rest] = columns;
   const firstWidthPt = estimatedWidthPt(table, first);
-  const parts: ChosenColumn[][] = [[first]];
+  const parts: LatexColumn[][] = [[first]];
   let widthPt = firstWidthPt;
-  for (const chosen of rest) {
-    const columnWidthPt = estimatedWidthPt(table, chosen);
+  for (const column of rest) {
+    const columnWidthPt = estimatedWidthPt(table, column);
     if (widthPt + columnWidthPt > SPLIT_TEXT_WIDTH_PT && parts.at(-1)!.length > 1) {
       parts.push([first]);
       widthPt = firstWidthPt;
     }
-    parts.at(-1)!.push(chosen);
+    parts.at(-1)!.push(column);
     widthPt += columnWidthPt;
   }
   return parts;
 }
 
 /** A `tabular` of some columns: labels, then units (when any column has one), then the rows. */
-function tabular(table: TargetTable, columns: ChosenColumn[]): string[] {
+function tabular(table: TargetTable, columns: LatexColumn[]): string[] {
   const labels = columns.map(headerLatex).join(" & ");
-  const hasUnits = columns.some(({ column }) => column.latexUnit !== "");
-  const units = columns.map(({ column }) => (column.latexUnit === "" ? "" : `(${column.latexUnit})`)).join(" & ");
+  const hasUnits = columns.some((column) => column.latexUnit !== "");
+  const units = columns.map((column) => (column.latexUnit === "" ? "" : `(${column.latexUnit})`)).join(" & ");
   return [
     `\\begin{tabular}{${columns.map(alignmentOf).join("")}}`,
     "\\hline",
     `${labels} \\\\`,
     ...(hasUnits ? [`${units} \\\\`] : []),
     "\\hline",
-    ...table.rows.map((row) => `${columns.map((chosen) => cellLatex(row, chosen)).join(" & ")} \\\\`),
+    ...table.rows.map((row) => `${columns.map((column) => column.latex(row)).join(" & ")} \\\\`),
     "\\hline",
     "\\end{tabular}",
   ];
@@ -144,13 +189,15 @@ function preambleLines(fit: LatexFit): string[] {
  * The table as LaTeX: `%` comment lines with the provenance and the preamble the document needs,
  * then one `table` float (a `sidewaystable` for `landscape`, several for `split`) with a caption
  * and a label (`tab:targets`, then `tab:targets-2`, … for the parts of a split). The table's
- * source is printable ASCII whatever the target names hold (`latexText`). Text columns left-aligned
+ * source is printable ASCII whatever the target names hold (`latexText`). RA and Dec are each followed
+ * by their sexagesimal form, as proposal forms ask for them. Text columns left-aligned
  * (a paragraph column wrapped), numbers right; a value the model does not give is an en dash.
  */
 export function targetTableLatex(table: TargetTable, fit: LatexFit = "shrink"): string {
   const comments = provenanceLines(table.provenance).map((line) => `% ${singleLine(line)}`);
   const caption = `Targets of the proposal \`\`${latexText(singleLine(table.title))}''.`;
-  const parts = fit === "split" ? columnParts(table) : [table.columns];
+  const columns = latexColumnsOf(table);
+  const parts = fit === "split" ? columnParts(table, columns) : [columns];
   const floats = parts.flatMap((columns, index) => {
     const partCaption = parts.length === 1 ? caption : `${caption} Part ${index + 1} of ${parts.length}.`;
     const label = index === 0 ? "tab:targets" : `tab:targets-${index + 1}`;

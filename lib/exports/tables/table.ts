@@ -24,7 +24,7 @@ export const RA_SECOND_DECIMALS = 3;
 export const DEC_SECOND_DECIMALS = 2;
 
 /** A sexagesimal text column written right after the decimal-degree column it restates. */
-interface SexagesimalColumn {
+export interface SexagesimalColumn {
   after: ExportColumnKey;
   column: DataColumn;
   text: (degrees: number) => string;

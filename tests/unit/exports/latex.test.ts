@@ -4,7 +4,7 @@ import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/
 import { tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
 import { targetTableLatex } from "@/lib/exports/tables/latex";
 import { latexText } from "@/lib/exports/tables/latex-text";
-import type { TargetTable } from "@/lib/exports/tables/table";
+import { sexagesimalColumns, type TargetTable } from "@/lib/exports/tables/table";
 import { exportProvenance, exportRows } from "./fixtures";
 import { bracesBalance } from "./latex-support";
 
@@ -62,7 +62,7 @@ describe("LaTeX table layout", () => {
   it("is a table float with a caption and a label, scaled down only when wider than the line", () => {
     const tex = targetTableLatex(table);
     expect(tex).toContain("\\begin{table}\n\\centering\n\\caption{Targets of the proposal ``Arcs \\& ``$\\Omega$''''.}\n\\label{tab:targets}");
-    expect(tex).toContain("\\resizebox*{!}{\\ifdim\\totalheight>0.9\\textheight0.9\\textheight\\else\\totalheight\\fi}{%\n\\resizebox{\\ifdim\\width>\\linewidth\\linewidth\\else\\width\\fi}{!}{%\n\\begin{tabular}{lrrlrrr}");
+    expect(tex).toContain("\\resizebox*{!}{\\ifdim\\totalheight>0.9\\textheight0.9\\textheight\\else\\totalheight\\fi}{%\n\\resizebox{\\ifdim\\width>\\linewidth\\linewidth\\else\\width\\fi}{!}{%\n\\begin{tabular}{lrrrrlrrr}");
     expect(tex).toContain("\\end{tabular}\n}}\n\\end{table}\n");
     expect(tex).toContain("% Preamble: \\usepackage[T1]{fontenc} \\usepackage{lmodern} \\usepackage{graphicx}\n");
     expect(bracesBalance(tex)).toBe(true);
@@ -70,14 +70,17 @@ describe("LaTeX table layout", () => {
 
   it("writes negative numbers with a true minus (the declination had a hyphen) and exponents as ×10^e", () => {
     const rows = targetTableLatex(table).split("\n").filter((line) => line.endsWith("\\\\"));
-    expect(rows[2]).toBe("TB-ML-0001 & 269.301667 & $-29.2013889$ & point & 0.6372 & $1.235\\times10^{-7}$ & 2 \\\\");
-    expect(rows[3]).toContain("& 150.1 & 2.2 & sis & 1031 & -- & 5 \\\\");
+    // RA and Dec each followed by their sexagesimal form, the Dec's minus a true one before the colons.
+    expect(rows[2]).toBe("TB-ML-0001 & 269.301667 & 17:57:12.400 & $-29.2013889$ & $-$29:12:05.00 & point & 0.6372 & $1.235\\times10^{-7}$ & 2 \\\\");
+    expect(rows[3]).toContain("& 150.1 & 10:00:24.000 & 2.2 & +02:12:00.00 & sis & 1031 & -- & 5 \\\\");
   });
 
   it("puts the units on a second header row and sets a long label on two lines", () => {
     const rows = targetTableLatex(table).split("\n").filter((line) => line.endsWith("\\\\"));
-    expect(rows[0]).toBe("Name & RA (ICRS) & Dec (ICRS) & Lens model & \\begin{tabular}[b]{@{}r@{}}Einstein \\\\ radius\\end{tabular} & Time delay & Priority \\\\");
-    expect(rows[1]).toBe(" & (deg) & (deg) &  & (mas) & (d) &  \\\\");
+    expect(rows[0]).toBe(
+      "Name & RA (ICRS) & \\begin{tabular}[b]{@{}r@{}}RA (ICRS) \\\\ hms\\end{tabular} & Dec (ICRS) & \\begin{tabular}[b]{@{}r@{}}Dec (ICRS) \\\\ dms\\end{tabular} & Lens model & \\begin{tabular}[b]{@{}r@{}}Einstein \\\\ radius\\end{tabular} & Time delay & Priority \\\\",
+    );
+    expect(rows[1]).toBe(" & (deg) &  & (deg) &  &  & (mas) & (d) &  \\\\");
   });
 
   it("turns a landscape table on its page with sidewaystable and names the rotating package it needs", () => {
@@ -92,8 +95,8 @@ describe("LaTeX table layout", () => {
     const tex = targetTableLatex({ ...table, columns: all }, "split");
     const alignments = [...tex.matchAll(/^\\begin\{tabular\}\{(.+)\}$/gm)].map((match) => match[1].replace(/p\{7cm\}/, "p"));
     expect(alignments.length).toBeGreaterThan(3);
-    // Every column once, the name column leading each part.
-    expect(alignments.reduce((count, alignment) => count + alignment.length - 1, 1)).toBe(all.length);
+    // Every column once (RA and Dec with their sexagesimal forms), the name column leading each part.
+    expect(alignments.reduce((count, alignment) => count + alignment.length - 1, 1)).toBe(all.length + sexagesimalColumns.length);
     expect([...tex.matchAll(/\\label\{(.+)\}/g)].map((match) => match[1])).toEqual(alignments.map((_, i) => (i === 0 ? "tab:targets" : `tab:targets-${i + 1}`)));
     expect(tex).toContain(`Part ${alignments.length} of ${alignments.length}.}`);
     const firstCells = tex.split("\n").filter((line) => line.startsWith("TB-ML-0001 &"));

@@ -113,7 +113,8 @@ describe("LaTeX export", () => {
   it("is a tabular whose braces balance, every row as many cells as the alignment has columns (labels, units, two targets)", () => {
     expect(bracesBalance(tex)).toBe(true);
     const alignment = /\\begin\{tabular\}\{([lrc]+)\}/.exec(tex)?.[1];
-    expect(alignment).toBe("lrlrrrlr");
+    // RA followed by its sexagesimal form.
+    expect(alignment).toBe("lrrlrrrlr");
     const body = tex.slice(tex.indexOf("\\hline"), tex.lastIndexOf("\\end{tabular}"));
     const rows = body.split("\n").filter((line) => line.endsWith("\\\\"));
     expect(rows).toHaveLength(4);
