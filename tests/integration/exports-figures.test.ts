@@ -8,7 +8,7 @@ import { eq } from "drizzle-orm";
 import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { targets } from "@/db/schema";
-import { PRODUCT_NAME, PRODUCT_VERSION, PROVENANCE_HEADER } from "@/lib/exports/provenance";
+import { PRODUCT_NAME, PRODUCT_VERSION, PROVENANCE_HEADER, type Provenance } from "@/lib/exports/provenance";
 import { tableWriters } from "@/lib/exports/tables/formats";
 import type { Actor } from "@/lib/server/actor";
 import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
@@ -96,7 +96,10 @@ describe("figure and summary exports: the same role rules as the views", () => {
     // ECSV 1.0 (Astropy APE 6): the version line, then the YAML header naming each column with its unit.
     expect(ecsv.startsWith("# %ECSV 1.0\n")).toBe(true);
     expect(ecsv).toMatch(/# +- \{ ?name: altitude, unit: deg,/);
-    expect(JSON.parse(night.headers.get(PROVENANCE_HEADER)!).inputs.target).toBe("TB-ML-0001");
+    const provenance = JSON.parse(night.headers.get(PROVENANCE_HEADER)!) as Provenance;
+    expect(provenance.inputs.target).toBe("TB-ML-0001");
+    // The figure's own methods are cited beside the constants' (lib/citations): air mass and ephemerides.
+    expect(provenance.references.map((reference) => reference.key)).toEqual(expect.arrayContaining(["pickering2002", "astronomyengine", "hogg1999"]));
 
     const season = await skyFigure(world.actors.coi, world.proposalId, "season", "start=2031-03-01&nights=7&format=votable");
     expect(season.status).toBe(200);

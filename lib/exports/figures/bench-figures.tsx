@@ -8,6 +8,7 @@ import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot
 import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { AppError } from "@/lib/errors";
 import { summaryOf } from "@/lib/workspace/issue-words";
+import type { CitationKey } from "@/lib/citations/references";
 import { buildProvenance } from "@/lib/exports/provenance";
 import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
 import { DeflectionPlot } from "@/lib/figures/deflection-plot";
@@ -26,6 +27,14 @@ export type BenchFigureKind = (typeof benchFigureKinds)[number];
 /** The bench draws its plots at this size (CSS px); exports keep it so labels sit as on screen. */
 export const BENCH_PLOT_WIDTH_PX = 540;
 export const BENCH_PLOT_HEIGHT_PX = 340;
+
+/** The methods and tables each bench figure is drawn from (lib/citations). */
+const figureReferences: Record<BenchFigureKind, readonly CitationKey[]> = {
+  "lens-plane": ["paczynski1986", "schneider1992", "virbhadra2000", "okabe2008"],
+  deflection: ["darwin1959", "carlson1995", "keeton2005", "bozza2002", "okabe2008"],
+  "light-curve": ["paczynski1986", "wittmao1994", "lee2009", "astronomyengine", "pickering2002", "okabe2008"],
+  "astrometric-track": ["walker1995", "miyamoto1995", "hog1995", "astronomyengine", "pickering2002", "okabe2008"],
+};
 
 const titles: Record<BenchFigureKind, string> = {
   "lens-plane": "Lens plane: source, images and Einstein ring",
@@ -93,6 +102,7 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
     reproduceUrl: new URL(`/bench?${sketchToQueryString(sketch)}`, appOrigin).toString(),
     inputs: { figure: kind, ...sketch },
     cosmology,
+    references: figureReferences[kind],
     exportedAt,
   });
   return { markup: renderStaticSvg(figure.element), title: titles[kind], fileStem: `bench-${kind}`, provenance, data: figure.data(provenance) };

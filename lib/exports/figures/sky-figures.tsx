@@ -68,6 +68,7 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
     subject: `Night visibility: ${title}`,
     reproduceUrl: new URL(`/sky?${query}`, context.appOrigin).toString(),
     inputs: { figure: "night", ...context.inputs, target: target.name, raDeg: target.raDeg, decDeg: target.decDeg, nightDateIso, ...s, method: "astronomy-engine 2.1 Sun and Moon; Pickering 2002 air mass" },
+    references: ["astronomyengine", "pickering2002", "saemundsson1986", "okabe2008"],
     exportedAt: context.exportedAt,
   });
   return { markup, title, fileStem: `night-${target.name}-${nightDateIso}`, provenance, data: nightData({ visibility, provenance }) };
@@ -100,6 +101,7 @@ export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDa
       extinctionV: bandSky.extinctionV,
       method: "Krisciunas & Schaefer 1991 eq. 2 dark sky and eq. 15 moonlight (V, carried to the band by the Sun's colour), summed in flux; astronomy-engine 2.1 Sun and Moon",
     },
+    references: ["krisciunas1991", "willmer2018", "benn1998", "astronomyengine", "okabe2008"],
     exportedAt: context.exportedAt,
   });
   return { markup, title, fileStem: `sky-${target.name}-${nightDateIso}`, provenance, data: nightSkyData({ sky, provenance }) };
@@ -138,6 +140,7 @@ export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })
       targets: shown.map((t) => `${t.name} (${t.raDeg}, ${t.decDeg})`).join("; "),
       targetsLeftOut: targets.length - shown.length,
     },
+    references: ["astronomyengine", "pickering2002", "nunez2018"],
     exportedAt: context.exportedAt,
   });
   return { markup, title, fileStem: `season-${startNightIso}`, provenance, data: seasonData({ view, targetIndices, provenance }) };

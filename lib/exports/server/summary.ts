@@ -81,6 +81,8 @@ export async function technicalSummary(params: unknown, query: Record<string, st
     subject: `Technical summary of the proposal "${table.title}"`,
     reproduceUrl: new URL(`/proposals/${proposalId}/summary`, serverEnv().NEXTAUTH_URL).toString(),
     inputs: { ...table.provenance.inputs, figures: figures.join(","), nightTargets: nightTargets.join(",") || null, night: night ?? null },
+    // The table's and every bundled figure's.
+    references: [...table.provenance.references, ...plots.flatMap((plot) => plot.provenance.references)].map((reference) => reference.key),
   });
   return { pdf: await technicalSummaryPdf(table, plots, provenance, { author: actor?.name }), title: table.title };
 }

@@ -1,4 +1,6 @@
 import "server-only";
+import type { CitationKey } from "@/lib/citations/references";
+import { feasibilityRuleReferences } from "@/lib/lensing/feasibility-rules";
 import { asc, eq } from "drizzle-orm";
 import { z } from "zod";
 import { dbClient } from "@/db/client";
@@ -24,6 +26,18 @@ const tableQuerySchema = tableWriteOptionsSchema.extend({
   columns: z.string().optional(),
   digits: z.string().optional(),
 });
+
+/**
+ * The methods the table's computed columns come from (lib/citations): the lensing layer's solutions
+ * and science cases, every feasibility rule's source, the simulated schedule and the photon budget.
+ */
+const TARGET_TABLE_REFERENCES: readonly CitationKey[] = [
+  ...new Set([
+    ...feasibilityRuleReferences.flatMap((rule) => rule.references),
+    ...(["paczynski1986", "refsdal1964", "schneider1992", "wittmao1994", "lee2009", "gould2000", "walker1995", "wozniak1997"] as const),
+    ...(["astronomyengine", "pickering2002", "krisciunas1991", "willmer2018", "merline1995", "howell2006", "moffat1969", "lindegren1978"] as const),
+  ]),
+];
 
 /**
  * A proposal's whole target list (priority, then name) with the chosen columns and the provenance
@@ -70,6 +84,7 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
       rowCount: rows.length,
       order: "priority, name",
     },
+    references: TARGET_TABLE_REFERENCES,
   });
   return { table: { title: proposal.title, columns, rows: rows.map(targetViewOf), provenance }, format, options: { fit } };
 }
