@@ -62,6 +62,19 @@ export interface PointLensFitOptions {
    * Both signs of u0 are tried.
    */
   parallax?: { raDeg: number; decDeg: number; t0ParDays?: number };
+  /**
+   * Called after every Levenberg–Marquardt round (ROUND_ITERATIONS iterations) and at the end of each
+   * search, with the share of the planned searches done (0..1, never decreasing) and what the fit is
+   * doing, in words.
+   */
+  onProgress?: (fraction: number, words: string) => void;
+  /**
+   * Checked before every round (an `AbortSignal` fits): once `aborted`, the fit stops and returns a
+   * result with `cancelled: true`, `converged: false` and no parameters (NaN). A fit in a web worker
+   * cannot see a flag set by the page while it runs (its loop never yields): the page ends the worker
+   * instead (components/lensing/fit-client.ts).
+   */
+  signal?: { readonly aborted: boolean };
 }
 
 export interface DatasetFit {
@@ -79,6 +92,8 @@ export interface DatasetFit {
 export interface PointLensFit {
   /** False when the fit did not reach a minimum; `reason` then says why in words. */
   converged: boolean;
+  /** True when `signal` stopped the fit: `reason` says so, and every parameter is NaN. */
+  cancelled?: boolean;
   reason: string | null;
   /**
    * Time of closest approach (days, the points' time scale), impact parameter (θ_E; ≥ 0 without
@@ -371,8 +386,34 @@ function bounds(problem: Problem): { min: number[]; max: number[] } {
   return { min, max };
 }
 
+/** Thrown inside the fit when `signal` is aborted; fitPointLens turns it into a cancelled result. */
+class FitCancelled extends Error {}
+
+/** Progress over the searches a fit plans (`planned`), reported after each round; the cancellation check. */
+class FitProgress {
+  private done = 0;
+  constructor(
+    private planned: number,
+    private readonly options: Pick<PointLensFitOptions, "onProgress" | "signal">,
+  ) {}
+
+  /** Before round `round` of the current search: stops the fit when cancelled, else reports. */
+  round(round: number, stage: string): void {
+    if (this.options.signal?.aborted) throw new FitCancelled();
+    if (round === 0 || !this.options.onProgress) return;
+    const fraction = Math.min(1, (this.done + round / MAX_ROUNDS) / this.planned);
+    this.options.onProgress(fraction, `${stage}: search ${this.done + 1} of ${this.planned}, ${round * ROUND_ITERATIONS} iterations`);
+  }
+
+  searchDone(stage: string): void {
+    this.done += 1;
+    this.planned = Math.max(this.planned, this.done);
+    this.options.onProgress?.(this.done / this.planned, `${stage}: ${this.done} of ${this.planned} searches done`);
+  }
+}
+
 /** Levenberg–Marquardt by the package from `start`, in rounds until the predicted χ² decrease is negligible. */
-function search(problem: Problem, start: number[]): Search {
+function search(problem: Problem, start: number[], progress: FitProgress, stage: string): Search {
   const { n, p } = problem;
   const { min, max } = bounds(problem);
   const x = Float64Array.from({ length: n }, (_, i) => i);
@@ -398,6 +439,7 @@ function search(problem: Problem, start: number[]): Search {
   let previousChi2 = problem.chi2At(q);
   let lastFall = Number.NaN;
   for (let round = 0; round < MAX_ROUNDS; round++) {
+    progress.round(round, stage);
     const jac = problem.projectedJacobian(q);
     scale.fill(0);
     for (let k = 0; k < jac.length; k++) scale[k % p] += jac[k] * jac[k];
@@ -489,8 +531,12 @@ interface Fitted {
   iterations: number;
 }
 
-function searchAll(problem: Problem, starts: number[][], iterationsBefore: number): Fitted {
-  const searches = starts.map((start) => search(problem, start));
+function searchAll(problem: Problem, starts: number[][], iterationsBefore: number, progress: FitProgress, stage: string): Fitted {
+  const searches = starts.map((start) => {
+    const result = search(problem, start, progress, stage);
+    progress.searchDone(stage);
+    return result;
+  });
   return { problem, best: bestOf(searches), iterations: iterationsBefore + searches.reduce((sum, s) => sum + s.iterations, 0) };
 }
 
@@ -499,9 +545,9 @@ function searchAll(problem: Problem, starts: number[][], iterationsBefore: numbe
  * the parallax from that with both signs of u0. With `previous` (same spec), one search from its
  * best point in its frame (the refit with rescaled errors).
  */
-function fitModel(data: CheckedPhotometry, spec: ModelSpec, errorScale: number[], previous: Fitted | null): Fitted {
+function fitModel(data: CheckedPhotometry, spec: ModelSpec, errorScale: number[], previous: Fitted | null, progress: FitProgress): Fitted {
   const magnify: Magnify = (u, rho) => finiteSourceMagnification(u, rho, spec.limbDarkeningU);
-  if (previous) return searchAll(new Problem(data, previous.problem.frame, magnify, errorScale), [previous.best.q], 0);
+  if (previous) return searchAll(new Problem(data, previous.problem.frame, magnify, errorScale), [previous.best.q], 0, progress, "Refit with the rescaled errors");
   let lo = Infinity;
   let hi = -Infinity;
   for (const value of data.tDays) {
@@ -511,13 +557,13 @@ function fitModel(data: CheckedPhotometry, spec: ModelSpec, errorScale: number[]
   const frame: Frame = { tRefDays: (lo + hi) / 2, tScaleDays: 10, finite: false, parallax: null };
   const pointSource = new Problem(data, frame, magnify, errorScale);
   const gridStarts = pointSourceStarts(pointSource);
-  let fitted = searchAll(pointSource, gridStarts, 0);
+  let fitted = searchAll(pointSource, gridStarts, 0, progress, "Point source");
   if (spec.finite) {
     // From the point-source fit and from the best grid point, each with ρ a multiple of u0: where the
     // source's disk shapes the peak, the point-source fit itself can be far off.
     const lnRho = (u0: number, ratio: number) => Math.log(Math.min(RHO_MAX, Math.max(RHO_MIN, ratio * u0)));
     const starts = [fitted.best.q, gridStarts[0]].flatMap((q) => START_RHO_PER_U0.map((ratio) => [...q.slice(0, 3), lnRho(q[1], ratio)]));
-    fitted = searchAll(new Problem(data, { ...frame, finite: true }, magnify, errorScale), starts, fitted.iterations);
+    fitted = searchAll(new Problem(data, { ...frame, finite: true }, magnify, errorScale), starts, fitted.iterations, progress, "Finite source");
   }
   if (spec.parallax) {
     const t0ParDays = spec.parallax.t0ParDays ?? frame.tRefDays + fitted.best.q[0] * frame.tScaleDays;
@@ -525,7 +571,7 @@ function fitModel(data: CheckedPhotometry, spec: ModelSpec, errorScale: number[]
     const parallaxFrame: Frame = { ...fitted.problem.frame, parallax: { ...offsets, t0ParDays } };
     const q = fitted.best.q;
     const starts = [1, -1].flatMap((sign) => START_PI_E.map((piE) => [q[0], sign * Math.abs(q[1]), ...q.slice(2), ...piE]));
-    fitted = searchAll(new Problem(data, parallaxFrame, magnify, errorScale), starts, fitted.iterations);
+    fitted = searchAll(new Problem(data, parallaxFrame, magnify, errorScale), starts, fitted.iterations, progress, "Parallax");
   }
   return fitted;
 }
@@ -605,12 +651,31 @@ function checkJulianDates(tDays: Float64Array): void {
   if (row >= 0) throw new FitInputError(`Row ${row + 1}: a parallax fit needs times as Julian dates between 1900 and 2100 (got ${tDays[row]}).`, row + 1, "time");
 }
 
+/** What a cancelled fit returns: no parameter (NaN), no covariance, and the reason in words. */
+function cancelledFit(data: CheckedPhotometry, dof: number): PointLensFit {
+  return {
+    converged: false,
+    cancelled: true,
+    reason: "The fit was cancelled before it finished; nothing was fitted.",
+    t0Days: Number.NaN,
+    u0: Number.NaN,
+    tEDays: Number.NaN,
+    datasets: data.datasets.map((dataset, d) => ({ dataset, points: data.counts[d], sourceFlux: Number.NaN, blendFlux: Number.NaN, chi2: Number.NaN, errorScale: Number.NaN })),
+    chi2: Number.NaN,
+    dof,
+    parameterOrder: [],
+    covariance: [],
+    iterations: 0,
+  };
+}
+
 /**
  * Fits a point-lens light curve to `points` (time in days on one scale, e.g. a Julian date; flux
  * and 1σ error in one linear unit per dataset). Without options: point source, blending per dataset,
  * the stated errors (no rescaling). Returns the best fit, χ², degrees of freedom and the covariance
  * (`parameterOrder` names its rows); a fit that does not converge is returned with
- * `converged: false` and the reason. Throws `FitInputError` for unusable photometry (fit-input.ts).
+ * `converged: false` and the reason. `onProgress` hears how far it is; `signal` stops it (then
+ * `cancelled: true`, no parameters). Throws `FitInputError` for unusable photometry (fit-input.ts).
  * Method, sources and accuracy: the file's comment.
  */
 export function fitPointLens(points: readonly PhotometryPoint[], options: PointLensFitOptions = {}): PointLensFit {
@@ -626,14 +691,23 @@ export function fitPointLens(points: readonly PhotometryPoint[], options: PointL
   const n = data.tDays.length;
   const dof = n - nonlinear - 2 * data.datasets.length;
   let errorScale = data.datasets.map(() => 1);
-  let fitted = fitModel(data, spec, errorScale, null);
-  let iterations = fitted.iterations;
-  if (options.rescaleErrors && fitted.best.converged) {
-    fitted.problem.chi2At(fitted.best.q);
-    const chi2 = datasetChi2(fitted.problem);
-    errorScale = chi2.map((value, d) => Math.sqrt(value / (data.counts[d] - 2 - (nonlinear * data.counts[d]) / n)));
-    fitted = fitModel(data, spec, errorScale, fitted);
-    iterations += fitted.iterations;
+  const plannedSearches = STARTS_KEPT + (finite ? 2 * START_RHO_PER_U0.length : 0) + (parallax ? 2 * START_PI_E.length : 0) + (options.rescaleErrors ? 1 : 0);
+  const progress = new FitProgress(plannedSearches, options);
+  let fitted: Fitted;
+  let iterations: number;
+  try {
+    fitted = fitModel(data, spec, errorScale, null, progress);
+    iterations = fitted.iterations;
+    if (options.rescaleErrors && fitted.best.converged) {
+      fitted.problem.chi2At(fitted.best.q);
+      const chi2 = datasetChi2(fitted.problem);
+      errorScale = chi2.map((value, d) => Math.sqrt(value / (data.counts[d] - 2 - (nonlinear * data.counts[d]) / n)));
+      fitted = fitModel(data, spec, errorScale, fitted, progress);
+      iterations += fitted.iterations;
+    }
+  } catch (error) {
+    if (error instanceof FitCancelled) return cancelledFit(data, dof);
+    throw error;
   }
   const { problem, best } = fitted;
   const q = best.q;
@@ -675,5 +749,6 @@ export function fitPointLens(points: readonly PhotometryPoint[], options: PointL
     result.piEE = q[nonlinear - 1];
     result.t0ParDays = problem.frame.parallax.t0ParDays;
   }
+  options.onProgress?.(1, converged ? "The fit converged." : "The fit stopped without converging.");
   return result;
 }

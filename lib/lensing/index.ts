@@ -6,6 +6,10 @@
 export { finiteSourceMagnification } from "./finite-source";
 export { fitPointLens, FitInputError, MAX_FIT_ROWS } from "./fit";
 export type { DatasetFit, PhotometryPoint, PointLensFit, PointLensFitOptions } from "./fit";
+export { predictFromFit, PREDICTION_BAND_DAYS, PREDICTION_BAND_STEP_DAYS, PREDICTION_DRAWS } from "./fit-prediction";
+export type { DatasetPrediction, FitPrediction, FitPredictionOptions, FitPredictionOutcome, PercentileBand } from "./fit-prediction";
+export { sitePeakOutlook } from "./fit-prediction-site";
+export type { SitePeakOutlook } from "./fit-prediction-site";
 export { microlensParallax, peakMagnification } from "./microlensing";
 export {
   lensModelIds,
