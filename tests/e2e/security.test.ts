@@ -58,7 +58,7 @@ describe("security headers (OWASP HTTP Headers Cheat Sheet; W3C CSP3)", () => {
       expect(response.headers.get("x-content-type-options")).toBe("nosniff");
       expect(response.headers.get("x-frame-options")).toBe("DENY");
     }
-    expect(nonces.size).toBe(3);
+    expect(nonces.size).toBe(4);
     const api = await fetch(`${baseUrl}/api/health`);
     expect(api.headers.get("x-content-type-options")).toBe("nosniff");
     expect(api.headers.get("referrer-policy")).toBe("strict-origin-when-cross-origin");

@@ -128,6 +128,9 @@ describe("the app killed with SIGKILL during an import", () => {
       method: "POST",
       body: commit,
       status: 201,
+      // 10,000 rows each derived (lens, schedule, photon budget) by a freshly started instance: about
+      // 15 s on a quiet machine, over 30 s on a loaded one; the test is of what is stored, not of speed.
+      timeoutMs: 90_000,
     });
     const rerunMs = performance.now() - rerunStarted;
     expect(result).toEqual(expect.objectContaining({ added: rows, updated: 0, skipped: 0 }));
