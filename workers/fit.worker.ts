@@ -13,10 +13,13 @@ export type FitWorkerOutcome =
   | { status: "refused"; message: string; row: number | null; column: FitInputError["column"] | null };
 
 const api = {
-  /** fitPointLens with its options (no `signal`: see above); `onProgress` arrives as a comlink proxy. */
-  fit(points: PhotometryPoint[], options: Omit<PointLensFitOptions, "signal"> = {}): FitWorkerOutcome {
+  /**
+   * fitPointLens with its options (no `signal`: see above). `onProgress` is its own argument, a
+   * comlink proxy: comlink passes a proxy only as a top-level argument, never inside an object.
+   */
+  fit(points: PhotometryPoint[], options: Omit<PointLensFitOptions, "signal" | "onProgress">, onProgress?: (fraction: number, words: string) => void): FitWorkerOutcome {
     try {
-      return { status: "done", fit: fitPointLens(points, options) };
+      return { status: "done", fit: fitPointLens(points, { ...options, onProgress }) };
     } catch (error) {
       if (error instanceof FitInputError) return { status: "refused", message: error.message, row: error.row ?? null, column: error.column ?? null };
       throw error;

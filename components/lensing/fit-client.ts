@@ -29,7 +29,7 @@ export class FitWorkerClient {
     const cancelled = new Promise<FitClientOutcome>((resolve) => {
       this.settleCancelled = () => resolve({ status: "cancelled", message: CANCELLED_MESSAGE });
     });
-    const done = this.api!.fit(points, { ...options, onProgress: proxy(onProgress) }).finally(() => {
+    const done = this.api!.fit(points, options, proxy(onProgress)).finally(() => {
       this.settleCancelled = null;
     });
     return Promise.race([done, cancelled]);
