@@ -2,9 +2,9 @@
  * The predicted peak of a fit (fit-prediction.ts) against the site's simulated observing schedule
  * (lib/schedule, as the target page builds it with `targetSchedules`): the window of the peak's
  * night, the air mass at the peak (or at the window's nearest instant), the visits within t0 ± 1σ,
- * and a sentence. Times are Julian dates UTC: the fit's times must be UTC Julian dates (a
- * barycentric or heliocentric time differs by at most ~8.3 min of light time plus TT − UTC, under the
- * minute only for the latter; convert before the fit).
+ * and a sentence. Times are Julian dates UTC: the fit's times must be geocentric UTC Julian dates, as
+ * the photometry reader gives them (lib/event-photometry); a heliocentric or barycentric time would
+ * differ by up to ~8.3 min of light time.
  *
  * The air mass is the schedule's own: the sky at one instant of the night by `skyAtTimes`
  * (lib/schedule/visit-sky.ts, the code that gives every planned visit its air mass: Pickering 2002 of
