@@ -15,7 +15,7 @@ import { physicalSizeChunk, withPngChunks } from "@/lib/exports/png-text";
 import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
 import type { FigureKeyEntry } from "@/components/scene/ray-figure";
 import { bundleMassSolar, captionChunk, figureDpi, rayFigureCaption } from "@/components/scene/ray-figure-text";
-import { sceneInks } from "@/components/scene/scene-ink";
+import { sceneInks } from "@/components/scene/scene-colours";
 import { ChoiceField, sketchTextFields, type FieldChange } from "./sketch-field";
 import { TRACE_START_MARK, useRayTrace } from "./use-ray-trace";
 

@@ -1,6 +1,6 @@
 import type { RayFate } from "@/lib/bench/assemble-bundle";
 import { plotPalette, printPalette } from "@/lib/figures/plot-palette";
-import type { InkColour } from "./scene-ink";
+import type { InkColour } from "./scene-colours";
 
 /**
  * How each ray fate is drawn, in the 3D view and its legend alike: an Okabe–Ito colour plus a dash

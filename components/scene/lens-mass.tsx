@@ -1,6 +1,6 @@
 "use client";
 
-import { inkData, sceneInks } from "./scene-ink";
+import { inkData, sceneInks } from "./scene-colours";
 
 /**
  * The mass at the centre, in units of M: for a compact lens the horizon r = 2M (opaque) inside the

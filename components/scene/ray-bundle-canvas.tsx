@@ -8,7 +8,8 @@ import { LensMass } from "./lens-mass";
 import type { PngScale } from "./png-scale";
 import { ProgressiveBundle } from "./progressive-bundle";
 import { composeRayFigure, type RayFigureLabels } from "./ray-figure";
-import { applyInk, sceneBackground } from "./scene-ink";
+import { sceneBackground } from "./scene-colours";
+import { applyInk } from "./scene-ink";
 
 /** Vertical field of view, degrees. */
 const FIELD_OF_VIEW_DEG = 45;

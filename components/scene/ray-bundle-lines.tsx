@@ -4,7 +4,7 @@ import { useEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
 import type { AssembledBundle, RayFate } from "@/lib/bench/assemble-bundle";
 import { fateStyles } from "./fate-styles";
-import { inkData, sceneInks } from "./scene-ink";
+import { inkData, sceneInks } from "./scene-colours";
 
 function fateMaterials(): Record<RayFate, THREE.Material> {
   const entries = Object.entries(fateStyles).map(([fate, style]) => {

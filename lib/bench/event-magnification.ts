@@ -7,7 +7,9 @@
  * are taken as a point source's, never above the whole disk's magnification.
  */
 
-import { finiteSourceMagnification } from "@/lib/lensing";
+// From its module, not the layer's index: the index also holds the live-event fit (ml-matrix), which the
+// bench page must not load.
+import { finiteSourceMagnification } from "@/lib/lensing/finite-source";
 import { pointLensImages } from "@/lib/physics";
 import type { MicrolensingEvent } from "./compute-results";
 

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
 import * as THREE from "three";
-import { applyInk, inkData, sceneBackground, sceneInks } from "@/components/scene/scene-ink";
+import { inkData, sceneBackground, sceneInks } from "@/components/scene/scene-colours";
+import { applyInk } from "@/components/scene/scene-ink";
 
 describe("the 3D view's inks", () => {
   it("recolours the background and the tagged materials for print and back, leaving others alone", () => {
