@@ -1,6 +1,7 @@
 import type { Provenance } from "@/lib/exports/provenance";
-import { dataCellOf, dataDigitsOf, type CellValue } from "./columns";
-import type { TargetTable } from "./table";
+import type { TargetView } from "@/lib/workspace/target-view";
+import { dataCellOf, dataDigitsOf, type CellValue, type ChosenColumn } from "./columns";
+import { sexagesimalCompanionOf, type TargetTable } from "./table";
 
 export interface TargetTableJson {
   provenance: Provenance;
@@ -8,19 +9,31 @@ export interface TargetTableJson {
   rows: Record<string, CellValue>[];
 }
 
-/** The table as JSON: provenance, column descriptions (units, UCDs, digits written) and rows keyed by column (`dataCellOf`). */
+type JsonColumn = TargetTableJson["columns"][number];
+
+/** A chosen column's description and cell, and its sexagesimal companion's after it (RA and Dec). */
+function jsonColumnsOf(chosen: ChosenColumn): { column: JsonColumn; cell: (row: TargetView) => CellValue }[] {
+  const { column } = chosen;
+  const own = {
+    column: { key: column.key, label: column.label, unit: column.unit, ucd: column.ucd, origin: column.origin, digits: column.kind === "double" ? dataDigitsOf(chosen) : null },
+    cell: (row: TargetView) => dataCellOf(row, chosen),
+  };
+  const companion = sexagesimalCompanionOf(column.key);
+  if (companion === undefined) return [own];
+  const { name, label, ucd } = companion.column;
+  return [own, { column: { key: name, label, unit: "", ucd, origin: "input", digits: null }, cell: (row: TargetView) => companion.text(row[companion.after] as number) }];
+}
+
+/**
+ * The table as JSON: provenance, column descriptions (units, UCDs, digits written) and rows keyed by
+ * column (`dataCellOf`); RA and Dec are each followed by their sexagesimal form, as in every format.
+ */
 export function targetTableJson(table: TargetTable): string {
+  const columns = table.columns.flatMap(jsonColumnsOf);
   const body: TargetTableJson = {
     provenance: table.provenance,
-    columns: table.columns.map((chosen) => ({
-      key: chosen.column.key,
-      label: chosen.column.label,
-      unit: chosen.column.unit,
-      ucd: chosen.column.ucd,
-      origin: chosen.column.origin,
-      digits: chosen.column.kind === "double" ? dataDigitsOf(chosen) : null,
-    })),
-    rows: table.rows.map((row) => Object.fromEntries(table.columns.map((chosen) => [chosen.column.key, dataCellOf(row, chosen)]))),
+    columns: columns.map(({ column }) => column),
+    rows: table.rows.map((row) => Object.fromEntries(columns.map(({ column, cell }) => [column.key, cell(row)]))),
   };
   return `${JSON.stringify(body, null, 2)}\n`;
 }

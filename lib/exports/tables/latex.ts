@@ -1,7 +1,7 @@
 import { provenanceLines } from "@/lib/exports/provenance";
 import { cellOf, cellText, type ChosenColumn } from "./columns";
 import { latexText } from "./latex-text";
-import { sexagesimalColumns, singleLine, type SexagesimalColumn, type TargetTable } from "./table";
+import { sexagesimalCompanionOf, singleLine, type SexagesimalColumn, type TargetTable } from "./table";
 import type { TargetView } from "@/lib/workspace/target-view";
 
 /**
@@ -84,7 +84,7 @@ function sexagesimalLatexColumn({ after, column, text }: SexagesimalColumn): Lat
 /** The table's columns in order: each chosen column, RA and Dec each followed by their sexagesimal form. */
 function latexColumnsOf(table: TargetTable): LatexColumn[] {
   return table.columns.flatMap((chosen) => {
-    const companion = sexagesimalColumns.find(({ after }) => after === chosen.column.key);
+    const companion = sexagesimalCompanionOf(chosen.column.key);
     return companion === undefined ? [chosenLatexColumn(chosen)] : [chosenLatexColumn(chosen), sexagesimalLatexColumn(companion)];
   });
 }

@@ -64,6 +64,11 @@ export const sexagesimalColumns: readonly SexagesimalColumn[] = [
   },
 ];
 
+/** The sexagesimal column written right after `key`'s, if it has one (RA and Dec). */
+export function sexagesimalCompanionOf(key: ExportColumnKey): SexagesimalColumn | undefined {
+  return sexagesimalColumns.find(({ after }) => after === key);
+}
+
 /** The columns holding ICRS positions, which a VOTable refers to its ICRS COOSYS. */
 export const icrsColumnKeys: readonly string[] = ["raDeg", "decDeg", ...sexagesimalColumns.map(({ column }) => column.name)];
 
@@ -90,7 +95,7 @@ interface DataColumnWriter {
 
 function writersOf(chosen: ChosenColumn): DataColumnWriter[] {
   const own: DataColumnWriter = { column: dataColumnOf(chosen), cell: (row) => cellOf(row, chosen.column) };
-  const companion = sexagesimalColumns.find(({ after }) => after === chosen.column.key);
+  const companion = sexagesimalCompanionOf(chosen.column.key);
   if (companion === undefined) return [own];
   return [own, { column: companion.column, cell: (row) => companion.text(row[companion.after] as number) }];
 }

@@ -242,6 +242,13 @@ describe("JSON export", () => {
     expect(body.provenance.version).toBe(packageJson.version);
     expect(body.provenance.constants.map((c) => c.name)).toContain("GM_sun");
   });
+
+  it("follows RA and Dec with their sexagesimal forms, as every table format does", () => {
+    const body = JSON.parse(targetTableJson({ ...table, columns: tableColumnsQuerySchema.parse({ columns: "name,raDeg,decDeg" }) })) as TargetTableJson;
+    expect(body.columns.map((c) => c.key)).toEqual(["name", "raDeg", "raHms", "decDeg", "decDms"]);
+    // 269.301667 deg = 17 h 57 min 12.400 s; -29.2013889 deg = -29 deg 12 arcmin 05.00 arcsec (15 deg an hour, 60 to each).
+    expect(body.rows[0]).toMatchObject({ raHms: "17:57:12.400", decDms: "-29:12:05.00" });
+  });
 });
 
 describe("the science case's columns", () => {
