@@ -83,13 +83,9 @@ function installMarkupAudit() {
   }).observe(document, { childList: true, subtree: true, attributes: true });
 }
 
-/**
- * A fresh page with CSP bypassed and every trace of executed content recorded; its own cookies, or
- * those of `signedInAs` (a context already signed in).
- */
-async function watchedPage(signedInAs?: BrowserContext): Promise<{ context: BrowserContext; page: Page; watch: Watch }> {
-  const storageState = signedInAs === undefined ? undefined : await signedInAs.storageState();
-  const { context, page } = await newPage(browser, { bypassCSP: true, storageState });
+/** A fresh page (own cookies) with CSP bypassed and every trace of executed content recorded. */
+async function watchedPage(): Promise<{ context: BrowserContext; page: Page; watch: Watch }> {
+  const { context, page } = await newPage(browser, { bypassCSP: true });
   const watch: Watch = { calls: [], dialogs: [], strayRequests: [], strayNavigations: [] };
   // Exposed in every frame, so a payload that ran inside a frame reports too.
   await page.exposeFunction(XSS_MARKER, (id: number) => watch.calls.push(id));
@@ -300,21 +296,12 @@ describe("hostile notes, names and titles never run and show as typed", () => {
   });
 
   it("every payload-named target page shows its name as the heading", async () => {
-    // Three windows, signed in as the PI, share the pages (the server runs one process per core);
-    // each page is audited for hostile markup before its window moves on.
-    const windows = await Promise.all([0, 1, 2].map(() => watchedPage(pi.context)));
-    try {
-      await Promise.all(
-        windows.map(async ({ page, watch }, index) => {
-          for (const name of targetNames.filter((_, i) => i % windows.length === index)) {
-            await page.goto(`/proposals/${proposalId}/targets/${targetIds.get(name)}`);
-            expect(await readableText(page.getByRole("heading", { level: 1 })), name).toBe(name);
-            await expectNothingRan(page, watch, `target page of ${name}`);
-          }
-        }),
-      );
-    } finally {
-      await Promise.all(windows.map(({ context }) => context.close()));
+    // Each page is audited for hostile markup before the next one loads.
+    const { page, watch } = pi;
+    for (const name of targetNames) {
+      await page.goto(`/proposals/${proposalId}/targets/${targetIds.get(name)}`);
+      expect(await readableText(page.getByRole("heading", { level: 1 })), name).toBe(name);
+      await expectNothingRan(page, watch, `target page of ${name}`);
     }
   }, 240_000);
 
