@@ -1,10 +1,10 @@
 import { renderToStaticMarkup } from "react-dom/server";
 import { createElement } from "react";
 import { describe, expect, it } from "vitest";
-import { MathMarkdown } from "@/components/workspace/note-math-markdown";
+import { Markdown } from "@/components/workspace/markdown";
 import { plotPalette } from "@/lib/figures/plot-palette";
 
-const render = (source: string) => renderToStaticMarkup(createElement(MathMarkdown, { source }));
+const render = (source: string) => renderToStaticMarkup(createElement(Markdown, { source }));
 
 describe("math in notes (KaTeX)", () => {
   it("typesets inline math with KaTeX, keeping the source as the MathML annotation", () => {
