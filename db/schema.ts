@@ -240,6 +240,14 @@ export const targets = pgTable(
     sourceMagnitude: doublePrecision("source_magnitude"),
     sourceBand: text("source_band"),
     blendFraction: doublePrecision("blend_fraction"),
+    /**
+     * The event's Einstein time t_E (days) as measured by a light-curve fit; null while it is derived
+     * from θ_E and the relative proper motion. The microlens parallax (π_E,N, π_E,E; dimensionless,
+     * Gould 2004's geocentric frame) from the same fit, when it was fitted.
+     */
+    einsteinTimeDays: doublePrecision("einstein_time_days"),
+    parallaxNorth: doublePrecision("parallax_north"),
+    parallaxEast: doublePrecision("parallax_east"),
     priority: integer("priority").notNull(),
     status: targetStatus("status").notNull().default("candidate"),
     tags: text("tags").array().notNull().default(sql`'{}'::text[]`),
@@ -328,7 +336,7 @@ export const activity = pgTable(
 
 export type Activity = typeof activity.$inferSelect;
 
-export const uploadPurpose = pgEnum("upload_purpose", ["target_list", "note_attachment"]);
+export const uploadPurpose = pgEnum("upload_purpose", ["target_list", "note_attachment", "event_photometry"]);
 export const importFormat = pgEnum("import_format", ["csv", "votable"]);
 export const attachmentKind = pgEnum("attachment_kind", ["png", "jpeg", "pdf", "fits"]);
 
@@ -405,3 +413,69 @@ export const noteAttachments = pgTable(
 );
 
 export type NoteAttachment = typeof noteAttachments.$inferSelect;
+
+/**
+ * One photometry file of an ongoing event, as read with its confirmed mapping: the points of every
+ * dataset it holds (times as geocentric JD in UTC, fluxes on REFERENCE_MAGNITUDE's scale of
+ * lib/event-photometry/read-event-photometry.ts), kept with the file they came from. Deleting the row
+ * deletes the file (the data-access layer also removes it from the upload service).
+ */
+export const eventPhotometry = pgTable(
+  "event_photometry",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    targetId: uuid("target_id")
+      .notNull()
+      .references(() => targets.id, { onDelete: "cascade" }),
+    fileId: uuid("file_id")
+      .notNull()
+      .references(() => uploadedFiles.id, { onDelete: "cascade" }),
+    /** lib/event-photometry/mapping PhotometryMapping, as confirmed. */
+    mapping: jsonb("mapping").notNull(),
+    /** lib/event-photometry/read-event-photometry PhotometryDataset[] of the file, in order. */
+    datasets: jsonb("datasets").notNull(),
+    /** The points, one array element each: time (geocentric JD, UTC), flux and its 1σ error, index into `datasets`. */
+    timesJdUtc: doublePrecision("times_jd_utc").array().notNull(),
+    fluxes: doublePrecision("fluxes").array().notNull(),
+    fluxErrors: doublePrecision("flux_errors").array().notNull(),
+    datasetIndices: integer("dataset_indices").array().notNull(),
+    /** Rows of the file refused on reading (1-based row numbers), kept to show with the file. */
+    refusedRows: integer("refused_rows").array().notNull().default(sql`'{}'::integer[]`),
+    addedBy: uuid("added_by").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [uniqueIndex("event_photometry_file_key").on(t.fileId), index("event_photometry_target_idx").on(t.targetId, t.createdAt)],
+);
+
+export type EventPhotometryRecord = typeof eventPhotometry.$inferSelect;
+
+export const targetRevisionKind = pgEnum("target_revision_kind", ["light_curve_fit", "undo"]);
+
+/**
+ * A change of a target's event parameters made in one step (a light-curve fit applied, or its undo):
+ * the values before and after (lib/workspace target fields by name), and for a fit its summary
+ * (χ²/dof, points, datasets, the parameters' 1σ errors). Undo restores `before` while the target still
+ * holds `after`.
+ */
+export const targetRevisions = pgTable(
+  "target_revisions",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    targetId: uuid("target_id")
+      .notNull()
+      .references(() => targets.id, { onDelete: "cascade" }),
+    kind: targetRevisionKind("kind").notNull(),
+    before: jsonb("before").notNull(),
+    after: jsonb("after").notNull(),
+    summary: jsonb("summary"),
+    /** The revision this one undid (for an undo). */
+    undoes: uuid("undoes"),
+    /** When it was undone (for an applied fit). */
+    undoneAt: timestamp("undone_at", { withTimezone: true }),
+    actorId: uuid("actor_id").references(() => users.id, { onDelete: "set null" }),
+    createdAt: createdAt(),
+  },
+  (t) => [index("target_revisions_target_idx").on(t.targetId, t.createdAt)],
+);
+
+export type TargetRevision = typeof targetRevisions.$inferSelect;
