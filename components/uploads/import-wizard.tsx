@@ -1,8 +1,7 @@
 "use client";
 
 import Link from "next/link";
-import { useRef, useState } from "react";
-import { useVirtualizer } from "@tanstack/react-virtual";
+import { useState } from "react";
 import {
   defaultUnits,
   importFieldKinds,
@@ -28,6 +27,7 @@ import { FormError, buttonClass, quietButtonClass } from "@/components/workspace
 import { formatQuantity } from "@/components/workspace/format";
 import { useFormSubmit } from "@/components/workspace/use-form-submit";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
+import { VirtualRows } from "@/components/uploads/virtual-rows";
 
 const inputClass = "rounded-md border border-void-edge bg-void px-2 py-1 text-sm";
 const actionLabels: Record<ImportRowView["action"], string> = { add: "Add", update: "Update", skip: "Skip", error: "Error" };
@@ -343,42 +343,26 @@ function valueText(row: ImportRowView): string {
 
 /** Every row, virtualized so a 10,000-row file scrolls smoothly. */
 function PreviewRows({ rows }: { rows: ImportRowView[] }) {
-  const scroller = useRef<HTMLDivElement>(null);
-  const virtualizer = useVirtualizer({ count: rows.length, getScrollElement: () => scroller.current, estimateSize: () => ROW_HEIGHT_PX, overscan: 12 });
   return (
-    <div ref={scroller} className="h-96 overflow-auto rounded-lg border border-void-edge" role="table" aria-label="Rows as read">
-      <div style={{ height: virtualizer.getTotalSize(), position: "relative" }}>
-        {virtualizer.getVirtualItems().map((item) => {
-          const row = rows[item.index];
-          return (
-            <div
-              key={row.rowNumber}
-              role="row"
-              data-testid="preview-row"
-              data-action={row.action}
-              className="absolute left-0 right-0 flex gap-3 border-b border-void-edge px-3 py-1 text-sm"
-              style={{ top: item.start, minHeight: ROW_HEIGHT_PX }}
-              ref={virtualizer.measureElement}
-              data-index={item.index}
-            >
-              <span role="cell" className="w-12 shrink-0 tabular-nums text-dusk-dim">
-                {row.rowNumber}
-              </span>
-              <span role="cell" className={`w-16 shrink-0 ${actionClass[row.action]}`}>
-                {actionLabels[row.action]}
-              </span>
-              <span role="cell" className="w-40 shrink-0 truncate font-semibold">
-                {row.cells.name}
-              </span>
-              <span role="cell" className="min-w-0 flex-1">
-                {row.errors.length > 0 ? <span className="text-alarm">{row.errors.join(" ")}</span> : <span className="tabular-nums">{valueText(row)}</span>}
-                <span className="ml-2 text-xs text-dusk-dim">{row.detail}</span>
-              </span>
-            </div>
-          );
-        })}
-      </div>
-    </div>
+    <VirtualRows rows={rows} label="Rows as read" rowHeightPx={ROW_HEIGHT_PX} heightClass="h-96" keyOf={(row) => row.rowNumber} attributesOf={(row) => ({ "data-testid": "preview-row", "data-action": row.action })}>
+      {(row) => (
+        <>
+          <span role="cell" className="w-12 shrink-0 tabular-nums text-dusk-dim">
+            {row.rowNumber}
+          </span>
+          <span role="cell" className={`w-16 shrink-0 ${actionClass[row.action]}`}>
+            {actionLabels[row.action]}
+          </span>
+          <span role="cell" className="w-40 shrink-0 truncate font-semibold">
+            {row.cells.name}
+          </span>
+          <span role="cell" className="min-w-0 flex-1">
+            {row.errors.length > 0 ? <span className="text-alarm">{row.errors.join(" ")}</span> : <span className="tabular-nums">{valueText(row)}</span>}
+            <span className="ml-2 text-xs text-dusk-dim">{row.detail}</span>
+          </span>
+        </>
+      )}
+    </VirtualRows>
   );
 }
 

@@ -14,11 +14,11 @@ interface ConfirmDeleteProps {
   consequence: string;
   /** The API resource the DELETE goes to. */
   url: string;
-  /** Where the page goes once the record is gone. */
-  afterUrl: string;
+  /** Where the page goes once the record is gone; without it the page stays. */
+  afterUrl?: string;
   /** When set, the person types this (the proposal's title) before the button works. */
   typeToConfirm?: string;
-  /** Cached API answers under this prefix are dropped, so no list shows the record after it is gone. */
+  /** Cached API answers under this prefix are dropped (read again when the page stays), so no list shows the record after it is gone. */
   staleKeyPrefix: string;
 }
 
@@ -59,7 +59,8 @@ export function ConfirmDelete({ label, consequence, url, afterUrl, typeToConfirm
           onClick={() =>
             void run(async () => {
               await apiFetch(url, { method: "DELETE" });
-              await mutate((key) => typeof key === "string" && key.startsWith(staleKeyPrefix), undefined, { revalidate: false });
+              await mutate((key) => typeof key === "string" && key.startsWith(staleKeyPrefix), undefined, { revalidate: afterUrl === undefined });
+              if (afterUrl === undefined) return;
               router.push(afterUrl);
               router.refresh();
             })

@@ -19,6 +19,7 @@ import {
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { forgetTargetFiles } from "@/lib/server/attachments";
+import { forgetTargetPhotometryFiles } from "@/lib/server/event-photometry";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { deriveOne, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
@@ -198,12 +199,12 @@ export async function deleteTarget(params: unknown, actor: Actor | null): Promis
   const storedKeys = await dbClient().db.transaction(async (tx) => {
     await authorize(tx, proposalId, who, "edit", "target");
     const target = await loadTarget(tx, proposalId, targetId);
-    // Its notes and their attachments go with it (cascade); the file records are the proposal's, so they are forgotten here.
-    const keys = await forgetTargetFiles(tx, targetId);
+    // Its notes, their attachments and its photometry go with it (cascade); the file records are the proposal's, so they are forgotten here.
+    const keys = [...(await forgetTargetFiles(tx, targetId)), ...(await forgetTargetPhotometryFiles(tx, targetId))];
     await tx.delete(targets).where(eq(targets.id, targetId));
     await recordActivity(tx, { proposalId, actorId: who.userId, action: "target.removed", subject: target.name });
     return keys;
   });
-  // The attachments' bytes go only once the target is gone for certain.
+  // The stored bytes go only once the target is gone for certain.
   await deleteStoredFiles(storedKeys);
 }

@@ -127,11 +127,16 @@ describe("authorization matrix: POST /api/uploadthing (the upload middleware), e
   // [signed out, non-member, viewer, Co-I, PI, site admin]: a refusal answers at the presign step with
   // its status; an editor's file is stored.
   const expected: (number | "stored")[] = [401, 404, 403, "stored", "stored", 403];
-  for (const slug of ["targetList", "noteAttachment"] as const) {
+  for (const slug of ["targetList", "noteAttachment", "eventPhotometry"] as const) {
     it(`${slug}: ${expected.join(", ")}`, async () => {
       const world = await createWorld();
       const admin = await createUser("site-admin", "admin");
-      const input: Record<string, string> = slug === "targetList" ? { proposalId: world.proposalId } : { proposalId: world.proposalId, targetId: world.targetId, noteId: world.noteId };
+      const inputs = {
+        targetList: { proposalId: world.proposalId },
+        noteAttachment: { proposalId: world.proposalId, targetId: world.targetId, noteId: world.noteId },
+        eventPhotometry: { proposalId: world.proposalId, targetId: world.targetId },
+      };
+      const input: Record<string, string> = inputs[slug];
       const actors = [...callers.map((c) => actorFor(world, c)), admin];
       const outcomes = [];
       for (const actor of actors) {

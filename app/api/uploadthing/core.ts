@@ -5,6 +5,7 @@ import { z } from "zod";
 import { AppError } from "@/lib/errors";
 import type { GetActor } from "@/lib/server/actor";
 import { authorizeAttachmentUpload, recordAttachmentUpload } from "@/lib/server/attachments";
+import { authorizePhotometryUpload, recordPhotometryUpload } from "@/lib/server/event-photometry";
 import { crossSiteError } from "@/lib/security/same-origin";
 import { errorResponse } from "@/lib/server/http";
 import { authorizeTargetListUpload, recordTargetListUpload } from "@/lib/server/imports";
@@ -28,10 +29,11 @@ async function asUploadError<T>(check: () => Promise<T>): Promise<T> {
 }
 
 // The SDK's sizes are powers of two: these bound the signed size; the product's limits (5 MB for a
-// list, 16 MB for an attachment) are checked in the middleware on the declared size and on the bytes.
-// Both kinds are stored private: the service serves them only to a URL signed with the api key, which
-// only this server makes (the hosted service must allow a route to set its ACL: the app's
-// "allow overriding ACL" setting). Members read attachments through the app's access-checked route.
+// list or a photometry file, 16 MB for an attachment) are checked in the middleware on the declared
+// size and on the bytes. Every kind is stored private: the service serves them only to a URL signed
+// with the api key, which only this server makes (the hosted service must allow a route to set its
+// ACL: the app's "allow overriding ACL" setting). Members read attachments through the app's
+// access-checked route.
 const targetListConfig = { blob: { maxFileSize: "8MB", maxFileCount: 1, acl: "private" } } as const;
 const attachmentConfig = { blob: { maxFileSize: "16MB", maxFileCount: 1, acl: "private" } } as const;
 
@@ -51,6 +53,10 @@ export function makeUploadRouter(getActor: GetActor) {
       .input(z.object({ proposalId: z.string(), targetId: z.string(), noteId: z.string() }))
       .middleware(({ req, input, files }) => asUploadError(async () => authorizeAttachmentUpload(input, await getActor(req), files)))
       .onUploadComplete(({ metadata, file }) => completeUpload(metadata, file, "attachment", recordAttachmentUpload)),
+    eventPhotometry: f(targetListConfig)
+      .input(z.object({ proposalId: z.string(), targetId: z.string() }))
+      .middleware(({ req, input, files }) => asUploadError(async () => authorizePhotometryUpload(input, await getActor(req), files)))
+      .onUploadComplete(({ metadata, file }) => completeUpload(metadata, file, "photometry", recordPhotometryUpload)),
   } satisfies FileRouter;
 }
 

@@ -7,6 +7,7 @@ import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
 import { targetTableExportRoutes, technicalSummaryRoutes } from "@/lib/exports/server/routes";
 import { calendarRoutes } from "@/lib/exports/calendar/server";
 import { attachmentCollectionRoutes, attachmentFileRoutes, attachmentRoutes, importCollectionRoutes, importPreviewRoutes } from "@/lib/server/api/upload-routes";
+import { photometryCollectionRoutes, photometryFileRoutes, photometryPreviewRoutes } from "@/lib/server/api/photometry-routes";
 import type { GetActor } from "@/lib/server/actor";
 import { proposalInput, pointTargetInput, type World } from "./world";
 
@@ -108,6 +109,19 @@ export const endpoints: Endpoint[] = [
   { name: "GET /notes/:id/attachments", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]/attachments", siteAdmin: 200, handler: as(attachmentCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments`, params: noteParams, expected: [401, 404, 200, 200, 200] },
   { name: "DELETE /attachments/:id", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]/attachments/[attachmentId]", siteAdmin: 403, handler: as(attachmentRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 403, 404, 404] },
   { name: "GET /attachments/:id/file", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]/attachments/[attachmentId]/file", siteAdmin: 404, handler: as(attachmentFileRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}/attachments/${absentId}/file`, params: (w) => ({ ...noteParams(w), attachmentId: absentId }), expected: [401, 404, 404, 404, 404] },
+  { name: "GET /targets/:id/photometry", route: "/api/proposals/[proposalId]/targets/[targetId]/photometry", siteAdmin: 200, handler: as(photometryCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/photometry`, params: targetParams, expected: [401, 404, 200, 200, 200] },
+  {
+    name: "POST /targets/:id/photometry",
+    route: "/api/proposals/[proposalId]/targets/[targetId]/photometry",
+    siteAdmin: 403,
+    handler: as(photometryCollectionRoutes, "POST"),
+    path: (w) => `${base(w)}/targets/${w.targetId}/photometry`,
+    params: targetParams,
+    body: () => ({ fileId: absentId, mapping: { timeColumn: 0, timeKind: "HJD", timeOffsetDays: 2450000, timeScale: "UTC", brightnessKind: "magnitude", valueColumn: 1, errorColumn: 2 } }),
+    expected: [401, 404, 403, 404, 404],
+  },
+  { name: "POST /targets/:id/photometry/preview", route: "/api/proposals/[proposalId]/targets/[targetId]/photometry/preview", siteAdmin: 403, handler: as(photometryPreviewRoutes, "POST"), path: (w) => `${base(w)}/targets/${w.targetId}/photometry/preview`, params: targetParams, body: () => ({ fileId: absentId }), expected: [401, 404, 403, 404, 404] },
+  { name: "DELETE /photometry/:id", route: "/api/proposals/[proposalId]/targets/[targetId]/photometry/[photometryId]", siteAdmin: 403, handler: as(photometryFileRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/photometry/${absentId}`, params: (w) => ({ ...targetParams(w), photometryId: absentId }), expected: [401, 404, 403, 404, 404] },
   { name: "GET /exports/targets", route: "/api/proposals/[proposalId]/exports/targets", siteAdmin: 200, handler: as(targetTableExportRoutes, "GET"), path: (w) => `${base(w)}/exports/targets?format=json&columns=name,einsteinRadiusMas`, params: proposalParams, expected: [401, 404, 200, 200, 200] },
   { name: "GET /exports/figures/:figure", route: "/api/proposals/[proposalId]/exports/figures/[figure]", siteAdmin: 200, handler: as(skyFigureRoutes, "GET"), path: (w) => `${base(w)}/exports/figures/season?start=2031-03-01&nights=10&format=svg`, params: (w) => ({ proposalId: w.proposalId, figure: "season" }), expected: [401, 404, 200, 200, 200] },
   // A proposal without cycle dates has no schedule: members get the 400 that says so, after the role check.

@@ -18,7 +18,7 @@ export interface UploadService {
   /** `beforePut` runs between the presign (middleware) and the PUT, e.g. to remove the uploader. */
   uploadAs(
     actor: Actor | null,
-    slug: "targetList" | "noteAttachment",
+    slug: "targetList" | "noteAttachment" | "eventPhotometry",
     input: Record<string, string>,
     file: { name: string; bytes: Uint8Array; type?: string; declaredSize?: number },
     beforePut?: () => Promise<void>,

@@ -12,6 +12,7 @@ import { seasonWindowQuerySchema } from "@/lib/figures/season-view";
 import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
 import * as importRequest from "@/lib/imports/request";
+import * as photometryRequest from "@/lib/event-photometry/request";
 import { parseCsvTable } from "@/lib/imports/csv";
 import { proposeColumnMapping } from "@/lib/imports/columns";
 import { validateImportRows } from "@/lib/imports/rows";
@@ -173,6 +174,17 @@ const fieldWords: Record<string, RegExp> = {
   moon: /Moon/,
   minSeparationDeg: /Moon separation/i,
   maxIlluminatedFraction: /Moon illumination/i,
+  timeColumn: /time column/i,
+  timeKind: /time column's kind/i,
+  timeOffsetDays: /time column's offset/i,
+  timeScale: /time scale/i,
+  brightnessKind: /magnitudes or fluxes/i,
+  valueColumn: /magnitude or flux column/i,
+  errorColumn: /error column/i,
+  bandColumn: /band column/i,
+  band: /band/i,
+  datasetColumn: /dataset column/i,
+  datasetName: /dataset name/i,
 };
 
 /**
@@ -261,6 +273,8 @@ const parsedByParseOrThrow: Record<string, z.ZodType> = {
   importFillSchema: importRequest.importFillSchema,
   importPreviewSchema: importRequest.importPreviewSchema,
   importCommitSchema: importRequest.importCommitSchema,
+  photometryPreviewSchema: photometryRequest.photometryPreviewSchema,
+  photometryCommitSchema: photometryRequest.photometryCommitSchema,
   figureFormatQuerySchema,
   seasonWindowQuerySchema,
   tableColumnsQuerySchema,
@@ -358,6 +372,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/workspace/target-query.ts",
     "lib/auth/schemas.ts",
     "lib/imports/request.ts",
+    "lib/event-photometry/request.ts",
     "lib/exports/figures/figure-format.ts",
     "lib/figures/season-view.ts",
     "lib/exports/tables/columns.ts",
