@@ -1,3 +1,5 @@
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
 import { and, count, desc, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
@@ -133,6 +135,20 @@ describe("a target's photometry through the upload service and its routes", () =
     expect(new Set(view.body.points.map((point) => point.dataset))).toEqual(new Set(["Halcyon I", "Halcyon I (2)"]));
     const [last] = await db.select().from(eventPhotometry).where(eq(eventPhotometry.targetId, world.targetId)).orderBy(desc(eventPhotometry.createdAt)).limit(1);
     expect(last.datasetIndices).toEqual(new Array(8).fill(0));
+  });
+
+  it("the demo event's file: two datasets from one file, proposed whole, read back grouped by dataset and sorted by time", async () => {
+    const world = await createWorld();
+    const demo = readFileSync(join(process.cwd(), "public", "demo", "cbw-24-0117-photometry.csv"), "utf8");
+    const { fileId } = await upload(world, "cbw-24-0117-photometry.csv", demo);
+    const { body } = await preview(world, world.actors.coi, { fileId });
+    expect(body.mappingProblems).toEqual([]);
+    expect(body.summary).toBe("310 points in 2 datasets (Halcyon Survey I: 256, Mesa Lucerna V: 54)");
+    expect((await commit(world, world.actors.coi, { fileId, mapping: body.mapping })).status).toBe(201);
+    const { points } = (await read(world, world.actors.viewer)).body;
+    const order = points.map((point) => point.dataset).filter((name, i, all) => name !== all[i - 1]);
+    expect(order).toEqual(["Halcyon Survey I", "Mesa Lucerna V"]);
+    expect(points.every((point, i, all) => i === 0 || point.dataset !== all[i - 1].dataset || point.tDays > all[i - 1].tDays)).toBe(true);
   });
 
   it("deleting the target removes its photometry files from the upload service", async () => {
