@@ -245,7 +245,7 @@ function AddPhotometry({ proposalId, targetId, onCancel, onKept }: { proposalId:
             </label>
             <label className="flex items-center gap-2">
               <span className="w-44">Time scale</span>
-              <select className={inputClass} required value={mapping.timeScale ?? ""} aria-invalid={mapping.timeScale === undefined ? true : undefined} onChange={(e) => choose({ timeScale: e.target.value as TimeScale | "" })}>
+              <select className={inputClass} aria-required="true" value={mapping.timeScale ?? ""} aria-invalid={mapping.timeScale === undefined ? true : undefined} onChange={(e) => choose({ timeScale: e.target.value as TimeScale | "" })}>
                 <option value="">— choose: the file does not say —</option>
                 {timeScales.map((scale) => (
                   <option key={scale} value={scale}>
