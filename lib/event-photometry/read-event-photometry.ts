@@ -12,12 +12,9 @@ import { readImportFile } from "@/lib/imports/read-import-file";
 import type { PhotometryPoint } from "@/lib/lensing/fit-input";
 import { EARLIEST_PHOTOMETRY_JD, fullJd, jdUtcOfTime, LATEST_PHOTOMETRY_JD, type EventDirection, type EventTimeFormat } from "./event-time";
 import { timeFormatLabel, type BrightnessKind, type PhotometryMapping } from "./mapping";
+import { REFERENCE_MAGNITUDE } from "./reference-magnitude";
 
-/**
- * The reference magnitude of the fit's fluxes (our choice): flux = 10^(−0.4 (m − 22)), so a flux of 1
- * is a 22 mag source. Any fixed value would do: the fit's source and blend fluxes scale with it.
- */
-export const REFERENCE_MAGNITUDE = 22;
+export { REFERENCE_MAGNITUDE } from "./reference-magnitude";
 
 /** Our rule: a magnitude error above 1 mag is no measurement (the flux's error would exceed 90 % of it). */
 export const MAX_MAGNITUDE_ERROR = 1;

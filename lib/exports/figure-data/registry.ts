@@ -6,6 +6,7 @@ import type { BenchFigureKind } from "@/lib/exports/figures/bench-figures";
 import type { SkyFigureKind } from "@/lib/exports/figures/sky-figures";
 import type { DataTable } from "@/lib/exports/tables/data-table";
 import { astrometricTrackData, deflectionData, lensPlaneData, lightCurveData } from "./bench-data";
+import { eventFitData } from "./event-fit-data";
 import { nightData, nightSkyData, seasonData } from "./sky-data";
 
 export const figureDataKinds = {
@@ -16,6 +17,7 @@ export const figureDataKinds = {
   night: nightData,
   "night-sky": nightSkyData,
   season: seasonData,
+  "event-fit": eventFitData,
 } as const satisfies Record<BenchFigureKind | SkyFigureKind, (input: never) => DataTable>;
 
 export type FigureDataKind = keyof typeof figureDataKinds;

@@ -14,7 +14,7 @@ import { skyQueryToString } from "@/lib/astro/sky-query";
 import { nightData, nightSkyData, seasonData } from "@/lib/exports/figure-data/sky-data";
 import type { PlotExport } from "./figure-response";
 
-export const skyFigureKinds = ["night", "season", "night-sky"] as const;
+export const skyFigureKinds = ["night", "season", "night-sky", "event-fit"] as const;
 export type SkyFigureKind = (typeof skyFigureKinds)[number];
 
 /** The sky views draw at these sizes (CSS px); the season chart grows one row per target. */

@@ -17,6 +17,7 @@ import { feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
+import { eventFitFigure, parseEventFitQuery } from "./event-fit-figure";
 
 const skyFigureParamsSchema = z.object({ proposalId: z.uuid(), figure: z.enum(skyFigureKinds) });
 
@@ -48,16 +49,20 @@ function cycleNights(p: Proposal): number | undefined {
  * A proposal's sky figure as any member sees it: `night` (one target, `targetId` and `date`),
  * `night-sky` (the sky brightness at one target through that night, in its band: the target's source
  * band, else the proposal's) or `season` (every target, from `start` for `nights` nights; defaults:
- * the proposal's cycle, else today for 183 nights). Order: validate → session → load and role → compute.
+ * the proposal's cycle, else today for 183 nights), or `event-fit` (a point-lens target's photometry
+ * with its light-curve fit, `targetId` and the fit panel's choices: event-fit-figure.ts). Order:
+ * validate → session → load and role → compute.
  */
 export async function loadSkyFigure(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<PlotExport> {
   const { proposalId, figure } = parseIds(skyFigureParamsSchema, params, "figure");
   const night = figure === "night" || figure === "night-sky" ? parseOrThrow(nightQuerySchema, { targetId: query.targetId, date: query.date }, "figure") : undefined;
   const season = figure === "season" ? parseOrThrow(seasonWindowQuerySchema, { start: query.start, nights: query.nights }, "figure") : undefined;
+  const eventFit = figure === "event-fit" ? parseEventFitQuery(query) : undefined;
   const who = requireActor(actor);
   const { db } = dbClient();
   const { proposal } = await authorize(db, proposalId, who, "read", "figure");
   const context = skyContextOf(proposal);
+  if (eventFit) return eventFitFigure(proposal, eventFit, who, context);
   if (night) {
     const [target] = await db.select().from(targets).where(and(eq(targets.id, night.targetId), eq(targets.proposalId, proposalId))).limit(1);
     if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
