@@ -8,6 +8,10 @@ import { PhotonBudgetPanel } from "@/components/workspace/photon-budget-panel";
 import { TargetEditForm } from "@/components/workspace/target-edit-form";
 import { TargetNotes } from "@/components/workspace/target-notes";
 import { TargetStatusControl } from "@/components/workspace/target-status";
+import { EventFitPanel } from "@/components/lensing/event-fit-panel";
+import { EventPhotometrySection } from "@/components/lensing/event-photometry-section";
+import { FitRevisions } from "@/components/lensing/fit-revisions";
+import { hasPointLensFit } from "@/lib/lensing/fit-choices";
 import { nightDateSchema } from "@/lib/astro/inputs";
 import { currentNightIso } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
@@ -109,6 +113,7 @@ export default async function TargetPage({
   const report = targetCaseReport(target, proposal, schedule, solved);
   const event = solved === null ? null : eventTimingOf(target, solved.solution, solved.geometry);
   const site = skySiteOf(proposal.site);
+  const targetBand = photometryBandOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId);
   // The night in the address bar, else tonight at the site, or the cycle's first night while it is ahead.
   const tonightIso = currentNightIso(new Date(), site.longitudeEastDeg);
   const initialNightIso = nightParam.success
@@ -213,6 +218,26 @@ export default async function TargetPage({
         event={event}
         photonBudget={report !== null && "budget" in report.photonBudget ? report.photonBudget.budget : null}
       />
+      {hasPointLensFit[target.lensModel] && (
+        <section aria-labelledby="event-fit-heading" className="space-y-4">
+          <h2 id="event-fit-heading" className="text-xl font-semibold">
+            Event photometry and fit
+          </h2>
+          <EventPhotometrySection proposalId={proposal.id} targetId={target.id} canEdit={proposal.permissions.canEdit} />
+          <EventFitPanel
+            proposalId={proposal.id}
+            targetId={target.id}
+            targetName={target.name}
+            canEdit={proposal.permissions.canEdit}
+            target={{ raDeg: target.raDeg, decDeg: target.decDeg, limbDarkeningU: target.limbDarkeningU ?? null }}
+            band={targetBand === undefined ? null : { id: targetBand.id, label: targetBand.label }}
+            sourceBand={target.sourceBand ?? null}
+            site={site}
+            schedule={schedule}
+          />
+          <FitRevisions proposalId={proposal.id} targetId={target.id} canEdit={proposal.permissions.canEdit} />
+        </section>
+      )}
       <TargetNightPanel
         site={site}
         target={{ name: target.name, raDeg: target.raDeg, decDeg: target.decDeg }}
