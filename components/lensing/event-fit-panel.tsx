@@ -10,7 +10,7 @@ import { targetPhotometryUrl, type TargetPhotometryView } from "@/lib/event-phot
 import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, EventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";
 import { eventFitView } from "@/lib/figures/event-fit-view";
 import type { PhotometryPoint, PointLensFit } from "@/lib/lensing/fit";
-import { defaultEventFitChoices, defaultReferenceDataset, eventFitQuery, fitOptionsOf, predictionOptionsOf, type BandName, type EventFitChoices, type EventFitTarget } from "@/lib/lensing/fit-choices";
+import { defaultEventFitChoices, defaultReferenceDataset, eventFitQuery, fitOptionsOf, isBand, predictionOptionsOf, type BandName, type EventFitChoices, type EventFitTarget } from "@/lib/lensing/fit-choices";
 import type { FitPrediction } from "@/lib/lensing/fit-prediction";
 import { sitePeakOutlook } from "@/lib/lensing/fit-prediction-site";
 import { applyFitRequestOf, datasetReportRows, fitParameterRows } from "@/lib/lensing/fit-report";
@@ -76,6 +76,13 @@ export function EventFitPanel(props: EventFitPanelProps) {
   );
   const referenceDataset = chosenReference !== null && (done === null || fittedNames.includes(chosenReference)) ? chosenReference : defaultReference;
   const isStale = done !== null && photometry !== undefined && done.points !== photometry.points;
+  const referenceBand = datasets.find((d) => d.name === referenceDataset)?.band;
+  const bandNote =
+    props.band === null
+      ? "The proposal's band is not described yet, so the source magnitude cannot be checked against it."
+      : isBand(referenceBand, props.band)
+        ? null
+        : `${referenceDataset ?? "This dataset"} is in ${referenceBand ?? "a band its file does not name"}, not ${props.band.label}: its source magnitude is stored as ${props.band.label}, so choose the dataset in that band if there is one.`;
 
   const view = useMemo(() => {
     if (done === null || referenceDataset === null || !done.fit.converged) return null;
@@ -211,6 +218,7 @@ export function EventFitPanel(props: EventFitPanelProps) {
           referenceDataset={referenceDataset}
           onReferenceChange={setChosenReference}
           outlook={outlook}
+          bandNote={props.canEdit ? bandNote : null}
           isStale={isStale}
           exportQuery={referenceDataset === null ? null : eventFitQuery(targetId, done.choices, referenceDataset)}
           exportPath={`/api/proposals/${proposalId}/exports/figures/event-fit`}
@@ -240,13 +248,15 @@ interface FitResultProps {
   referenceDataset: string | null;
   onReferenceChange: (dataset: string) => void;
   outlook: string | null;
+  /** Why the reference dataset's magnitude may not be in the target's band; null when it is. */
+  bandNote: string | null;
   isStale: boolean;
   exportQuery: Record<string, string> | null;
   exportPath: string;
 }
 
 /** A converged fit: χ²/dof, the parameters, the datasets, the prediction, the figure and its downloads. */
-function FitResult({ done, view, title, referenceDataset, onReferenceChange, outlook, isStale, exportQuery, exportPath }: FitResultProps) {
+function FitResult({ done, view, title, referenceDataset, onReferenceChange, outlook, bandNote, isStale, exportQuery, exportPath }: FitResultProps) {
   const id = useId();
   const { fit } = done;
   return (
@@ -303,6 +313,7 @@ function FitResult({ done, view, title, referenceDataset, onReferenceChange, out
           </select>
         </div>
       ) : null}
+      {bandNote !== null ? <p className="text-dusk-dim">{bandNote}</p> : null}
       <p data-testid="fit-prediction">{done.prediction === null ? (done.predictionReason ?? "No prediction.") : outlook}</p>
       {view !== null ? (
         <figure className="space-y-1">

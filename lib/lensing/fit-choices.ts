@@ -71,7 +71,7 @@ export interface BandName {
 }
 
 /** Whether a dataset's band text ("I", "i", "I (Johnson–Cousins)", "jc-i") names `band`. */
-function isBand(text: string | undefined, band: BandName): boolean {
+export function isBand(text: string | undefined, band: BandName): boolean {
   if (text === undefined) return false;
   const said = text.trim().toLowerCase();
   const label = band.label.trim().toLowerCase();
