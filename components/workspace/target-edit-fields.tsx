@@ -47,6 +47,9 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     sourceRadiusSolar: optionalTyped(v.sourceRadiusSolar),
     sourceRadiusThetaE: optionalTyped(v.sourceRadiusThetaE),
     limbDarkeningU: optionalTyped(v.limbDarkeningU),
+    einsteinTimeDays: optionalTyped(v.einsteinTimeDays),
+    parallaxNorth: optionalTyped(v.parallaxNorth),
+    parallaxEast: optionalTyped(v.parallaxEast),
     sourceMagnitude: optionalTyped(v.sourceMagnitude),
     // Empty: the proposal's band, which follows a later change of the proposal's settings.
     sourceBand: optionalTyped(v.sourceBand),
@@ -145,6 +148,9 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
         <QuantityInput spec={targetQuantities.sourceRadiusSolar} label="Source radius (R☉)" name="sourceRadiusSolar" defaultValue={initial.sourceRadiusSolar} hint="or give ρ instead, not both" errors={fields.sourceRadiusSolar} />
         <QuantityInput spec={targetQuantities.sourceRadiusThetaE} label="Source radius ρ (θE)" name="sourceRadiusThetaE" inputMode="decimal" defaultValue={initial.sourceRadiusThetaE} hint="θ* / θE, typed directly" errors={fields.sourceRadiusThetaE} />
         <QuantityInput spec={targetQuantities.limbDarkeningU} label="Limb-darkening coefficient" name="limbDarkeningU" inputMode="decimal" defaultValue={initial.limbDarkeningU} hint="linear, 0 (uniform disk) to 1" errors={fields.limbDarkeningU} />
+        <QuantityInput spec={targetQuantities.einsteinTimeDays} label="Einstein time t_E (fitted)" name="einsteinTimeDays" defaultValue={initial.einsteinTimeDays} hint="days, or with a unit; used instead of θE / proper motion (empty: derived from them)" errors={fields.einsteinTimeDays} />
+        <QuantityInput spec={targetQuantities.parallaxNorth} label="Microlens parallax π_E,N" name="parallaxNorth" inputMode="decimal" defaultValue={initial.parallaxNorth} hint="north component, with π_E,E" errors={fields.parallaxNorth} />
+        <QuantityInput spec={targetQuantities.parallaxEast} label="Microlens parallax π_E,E" name="parallaxEast" inputMode="decimal" defaultValue={initial.parallaxEast} hint="east component, with π_E,N" errors={fields.parallaxEast} />
       </fieldset>
       <fieldset className="grid gap-4 md:grid-cols-3">
         <legend className="mb-2 text-sm text-dusk-dim">The source&apos;s brightness (the photon budget; leave empty when it does not apply)</legend>

@@ -49,6 +49,19 @@ export const acceptedRanges = {
    * real source's finite size caps it) to 1,000 (where the lensing magnification is 1 + 2e-12).
    */
   sourceOffsetThetaE: { min: 1e-6, max: 1000 },
+  /**
+   * Einstein time t_E measured by a light-curve fit, days. Our rule: from 0.001 d (86 s; the shortest
+   * events reported, of free-floating planet candidates, last hours, from memory) to 100,000 d (about
+   * 270 years; the longest events followed last a few years). Inside it every event window, schedule
+   * count and photon budget stays finite, as for the t_E that the proper-motion range gives.
+   */
+  einsteinTimeDays: { min: 1e-3, max: 1e5 },
+  /**
+   * Each component (north, east) of the microlens parallax vector π_E, measured by a fit. Our rule:
+   * |π_E,N|, |π_E,E| ≤ 100 (π_E = π_rel/θ_E reaches a few for a nearby stellar lens and tens for a
+   * planetary-mass lens within a kiloparsec, from memory).
+   */
+  microlensParallaxComponent: { min: -100, max: 100 },
 } as const satisfies Record<string, AcceptedRange>;
 
 /**

@@ -52,6 +52,9 @@ export function targetViewOf(t: Target): TargetView {
     sourceMagnitude: t.sourceMagnitude,
     sourceBand: t.sourceBand,
     blendFraction: t.blendFraction,
+    einsteinTimeDays: t.einsteinTimeDays,
+    parallaxNorth: t.parallaxNorth,
+    parallaxEast: t.parallaxEast,
     priority: t.priority,
     status: t.status,
     tags: t.tags,
@@ -116,8 +119,20 @@ export async function listTargets(params: unknown, query: unknown, actor: Actor 
   return { rows: rows.map(targetViewOf), total, page: q.page, pageSize: q.pageSize };
 }
 
-async function loadTarget(db: Parameters<typeof authorize>[0], proposalId: string, targetId: string): Promise<Target> {
+/** A target of the proposal, or 404. */
+export async function loadTarget(db: Parameters<typeof authorize>[0], proposalId: string, targetId: string): Promise<Target> {
   const [target] = await db.select().from(targets).where(and(eq(targets.id, targetId), eq(targets.proposalId, proposalId))).limit(1);
+  if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
+  return target;
+}
+
+/** A target of the proposal locked until the transaction ends, or 404: two changes of one target apply one after the other, never interleaved. */
+export async function lockTarget(tx: Parameters<typeof authorize>[0], proposalId: string, targetId: string): Promise<Target> {
+  const [target] = await tx
+    .select()
+    .from(targets)
+    .where(and(eq(targets.id, targetId), eq(targets.proposalId, proposalId)))
+    .for("update");
   if (!target) throw new AppError("not_found:target", "No such target in this proposal.");
   return target;
 }
@@ -160,13 +175,7 @@ export async function updateTarget(params: unknown, input: unknown, actor: Actor
   const { ra, dec, ...patch } = parseOrThrow(updateTargetSchema, input, "target");
   return dbClient().db.transaction(async (tx) => {
     const access = await authorize(tx, proposalId, who, "edit", "target");
-    // Row lock: two concurrent edits of one target apply one after the other, never interleaved.
-    const [current] = await tx
-      .select()
-      .from(targets)
-      .where(and(eq(targets.id, targetId), eq(targets.proposalId, proposalId)))
-      .for("update");
-    if (!current) throw new AppError("not_found:target", "No such target in this proposal.");
+    const current = await lockTarget(tx, proposalId, targetId);
     if (patch.status && !canChangeStatus(current.status, patch.status)) {
       throw new AppError("bad_request:target", `A ${current.status} target cannot become ${patch.status}.`, {
         status: [`Not allowed from ${current.status}.`],

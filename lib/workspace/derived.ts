@@ -23,7 +23,7 @@ import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from 
  * of a lensing formula, a feasibility rule or the schedule: startup re-derives every older row, so no
  * stored verdict is ever stale.
  */
-export const DERIVATION_VERSION = 2;
+export const DERIVATION_VERSION = 3;
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -73,9 +73,26 @@ function geometryOf(h: LensHypothesis): LensGeometry | null {
 const perDay = (seconds: number | null) => (seconds === null ? null : seconds / DAY_S);
 
 /**
- * The lens model's solution of a target's hypothesis (`lib/lensing/registry.ts`); null for an
- * incomplete hypothesis, or one outside the accepted ranges (a row stored before a range was
- * narrowed): no value reaches a physics function outside its domain.
+ * The solution with what a light-curve fit measured of the event in place of what the hypothesis
+ * predicts: the fitted t_E for θ_E/μ_rel (the typed proper motion stays as it is, and θ_E with it),
+ * and |π_E| = √(π_E,N² + π_E,E²), the length of the fitted parallax vector (its magnitude is
+ * π_rel/θ_E, its direction μ_rel's: Gould 2004, ApJ 606, 319), for π_rel/θ_E from the distances. Every reader of the solution (the stored columns, the science cases, the schedule's
+ * event windows, the photon budget, the page's figures) then follows the measurement.
+ */
+function withMeasuredEvent(solution: LensSolution, h: LensHypothesis): LensSolution {
+  const { einsteinTimeDays, parallaxNorth, parallaxEast } = h;
+  return {
+    ...solution,
+    einsteinTimeS: einsteinTimeDays == null ? solution.einsteinTimeS : einsteinTimeDays * DAY_S,
+    microlensParallax: parallaxNorth == null || parallaxEast == null ? solution.microlensParallax : Math.hypot(parallaxNorth, parallaxEast),
+  };
+}
+
+/**
+ * The lens model's solution of a target's hypothesis (`lib/lensing/registry.ts`), with the event's
+ * fitted t_E and parallax where the target has them (`withMeasuredEvent`); null for an incomplete
+ * hypothesis, or one outside the accepted ranges (a row stored before a range was narrowed): no
+ * value reaches a physics function outside its domain.
  */
 export function lensSolutionOf(h: LensHypothesis): { solution: LensSolution; geometry: LensGeometry } | null {
   const isComputable = lensHypothesisSchema.safeParse(h).success && Object.keys(lensHypothesisErrors(h)).length === 0;
@@ -83,7 +100,7 @@ export function lensSolutionOf(h: LensHypothesis): { solution: LensSolution; geo
   if (geometry === null) return null;
   const properMotionRadPerS = h.properMotionMasPerYr == null ? null : (h.properMotionMasPerYr * MILLIARCSECOND_RAD) / JULIAN_YEAR_S;
   const solution = solveLens(h.lensModel, h, geometry, h.sourceOffsetThetaE, properMotionRadPerS);
-  return solution === null ? null : { solution, geometry };
+  return solution === null ? null : { solution: withMeasuredEvent(solution, h), geometry };
 }
 
 /** The proposal's instrument as the science cases compare with it. */

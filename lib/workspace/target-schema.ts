@@ -142,6 +142,30 @@ export const targetQuantities = {
     range: { min: 0.001, max: 1 },
     rangeMessage: "The blend fraction f_s (the lensed source's share of the baseline flux) is from 0.001 to 1 (no blended light).",
   },
+  // What a light-curve fit measured of the event (applied as a revision, or typed): t_E, which then
+  // stands for θ_E/μ_rel everywhere, and the microlens parallax vector (north, east).
+  einsteinTimeDays: {
+    label: "Einstein time t_E (fitted)",
+    kind: "time",
+    unit: "d",
+    unitWords: "d",
+    example: "27.6 d",
+    ...targetRange("The fitted Einstein time t_E", acceptedRanges.einsteinTimeDays, "days", "86 seconds to about 270 years"),
+  },
+  parallaxNorth: {
+    label: "Microlens parallax π_E,N",
+    kind: "number",
+    example: "0.12",
+    range: acceptedRanges.microlensParallaxComponent,
+    rangeMessage: "The microlens parallax π_E,N (north) is from −100 to 100.",
+  },
+  parallaxEast: {
+    label: "Microlens parallax π_E,E",
+    kind: "number",
+    example: "-0.05",
+    range: acceptedRanges.microlensParallaxComponent,
+    rangeMessage: "The microlens parallax π_E,E (east) is from −100 to 100.",
+  },
   priority: {
     label: "Priority",
     kind: "number",
@@ -193,6 +217,9 @@ export const targetFieldsSchema = z.object({
   sourceMagnitude: optionalQuantityField(targetQuantities.sourceMagnitude),
   sourceBand: z.enum(photometryBandIds, { error: "The source's band is one of the built-in bands or the proposal's own; leave it empty for the proposal's band." }).nullable().optional(),
   blendFraction: optionalQuantityField(targetQuantities.blendFraction),
+  einsteinTimeDays: optionalQuantityField(targetQuantities.einsteinTimeDays),
+  parallaxNorth: optionalQuantityField(targetQuantities.parallaxNorth),
+  parallaxEast: optionalQuantityField(targetQuantities.parallaxEast),
   priority: quantityField(targetQuantities.priority),
   status: z.enum(targetStatuses, { error: `The status is one of ${targetStatuses.join(", ")}.` }),
   tags: z.array(tagSchema, { error: "Tags are a list of words." }).max(12, "At most 12 tags."),
@@ -227,6 +254,9 @@ export const lensHypothesisSchema = targetFieldsSchema.pick({
   sourceMagnitude: true,
   sourceBand: true,
   blendFraction: true,
+  einsteinTimeDays: true,
+  parallaxNorth: true,
+  parallaxEast: true,
 });
 
 /** The part of a target that its derived columns are computed from. */
@@ -249,6 +279,9 @@ export type LensHypothesis = Pick<
   | "sourceMagnitude"
   | "sourceBand"
   | "blendFraction"
+  | "einsteinTimeDays"
+  | "parallaxNorth"
+  | "parallaxEast"
 >;
 
 const present = (value: number | null | undefined): value is number => value !== null && value !== undefined;
@@ -275,6 +308,7 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
   const add = (field: string, message: string) => (fields[field] ??= []).push(message);
   for (const parameter of lensModelOf(h.lensModel).parameters) if (!present(h[parameter.key])) add(parameter.key, parameter.missingMessage);
   if (present(h.sourceRadiusSolar) && present(h.sourceRadiusThetaE)) add("sourceRadiusThetaE", "Give the source's radius or ρ, not both.");
+  if (present(h.parallaxNorth) !== present(h.parallaxEast)) add(present(h.parallaxNorth) ? "parallaxEast" : "parallaxNorth", "Give both components of the microlens parallax, π_E,N and π_E,E, or neither.");
   const hasDistances = present(h.lensDistancePc) || present(h.sourceDistancePc);
   const hasRedshifts = present(h.lensRedshift) || present(h.sourceRedshift);
   if (hasDistances && hasRedshifts) {

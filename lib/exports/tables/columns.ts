@@ -60,6 +60,10 @@ export const exportColumns = [
   input({ key: "sourceBand", label: "Source band", ucd: "meta.id;instr.filter", ...text }),
   // f_s: the source's flux over the baseline's (UCD1+: a ratio of fluxes).
   input({ key: "blendFraction", label: "Blend fraction f_s", unit: "", latexUnit: "", voUnit: "", ucd: "phot.flux;arith.ratio", kind: "double", defaultDigits: 3 }),
+  // What a light-curve fit measured: t_E (empty while it is θ_E/μ_rel, the crossing time below) and the parallax vector π_E (north, east).
+  input({ key: "einsteinTimeDays", label: "Einstein time t_E (fitted)", unit: "d", latexUnit: "d", voUnit: "d", ucd: "time.duration", kind: "double", defaultDigits: 4 }),
+  input({ key: "parallaxNorth", label: "Microlens parallax pi_E north", unit: "", latexUnit: "", voUnit: "", ucd: "pos.parallax;arith.ratio", kind: "double", defaultDigits: 3 }),
+  input({ key: "parallaxEast", label: "Microlens parallax pi_E east", unit: "", latexUnit: "", voUnit: "", ucd: "pos.parallax;arith.ratio", kind: "double", defaultDigits: 3 }),
   input({ key: "priority", label: "Priority", unit: "", latexUnit: "", voUnit: "", ucd: "meta.code.qual", kind: "int", defaultDigits: 0 }),
   input({ key: "status", label: "Status", ucd: "meta.code.status", ...text }),
   input({ key: "tags", label: "Tags", ucd: "meta.note", ...text }),

@@ -24,7 +24,7 @@ const documentedFilters = {
   answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"],
 } as const;
 const documentedExportColumns = [
-  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "sourceMagnitude", "sourceBand", "blendFraction", "priority", "status", "tags",
+  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "sourceMagnitude", "sourceBand", "blendFraction", "einsteinTimeDays", "parallaxNorth", "parallaxEast", "priority", "status", "tags",
   "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "timeRequestHours", "peakSignalToNoise", "answeredCase", "caseVerdict", "caseAnswers",
 ];
 

@@ -26,7 +26,7 @@ const extremeNumber = fc.oneof({ weight: 3, arbitrary: fc.constantFrom(...extrem
 const pointByDistance = { lensModel: "point", lensMassSolar: 0.5, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 5 };
 const sisByRedshift = { lensModel: "sis", velocityDispersionKmPerS: 250, lensRedshift: 0.4, sourceRedshift: 1.8, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 0.01 };
 const sisByDistance = { lensModel: "sis", velocityDispersionKmPerS: 250, lensDistancePc: 1e9, sourceDistancePc: 3e9, sourceOffsetThetaE: 0.3, properMotionMasPerYr: 0.01 };
-const numericTargetFields = ["lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU"] as const;
+const numericTargetFields = ["lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "einsteinTimeDays", "parallaxNorth", "parallaxEast"] as const;
 const instrument = instrumentSchema.parse({ resolutionMas: 0.025, cadenceHours: 24, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100 });
 /** Settings without cycle dates: no schedule, so these tests exercise the lensing and its rules alone. */
 const settings = (i: typeof instrument) => ({ site: { name: "S", latitudeDeg: -30, longitudeDeg: -70, elevationM: 2000, horizonLimitDeg: 20 }, instrument: i, photometry: defaultPhotometrySettings, cycleStartDate: null, cycleEndDate: null });
