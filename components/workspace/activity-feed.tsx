@@ -18,6 +18,8 @@ const verbs: Record<ActivityEntry["action"], string> = {
   "target.added": "added",
   "target.updated": "changed",
   "target.removed": "removed",
+  "target.fit_applied": "applied a light-curve fit to",
+  "target.fit_undone": "undid the light-curve fit of",
   "note.added": "wrote a",
   "note.edited": "edited a",
   "note.removed": "deleted a",

@@ -22,6 +22,8 @@ export type ActivityAction =
   | "target.added"
   | "target.updated"
   | "target.removed"
+  | "target.fit_applied"
+  | "target.fit_undone"
   | "note.added"
   | "note.edited"
   | "note.removed";

@@ -3,6 +3,7 @@ import { accountCollectionRoutes, accountRoutes, siteAccessRoutes } from "@/lib/
 import { sessionRoutes } from "@/lib/server/api/account-routes";
 import { activityRoutes, proposalCollectionRoutes, proposalRoutes } from "@/lib/server/api/proposal-routes";
 import { noteCollectionRoutes, noteRoutes, targetCollectionRoutes, targetRoutes } from "@/lib/server/api/target-routes";
+import { revisionCollectionRoutes, revisionUndoRoutes } from "@/lib/server/api/revision-routes";
 import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
 import { targetTableExportRoutes, technicalSummaryRoutes } from "@/lib/exports/server/routes";
 import { calendarRoutes } from "@/lib/exports/calendar/server";
@@ -103,6 +104,29 @@ export const endpoints: Endpoint[] = [
   { name: "GET /notes/:id", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]", siteAdmin: 200, handler: as(noteRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 200, 200, 200] },
   { name: "PATCH /notes/:id", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]", siteAdmin: 403, handler: as(noteRoutes, "PATCH"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, body: () => ({ body: "Revised.", version: 1 }), expected: [401, 404, 403, 200, 200] },
   { name: "DELETE /notes/:id", route: "/api/proposals/[proposalId]/targets/[targetId]/notes/[noteId]", siteAdmin: 403, handler: as(noteRoutes, "DELETE"), path: (w) => `${base(w)}/targets/${w.targetId}/notes/${w.noteId}`, params: noteParams, expected: [401, 404, 403, 204, 204] },
+  { name: "GET /targets/:id/revisions", route: "/api/proposals/[proposalId]/targets/[targetId]/revisions", siteAdmin: 200, handler: as(revisionCollectionRoutes, "GET"), path: (w) => `${base(w)}/targets/${w.targetId}/revisions`, params: targetParams, expected: [401, 404, 200, 200, 200] },
+  {
+    name: "POST /targets/:id/revisions",
+    route: "/api/proposals/[proposalId]/targets/[targetId]/revisions",
+    siteAdmin: 403,
+    handler: as(revisionCollectionRoutes, "POST"),
+    path: (w) => `${base(w)}/targets/${w.targetId}/revisions`,
+    params: targetParams,
+    body: () => ({
+      t0JdUtc: 2463020.92,
+      u0: 0.081,
+      einsteinTimeDays: 27.6,
+      rho: null,
+      parallaxNorth: null,
+      parallaxEast: null,
+      sourceMagnitude: 19.4,
+      blendFraction: 0.8,
+      sourceBand: null,
+      summary: { chi2: 410, dof: 402, pointCount: 412, referenceDataset: "Survey I", datasets: ["Survey I"], sigmas: { t0Days: 0.01, u0: 0.002, tEDays: 0.4 }, errorScales: { "Survey I": 1.1 } },
+    }),
+    expected: [401, 404, 403, 201, 201],
+  },
+  { name: "POST /revisions/:id/undo", route: "/api/proposals/[proposalId]/targets/[targetId]/revisions/[revisionId]/undo", siteAdmin: 403, handler: as(revisionUndoRoutes, "POST"), path: (w) => `${base(w)}/targets/${w.targetId}/revisions/${absentId}/undo`, params: (w) => ({ ...targetParams(w), revisionId: absentId }), expected: [401, 404, 403, 404, 404] },
   // The role check comes before the file is looked up, so editors reach "no such file" (a random id).
   { name: "POST /imports/preview", route: "/api/proposals/[proposalId]/imports/preview", siteAdmin: 403, handler: as(importPreviewRoutes, "POST"), path: (w) => `${base(w)}/imports/preview`, params: proposalParams, body: () => ({ fileId: absentId }), expected: [401, 404, 403, 404, 404] },
   { name: "POST /imports", route: "/api/proposals/[proposalId]/imports", siteAdmin: 403, handler: as(importCollectionRoutes, "POST"), path: (w) => `${base(w)}/imports`, params: proposalParams, body: () => ({ fileId: absentId, mapping: { name: { column: 0 }, ra: { column: 1 }, dec: { column: 2 } } }), expected: [401, 404, 403, 404, 404] },

@@ -116,6 +116,8 @@ const fromMatrix: HostileEndpoint[] = matrixEndpoints.map((e) => {
     ...(e.name.startsWith("GET /exports/figures") ? { paramChoices: { figure: skyFigureKinds } } : {}),
     // The matrix names an absent attachment (tests/integration/attachments.test.ts uploads real ones).
     ...(e.route.includes("[attachmentId]") ? { templateRefusal: "not_found:attachment" } : {}),
+    // The matrix names an absent revision (tests/integration/target-revisions.test.ts undoes real ones).
+    ...(e.route.includes("[revisionId]") ? { templateRefusal: "not_found:revision" } : {}),
     // The world's proposal has no cycle dates, so no schedule to put in a calendar (exports-calendar.test.ts has one).
     ...(e.name === "GET /exports/calendar" ? { templateRefusal: "bad_request:calendar" } : {}),
     body,

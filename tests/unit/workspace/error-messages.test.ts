@@ -24,6 +24,7 @@ import * as proposals from "@/lib/workspace/proposal-schema";
 import * as photometry from "@/lib/workspace/photometry-schema";
 import * as targetQuery from "@/lib/workspace/target-query";
 import * as targets from "@/lib/workspace/target-schema";
+import * as fitRevision from "@/lib/workspace/fit-revision";
 
 /**
  * Walks every zod schema of the product that reads user input with wrong types, missing fields,
@@ -78,6 +79,21 @@ const fieldWords: Record<string, RegExp> = {
   fit: /LaTeX table layout/i,
   sourceBand: /band/i,
   blendFraction: /blend fraction/i,
+  einsteinTimeDays: /Einstein time/i,
+  parallaxNorth: /parallax/i,
+  parallaxEast: /parallax/i,
+  t0JdUtc: /peak time t0/i,
+  u0: /impact parameter u0/i,
+  rho: /source radius ρ/i,
+  summary: /fit summary/i,
+  chi2: /χ²/,
+  dof: /degrees of freedom/i,
+  pointCount: /number of points/i,
+  referenceDataset: /reference dataset/i,
+  datasets: /dataset/i,
+  sigmas: /1σ errors/i,
+  errorScales: /error scale factors/i,
+  revisionId: /revision/i,
   photometry: /photometry/i,
   apertureM: /telescope aperture/i,
   centralObstructionM: /central obstruction/i,
@@ -279,6 +295,9 @@ const parsedByParseOrThrow: Record<string, z.ZodType> = {
   seasonWindowQuerySchema,
   tableColumnsQuerySchema,
   tableWriteOptionsSchema,
+  applyFitRequestSchema: fitRevision.applyFitRequestSchema,
+  fitSummarySchema: fitRevision.fitSummarySchema,
+  revisionParamsSchema: fitRevision.revisionParamsSchema,
 };
 
 describe("every schema's refusals are in the user's words and name the field", () => {
@@ -363,6 +382,7 @@ describe("the sky inputs, parsed outside parseOrThrow, word their own refusals",
 describe("the walk covers every schema of the product", () => {
   const walked = new Set([
     "lib/workspace/target-schema.ts",
+    "lib/workspace/fit-revision.ts",
     "lib/workspace/proposal-schema.ts",
     "lib/workspace/photometry-schema.ts",
     "lib/workspace/member-schema.ts",
