@@ -3,7 +3,7 @@ import { defineConfig } from "vitest/config";
 
 /**
  * Three projects: `unit` (pure logic, parallel), `integration` (route handlers and data access
- * against the real PostgreSQL that `npm test` starts; one file at a time because they share it) and
+ * against the real PostgreSQL that `npm test` starts; files in parallel, one database per worker) and
  * `e2e` (playwright-core driving Debian's Chromium against the built app that `npm test` serves).
  * Property tests (fast-check) run with one fixed seed (tests/support/property-seed.ts).
  */
@@ -36,8 +36,8 @@ export default defineConfig({
           name: "integration",
           environment: "node",
           include: ["tests/integration/**/*.test.ts"],
-          setupFiles: ["tests/support/property-seed.ts"],
-          fileParallelism: false,
+          // Files run in parallel workers, each on its own copy of the database (`npm test` makes them).
+          setupFiles: ["tests/support/worker-database.ts", "tests/support/property-seed.ts"],
           testTimeout: 20_000,
           hookTimeout: 30_000,
           server: { deps: { inline: ["next-auth"] } },

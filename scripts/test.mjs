@@ -25,6 +25,8 @@ import { throwawaySecrets } from "./lib/secrets.mjs";
 const repoRoot = resolve(fileURLToPath(import.meta.url), "../..");
 const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
 const allPhases = ["typecheck", "unit", "integration", "e2e"];
+/** Integration test files run in this many workers, one database each: one per core of the machines we run on. */
+const INTEGRATION_WORKERS = 2;
 
 function parseArgs(argv) {
   const filters = [...argv];
@@ -108,13 +110,20 @@ async function main() {
     const appUrl = `http://127.0.0.1:${appPort}`;
     const baseEnv = appEnvironment({ databaseUrl: cluster.url("arcwright_test"), appUrl, secrets, nodeEnv: "test" });
     await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env: baseEnv });
+    if (phases.includes("integration")) {
+      // Each integration worker gets its own copy of the migrated database (tests/support/worker-database.ts),
+      // made while nothing else is connected to it.
+      for (let worker = 1; worker <= INTEGRATION_WORKERS; worker++) cluster.copyDatabase("arcwright_test", `arcwright_test_w${worker}`);
+    }
 
     // tsc checks on one thread, so it runs beside the unit tests, which have the other core.
     const typecheck = phases.includes("typecheck") ? typecheckRun(baseEnv) : Promise.resolve(false);
     if (phases.includes("unit")) await vitestProject("unit", baseEnv, tmp, filters);
     const typesChecked = await typecheck;
-    if (phases.includes("integration")) await vitestProject("integration", baseEnv, tmp, filters);
 
+    // The app's build and the demo seed for the browser tests start now and run beside the integration
+    // tests, which wait on their database and sockets much of the time.
+    let e2e = null;
     if (phases.includes("e2e")) {
       // The shared build folder is reused while the sources are unchanged; a run that finds it in use
       // by another run builds into a folder of its own and removes it afterwards.
@@ -126,8 +135,20 @@ async function main() {
       // A build after this run's own passing tsc (which covers the app, its tests and scripts) does not
       // type-check again (next.config.mjs).
       const env = { ...baseEnv, ...fakes.env, NODE_ENV: "production", ARCWRIGHT_DIST_DIR: distDir, ...(typesChecked ? { ARCWRIGHT_TYPES_CHECKED: "1" } : {}) };
-      await ensureBuild(repoRoot, distDir, env);
-      await runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env });
+      // The demo seed goes into the database the integration tests leave alone (they use their copies).
+      const ready = Promise.all([ensureBuild(repoRoot, distDir, env), runOrThrow("demo seed", bin("tsx"), ["scripts/seed.ts"], { cwd: repoRoot, env })]);
+      ready.catch(() => {}); // awaited below; a failure must not end the run before the integration tests report
+      e2e = { env, ready };
+    }
+
+    if (phases.includes("integration")) {
+      const env = { ...baseEnv, ARCWRIGHT_WORKER_DATABASES: String(INTEGRATION_WORKERS) };
+      await vitestProject("integration", env, tmp, [`--maxWorkers=${INTEGRATION_WORKERS}`, ...filters]);
+    }
+
+    if (e2e !== null) {
+      const { env } = e2e;
+      await e2e.ready;
       // Served as `npm start` serves it: one `next start` per core (scripts/serve.mjs).
       startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
       await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 });
