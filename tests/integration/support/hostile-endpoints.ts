@@ -118,6 +118,9 @@ const fromMatrix: HostileEndpoint[] = matrixEndpoints.map((e) => {
     ...(e.route.includes("[attachmentId]") ? { templateRefusal: "not_found:attachment" } : {}),
     // The matrix names an absent revision (tests/integration/target-revisions.test.ts undoes real ones).
     ...(e.route.includes("[revisionId]") ? { templateRefusal: "not_found:revision" } : {}),
+    // The matrix names an absent photometry upload and kept file (tests/integration/event-photometry.test.ts uploads real ones).
+    ...(e.name.startsWith("POST /targets/:id/photometry") ? { templateRefusal: "not_found:file" } : {}),
+    ...(e.route.includes("[photometryId]") ? { templateRefusal: "not_found:photometry" } : {}),
     // The world's proposal has no cycle dates, so no schedule to put in a calendar (exports-calendar.test.ts has one).
     ...(e.name === "GET /exports/calendar" ? { templateRefusal: "bad_request:calendar" } : {}),
     body,
