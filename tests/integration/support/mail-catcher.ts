@@ -10,11 +10,16 @@ export interface CaughtMail {
   text: string;
 }
 
+/** How long the catcher waits before accepting each message (ms): a slow mail server, as a distant one is. */
+export interface AnswerDelay {
+  ms: number;
+}
+
 /**
  * An in-process SMTP server for integration tests, so invitation and link e-mails really go through
  * nodemailer. Sets SMTP_HOST/SMTP_PORT before the app reads its environment.
  */
-export async function startMailCatcher(): Promise<{ messages: CaughtMail[]; stop: () => Promise<void> }> {
+export async function startMailCatcher(delay: AnswerDelay = { ms: 0 }): Promise<{ messages: CaughtMail[]; stop: () => Promise<void> }> {
   const messages: CaughtMail[] = [];
   const server = new SMTPServer({
     authOptional: true,
@@ -23,7 +28,7 @@ export async function startMailCatcher(): Promise<{ messages: CaughtMail[]; stop
       simpleParser(stream)
         .then((parsed) => {
           messages.push({ to: session.envelope.rcptTo.map((r) => r.address), subject: parsed.subject ?? "", text: parsed.text ?? "" });
-          callback();
+          setTimeout(callback, delay.ms);
         })
         .catch(callback);
     },
@@ -43,13 +48,14 @@ export function linkIn(mail: CaughtMail): URL {
 
 /**
  * For a test file that sends mail: starts the catcher before its tests, and after them stops it and
- * ends the database client. `messages` is the catcher's list once the file's tests run.
+ * ends the database client. `messages` is the catcher's list once the file's tests run; a test may set
+ * `answerDelay.ms` to make the server slow.
  */
-export function catchMailDuringFile(): { messages: CaughtMail[] } {
-  const caught: { messages: CaughtMail[] } = { messages: [] };
+export function catchMailDuringFile(): { messages: CaughtMail[]; answerDelay: AnswerDelay } {
+  const caught: { messages: CaughtMail[]; answerDelay: AnswerDelay } = { messages: [], answerDelay: { ms: 0 } };
   let stop: (() => Promise<void>) | undefined;
   beforeAll(async () => {
-    const catcher = await startMailCatcher();
+    const catcher = await startMailCatcher(caught.answerDelay);
     caught.messages = catcher.messages;
     stop = catcher.stop;
   });
