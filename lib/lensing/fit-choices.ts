@@ -40,24 +40,18 @@ export function fitOptionsOf(choices: EventFitChoices, target: EventFitTarget): 
 }
 
 /**
- * Draws and band step of a finite-source fit's prediction (our rule): its magnification costs up to
- * ~0.7 ms a call (lib/lensing/finite-source.ts with limb darkening), so the default 1,000 draws on a
- * 0.1 d grid would take minutes; 200 draws give the 68 % band's ends to ~0.1 σ, and 0.25 d resolves a
- * peak of t_eff ≳ 1 d.
- */
-const FINITE_SOURCE_PREDICTION = { draws: 200, bandStepDays: 0.25 } as const;
-
-/**
  * The prediction's options for a fit of `points`: the band from the last point (our rule: the data's
  * end is "now" for a live event, and an export made later draws the same band), every dataset's zero
- * point the fluxes' 22 mag, the fit's limb darkening and the event's position.
+ * point the fluxes' 22 mag, the fit's limb darkening and the event's position. A finite-source fit
+ * takes the default draws and band step like any other (our rule, since the magnification's series
+ * made it ~0.05 µs a call away from the lens: 1,000 draws on the 0.1 d grid of the demo event's
+ * limb-darkened fit, with the source over the lens at the peak, take ~1–2.5 s; scripts/bench/finite-source.ts).
  */
-export function predictionOptionsOf(points: readonly PhotometryPoint[], fit: Pick<PointLensFit, "datasets" | "rho">, target: EventFitTarget): FitPredictionOptions {
+export function predictionOptionsOf(points: readonly PhotometryPoint[], fit: Pick<PointLensFit, "datasets">, target: EventFitTarget): FitPredictionOptions {
   let lastDays = -Infinity;
   for (const point of points) lastDays = Math.max(lastDays, point.tDays);
   return {
     fromDays: lastDays,
-    ...(fit.rho === undefined ? {} : FINITE_SOURCE_PREDICTION),
     limbDarkeningU: target.limbDarkeningU ?? 0,
     zeroPointsMag: Object.fromEntries(fit.datasets.map((d) => [d.dataset, REFERENCE_MAGNITUDE])),
     event: { raDeg: target.raDeg, decDeg: target.decDeg },
