@@ -182,6 +182,9 @@ class Problem {
   readonly da: Float64Array;
   readonly sourceFlux: Float64Array;
   readonly blendFlux: Float64Array;
+  /** Each dataset's weighted mean magnification ā and Σw²(A − ā)², as `solveFluxes` last found them. */
+  readonly meanA: Float64Array;
+  readonly spreadA: Float64Array;
   readonly p: number;
 
   constructor(
@@ -200,6 +203,8 @@ class Problem {
     this.da = new Float64Array(this.n * this.p);
     this.sourceFlux = new Float64Array(this.datasetCount);
     this.blendFlux = new Float64Array(this.datasetCount);
+    this.meanA = new Float64Array(this.datasetCount);
+    this.spreadA = new Float64Array(this.datasetCount);
   }
 
   /** Magnifications (and, if asked, their derivatives by the internal parameters) at `q`. */
@@ -246,25 +251,40 @@ class Problem {
     }
   }
 
-  /** Each dataset's F_s, F_b by weighted linear least squares on the current magnifications. */
+  /**
+   * Each dataset's F_s, F_b by weighted linear least squares on the current magnifications, from sums
+   * about the weighted means (F_s = Σw²(A − ā)(f − f̄) / Σw²(A − ā)², F_b = f̄ − F_s ā): the raw normal
+   * equations' determinant ΣA²Σ1 − (ΣA)² cancels to zero where every A is 1 + 10⁻¹⁰ (a search that
+   * wandered to a tiny t_E), and the fluxes came out NaN. A dataset whose magnifications do not vary at
+   * all has no source flux to find: F_s = 0 and F_b = f̄ (the constant that fits it best).
+   */
   solveFluxes(): void {
-    const sums = new Float64Array(this.datasetCount * 5);
+    const count = this.datasetCount;
+    const sums = new Float64Array(count * 3);
     for (let i = 0; i < this.n; i++) {
-      const d = this.data.datasetIndex[i] * 5;
+      const d = this.data.datasetIndex[i] * 3;
       const w2 = this.weight[i] * this.weight[i];
-      const a = this.a[i];
-      const f = this.data.flux[i];
-      sums[d] += w2 * a * a;
-      sums[d + 1] += w2 * a;
-      sums[d + 2] += w2;
-      sums[d + 3] += w2 * a * f;
-      sums[d + 4] += w2 * f;
+      sums[d] += w2;
+      sums[d + 1] += w2 * this.a[i];
+      sums[d + 2] += w2 * this.data.flux[i];
     }
-    for (let d = 0; d < this.datasetCount; d++) {
-      const [saa, sa, s1, saf, sf] = sums.subarray(d * 5, d * 5 + 5);
-      const det = saa * s1 - sa * sa;
-      this.sourceFlux[d] = (saf * s1 - sa * sf) / det;
-      this.blendFlux[d] = (saa * sf - sa * saf) / det;
+    const meanF = new Float64Array(count);
+    for (let d = 0; d < count; d++) {
+      this.meanA[d] = sums[d * 3 + 1] / sums[d * 3];
+      meanF[d] = sums[d * 3 + 2] / sums[d * 3];
+    }
+    const spreadA = this.spreadA.fill(0);
+    const cross = new Float64Array(count);
+    for (let i = 0; i < this.n; i++) {
+      const d = this.data.datasetIndex[i];
+      const w2 = this.weight[i] * this.weight[i];
+      const da = this.a[i] - this.meanA[d];
+      spreadA[d] += w2 * da * da;
+      cross[d] += w2 * da * (this.data.flux[i] - meanF[d]);
+    }
+    for (let d = 0; d < count; d++) {
+      this.sourceFlux[d] = spreadA[d] > 0 ? cross[d] / spreadA[d] : 0;
+      this.blendFlux[d] = meanF[d] - this.sourceFlux[d] * this.meanA[d];
     }
   }
 
@@ -298,16 +318,16 @@ class Problem {
     const { n, p } = this;
     this.magnifications(q, true);
     this.solveFluxes();
+    // The dataset's span of (wA, w) has the orthogonal basis (w(A − ā), w) under its weights, so each
+    // column's projection is two independent ratios, with no determinant to cancel (see solveFluxes).
     const jac = new Float64Array(n * p);
-    const normal = new Float64Array(this.datasetCount * 3);
+    const weightSums = new Float64Array(this.datasetCount);
     const projections = new Float64Array(this.datasetCount * p * 2);
     for (let i = 0; i < n; i++) {
       const d = this.data.datasetIndex[i];
       const w = this.weight[i];
-      const b1 = w * this.a[i];
-      normal[d * 3] += b1 * b1;
-      normal[d * 3 + 1] += b1 * w;
-      normal[d * 3 + 2] += w * w;
+      const b1 = w * (this.a[i] - this.meanA[d]);
+      weightSums[d] += w * w;
       for (let k = 0; k < p; k++) {
         const g = w * this.sourceFlux[d] * this.da[i * p + k];
         jac[i * p + k] = g;
@@ -316,20 +336,17 @@ class Problem {
       }
     }
     for (let d = 0; d < this.datasetCount; d++) {
-      const [m11, m12, m22] = normal.subarray(d * 3, d * 3 + 3);
-      const det = m11 * m22 - m12 * m12;
       for (let k = 0; k < p; k++) {
-        const x = projections[(d * p + k) * 2];
-        const y = projections[(d * p + k) * 2 + 1];
-        projections[(d * p + k) * 2] = (m22 * x - m12 * y) / det;
-        projections[(d * p + k) * 2 + 1] = (m11 * y - m12 * x) / det;
+        const at = (d * p + k) * 2;
+        projections[at] = this.spreadA[d] > 0 ? projections[at] / this.spreadA[d] : 0;
+        projections[at + 1] /= weightSums[d];
       }
     }
     for (let i = 0; i < n; i++) {
       const d = this.data.datasetIndex[i];
       const w = this.weight[i];
       for (let k = 0; k < p; k++) {
-        jac[i * p + k] -= projections[(d * p + k) * 2] * w * this.a[i] + projections[(d * p + k) * 2 + 1] * w;
+        jac[i * p + k] -= projections[(d * p + k) * 2] * w * (this.a[i] - this.meanA[d]) + projections[(d * p + k) * 2 + 1] * w;
       }
     }
     return jac;
