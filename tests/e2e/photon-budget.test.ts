@@ -1,7 +1,7 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { baseUrl, launchBrowser, newPage } from "./support/browser";
-import { signInAsDemo } from "./support/demo";
+import { launchBrowser, newPage } from "./support/browser";
+import { createOwnTarget, signInAsDemo } from "./support/demo";
 
 let browser: Browser;
 
@@ -27,47 +27,41 @@ describe("the photon budget on the proposal and target pages (issue #17)", () =>
     const { page, context, consoleErrors } = await newPage(browser);
     await signInAsDemo(page, "pi");
     // A proposal of its own (the demo proposal stays as seeded): a bulge event seen from the demo site.
-    const created = await context.request.post(`${baseUrl}/api/proposals`, {
-      data: {
+    const { proposalId, targetId } = await createOwnTarget(
+      context.request,
+      {
         title: `Time request ${run}`,
         cycle: "2031A",
         cycleStartDate: "2031-05-01",
         cycleEndDate: "2031-07-31",
-        site: { name: "Mesa Lucerna Station", latitudeDeg: -31.27, longitudeDeg: -68.93, elevationM: 2480, horizonLimitDeg: 20 },
         instrument: { resolutionMas: 800, cadenceHours: 24, campaignLengthDays: 90 },
         photometry: { apertureM: 4, centralObstructionM: 1, bandId: "jc-i" },
       },
-    });
-    expect(created.status()).toBe(201);
-    const { proposal } = (await created.json()) as { proposal: { id: string } };
-    const added = await context.request.post(`${baseUrl}/api/proposals/${proposal.id}/targets`, {
-      data: {
+      {
         name: `FAINT-${run}`, ra: "17 55 02.3", dec: "-30 02 44", lensModel: "point", lensMassSolar: 0.5, lensDistancePc: 4000, sourceDistancePc: 8000,
         sourceOffsetThetaE: 0.3, properMotionMasPerYr: 5, eventPeakJdUtc: "2031-06-15 04:00", sourceMagnitude: 21, blendFraction: 0.5, priority: 1,
       },
-    });
-    expect(added.status()).toBe(201);
-    const { target } = (await added.json()) as { target: { id: string } };
+    );
 
-    await page.goto(`/proposals/${proposal.id}`);
+    await page.goto(`/proposals/${proposalId}`);
     const withFourMetres = hoursOf(await page.getByTestId("time-request").textContent());
     expect(await page.getByTestId("time-request").textContent()).toContain("for 1 of 1 targets");
 
     // The settings page: a 1 m telescope instead of 4 m (the obstruction scaled with it).
-    await page.goto(`/proposals/${proposal.id}/settings`);
+    await page.goto(`/proposals/${proposalId}/settings`);
     const settings = page.getByRole("form", { name: "Proposal settings" });
     await settings.getByLabel("Telescope aperture (m)").fill("100 cm");
     await settings.getByLabel("Central obstruction (m)").fill("0.25 m");
     await settings.getByRole("button", { name: "Save settings" }).click();
     await settings.getByRole("status").getByText(/^Saved at /).waitFor();
 
-    await page.goto(`/proposals/${proposal.id}`);
+    await page.goto(`/proposals/${proposalId}`);
     const withOneMetre = hoursOf(await page.getByTestId("time-request").textContent());
     // A sixteenth of the light: the same visits need longer exposures, so more hours are asked for.
     expect(withOneMetre).toBeGreaterThan(withFourMetres);
 
     // The target page shows the budget: its hours, every visit, and the depth answer at the worst visit.
-    await page.goto(`/proposals/${proposal.id}/targets/${target.id}`);
+    await page.goto(`/proposals/${proposalId}/targets/${targetId}`);
     await page.getByTestId("photon-budget").waitFor();
     expect(hoursOf(await page.getByTestId("target-time-request").textContent())).toBeCloseTo(withOneMetre, 1);
     expect(await page.getByTestId("case-answer-depth").getAttribute("data-verdict")).toMatch(/^(feasible|marginal|infeasible)$/);
