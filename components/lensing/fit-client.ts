@@ -26,7 +26,7 @@ export class FitWorkerClient {
     return this.run<FitClientOutcome>((api) => api.fit(points, options, proxy(onProgress)), { status: "cancelled", message: CANCELLED_MESSAGE });
   }
 
-  /** predictFromFit of a fit in the worker (its Monte-Carlo draws take long with a finite source); cancelled like a fit. */
+  /** predictFromFit of a fit in the worker (1,000 Monte-Carlo draws of the model: seconds with a finite source); cancelled like a fit. */
   predict(fit: PointLensFit, options: FitPredictionOptions): Promise<FitPredictionOutcome> {
     return this.run<FitPredictionOutcome>((api) => api.predict(fit, options), { ok: false, reason: CANCELLED_PREDICTION_MESSAGE });
   }

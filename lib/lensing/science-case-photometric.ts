@@ -49,7 +49,7 @@ function peakMagnificationAnswer(inputs: ScienceCaseInputs): CaseAnswer {
   const question: Question = {
     id: "peak-magnification",
     question: "Peak magnification",
-    source: `${PACZYNSKI} (point source); Witt & Mao 1994, ApJ 430, 505 (finite source); Lee et al. 2009, ApJ 695, 200 (the disk integral, limb darkening); thresholds: common practice (A ≥ 1.34 is u0 ≤ 1) and our rule (marginal from A = 1.06, u0 = 2)`,
+    source: `${PACZYNSKI} (point source); Witt & Mao 1994, ApJ 430, 505 (finite source); Lee et al. 2009, ApJ 695, 200 (the disk integral near the lens); Gould 2008, ApJ 681, 1593 and Pejcha & Heyrovský 2009, ApJ 690, 1772 (the series in the source radius away from it); thresholds: common practice (A ≥ 1.34 is u0 ≤ 1) and our rule (marginal from A = 1.06, u0 = 2)`,
   };
   if (inputs.solution.shadowDiameterRad === null) {
     return missingInput(question, "The peak magnification of a microlensing event is computed for a compact (point) lens, and this lens is extended: choose another science case for it.");

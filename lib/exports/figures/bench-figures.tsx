@@ -32,7 +32,7 @@ export const BENCH_PLOT_HEIGHT_PX = 340;
 const figureReferences: Record<BenchFigureKind, readonly CitationKey[]> = {
   "lens-plane": ["paczynski1986", "schneider1992", "virbhadra2000", "okabe2008"],
   deflection: ["darwin1959", "carlson1995", "keeton2005", "bozza2002", "okabe2008"],
-  "light-curve": ["paczynski1986", "wittmao1994", "lee2009", "astronomyengine", "pickering2002", "okabe2008"],
+  "light-curve": ["paczynski1986", "wittmao1994", "lee2009", "gould2008", "pejcha2009", "astronomyengine", "pickering2002", "okabe2008"],
   "astrometric-track": ["walker1995", "miyamoto1995", "hog1995", "astronomyengine", "pickering2002", "okabe2008"],
 };
 

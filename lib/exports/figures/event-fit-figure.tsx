@@ -43,7 +43,7 @@ export function eventFitPlotExport(input: EventFitExportInput): PlotExport {
   const markup = renderStaticSvg(<EventFitPlot view={view} title={title} width={EVENT_FIT_WIDTH_PX} height={EVENT_FIT_HEIGHT_PX} palette={printPalette} />);
   const reproduceUrl = new URL(input.reproducePath, input.appOrigin).toString();
   const references: CitationKey[] = ["paczynski1986", "levenberg1944", "marquardt1963", "golub1973", "gould2004", "okabe2008"];
-  if (choices.finiteSource) references.push("lee2009");
+  if (choices.finiteSource) references.push("lee2009", "gould2008", "pejcha2009");
   if (input.schedule !== null) references.push("astronomyengine", "pickering2002");
   const provenance = buildProvenance({
     subject: `Light-curve fit: ${title}`,

@@ -34,7 +34,7 @@ const tableQuerySchema = tableWriteOptionsSchema.extend({
 const TARGET_TABLE_REFERENCES: readonly CitationKey[] = [
   ...new Set([
     ...feasibilityRuleReferences.flatMap((rule) => rule.references),
-    ...(["paczynski1986", "refsdal1964", "schneider1992", "wittmao1994", "lee2009", "gould2000", "walker1995", "wozniak1997"] as const),
+    ...(["paczynski1986", "refsdal1964", "schneider1992", "wittmao1994", "lee2009", "gould2008", "pejcha2009", "gould2000", "walker1995", "wozniak1997"] as const),
     ...(["astronomyengine", "pickering2002", "krisciunas1991", "willmer2018", "merline1995", "howell2006", "moffat1969", "lindegren1978"] as const),
   ]),
 ];
