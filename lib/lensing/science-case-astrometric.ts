@@ -96,7 +96,7 @@ function detectionAnswer(inputs: ScienceCaseInputs): CaseAnswer {
   };
   const { solution, event, instrument } = inputs;
   if (solution.maxAstrometricShiftRad === null) return missingInput(question, NOT_COMPACT);
-  if (solution.einsteinTimeS === null) return missingInput(question, "Set the relative proper motion to get the event's timescale t_E and find when the shift occurs.");
+  if (solution.einsteinTimeS === null) return missingInput(question, "Set the relative proper motion, or apply a light-curve fit, to get the event's timescale t_E and find when the shift occurs.");
   const u0 = event.impactParameterThetaE;
   if (u0 === null) return missingInput(question, "Set the event's impact parameter u0 (its closest approach, in Einstein radii) to find when the shift is largest.");
   const t0 = event.peakJdUtc;

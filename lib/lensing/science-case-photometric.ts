@@ -27,7 +27,7 @@ import { dateWords, daysWords, gapReasonWords, isCalendarDate, numberWords, SEAS
 
 const PACZYNSKI = "Paczyński 1986, ApJ 304, 1";
 
-const NEEDS_EINSTEIN_TIME = "Set the relative proper motion to get the event's timescale t_E";
+const NEEDS_EINSTEIN_TIME = "Set the relative proper motion, or apply a light-curve fit, to get the event's timescale t_E";
 const NEEDS_PEAK_DATE = "Set the event's peak date (t0)";
 const NEEDS_IMPACT = "Set the event's impact parameter u0 (its closest approach, in Einstein radii)";
 

@@ -289,7 +289,7 @@ describe("missing inputs are named in words (issue 16, item 8)", () => {
 
   it("asks for the relative proper motion when t_E is unknown", () => {
     const answers = scienceCaseQuestions("photometric-microlensing", bulgeInputs({ solution: { ...bulge, einsteinTimeS: null } }));
-    expect(answer(answers, "event-duration").sentence).toMatch(/^Set the relative proper motion to get the event's timescale t_E/);
+    expect(answer(answers, "event-duration").sentence).toMatch(/^Set the relative proper motion, or apply a light-curve fit, to get the event's timescale t_E/);
   });
 
   it("asks for the impact parameter, and for ρ when a point source passes exactly behind the lens", () => {
