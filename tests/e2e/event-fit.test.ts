@@ -70,6 +70,8 @@ describe("an ongoing event: photometry, fit, apply and undo (issue #19)", () => 
     await section.getByTestId("photometry-summary").filter({ hasText: "310 points in 2 datasets" }).waitFor();
     await section.getByRole("button", { name: "Keep photometry" }).click();
     await section.getByTestId("photometry-kept").waitFor();
+    // The list of kept files is fetched again after the keep.
+    await section.getByTestId("photometry-file").first().waitFor();
     expect(await section.getByTestId("photometry-file").count()).toBe(1);
 
     // The fit runs in a worker; the demo file was drawn from t0 2031-06-13 10:00 UTC, u0 0.08, t_E 28 d.
