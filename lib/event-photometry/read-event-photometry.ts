@@ -6,7 +6,7 @@
 import { AppError } from "@/lib/errors";
 import { dateFromJdUtc } from "@/lib/astro/time";
 import type { ImportTable } from "@/lib/imports/import-table";
-import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { MAX_IMPORT_BYTES, MAX_IMPORT_ROWS, TooManyRowsError } from "@/lib/imports/limits";
 import { formatMebibytes } from "@/lib/imports/import-table";
 import { readImportFile } from "@/lib/imports/read-import-file";
 import type { PhotometryPoint } from "@/lib/lensing/fit-input";
@@ -70,7 +70,12 @@ export function readPhotometryFile(bytes: Uint8Array): ImportTable {
   if (bytes.length > MAX_IMPORT_BYTES) {
     throw new AppError("payload_too_large:import", `The photometry file is larger than ${formatMebibytes(MAX_IMPORT_BYTES)}, the limit for one upload: bin the light curve or split it by season.`);
   }
-  return readImportFile(bytes);
+  try {
+    return readImportFile(bytes);
+  } catch (error) {
+    if (!(error instanceof TooManyRowsError)) throw error;
+    throw new AppError("bad_request:import", `The photometry file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} rows, the most one upload reads: bin the light curve or split it by season.`);
+  }
 }
 
 /** The mapping's refusals in words: what the user must still choose. Empty when the mapping can be read. */

@@ -2,7 +2,7 @@ import Papa from "papaparse";
 import { AppError } from "@/lib/errors";
 import { readEcsvHeader } from "@/lib/imports/ecsv-header";
 import type { ImportColumn, ImportTable } from "@/lib/imports/import-table";
-import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { MAX_IMPORT_ROWS, TooManyRowsError } from "@/lib/imports/limits";
 
 const importError = (message: string) => new AppError("bad_request:import", message);
 
@@ -58,7 +58,7 @@ export function parseCsvTable(text: string): ImportTable {
   if (header === undefined) throw importError("The file is empty.");
   if (dataRows.length === 0) throw importError("The file has a header row but no data rows.");
   if (dataRows.length > MAX_IMPORT_ROWS) {
-    throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+    throw new TooManyRowsError();
   }
   return {
     format: "csv",

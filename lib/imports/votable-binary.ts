@@ -7,7 +7,7 @@
  * the text TABLEDATA would hold, so the rest of the import reads both the same.
  */
 import { AppError } from "@/lib/errors";
-import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { MAX_IMPORT_ROWS, TooManyRowsError } from "@/lib/imports/limits";
 
 const importError = (message: string) => new AppError("bad_request:import", message);
 
@@ -195,7 +195,7 @@ export function decodeBinaryStream(base64: string, fields: BinaryField[], hasNul
   const rows: string[][] = [];
   while (!cursor.isAtEnd) {
     if (rows.length === MAX_IMPORT_ROWS) {
-      throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+      throw new TooManyRowsError();
     }
     const rowNumber = rows.length + 1;
     const flags = cursor.take(flagBytes, () => `row ${rowNumber}`).bytes;

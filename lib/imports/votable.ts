@@ -1,7 +1,7 @@
 import { XMLParser, XMLValidator } from "fast-xml-parser";
 import { AppError } from "@/lib/errors";
 import type { ImportColumn, ImportRow, ImportTable } from "@/lib/imports/import-table";
-import { MAX_IMPORT_ROWS } from "@/lib/imports/limits";
+import { MAX_IMPORT_ROWS, TooManyRowsError } from "@/lib/imports/limits";
 import { decodeBinaryStream, type BinaryField } from "@/lib/imports/votable-binary";
 
 const importError = (message: string) => new AppError("bad_request:import", message);
@@ -66,7 +66,7 @@ function cellText(td: unknown): string {
 function tableDataRows(tableData: XmlNode, nullValues: (string | undefined)[]): string[][] {
   const trs = asNodes(tableData.TR);
   if (trs.length > MAX_IMPORT_ROWS) {
-    throw importError(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows; split it into smaller lists.`);
+    throw new TooManyRowsError();
   }
   return trs.map((tr) =>
     (Array.isArray(tr.TD) ? tr.TD : []).map((td, column) => {

@@ -95,7 +95,7 @@ describe("bad photometry", () => {
     // 10⁶ one-column rows fit under 5 MiB: the reader stops after MAX_IMPORT_ROWS + 1 of them.
     const narrow = new TextEncoder().encode(`t\n${"1\n".repeat(1_000_000)}`);
     start = performance.now();
-    expect(() => readPhotometryFile(narrow)).toThrow(`The file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} data rows`);
+    expect(() => readPhotometryFile(narrow)).toThrow(`The photometry file has more than ${MAX_IMPORT_ROWS.toLocaleString("en-US")} rows, the most one upload reads: bin the light curve or split it by season.`);
     const rowsMs = performance.now() - start;
     const heapMb = (process.memoryUsage().heapUsed - heapBefore) / 2 ** 20;
     console.log(`10⁶ rows: ${(big.length / 2 ** 20).toFixed(1)} MiB refused by size in ${sizeMs.toFixed(2)} ms; ${(narrow.length / 2 ** 20).toFixed(1)} MiB refused by row count in ${rowsMs.toFixed(1)} ms; heap +${heapMb.toFixed(1)} MiB`);
