@@ -24,6 +24,9 @@ export const importFields = [
   "sourceMagnitude",
   "sourceBand",
   "blendFraction",
+  "einsteinTimeDays",
+  "parallaxNorth",
+  "parallaxEast",
   "priority",
   "tags",
 ] as const;
@@ -53,6 +56,9 @@ export const importFieldLabels: Record<ImportField, string> = {
   sourceMagnitude: targetQuantities.sourceMagnitude.label,
   sourceBand: "Source band",
   blendFraction: targetQuantities.blendFraction.label,
+  einsteinTimeDays: `${targetQuantities.einsteinTimeDays.label} (days)`,
+  parallaxNorth: targetQuantities.parallaxNorth.label,
+  parallaxEast: targetQuantities.parallaxEast.label,
   priority: "Priority",
   tags: "Tags",
 };
@@ -97,6 +103,9 @@ export const importFieldKinds: Record<ImportField, FieldKind> = {
   sourceMagnitude: "magnitude",
   sourceBand: "band",
   blendFraction: "number",
+  einsteinTimeDays: "number",
+  parallaxNorth: "number",
+  parallaxEast: "number",
   priority: "integer",
   tags: "tags",
 };
@@ -177,6 +186,13 @@ const headerSpellings: Record<ImportField, string[]> = {
   sourceBand: ["sourceband", "band", "filter", "passband", "bandpass", "magband", "photband", "sourcefilter"],
   // f_s, or OGLE's Early Warning System "fbl" (the source's share of the baseline flux; from memory).
   blendFraction: ["fs", "fsource", "fsrc", "blendfraction", "blending", "blendingfraction", "sourcefraction", "fbl", "blendfractionfs"],
+  // A light-curve fit's t_E and π_E components (tE, piEN, piEE: the usual symbols; common practice),
+  // then our own VOTable/ECSV names and CSV headers (a header's bracketed word is set apart as its
+  // unit, so "Einstein time t_E (fitted)" is spelled "einsteintimete"). A bare "piE" is the
+  // parallax's length, neither component.
+  einsteinTimeDays: ["te", "tefit", "teinstein", "einsteintime", "einsteintimedays", "einsteintimete"],
+  parallaxNorth: ["pien", "pienorth", "parallaxnorth", "microlensparallaxpienorth"],
+  parallaxEast: ["piee", "pieeast", "parallaxeast", "microlensparallaxpieeast"],
   priority: ["priority", "prio", "rank"],
   tags: ["tags", "tag", "labels", "label", "keywords"],
 };

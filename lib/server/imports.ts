@@ -132,7 +132,7 @@ async function loadTargetList(db: Queryable, proposalId: string, fileId: string)
 
 async function existingTargets(db: Queryable, proposalId: string): Promise<ExistingTarget[]> {
   const rows = await db.select().from(targets).where(eq(targets.proposalId, proposalId));
-  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, sourceMagnitude, sourceBand, blendFraction, priority, tags }) => ({
+  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, sourceMagnitude, sourceBand, blendFraction, einsteinTimeDays, parallaxNorth, parallaxEast, priority, tags }) => ({
     id,
     name,
     raDeg,
@@ -154,6 +154,9 @@ async function existingTargets(db: Queryable, proposalId: string): Promise<Exist
     sourceMagnitude,
     sourceBand,
     blendFraction,
+    einsteinTimeDays,
+    parallaxNorth,
+    parallaxEast,
     priority,
     tags,
   }));

@@ -135,6 +135,8 @@ const EXTRA_EVENT_PEAK_JD = 2462668.8337962963;
 const EXTRA_EVENT_NAME = "OB-31-0042";
 /** The event's source: a magnitude with every digit a double holds, in a band other than the proposal's. */
 const EXTRA_EVENT_SOURCE = { sourceMagnitude: 19.123456789012344, sourceBand: "sdss-i", blendFraction: 0.37 };
+/** What a light-curve fit applied to it measured: t_E and the parallax vector, with every digit. */
+const EXTRA_EVENT_FIT = { einsteinTimeDays: 27.612345678901234, parallaxNorth: 0.123456789012345, parallaxEast: -0.0543210987654321 };
 /** The demo targets' sources: magnitudes 16.5, 16.9, … in the proposal's band (I), every third one blended. */
 const demoSourceOf = (index: number) => ({ sourceMagnitude: 16.5 + 0.4 * index, ...(index % 3 === 0 ? { blendFraction: 0.55 } : {}) });
 
@@ -162,6 +164,7 @@ async function demoLikeWorld(): Promise<World> {
     limbDarkeningU: 0.55,
     scienceCase: "photometric-microlensing" as const,
     ...EXTRA_EVENT_SOURCE,
+    ...EXTRA_EVENT_FIT,
   };
   for (const [index, { notes: _notes, status: _status, ...target }] of [...demoTargets, extra, event].entries()) {
     await createTarget({ proposalId: world.proposalId }, { ...demoSourceOf(index), ...target }, world.actors.pi);
@@ -237,7 +240,7 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
     // Four JVMs (STILTS) and astropy beside the database: 3 s on an idle machine, several times that under load.
   }, 90_000);
 
-  it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening, the source's magnitude, band and f_s and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
+  it("our own VOTable (and ECSV) of every column re-imports with every unchanged target unchanged, t0, source size, limb darkening, the source's magnitude, band and f_s, a fit's t_E and π_E and chosen cases included (9-digit RA/Dec made 16 of 20 an update)", async () => {
     const world = await demoLikeWorld();
     const votable = await (await download(world.actors.coi, world.proposalId, `format=votable&${allColumns}`)).text();
     const preview = await previewOf(world, votable);
@@ -253,11 +256,14 @@ describe("table exports read by astropy and STILTS (tests/validators/check_table
         "sourceMagnitude: sourceMagnitude",
         "sourceBand: sourceBand",
         "blendFraction: blendFraction",
+        "einsteinTimeDays: einsteinTimeDays",
+        "parallaxNorth: parallaxNorth",
+        "parallaxEast: parallaxEast",
       ]),
     );
     expect(mappedNames.filter((entry) => /answeredCase|caseVerdict|caseAnswers|einsteinRadiusMas|timeRequestHours|peakSignalToNoise/.test(entry))).toEqual([]);
     const event = preview.rows.find((row) => row.cells.name === EXTRA_EVENT_NAME)!;
-    expect(event.values).toMatchObject({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD, sourceRadiusThetaE: 0.0021, limbDarkeningU: 0.55, ...EXTRA_EVENT_SOURCE });
+    expect(event.values).toMatchObject({ eventPeakJdUtc: EXTRA_EVENT_PEAK_JD, sourceRadiusThetaE: 0.0021, limbDarkeningU: 0.55, ...EXTRA_EVENT_SOURCE, ...EXTRA_EVENT_FIT });
     expect(preview.rows.filter((row) => row.values?.sourceRadiusSolar != null && row.values.eventPeakJdUtc != null)).toHaveLength(1);
     expect(preview.rows.filter((row) => row.action !== "skip").map((row) => `row ${row.rowNumber}: ${row.action}, ${row.detail}`)).toEqual([]);
     expect(preview.counts).toEqual({ added: 0, updated: 0, skipped: demoTargets.length + 3, invalid: 0 });

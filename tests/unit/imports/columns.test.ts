@@ -1,4 +1,5 @@
 import { describe, expect, it } from "vitest";
+import { exportColumns } from "@/lib/exports/tables/columns";
 import { proposeColumnMapping } from "@/lib/imports/columns";
 import { columnFromHeader } from "@/lib/imports/csv";
 
@@ -59,5 +60,18 @@ describe("proposeColumnMapping", () => {
 
   it("maps a lone magnitude column to the source magnitude (dropped silently before the photon budget read it)", () => {
     expect(fromHeaders("name", "magnitude", "notes")).toEqual({ name: { column: 0 }, sourceMagnitude: { column: 1, unit: "mag", isUnitAssumed: true } });
+  });
+});
+
+describe("a light-curve fit's columns", () => {
+  it("map back from this product's own export (VOTable/ECSV names and CSV headers) and from the usual symbols", () => {
+    for (const key of ["einsteinTimeDays", "parallaxNorth", "parallaxEast"] as const) {
+      const column = exportColumns.find((c) => c.key === key)!;
+      expect(fromHeaders("name", "ra", "dec", column.key)[key], column.key).toEqual({ column: 3 });
+      expect(fromHeaders("name", "ra", "dec", column.label)[key], column.label).toEqual({ column: 3 });
+    }
+    expect(fromHeaders("tE", "piEN", "piEE")).toEqual({ einsteinTimeDays: { column: 0 }, parallaxNorth: { column: 1 }, parallaxEast: { column: 2 } });
+    // π_E alone is the parallax's length, neither component.
+    expect(fromHeaders("piE")).toEqual({});
   });
 });
