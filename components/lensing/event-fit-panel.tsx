@@ -93,8 +93,9 @@ export function EventFitPanel(props: EventFitPanelProps) {
     if (schedule === null) return NO_SCHEDULE_SENTENCE;
     try {
       return sitePeakOutlook({ prediction: done.prediction, schedule, site: props.site, target }).sentence;
-    } catch (error) {
-      return `The peak could not be set against the site's schedule: ${error instanceof Error ? error.message : String(error)}`;
+    } catch {
+      // The site and target were checked when the schedule was made; say what is missing in words, never the checker's own text.
+      return "The predicted peak could not be set against the site's schedule: check the proposal's site settings, then fit again.";
     }
   }, [done, schedule, props.site, target]);
 
@@ -126,7 +127,9 @@ export function EventFitPanel(props: EventFitPanelProps) {
       const prediction = await client.current.predict(fit, predictionOptionsOf(fitted, fit, target));
       setState({ status: "done", fit, points: fitted, choices: fitChoices, prediction: prediction.ok ? prediction.prediction : null, predictionReason: prediction.ok ? null : prediction.reason });
     } catch (error) {
-      setState({ status: "failed", message: `The fit stopped with an error: ${error instanceof Error ? error.message : String(error)}` });
+      // An unexpected failure of the fitting code: its message is no words for the user, so it goes to the console.
+      console.error("light-curve fit failed", error);
+      setState({ status: "failed", message: "The fit stopped unexpectedly and nothing was fitted. Try again; if it stops again, fit without the finite source or the parallax." });
     }
   }
 
