@@ -27,8 +27,6 @@ const bin = (name) => join(repoRoot, "node_modules", ".bin", name);
 const allPhases = ["typecheck", "unit", "integration", "e2e"];
 /** Integration test files run in this many workers, one database each: one per core of the machines we run on. */
 const INTEGRATION_WORKERS = 2;
-/** The browser tests that bring up their own PostgreSQL and app instances (tests/e2e/resilience). */
-const RESILIENCE_TESTS = "tests/e2e/resilience";
 
 function parseArgs(argv) {
   const filters = [...argv];
@@ -53,14 +51,14 @@ async function runCleanups() {
 const totals = { passed: 0, failed: 0, skipped: 0 };
 const failures = [];
 
-/**
- * Runs one vitest project (or a `part` of it) and adds its counts to the totals (from vitest's JSON
- * report). A `niceness` above 0 runs it (and what it starts) at that lower CPU priority.
- */
-async function vitestProject(project, env, tmp, filters, { part = project, niceness = 0 } = {}) {
-  const report = join(tmp, `${part}.json`);
-  const args = ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`, "--passWithNoTests", ...filters];
-  const code = niceness > 0 ? await run("nice", ["-n", String(niceness), bin("vitest"), ...args], { cwd: repoRoot, env }) : await run(bin("vitest"), args, { cwd: repoRoot, env });
+/** Runs one vitest project and adds its counts to the totals (from vitest's JSON report). */
+async function vitestProject(project, env, tmp, filters) {
+  const report = join(tmp, `${project}.json`);
+  const code = await run(
+    bin("vitest"),
+    ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`, "--passWithNoTests", ...filters],
+    { cwd: repoRoot, env },
+  );
   if (existsSync(report)) {
     const result = JSON.parse(readFileSync(report, "utf8"));
     totals.passed += result.numPassedTests;
@@ -70,7 +68,7 @@ async function vitestProject(project, env, tmp, filters, { part = project, nicen
   } else if (code !== 0) {
     totals.failed += 1;
   }
-  if (code !== 0) failures.push(`vitest ${part} (exit ${code})`);
+  if (code !== 0) failures.push(`vitest ${project} (exit ${code})`);
 }
 
 /** Type-checks the whole project (app, tests, scripts); resolves with whether it passed, counted in the totals. */
@@ -154,19 +152,7 @@ async function main() {
       // Served as `npm start` serves it: one `next start` per core (scripts/serve.mjs).
       startChild("app", process.execPath, ["scripts/serve.mjs", "-H", "127.0.0.1", "-p", String(appPort)], { cwd: repoRoot, env });
       await waitForHttp(`${appUrl}/api/health`, { timeoutMs: 90_000 });
-      const e2eEnv = { ...env, E2E_BASE_URL: appUrl };
-      if (filters.length > 0) {
-        await vitestProject("e2e", e2eEnv, tmp, filters);
-      } else {
-        // The resilience tests start their own database and app instances and leave the shared app
-        // alone, so they run beside the browser tests of the shared app, which wait on the page much
-        // of the time. At a lower priority they take the CPU those leave idle rather than slowing
-        // them (measured: beside them at equal priority the two parts gained only 46 s of 566).
-        await Promise.all([
-          vitestProject("e2e", e2eEnv, tmp, [RESILIENCE_TESTS], { part: "e2e-resilience", niceness: 10 }),
-          vitestProject("e2e", e2eEnv, tmp, ["--exclude", `${RESILIENCE_TESTS}/**`], { part: "e2e-app" }),
-        ]);
-      }
+      await vitestProject("e2e", { ...env, E2E_BASE_URL: appUrl }, tmp, filters);
     }
   } finally {
     await stopAll();
