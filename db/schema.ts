@@ -156,6 +156,8 @@ export const proposals = pgTable("proposals", {
   /** Astrometric precision of one epoch, and the largest flux ratio of two images the instrument separates. */
   astrometricPrecisionMas: doublePrecision("astrometric_precision_mas"),
   reachableContrast: doublePrecision("reachable_contrast"),
+  /** Radial-velocity precision of one spectroscopic epoch, km/s (the relativistic-orbit case's redshift signal). */
+  spectroscopicPrecisionKmPerS: doublePrecision("spectroscopic_precision_km_per_s"),
   /** The photon budget's telescope, detector, band and site sky (`lib/workspace/photometry-schema.ts`; read through its schema). */
   photometry: jsonb("photometry").notNull().default(sql`'{}'::jsonb`),
   createdBy: uuid("created_by").references(() => users.id, { onDelete: "set null" }),
@@ -248,6 +250,20 @@ export const targets = pgTable(
     einsteinTimeDays: doublePrecision("einstein_time_days"),
     parallaxNorth: doublePrecision("parallax_north"),
     parallaxEast: doublePrecision("parallax_east"),
+    /**
+     * A star (or pulsar) orbiting the compact lens, for the relativistic-orbit case: the semi-major axis
+     * in au or as an angle (mas) at the lens distance (one of the two), eccentricity, period (days; the
+     * lens mass, when set, takes precedence), time of periapsis (Julian date, UTC), and the inclination,
+     * longitude of the ascending node and argument of periapsis (degrees).
+     */
+    orbitSemiMajorAxisAu: doublePrecision("orbit_semi_major_axis_au"),
+    orbitSemiMajorAxisMas: doublePrecision("orbit_semi_major_axis_mas"),
+    orbitEccentricity: doublePrecision("orbit_eccentricity"),
+    orbitPeriodDays: doublePrecision("orbit_period_days"),
+    orbitPeriapsisJdUtc: doublePrecision("orbit_periapsis_jd_utc"),
+    orbitInclinationDeg: doublePrecision("orbit_inclination_deg"),
+    orbitNodeDeg: doublePrecision("orbit_node_deg"),
+    orbitPeriapsisArgumentDeg: doublePrecision("orbit_periapsis_argument_deg"),
     priority: integer("priority").notNull(),
     status: targetStatus("status").notNull().default("candidate"),
     tags: text("tags").array().notNull().default(sql`'{}'::text[]`),

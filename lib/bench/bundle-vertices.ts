@@ -18,7 +18,7 @@ export interface DrawnRays {
 }
 
 /** Thins each ray and rotates its planar path (x, y) about the x axis by φ: (x, y cos φ, y sin φ). */
-export function drawnRays(xy: Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): DrawnRays {
+export function drawnRays(xy: Float32Array | Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): DrawnRays {
   const pointCounts = new Uint32Array(rayCount);
   const kept = new Uint32Array(rayCount * samples);
   const arcLengths = new Float64Array(samples);
@@ -57,8 +57,8 @@ export function drawnRays(xy: Float64Array, rayCount: number, samples: number, a
  * the traced region). Layout: [ray][front][x, y, z], rotated like `drawnRays`. `timesM` ascending.
  */
 export function wavefrontPoints(
-  xy: Float64Array,
-  t: Float64Array,
+  xy: Float32Array | Float64Array,
+  t: Float32Array | Float64Array,
   rayCount: number,
   samples: number,
   azimuthsRad: Float64Array,

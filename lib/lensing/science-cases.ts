@@ -26,7 +26,7 @@ import { angleWords, daysWords, numberWords } from "./science-case-words";
 import type { LensSolution } from "./solution";
 
 /** The case ids, once: a tuple for zod and database enums. */
-export const scienceCaseIds = ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"] as const;
+export const scienceCaseIds = ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale", "relativistic-orbit"] as const;
 export type ScienceCaseId = (typeof scienceCaseIds)[number];
 
 /** How each case is named to people (the trade's terms). */
@@ -36,6 +36,7 @@ export const scienceCaseLabels: Record<ScienceCaseId, string> = {
   "resolved-images": "Resolved multiple images",
   "time-delay": "Time-delay monitoring",
   "horizon-scale": "Horizon-scale imaging",
+  "relativistic-orbit": "Relativistic orbit",
 };
 
 /** The event's timing and source, for the microlensing cases. */
@@ -63,6 +64,8 @@ export interface InstrumentSettings {
    * images is still detected beside the brighter. A contrast given as Δm magnitudes is 10^(0.4 Δm).
    */
   reachableContrast: number | null;
+  /** Radial-velocity precision of one spectroscopic epoch, km/s. */
+  spectroscopicPrecisionKmPerS: number | null;
 }
 
 /** The campaign's span and pace. */
@@ -71,6 +74,31 @@ export interface CampaignSettings {
   lengthDays: number | null;
   /** Time between visits the proposal asks for, hours; null when not set. */
   cadenceHours: number | null;
+}
+
+/**
+ * A star (or pulsar) orbiting the compact lens, as the target gives it, for the relativistic-orbit
+ * case; each value null when not set.
+ */
+export interface OrbitInputs {
+  /** The compact mass, M☉ (the target's lens mass); null to take it from the period (Kepler's third law). */
+  centralMassSolar: number | null;
+  /** Distance to the compact mass, pc (the target's lens distance), for angles on the sky. */
+  distancePc: number | null;
+  /** Semi-major axis, au; null to read it from `semiMajorAxisMas`. */
+  semiMajorAxisAu: number | null;
+  /** Semi-major axis as an angle at `distancePc`, mas (used when `semiMajorAxisAu` is null). */
+  semiMajorAxisMas: number | null;
+  /** Eccentricity, 0 ≤ e < 1. */
+  eccentricity: number | null;
+  /** Orbital period, days (used for the mass when `centralMassSolar` is null). */
+  periodDays: number | null;
+  /** A time of periapsis passage, Julian date UTC. */
+  periapsisJdUtc: number | null;
+  /** Inclination, longitude of the ascending node and argument of periapsis, degrees (the usual visual-binary convention). */
+  inclinationDeg: number | null;
+  nodeDeg: number | null;
+  periapsisArgumentDeg: number | null;
 }
 
 /** Everything the questions read. */
@@ -83,6 +111,8 @@ export interface ScienceCaseInputs {
   campaign: CampaignSettings;
   /** The target's photon budget in this case, or why there is none (photon-budget.ts). */
   photonBudget: PhotonBudgetOutcome;
+  /** The orbiting star of the relativistic-orbit case (every value null for other targets). */
+  orbit: OrbitInputs;
 }
 
 /** Stable question ids (also test ids on the page). */
