@@ -4,7 +4,11 @@ import { useEffect, useRef, useState } from "react";
 import { quantityEcho, type QuantitySpec } from "@/lib/workspace/quantity-field";
 import { Field } from "@/components/workspace/field";
 
-type QuantityInputProps = Omit<React.ComponentProps<typeof Field>, "echo" | "defaultValue"> & { spec: QuantitySpec; defaultValue?: string };
+type QuantityInputProps = Omit<React.ComponentProps<typeof Field>, "echo" | "defaultValue"> & {
+  /** The field's reader; a function of the text for one input that feeds either of two fields (a length or an angle). */
+  spec: QuantitySpec | ((text: string) => QuantitySpec);
+  defaultValue?: string;
+};
 
 /**
  * A quantity's input: it takes a value with a unit ("4,100,000 Msun", "230 GHz") and shows beside
@@ -21,7 +25,7 @@ export function QuantityInput({ spec, defaultValue = "", ...field }: QuantityInp
     form?.addEventListener("reset", onReset);
     return () => form?.removeEventListener("reset", onReset);
   }, [defaultValue]);
-  const echo = quantityEcho(spec, text);
+  const echo = quantityEcho(typeof spec === "function" ? spec(text) : spec, text);
   return (
     <div ref={ref} className={field.className}>
       <Field

@@ -4,7 +4,7 @@ import type { FieldErrors } from "@/lib/errors";
 import { lensModelOf, lensParameters, usesParameter } from "@/lib/lensing/registry";
 import type { LensParameterKey } from "@/lib/lensing/lens-model";
 import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
-import { lensModelLabels, lensModels, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
+import { lensModelLabels, lensModels, semiMajorAxisKeyOf, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/workspace/choice-options";
 import { BandOptions } from "@/components/workspace/photometry-fields";
 import { Field } from "@/components/workspace/field";
@@ -14,7 +14,10 @@ import { QuantityInput } from "@/components/workspace/quantity-input";
 export type GeometrySource = "distance" | "redshift";
 
 /** What the fieldset starts with: each input's text by name (empty where the target has no value). */
-export type TargetFieldTexts = Partial<Record<TargetFieldName, string>>;
+export type TargetFieldTexts = Partial<Record<TargetFieldName | typeof SEMI_MAJOR_AXIS_INPUT, string>>;
+
+/** The one input of the orbit's semi-major axis, in au or as an angle; its text goes to one of two fields (`semiMajorAxisKeyOf`). */
+export const SEMI_MAJOR_AXIS_INPUT = "orbitSemiMajorAxis";
 
 /** The text inputs and the science case's select: every field of a new target but the lens model. */
 type TargetFieldName = Exclude<keyof CreateTargetInput, "lensModel">;
@@ -50,6 +53,7 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     einsteinTimeDays: optionalTyped(v.einsteinTimeDays),
     parallaxNorth: optionalTyped(v.parallaxNorth),
     parallaxEast: optionalTyped(v.parallaxEast),
+    ...orbitBody(v),
     sourceMagnitude: optionalTyped(v.sourceMagnitude),
     // Empty: the proposal's band, which follows a later change of the proposal's settings.
     sourceBand: optionalTyped(v.sourceBand),
@@ -57,6 +61,31 @@ export function targetBodyOf(v: Record<string, string>, model: LensModel, geomet
     priority: optionalTyped(v.priority),
     tags: (v.tags ?? "").split(/[\s,]+/).filter(Boolean),
   };
+}
+
+/** The orbiting star's elements as typed; the semi-major axis goes to the au or the angle field by its unit, the other null. */
+function orbitBody(v: Record<string, string>) {
+  const axis = optionalTyped(v[SEMI_MAJOR_AXIS_INPUT]);
+  const axisKey = axis === null ? null : semiMajorAxisKeyOf(axis);
+  return {
+    orbitSemiMajorAxisAu: axisKey === "orbitSemiMajorAxisAu" ? axis : null,
+    orbitSemiMajorAxisMas: axisKey === "orbitSemiMajorAxisMas" ? axis : null,
+    orbitEccentricity: optionalTyped(v.orbitEccentricity),
+    orbitPeriodDays: optionalTyped(v.orbitPeriodDays),
+    orbitPeriapsisJdUtc: optionalTyped(v.orbitPeriapsisJdUtc),
+    orbitInclinationDeg: optionalTyped(v.orbitInclinationDeg),
+    orbitNodeDeg: optionalTyped(v.orbitNodeDeg),
+    orbitPeriapsisArgumentDeg: optionalTyped(v.orbitPeriapsisArgumentDeg),
+  };
+}
+
+/** The semi-major axis's reader for what is typed: the angle's for an angle, else the au length's. */
+const semiMajorAxisSpec = (text: string) => targetQuantities[semiMajorAxisKeyOf(text)];
+
+/** The server's errors of either semi-major axis field, shown beside the one input. */
+function semiMajorAxisErrors(fields: FieldErrors): string[] | undefined {
+  const messages = [...(fields.orbitSemiMajorAxisAu ?? []), ...(fields.orbitSemiMajorAxisMas ?? [])];
+  return messages.length > 0 ? messages : undefined;
 }
 
 /** Every lens parameter: the chosen model's as typed, the others null. */
@@ -168,6 +197,18 @@ export function TargetFieldset({ fields, initial, model, geometry, onModelChange
           )}
         </label>
         <QuantityInput spec={targetQuantities.blendFraction} label="Blend fraction f_s" name="blendFraction" inputMode="decimal" defaultValue={initial.blendFraction} hint="the lensed source's share of the baseline flux; 1 = no blended light" errors={fields.blendFraction} />
+      </fieldset>
+      <fieldset className="grid gap-4 md:grid-cols-3" aria-label="Orbiting star">
+        <legend className="mb-2 text-sm text-dusk-dim">
+          Orbiting star (the relativistic-orbit case: a star or pulsar around a point-mass lens; leave empty when there is none)
+        </legend>
+        <QuantityInput spec={semiMajorAxisSpec} label="Semi-major axis a" name={SEMI_MAJOR_AXIS_INPUT} defaultValue={initial[SEMI_MAJOR_AXIS_INPUT]} hint="in au (a bare number), or as an angle at the lens distance: 125 mas, 0.125 arcsec" errors={semiMajorAxisErrors(fields)} />
+        <QuantityInput spec={targetQuantities.orbitEccentricity} label="Eccentricity e" name="orbitEccentricity" inputMode="decimal" defaultValue={initial.orbitEccentricity} hint="0 (a circle) to below 1" errors={fields.orbitEccentricity} />
+        <QuantityInput spec={targetQuantities.orbitPeriodDays} label="Orbital period P (days)" name="orbitPeriodDays" defaultValue={initial.orbitPeriodDays} hint="or with a unit: 16 yr; the lens mass, when known, sets the orbit" errors={fields.orbitPeriodDays} />
+        <Field label="Time of periapsis T_p" name="orbitPeriapsisJdUtc" placeholder="2018-05-19 or JD 2458257.5" defaultValue={initial.orbitPeriapsisJdUtc} hint="any passage; UTC date and time, or JD" errors={fields.orbitPeriapsisJdUtc} />
+        <QuantityInput spec={targetQuantities.orbitInclinationDeg} label="Inclination i (°)" name="orbitInclinationDeg" defaultValue={initial.orbitInclinationDeg} hint="0° to 180°; above 90° the star moves clockwise on the sky" errors={fields.orbitInclinationDeg} />
+        <QuantityInput spec={targetQuantities.orbitNodeDeg} label="Ascending node Ω (°)" name="orbitNodeDeg" defaultValue={initial.orbitNodeDeg} hint="position angle of the ascending node, east of north" errors={fields.orbitNodeDeg} />
+        <QuantityInput spec={targetQuantities.orbitPeriapsisArgumentDeg} label="Argument of periapsis ω (°)" name="orbitPeriapsisArgumentDeg" defaultValue={initial.orbitPeriapsisArgumentDeg} hint="from the ascending node, in the direction of motion" errors={fields.orbitPeriapsisArgumentDeg} />
       </fieldset>
     </>
   );

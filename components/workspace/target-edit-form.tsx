@@ -5,7 +5,7 @@ import { useState } from "react";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { apiFetch } from "@/components/workspace/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
-import { TargetFieldset, targetBodyOf, type GeometrySource, type TargetFieldTexts } from "@/components/workspace/target-edit-fields";
+import { SEMI_MAJOR_AXIS_INPUT, TargetFieldset, targetBodyOf, type GeometrySource, type TargetFieldTexts } from "@/components/workspace/target-edit-fields";
 import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
 import { eventPeakText } from "@/lib/workspace/event-peak";
 
@@ -44,6 +44,14 @@ export function targetFieldTexts(t: TargetView): TargetFieldTexts {
     einsteinTimeDays: textOf(t.einsteinTimeDays),
     parallaxNorth: textOf(t.parallaxNorth),
     parallaxEast: textOf(t.parallaxEast),
+    // With its unit, so the one input reads it back into the same column.
+    [SEMI_MAJOR_AXIS_INPUT]: t.orbitSemiMajorAxisAu != null ? `${t.orbitSemiMajorAxisAu} au` : t.orbitSemiMajorAxisMas != null ? `${t.orbitSemiMajorAxisMas} mas` : "",
+    orbitEccentricity: textOf(t.orbitEccentricity),
+    orbitPeriodDays: textOf(t.orbitPeriodDays),
+    orbitPeriapsisJdUtc: t.orbitPeriapsisJdUtc == null ? "" : eventPeakText(t.orbitPeriapsisJdUtc),
+    orbitInclinationDeg: textOf(t.orbitInclinationDeg),
+    orbitNodeDeg: textOf(t.orbitNodeDeg),
+    orbitPeriapsisArgumentDeg: textOf(t.orbitPeriapsisArgumentDeg),
     sourceMagnitude: textOf(t.sourceMagnitude),
     sourceBand: t.sourceBand ?? "",
     blendFraction: textOf(t.blendFraction),

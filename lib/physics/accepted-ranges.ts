@@ -62,6 +62,34 @@ export const acceptedRanges = {
    * planetary-mass lens within a kiloparsec, from memory).
    */
   microlensParallaxComponent: { min: -100, max: 100 },
+  /**
+   * Semi-major axis of a star (or pulsar) orbiting the compact lens, au. Our rule: from 1e-4 au
+   * (15,000 km; the tightest neutron-star binaries have a ≈ 0.005 au, from memory) to 1e5 au (0.5 pc;
+   * wider orbits around a compact mass take longer than ~10⁴ years even around 4 × 10⁶ M☉).
+   */
+  orbitSemiMajorAxisAu: { min: 1e-4, max: 1e5 },
+  /**
+   * The same semi-major axis as an angle at the lens distance, mas. Our rule: from 0.001 mas (1 µas,
+   * below the finest astrometry of an epoch, tens of µas) to 1,000,000 mas (1000″, about 17′).
+   */
+  orbitSemiMajorAxisMas: { min: 1e-3, max: 1e6 },
+  /**
+   * Orbital eccentricity. Our rule: from 0 (a circle) to 0.9999: a bound orbit has e < 1 (1 is a
+   * parabola), and 1 − e ≥ 10⁻⁴ keeps the periapsis a finite, representable fraction of the axis.
+   */
+  orbitEccentricity: { min: 0, max: 0.9999 },
+  /**
+   * Orbital period, days. Our rule: from 0.001 d (86 s; the shortest known binary periods are a few
+   * minutes, from memory) to 10,000,000 d (about 27,000 years; no longer period is followed).
+   */
+  orbitPeriodDays: { min: 1e-3, max: 1e7 },
+  /**
+   * Inclination of the orbit to the sky, degrees: 0 to 180 (the visual-binary convention; above 90°
+   * the motion on the sky is clockwise). Common practice.
+   */
+  orbitInclinationDeg: { min: 0, max: 180 },
+  /** Longitude of the ascending node and argument of periapsis, degrees: one turn, 0 to 360 (common practice). */
+  orbitAngleDeg: { min: 0, max: 360 },
 } as const satisfies Record<string, AcceptedRange>;
 
 /**

@@ -6,7 +6,7 @@
  * server its field error, so the two cannot disagree.
  */
 import { z } from "zod";
-import { ARCSECOND_RAD, DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
+import { ARCSECOND_RAD, AU_M, DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
 import { boundText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import {
   MAX_QUANTITY_CHARS,
@@ -57,6 +57,7 @@ const toStored: Record<string, (parsed: number) => number> = {
   mm: (m) => m * 1000,
   km: (m) => m / 1000,
   Rsun: (m) => m / SOLAR_RADIUS_M,
+  au: (m) => m / AU_M,
 };
 
 // A value typed with a unit is rounded to 15 significant digits: a unit conversion (a product of

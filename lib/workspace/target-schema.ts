@@ -4,9 +4,10 @@ import { CoordinateError, MAX_COORDINATE_CHARS, parseDeclinationDeg, parseRightA
 import { targetStatuses } from "@/lib/workspace/status";
 import type { FieldErrors } from "@/lib/errors";
 import { acceptedRanges, lensCompactness, MAX_LENS_COMPACTNESS, type AcceptedRange } from "@/lib/physics/accepted-ranges";
-import { EventPeakError, parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
+import { EventPeakError, parseEventPeakJdUtc, parsePeriapsisJdUtc } from "@/lib/workspace/event-peak";
 import { scienceCaseIds, scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { optionalQuantityField, quantityField, rangeMessage, type QuantitySpec } from "@/lib/workspace/quantity-field";
+import { parseAngle, QuantityError } from "@/lib/physics/units";
 import { isothermalSphereModel } from "@/lib/lensing/models/isothermal-sphere";
 import { pointMassModel } from "@/lib/lensing/models/point-mass";
 import { lensModelIds, lensModelLabels, lensModelOf, usesParameter, type LensModelId } from "@/lib/lensing/registry";
@@ -32,16 +33,23 @@ function coordinate(label: string, parse: (input: string | number) => number) {
   });
 }
 
-/** The event's peak time t0 as typed (a UTC date or a Julian date) or a Julian date (UTC) from the API. */
-const eventPeakField = z.union([z.string(), z.number()], { error: "The event peak is a date such as 2027-06-15 04:30 UTC, or a Julian date." }).transform((input, ctx) => {
-  try {
-    return parseEventPeakJdUtc(input);
-  } catch (error) {
-    if (!(error instanceof EventPeakError)) throw error;
-    ctx.addIssue({ code: "custom", message: error.message });
-    return z.NEVER;
-  }
-});
+/** A date field as typed (a UTC date or a Julian date) or a Julian date (UTC) from the API, read by `parse`. */
+function epochField(what: string, parse: (input: string | number) => number) {
+  return z.union([z.string(), z.number()], { error: `${what} is a date such as 2027-06-15 04:30 UTC, or a Julian date.` }).transform((input, ctx) => {
+    try {
+      return parse(input);
+    } catch (error) {
+      if (!(error instanceof EventPeakError)) throw error;
+      ctx.addIssue({ code: "custom", message: error.message });
+      return z.NEVER;
+    }
+  });
+}
+
+/** The event's peak time t0. */
+const eventPeakField = epochField("The event peak", parseEventPeakJdUtc);
+/** A time of periapsis passage of the orbiting star. */
+const periapsisField = epochField("The time of periapsis", parsePeriapsisJdUtc);
 
 const targetRange = (what: string, range: AcceptedRange, unitWords: string, why: string) => ({ range, rangeMessage: rangeMessage(what, range, unitWords, why) });
 
@@ -166,6 +174,67 @@ export const targetQuantities = {
     range: acceptedRanges.microlensParallaxComponent,
     rangeMessage: "The microlens parallax π_E,E (east) is from −100 to 100.",
   },
+  // A star (or pulsar) orbiting the compact lens (the relativistic-orbit case): its orbital elements.
+  // The semi-major axis is typed once, in au or as an angle at the lens distance (`semiMajorAxisKeyOf`),
+  // and stored in the matching one of these two.
+  orbitSemiMajorAxisAu: {
+    label: "Semi-major axis",
+    kind: "length",
+    unit: "au",
+    unitWords: "au",
+    example: "1000 au or 125 mas",
+    ...targetRange("The semi-major axis", acceptedRanges.orbitSemiMajorAxisAu, "au", "15,000 km to half a parsec"),
+  },
+  orbitSemiMajorAxisMas: {
+    label: "Semi-major axis (angle)",
+    kind: "angle",
+    unit: "mas",
+    unitWords: "mas",
+    example: "125 mas or 0.125 arcsec",
+    ...targetRange("The semi-major axis as an angle", acceptedRanges.orbitSemiMajorAxisMas, "mas", "1 µas to about 17 arcmin"),
+  },
+  orbitEccentricity: {
+    label: "Eccentricity",
+    kind: "number",
+    example: "0.88",
+    range: acceptedRanges.orbitEccentricity,
+    rangeMessage: "The eccentricity is from 0 (a circle) to 0.9999: a bound orbit has e below 1.",
+  },
+  orbitPeriodDays: {
+    label: "Orbital period",
+    kind: "time",
+    unit: "d",
+    unitWords: "d",
+    example: "16 yr",
+    ...targetRange("The orbital period", acceptedRanges.orbitPeriodDays, "days", "86 seconds to about 27,000 years"),
+  },
+  orbitInclinationDeg: {
+    label: "Inclination",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "134 deg",
+    range: acceptedRanges.orbitInclinationDeg,
+    rangeMessage: "The inclination is from 0° to 180° (above 90° the star moves clockwise on the sky).",
+  },
+  orbitNodeDeg: {
+    label: "Longitude of the ascending node Ω",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "228 deg",
+    range: acceptedRanges.orbitAngleDeg,
+    rangeMessage: "The longitude of the ascending node Ω is from 0° to 360°.",
+  },
+  orbitPeriapsisArgumentDeg: {
+    label: "Argument of periapsis ω",
+    kind: "angle",
+    unit: "deg",
+    unitWords: "°",
+    example: "66 deg",
+    range: acceptedRanges.orbitAngleDeg,
+    rangeMessage: "The argument of periapsis ω is from 0° to 360°.",
+  },
   priority: {
     label: "Priority",
     kind: "number",
@@ -220,6 +289,14 @@ export const targetFieldsSchema = z.object({
   einsteinTimeDays: optionalQuantityField(targetQuantities.einsteinTimeDays),
   parallaxNorth: optionalQuantityField(targetQuantities.parallaxNorth),
   parallaxEast: optionalQuantityField(targetQuantities.parallaxEast),
+  orbitSemiMajorAxisAu: optionalQuantityField(targetQuantities.orbitSemiMajorAxisAu),
+  orbitSemiMajorAxisMas: optionalQuantityField(targetQuantities.orbitSemiMajorAxisMas),
+  orbitEccentricity: optionalQuantityField(targetQuantities.orbitEccentricity),
+  orbitPeriodDays: optionalQuantityField(targetQuantities.orbitPeriodDays),
+  orbitPeriapsisJdUtc: periapsisField.nullable().optional(),
+  orbitInclinationDeg: optionalQuantityField(targetQuantities.orbitInclinationDeg),
+  orbitNodeDeg: optionalQuantityField(targetQuantities.orbitNodeDeg),
+  orbitPeriapsisArgumentDeg: optionalQuantityField(targetQuantities.orbitPeriapsisArgumentDeg),
   priority: quantityField(targetQuantities.priority),
   status: z.enum(targetStatuses, { error: `The status is one of ${targetStatuses.join(", ")}.` }),
   tags: z.array(tagSchema, { error: "Tags are a list of words." }).max(12, "At most 12 tags."),
@@ -257,6 +334,14 @@ export const lensHypothesisSchema = targetFieldsSchema.pick({
   einsteinTimeDays: true,
   parallaxNorth: true,
   parallaxEast: true,
+  orbitSemiMajorAxisAu: true,
+  orbitSemiMajorAxisMas: true,
+  orbitEccentricity: true,
+  orbitPeriodDays: true,
+  orbitPeriapsisJdUtc: true,
+  orbitInclinationDeg: true,
+  orbitNodeDeg: true,
+  orbitPeriapsisArgumentDeg: true,
 });
 
 /** The part of a target that its derived columns are computed from. */
@@ -282,7 +367,37 @@ export type LensHypothesis = Pick<
   | "einsteinTimeDays"
   | "parallaxNorth"
   | "parallaxEast"
+  | OrbitField
 >;
+
+/** The orbiting star's elements on a target (the relativistic-orbit case), in the order the form shows them. */
+export const orbitFields = [
+  "orbitSemiMajorAxisAu",
+  "orbitSemiMajorAxisMas",
+  "orbitEccentricity",
+  "orbitPeriodDays",
+  "orbitPeriapsisJdUtc",
+  "orbitInclinationDeg",
+  "orbitNodeDeg",
+  "orbitPeriapsisArgumentDeg",
+] as const;
+export type OrbitField = (typeof orbitFields)[number];
+
+/**
+ * Which column a typed semi-major axis is stored in: an angle ("125 mas", "0.125 arcsec", "0.125″")
+ * goes to the angle at the lens distance, anything else (a bare number, "1000 au", "0.1 pc") to the
+ * length in au, whose reader then accepts it or says why not. One input, two columns.
+ */
+export function semiMajorAxisKeyOf(text: string): "orbitSemiMajorAxisAu" | "orbitSemiMajorAxisMas" {
+  try {
+    // No default unit: a bare number is no angle.
+    parseAngle(text);
+    return "orbitSemiMajorAxisMas";
+  } catch (error) {
+    if (!(error instanceof QuantityError)) throw error;
+    return "orbitSemiMajorAxisAu";
+  }
+}
 
 const present = (value: number | null | undefined): value is number => value !== null && value !== undefined;
 
@@ -309,6 +424,7 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
   for (const parameter of lensModelOf(h.lensModel).parameters) if (!present(h[parameter.key])) add(parameter.key, parameter.missingMessage);
   if (present(h.sourceRadiusSolar) && present(h.sourceRadiusThetaE)) add("sourceRadiusThetaE", "Give the source's radius or ρ, not both.");
   if (present(h.parallaxNorth) !== present(h.parallaxEast)) add(present(h.parallaxNorth) ? "parallaxEast" : "parallaxNorth", "Give both components of the microlens parallax, π_E,N and π_E,E, or neither.");
+  for (const [field, messages] of Object.entries(orbitErrors(h))) for (const message of messages) add(field, message);
   const hasDistances = present(h.lensDistancePc) || present(h.sourceDistancePc);
   const hasRedshifts = present(h.lensRedshift) || present(h.sourceRedshift);
   if (hasDistances && hasRedshifts) {
@@ -327,6 +443,26 @@ export function lensHypothesisErrors(h: LensHypothesis): FieldErrors {
     const message = "The lens is too close for its mass: its gravitational radius exceeds 1/10,000 of its distance, where the thin-lens formulas fail. Check the mass and the distance.";
     add("lensMassSolar", message);
     add("lensDistancePc", message);
+  }
+  return fields;
+}
+
+/**
+ * The checks of the orbiting star across fields: its elements describe an orbit around a compact
+ * mass, so only a point-mass lens has them (an isothermal sphere is no compact mass); the semi-major
+ * axis is stored once, in au or as an angle. The elements themselves may be partial: the case's
+ * questions name what is missing.
+ */
+export function orbitErrors(h: Pick<LensHypothesis, "lensModel" | OrbitField>): FieldErrors {
+  const fields: FieldErrors = {};
+  const given = orbitFields.filter((field) => present(h[field]));
+  if (given.length > 0 && h.lensModel !== "point") {
+    fields[given[0]] = [
+      `An orbiting star's elements describe an orbit around a compact mass: this target has a ${lensModelLabels[h.lensModel].toLowerCase()} lens. Change its lens model to a point mass, or clear the orbit's fields.`,
+    ];
+  }
+  if (present(h.orbitSemiMajorAxisAu) && present(h.orbitSemiMajorAxisMas)) {
+    (fields.orbitSemiMajorAxisMas ??= []).push("Give the semi-major axis in au or as an angle at the lens distance, not both.");
   }
   return fields;
 }

@@ -114,11 +114,11 @@ describe("the event's inputs in an imported list (science case, t0, source radiu
     expect(years.errors).toEqual(['row 1: Event peak t0 2027.45 (column "t0") is in yr; the event peak is a Julian date (unit JD, HJD, MJD or d) or a UTC date such as 2027-06-15 04:30.']);
   });
 
-  it("reads the science case by id or label in any case, and refuses other text naming the row and column and listing the five cases", () => {
+  it("reads the science case by id or label in any case, and refuses other text naming the row and column and listing the six cases", () => {
     const { rows } = readCsv(`${LENS},science_case\n${LENS_CELLS},Astrometric Microlensing\n${LENS_CELLS},TIME-DELAY\n${LENS_CELLS},\n${LENS_CELLS},light curve\n`);
     expect(rows.slice(0, 3).map((row) => row.target?.scienceCase)).toEqual(["astrometric-microlensing", "time-delay", undefined]);
     expect(rows[3].errors).toEqual([
-      'row 4: Science case light curve (column "science_case") is not a science case: write one of photometric-microlensing (Photometric microlensing event), astrometric-microlensing (Astrometric microlensing), resolved-images (Resolved multiple images), time-delay (Time-delay monitoring), horizon-scale (Horizon-scale imaging), or leave the cell empty to use the inferred case.',
+      'row 4: Science case light curve (column "science_case") is not a science case: write one of photometric-microlensing (Photometric microlensing event), astrometric-microlensing (Astrometric microlensing), resolved-images (Resolved multiple images), time-delay (Time-delay monitoring), horizon-scale (Horizon-scale imaging), relativistic-orbit (Relativistic orbit), or leave the cell empty to use the inferred case.',
     ]);
   });
 
