@@ -37,6 +37,7 @@ export function proposalBody(v: Record<string, string>) {
       clearNightFraction: typed(v.clearNightFraction),
       astrometricPrecisionMas: optionalTyped(v.astrometricPrecisionMas),
       reachableContrast: optionalTyped(v.reachableContrast),
+      spectroscopicPrecisionKmPerS: optionalTyped(v.spectroscopicPrecisionKmPerS),
     },
   };
 }
@@ -88,6 +89,7 @@ export function ProposalFields({ fields, initial }: { fields: FieldErrors; initi
         <QuantityInput spec={proposalQuantities.clearNightFraction} label="Clear-night fraction" name="clearNightFraction" inputMode="decimal" required defaultValue={initial ? text(initial.instrument.clearNightFraction) : "1"} hint="share of nights clear at the site; 1 counts every night" errors={fields["instrument.clearNightFraction"]} />
         <QuantityInput spec={proposalQuantities.astrometricPrecisionMas} label="Astrometric precision per epoch (mas)" name="astrometricPrecisionMas" defaultValue={text(initial?.instrument.astrometricPrecisionMas)} hint="optional, for astrometric microlensing; or 100 uas" errors={fields["instrument.astrometricPrecisionMas"]} />
         <QuantityInput spec={proposalQuantities.reachableContrast} label="Reachable contrast (flux ratio)" name="reachableContrast" inputMode="decimal" defaultValue={text(initial?.instrument.reachableContrast)} hint="optional: the largest brighter/fainter flux ratio of two images the instrument separates; Δm mag is 10^(0.4 Δm)" errors={fields["instrument.reachableContrast"]} />
+        <QuantityInput spec={proposalQuantities.spectroscopicPrecisionKmPerS} label="Spectroscopic precision per epoch (km/s)" name="spectroscopicPrecisionKmPerS" defaultValue={text(initial?.instrument.spectroscopicPrecisionKmPerS)} hint="optional, for a relativistic orbit's redshift; or 500 m/s" errors={fields["instrument.spectroscopicPrecisionKmPerS"]} />
       </fieldset>
     </>
   );

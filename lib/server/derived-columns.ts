@@ -22,6 +22,7 @@ export function instrumentSettingsOf(p: Proposal): InstrumentSettings {
     clearNightFraction: p.clearNightFraction,
     astrometricPrecisionMas: p.astrometricPrecisionMas,
     reachableContrast: p.reachableContrast,
+    spectroscopicPrecisionKmPerS: p.spectroscopicPrecisionKmPerS,
   };
 }
 

@@ -155,6 +155,18 @@ export const proposalQuantities = {
     range: { min: 1, max: 1e10 },
     rangeMessage: "The reachable contrast is a flux ratio from 1 to 10\u00b9\u2070 (25 mag).",
   },
+  // The radial-velocity precision of one spectroscopic epoch, against which the relativistic-orbit
+  // case grades the redshift at periapsis. Our rule: 0.001 km/s (1 m/s, the best stabilised
+  // spectrographs, from memory) to 1000 km/s (coarser says nothing of any orbit's redshift).
+  spectroscopicPrecisionKmPerS: {
+    label: "Spectroscopic precision per epoch",
+    kind: "velocity",
+    unit: "km/s",
+    unitWords: "km/s",
+    example: "10 km/s",
+    range: { min: 1e-3, max: 1e3 },
+    rangeMessage: "The spectroscopic precision per epoch is from 0.001 km/s (1 m/s) to 1000 km/s.",
+  },
 } as const satisfies Record<string, QuantitySpec>;
 
 /** The observing site: where the telescope stands and how low it can point. */
@@ -183,8 +195,9 @@ const lensingInstrumentSchema = z.object(
  * All instrument defaults: the lensing scales, the airmass limit of the sky windows, for a
  * shadow-imaging proposal the interferometer's wavelength and longest baseline (both or neither),
  * the observing constraints of the simulated schedule (Moon, time per visit, clear nights) and the
- * astrometric precision per epoch of an astrometric-microlensing proposal and the contrast (largest
- * flux ratio of two images) the instrument reaches.
+ * astrometric precision per epoch of an astrometric-microlensing proposal, the contrast (largest
+ * flux ratio of two images) the instrument reaches, and the radial-velocity precision per epoch of a
+ * relativistic-orbit proposal.
  */
 export const instrumentSchema = lensingInstrumentSchema.extend({
   airmassLimit: quantityField(proposalQuantities.airmassLimit).default(2),
@@ -196,6 +209,7 @@ export const instrumentSchema = lensingInstrumentSchema.extend({
   clearNightFraction: quantityField(proposalQuantities.clearNightFraction).default(1),
   astrometricPrecisionMas: quantityField(proposalQuantities.astrometricPrecisionMas).nullable().default(null),
   reachableContrast: quantityField(proposalQuantities.reachableContrast).nullable().default(null),
+  spectroscopicPrecisionKmPerS: quantityField(proposalQuantities.spectroscopicPrecisionKmPerS).nullable().default(null),
 });
 
 const cycleDateSchema = nightDateSchema.nullable();

@@ -30,6 +30,7 @@ describe("parseSketch", () => {
         clearNightFraction: 1,
         astrometricPrecisionMas: null,
         reachableContrast: null,
+        spectroscopicPrecisionKmPerS: null,
       },
       photometry: null,
     });

@@ -23,6 +23,8 @@ const camera = {
   clearNightFraction: 1,
   astrometricPrecisionMas: null,
   reachableContrast: null,
+  // The bench sketches no orbiting star and carries no spectrograph: always unset here.
+  spectroscopicPrecisionKmPerS: null,
 };
 
 /**

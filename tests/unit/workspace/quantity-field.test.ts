@@ -123,6 +123,7 @@ describe("the schemas take typed units and numbers alike", () => {
       clearNightFraction: 1,
       astrometricPrecisionMas: null,
       reachableContrast: null,
+      spectroscopicPrecisionKmPerS: null,
     });
   });
 
