@@ -27,6 +27,14 @@ export const importFields = [
   "einsteinTimeDays",
   "parallaxNorth",
   "parallaxEast",
+  "orbitSemiMajorAxisAu",
+  "orbitSemiMajorAxisMas",
+  "orbitEccentricity",
+  "orbitPeriodDays",
+  "orbitPeriapsisJdUtc",
+  "orbitInclinationDeg",
+  "orbitNodeDeg",
+  "orbitPeriapsisArgumentDeg",
   "priority",
   "tags",
 ] as const;
@@ -59,6 +67,14 @@ export const importFieldLabels: Record<ImportField, string> = {
   einsteinTimeDays: `${targetQuantities.einsteinTimeDays.label} (days)`,
   parallaxNorth: targetQuantities.parallaxNorth.label,
   parallaxEast: targetQuantities.parallaxEast.label,
+  orbitSemiMajorAxisAu: "Orbit semi-major axis a (au)",
+  orbitSemiMajorAxisMas: "Orbit semi-major axis a (mas at the lens distance)",
+  orbitEccentricity: "Orbit eccentricity e",
+  orbitPeriodDays: "Orbital period P (days)",
+  orbitPeriapsisJdUtc: "Time of periapsis T_p",
+  orbitInclinationDeg: "Orbit inclination i (°)",
+  orbitNodeDeg: "Orbit ascending node Ω (°)",
+  orbitPeriapsisArgumentDeg: "Orbit argument of periapsis ω (°)",
   priority: "Priority",
   tags: "Tags",
 };
@@ -106,6 +122,16 @@ export const importFieldKinds: Record<ImportField, FieldKind> = {
   einsteinTimeDays: "number",
   parallaxNorth: "number",
   parallaxEast: "number",
+  // Read by the target schema, a unit typed in the cell included ("120 au", "16 yr", "66 deg"); a
+  // bare number is in the field's own unit.
+  orbitSemiMajorAxisAu: "number",
+  orbitSemiMajorAxisMas: "number",
+  orbitEccentricity: "number",
+  orbitPeriodDays: "number",
+  orbitPeriapsisJdUtc: "epoch",
+  orbitInclinationDeg: "number",
+  orbitNodeDeg: "number",
+  orbitPeriapsisArgumentDeg: "number",
   priority: "integer",
   tags: "tags",
 };
@@ -193,6 +219,19 @@ const headerSpellings: Record<ImportField, string[]> = {
   einsteinTimeDays: ["te", "tefit", "teinstein", "einsteintime", "einsteintimedays", "einsteintimete"],
   parallaxNorth: ["pien", "pienorth", "parallaxnorth", "microlensparallaxpienorth"],
   parallaxEast: ["piee", "pieeast", "parallaxeast", "microlensparallaxpieeast"],
+  // An orbit's elements by their spelled-out names (common practice in orbit catalogues), then our
+  // own VOTable/ECSV names and CSV headers. The one-letter symbols (a, e, P, i, Ω, ω) are matched
+  // with their case in `symbolFieldOf`: lower-cased, "I" (a band's magnitude) would be an
+  // inclination and "Omega" (the node) would be "omega" (the argument of periapsis). T0 stays the
+  // event peak's; a periapsis time is Tp.
+  orbitSemiMajorAxisAu: ["aau", "sma", "smaau", "semimajoraxis", "semimajoraxisau", "orbitsemimajoraxisau", "orbitsemimajoraxisa"],
+  orbitSemiMajorAxisMas: ["amas", "smamas", "semimajoraxismas", "orbitsemimajoraxismas", "orbitsemimajoraxisaangle"],
+  orbitEccentricity: ["ecc", "eccentricity", "orbiteccentricity", "orbiteccentricitye"],
+  orbitPeriodDays: ["porb", "orbitalperiod", "orbitperiod", "orbitperioddays", "orbitalperiodp"],
+  orbitPeriapsisJdUtc: ["tp", "tperi", "tperiastron", "tperiapsis", "timeofperiapsis", "timeofperiastron", "periastrontime", "periapsistime", "epochofperiastron", "orbitperiapsisjdutc", "timeofperiapsistpjdutc"],
+  orbitInclinationDeg: ["incl", "inclination", "orbitinclination", "orbitinclinationi"],
+  orbitNodeDeg: ["node", "lan", "ascendingnode", "longitudeofascendingnode", "longitudeoftheascendingnode", "orbitnode", "orbitascendingnodeomega"],
+  orbitPeriapsisArgumentDeg: ["argp", "argperi", "periarg", "argumentofperiapsis", "argumentofperiastron", "argumentofpericenter", "orbitperiapsisargument", "orbitargumentofperiapsisomega"],
   priority: ["priority", "prio", "rank"],
   tags: ["tags", "tag", "labels", "label", "keywords"],
 };
@@ -240,6 +279,11 @@ const ucdFields: Record<string, ImportField> = {
 const ucdPhraseFields: Record<string, ImportField> = {
   "phot.flux;arith.ratio": "blendFraction",
   "meta.id;instr.filter": "sourceBand",
+  // A periapsis time is an epoch, but not the event peak's.
+  "time.epoch;src.orbital.periastron": "orbitPeriapsisJdUtc",
+  "src.orbital.eccentricity": "orbitEccentricity",
+  "src.orbital.inclination": "orbitInclinationDeg",
+  "src.orbital.node": "orbitNodeDeg",
 };
 const ucdUnitRules: Partial<Record<ImportField, (unit: string) => boolean>> = {
   eventPeakJdUtc: (unit) => epochScaleOf(unit) !== undefined,
@@ -291,6 +335,46 @@ function readHeader(name: string): { spelling: string; unit?: string } {
   return dayCount !== undefined && epochScaleOf(dayCount) !== undefined ? { spelling, unit: dayCount } : { spelling };
 }
 
+// The one-letter symbols of an orbit's elements, with their case (common practice in orbit
+// catalogues; Ω and ω also as words), and the units (lower-cased) a symbol's column may carry: the
+// import reads a cell's bare number in the field's own unit, so a column in another unit (a in
+// arcsec, P in years) is left for the user to map knowingly rather than misread.
+const orbitSymbols: Record<string, ImportField> = {
+  a: "orbitSemiMajorAxisAu",
+  e: "orbitEccentricity",
+  P: "orbitPeriodDays",
+  i: "orbitInclinationDeg",
+  Omega: "orbitNodeDeg",
+  "\u03a9": "orbitNodeDeg",
+  omega: "orbitPeriapsisArgumentDeg",
+  "\u03c9": "orbitPeriapsisArgumentDeg",
+};
+const orbitSymbolUnits: Partial<Record<ImportField, readonly string[]>> = {
+  orbitSemiMajorAxisAu: ["au"],
+  orbitSemiMajorAxisMas: ["mas"],
+  orbitEccentricity: [],
+  orbitPeriodDays: ["d", "day", "days"],
+  orbitInclinationDeg: ["deg"],
+  orbitNodeDeg: ["deg"],
+  orbitPeriapsisArgumentDeg: ["deg"],
+};
+
+/**
+ * The orbit element a header's one-letter symbol names, case kept ("a", "P", "Omega" but not "I" or
+ * "OMEGA"), when its unit (the file's, or a trailing word: "i_deg") is none or the field's own; "a"
+ * in mas is the angle at the lens distance. Undefined for any other header.
+ */
+function symbolFieldOf(column: ImportColumn): ImportField | undefined {
+  const words = column.name.trim().split(/[^A-Za-z0-9\u03a9\u03c9]+/).filter(Boolean);
+  const trailing = words.length === 2 ? headerUnitWords[words[1].toLowerCase()] : undefined;
+  if (words.length !== 1 && trailing === undefined) return undefined;
+  const symbolField = orbitSymbols[words[0]];
+  if (symbolField === undefined) return undefined;
+  const unit = (column.unit ?? trailing)?.trim().replace(/^"(.*)"$/, "$1").toLowerCase();
+  const field = symbolField === "orbitSemiMajorAxisAu" && unit === "mas" ? "orbitSemiMajorAxisMas" : symbolField;
+  return unit === undefined || unit === "" || orbitSymbolUnits[field]!.includes(unit) ? field : undefined;
+}
+
 function fieldFromUcd({ ucd, unit }: ImportColumn): ImportField | undefined {
   if (ucd === undefined) return undefined;
   const words = ucd.toLowerCase().split(";").map((word) => word.trim());
@@ -331,7 +415,7 @@ export function proposeColumnMapping(columns: ImportColumn[]): ColumnMapping {
   for (const { column, index } of inputs) {
     const header = readHeader(column.name);
     units.set(index, header.unit);
-    const field = importFields.find((candidate) => headerSpellings[candidate].includes(header.spelling));
+    const field = symbolFieldOf(column) ?? importFields.find((candidate) => headerSpellings[candidate].includes(header.spelling));
     if (field) assign(field, index);
   }
   for (const { column, index } of inputs) {
@@ -378,7 +462,7 @@ export function unmappedColumns(columns: readonly ImportColumn[], mapping: Colum
   return columns.flatMap((column, index): UnmappedColumn[] => {
     if (taken.has(index)) return [];
     const spelling = readHeader(column.name).spelling;
-    const field = importFields.find((candidate) => headerSpellings[candidate].includes(spelling)) ?? fieldFromUcd(column);
+    const field = symbolFieldOf(column) ?? importFields.find((candidate) => headerSpellings[candidate].includes(spelling)) ?? fieldFromUcd(column);
     const filledFrom = field === undefined ? undefined : mapping[field];
     const reason = isComputedColumn(column)
       ? "computed from a target's inputs; not imported"

@@ -21,10 +21,10 @@ const documentedFilters = {
   status: ["candidate", "accepted", "scheduled", "observed", "dropped"],
   lensModel: ["point", "sis"],
   caseVerdict: ["feasible", "marginal", "infeasible", "unknown"],
-  answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"],
+  answeredCase: ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale", "relativistic-orbit"],
 } as const;
 const documentedExportColumns = [
-  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "sourceMagnitude", "sourceBand", "blendFraction", "einsteinTimeDays", "parallaxNorth", "parallaxEast", "priority", "status", "tags",
+  "name", "raDeg", "decDeg", "lensModel", "lensMassSolar", "velocityDispersionKmPerS", "lensDistancePc", "sourceDistancePc", "lensRedshift", "sourceRedshift", "sourceOffsetThetaE", "properMotionMasPerYr", "scienceCase", "eventPeakJdUtc", "sourceRadiusSolar", "sourceRadiusThetaE", "limbDarkeningU", "sourceMagnitude", "sourceBand", "blendFraction", "einsteinTimeDays", "parallaxNorth", "parallaxEast", "orbitSemiMajorAxisAu", "orbitSemiMajorAxisMas", "orbitEccentricity", "orbitPeriodDays", "orbitPeriapsisJdUtc", "orbitInclinationDeg", "orbitNodeDeg", "orbitPeriapsisArgumentDeg", "priority", "status", "tags",
   "einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays", "shadowDiameterMicroarcsec", "timeRequestHours", "peakSignalToNoise", "answeredCase", "caseVerdict", "caseAnswers",
 ];
 

@@ -75,3 +75,44 @@ describe("a light-curve fit's columns", () => {
     expect(fromHeaders("piE")).toEqual({});
   });
 });
+
+describe("an orbiting star's columns", () => {
+  const orbitKeys = ["orbitSemiMajorAxisAu", "orbitSemiMajorAxisMas", "orbitEccentricity", "orbitPeriodDays", "orbitPeriapsisJdUtc", "orbitInclinationDeg", "orbitNodeDeg", "orbitPeriapsisArgumentDeg"] as const;
+
+  it("map back from this product's own export (VOTable/ECSV names and CSV headers)", () => {
+    for (const key of orbitKeys) {
+      const column = exportColumns.find((c) => c.key === key)!;
+      expect(Object.keys(fromHeaders("name", "ra", "dec", column.key)), column.key).toContain(key);
+      // The CSV header is the label with its unit in brackets, as the table export writes it.
+      const header = column.unit === "" ? column.label : `${column.label} [${column.unit}]`;
+      expect(Object.keys(fromHeaders("name", "ra", "dec", header)), header).toContain(key);
+    }
+  });
+
+  it("read the orbit catalogues' one-letter symbols with their case: a, e, P, Tp, i, Omega, omega", () => {
+    const mapping = fromHeaders("a", "e", "P", "Tp", "i", "Omega", "omega");
+    expect(mapping).toMatchObject({
+      orbitSemiMajorAxisAu: { column: 0 },
+      orbitEccentricity: { column: 1 },
+      orbitPeriodDays: { column: 2 },
+      orbitPeriapsisJdUtc: { column: 3, unit: "JD", isUnitAssumed: true },
+      orbitInclinationDeg: { column: 4 },
+      orbitNodeDeg: { column: 5 },
+      orbitPeriapsisArgumentDeg: { column: 6 },
+    });
+    expect(fromHeaders("Ω", "ω", "i_deg")).toEqual({ orbitNodeDeg: { column: 0 }, orbitPeriapsisArgumentDeg: { column: 1 }, orbitInclinationDeg: { column: 2 } });
+  });
+
+  it("regression: an I-band magnitude column 'I' is no inclination, 'OMEGA' says neither angle, and T0 stays the event peak", () => {
+    expect(fromHeaders("I")).toEqual({});
+    expect(fromHeaders("OMEGA")).toEqual({});
+    expect(fromHeaders("T0")).toEqual({ eventPeakJdUtc: { column: 0, unit: "JD", isUnitAssumed: true } });
+  });
+
+  it("take 'a' in mas as the angle at the lens distance, and leave 'a' in arcsec or P in years unmapped rather than misread", () => {
+    expect(fromHeaders("a [mas]")).toEqual({ orbitSemiMajorAxisMas: { column: 0 } });
+    expect(fromHeaders("a [au]", "a_mas")).toEqual({ orbitSemiMajorAxisAu: { column: 0 }, orbitSemiMajorAxisMas: { column: 1 } });
+    expect(fromHeaders("a [arcsec]", "P [yr]")).toEqual({});
+    expect(fromHeaders("P [d]")).toEqual({ orbitPeriodDays: { column: 0 } });
+  });
+});
