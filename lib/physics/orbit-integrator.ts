@@ -29,8 +29,8 @@ const D5 = 701980252875 / 199316789632, D6 = -1453857185 / 822651844, D7 = 69997
 
 /**
  * Step-size factor SAFETY * error^(-1/4): the exponent 1/4 instead of the textbook 1/5 (Hairer et al.
- * 1993, eq. II.4.13) costs two square roots instead of Math.pow, which was a third of the step's cost;
- * on the photon-orbit bench it takes 2% fewer steps, with the same rejection rate.
+ * 1993, eq. II.4.13) costs square roots (eighthRoot of error^2) instead of Math.pow, which was a third
+ * of the step's cost; on the photon-orbit bench it takes 2% fewer steps, with the same rejection rate.
  */
 const SAFETY = 0.9;
 const MIN_FACTOR = 0.2;
@@ -111,37 +111,50 @@ export class OrbitIntegrator {
     const dw1 = this.dw1, dv1 = this.dv1, dt1 = this.dtime1;
     for (let attempt = 0; attempt < MAX_REJECTIONS; attempt++) {
       const h = this.h;
-      let w = w0 + h * A21 * dw1;
-      let v = v0 + h * A21 * dv1;
+      // The weights times h, formed off the critical path; each stage then adds its newest rate last,
+      // so a stage waits for one multiply-add after the previous stage's rate (the step is bound by
+      // that chain, not by its arithmetic).
+      const b21 = h * A21;
+      const b31 = h * A31, b32 = h * A32;
+      const b41 = h * A41, b42 = h * A42, b43 = h * A43;
+      const b51 = h * A51, b52 = h * A52, b53 = h * A53, b54 = h * A54;
+      const b61 = h * A61, b62 = h * A62, b63 = h * A63, b64 = h * A64, b65 = h * A65;
+      const b71 = h * A71, b73 = h * A73, b74 = h * A74, b75 = h * A75, b76 = h * A76;
+      let w = w0 + b21 * dw1;
+      let v = v0 + b21 * dv1;
       // the time component never feeds back and has weight 0 for stage 2, so its stage-2 rate is not needed
       const dw2 = v, dv2 = k3b * w * w - w;
-      w = w0 + h * (A31 * dw1 + A32 * dw2);
-      v = v0 + h * (A31 * dv1 + A32 * dv2);
+      w = w0 + b31 * dw1 + b32 * dw2;
+      v = v0 + b31 * dv1 + b32 * dv2;
       const dw3 = v, dv3 = k3b * w * w - w, dt3 = k2b / (w * (1 - k2b * w)) + x * w;
-      w = w0 + h * (A41 * dw1 + A42 * dw2 + A43 * dw3);
-      v = v0 + h * (A41 * dv1 + A42 * dv2 + A43 * dv3);
+      w = w0 + b41 * dw1 + b42 * dw2 + b43 * dw3;
+      v = v0 + b41 * dv1 + b42 * dv2 + b43 * dv3;
       const dw4 = v, dv4 = k3b * w * w - w, dt4 = k2b / (w * (1 - k2b * w)) + x * w;
-      w = w0 + h * (A51 * dw1 + A52 * dw2 + A53 * dw3 + A54 * dw4);
-      v = v0 + h * (A51 * dv1 + A52 * dv2 + A53 * dv3 + A54 * dv4);
+      w = w0 + b51 * dw1 + b52 * dw2 + b53 * dw3 + b54 * dw4;
+      v = v0 + b51 * dv1 + b52 * dv2 + b53 * dv3 + b54 * dv4;
       const dw5 = v, dv5 = k3b * w * w - w, dt5 = k2b / (w * (1 - k2b * w)) + x * w;
-      w = w0 + h * (A61 * dw1 + A62 * dw2 + A63 * dw3 + A64 * dw4 + A65 * dw5);
-      v = v0 + h * (A61 * dv1 + A62 * dv2 + A63 * dv3 + A64 * dv4 + A65 * dv5);
+      w = w0 + b61 * dw1 + b62 * dw2 + b63 * dw3 + b64 * dw4 + b65 * dw5;
+      v = v0 + b61 * dv1 + b62 * dv2 + b63 * dv3 + b64 * dv4 + b65 * dv5;
       const dw6 = v, dv6 = k3b * w * w - w, dt6 = k2b / (w * (1 - k2b * w)) + x * w;
-      const w1 = w0 + h * (A71 * dw1 + A73 * dw3 + A74 * dw4 + A75 * dw5 + A76 * dw6);
-      const v1 = v0 + h * (A71 * dv1 + A73 * dv3 + A74 * dv4 + A75 * dv5 + A76 * dv6);
-      const time1 = time0 + h * (A71 * dt1 + A73 * dt3 + A74 * dt4 + A75 * dt5 + A76 * dt6);
+      const w1 = w0 + b71 * dw1 + b73 * dw3 + b74 * dw4 + b75 * dw5 + b76 * dw6;
+      const v1 = v0 + b71 * dv1 + b73 * dv3 + b74 * dv4 + b75 * dv5 + b76 * dv6;
+      const time1 = time0 + b71 * dt1 + b73 * dt3 + b74 * dt4 + b75 * dt5 + b76 * dt6;
       const dw7 = v1, dv7 = k3b * w1 * w1 - w1, dt7 = k2b / (w1 * (1 - k2b * w1)) + x * w1;
-      // RMS of (estimate_i / scale_i) over the three components, with one division instead of three
-      const ew = h * (E1 * dw1 + E3 * dw3 + E4 * dw4 + E5 * dw5 + E6 * dw6 + E7 * dw7);
-      const ev = h * (E1 * dv1 + E3 * dv3 + E4 * dv4 + E5 * dv5 + E6 * dv6 + E7 * dv7);
-      const et = h * (E1 * dt1 + E3 * dt3 + E4 * dt4 + E5 * dt5 + E6 * dt6 + E7 * dt7);
+      const e1 = h * E1, e3 = h * E3, e4 = h * E4, e5 = h * E5, e6 = h * E6, e7 = h * E7;
+      const ew = e1 * dw1 + e3 * dw3 + e4 * dw4 + e5 * dw5 + e6 * dw6 + e7 * dw7;
+      const ev = e1 * dv1 + e3 * dv3 + e4 * dv4 + e5 * dv5 + e6 * dv6 + e7 * dv7;
+      const et = e1 * dt1 + e3 * dt3 + e4 * dt4 + e5 * dt5 + e6 * dt6 + e7 * dt7;
       const sw = this.atolW + this.rtol * Math.max(Math.abs(w0), Math.abs(w1));
       const sv = this.atolV + this.rtol * Math.max(Math.abs(v0), Math.abs(v1));
       const st = this.atolTime + this.rtol * Math.max(Math.abs(time0), Math.abs(time1));
+      // error = RMS of (estimate_i / scale_i) = sqrt(sum / (3 scales^2)), without dividing: accepted
+      // when sum <= 3 scales^2, and error^(-1/4) = (3 scales^2)^(1/8) / sum^(1/8) from two chains of
+      // square roots that run side by side
       const a = ew * sv * st, b = ev * sw * st, c = et * sw * sv, scales = sw * sv * st;
-      const error = Math.sqrt((a * a + b * b + c * c) / (3 * scales * scales));
-      const factor = error === 0 ? MAX_FACTOR : Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, SAFETY / Math.sqrt(Math.sqrt(error))));
-      if (!(error <= 1)) {
+      const sum = a * a + b * b + c * c;
+      const bound = 3 * scales * scales;
+      const factor = sum === 0 ? MAX_FACTOR : Math.min(MAX_FACTOR, Math.max(MIN_FACTOR, (SAFETY * eighthRoot(bound)) / eighthRoot(sum)));
+      if (!(sum <= bound)) {
         this.h = h * Math.min(1, factor);
         continue;
       }
@@ -165,6 +178,11 @@ export class OrbitIntegrator {
     }
     return false;
   }
+}
+
+/** x^(1/8) by three square roots (see SAFETY). */
+function eighthRoot(x: number): number {
+  return Math.sqrt(Math.sqrt(Math.sqrt(x)));
 }
 
 /** Dense-output coefficients of one component (Hairer et al. 1993, sect. II.6, "contd5"). */
