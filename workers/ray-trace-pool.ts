@@ -76,7 +76,7 @@ export class RayTracePool {
       throw error;
     }
     if (isStale()) return { status: "cancelled" };
-    const assembleRequest: AssembleRequest = { chunks, rayCount, planes: layout.planes, wavefrontCount: layout.wavefrontTimesM.length, startRadiusM: layout.startRadiusM };
+    const assembleRequest: AssembleRequest = { chunks, rayCount, planes: layout.planes, wavefrontTimesM: layout.wavefrontTimesM, startRadiusM: layout.startRadiusM };
     const bundle = await this.remotes[0].assemble(transfer(assembleRequest, chunks.flatMap(chunkBuffers)));
     if (isStale()) return { status: "cancelled" };
     return { status: "done", bundle };

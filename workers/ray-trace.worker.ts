@@ -7,8 +7,8 @@
  */
 
 import { expose, transfer } from "comlink";
-import { assembleBundle, chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
-import { drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
+import { assembleBundle, bundleBuffers, chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
+import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
 import { traceRayBundle } from "@/lib/physics";
 
 /** Relative tolerance for drawn rays: far below a pixel at any zoom the view allows, and quick. */
@@ -29,13 +29,21 @@ const rayTraceWorker = {
     const rayCount = impactParametersM.length;
     const traced = traceRayBundle(impactParametersM, 1, { samples, startRadius: startRadiusM, rtol: DRAWING_RTOL });
     const wavefronts = wavefrontPoints(traced.xy, traced.t, rayCount, samples, azimuthsRad, wavefrontTimesM);
-    const chunk: TracedChunk = { firstRay: request.firstRay, rayCount, ...drawnRays(traced.xy, rayCount, samples, azimuthsRad), fates: traced.fates, wavefronts };
+    const chunk: TracedChunk = {
+      firstRay: request.firstRay,
+      rayCount,
+      ...drawnRays(traced.xy, traced.t, rayCount, samples, azimuthsRad),
+      fates: traced.fates,
+      deflectionsRad: Float32Array.from(traced.deflections),
+      arrivalTimesM: arrivalTimes(traced.t, traced.fates, samples),
+      wavefronts,
+    };
     return transfer(chunk, chunkBuffers(chunk));
   },
 
-  assemble({ chunks, rayCount, planes, wavefrontCount, startRadiusM }: AssembleRequest): AssembledBundle {
-    const bundle = assembleBundle(chunks, rayCount, planes, wavefrontCount, startRadiusM);
-    return transfer(bundle, [bundle.vertices.buffer, bundle.lineDistances.buffer, bundle.segmentIndex.buffer, bundle.wavefrontVertices.buffer]);
+  assemble({ chunks, rayCount, planes, wavefrontTimesM, startRadiusM }: AssembleRequest): AssembledBundle {
+    const bundle = assembleBundle(chunks, rayCount, planes, wavefrontTimesM, startRadiusM);
+    return transfer(bundle, bundleBuffers(bundle));
   },
 };
 
@@ -43,7 +51,7 @@ export interface AssembleRequest {
   chunks: TracedChunk[];
   rayCount: number;
   planes: number;
-  wavefrontCount: number;
+  wavefrontTimesM: Float64Array;
   startRadiusM: number;
 }
 

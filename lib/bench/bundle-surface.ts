@@ -31,15 +31,19 @@ function entryFraction(vertices: Float32Array, p: number, q: number, radius: num
 export function withLensSurface(bundle: AssembledBundle, surfaceRadiusM: number): AssembledBundle {
   const surfaceImpactM = surfaceImpactParameterM(surfaceRadiusM, 1);
   if (surfaceImpactM === 0) return bundle;
-  const { rayCount, rayFirstPoint, vertices, lineDistances } = bundle;
+  const { rayCount, rayFirstPoint, vertices, lineDistances, vertexTimesM } = bundle;
   // At most one new point (the entry into the body) per ray.
   const cutVertices = new Float32Array(vertices.length + 3 * rayCount);
   const cutDistances = new Float32Array(lineDistances.length + rayCount);
+  const cutTimes = new Float32Array(vertexTimesM.length + rayCount);
   const cutFirstPoint = new Uint32Array(rayCount + 1);
   const fates = Uint8Array.from(bundle.rayFates);
+  const deflections = Float32Array.from(bundle.rayDeflectionsRad);
+  const arrivals = Float32Array.from(bundle.rayArrivalTimesM);
   let out = 0;
   const copyPoint = (from: number) => {
     cutVertices.set(vertices.subarray(3 * from, 3 * from + 3), 3 * out);
+    cutTimes[out] = vertexTimesM[from];
     cutDistances[out++] = lineDistances[from];
   };
   for (let ray = 0; ray < rayCount; ray++) {
@@ -53,12 +57,15 @@ export function withLensSurface(bundle: AssembledBundle, surfaceRadiusM: number)
       continue;
     }
     fates[ray] = SURFACE_CODE;
+    deflections[ray] = Number.NaN;
+    arrivals[ray] = Number.NaN;
     for (let p = first; p < end; p++) {
       const t = p + 1 < end ? entryFraction(vertices, p, p + 1, surfaceRadiusM) : undefined;
       if (t === 0) break; // this point is inside already (the traced region starts inside the body)
       copyPoint(p);
       if (t !== undefined) {
         for (let axis = 0; axis < 3; axis++) cutVertices[3 * out + axis] = vertices[3 * p + axis] + t * (vertices[3 * (p + 1) + axis] - vertices[3 * p + axis]);
+        cutTimes[out] = vertexTimesM[p] + t * (vertexTimesM[p + 1] - vertexTimesM[p]);
         cutDistances[out++] = lineDistances[p] + t * (lineDistances[p + 1] - lineDistances[p]);
         break;
       }
@@ -67,18 +74,28 @@ export function withLensSurface(bundle: AssembledBundle, surfaceRadiusM: number)
   cutFirstPoint[rayCount] = out;
 
   const fronts: number[] = [];
+  const frontTimes: number[] = [];
   const outside = (v: Float32Array, i: number) => Math.hypot(v[i], v[i + 1], v[i + 2]) > surfaceRadiusM;
   for (let i = 0; i + 5 < bundle.wavefrontVertices.length; i += 6) {
-    if (outside(bundle.wavefrontVertices, i) && outside(bundle.wavefrontVertices, i + 3)) fronts.push(...bundle.wavefrontVertices.subarray(i, i + 6));
+    if (outside(bundle.wavefrontVertices, i) && outside(bundle.wavefrontVertices, i + 3)) {
+      fronts.push(...bundle.wavefrontVertices.subarray(i, i + 6));
+      frontTimes.push(...bundle.wavefrontVertexTimesM.subarray(i / 3, i / 3 + 2));
+    }
   }
+  const keptTimes = cutTimes.slice(0, out);
 
   return {
     ...bundle,
     vertices: cutVertices.slice(0, 3 * out),
     lineDistances: cutDistances.slice(0, out),
+    vertexTimesM: keptTimes,
+    latestTimeM: keptTimes.reduce((latest, time) => Math.max(latest, time), 0),
     rayFirstPoint: cutFirstPoint,
     rayFates: fates,
+    rayDeflectionsRad: deflections,
+    rayArrivalTimesM: arrivals,
     ...groupSegmentsByFate(cutFirstPoint, fates, rayCount),
     wavefrontVertices: new Float32Array(fronts),
+    wavefrontVertexTimesM: new Float32Array(frontTimes),
   };
 }

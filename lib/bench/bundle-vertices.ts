@@ -1,7 +1,8 @@
 /**
  * Turns traced rays (planar paths from lib/physics) into what the GPU draws: each ray's path thinned
  * to the points the eye needs (see polyline-decimation), rotated into its half-plane, with the
- * distance along the full path (for dash patterns); and the point each ray has reached at each
+ * distance along the full path (for dash patterns) and the coordinate time (for the view's time
+ * slider); each escaped ray's arrival time; and the point each ray has reached at each
  * wavefront time, interpolated from the full-resolution samples. Runs inside the ray workers so the
  * main thread only concatenates.
  */
@@ -13,17 +14,23 @@ export interface DrawnRays {
   vertices: Float32Array;
   /** Path length (units of M) along the full traced ray from its first sample, at each kept point. */
   lineDistances: Float32Array;
+  /** Coordinate time (units of M) since the ray left its start point, at each kept point. */
+  times: Float32Array;
   /** Kept points per ray. */
   pointCounts: Uint32Array;
 }
 
-/** Thins each ray and rotates its planar path (x, y) about the x axis by φ: (x, y cos φ, y sin φ). */
-export function drawnRays(xy: Float32Array | Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): DrawnRays {
+/**
+ * Thins each ray and rotates its planar path (x, y) about the x axis by φ: (x, y cos φ, y sin φ);
+ * `t` holds the traced coordinate times (units of M), kept at the kept points.
+ */
+export function drawnRays(xy: Float32Array | Float64Array, t: Float32Array | Float64Array, rayCount: number, samples: number, azimuthsRad: Float64Array): DrawnRays {
   const pointCounts = new Uint32Array(rayCount);
   const kept = new Uint32Array(rayCount * samples);
   const arcLengths = new Float64Array(samples);
   const vertices = new Float32Array(rayCount * samples * 3);
   const lineDistances = new Float32Array(rayCount * samples);
+  const times = new Float32Array(rayCount * samples);
   let out = 0;
   for (let ray = 0; ray < rayCount; ray++) {
     const first = ray * samples;
@@ -44,11 +51,12 @@ export function drawnRays(xy: Float32Array | Float64Array, rayCount: number, sam
       vertices[3 * out + 1] = y * cos;
       vertices[3 * out + 2] = y * sin;
       lineDistances[out] = arcLengths[s];
+      times[out] = t[point] - t[first];
       out += 1;
     }
   }
   // Copies, so only the kept points cross to the page.
-  return { vertices: vertices.slice(0, 3 * out), lineDistances: lineDistances.slice(0, out), pointCounts };
+  return { vertices: vertices.slice(0, 3 * out), lineDistances: lineDistances.slice(0, out), times: times.slice(0, out), pointCounts };
 }
 
 /**
@@ -89,4 +97,16 @@ export function wavefrontPoints(
     }
   }
   return points;
+}
+
+/**
+ * Each ray's arrival time (units of M): the coordinate time from its start on the plane x = −R₀ to
+ * its exit through the sphere it started on (r₀ = √(R₀² + b²), lib/physics ray-tracer), which is its
+ * last sample. NaN for a ray that did not escape (fate code other than 0). A straight ray at the speed
+ * of light crosses that sphere in exactly 2R₀ (its chord at distance b from the centre is 2√(r₀² − b²)).
+ */
+export function arrivalTimes(t: Float32Array | Float64Array, fates: Uint8Array, samples: number): Float32Array {
+  const arrivals = new Float32Array(fates.length);
+  for (let ray = 0; ray < fates.length; ray++) arrivals[ray] = fates[ray] === 0 ? t[(ray + 1) * samples - 1] - t[ray * samples] : Number.NaN;
+  return arrivals;
 }

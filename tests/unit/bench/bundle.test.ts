@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { assembleBundle, SPREAD_PASSES, type TracedChunk } from "@/lib/bench/assemble-bundle";
+import { assembleBundle, DASH_PHASE_SPAN_M, SPREAD_PASSES, type TracedChunk } from "@/lib/bench/assemble-bundle";
 import { bundleLayout, CYLINDER_PLANES } from "@/lib/bench/bundle-layout";
-import { drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
+import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
 
 describe("bundle layout", () => {
   it("gives every ray its own impact parameter, alternating sides in a fan", () => {
@@ -30,7 +30,7 @@ describe("bundle vertices and wavefronts", () => {
   const farXy = new Float64Array([-2, 10, 0, 10, 2, 10, -2, 12, 0, 12, 2, 12]);
 
   it("draws a straight ray as its two end points, rotated into its half-plane", () => {
-    const { vertices, pointCounts } = drawnRays(farXy, 2, 3, azimuths);
+    const { vertices, pointCounts } = drawnRays(farXy, t, 2, 3, azimuths);
     expect(Array.from(pointCounts)).toEqual([2, 2]);
     expect(Array.from(vertices.slice(0, 6))).toEqual([-2, 10, 0, 2, 10, 0]);
     expect(vertices[2 * 3 + 1]).toBeCloseTo(0, 6);
@@ -39,14 +39,27 @@ describe("bundle vertices and wavefronts", () => {
 
   it("keeps every point on the photon sphere", () => {
     const grazing = new Float64Array([-2, 3, 0, 3, 2, 3]);
-    expect(Array.from(drawnRays(grazing, 1, 3, azimuths).pointCounts)).toEqual([3]);
+    expect(Array.from(drawnRays(grazing, t, 1, 3, azimuths).pointCounts)).toEqual([3]);
   });
 
   it("measures the distance along each ray from its own start, over the full path", () => {
     // A bent ray: (0,10) → (1,10) → (1,11): the corner is kept and the distances are along the path.
-    const bent = drawnRays(new Float64Array([0, 10, 1, 10, 1, 11]), 1, 3, new Float64Array([0]));
+    const bent = drawnRays(new Float64Array([0, 10, 1, 10, 1, 11]), t, 1, 3, new Float64Array([0]));
     expect(Array.from(bent.lineDistances)).toEqual([0, 1, 2]);
-    expect(Array.from(drawnRays(farXy, 2, 3, azimuths).lineDistances)).toEqual([0, 4, 0, 4]);
+    expect(Array.from(drawnRays(farXy, t, 2, 3, azimuths).lineDistances)).toEqual([0, 4, 0, 4]);
+  });
+
+  it("keeps each kept point's coordinate time since its own ray's start, in single or double precision", () => {
+    // The second ray's clock starts at 10: its points are at 0 and 4 since its start.
+    const late = new Float32Array([0, 2, 4, 10, 12, 14]);
+    expect(Array.from(drawnRays(farXy, late, 2, 3, azimuths).times)).toEqual([0, 4, 0, 4]);
+    expect(Array.from(drawnRays(new Float32Array(farXy), t, 2, 3, azimuths).times)).toEqual([0, 4, 0, 4]);
+  });
+
+  it("gives an escaped ray's arrival time as its last sample's, and none to a captured ray", () => {
+    const arrivals = arrivalTimes(new Float64Array([0, 2, 40.5, 0, 3, 7]), new Uint8Array([0, 1]), 3);
+    expect(arrivals[0]).toBe(40.5);
+    expect(Number.isNaN(arrivals[1])).toBe(true);
   });
 
   it("interpolates where each ray is at each front time, and marks fronts a ray never reaches", () => {
@@ -63,11 +76,14 @@ describe("assembleBundle", () => {
       rayCount: 3,
       vertices: new Float32Array(3 * 2 * 3),
       lineDistances: new Float32Array(3 * 2),
+      times: new Float32Array([0, 1, 0, 2, 0, 3]),
       pointCounts: new Uint32Array([2, 2, 2]),
       fates: new Uint8Array([1, 0, 0]),
+      deflectionsRad: new Float32Array([NaN, 0.5, 0.25]),
+      arrivalTimesM: new Float32Array([NaN, 61, 60.5]),
       wavefronts: new Float32Array([0, 0, 0, 0, 1, 0, NaN, NaN, NaN]),
     };
-    const bundle = assembleBundle([chunk], 3, 1, 1, 30);
+    const bundle = assembleBundle([chunk], 3, 1, new Float64Array([7]), 30);
     expect(bundle.fateCounts).toEqual({ escaped: 2, captured: 1, winding: 0, surface: 0 });
     expect(bundle.fateGroups).toEqual([
       { start: 0, count: 4, fate: "escaped" },
@@ -77,6 +93,35 @@ describe("assembleBundle", () => {
     ]);
     expect(Array.from(bundle.segmentIndex)).toEqual([2, 3, 4, 5, 0, 1]);
     expect(Array.from(bundle.wavefrontVertices)).toEqual([0, 0, 0, 0, 1, 0]);
+    expect(Array.from(bundle.wavefrontVertexTimesM)).toEqual([7, 7]);
+    expect(bundle.latestTimeM).toBe(3);
+    expect(Array.from(bundle.rayArrivalTimesM.slice(1))).toEqual([61, 60.5]);
+    expect(Array.from(bundle.rayDeflectionsRad.slice(1))).toEqual([0.5, 0.25]);
+    // The extent holds the photon sphere even when the rays do not reach it.
+    expect(bundle.extentM).toEqual({ min: [-3, -3, -3], max: [3, 3, 3] });
+  });
+
+  it("offsets each ray's dashes by a different share of the phase span, so neighbours' dashes do not line up", () => {
+    const rays = 5;
+    const chunk: TracedChunk = {
+      firstRay: 0,
+      rayCount: rays,
+      vertices: new Float32Array(rays * 2 * 3),
+      lineDistances: new Float32Array(rays * 2).map((_, i) => (i % 2) * 10),
+      times: new Float32Array(rays * 2),
+      pointCounts: new Uint32Array(rays).fill(2),
+      fates: new Uint8Array(rays),
+      deflectionsRad: new Float32Array(rays),
+      arrivalTimesM: new Float32Array(rays),
+      wavefronts: new Float32Array(0),
+    };
+    const { lineDistances } = assembleBundle([chunk], rays, 1, new Float64Array(0), 30);
+    const offsets = Array.from({ length: rays }, (_, ray) => lineDistances[2 * ray]);
+    // Lengths along each ray are kept (only shifted).
+    for (let ray = 0; ray < rays; ray++) expect(lineDistances[2 * ray + 1] - offsets[ray]).toBeCloseTo(10, 5);
+    expect(offsets.every((offset) => offset >= 0 && offset < DASH_PHASE_SPAN_M)).toBe(true);
+    const sorted = [...offsets].sort((a, b) => a - b);
+    for (let k = 1; k < rays; k++) expect(sorted[k] - sorted[k - 1]).toBeGreaterThan(0.1 * DASH_PHASE_SPAN_M);
   });
 
   it("joins chunks of thinned rays in ray order whatever order they arrive in", () => {
@@ -87,12 +132,15 @@ describe("assembleBundle", () => {
         rayCount: pointCounts.length,
         vertices: new Float32Array(points * 3).map((_, i) => firstRay * 100 + Math.floor(i / 3)),
         lineDistances: new Float32Array(points),
+        times: new Float32Array(points),
         pointCounts: new Uint32Array(pointCounts),
         fates: new Uint8Array(pointCounts.length),
+        deflectionsRad: new Float32Array(pointCounts.length),
+        arrivalTimesM: new Float32Array(pointCounts.length),
         wavefronts: new Float32Array(0),
       };
     };
-    const bundle = assembleBundle([chunk(2, [2]), chunk(0, [3, 2])], 3, 1, 0, 30);
+    const bundle = assembleBundle([chunk(2, [2]), chunk(0, [3, 2])], 3, 1, new Float64Array(0), 30);
     expect(Array.from(bundle.vertices.filter((_, i) => i % 3 === 0))).toEqual([0, 1, 2, 3, 4, 200, 201]);
     expect(Array.from(bundle.segmentIndex)).toEqual([0, 1, 1, 2, 3, 4, 5, 6]);
   });
@@ -104,11 +152,14 @@ describe("assembleBundle", () => {
       rayCount: rays,
       vertices: new Float32Array(rays * 2 * 3),
       lineDistances: new Float32Array(rays * 2),
+      times: new Float32Array(rays * 2),
       pointCounts: new Uint32Array(rays).fill(2),
       fates: new Uint8Array(rays),
+      deflectionsRad: new Float32Array(rays),
+      arrivalTimesM: new Float32Array(rays),
       wavefronts: new Float32Array(0),
     };
-    const firstPoints = Array.from(assembleBundle([chunk], rays, 1, 0, 30).segmentIndex.filter((_, i) => i % 2 === 0));
+    const firstPoints = Array.from(assembleBundle([chunk], rays, 1, new Float64Array(0), 30).segmentIndex.filter((_, i) => i % 2 === 0));
     expect(firstPoints.slice(0, 4).map((point) => point / 2)).toEqual([0, SPREAD_PASSES, 1, SPREAD_PASSES + 1]);
   });
 
@@ -120,10 +171,13 @@ describe("assembleBundle", () => {
       rayCount: 6,
       vertices: new Float32Array(6 * 2 * 3),
       lineDistances: new Float32Array(6 * 2),
+      times: new Float32Array(6 * 2),
       pointCounts: new Uint32Array(6).fill(2),
       fates: new Uint8Array(6),
+      deflectionsRad: new Float32Array(6),
+      arrivalTimesM: new Float32Array(6),
       wavefronts: fronts,
     };
-    expect(Array.from(assembleBundle([chunk], 6, 1, 1, 30).wavefrontVertices)).toEqual([0, 10, 0, 4, 14, 0]);
+    expect(Array.from(assembleBundle([chunk], 6, 1, new Float64Array([5]), 30).wavefrontVertices)).toEqual([0, 10, 0, 4, 14, 0]);
   });
 });

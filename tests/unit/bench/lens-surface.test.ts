@@ -122,11 +122,15 @@ describe("the ray bundle around a body", () => {
       rayCount: 2,
       vertices,
       lineDistances: new Float32Array([...xs.map((x) => x + 20), ...xs.map((x) => x + 20)]),
+      // At unit speed from x = −20.
+      times: new Float32Array([...xs.map((x) => x + 20), ...xs.map((x) => x + 20)]),
       pointCounts: new Uint32Array([41, 41]),
       fates: new Uint8Array([0, 0]),
+      deflectionsRad: new Float32Array([0.1, 0.01]),
+      arrivalTimesM: new Float32Array([40.5, 40.1]),
       wavefronts: new Float32Array([0, 1, 0, 0, 10, 0]),
     };
-    return assembleBundle([chunk], 2, 1, 1, 20);
+    return assembleBundle([chunk], 2, 1, new Float64Array([20]), 20);
   }
 
   it("ends rays with b below the surface on it and counts them as hitting the body", () => {
@@ -135,9 +139,15 @@ describe("the ray bundle around a body", () => {
     // The first ray stops where y = 1 meets r = 5: x = −√24.
     const firstRayEnd = bundle.rayFirstPoint[1] - 1;
     expect(bundle.vertices[3 * firstRayEnd]).toBeCloseTo(-Math.sqrt(24), 5);
+    // It reaches the surface at coordinate time 20 − √24 (unit speed from x = −20), and has no deflection or arrival.
+    expect(bundle.vertexTimesM[firstRayEnd]).toBeCloseTo(20 - Math.sqrt(24), 5);
+    expect(bundle.latestTimeM).toBe(40);
+    expect([bundle.rayDeflectionsRad[0], bundle.rayArrivalTimesM[0]].every(Number.isNaN)).toBe(true);
+    expect(bundle.rayDeflectionsRad[1]).toBeCloseTo(0.01, 7);
     expect(bundle.rayFirstPoint[2] - bundle.rayFirstPoint[1]).toBe(41);
     // The wavefront joining (0, 1) and (0, 10) has an end inside the body: dropped.
     expect(bundle.wavefrontVertices).toHaveLength(0);
+    expect(bundle.wavefrontVertexTimesM).toHaveLength(0);
   });
 
   it("changes nothing for a body inside its photon sphere", () => {
