@@ -182,6 +182,48 @@ export const DELAY_CADENCE_RULE: RatioRule = { feasibleAt: 3, marginalAt: 1 };
 /** Observing seasons of the target in the cycle. Our rule: one season can give a delay; none cannot. */
 export const DELAY_SEASONS_RULE: RatioRule = { feasibleAt: 1, marginalAt: 1 };
 
+// ── Relativistic orbit ────────────────────────────────────────────────────────────────────────────
+
+/**
+ * Half-width of the periapsis campaign, in periods: the passage ± 10 % of the period (our rule, the
+ * window of the product's issue: for S2, ±1.6 yr, it holds the swing through periapsis where the
+ * redshift and the orbit's turn are measured, GRAVITY Collaboration 2018, 2020).
+ */
+export const PERIAPSIS_WINDOW_FRACTION = 0.1;
+
+/**
+ * The next periapsis passage against the site's observing seasons (our rule): in a season, feasible;
+ * outside the seasons (or the cycle) with usable time within the periapsis window, marginal — the
+ * approach to or the recession from periapsis is observed, not the passage; no usable time within the
+ * window, infeasible. Units: days.
+ */
+export function periapsisSeasonVerdict(isInSeason: boolean, daysToUsableTime: number | null, windowHalfWidthDays: number): KnownVerdict {
+  if (isInSeason) return "feasible";
+  return daysToUsableTime !== null && daysToUsableTime <= windowHalfWidthDays ? "marginal" : "infeasible";
+}
+
+/**
+ * Visits within the periapsis window. Our rule: ten trace the passage (more than the orbit's elements
+ * and the relativistic term a fit frees, on both sides of periapsis); three give it before, at and
+ * after periapsis.
+ */
+export const PERIAPSIS_EPOCHS_RULE: RatioRule = { feasibleAt: 10, marginalAt: 3 };
+
+/**
+ * Significance of the apoapsis shift per orbit over the epochs of the periapsis window, (shift/σ)√N.
+ * Common practice: 5σ is a detection, 3σ evidence; combining the N epochs as σ/√N is our rule (the
+ * orbit's orientation before and after the passage is fitted from them, against an orbit known from
+ * earlier epochs).
+ */
+export const PRECESSION_SIGNAL_RULE: RatioRule = { feasibleAt: 5, marginalAt: 3 };
+
+/**
+ * The combined redshift at periapsis over the spectroscopic precision of one epoch. Common practice:
+ * 5σ is a detection, 3σ evidence; asking it of one epoch at periapsis is our rule (several epochs near
+ * periapsis combine, but there the Newtonian radial velocity they are fitted with changes fast).
+ */
+export const REDSHIFT_SIGNAL_RULE: RatioRule = { feasibleAt: 5, marginalAt: 3 };
+
 // ── The default science case ──────────────────────────────────────────────────────────────────────
 
 /**
@@ -234,4 +276,5 @@ export const feasibilityRuleReferences: readonly { rule: string; references: rea
   { rule: "Resolution of an interferometer, λ/B", references: ["thompson2017"] },
   { rule: "Shadow and photon ring over λ/B", references: ["eht2019", "synge1966", "virbhadra2000"] },
   { rule: "The astrometric default case", references: ["sahu2017"] },
+  { rule: "Relativistic orbit: the periapsis window and the precession and redshift signals", references: ["gravity2018", "gravity2020", "darwin1961", "einstein1915"] },
 ];

@@ -1,7 +1,8 @@
 /**
  * How the science cases write their numbers and the schedule's gaps: numbers by the product's
- * formatNumberForPeople (three significant digits), angles in µas, mas or arcsec and times in s, h, d
- * or yr, whichever keeps the number short, and dates as UTC date and clock.
+ * formatNumberForPeople (three significant digits), angles in µas, mas or arcsec (rotations up to
+ * arcmin and degrees), speeds in km/s, times in s, h, d or yr, whichever keeps the number short, and
+ * dates as UTC date and clock.
  */
 
 import { formatUtcDateTime } from "@/lib/astro/sky-format";
@@ -23,6 +24,19 @@ export function angleWords(angleRad: number): string {
   if (magnitudeMas < 1) return `${numberWords(angleRad / MICROARCSECOND_RAD)} µas`;
   if (magnitudeMas < 1000) return `${numberWords(angleRad / MILLIARCSECOND_RAD)} mas`;
   return `${numberWords(angleRad / ARCSECOND_RAD)}″`;
+}
+
+/** A rotation (a periapsis advance) given in radians: degrees from 1°, arcminutes from 1′, else as angleWords. */
+export function rotationWords(angleRad: number): string {
+  const magnitudeArcsec = Math.abs(angleRad) / ARCSECOND_RAD;
+  if (magnitudeArcsec >= 3600) return `${numberWords(angleRad / (3600 * ARCSECOND_RAD))}°`;
+  if (magnitudeArcsec >= 60) return `${numberWords(angleRad / (60 * ARCSECOND_RAD))}′`;
+  return angleWords(angleRad);
+}
+
+/** A speed given in km/s ("206 km/s"). */
+export function speedWords(kmPerS: number): string {
+  return `${numberWords(kmPerS)} km/s`;
 }
 
 /** Days below which a span is written in days, above in Julian years (the bench's reading). */

@@ -21,8 +21,10 @@ import { astrometricAnswers } from "./science-case-astrometric";
 import { depthAnswer } from "./science-case-depth";
 import { timeDelayAnswers } from "./science-case-delay";
 import { horizonAnswers, resolutionElement, resolvedImagesAnswers } from "./science-case-imaging";
+import { relativisticOrbitAnswers } from "./science-case-orbit";
 import { photometricAnswers } from "./science-case-photometric";
-import { angleWords, daysWords, numberWords } from "./science-case-words";
+import { relativisticOrbitOf } from "./relativistic-orbit";
+import { angleWords, daysWords, numberWords, rotationWords } from "./science-case-words";
 import type { LensSolution } from "./solution";
 
 /** The case ids, once: a tuple for zod and database enums. */
@@ -132,6 +134,10 @@ export type CaseQuestionId =
   | "seasons-covered"
   | "shadow"
   | "photon-ring"
+  | "periapsis-season"
+  | "periapsis-epochs"
+  | "precession-signal"
+  | "redshift-signal"
   | "depth";
 
 /** One answered question. */
@@ -163,6 +169,8 @@ export function scienceCaseQuestions(caseId: ScienceCaseId, inputs: ScienceCaseI
       return withDepth(timeDelayAnswers(inputs));
     case "horizon-scale":
       return withDepth(horizonAnswers(inputs));
+    case "relativistic-orbit":
+      return withDepth(relativisticOrbitAnswers(inputs));
   }
 }
 
@@ -173,17 +181,28 @@ export interface DefaultScienceCase {
 }
 
 /**
- * The science case inferred from the solution and the instrument (our rule), first match wins:
- * 1. a compact lens (one with a shadow) whose shadow spans at least half of λ/B of the interferometer
- *    set → horizon-scale imaging;
- * 2. two images at least one resolution element apart (PSF FWHM, else λ/B) → resolved multiple images;
- * 3. a compact lens seen at u ≥ 1 whose largest centroid shift is at least the precision per epoch set
+ * The science case inferred from the solution, the instrument and the target's orbiting star (our
+ * rule), first match wins:
+ * 1. a compact lens (one with a shadow) whose target gives an orbiting star's elements, enough to
+ *    compute its orbit (relativisticOrbitOf) → relativistic orbit;
+ * 2. a compact lens whose shadow spans at least half of λ/B of the interferometer set → horizon-scale
+ *    imaging;
+ * 3. two images at least one resolution element apart (PSF FWHM, else λ/B) → resolved multiple images;
+ * 4. a compact lens seen at u ≥ 1 whose largest centroid shift is at least the precision per epoch set
  *    → astrometric microlensing;
- * 4. a compact lens → a photometric microlensing event;
- * 5. an extended lens with a time delay → time-delay monitoring; else resolved multiple images.
+ * 5. a compact lens → a photometric microlensing event;
+ * 6. an extended lens with a time delay → time-delay monitoring; else resolved multiple images.
  */
-export function defaultScienceCase(solution: LensSolution, instrument: InstrumentSettings): DefaultScienceCase {
+export function defaultScienceCase(solution: LensSolution, instrument: InstrumentSettings, orbit: OrbitInputs): DefaultScienceCase {
   const isCompact = solution.shadowDiameterRad !== null;
+  const orbiting = isCompact ? relativisticOrbitOf(orbit) : null;
+  if (orbiting !== null && "orbit" in orbiting) {
+    const { semiMajorAxisAu, eccentricity, periapsisM, precessionExactRad } = orbiting.orbit;
+    return {
+      caseId: "relativistic-orbit",
+      reason: `A star orbits the compact lens (a = ${numberWords(semiMajorAxisAu)} au, e = ${numberWords(eccentricity)}, periapsis at ${numberWords(periapsisM)} GM/c²), so its periapsis passages show the orbit's relativistic precession, ${rotationWords(precessionExactRad)} per orbit, and redshift: relativistic orbit.`,
+    };
+  }
   const shadowRad = solution.shadowDiameterRad;
   if (shadowRad !== null && instrument.interferometer !== null) {
     const beamRad = interferometerBeamRad(instrument.interferometer.wavelengthMm, instrument.interferometer.longestBaselineKm);

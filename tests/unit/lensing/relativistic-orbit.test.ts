@@ -4,6 +4,7 @@ import { describe, expect, it } from "vitest";
 import { nextPeriapsisJdUtc, relativisticOrbitOf, SKY_SAMPLES, type RelativisticOrbit, type SkyPoint } from "@/lib/lensing/relativistic-orbit";
 import type { OrbitInputs } from "@/lib/lensing/science-cases";
 import { ARCSECOND_RAD, JULIAN_YEAR_S, DAY_S } from "@/lib/physics/constants";
+import { noOrbit, S2 } from "./orbit-inputs";
 
 interface FixturePoint {
   index: number;
@@ -37,19 +38,6 @@ const fixture: { versions: Record<string, string>; samples: number; orbits: Fixt
 
 const ARCMINUTE_RAD = 60 * ARCSECOND_RAD;
 
-const noOrbit: OrbitInputs = {
-  centralMassSolar: null,
-  distancePc: null,
-  semiMajorAxisAu: null,
-  semiMajorAxisMas: null,
-  eccentricity: null,
-  periodDays: null,
-  periapsisJdUtc: null,
-  inclinationDeg: null,
-  nodeDeg: null,
-  periapsisArgumentDeg: null,
-};
-
 function orbitOf(inputs: Partial<OrbitInputs>): RelativisticOrbit {
   const outcome = relativisticOrbitOf({ ...noOrbit, ...inputs });
   if ("missing" in outcome) throw new Error(outcome.missing);
@@ -64,20 +52,6 @@ function relativeError(actual: number, expected: number): number {
 function trackScaleMas(points: readonly SkyPoint[]): number {
   return Math.max(...points.map((p) => Math.hypot(p.eastMas, p.northMas)));
 }
-
-// S2's elements as recalled from GRAVITY Collaboration 2020, A&A 636, L5 (from memory, not re-checked):
-// a = 125.058 mas, e = 0.884649, i = 134.567°, Ω = 228.171°, ω = 66.263°, P = 16.0455 yr,
-// M = 4.261 × 10⁶ M☉, R0 = 8246.7 pc.
-const S2: Partial<OrbitInputs> = {
-  centralMassSolar: 4.261e6,
-  distancePc: 8246.7,
-  semiMajorAxisMas: 125.058,
-  eccentricity: 0.884649,
-  periodDays: 16.0455 * 365.25,
-  inclinationDeg: 134.567,
-  nodeDeg: 228.171,
-  periapsisArgumentDeg: 66.263,
-};
 
 describe("published values", () => {
   it("Mercury: 42.98″ per century from the first-order formula (Nobili & Will 1986, Nature 320, 39; Will 2014, Living Rev. Relativ. 17, 4; from memory)", () => {

@@ -25,8 +25,10 @@ import {
   sisImages,
 } from "@/lib/physics";
 import { observingSchedule } from "@/lib/schedule";
-import type { EmptyScheduleReason, ObservingSchedule, ScheduleGap, ScheduleGapReason, TimeSpanJd } from "@/lib/schedule/types";
+import type { EmptyScheduleReason } from "@/lib/schedule/types";
 import { bulge as bulgeField, bulgeSeason, jd, southSite } from "../schedule/sites";
+import { CYCLE_START_JD, nightlySchedule } from "./nightly-schedule";
+import { noOrbit } from "./orbit-inputs";
 
 // ── Builders: hand-made LensSolution and ObservingSchedule objects (the solve and the schedule are
 // built elsewhere; here only their contract types are used). ──────────────────────────────────────
@@ -81,86 +83,7 @@ function isothermalSphere(sigmaKmPerS: number, u: number, delayDays: number): Le
   };
 }
 
-const noInstrument: InstrumentSettings = { psfFwhmMas: null, interferometer: null, astrometricPrecisionMas: null, reachableContrast: null };
-
-/** 2027-03-01 00:00 UTC. */
-const CYCLE_START_JD = 2_461_465.5;
-
-interface NightlyScheduleOptions {
-  nights: number;
-  /** First and last night (index from the cycle's start) on which the target is observable. */
-  seasonFirstNight: number;
-  seasonLastNight: number;
-  /** Usable window each night, as fractions of the UTC day. */
-  windowStartDay?: number;
-  windowEndDay?: number;
-  cadenceHours?: number;
-  emptyReason?: EmptyScheduleReason | null;
-}
-
-/**
- * A schedule as lib/schedule shapes one: on each night of the season one usable window (default
- * 01:00–07:00 UTC) holding visits at the cadence; daylight between windows; outside the season the
- * target behind the Sun.
- */
-function nightlySchedule(options: NightlyScheduleOptions): ObservingSchedule {
-  const { nights, seasonFirstNight, seasonLastNight, windowStartDay = 1 / 24, windowEndDay = 7 / 24, cadenceHours = 24, emptyReason = null } = options;
-  const windows: TimeSpanJd[] = [];
-  const gaps: ScheduleGap[] = [];
-  const visits: number[] = [];
-  const cycle = { startJdUtc: CYCLE_START_JD, endJdUtc: CYCLE_START_JD + nights };
-  const gap = (startJdUtc: number, endJdUtc: number, reason: ScheduleGapReason) => {
-    if (endJdUtc > startJdUtc) gaps.push({ startJdUtc, endJdUtc, reason });
-  };
-  let cursor = cycle.startJdUtc;
-  if (emptyReason === null) {
-    for (let night = seasonFirstNight; night <= seasonLastNight; night++) {
-      const start = CYCLE_START_JD + night + windowStartDay;
-      const end = CYCLE_START_JD + night + windowEndDay;
-      gap(cursor, start, night === seasonFirstNight ? "sun" : "daylight");
-      windows.push({ startJdUtc: start, endJdUtc: end });
-      for (let t = start; t <= end - 20 / 1440; t += cadenceHours / 24) visits.push(t);
-      cursor = end;
-    }
-  }
-  gap(cursor, cycle.endJdUtc, emptyReason === null ? "sun" : "below-limit");
-  const season =
-    emptyReason === null
-      ? [
-          {
-            startJdUtc: windows[0]!.startJdUtc,
-            endJdUtc: windows[windows.length - 1]!.endJdUtc,
-            nightCount: seasonLastNight - seasonFirstNight + 1,
-            usableNightCount: seasonLastNight - seasonFirstNight + 1,
-            firstNightIso: "",
-            lastNightIso: "",
-            lengthDays: windows[windows.length - 1]!.endJdUtc - windows[0]!.startJdUtc,
-          },
-        ]
-      : [];
-  const schedule = {
-    cycle,
-    firstNightIso: "2027-02-28",
-    nightCount: nights,
-    windows,
-    gaps,
-    visitsJdUtc: Float64Array.from(visits),
-    visitLengthDays: 20 / 1440,
-    visitSky: {
-      airmass: new Float32Array(visits.length).fill(1),
-      targetZenithDeg: new Float32Array(visits.length),
-      moonZenithDeg: new Float32Array(visits.length).fill(180),
-      moonSeparationDeg: new Float32Array(visits.length).fill(180),
-      moonPhaseAngleDeg: new Float32Array(visits.length).fill(180),
-    },
-    seasons: season,
-    usableHoursPerNight: new Float32Array(nights),
-    weeklyUsableHours: new Float32Array(Math.ceil(nights / 7)),
-    bestWeekIndices: [],
-    emptyReason,
-  };
-  return schedule;
-}
+const noInstrument: InstrumentSettings = { psfFwhmMas: null, interferometer: null, astrometricPrecisionMas: null, reachableContrast: null, spectroscopicPrecisionKmPerS: null };
 
 // The textbook Galactic-bulge event of the issue: 0.3 M☉ at 4 kpc, source at 8 kpc, u0 = 0.1,
 // μ_rel = 10 mas/yr (t_E ≈ 20 d). θ_E from lib/physics (Paczyński 1986 eq. 1), ≈ 0.55 mas.
@@ -180,6 +103,7 @@ function bulgeInputs(overrides: Partial<ScienceCaseInputs> = {}, event: Partial<
     schedule: bulgeSchedule,
     campaign: { lengthDays: 120, cadenceHours: 2 },
     photonBudget: { notApplicable: true },
+    orbit: noOrbit,
     ...overrides,
   };
 }
@@ -191,11 +115,12 @@ function answer(answers: CaseAnswer[], id: CaseQuestionId): CaseAnswer {
 }
 
 describe("science case list", () => {
-  it("holds the five cases once, each with a label in the trade's words", () => {
-    expect(scienceCaseIds).toEqual(["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale"]);
+  it("holds the six cases once, each with a label in the trade's words", () => {
+    expect(scienceCaseIds).toEqual(["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale", "relativistic-orbit"]);
     expect(Object.keys(scienceCaseLabels).sort()).toEqual([...scienceCaseIds].sort());
     expect(scienceCaseLabels["photometric-microlensing"]).toBe("Photometric microlensing event");
     expect(scienceCaseLabels["horizon-scale"]).toBe("Horizon-scale imaging");
+    expect(scienceCaseLabels["relativistic-orbit"]).toBe("Relativistic orbit");
   });
 });
 
@@ -206,6 +131,7 @@ describe("each case asks only its own questions", () => {
     "resolved-images": ["image-separation", "flux-ratio"],
     "time-delay": ["delay-season", "delay-visits", "delay-cadence", "seasons-covered"],
     "horizon-scale": ["shadow", "photon-ring"],
+    "relativistic-orbit": ["periapsis-season", "periapsis-epochs", "precession-signal", "redshift-signal"],
   };
   for (const caseId of scienceCaseIds) {
     it(`${caseId}: ${questions[caseId].join(", ")}`, () => {
@@ -233,7 +159,7 @@ describe("the textbook bulge event (0.3 M☉ at 4 kpc, source 8 kpc, u0 = 0.1)",
   });
 
   it("defaults to a photometric event and gets no 'Not feasible' for resolution or delay", () => {
-    const chosen = defaultScienceCase(bulge, { ...noInstrument, psfFwhmMas: 100 });
+    const chosen = defaultScienceCase(bulge, { ...noInstrument, psfFwhmMas: 100 }, noOrbit);
     expect(chosen.caseId).toBe("photometric-microlensing");
     expect(chosen.reason).toBe(
       "A compact lens whose two images, 1.11 mas apart, blend within the PSF FWHM of 100 mas, with t_E = 20.2 d: one watches the source brighten and fade, a photometric microlensing event.",
@@ -442,19 +368,19 @@ describe("astrometric microlensing", () => {
 describe("the default science case (our rule)", () => {
   it("horizon-scale for a shadow of at least half λ/B", () => {
     const sgrA = pointLens(4.1e6, 8100, 1e9, 1, null);
-    const chosen = defaultScienceCase(sgrA, { ...noInstrument, psfFwhmMas: 100, interferometer: { wavelengthMm: 1.3, longestBaselineKm: 10_700 } });
+    const chosen = defaultScienceCase(sgrA, { ...noInstrument, psfFwhmMas: 100, interferometer: { wavelengthMm: 1.3, longestBaselineKm: 10_700 } }, noOrbit);
     expect(chosen).toEqual({
       caseId: "horizon-scale",
       reason: "The lens's shadow is 51.9 µas across, at least half of the interferometer's λ/B of 25.1 µas, so the shadow itself can be observed: horizon-scale imaging.",
     });
     // Without an interferometer its images (θ_E ≈ 2″ for a distant source) are resolved by a 100 mas PSF.
-    expect(defaultScienceCase(sgrA, { ...noInstrument, psfFwhmMas: 100 }).caseId).toBe("resolved-images");
+    expect(defaultScienceCase(sgrA, { ...noInstrument, psfFwhmMas: 100 }, noOrbit).caseId).toBe("resolved-images");
   });
 
   it("resolved images for an SIS wider than the resolution, time-delay monitoring when narrower", () => {
     const sis = isothermalSphere(250, 0.4, 40);
-    expect(defaultScienceCase(sis, { ...noInstrument, psfFwhmMas: 100 }).caseId).toBe("resolved-images");
-    expect(defaultScienceCase(sis, { ...noInstrument, psfFwhmMas: 3000 })).toEqual({
+    expect(defaultScienceCase(sis, { ...noInstrument, psfFwhmMas: 100 }, noOrbit).caseId).toBe("resolved-images");
+    expect(defaultScienceCase(sis, { ...noInstrument, psfFwhmMas: 3000 }, noOrbit)).toEqual({
       caseId: "time-delay",
       reason: "An extended lens whose images arrive 40 d apart and lie closer together than the PSF FWHM of 3″: the question is whether the delay can be measured, time-delay monitoring.",
     });
@@ -462,8 +388,8 @@ describe("the default science case (our rule)", () => {
 
   it("astrometric for a nearby lens seen at u ≥ 1 with a shift above the precision per epoch", () => {
     const nearby = pointLens(0.6, 10, 2000, 3, 1000);
-    expect(defaultScienceCase(nearby, { ...noInstrument, psfFwhmMas: 100, astrometricPrecisionMas: 0.1 }).caseId).toBe("astrometric-microlensing");
-    expect(defaultScienceCase(nearby, { ...noInstrument, psfFwhmMas: 100 }).caseId).toBe("photometric-microlensing");
+    expect(defaultScienceCase(nearby, { ...noInstrument, psfFwhmMas: 100, astrometricPrecisionMas: 0.1 }, noOrbit).caseId).toBe("astrometric-microlensing");
+    expect(defaultScienceCase(nearby, { ...noInstrument, psfFwhmMas: 100 }, noOrbit).caseId).toBe("photometric-microlensing");
   });
 });
 
