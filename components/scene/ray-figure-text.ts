@@ -1,13 +1,14 @@
 /**
- * The words, numbers and PNG chunks of the 3D view's saved figure: its DPI, the length of its scale
- * bar, the bar's length for the sketch's mass and the caption. Pure (no DOM), for the browser.
+ * The words, numbers and PNG chunks of the 3D view's saved figure: its DPI, the sketch's mass and the
+ * caption (the scale's rings and bar are lib/bench/ray-view-scale's). Pure (no DOM), for the browser.
  */
-import { formatInUnit, formatPlain, naturalLengthUnit } from "@/lib/bench/display-units";
+import { formatPlain } from "@/lib/bench/display-units";
 import { defaultUnits } from "@/lib/bench/parse-sketch";
 import { lensSketches, type Sketch } from "@/lib/bench/sketch-state";
 import { internationalTextChunk, type PngChunk } from "@/lib/exports/png-text";
 import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
-import { parseMass, SOLAR_MASS_LENGTH_M } from "@/lib/physics";
+import { physicalLengthText } from "@/lib/bench/ray-view-scale";
+import { parseMass } from "@/lib/physics";
 import type { PngScale } from "./png-scale";
 
 /** CSS pixels per inch: 1px = 1/96 in (CSS Values and Units Level 3, §5.2 absolute lengths). */
@@ -25,16 +26,6 @@ export const CAPTION_KEYWORD = "Description";
 /** The caption as an iTXt chunk (PNG 3rd ed. §11.3.4.5), UTF-8 so M☉ survives. */
 export const captionChunk = (caption: string): PngChunk => internationalTextChunk(CAPTION_KEYWORD, caption);
 
-/**
- * The scale bar's length, units of M: the longest of 1, 2 or 5 × 10ⁿ M that spans at most `maxPx`
- * pixels at `pxPerM` (common practice for map and micrograph scale bars).
- */
-export function scaleBarLengthM(pxPerM: number, maxPx: number): number {
-  const longestM = maxPx / pxPerM;
-  const decade = 10 ** Math.floor(Math.log10(longestM));
-  return [5, 2, 1].map((step) => step * decade).find((lengthM) => lengthM <= longestM * (1 + 1e-12)) ?? decade;
-}
-
 /** The sketch's lens mass in M☉ when its lens is a point mass and the field reads; else undefined. */
 export function bundleMassSolar(sketch: Pick<Sketch, "lens" | "mass">): number | undefined {
   if (!lensSketches[sketch.lens].fields.includes("mass")) return undefined;
@@ -43,12 +34,6 @@ export function bundleMassSolar(sketch: Pick<Sketch, "lens" | "mass">): number |
   } catch {
     return undefined;
   }
-}
-
-/** `lengthM` (units of M = GM/c²) for a mass of `massSolar` M☉, in the readable unit: "14.77 km", "0.6595 au". */
-export function physicalLengthText(lengthM: number, massSolar: number): string {
-  const metres = lengthM * massSolar * SOLAR_MASS_LENGTH_M;
-  return formatInUnit("length", metres, naturalLengthUnit(metres));
 }
 
 export interface RayFigureCaptionRequest {

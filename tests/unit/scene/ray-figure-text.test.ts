@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { bundleMassSolar, CAPTION_KEYWORD, captionChunk, figureDpi, physicalLengthText, rayFigureCaption, scaleBarLengthM } from "@/components/scene/ray-figure-text";
+import { bundleMassSolar, CAPTION_KEYWORD, captionChunk, figureDpi, rayFigureCaption } from "@/components/scene/ray-figure-text";
+import { physicalLengthText, scaleBarLengthM } from "@/lib/bench/ray-view-scale";
 import { physicalSizeChunk } from "@/lib/exports/png-text";
 import { PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { demoSketch } from "@/lib/bench/sketch-state";
@@ -14,6 +15,8 @@ describe("the 3D view's saved figure: DPI, scale bar and caption", () => {
     expect(Array.from(chunk.data)).toEqual([0, 0, 0x0e, 0xc4, 0, 0, 0x0e, 0xc4, 1]);
     const view = new DataView(physicalSizeChunk(384).data.buffer);
     expect([view.getUint32(0), view.getUint32(4)]).toEqual([15118, 15118]);
+    // 2×: 192 / 0.0254 = 7559.06 → 7559 = 0x1d87, unit byte 1.
+    expect(Array.from(physicalSizeChunk(figureDpi(2)).data)).toEqual([0, 0, 0x1d, 0x87, 0, 0, 0x1d, 0x87, 1]);
   });
 
   it("stores the caption as UTF-8 in an iTXt Description chunk (PNG 3rd ed. §11.3.4.5)", () => {
