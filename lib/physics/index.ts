@@ -27,7 +27,7 @@ export {
   weakFieldSeriesCoefficient,
 } from "./deflection";
 export { CAPTURE_MARGIN, traceRay, traceRayBundle } from "./ray-tracer";
-export type { RayFate, TraceOptions, TracedRay, TracedRayBundle } from "./ray-tracer";
+export type { BundleTraceOptions, RayFate, TraceOptions, TracedRay, TracedRayBundle } from "./ray-tracer";
 export { traceBoundOrbit } from "./orbit-tracer";
 export type { OrbitTraceOptions, TracedOrbit } from "./orbit-tracer";
 export {

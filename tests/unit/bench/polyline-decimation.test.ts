@@ -3,7 +3,7 @@ import { DRAWN_MAX_TURN_RAD, keptSamples, PHOTON_SPHERE_SHELL_M, type StridedPat
 import { bundleLayout } from "@/lib/bench/bundle-layout";
 import { criticalImpactParameter, traceRayBundle } from "@/lib/physics";
 
-const planar = (xy: Float64Array, first: number, count: number): StridedPath => ({ coords: xy, offset: 2 * first, stride: 2, dims: 2, count });
+const planar = (xy: Float32Array | Float64Array, first: number, count: number): StridedPath => ({ coords: xy, offset: 2 * first, stride: 2, dims: 2, count });
 
 function kept(path: StridedPath): number[] {
   const out = new Uint32Array(path.count);
@@ -11,7 +11,7 @@ function kept(path: StridedPath): number[] {
 }
 
 /** Largest angle between a chord joining kept points and a traced segment it replaces, radians. */
-function worstChordAngle(xy: Float64Array, first: number, keptIndices: number[]): number {
+function worstChordAngle(xy: Float32Array | Float64Array, first: number, keptIndices: number[]): number {
   const point = (s: number) => [xy[2 * (first + s)], xy[2 * (first + s) + 1]];
   let worst = 0;
   for (let k = 0; k + 1 < keptIndices.length; k++) {

@@ -186,7 +186,8 @@ describe("traceRay", () => {
 
 describe("traceRayBundle", () => {
   it("packs every ray into one buffer, samples points each, matching traceRay", () => {
-    // contract of the bundle (common practice); the same integrator as traceRay
+    // contract of the bundle (common practice); the same integrator as traceRay. Samples are compared
+    // through Math.fround: the bundle stores traceRay's doubles in single precision (next test)
     const bs = new Float64Array([-40, -3, 0, 5.3, 12, 40]);
     const bundle = traceRayBundle(bs, 1, { samples: 64 });
     expect(bundle.samples).toBe(64);
@@ -195,10 +196,61 @@ describe("traceRayBundle", () => {
     expect(Array.from(bundle.fates)).toEqual([0, 1, 1, 2, 0, 0]);
     const single = traceRay(12, 1, { samples: 64, startRadius: 80 });
     expect(bundle.deflections[4]).toBe(single.deflection);
-    expect(bundle.xy[4 * 128 + 50]).toBe(single.xy[50]);
-    expect(bundle.t[4 * 64 + 30]).toBe(single.t[30]);
-    expect(bundle.xy[0]).toBeCloseTo(-80, 12);
+    expect(bundle.xy[4 * 128 + 50]).toBe(Math.fround(single.xy[50]));
+    expect(bundle.t[4 * 64 + 30]).toBe(Math.fround(single.t[30]));
+    // the start point (-80, -40): -80 M rounds to itself in single precision
+    expect(bundle.xy[0]).toBe(-80);
     expect(Number.isNaN(bundle.deflections[1])).toBe(true);
+  });
+
+  it("stores each sample as traceRay's double rounded once to single precision, in Float32Arrays", () => {
+    // IEEE 754 round to nearest (what a Float32Array store and Math.fround do): relative error
+    // <= 2^-24 = 6e-8, far below a drawn pixel. A bundle that kept doubles (or rounded twice, or
+    // sampled differently) fails either the type check or the exact comparison
+    const bs = new Float64Array([-25, -5.2, 0, 1e-200, 3 * Math.sqrt(3) * (1 + 1e-6), 7, 60, 1e6]);
+    const samples = 97;
+    const bundle = traceRayBundle(bs, 1, { samples, startRadius: 120 });
+    expect(bundle.xy).toBeInstanceOf(Float32Array);
+    expect(bundle.t).toBeInstanceOf(Float32Array);
+    expect(bundle.deflections).toBeInstanceOf(Float64Array);
+    let worstRelative = 0;
+    bs.forEach((b, ray) => {
+      const single = traceRay(b, 1, { samples, startRadius: 120 });
+      for (let j = 0; j < 2 * samples; j++) {
+        expect(bundle.xy[2 * ray * samples + j]).toBe(Math.fround(single.xy[j]));
+        if (single.xy[j] !== 0) worstRelative = Math.max(worstRelative, relativeError(bundle.xy[2 * ray * samples + j], single.xy[j]));
+      }
+      for (let j = 0; j < samples; j++) expect(bundle.t[ray * samples + j]).toBe(Math.fround(single.t[j]));
+      expect(bundle.deflections[ray]).toBe(single.deflection);
+    });
+    expect(worstRelative).toBeLessThanOrEqual(2 ** -24);
+  });
+
+  it("writes into the buffers of options.into, which may be longer, and names one that is too short", () => {
+    // the reuse contract (common practice): same samples as fresh buffers, as views of the given ones
+    const bs = new Float64Array([-12, 4, 30]);
+    const fresh = traceRayBundle(bs, 1, { samples: 32 });
+    const into = { xy: new Float32Array(3 * 64 + 10).fill(Number.NaN), t: new Float32Array(3 * 32 + 5).fill(Number.NaN) };
+    const reused = traceRayBundle(bs, 1, { samples: 32, into });
+    expect(reused.xy.buffer).toBe(into.xy.buffer);
+    expect(reused.t.buffer).toBe(into.t.buffer);
+    expect(Array.from(reused.xy)).toEqual(Array.from(fresh.xy));
+    expect(Array.from(reused.t)).toEqual(Array.from(fresh.t));
+    expect(Array.from(reused.deflections)).toEqual(Array.from(fresh.deflections));
+    expect(Number.isNaN(into.xy[3 * 64])).toBe(true);
+    expect(() => traceRayBundle(bs, 1, { samples: 32, into: { xy: new Float32Array(191), t: into.t } })).toThrow(/^options\.into\.xy must be a Float32Array of at least 192 values/);
+    expect(() => traceRayBundle(bs, 1, { samples: 32, into: { xy: into.xy, t: new Float32Array(95) } })).toThrow(/^options\.into\.t must be a Float32Array of at least 96 values/);
+  });
+
+  it("keeps every sample finite in single precision: |b| up to 1e30 M, and names a larger b or start radius", () => {
+    // single-precision maximum 3.4e38 (IEEE 754); traceRay's doubles reach 1e300 M
+    const far = traceRayBundle(new Float64Array([1e30, -1e30]), 1);
+    expect(far.xy.every(Number.isFinite)).toBe(true);
+    expect(far.t.every(Number.isFinite)).toBe(true);
+    expect(far.xy[0]).toBe(Math.fround(-2e30));
+    expect(() => traceRayBundle(new Float64Array([1, -2e30]), 1)).toThrow(/^impactParameters\[1\] must be finite, with \|b\| <= 1e30 M/);
+    expect(() => traceRayBundle(new Float64Array([1]), 1, { startRadius: 3e30 })).toThrow(/^options\.startRadius must be finite, > 4M = 4 and <= 2e30 M/);
+    expect(traceRay(2e30, 1).fate).toBe("escaped");
   });
 
   it("handles an empty bundle", () => {
