@@ -63,12 +63,20 @@ export interface RelativisticOrbit {
   /** Newtonian speed at periapsis, √(GM (1 + e)/(a (1 − e))) (vis-viva), km/s. */
   periapsisSpeedKmPerS: number;
   /**
+   * The speed at periapsis a static observer there measures, exact for the Schwarzschild orbit (its
+   * E and L: C. Cutler, D. Kennefick & E. Poisson 1994, Phys. Rev. D 50, 3816), km/s.
+   */
+  periapsisSpeedExactKmPerS: number;
+  /**
    * Redshift at periapsis as c·z, km/s, first order in (v/c)² and GM/(c² r): the gravitational
    * GM/(c² r_p), the transverse Doppler v_p²/(2c²), and their sum (the post-Newtonian redshift of a star
    * on its orbit, as measured for S2 by the GRAVITY Collaboration 2018, A&A 615, L15). The first-order
-   * line-of-sight Doppler shift, part of the Newtonian orbit, is not included.
+   * line-of-sight Doppler shift, part of the Newtonian orbit, is not included. `exactKmPerS` is the
+   * exact Schwarzschild value of the combined one, c (u^t − 1) at periapsis: the redshift of light that
+   * leaves periapsis with no angular momentum (radially, across the star's motion), which a distant
+   * observer receives without line-of-sight Doppler shift.
    */
-  redshift: { gravitationalKmPerS: number; transverseDopplerKmPerS: number; combinedKmPerS: number };
+  redshift: { gravitationalKmPerS: number; transverseDopplerKmPerS: number; combinedKmPerS: number; exactKmPerS: number };
   /**
    * Rømer delay: the range of the light-travel time across the orbit, s. With the inclination and the
    * argument of periapsis (`orientationGiven`), the range of the line-of-sight coordinate over the
@@ -205,6 +213,26 @@ function precessingTrack(constants: ThieleInnes, semiLatusRectumM: number, eccen
 }
 
 /**
+ * The star at periapsis on the exact Schwarzschild orbit of semi-latus rectum p (units of M) and
+ * eccentricity e, with the energy and angular momentum per unit mass of Cutler, Kennefick & Poisson
+ * 1994 (M = 1): E² − 1 = −(1 − e²)(p − 4)/(p (p − 3 − e²)), L/r_p = (1 + e)/√(p − 3 − e²), r_p = p/(1 + e).
+ * Returns u^t − 1 = (E − 1 + 2/r_p)/(1 − 2/r_p) (E − 1 from E² − 1, so that nothing cancels in the weak
+ * field) and the speed a static observer at periapsis measures, (L/r_p) √(1 − 2/r_p)/E, in units of c.
+ */
+function periapsisExact(semiLatusRectumM: number, eccentricity: number): { utMinusOne: number; speedC: number } {
+  const p = semiLatusRectumM;
+  const e = eccentricity;
+  const bound = p - 3 - e * e;
+  const energySquaredMinusOne = (-(1 - e) * (1 + e) * (p - 4)) / (p * bound);
+  const energy = Math.sqrt(1 + energySquaredMinusOne);
+  const twoOverR = (2 * (1 + e)) / p;
+  return {
+    utMinusOne: (energySquaredMinusOne / (energy + 1) + twoOverR) / (1 - twoOverR),
+    speedC: ((1 + e) * Math.sqrt(1 - twoOverR)) / (energy * Math.sqrt(bound)),
+  };
+}
+
+/**
  * The apoapsis' displacement over one orbit, au: the apoapsis (−r_a, 0) turned by the advance Δφ
  * moves by (r_a (1 − cos Δφ), −r_a sin Δφ); projected on the sky its length is that of the vector
  * less its line-of-sight part C x + H y (the node only turns it on the sky).
@@ -240,8 +268,9 @@ function roemerDelayS(semiMajorAxisAu: number, eccentricity: number, orientation
  * distance. Refused: a circular orbit (no periapsis to advance), e ≥ 1, and an orbit whose
  * semi-latus rectum a (1 − e²) is not above (6 + 2e) GM/c² (no stable bound orbit: C. Cutler,
  * D. Kennefick & E. Poisson 1994, Phys. Rev. D 50, 3816). Accuracy: the exact precession and the
- * precessing track to the physics core's 1e-15 relative; the first-order quantities are exact
- * formulas of their order (the redshift's neglected terms are relative O(GM/(c² r_p))).
+ * precessing track to the physics core's 1e-15 relative, the exact periapsis redshift and speed to
+ * a few ulp; the first-order quantities are exact formulas of their order (the redshift's neglected
+ * terms are relative O(GM/(c² r_p))).
  */
 export function relativisticOrbitOf(inputs: OrbitInputs): RelativisticOrbitOutcome {
   const missing: string[] = [];
@@ -278,6 +307,7 @@ export function relativisticOrbitOf(inputs: OrbitInputs): RelativisticOrbitOutco
   // v_p²/c² = (M/r_p)(1 + e); z_grav = M/r_p; z_TD = v_p²/(2c²)
   const gravitational = 1 / periapsisM;
   const transverseDoppler = (0.5 * (1 + e)) / periapsisM;
+  const exact = periapsisExact(semiLatusRectumM, e);
   const orientation = orientationOf(inputs);
   const apoapsisAu = aAu * (1 + e);
   const masPerAu = distancePc === null ? null : 1000 / distancePc;
@@ -296,10 +326,12 @@ export function relativisticOrbitOf(inputs: OrbitInputs): RelativisticOrbitOutco
       precessionExactRad,
       precessionFirstOrderRad: periastronAdvance(massSolar, aAu, e),
       periapsisSpeedKmPerS: SPEED_OF_LIGHT_KM_PER_S * Math.sqrt((1 + e) / periapsisM),
+      periapsisSpeedExactKmPerS: SPEED_OF_LIGHT_KM_PER_S * exact.speedC,
       redshift: {
         gravitationalKmPerS: SPEED_OF_LIGHT_KM_PER_S * gravitational,
         transverseDopplerKmPerS: SPEED_OF_LIGHT_KM_PER_S * transverseDoppler,
         combinedKmPerS: SPEED_OF_LIGHT_KM_PER_S * (gravitational + transverseDoppler),
+        exactKmPerS: SPEED_OF_LIGHT_KM_PER_S * exact.utMinusOne,
       },
       roemerDelayS: roemerDelayS(aAu, e, orientation),
       orientationGiven: orientation !== null,

@@ -21,6 +21,7 @@ interface FixtureOrbit {
   precessionExactRad: string;
   precessionFirstOrderRad: string;
   periapsisUtMinusOneKmPerS: string;
+  periapsisStaticSpeedKmPerS: string;
   keplerPeriodDays: string;
   skyNewtonian?: FixturePoint[];
   skyPrecessing?: FixturePoint[];
@@ -109,9 +110,13 @@ describe("against the mpmath fixture (tests/fixtures/generate_relativistic_orbit
         expect(relativeError(orbit.precessionFirstOrderRad, Number(row.precessionFirstOrderRad))).toBeLessThan(1e-14);
       });
 
-      it("the first-order combined redshift approaches the exact u^t − 1 at periapsis to O(GM/(c² r_p))", () => {
+      it("the exact redshift c (u^t − 1) and the static observer's speed at periapsis (Cutler, Kennefick & Poisson 1994 E and L)", () => {
         const exact = Number(row.periapsisUtMinusOneKmPerS);
+        expect(relativeError(orbit.redshift.exactKmPerS, exact)).toBeLessThan(1e-13);
+        expect(relativeError(orbit.periapsisSpeedExactKmPerS, Number(row.periapsisStaticSpeedKmPerS))).toBeLessThan(1e-13);
+        // The first-order values approach them to O(GM/(c² r_p)).
         expect(relativeError(orbit.redshift.combinedKmPerS, exact)).toBeLessThan(3 / orbit.periapsisM);
+        expect(relativeError(orbit.periapsisSpeedKmPerS, orbit.periapsisSpeedExactKmPerS)).toBeLessThan(3 / orbit.periapsisM);
       });
 
       if (row.skyNewtonian !== undefined) {
