@@ -166,6 +166,13 @@ function orientationOf(inputs: OrbitInputs): Orientation | null {
   return { inclinationRad: inclinationDeg * DEGREE_RAD, periapsisArgumentRad: periapsisArgumentDeg * DEGREE_RAD, nodeRad: nodeDeg === null ? null : nodeDeg * DEGREE_RAD };
 }
 
+/** The orientation's fields, as the user names them. */
+const orientationAngleWords: readonly [keyof OrbitInputs, string][] = [
+  ["inclinationDeg", "orbit's inclination"],
+  ["nodeDeg", "longitude of the ascending node"],
+  ["periapsisArgumentDeg", "argument of periapsis"],
+];
+
 /** Thiele–Innes constants per unit length (see the module comment). */
 interface ThieleInnes {
   a: number;
@@ -286,6 +293,8 @@ export function relativisticOrbitOf(inputs: OrbitInputs): RelativisticOrbitOutco
   if (centralMassSolar !== null && !isPositive(centralMassSolar)) return { missing: "The lens mass must be above 0." };
   if (periodDays !== null && !isPositive(periodDays)) return { missing: "The orbital period must be above 0." };
   if (distancePc !== null && !isPositive(distancePc)) return { missing: "The lens distance must be above 0." };
+  const unreadAngle = orientationAngleWords.find(([field]) => inputs[field] !== null && !Number.isFinite(inputs[field]));
+  if (unreadAngle !== undefined) return { missing: `The ${unreadAngle[1]} must be an angle in degrees.` };
 
   const aAu = axis.au;
   const e = eccentricity;

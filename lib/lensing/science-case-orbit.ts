@@ -44,6 +44,7 @@ function nextPassage(question: Question, inputs: ScienceCaseInputs, outcome: Rel
   if ("missing" in outcome) return { answer: missingInput(question, outcome.missing) };
   const t0 = inputs.orbit.periapsisJdUtc;
   if (t0 === null) return { answer: missingInput(question, `${NEEDS_PERIAPSIS_DATE} to ${purpose}.`) };
+  if (!Number.isFinite(t0)) return { answer: missingInput(question, "The time of periapsis must be a date.") };
   const read = readSchedule(question, inputs);
   if ("answer" in read) return read;
   const { orbit } = outcome;

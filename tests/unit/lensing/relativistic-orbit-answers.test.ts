@@ -111,6 +111,7 @@ describe("the next periapsis against the season (our rule)", () => {
 
   it("asks for the periapsis time, the orbit and the schedule in words", () => {
     expect(ask("periapsis-season", { periapsisJdUtc: null })).toMatchObject({ verdict: "unknown", sentence: "Set the time of one periapsis passage of the star to date its next periapsis." });
+    expect(ask("periapsis-epochs", { periapsisJdUtc: Number.NaN })).toMatchObject({ verdict: "unknown", sentence: "The time of periapsis must be a date." });
     expect(ask("periapsis-season", { eccentricity: null })).toMatchObject({ verdict: "unknown", sentence: "Set the orbit's eccentricity to compute the star's orbit." });
     expect(ask("periapsis-season", {}, {}, { schedule: null })).toMatchObject({ verdict: "unknown", sentence: expect.stringMatching(/^Set the observing site and the cycle's first and last nights/) });
   });

@@ -232,6 +232,7 @@ describe("missing and unusable inputs, in the user's words", () => {
     expect(relativisticOrbitOf({ ...base, eccentricity: Number.NaN })).toEqual({ missing: "The orbit's eccentricity must be at least 0 and below 1 (a bound orbit)." });
     expect(relativisticOrbitOf({ ...base, semiMajorAxisAu: -1 })).toEqual({ missing: "The orbit's semi-major axis must be a length above 0." });
     expect(relativisticOrbitOf({ ...base, centralMassSolar: 0 })).toEqual({ missing: "The lens mass must be above 0." });
+    expect(relativisticOrbitOf({ ...base, nodeDeg: Number.POSITIVE_INFINITY })).toEqual({ missing: "The longitude of the ascending node must be an angle in degrees." });
     // GM/c² = 0.0395 au for 4 × 10⁶ M☉: periapsis 0.1 au = 2.53 M, p = 0.15 au = 3.8 M, below the separatrix 7 M.
     expect(relativisticOrbitOf({ ...base, semiMajorAxisAu: 0.2 })).toEqual({ missing: expect.stringMatching(/^The star would pass within 2\.53 GM\/c² of the compact mass, inside the last stable orbits/) });
   });
