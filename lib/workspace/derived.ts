@@ -9,6 +9,7 @@ import {
   type CaseAnswer,
   type EventTiming,
   type InstrumentSettings as CaseInstrument,
+  type OrbitInputs,
   type ScienceCaseId,
 } from "@/lib/lensing/science-cases";
 import type { LensSolution } from "@/lib/lensing/solution";
@@ -23,7 +24,7 @@ import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from 
  * of a lensing formula, a feasibility rule or the schedule: startup re-derives every older row, so no
  * stored verdict is ever stale.
  */
-export const DERIVATION_VERSION = 3;
+export const DERIVATION_VERSION = 4;
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -111,6 +112,27 @@ export function caseInstrumentOf(instrument: FeasibilitySettings["instrument"]):
     interferometer: wavelengthMm != null && longestBaselineKm != null ? { wavelengthMm, longestBaselineKm } : null,
     astrometricPrecisionMas: instrument.astrometricPrecisionMas ?? null,
     reachableContrast: instrument.reachableContrast ?? null,
+    spectroscopicPrecisionKmPerS: instrument.spectroscopicPrecisionKmPerS ?? null,
+  };
+}
+
+/**
+ * The orbiting star of the relativistic-orbit case as the target gives it: the compact mass is the
+ * lens mass (a point-mass lens; null for another model, whose orbit fields are refused), at the lens
+ * distance (the angular-diameter distance for a lens given by redshift).
+ */
+export function orbitInputsOf(h: LensHypothesis, geometry: LensGeometry): OrbitInputs {
+  return {
+    centralMassSolar: h.lensModel === "point" ? (h.lensMassSolar ?? null) : null,
+    distancePc: geometry.dLensPc,
+    semiMajorAxisAu: h.orbitSemiMajorAxisAu ?? null,
+    semiMajorAxisMas: h.orbitSemiMajorAxisMas ?? null,
+    eccentricity: h.orbitEccentricity ?? null,
+    periodDays: h.orbitPeriodDays ?? null,
+    periapsisJdUtc: h.orbitPeriapsisJdUtc ?? null,
+    inclinationDeg: h.orbitInclinationDeg ?? null,
+    nodeDeg: h.orbitNodeDeg ?? null,
+    periapsisArgumentDeg: h.orbitPeriapsisArgumentDeg ?? null,
   };
 }
 
@@ -200,7 +222,8 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
   if (solved === null) return null;
   const { solution, geometry } = solved;
   const instrument = caseInstrumentOf(settings.instrument);
-  const inferred = h.scienceCase == null ? defaultScienceCase(solution, instrument) : null;
+  const orbit = orbitInputsOf(h, geometry);
+  const inferred = h.scienceCase == null ? defaultScienceCase(solution, instrument, orbit) : null;
   const scienceCase: TargetCase = inferred === null ? { caseId: h.scienceCase!, isChosen: true, reason: null } : { caseId: inferred.caseId, isChosen: false, reason: inferred.reason };
   const event = eventTimingOf(h, solution, geometry);
   const photonBudget = targetPhotonBudget({ caseId: scienceCase.caseId, solution, event, schedule, inputs: photonBudgetInputsOf(h, settings) });
@@ -211,6 +234,7 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
     schedule,
     campaign: { lengthDays: settings.instrument.campaignLengthDays, cadenceHours: settings.instrument.cadenceHours },
     photonBudget,
+    orbit,
   });
   return { solution, scienceCase, photonBudget, answers };
 }
