@@ -11,12 +11,14 @@ import { TargetStatusControl } from "@/components/workspace/target-status";
 import { EventFitPanel } from "@/components/lensing/event-fit-panel";
 import { EventPhotometrySection } from "@/components/lensing/event-photometry-section";
 import { FitRevisions } from "@/components/lensing/fit-revisions";
+import { RelativisticOrbitSection } from "@/components/lensing/relativistic-orbit-section";
+import { relativisticOrbitOf } from "@/lib/lensing/relativistic-orbit";
 import { hasPointLensFit } from "@/lib/lensing/fit-choices";
 import { nightDateSchema } from "@/lib/astro/inputs";
-import { currentNightIso } from "@/lib/astro/time";
+import { currentNightIso, jdUtcFromDate } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
-import { eventTimingOf, lensSolutionOf, targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
+import { eventTimingOf, lensSolutionOf, orbitInputsOf, targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
 import { ScheduleTimeline } from "@/components/workspace/schedule-timeline";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
@@ -210,6 +212,14 @@ export default async function TargetPage({
           </>
         )}
       </section>
+      {report !== null && solved !== null && report.scienceCase.caseId === "relativistic-orbit" && (
+        <RelativisticOrbitSection
+          targetName={target.name}
+          outcome={relativisticOrbitOf(orbitInputsOf(target, solved.geometry))}
+          periapsisJdUtc={target.orbitPeriapsisJdUtc ?? null}
+          fromJdUtc={jdUtcFromDate(new Date())}
+        />
+      )}
       {report !== null && <PhotonBudgetPanel outcome={report.photonBudget} />}
       <ScheduleTimeline
         schedule={schedule}
