@@ -7,12 +7,14 @@ import { withLensSurface } from "@/lib/bench/bundle-surface";
 import { formatPlain } from "@/lib/bench/display-units";
 import { hasPhotonSphere, lensRadiusInMassUnits } from "@/lib/bench/lens-surface";
 import { parseBundle } from "@/lib/bench/parse-sketch";
+import { quantityScale, RAY_COLOURINGS, rampStops, rayQuantity, type QuantityScale, type RayColouring } from "@/lib/bench/ray-view-colour";
+import { sliderTimeM, sliderTimeText, TIME_SLIDER_STEPS } from "@/lib/bench/ray-view-time";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
 import { PNG_SCALES, type PngScale } from "@/components/scene/png-scale";
 import { withRayViewProvenance } from "@/lib/bench/ray-view-png";
 import { physicalSizeChunk, withPngChunks } from "@/lib/exports/png-text";
-import type { RayBundleView } from "@/components/scene/ray-bundle-canvas";
+import type { RayBundleView, RayColouringValues } from "@/components/scene/ray-bundle-canvas";
 import type { FigureKeyEntry } from "@/components/scene/ray-figure";
 import { bundleMassSolar, captionChunk, figureDpi, rayFigureCaption } from "@/components/scene/ray-figure-text";
 import { sceneInks } from "@/components/scene/scene-colours";
@@ -35,16 +37,26 @@ interface RayBundlePanelProps {
   onFieldChange: FieldChange;
 }
 
-function FateLegend({ bundle, hasSurface }: { bundle?: AssembledBundle; hasSurface: boolean }) {
+/**
+ * The rays by fate, each with its dash, colour and count. Coloured by a quantity, the escaped rays'
+ * colour is the ramp's (shown by RampLegend) and the others are grey: their dash tells them apart.
+ */
+function FateLegend({ bundle, hasSurface, byQuantity }: { bundle?: AssembledBundle; hasSurface: boolean; byQuantity: boolean }) {
+  const rampGradient = `linear-gradient(to right, ${rampStops("screen").join(", ")})`;
   return (
     <ul aria-label="Rays by fate" className="flex flex-wrap gap-x-6 gap-y-1 text-sm">
       {RAY_FATES.filter((fate) => hasSurface || fate !== "surface").map((fate) => {
         const style = fateStyles[fate];
+        const isOnRamp = byQuantity && fate === "escaped";
         return (
           <li key={fate} className="flex items-center gap-2">
-            <svg width="36" height="8" aria-hidden="true">
-              <line x1="0" y1="4" x2="36" y2="4" stroke={style.color} strokeWidth="2.5" strokeDasharray={style.legendDash} />
-            </svg>
+            {isOnRamp ? (
+              <span aria-hidden="true" className="inline-block h-1 w-9" style={{ backgroundImage: rampGradient }} />
+            ) : (
+              <svg width="36" height="8" aria-hidden="true">
+                <line x1="0" y1="4" x2="36" y2="4" stroke={byQuantity ? sceneInks.noValue.screen.color : style.color} strokeWidth="2.5" strokeDasharray={style.legendDash} />
+              </svg>
+            )}
             <span>
               {style.label}: <span className="font-mono text-glint" data-testid={`fate-count-${fate}`}>{bundle?.fateCounts[fate] ?? "—"}</span>
             </span>
@@ -61,11 +73,31 @@ function FateLegend({ bundle, hasSurface }: { bundle?: AssembledBundle; hasSurfa
   );
 }
 
-/** The key under a saved figure: the fates drawn, in print ink, and the wavefronts. */
-function figureKey(hasSurface: boolean): FigureKeyEntry[] {
-  const fates = RAY_FATES.filter((fate) => hasSurface || fate !== "surface").map((fate) => ({
+/** The colour ramp of the chosen quantity with its round values written under it (not colour alone). */
+function RampLegend({ scale }: { scale: QuantityScale }) {
+  return (
+    <figure aria-label="Colour scale" data-testid="ray-colour-scale" className="max-w-md text-sm">
+      <figcaption className="text-dusk-dim">{scale.title}; escaped rays only</figcaption>
+      <div aria-hidden="true" className="mt-1 h-2.5 rounded-sm" style={{ backgroundImage: `linear-gradient(to right, ${rampStops("screen").join(", ")})` }} />
+      <ol className="relative h-5">
+        {scale.ticks.map((tick) => (
+          <li key={tick.label} data-testid="ray-colour-scale-tick" className="absolute top-0 -translate-x-1/2 font-mono text-xs text-dusk" style={{ left: `${tick.fraction * 100}%` }}>
+            {tick.label}
+          </li>
+        ))}
+      </ol>
+    </figure>
+  );
+}
+
+/**
+ * The key under a saved figure, in print ink: the fates by colour and dash (the escaped rays left to
+ * the colour ramp when coloured by a quantity, the others then grey) and the wavefronts.
+ */
+function figureKey(hasSurface: boolean, byQuantity: boolean): FigureKeyEntry[] {
+  const fates = RAY_FATES.filter((fate) => (hasSurface || fate !== "surface") && !(byQuantity && fate === "escaped")).map((fate) => ({
     label: fateStyles[fate].label.split(" (")[0],
-    color: fateStyles[fate].print.color,
+    color: byQuantity ? sceneInks.noValue.print.color : fateStyles[fate].print.color,
     dashPx: fateStyles[fate].legendDash?.split(" ").map(Number) ?? [],
   }));
   return [...fates, { label: "Wavefronts", color: sceneInks.wavefront.print.color, dashPx: [] }];
@@ -83,6 +115,24 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
   const viewRef = useRef<RayBundleView | undefined>(undefined);
   const [drawnBundle, setDrawnBundle] = useState<AssembledBundle | undefined>(undefined);
   const [pngScale, setPngScale] = useState<PngScale>(2);
+  const [colouringChoice, setColouringChoice] = useState<RayColouring>("fate");
+  const massSolar = useMemo(() => bundleMassSolar(sketch), [sketch]);
+  const colouring = useMemo((): RayColouringValues | undefined => {
+    if (bundle === undefined || colouringChoice === "fate") return undefined;
+    const values = rayQuantity(bundle, colouringChoice);
+    const scale = quantityScale(values, colouringChoice);
+    return scale === undefined ? undefined : { values, scale };
+  }, [bundle, colouringChoice]);
+
+  // The time slider is not React state: it moves the view's uniforms and its own reading directly.
+  const timeSlider = useRef<HTMLInputElement>(null);
+  const timeReading = useRef<HTMLOutputElement>(null);
+  const showTime = useCallback(() => {
+    const step = Number(timeSlider.current?.value ?? TIME_SLIDER_STEPS);
+    viewRef.current?.setTimeStep(step);
+    if (timeReading.current !== null) timeReading.current.textContent = sliderTimeText(sliderTimeM(step, bundle?.latestTimeM ?? 0), massSolar);
+  }, [bundle, massSolar]);
+  useEffect(showTime, [showTime]);
 
   const parsedBundle = parsed.ok ? parsed.bundle : undefined;
   const startTrace = useCallback(() => {
@@ -121,9 +171,8 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     if (view === undefined || parsedBundle === undefined) return;
     const link = document.createElement("a");
     const rayCount = drawnBundle?.rayCount ?? 0;
-    const massSolar = bundleMassSolar(sketch);
     const caption = rayFigureCaption({ massSolar, bMinM: parsedBundle.bMinM, bMaxM: parsedBundle.bMaxM, rayCount, layout: parsedBundle.layout });
-    const dataUrl = view.toFigurePngDataUrl(pngScale, { surfaceRadiusM: hasSurface ? radiusOverM : 0, massSolar, caption, key: figureKey(hasSurface) });
+    const dataUrl = view.toFigurePngDataUrl(pngScale, { surfaceRadiusM: hasSurface ? radiusOverM : 0, massSolar, caption, key: figureKey(hasSurface, colouring !== undefined), ramp: colouring?.scale });
     const withProvenance = withRayViewProvenance(dataUrl, {
       rayCount,
       scale: pngScale,
@@ -145,8 +194,9 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
     <section aria-label="Ray bundle" className="space-y-3 rounded-md border border-void-edge bg-void-raised p-4">
       <h2 className="text-base font-semibold text-dusk">Ray bundle: exact light paths past the mass</h2>
       <p className="text-sm text-dusk-dim">
-        Lengths in units of M = GM/c². Black: the horizon (r = 2M); pink wire: the photon sphere (r = 3M). Rays with b below
-        b_c = 3√3 M ≈ 5.196 M are captured. Drag to turn the view, scroll to zoom.
+        Lengths in units of M = GM/c². Black: the horizon (r = 2M); pink wire: the photon sphere (r = 3M); rings in the rays&apos; plane
+        mark round radii. Rays with b below b_c = 3√3 M ≈ 5.196 M are captured. Drag to turn the view, scroll to zoom; the time
+        slider draws each ray as far as it has travelled.
       </p>
       <div className="grid grid-cols-2 gap-3 md:grid-cols-4">
         {text("rays", "1 to 5000")}
@@ -213,12 +263,53 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
           {radiusOverM >= (bundle?.startRadiusM ?? INITIAL_START_RADIUS_M) ? " The whole traced region lies inside the body, so every ray here ends on its surface." : ""}
         </p>
       ) : null}
-      <FateLegend bundle={bundle} hasSurface={hasSurface} />
+      <div className="flex flex-wrap items-end gap-x-6 gap-y-2">
+        <label className="flex items-center gap-2 text-sm text-dusk-dim">
+          Colour rays by
+          <select
+            aria-label="Colour rays by"
+            value={colouringChoice}
+            onChange={(event) => setColouringChoice(event.target.value as RayColouring)}
+            className="rounded border border-void-edge bg-void px-1 py-1 text-dusk"
+          >
+            {RAY_COLOURINGS.map((option) => (
+              <option key={option.value} value={option.value}>
+                {option.label}
+              </option>
+            ))}
+          </select>
+        </label>
+        <label className="flex items-center gap-2 text-sm text-dusk-dim">
+          Coordinate time
+          <input
+            ref={timeSlider}
+            type="range"
+            aria-label="Coordinate time"
+            min={0}
+            max={TIME_SLIDER_STEPS}
+            defaultValue={TIME_SLIDER_STEPS}
+            onInput={showTime}
+            className="w-56 accent-ember"
+          />
+          <output ref={timeReading} data-testid="ray-time-reading" className="min-w-40 font-mono text-xs text-dusk" />
+        </label>
+        <button
+          type="button"
+          onClick={() => viewRef.current?.resetView()}
+          className="rounded-md border border-void-edge px-3 py-1.5 text-sm text-dusk hover:border-ember"
+        >
+          Reset view
+        </button>
+      </div>
+      <FateLegend bundle={bundle} hasSurface={hasSurface} byQuantity={colouring !== undefined} />
+      {colouring !== undefined ? <RampLegend scale={colouring.scale} /> : null}
       <div className="h-[480px] overflow-hidden rounded border border-void-edge">
         <RayBundleCanvas
           bundle={bundle}
           startRadiusM={INITIAL_START_RADIUS_M}
           surfaceRadiusM={hasSurface ? radiusOverM : 0}
+          massSolar={massSolar}
+          colouring={colouring}
           onViewReady={onViewReady}
           onBundleDrawn={onBundleDrawn}
         />

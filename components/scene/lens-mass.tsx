@@ -1,6 +1,6 @@
 "use client";
 
-import { inkData, sceneInks } from "./scene-colours";
+import { sceneInks } from "./scene-colours";
 
 /**
  * The mass at the centre, in units of M: for a compact lens the horizon r = 2M (opaque) inside the
@@ -12,7 +12,7 @@ export function LensMass({ surfaceRadiusM }: { surfaceRadiusM: number }) {
     return (
       <mesh>
         <sphereGeometry args={[surfaceRadiusM, 48, 24]} />
-        <meshBasicMaterial color={sceneInks.surface.screen.color} userData={inkData(sceneInks.surface)} />
+        <meshBasicMaterial color={sceneInks.surface.screen.color} />
       </mesh>
     );
   }
@@ -20,15 +20,15 @@ export function LensMass({ surfaceRadiusM }: { surfaceRadiusM: number }) {
     <group>
       <mesh>
         <sphereGeometry args={[2, 48, 24]} />
-        <meshBasicMaterial color={sceneInks.horizon.screen.color} userData={inkData(sceneInks.horizon)} />
+        <meshBasicMaterial color={sceneInks.horizon.screen.color} />
       </mesh>
       <mesh>
         <sphereGeometry args={[2.02, 24, 12]} />
-        <meshBasicMaterial color={sceneInks.horizonWire.screen.color} wireframe transparent opacity={sceneInks.horizonWire.screen.opacity} userData={inkData(sceneInks.horizonWire)} />
+        <meshBasicMaterial color={sceneInks.horizonWire.screen.color} wireframe transparent opacity={sceneInks.horizonWire.screen.opacity} />
       </mesh>
       <mesh>
         <sphereGeometry args={[3, 32, 16]} />
-        <meshBasicMaterial color={sceneInks.photonSphere.screen.color} wireframe transparent opacity={sceneInks.photonSphere.screen.opacity} userData={inkData(sceneInks.photonSphere)} />
+        <meshBasicMaterial color={sceneInks.photonSphere.screen.color} wireframe transparent opacity={sceneInks.photonSphere.screen.opacity} />
       </mesh>
     </group>
   );

@@ -1,36 +1,58 @@
 "use client";
 
 import { useFrame, useThree, type RootState } from "@react-three/fiber";
-import { useCallback, useEffect, useMemo, useRef } from "react";
-import type * as THREE from "three";
+import { useCallback, useEffect, useMemo, useRef, type RefObject } from "react";
+import * as THREE from "three";
 import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
 import { FIRST_FRAME_SEGMENTS, UPLOAD_FRAME_SEGMENTS, nextFrameSegments, segmentTotal, shareOfGroups } from "@/lib/bench/progressive-draw";
-import { RayBundleLines, WavefrontLines } from "./ray-bundle-lines";
+import { RayBundleLines, WavefrontLines, type RayViewUniforms, type WavefrontPassUniforms } from "./ray-bundle-lines";
+import { sceneBackground, sceneInks } from "./scene-colours";
 
 /** Camera world matrix, projection matrix and drawing-buffer size: what a drawn picture depends on. */
 const VIEW_KEY_LENGTH = 16 + 16 + 2;
 
+/**
+ * The wavefronts' edge: passes shifted by these offsets (drawing-buffer pixels) in the ground's
+ * colour, then the front itself, so a front reads as a line of its own across bright, dense rays.
+ */
+const FRONT_EDGE_OFFSETS_PX: readonly [number, number][] = [
+  [1, 0],
+  [-1, 0],
+  [0, 1],
+  [0, -1],
+];
+
+// The fronts' shader writes its colour as given (no colour-space conversion), so the hex values are
+// taken as they are rather than converted to linear light.
+const FRONT_EDGE_COLOUR = new THREE.Color().setStyle(sceneBackground.screen, THREE.LinearSRGBColorSpace);
+const FRONT_COLOUR = new THREE.Color().setStyle(sceneInks.wavefront.screen.color, THREE.LinearSRGBColorSpace);
+
 export interface ProgressiveBundleProps {
   bundle: AssembledBundle;
+  /** Each vertex's colour, [r, g, b] 0–255. */
+  colours: Uint8Array;
+  uniforms: RayViewUniforms;
+  /** Raised by the view when a uniform changes (the time slider): the picture is drawn again. */
+  revision: RefObject<number>;
   /** Called once, after the frame that first completes `bundle` has been rendered. */
   onBundleDrawn: (bundle: AssembledBundle) => void;
-  /** Receives a function that draws the whole bundle again at once (for saving the view in other ink or size). */
-  onDrawWhole: (drawWhole: (() => void) | undefined) => void;
 }
 
 /**
  * Draws the bundle over several frames onto the preserved drawing buffer (see progressive-draw): the
  * first frame clears and draws the scene without the bundle plus the first share of the rays, each
  * later frame adds one share without clearing, the last adds the wavefronts. Each share's size is
- * steered by how long the frame before took. A change of view or of bundle starts again from the first
- * frame. Takes over rendering from the canvas (useFrame priority 1).
+ * steered by how long the frame before took. A change of view, of bundle, of its colours or of the
+ * time slider starts again from the first frame. Takes over rendering from the canvas (useFrame priority 1).
  */
-export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: ProgressiveBundleProps) {
+export function ProgressiveBundle({ bundle, colours, uniforms, revision, onBundleDrawn }: ProgressiveBundleProps) {
   const rays = useRef<THREE.LineSegments>(null);
   const fronts = useRef<THREE.LineSegments>(null);
   const totalSegments = useMemo(() => segmentTotal(bundle.fateGroups), [bundle]);
   const progress = useRef({
     bundle: undefined as AssembledBundle | undefined,
+    colours: undefined as Uint8Array | undefined,
+    revision: 0,
     /** Segments on the buffer; undefined until the frame that clears it has been drawn. */
     drawnSegments: undefined as number | undefined,
     view: new Float64Array(VIEW_KEY_LENGTH),
@@ -68,8 +90,10 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: Progre
       const frontsObject = fronts.current;
       if (raysObject === null || frontsObject === null) return false;
       const state = progress.current;
-      if (state.bundle !== bundle || viewChanged(state.view, camera, gl.domElement)) {
+      if (state.bundle !== bundle || state.colours !== colours || state.revision !== revision.current || viewChanged(state.view, camera, gl.domElement)) {
         state.bundle = bundle;
+        state.colours = colours;
+        state.revision = revision.current;
         state.drawnSegments = undefined;
       }
       if (state.drawnSegments === totalSegments) return false;
@@ -89,7 +113,7 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: Progre
       const done = to === totalSegments;
       if (done) {
         frontsObject.visible = true;
-        gl.render(frontsObject, camera);
+        drawFronts(gl, frontsObject, camera);
       }
       gl.autoClear = autoClear;
       if (done && state.reported !== bundle) {
@@ -98,7 +122,7 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: Progre
       }
       return !done;
     },
-    [bundle, totalSegments],
+    [bundle, colours, revision, totalSegments],
   );
 
   useFrame((rootState) => {
@@ -118,23 +142,30 @@ export function ProgressiveBundle({ bundle, onBundleDrawn, onDrawWhole }: Progre
     }
   }, 1);
 
-  const getState = useThree((state) => state.get);
   const invalidate = useThree((state) => state.invalidate);
-  useEffect(() => {
-    invalidate();
-    onDrawWhole(() => {
-      progress.current.drawnSegments = undefined;
-      while (drawStep(getState(), Number.POSITIVE_INFINITY));
-    });
-    return () => onDrawWhole(undefined);
-  }, [drawStep, getState, invalidate, onDrawWhole]);
+  useEffect(() => invalidate(), [drawStep, invalidate]);
 
   return (
     <>
-      <RayBundleLines ref={rays} bundle={bundle} />
-      <WavefrontLines ref={fronts} vertices={bundle.wavefrontVertices} />
+      <RayBundleLines ref={rays} bundle={bundle} colours={colours} uniforms={uniforms} />
+      <WavefrontLines ref={fronts} vertices={bundle.wavefrontVertices} timesM={bundle.wavefrontVertexTimesM} uniforms={uniforms} />
     </>
   );
+}
+
+/** The wavefronts: their dark edge (shifted passes), then the fronts over it. */
+function drawFronts(gl: THREE.WebGLRenderer, fronts: THREE.LineSegments, camera: THREE.Camera) {
+  const material = fronts.material as THREE.ShaderMaterial;
+  const passUniforms = material.uniforms as unknown as WavefrontPassUniforms;
+  gl.getDrawingBufferSize(passUniforms.uViewportPx.value);
+  const pass = (offset: readonly [number, number], colour: THREE.Color) => {
+    passUniforms.uOffsetPx.value.set(offset[0], offset[1]);
+    passUniforms.uColour.value.copy(colour);
+    material.uniformsNeedUpdate = true;
+    gl.render(fronts, camera);
+  };
+  for (const offset of FRONT_EDGE_OFFSETS_PX) pass(offset, FRONT_EDGE_COLOUR);
+  pass([0, 0], FRONT_COLOUR);
 }
 
 /** Whether the view differs from the one recorded in `key`; records the current one. */

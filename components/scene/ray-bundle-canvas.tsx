@@ -1,22 +1,46 @@
 "use client";
 
 import { OrbitControls } from "@react-three/drei";
-import { Canvas, type RootState } from "@react-three/fiber";
-import { useCallback, useRef } from "react";
-import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
+import { Canvas, useFrame, useThree, type RootState } from "@react-three/fiber";
+import { useCallback, useEffect, useMemo, useRef, type ComponentRef, type RefObject } from "react";
+import * as THREE from "three";
+import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
+import { densityOpacity, rayColours, vertexColours, type QuantityScale, type RampInk } from "@/lib/bench/ray-view-colour";
+import { defaultViewDirection, extentOf, frameExtent, reframeDirection, type Extent, type Vec3 } from "@/lib/bench/ray-view-frame";
+import { observerAxisTipM, scaleRings } from "@/lib/bench/ray-view-scale";
+import { frontHeadM, sliderTimeM, TIME_SLIDER_STEPS } from "@/lib/bench/ray-view-time";
+import { fateStyles } from "./fate-styles";
 import { LensMass } from "./lens-mass";
 import type { PngScale } from "./png-scale";
 import { ProgressiveBundle } from "./progressive-bundle";
+import { createRayViewUniforms, WHOLE_PATH_TIME_M, type RayViewUniforms } from "./ray-bundle-lines";
 import { composeRayFigure, type RayFigureLabels } from "./ray-figure";
-import { sceneBackground } from "./scene-colours";
-import { applyInk } from "./scene-ink";
+import { sceneBackground, sceneInks } from "./scene-colours";
+import { ViewScale } from "./view-scale";
 
 /** Vertical field of view, degrees. */
 const FIELD_OF_VIEW_DEG = 45;
 
-/** What the page may do with the view: a figure of it (PNG data URL), with the whole bundle drawn. */
+/** Closest the controls let the camera come to the point it turns about, units of M (the photon sphere stays whole). */
+const MIN_CAMERA_DISTANCE_M = 4;
+
+/** Farthest the controls let the camera go, as a multiple of the framed distance. */
+const MAX_ZOOM_OUT = 20;
+
+/** What the page may do with the view. */
 export interface RayBundleView {
+  /** The figure (PNG data URL) of the view as it is turned, at `scale` times its size on screen, on white. */
   toFigurePngDataUrl: (scale: PngScale, labels: RayFigureLabels) => string;
+  /** Frames the bundle again from the default direction for its shape (forgets the user's turn). */
+  resetView: () => void;
+  /** Draws each ray as far as it has travelled at slider step `step` of TIME_SLIDER_STEPS (the last: whole). */
+  setTimeStep: (step: number) => void;
+}
+
+/** The quantity the escaped rays are coloured by, each ray's value and its scale; undefined: by fate. */
+export interface RayColouringValues {
+  values: Float32Array;
+  scale: QuantityScale;
 }
 
 export interface RayBundleCanvasProps {
@@ -25,57 +49,178 @@ export interface RayBundleCanvasProps {
   startRadiusM: number;
   /** Radius of the lens's body (units of M) when it lies outside the photon sphere; 0 for a compact lens. */
   surfaceRadiusM: number;
+  /** The lens mass for the scale's physical lengths; undefined: lengths in M only. */
+  massSolar: number | undefined;
+  colouring: RayColouringValues | undefined;
   onViewReady: (view: RayBundleView) => void;
   /** Called once the first frame showing the whole of `bundle` has been rendered. */
   onBundleDrawn: (bundle: AssembledBundle) => void;
 }
 
-/** Frames the traced region: the camera looks down the z axis, face-on to the fan's plane. */
-function cameraDistance(startRadiusM: number): number {
-  // Rays span x in ±R and, with b up to R/2 plus their bending, y in about ±0.65 R.
-  return (0.65 * startRadiusM) / Math.tan(((FIELD_OF_VIEW_DEG / 2) * Math.PI) / 180);
+/** Each ray's colour in `ink`: its fate's, or the ramp's at its value with the rest in grey. */
+function coloursOf(bundle: AssembledBundle, colouring: RayColouringValues | undefined, ink: RampInk): Uint8Array {
+  const fateColours = RAY_FATES.map((fate) => (ink === "screen" ? fateStyles[fate].color : fateStyles[fate].print.color));
+  return rayColours(bundle.rayFates, colouring?.values, colouring?.scale, ink, fateColours, sceneInks.noValue[ink].color);
+}
+
+/** The region before any bundle: the start plane's width, the fan's usual height. */
+const emptyExtent = (startRadiusM: number): Extent => ({ min: [-startRadiusM, -startRadiusM / 2, 0], max: [startRadiusM, startRadiusM / 2, 0] });
+
+type Controls = ComponentRef<typeof OrbitControls>;
+
+interface ViewFramingProps {
+  extent: Extent;
+  planes: number;
+  controls: RefObject<Controls | null>;
+  /** Whether the user has turned (or zoomed) the view since the last reset: their direction is kept. */
+  userTurned: RefObject<boolean>;
+  reset: RefObject<() => void>;
+  uniforms: RayViewUniforms;
+}
+
+/**
+ * Places the camera and the controls' target for every new extent (the Canvas `camera` prop only
+ * applies at mount): from the user's own direction if they have turned the view, else the default
+ * for the bundle's shape; and keeps the depth the rays fade from at the point the view turns about.
+ */
+function ViewFraming({ extent, planes, controls, userTurned, reset, uniforms }: ViewFramingProps) {
+  const camera = useThree((state) => state.camera) as THREE.PerspectiveCamera;
+  const size = useThree((state) => state.size);
+  const invalidate = useThree((state) => state.invalidate);
+  const aspect = size.width / Math.max(1, size.height);
+
+  const frame = useCallback(
+    (direction: Vec3) => {
+      const orbit = controls.current;
+      const framed = frameExtent(extent, direction, FIELD_OF_VIEW_DEG, aspect);
+      camera.position.set(...framed.position);
+      camera.near = framed.nearM;
+      camera.far = framed.farM * MAX_ZOOM_OUT;
+      camera.updateProjectionMatrix();
+      uniforms.uDepthSpanM.value = Math.max(1, Math.hypot(...extent.max.map((max, axis) => max - extent.min[axis])) / 2);
+      if (orbit !== null) {
+        orbit.target.set(...framed.target);
+        orbit.minDistance = MIN_CAMERA_DISTANCE_M;
+        orbit.maxDistance = framed.distanceM * MAX_ZOOM_OUT;
+        orbit.update();
+      } else {
+        camera.lookAt(...framed.target);
+      }
+      invalidate();
+    },
+    [extent, aspect, camera, controls, uniforms, invalidate],
+  );
+
+  // A new extent (a new bundle): reframe. A resize alone does not (the user's zoom stays).
+  useEffect(() => {
+    const orbit = controls.current;
+    const current: Vec3 | undefined = userTurned.current && orbit !== null ? (camera.position.clone().sub(orbit.target).toArray() as Vec3) : undefined;
+    frame(reframeDirection(current, planes));
+    // Only a new extent or shape reframes: `frame` also changes with the aspect, which must not.
+  }, [extent, planes]);
+
+  useEffect(() => {
+    reset.current = () => {
+      userTurned.current = false;
+      frame(defaultViewDirection(planes));
+    };
+  }, [frame, planes, reset, userTurned]);
+
+  useFrame(() => {
+    const orbit = controls.current;
+    if (orbit !== null) uniforms.uTargetDepthM.value = camera.position.distanceTo(orbit.target);
+  });
+  return null;
 }
 
 /** The 3D ray-bundle view (client only: loaded with next/dynamic and ssr: false). */
-export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, onViewReady, onBundleDrawn }: RayBundleCanvasProps) {
-  const distance = cameraDistance(bundle?.startRadiusM ?? startRadiusM);
-  const drawWhole = useRef<(() => void) | undefined>(undefined);
-  const onDrawWhole = useCallback((draw: (() => void) | undefined) => {
-    drawWhole.current = draw;
-  }, []);
+export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, massSolar, colouring, onViewReady, onBundleDrawn }: RayBundleCanvasProps) {
+  const uniforms = useMemo(createRayViewUniforms, []);
+  const revision = useRef(0);
+  const timeStep = useRef(TIME_SLIDER_STEPS);
+  const getState = useRef<(() => RootState) | undefined>(undefined);
+  const controls = useRef<Controls>(null);
+  const userTurned = useRef(false);
+  const reset = useRef<() => void>(() => undefined);
+
+  const radiusM = bundle?.startRadiusM ?? startRadiusM;
+  const rings = useMemo(() => scaleRings(radiusM, surfaceRadiusM, massSolar), [radiusM, surfaceRadiusM, massSolar]);
+  const bundleExtent = useMemo(() => bundle?.extentM ?? emptyExtent(startRadiusM), [bundle, startRadiusM]);
+  const axisTipM = observerAxisTipM(bundleExtent.max[0]);
+  // The axis toward the observer is framed with the rays.
+  const extent = useMemo(() => extentOf(new Float32Array([axisTipM, 0, 0]), bundleExtent), [axisTipM, bundleExtent]);
+
+  const colours = useMemo(() => (bundle === undefined ? undefined : vertexColours(coloursOf(bundle, colouring, "screen"), bundle.rayFirstPoint)), [bundle, colouring]);
+
+  // The time slider's uniforms follow the bundle (its latest time sets the scale) and the slider.
+  const applyTime = useCallback(() => {
+    const latestM = bundle?.latestTimeM ?? 0;
+    const timeM = sliderTimeM(timeStep.current, latestM);
+    uniforms.uTimeM.value = Number.isFinite(timeM) ? timeM : WHOLE_PATH_TIME_M;
+    uniforms.uHeadM.value = frontHeadM(timeM, latestM);
+    revision.current += 1;
+    getState.current?.().invalidate();
+  }, [bundle, uniforms]);
+  useEffect(() => {
+    uniforms.uDensityOpacity.value = densityOpacity(bundle?.rayCount ?? 1);
+    applyTime();
+  }, [bundle, uniforms, applyTime]);
+
+  // What the saved figure draws is read when it is saved, not captured at mount.
+  const current = useRef({ bundle, colouring, rings, axisTipM, applyTime });
+  current.current = { bundle, colouring, rings, axisTipM, applyTime };
+
+  const onCreated = useCallback(
+    ({ get }: RootState) => {
+      getState.current = get;
+      onViewReady({
+        toFigurePngDataUrl: (scale, labels) => {
+          const { gl, camera } = get();
+          const { bundle: shown, colouring: by, rings: ringsNow, axisTipM: tipM } = current.current;
+          const latestM = shown?.latestTimeM ?? 0;
+          const timeM = sliderTimeM(timeStep.current, latestM);
+          const figure = composeRayFigure({
+            ...labels,
+            widthPx: gl.domElement.width,
+            heightPx: gl.domElement.height,
+            camera,
+            scale,
+            bundle: shown,
+            rayColours: shown === undefined ? undefined : coloursOf(shown, by, "print"),
+            timeM,
+            headM: frontHeadM(timeM, latestM),
+            rings: ringsNow,
+            axisTipM: tipM,
+          });
+          return figure.toDataURL("image/png");
+        },
+        resetView: () => reset.current(),
+        setTimeStep: (step) => {
+          timeStep.current = step;
+          current.current.applyTime();
+        },
+      });
+    },
+    [onViewReady],
+  );
+
   return (
     <Canvas
       frameloop="demand"
       dpr={1}
-      camera={{ position: [0, 0, distance], fov: FIELD_OF_VIEW_DEG, near: 0.1, far: 20 * distance }}
-      // The drawing buffer is kept between frames: the bundle is drawn onto it over several frames,
-      // and a PNG is read from it. No MSAA: software rendering multiplied the draw time by about 3.5.
+      camera={{ position: [0, 0, 100], fov: FIELD_OF_VIEW_DEG, near: 0.1, far: 2000 }}
+      // The drawing buffer is kept between frames: the bundle is drawn onto it over several frames.
+      // No MSAA: software rendering multiplied the draw time by about 3.5.
       gl={{ preserveDrawingBuffer: true, antialias: false }}
-      onCreated={({ get }: RootState) =>
-        onViewReady({
-          toFigurePngDataUrl: (scale, labels) => {
-            const { gl, scene, camera } = get();
-            const redraw = () => (drawWhole.current ?? (() => gl.render(scene, camera)))();
-            // The figure is drawn in print ink into a drawing buffer `scale` times the screen's (one
-            // long task, on the user's click), read out, and the view goes back to the screen's ink and size.
-            const screenRatio = gl.getPixelRatio();
-            gl.setPixelRatio(scale);
-            applyInk(scene, "print");
-            redraw();
-            const figure = composeRayFigure({ view: gl.domElement, camera, scale, ...labels });
-            gl.setPixelRatio(screenRatio);
-            applyInk(scene, "screen");
-            redraw();
-            return figure.toDataURL("image/png");
-          },
-        })
-      }
+      onCreated={onCreated}
       data-testid="ray-bundle-canvas"
     >
       <color attach="background" args={[sceneBackground.screen]} />
       <LensMass surfaceRadiusM={surfaceRadiusM} />
-      {bundle !== undefined ? <ProgressiveBundle bundle={bundle} onBundleDrawn={onBundleDrawn} onDrawWhole={onDrawWhole} /> : null}
-      <OrbitControls makeDefault enableDamping={false} />
+      <ViewScale rings={rings} axisTipM={axisTipM} />
+      {bundle !== undefined && colours !== undefined ? <ProgressiveBundle bundle={bundle} colours={colours} uniforms={uniforms} revision={revision} onBundleDrawn={onBundleDrawn} /> : null}
+      <OrbitControls ref={controls} makeDefault enableDamping={false} onStart={() => (userTurned.current = true)} />
+      <ViewFraming extent={extent} planes={bundle?.planes ?? 2} controls={controls} userTurned={userTurned} reset={reset} uniforms={uniforms} />
     </Canvas>
   );
 }

@@ -1,36 +1,134 @@
 "use client";
 
-import { useEffect, useMemo, type Ref } from "react";
+import { useEffect, useLayoutEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
-import type { AssembledBundle, RayFate } from "@/lib/bench/assemble-bundle";
+import { RAY_FATES, type AssembledBundle, type RayFate } from "@/lib/bench/assemble-bundle";
+import { TIME_RULE_GLSL } from "@/lib/bench/ray-view-time";
 import { fateStyles } from "./fate-styles";
-import { inkData, sceneInks } from "./scene-colours";
 
-function fateMaterials(): Record<RayFate, THREE.Material> {
-  const entries = Object.entries(fateStyles).map(([fate, style]) => {
-    const userData = inkData({ screen: { color: style.color, opacity: style.opacity }, print: style.print });
-    const common = { color: style.color, transparent: true, opacity: style.opacity, depthWrite: false, userData };
-    return [fate, style.dashM === undefined ? new THREE.LineBasicMaterial(common) : new THREE.LineDashedMaterial({ ...common, dashSize: style.dashM, gapSize: style.gapM })];
+/**
+ * Uniforms every ray material reads, one object shared by all of them (three.js uploads a shared
+ * uniform's current value with each material): the time slider's time and head length (units of M),
+ * the depth of the point the view turns about and the span over which farther rays fade (units of M),
+ * and the bundle's density factor on every fate's opacity.
+ */
+export interface RayViewUniforms {
+  uTimeM: { value: number };
+  uHeadM: { value: number };
+  uTargetDepthM: { value: number };
+  uDepthSpanM: { value: number };
+  uDensityOpacity: { value: number };
+}
+
+/** A time later than any ray's (units of M): the shaders' "every path whole" (no +∞ in GLSL uniforms). */
+export const WHOLE_PATH_TIME_M = 1e30;
+
+export function createRayViewUniforms(): RayViewUniforms {
+  return { uTimeM: { value: WHOLE_PATH_TIME_M }, uHeadM: { value: 0 }, uTargetDepthM: { value: 0 }, uDepthSpanM: { value: 1 }, uDensityOpacity: { value: 1 } };
+}
+
+/**
+ * Most a ray at the far side of the bundle fades (share of its opacity): nearer rays draw over farther
+ * ones in a turned cylinder, so its depth reads (our choice).
+ */
+const DEPTH_FADE = 0.65;
+
+/** How bright a ray's head is drawn at the time slider's front: its opacity moves this far toward 1. */
+const HEAD_BOOST = 0.85;
+
+const RAY_VERTEX_SHADER = /* glsl */ `
+attribute float lineDistance;
+attribute float vertexTime;
+attribute vec3 rayColour;
+varying float vLineDistance;
+varying float vTime;
+varying vec3 vColour;
+varying float vDepth;
+void main() {
+  vLineDistance = lineDistance;
+  vTime = vertexTime;
+  vColour = rayColour;
+  vec4 mvPosition = modelViewMatrix * vec4(position, 1.0);
+  vDepth = -mvPosition.z;
+  gl_Position = projectionMatrix * mvPosition;
+}
+`;
+
+const RAY_FRAGMENT_SHADER = /* glsl */ `
+uniform float uOpacity;
+uniform float uDashM;
+uniform float uGapM;
+uniform float uTimeM;
+uniform float uHeadM;
+uniform float uTargetDepthM;
+uniform float uDepthSpanM;
+uniform float uDensityOpacity;
+varying float vLineDistance;
+varying float vTime;
+varying vec3 vColour;
+varying float vDepth;
+${TIME_RULE_GLSL}
+void main() {
+  if (shownAtTime(vTime, uTimeM) < 0.5) discard;
+  if (uDashM > 0.0 && mod(vLineDistance, uDashM + uGapM) > uDashM) discard;
+  float fade = 1.0 - ${DEPTH_FADE.toFixed(2)} * clamp((vDepth - uTargetDepthM) / uDepthSpanM, 0.0, 1.0);
+  float alpha = mix(uOpacity * uDensityOpacity * fade, 1.0, ${HEAD_BOOST.toFixed(2)} * inFrontHead(vTime, uTimeM, uHeadM));
+  gl_FragColor = vec4(vColour, alpha);
+}
+`;
+
+/**
+ * One material per fate: its opacity and dash (units of M along the ray) as uniforms, the colour from
+ * each vertex (so the rays can be coloured by a quantity), blended additively so that where many rays
+ * cross the picture is brighter (the bundle's structure), never an opaque slab.
+ */
+function fateMaterials(shared: RayViewUniforms): Record<RayFate, THREE.ShaderMaterial> {
+  const entries = RAY_FATES.map((fate) => {
+    const style = fateStyles[fate];
+    const material = new THREE.ShaderMaterial({
+      vertexShader: RAY_VERTEX_SHADER,
+      fragmentShader: RAY_FRAGMENT_SHADER,
+      uniforms: { ...shared, uOpacity: { value: style.opacity }, uDashM: { value: style.dashM ?? 0 }, uGapM: { value: style.gapM ?? 0 } },
+      transparent: true,
+      depthWrite: false,
+      blending: THREE.AdditiveBlending,
+    });
+    return [fate, material] as const;
   });
-  return Object.fromEntries(entries) as Record<RayFate, THREE.Material>;
+  return Object.fromEntries(entries) as Record<RayFate, THREE.ShaderMaterial>;
+}
+
+export interface RayBundleLinesProps {
+  bundle: AssembledBundle;
+  /** Each vertex's colour, [r, g, b] 0–255 (lib/bench/ray-view-colour's vertexColours). */
+  colours: Uint8Array;
+  uniforms: RayViewUniforms;
+  ref: Ref<THREE.LineSegments>;
 }
 
 /**
  * The whole bundle as one BufferGeometry of line segments, one material per fate; which parts of the
  * index are drawn (the geometry's groups) is set frame by frame by the progressive draw.
  */
-export function RayBundleLines({ bundle, ref }: { bundle: AssembledBundle; ref: Ref<THREE.LineSegments> }) {
+export function RayBundleLines({ bundle, colours, uniforms, ref }: RayBundleLinesProps) {
   const geometry = useMemo(() => {
     const built = new THREE.BufferGeometry();
     built.setAttribute("position", new THREE.BufferAttribute(bundle.vertices, 3));
     built.setAttribute("lineDistance", new THREE.BufferAttribute(bundle.lineDistances, 1));
+    built.setAttribute("vertexTime", new THREE.BufferAttribute(bundle.vertexTimesM, 1));
     built.setIndex(new THREE.BufferAttribute(bundle.segmentIndex, 1));
     return built;
   }, [bundle]);
 
+  // Recolouring only replaces this attribute (one small upload), not the geometry; set before the
+  // next frame is drawn, so no frame shows the rays without their colours.
+  useLayoutEffect(() => {
+    geometry.setAttribute("rayColour", new THREE.BufferAttribute(colours, 3, true));
+  }, [geometry, colours]);
+
   // One material per fate for the life of the view: a new bundle reuses them, so three.js keeps its
   // compiled line shaders (rebuilding them made the first frame of every bundle a 77–131 ms task).
-  const materialsByFate = useMemo(() => fateMaterials(), []);
+  const materialsByFate = useMemo(() => fateMaterials(uniforms), [uniforms]);
   const materials = useMemo(() => bundle.fateGroups.map(({ fate }) => materialsByFate[fate]), [bundle, materialsByFate]);
 
   useEffect(() => () => geometry.dispose(), [geometry]);
@@ -40,18 +138,69 @@ export function RayBundleLines({ bundle, ref }: { bundle: AssembledBundle; ref: 
   return <lineSegments ref={ref} geometry={geometry} material={materials} frustumCulled={false} />;
 }
 
-/** Lines joining the points every ray reaches at the same coordinate time. */
-export function WavefrontLines({ vertices, ref }: { vertices: Float32Array; ref: Ref<THREE.LineSegments> }) {
+const FRONT_VERTEX_SHADER = /* glsl */ `
+attribute float frontTime;
+uniform vec2 uOffsetPx;
+uniform vec2 uViewportPx;
+varying float vTime;
+void main() {
+  vTime = frontTime;
+  gl_Position = projectionMatrix * modelViewMatrix * vec4(position, 1.0);
+  gl_Position.xy += 2.0 * uOffsetPx / uViewportPx * gl_Position.w;
+}
+`;
+
+const FRONT_FRAGMENT_SHADER = /* glsl */ `
+uniform vec3 uColour;
+uniform float uTimeM;
+varying float vTime;
+${TIME_RULE_GLSL}
+void main() {
+  if (shownAtTime(vTime, uTimeM) < 0.5) discard;
+  gl_FragColor = vec4(uColour, 1.0);
+}
+`;
+
+/** The uniforms of the wavefronts' material that the progressive draw sets for each of its passes. */
+export interface WavefrontPassUniforms {
+  uOffsetPx: { value: THREE.Vector2 };
+  uViewportPx: { value: THREE.Vector2 };
+  uColour: { value: THREE.Color };
+}
+
+export interface WavefrontLinesProps {
+  vertices: Float32Array;
+  /** The time (units of M) of the front each vertex lies on. */
+  timesM: Float32Array;
+  uniforms: RayViewUniforms;
+  ref: Ref<THREE.LineSegments>;
+}
+
+/**
+ * Lines joining the points every ray reaches at the same coordinate time, opaque and drawn over the
+ * rays; a front appears once the time slider has reached its time. The progressive draw draws them in
+ * several passes shifted by a pixel in the ground's colour first, so each front is a distinct line
+ * with a dark edge even where dense rays add up to white.
+ */
+export function WavefrontLines({ vertices, timesM, uniforms, ref }: WavefrontLinesProps) {
   const geometry = useMemo(() => {
     const built = new THREE.BufferGeometry();
     built.setAttribute("position", new THREE.BufferAttribute(vertices, 3));
+    built.setAttribute("frontTime", new THREE.BufferAttribute(timesM, 1));
     return built;
-  }, [vertices]);
-  useEffect(() => () => geometry.dispose(), [geometry]);
-  return (
-    // Drawn last and over the rays, so the fronts stay visible inside a dense bundle.
-    <lineSegments ref={ref} geometry={geometry} frustumCulled={false}>
-      <lineBasicMaterial color={sceneInks.wavefront.screen.color} depthTest={false} userData={inkData(sceneInks.wavefront)} />
-    </lineSegments>
+  }, [vertices, timesM]);
+  const material = useMemo(
+    () =>
+      new THREE.ShaderMaterial({
+        vertexShader: FRONT_VERTEX_SHADER,
+        fragmentShader: FRONT_FRAGMENT_SHADER,
+        uniforms: { uTimeM: uniforms.uTimeM, uOffsetPx: { value: new THREE.Vector2() }, uViewportPx: { value: new THREE.Vector2(1, 1) }, uColour: { value: new THREE.Color() } },
+        depthTest: false,
+        depthWrite: false,
+      }),
+    [uniforms],
   );
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  useEffect(() => () => material.dispose(), [material]);
+  return <lineSegments ref={ref} geometry={geometry} material={material} frustumCulled={false} />;
 }
