@@ -27,6 +27,9 @@ export interface ViewFrame {
  */
 export const FRAME_MARGIN = 0.06;
 
+/** The near clip plane's distance as a share of the framed distance (depth precision only matters for the lens's spheres). */
+const NEAR_SHARE = 1e-3;
+
 /** The up direction of the view (three.js default, kept by the orbit controls). */
 export const VIEW_UP: Vec3 = [0, 1, 0];
 
@@ -77,7 +80,8 @@ export const cubeAboutOrigin = (radiusM: number): Extent => ({ min: [-radiusM, -
  * `aspect` (width / height), looking at the box's centre along −`direction` with `VIEW_UP` up, leaving
  * FRAME_MARGIN on the tighter side. Each corner q (relative to the centre) sits at depth D − q·dir in
  * front of a camera at distance D, and fits when its sideways offsets are within depth × tan(half
- * field) × (1 − margin): the smallest D meeting that for all eight corners. Clip planes bracket the box.
+ * field) × (1 − margin): the smallest D meeting that for all eight corners. The far clip plane lies
+ * beyond the box; the near one close to the camera (D/1000), so zooming in to the lens clips nothing.
  */
 export function frameExtent(extent: Extent, direction: Vec3, fovDeg: number, aspect: number): ViewFrame {
   const dir = normalize(direction);
@@ -100,7 +104,7 @@ export function frameExtent(extent: Extent, direction: Vec3, fovDeg: number, asp
   // A flat or empty box still needs the camera off it.
   distanceM = Math.max(distanceM, radiusM * 1e-3, 1e-3);
   const position: Vec3 = [0, 1, 2].map((axis) => target[axis] + distanceM * dir[axis]) as Vec3;
-  return { target, position, distanceM, nearM: Math.max(distanceM * 1e-3, (distanceM - radiusM) / 2), farM: 2 * (distanceM + radiusM) };
+  return { target, position, distanceM, nearM: distanceM * NEAR_SHARE, farM: 2 * (distanceM + radiusM) };
 }
 
 function dot(a: Vec3, b: Vec3): number {
