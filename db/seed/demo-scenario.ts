@@ -6,7 +6,7 @@ import type { ProposalRole, SiteRole } from "@/lib/workspace/roles";
 import type { TargetStatus } from "@/lib/workspace/status";
 import type { LensModel } from "@/lib/workspace/target-schema";
 import type { ScienceCaseId } from "@/lib/lensing/science-cases";
-import { parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
+import { parseEventPeakJdUtc, parsePeriapsisJdUtc } from "@/lib/workspace/event-peak";
 
 export interface DemoAccount {
   key: "pi" | "coi" | "viewer" | "admin";
@@ -51,6 +51,16 @@ export interface DemoTarget {
   eventPeakJdUtc?: number;
   sourceRadiusSolar?: number;
   limbDarkeningU?: number;
+  /** A star orbiting a compact lens (the relativistic-orbit case): a in au, e, P in days, T_p as JD UTC, i, Ω, ω in degrees. */
+  orbitSemiMajorAxisAu?: number;
+  orbitEccentricity?: number;
+  orbitPeriapsisJdUtc?: number;
+  orbitInclinationDeg?: number;
+  orbitNodeDeg?: number;
+  orbitPeriapsisArgumentDeg?: number;
+  /** The source's own magnitude in the proposal's band and f_s (the photon budget), where the scenario gives them with the target. */
+  sourceMagnitude?: number;
+  blendFraction?: number;
   priority: number;
   status: TargetStatus;
   tags: string[];
@@ -65,7 +75,8 @@ export const demoProposal = {
   site: demoSite,
   // Adaptive-optics imaging: 50 mas FWHM, 0.1 mas astrometry per epoch on a bright source, 5 mag of
   // contrast at arcsecond separations (invented, plausible figures).
-  instrument: { resolutionMas: 50, cadenceHours: 4, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100 },
+  // An integral-field spectrograph behind the same optics: 15 km/s radial velocities per epoch (invented).
+  instrument: { resolutionMas: 50, cadenceHours: 4, campaignLengthDays: 90, astrometricPrecisionMas: 0.1, reachableContrast: 100, spectroscopicPrecisionKmPerS: 15 },
 };
 
 /** A second, small proposal: the compact object against an interferometer's resolution. */
@@ -113,6 +124,38 @@ export const faintCore: DemoTarget = {
   status: "candidate",
   tags: ["compact", "shadow"],
   notes: ["A lighter, farther nucleus: its shadow (about 9 µas) is a third of the array's λ/B. Kept to show the panel why K-17 is the one to image."],
+};
+
+/**
+ * An invented star on an eight-year orbit around an invented compact mass of 5.2 million M☉ in the
+ * bulge (plausible, not measured): periapsis about 49 au, some 950 GM/c², passed in the demo cycle,
+ * so the relativistic-orbit case has a passage to plan for. The period follows from the mass.
+ */
+export const orbitingStar: DemoTarget = {
+  name: "Larkspur-3 b",
+  ra: "17 45 51.2",
+  dec: "-29 03 12",
+  lensModel: "point",
+  lensMassSolar: 5.2e6,
+  lensDistancePc: 8300,
+  sourceDistancePc: 9000,
+  sourceOffsetThetaE: 2,
+  scienceCase: "relativistic-orbit",
+  orbitSemiMajorAxisAu: 700,
+  orbitEccentricity: 0.93,
+  orbitPeriapsisJdUtc: parsePeriapsisJdUtc("2031-05-20 12:00"),
+  orbitInclinationDeg: 122,
+  orbitNodeDeg: 61,
+  orbitPeriapsisArgumentDeg: 248,
+  // A bright giant in Ks, alone in the core's crowded field at 60 mas (invented).
+  sourceMagnitude: 14.1,
+  blendFraction: 1,
+  priority: 1,
+  status: "candidate",
+  tags: ["compact", "orbit"],
+  notes: [
+    "Periapsis passage expected on 20 May 2031: the **redshift** peaks at a few hundred km/s within days of it, and the orbit's advance shifts the apoapsis by about a milliarcsecond per orbit.",
+  ],
 };
 
 const bulge = (t: Omit<DemoTarget, "lensModel" | "tags"> & { tags?: string[] }): DemoTarget => ({

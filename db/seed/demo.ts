@@ -5,6 +5,7 @@ import { activity, proposalMembers, proposals, users } from "@/db/schema";
 import { seedDemoSkyCycle } from "@/db/seed/demo-sky-cycle";
 import { seedDemoScienceCases } from "@/db/seed/demo-science-cases";
 import { seedDemoPhotonBudget } from "@/db/seed/demo-photon-budget";
+import { seedDemoRelativisticOrbit } from "@/db/seed/demo-relativistic-orbit";
 import { insertDemoTargets } from "@/db/seed/demo-targets";
 import { runSeedOnce, type SeedTransaction as Tx } from "@/db/seed/run-once";
 import {
@@ -45,6 +46,7 @@ export async function seedDemo(db: Database): Promise<boolean> {
   await seedDemoSkyCycle(db);
   await seedDemoScienceCases(db);
   await seedDemoPhotonBudget(db);
+  await seedDemoRelativisticOrbit(db);
   // Targets are inserted without derived columns (version 0); derive them once the cycle is set.
   await rederiveStaleTargets(db);
   return applied;
