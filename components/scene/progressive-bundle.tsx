@@ -29,8 +29,8 @@ const FRONT_COLOUR = new THREE.Color().setStyle(sceneInks.wavefront.screen.color
 
 export interface ProgressiveBundleProps {
   bundle: AssembledBundle;
-  /** Each vertex's colour, [r, g, b] 0–255. */
-  colours: Uint8Array;
+  /** Each vertex's colour, [r, g, b] 0–255; undefined: each fate's own. */
+  colours: Uint8Array | undefined;
   uniforms: RayViewUniforms;
   /** Raised by the view when a uniform changes (the time slider): the picture is drawn again. */
   revision: RefObject<number>;

@@ -150,7 +150,11 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
   // The axis toward the observer is framed with the rays.
   const extent = useMemo(() => extentOf(new Float32Array([axisTipM, 0, 0]), bundleExtent), [axisTipM, bundleExtent]);
 
-  const colours = useMemo(() => (bundle === undefined ? undefined : vertexColours(coloursOf(bundle, colouring, "screen"), bundle.rayFirstPoint)), [bundle, colouring]);
+  // By fate, the materials carry the colours; by a quantity, each vertex does.
+  const colours = useMemo(
+    () => (bundle === undefined || colouring === undefined ? undefined : vertexColours(coloursOf(bundle, colouring, "screen"), bundle.rayFirstPoint)),
+    [bundle, colouring],
+  );
 
   // The time slider's uniforms follow the bundle (its latest time sets the scale) and the slider.
   const applyTime = useCallback(() => {
@@ -218,7 +222,7 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
       <color attach="background" args={[sceneBackground.screen]} />
       <LensMass surfaceRadiusM={surfaceRadiusM} />
       <ViewScale rings={rings} axisTipM={axisTipM} />
-      {bundle !== undefined && colours !== undefined ? <ProgressiveBundle bundle={bundle} colours={colours} uniforms={uniforms} revision={revision} onBundleDrawn={onBundleDrawn} /> : null}
+      {bundle !== undefined ? <ProgressiveBundle bundle={bundle} colours={colours} uniforms={uniforms} revision={revision} onBundleDrawn={onBundleDrawn} /> : null}
       <OrbitControls ref={controls} makeDefault enableDamping={false} onStart={() => (userTurned.current = true)} />
       <ViewFraming extent={extent} planes={bundle?.planes ?? 2} controls={controls} userTurned={userTurned} reset={reset} uniforms={uniforms} />
     </Canvas>

@@ -18,13 +18,15 @@ export interface RayViewUniforms {
   uTargetDepthM: { value: number };
   uDepthSpanM: { value: number };
   uDensityOpacity: { value: number };
+  /** 1 while each vertex carries its own colour (coloured by a quantity), 0 for each fate's colour. */
+  uUseRayColour: { value: number };
 }
 
 /** A time later than any ray's (units of M): the shaders' "every path whole" (no +∞ in GLSL uniforms). */
 export const WHOLE_PATH_TIME_M = 1e30;
 
 export function createRayViewUniforms(): RayViewUniforms {
-  return { uTimeM: { value: WHOLE_PATH_TIME_M }, uHeadM: { value: 0 }, uTargetDepthM: { value: 0 }, uDepthSpanM: { value: 1 }, uDensityOpacity: { value: 1 } };
+  return { uTimeM: { value: WHOLE_PATH_TIME_M }, uHeadM: { value: 0 }, uTargetDepthM: { value: 0 }, uDepthSpanM: { value: 1 }, uDensityOpacity: { value: 1 }, uUseRayColour: { value: 0 } };
 }
 
 /**
@@ -40,6 +42,8 @@ const RAY_VERTEX_SHADER = /* glsl */ `
 attribute float lineDistance;
 attribute float vertexTime;
 attribute vec3 rayColour;
+uniform vec3 uFateColour;
+uniform float uUseRayColour;
 varying float vLineDistance;
 varying float vTime;
 varying vec3 vColour;
@@ -47,7 +51,7 @@ varying float vDepth;
 void main() {
   vLineDistance = lineDistance;
   vTime = vertexTime;
-  vColour = rayColour;
+  vColour = mix(uFateColour, rayColour, uUseRayColour);
   vec4 mvPosition = modelViewMatrix * vec4(position, 1.0);
   vDepth = -mvPosition.z;
   gl_Position = projectionMatrix * mvPosition;
@@ -78,9 +82,12 @@ void main() {
 `;
 
 /**
- * One material per fate: its opacity and dash (units of M along the ray) as uniforms, the colour from
- * each vertex (so the rays can be coloured by a quantity), blended additively so that where many rays
- * cross the picture is brighter (the bundle's structure), never an opaque slab.
+ * One material per fate: its opacity and dash (units of M along the ray) as uniforms, blended
+ * additively so that where many rays cross the picture is brighter (the bundle's structure), never an
+ * opaque slab. The colour is each vertex's `rayColour` when the rays are coloured by a quantity; by
+ * fate it is the material's own and the geometry has no colour attribute, so the default view uploads
+ * no colour per vertex. The shader writes colours as given (no colour-space conversion), so the hex
+ * values are taken as they are rather than converted to linear light.
  */
 function fateMaterials(shared: RayViewUniforms): Record<RayFate, THREE.ShaderMaterial> {
   const entries = RAY_FATES.map((fate) => {
@@ -88,7 +95,13 @@ function fateMaterials(shared: RayViewUniforms): Record<RayFate, THREE.ShaderMat
     const material = new THREE.ShaderMaterial({
       vertexShader: RAY_VERTEX_SHADER,
       fragmentShader: RAY_FRAGMENT_SHADER,
-      uniforms: { ...shared, uOpacity: { value: style.opacity }, uDashM: { value: style.dashM ?? 0 }, uGapM: { value: style.gapM ?? 0 } },
+      uniforms: {
+        ...shared,
+        uFateColour: { value: new THREE.Color().setStyle(style.color, THREE.LinearSRGBColorSpace) },
+        uOpacity: { value: style.opacity },
+        uDashM: { value: style.dashM ?? 0 },
+        uGapM: { value: style.gapM ?? 0 },
+      },
       transparent: true,
       depthWrite: false,
       blending: THREE.AdditiveBlending,
@@ -100,8 +113,8 @@ function fateMaterials(shared: RayViewUniforms): Record<RayFate, THREE.ShaderMat
 
 export interface RayBundleLinesProps {
   bundle: AssembledBundle;
-  /** Each vertex's colour, [r, g, b] 0–255 (lib/bench/ray-view-colour's vertexColours). */
-  colours: Uint8Array;
+  /** Each vertex's colour, [r, g, b] 0–255 (lib/bench/ray-view-colour's vertexColours); undefined: by fate. */
+  colours: Uint8Array | undefined;
   uniforms: RayViewUniforms;
   ref: Ref<THREE.LineSegments>;
 }
@@ -123,8 +136,10 @@ export function RayBundleLines({ bundle, colours, uniforms, ref }: RayBundleLine
   // Recolouring only replaces this attribute (one small upload), not the geometry; set before the
   // next frame is drawn, so no frame shows the rays without their colours.
   useLayoutEffect(() => {
-    geometry.setAttribute("rayColour", new THREE.BufferAttribute(colours, 3, true));
-  }, [geometry, colours]);
+    if (colours === undefined) geometry.deleteAttribute("rayColour");
+    else geometry.setAttribute("rayColour", new THREE.BufferAttribute(colours, 3, true));
+    uniforms.uUseRayColour.value = colours === undefined ? 0 : 1;
+  }, [geometry, colours, uniforms]);
 
   // One material per fate for the life of the view: a new bundle reuses them, so three.js keeps its
   // compiled line shaders (rebuilding them made the first frame of every bundle a 77–131 ms task).
