@@ -60,6 +60,8 @@ export default function OrbitCanvas({ semiLatusRectumM, eccentricity, orbits }: 
       frameloop="demand"
       dpr={[1, 2]}
       camera={{ position: [centre, -0.45 * distance, 0.9 * distance], fov: FIELD_OF_VIEW_DEG, near: distance / 1000, far: 20 * distance, up: [0, 0, 1] }}
+      // Kept between frames so the drawn view can be read back (a figure, a browser test's pixels).
+      gl={{ preserveDrawingBuffer: true }}
       data-testid="orbit-canvas"
     >
       <color attach="background" args={[sceneBackground.screen]} />
