@@ -26,7 +26,8 @@ import { angleWords, numberWords } from "@/lib/lensing/science-case-words";
 import { skySiteOf } from "@/lib/workspace/proposal-schema";
 import { bandSkyOf, photometryBandOf } from "@/lib/workspace/photometry-schema";
 import { statusLabels } from "@/lib/workspace/status";
-import { lensModelLabels } from "@/lib/workspace/target-schema";
+import { lensModelLabels, orbitFields } from "@/lib/workspace/target-schema";
+import type { TargetView } from "@/lib/workspace/target-view";
 import { listNotes } from "@/lib/server/notes";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposal } from "@/lib/server/proposals";
@@ -50,6 +51,18 @@ function microlensingRows(figures: MicrolensingFigures | null): [string, string,
     ["microlens-parallax", "Microlens parallax π_E", figures.microlensParallax === null ? "— (needs distances, not redshifts)" : numberWords(figures.microlensParallax)],
     ["astrometric-shift", "Largest astrometric shift θ_E/√8", figures.maxAstrometricShiftRad === null ? "—" : angleWords(figures.maxAstrometricShiftRad)],
     ["photon-ring", "Photon ring (n = 1) diameter", figures.photonRingDiameterRad === null ? "—" : angleWords(figures.photonRingDiameterRad)],
+  ];
+}
+
+/** The orbiting star's elements as the team gave them, when it gave any (a point-mass lens only). */
+function orbitRows(t: TargetView): [string, string][] {
+  if (orbitFields.every((field) => t[field] == null)) return [];
+  const angle = (value: number | null | undefined) => (value == null ? "—" : `${formatQuantity(value)}°`);
+  return [
+    ["Orbiting star: a, e", `${t.orbitSemiMajorAxisAu != null ? `${formatQuantity(t.orbitSemiMajorAxisAu)} au` : t.orbitSemiMajorAxisMas != null ? `${formatQuantity(t.orbitSemiMajorAxisMas)} mas at the lens distance` : "—"}, ${formatQuantity(t.orbitEccentricity)}`],
+    ["Orbital period", t.orbitPeriodDays == null ? "— (from the lens mass)" : formatWithUnit(t.orbitPeriodDays, "d")],
+    ["Time of periapsis T_p", t.orbitPeriapsisJdUtc == null ? "—" : formatEventPeak(t.orbitPeriapsisJdUtc)],
+    ["Inclination i, node Ω, argument ω", `${angle(t.orbitInclinationDeg)}, ${angle(t.orbitNodeDeg)}, ${angle(t.orbitPeriapsisArgumentDeg)}`],
   ];
 }
 
@@ -96,6 +109,7 @@ export default async function TargetPage({
         : `${formatQuantity(target.sourceMagnitude)} in ${photometryBandOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId)?.label ?? "the proposal's own band (not described yet)"}`,
     ],
     ["Blend fraction f_s", target.blendFraction == null ? "1 (no blended light)" : formatQuantity(target.blendFraction)],
+    ...orbitRows(target),
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
   ];
