@@ -133,20 +133,34 @@ export function RayBundleLines({ bundle, colours, uniforms, ref }: RayBundleLine
     return built;
   }, [bundle]);
 
-  // Recolouring only replaces this attribute (one small upload), not the geometry; set before the
+  // One colour attribute per geometry, refilled on recolouring (a new one each time would leave its
+  // GPU buffer behind); attached only while the rays are coloured by a quantity, and set before the
   // next frame is drawn, so no frame shows the rays without their colours.
+  const colourAttribute = useMemo(() => new THREE.BufferAttribute(new Uint8Array(bundle.vertices.length), 3, true), [bundle]);
   useLayoutEffect(() => {
-    if (colours === undefined) geometry.deleteAttribute("rayColour");
-    else geometry.setAttribute("rayColour", new THREE.BufferAttribute(colours, 3, true));
+    if (colours === undefined) {
+      geometry.deleteAttribute("rayColour");
+    } else {
+      colourAttribute.array.set(colours);
+      colourAttribute.needsUpdate = true;
+      geometry.setAttribute("rayColour", colourAttribute);
+    }
     uniforms.uUseRayColour.value = colours === undefined ? 0 : 1;
-  }, [geometry, colours, uniforms]);
+  }, [geometry, colourAttribute, colours, uniforms]);
 
   // One material per fate for the life of the view: a new bundle reuses them, so three.js keeps its
   // compiled line shaders (rebuilding them made the first frame of every bundle a 77–131 ms task).
   const materialsByFate = useMemo(() => fateMaterials(uniforms), [uniforms]);
   const materials = useMemo(() => bundle.fateGroups.map(({ fate }) => materialsByFate[fate]), [bundle, materialsByFate]);
 
-  useEffect(() => () => geometry.dispose(), [geometry]);
+  useEffect(
+    () => () => {
+      // Disposing a geometry frees the GPU buffers of the attributes it holds: the colours' too.
+      geometry.setAttribute("rayColour", colourAttribute);
+      geometry.dispose();
+    },
+    [geometry, colourAttribute],
+  );
   useEffect(() => () => Object.values(materialsByFate).forEach((material) => material.dispose()), [materialsByFate]);
 
   // The bundle spans the whole view; culling would only cost a bounding-sphere pass over every vertex.
