@@ -90,6 +90,7 @@ describe("every unit the table exports write reads back (lib/exports/tables/colu
     [/Solar$/, "mass", "Msun"],
     [/KmPerS$/, "velocity", "km/s"],
     [/Pc$/, "distance", "pc"],
+    [/Au$/, "length", "au"],
     [/MasPerYr$/, "proper motion", "mas/yr"],
     [/Microarcsec$/, "angle", "uas"],
     [/Mas$/, "angle", "mas"],
