@@ -41,7 +41,7 @@ const eventPeakField: EpochField = { name: "The event peak", minJd: EVENT_PEAK_M
  * 1900 serves, the next one is found from the period; the ephemeris span of the schedule is not
  * needed for a passage itself).
  */
-export const PERIAPSIS_MIN_JD = 2_415_020.5;
+const PERIAPSIS_MIN_JD = 2_415_020.5;
 const periapsisField: EpochField = { name: "The time of periapsis", minJd: PERIAPSIS_MIN_JD, maxJd: EVENT_PEAK_MAX_JD, spanWords: "between 1900 and 2099" };
 
 function calendarJdUtc(match: RegExpExecArray, field: EpochField): number {
