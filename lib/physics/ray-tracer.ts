@@ -69,10 +69,10 @@ export interface TraceOptions {
 export interface BundleTraceOptions extends TraceOptions {
   /**
    * Buffers to overwrite instead of allocating the samples' (e.g. an earlier bundle's xy and t, read
-   * and no longer needed): xy of at least 2 samples n values and t of at least samples n, for n rays.
-   * The bundle's xy and t are then views of their first values. A fresh buffer costs a page fault at
-   * the first write of every 4 KiB: ~12 us each on the virtual machine of the physics bench, 0.18 s
-   * for the 61 MB of 10,000 rays x 512 samples, more than tracing them.
+   * and no longer needed): two that do not overlap, xy of at least 2 samples n values and t of at least
+   * samples n, for n rays. The bundle's xy and t are then views of their first values. A fresh buffer
+   * costs a page fault at the first write of every 4 KiB: 12-23 us of CPU each on the virtual machine
+   * of the physics bench, 0.2-0.3 s for the 61 MB of 10,000 rays x 512 samples, more than tracing them.
    */
   into?: { xy: Float32Array; t: Float32Array };
 }
