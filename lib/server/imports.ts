@@ -132,7 +132,7 @@ async function loadTargetList(db: Queryable, proposalId: string, fileId: string)
 
 async function existingTargets(db: Queryable, proposalId: string): Promise<ExistingTarget[]> {
   const rows = await db.select().from(targets).where(eq(targets.proposalId, proposalId));
-  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, sourceMagnitude, sourceBand, blendFraction, einsteinTimeDays, parallaxNorth, parallaxEast, priority, tags }) => ({
+  return rows.map(({ id, name, raDeg, decDeg, lensModel, lensMassSolar, velocityDispersionKmPerS, lensDistancePc, sourceDistancePc, lensRedshift, sourceRedshift, sourceOffsetThetaE, properMotionMasPerYr, scienceCase, eventPeakJdUtc, sourceRadiusSolar, sourceRadiusThetaE, limbDarkeningU, sourceMagnitude, sourceBand, blendFraction, einsteinTimeDays, parallaxNorth, parallaxEast, orbitSemiMajorAxisAu, orbitSemiMajorAxisMas, orbitEccentricity, orbitPeriodDays, orbitPeriapsisJdUtc, orbitInclinationDeg, orbitNodeDeg, orbitPeriapsisArgumentDeg, priority, tags }) => ({
     id,
     name,
     raDeg,
@@ -157,6 +157,14 @@ async function existingTargets(db: Queryable, proposalId: string): Promise<Exist
     einsteinTimeDays,
     parallaxNorth,
     parallaxEast,
+    orbitSemiMajorAxisAu,
+    orbitSemiMajorAxisMas,
+    orbitEccentricity,
+    orbitPeriodDays,
+    orbitPeriapsisJdUtc,
+    orbitInclinationDeg,
+    orbitNodeDeg,
+    orbitPeriapsisArgumentDeg,
     priority,
     tags,
   }));

@@ -115,7 +115,7 @@ describe("a target with an orbiting star", () => {
   it("is exported with its elements and read back from our own VOTable into another proposal with every digit", async () => {
     const world = await orbitWorld();
     await createTarget({ proposalId: world.proposalId }, orbitTarget, world.actors.pi);
-    const votable = await (await download(world.actors.viewer, world.proposalId, "format=votable&columns=name,raDeg,decDeg,lensModel,lensMassSolar,lensDistancePc,sourceDistancePc,sourceOffsetThetaE,scienceCase,orbitSemiMajorAxisAu,orbitSemiMajorAxisMas,orbitEccentricity,orbitPeriodDays,orbitPeriapsisJdUtc,orbitInclinationDeg,orbitNodeDeg,orbitPeriapsisArgumentDeg,priority&digits=orbitPeriapsisJdUtc:17")).text();
+    const votable = await (await download(world.actors.viewer, world.proposalId, everyOrbitColumn)).text();
     expect(votable).toContain('name="orbitNodeDeg"');
     const other = await createWorld();
     const upload = await service.uploadAs(other.actors.coi, "targetList", { proposalId: other.proposalId }, { name: "orbit.vot", bytes: new TextEncoder().encode(votable), type: "application/x-votable+xml" });
@@ -126,7 +126,23 @@ describe("a target with an orbiting star", () => {
     expect(row.action).toBe("add");
     expect(row.values).toMatchObject({ orbitSemiMajorAxisAu: 700, orbitEccentricity: 0.93, orbitPeriapsisJdUtc: 2463007, orbitInclinationDeg: 122, orbitNodeDeg: 61, orbitPeriapsisArgumentDeg: 248, scienceCase: "relativistic-orbit" });
   });
+
+  it("read back into its own proposal, the same table leaves the target unchanged (the import compares the orbit's elements too)", async () => {
+    const world = await orbitWorld();
+    await createTarget({ proposalId: world.proposalId }, orbitTarget, world.actors.pi);
+    const votable = await (await download(world.actors.viewer, world.proposalId, everyOrbitColumn)).text();
+    const upload = await service.uploadAs(world.actors.coi, "targetList", { proposalId: world.proposalId }, { name: "orbit.vot", bytes: new TextEncoder().encode(votable), type: "application/x-votable+xml" });
+    if (upload.stage !== "stored" || !upload.serverData.ok) throw new Error(`upload refused: ${JSON.stringify(upload)}`);
+    const preview = await previewImport({ proposalId: world.proposalId }, { fileId: upload.serverData.fileId }, world.actors.coi);
+    const row = preview.rows.find((r) => r.cells.name === "Larkspur-3 b")!;
+    expect(row.errors).toEqual([]);
+    expect([row.action, row.detail]).toEqual(["skip", expect.stringContaining("unchanged")]);
+  });
 });
+
+/** Our VOTable of the hypothesis and every orbit column, the periapsis time with every digit. */
+const everyOrbitColumn =
+  "format=votable&columns=name,raDeg,decDeg,lensModel,lensMassSolar,lensDistancePc,sourceDistancePc,sourceOffsetThetaE,scienceCase,orbitSemiMajorAxisAu,orbitSemiMajorAxisMas,orbitEccentricity,orbitPeriodDays,orbitPeriapsisJdUtc,orbitInclinationDeg,orbitNodeDeg,orbitPeriapsisArgumentDeg,priority&digits=orbitPeriapsisJdUtc:17";
 
 async function download(actor: Actor, proposalId: string, query: string) {
   const request = new Request(`http://arcwright.test/api/proposals/${proposalId}/exports/targets?${query}`);
