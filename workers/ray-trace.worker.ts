@@ -23,11 +23,20 @@ export interface ChunkRequest {
   wavefrontTimesM: Float64Array;
 }
 
+/**
+ * The traced samples of the last chunk, overwritten by the next: they are read only inside
+ * `traceChunk` (the drawn vertices and wavefronts are copies), and fresh buffers of this size cost
+ * more in page faults than the tracing itself (npm run bench -- physics).
+ */
+let sampleScratch: { xy: Float32Array; t: Float32Array } | undefined;
+
 const rayTraceWorker = {
   traceChunk(request: ChunkRequest): TracedChunk {
     const { impactParametersM, azimuthsRad, samples, startRadiusM, wavefrontTimesM } = request;
     const rayCount = impactParametersM.length;
-    const traced = traceRayBundle(impactParametersM, 1, { samples, startRadius: startRadiusM, rtol: DRAWING_RTOL });
+    const need = rayCount * samples;
+    if (sampleScratch === undefined || sampleScratch.t.length < need) sampleScratch = { xy: new Float32Array(2 * need), t: new Float32Array(need) };
+    const traced = traceRayBundle(impactParametersM, 1, { samples, startRadius: startRadiusM, rtol: DRAWING_RTOL, into: sampleScratch });
     const wavefronts = wavefrontPoints(traced.xy, traced.t, rayCount, samples, azimuthsRad, wavefrontTimesM);
     const chunk: TracedChunk = {
       firstRay: request.firstRay,
