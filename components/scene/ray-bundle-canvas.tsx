@@ -142,6 +142,7 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
   const controls = useRef<Controls>(null);
   const userTurned = useRef(false);
   const reset = useRef<() => void>(() => undefined);
+  const labelLayer = useRef<HTMLDivElement>(null);
 
   const radiusM = bundle?.startRadiusM ?? startRadiusM;
   const rings = useMemo(() => scaleRings(radiusM, surfaceRadiusM, massSolar), [radiusM, surfaceRadiusM, massSolar]);
@@ -209,6 +210,7 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
   );
 
   return (
+    <div className="relative h-full w-full" data-testid="ray-bundle-canvas">
     <Canvas
       frameloop="demand"
       dpr={1}
@@ -217,14 +219,16 @@ export default function RayBundleCanvas({ bundle, startRadiusM, surfaceRadiusM, 
       // No MSAA: software rendering multiplied the draw time by about 3.5.
       gl={{ preserveDrawingBuffer: true, antialias: false }}
       onCreated={onCreated}
-      data-testid="ray-bundle-canvas"
     >
       <color attach="background" args={[sceneBackground.screen]} />
       <LensMass surfaceRadiusM={surfaceRadiusM} />
-      <ViewScale rings={rings} axisTipM={axisTipM} />
+      <ViewScale rings={rings} axisTipM={axisTipM} labelLayer={labelLayer} />
       {bundle !== undefined ? <ProgressiveBundle bundle={bundle} colours={colours} uniforms={uniforms} revision={revision} onBundleDrawn={onBundleDrawn} /> : null}
       <OrbitControls ref={controls} makeDefault enableDamping={false} onStart={() => (userTurned.current = true)} />
       <ViewFraming extent={extent} planes={bundle?.planes ?? 2} controls={controls} userTurned={userTurned} reset={reset} uniforms={uniforms} />
     </Canvas>
+      {/* The scale's labels are drawn into this layer: one that stays put (see ViewScale). */}
+      <div ref={labelLayer} className="pointer-events-none absolute inset-0 overflow-hidden" />
+    </div>
   );
 }

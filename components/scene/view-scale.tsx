@@ -1,7 +1,7 @@
 "use client";
 
 import { Html } from "@react-three/drei";
-import { useEffect, useMemo } from "react";
+import { useEffect, useMemo, type RefObject } from "react";
 import * as THREE from "three";
 import { OBSERVER_AXIS_LABEL, ringLabelPlacement, ringLabelText, type ScaleRing } from "@/lib/bench/ray-view-scale";
 import { sceneInks } from "./scene-colours";
@@ -16,9 +16,9 @@ const LABEL_SHIFT: Record<ReturnType<typeof ringLabelPlacement>["side"], string>
   above: "translate(-50%, calc(-100% - 3px))",
 };
 
-function SceneLabel({ position, shift, text }: { position: [number, number, number]; shift: string; text: string }) {
+function SceneLabel({ position, shift, text, layer }: { position: [number, number, number]; shift: string; text: string; layer: RefObject<HTMLDivElement | null> }) {
   return (
-    <Html position={position} zIndexRange={[20, 0]} style={{ pointerEvents: "none" }}>
+    <Html position={position} zIndexRange={[20, 0]} style={{ pointerEvents: "none" }} portal={layer as RefObject<HTMLElement>}>
       <span
         data-testid="ray-view-scale-label"
         className="block whitespace-nowrap rounded bg-void/75 px-1 text-[11px] leading-4 text-dusk"
@@ -30,7 +30,7 @@ function SceneLabel({ position, shift, text }: { position: [number, number, numb
   );
 }
 
-function Ring({ ring }: { ring: ScaleRing }) {
+function Ring({ ring, layer }: { ring: ScaleRing; layer: RefObject<HTMLDivElement | null> }) {
   const geometry = useMemo(() => {
     const points = new Float32Array(3 * RING_POINTS);
     for (let k = 0; k < RING_POINTS; k++) {
@@ -48,7 +48,7 @@ function Ring({ ring }: { ring: ScaleRing }) {
       <lineLoop geometry={geometry}>
         <lineBasicMaterial color={ink.color} transparent opacity={ink.opacity} depthWrite={false} />
       </lineLoop>
-      <SceneLabel position={[ring.radiusM * Math.cos(angleRad), ring.radiusM * Math.sin(angleRad), 0]} shift={LABEL_SHIFT[side]} text={ringLabelText(ring)} />
+      <SceneLabel position={[ring.radiusM * Math.cos(angleRad), ring.radiusM * Math.sin(angleRad), 0]} shift={LABEL_SHIFT[side]} text={ringLabelText(ring)} layer={layer} />
     </>
   );
 }
@@ -57,15 +57,18 @@ function Ring({ ring }: { ring: ScaleRing }) {
  * The view's scale: rings in the rays' plane (z = 0, the fan's plane, which holds the axis toward the
  * observer) at the horizon, the photon sphere or the lens's surface and at round radii, labelled in M
  * and, for a known mass, in km or au; and the axis from the lens toward the distant observer (+x).
+ * The labels are drawn into `labelLayer`, a page element beside the canvas that stays put: left to
+ * itself, drei's Html re-parents every label when the canvas connects its events, and in Chromium the
+ * first label mounted came out empty after that move (its container present, its text never drawn).
  */
-export function ViewScale({ rings, axisTipM }: { rings: ScaleRing[]; axisTipM: number }) {
+export function ViewScale({ rings, axisTipM, labelLayer }: { rings: ScaleRing[]; axisTipM: number; labelLayer: RefObject<HTMLDivElement | null> }) {
   const axis = useMemo(() => new THREE.BufferGeometry().setAttribute("position", new THREE.BufferAttribute(new Float32Array([0, 0, 0, axisTipM, 0, 0]), 3)), [axisTipM]);
   useEffect(() => () => axis.dispose(), [axis]);
   const headM = 0.04 * axisTipM;
   return (
     <group>
       {rings.map((ring) => (
-        <Ring key={`${ring.kind}-${ring.radiusM}`} ring={ring} />
+        <Ring key={`${ring.kind}-${ring.radiusM}`} ring={ring} layer={labelLayer} />
       ))}
       <lineSegments geometry={axis}>
         <lineBasicMaterial color={sceneInks.wavefront.screen.color} transparent opacity={0.8} depthWrite={false} />
@@ -74,7 +77,7 @@ export function ViewScale({ rings, axisTipM }: { rings: ScaleRing[]; axisTipM: n
         <coneGeometry args={[headM * 0.35, headM, 16]} />
         <meshBasicMaterial color={sceneInks.wavefront.screen.color} />
       </mesh>
-      <SceneLabel position={[axisTipM, 0, 0]} shift="translate(-100%, calc(-100% - 6px))" text={OBSERVER_AXIS_LABEL} />
+      <SceneLabel position={[axisTipM, 0, 0]} shift="translate(-100%, calc(-100% - 6px))" text={OBSERVER_AXIS_LABEL} layer={labelLayer} />
     </group>
   );
 }

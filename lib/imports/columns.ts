@@ -1,6 +1,6 @@
 import { exportColumns } from "@/lib/exports/tables/columns";
 import type { ImportColumn } from "@/lib/imports/import-table";
-import { targetQuantities } from "@/lib/workspace/target-schema";
+import { orbitFields, targetQuantities } from "@/lib/workspace/target-schema";
 
 /** The target fields an imported column can fill, in the order the mapping step shows them. */
 export const importFields = [
@@ -27,14 +27,7 @@ export const importFields = [
   "einsteinTimeDays",
   "parallaxNorth",
   "parallaxEast",
-  "orbitSemiMajorAxisAu",
-  "orbitSemiMajorAxisMas",
-  "orbitEccentricity",
-  "orbitPeriodDays",
-  "orbitPeriapsisJdUtc",
-  "orbitInclinationDeg",
-  "orbitNodeDeg",
-  "orbitPeriapsisArgumentDeg",
+  ...orbitFields,
   "priority",
   "tags",
 ] as const;

@@ -13,6 +13,8 @@ import { HOSTILE_HOST, XSS_MARKER, fitsTargetName, sqlLookingInputs, xssCorpus }
  */
 
 let browser: Browser;
+/** Target pages loaded at once by the payload-name test (the server renders them side by side). */
+const TARGET_PAGE_TABS = 3;
 const run = Date.now().toString(36);
 
 /** Everything hostile the page did: marker calls, dialogs, requests and navigations off the site, dangerous markup. */
@@ -83,9 +85,8 @@ function installMarkupAudit() {
   }).observe(document, { childList: true, subtree: true, attributes: true });
 }
 
-/** A fresh page (own cookies) with CSP bypassed and every trace of executed content recorded. */
-async function watchedPage(): Promise<{ context: BrowserContext; page: Page; watch: Watch }> {
-  const { context, page } = await newPage(browser, { bypassCSP: true });
+/** Records on `page` every trace of executed content: marker calls, dialogs and navigations off the site. */
+async function watchPage(page: Page): Promise<Watch> {
   const watch: Watch = { calls: [], dialogs: [], strayRequests: [], strayNavigations: [] };
   // Exposed in every frame, so a payload that ran inside a frame reports too.
   await page.exposeFunction(XSS_MARKER, (id: number) => watch.calls.push(id));
@@ -94,14 +95,20 @@ async function watchedPage(): Promise<{ context: BrowserContext; page: Page; wat
     watch.dialogs.push(`${dialog.type()}: ${dialog.message()}`);
     void dialog.dismiss();
   });
-  context.on("request", (request) => {
+  page.on("request", (request) => {
     if (new URL(request.url()).hostname.endsWith(HOSTILE_HOST)) watch.strayRequests.push(`${request.resourceType()} ${request.url()}`);
   });
   page.on("framenavigated", (frame) => {
     if (frame === page.mainFrame() && !frame.url().startsWith(baseUrl)) watch.strayNavigations.push(frame.url());
   });
-  context.on("page", (popup) => watch.strayNavigations.push(`popup ${popup.url()}`));
-  return { context, page, watch };
+  page.on("popup", (popup) => watch.strayNavigations.push(`popup ${popup.url()}`));
+  return watch;
+}
+
+/** A fresh page (own cookies) with CSP bypassed and every trace of executed content recorded. */
+async function watchedPage(): Promise<{ context: BrowserContext; page: Page; watch: Watch }> {
+  const { context, page } = await newPage(browser, { bypassCSP: true });
+  return { context, page, watch: await watchPage(page) };
 }
 
 /** Fails with the evidence if anything hostile happened on the page so far. */
@@ -296,13 +303,22 @@ describe("hostile notes, names and titles never run and show as typed", () => {
   });
 
   it("every payload-named target page shows its name as the heading", async () => {
-    // Each page is audited for hostile markup before the next one loads.
-    const { page, watch } = pi;
-    for (const name of targetNames) {
-      await page.goto(`/proposals/${proposalId}/targets/${targetIds.get(name)}`);
-      expect(await readableText(page.getByRole("heading", { level: 1 })), name).toBe(name);
-      await expectNothingRan(page, watch, `target page of ${name}`);
-    }
+    // The pages load in TARGET_PAGE_TABS tabs of the PI's session at once, each tab watched on its own;
+    // each page is audited for hostile markup before its tab loads the next one.
+    const tabs = [pi, ...(await Promise.all(Array.from({ length: TARGET_PAGE_TABS - 1 }, async () => {
+      const page = await pi.context.newPage();
+      return { page, watch: await watchPage(page) };
+    })))];
+    await Promise.all(
+      tabs.map(async ({ page, watch }, tab) => {
+        for (const name of targetNames.filter((_, index) => index % TARGET_PAGE_TABS === tab)) {
+          await page.goto(`/proposals/${proposalId}/targets/${targetIds.get(name)}`);
+          expect(await readableText(page.getByRole("heading", { level: 1 })), name).toBe(name);
+          await expectNothingRan(page, watch, `target page of ${name}`);
+        }
+      }),
+    );
+    for (const { page } of tabs.slice(1)) await page.close();
   }, 240_000);
 
   it("the season view names every target as typed", async () => {

@@ -148,8 +148,8 @@ describe("ray view", () => {
     // 0.5 M☉: GM/c² = 738.3 m (IAU 2015 B3 nominal GM☉), so 50 M = 36.92 km.
     await page.goto(benchLink({ rays: "400", bmax: "100" }));
     await waitForNextDrawnBundle(page, 0);
-    const labels = await page.getByTestId("ray-bundle-canvas").getByTestId("ray-view-scale-label").allTextContents();
-    expect(labels).toEqual(
+    const labels = page.getByTestId("ray-bundle-canvas").getByTestId("ray-view-scale-label");
+    await expect.poll(() => labels.allTextContents()).toEqual(
       expect.arrayContaining(["horizon, r = 2 M = 1.477 km", "photon sphere, r = 3 M = 2.215 km", "50 M = 36.92 km", "100 M = 73.83 km", "to observer (+x)"]),
     );
 
