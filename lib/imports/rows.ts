@@ -144,7 +144,7 @@ function readCell(kind: FieldKind, text: string, unit: string | undefined): unkn
       // Read by the target schema with the workspace's one reader of peak times (lib/workspace/event-peak.ts):
       // a calendar date as written, a bare number as the column's day count.
       const scale = unit === undefined ? "JD" : epochScaleOf(unit);
-      if (scale === undefined) throw new CellError(`is in ${unit}; the event peak is a Julian date (unit JD, HJD, MJD or d) or a UTC date such as 2027-06-15 04:30`);
+      if (scale === undefined) throw new CellError(`is in ${unit}; a time is read as a Julian date (unit JD, HJD, MJD or d) or as a UTC date such as 2027-06-15 04:30`);
       return scale === "MJD" && PLAIN_NUMBER.test(text) ? `MJD ${text}` : text;
     }
     case "magnitude": {

@@ -111,7 +111,7 @@ describe("the event's inputs in an imported list (science case, t0, source radiu
     expect(rows[0].errors).toEqual(["row 1: Event peak t0 2027-02-30 — The event peak's date 2027-02-30 does not exist."]);
     expect(rows[1].errors[0]).toMatch(/^row 2: Event peak t0 next June — The event peak "next June" is not a date; type a UTC date such as 2027-06-15 04:30/);
     const years = readCsv(`${LENS},t0 [yr]\n${LENS_CELLS},2027.45\n`).rows[0];
-    expect(years.errors).toEqual(['row 1: Event peak t0 2027.45 (column "t0") is in yr; the event peak is a Julian date (unit JD, HJD, MJD or d) or a UTC date such as 2027-06-15 04:30.']);
+    expect(years.errors).toEqual(['row 1: Event peak t0 2027.45 (column "t0") is in yr; a time is read as a Julian date (unit JD, HJD, MJD or d) or as a UTC date such as 2027-06-15 04:30.']);
   });
 
   it("reads the science case by id or label in any case, and refuses other text naming the row and column and listing the six cases", () => {
