@@ -12,6 +12,10 @@
  * - resolved images and time delays: the fainter primary image alone, |μ| times the source's flux
  *   (blended light is not added: the images are measured apart from the lens's light), at every
  *   planned visit;
+ * - a relativistic orbit: the orbiting star itself at the source's magnitude (its light is not
+ *   magnified, and other light is not added: the star is measured apart), at the visits within the
+ *   next periapsis passage's window (periapsisPassage), or at every planned visit while the orbit or
+ *   its periapsis time is not set;
  * - horizon-scale imaging has no budget here (an interferometer's sensitivity is not a CCD's).
  * Each visit's exposure is what reaches the S/N goal, at most the time the visit leaves after its
  * overhead; the time request sums exposure and overhead over the visits the case needs.
@@ -31,8 +35,9 @@ import {
 } from "@/lib/photometry/visit-budget";
 import type { ObservingSchedule, VisitSky } from "@/lib/schedule/types";
 import { eventMagnificationAtOffset } from "./microlensing";
+import { periapsisPassage, relativisticOrbitOf, type PeriapsisPassage } from "./relativistic-orbit";
 import { firstVisitFrom } from "./science-case-schedule";
-import type { EventTiming, ScienceCaseId } from "./science-cases";
+import type { EventTiming, OrbitInputs, ScienceCaseId } from "./science-cases";
 import type { LensSolution } from "./solution";
 
 /** What the proposal's photometry settings give the budget. */
@@ -54,12 +59,13 @@ export interface SourceBrightness {
 export type PhotonBudgetInputs = { setup: PhotonBudgetSetup; source: SourceBrightness } | { missing: string } | { notApplicable: true };
 
 /** Which light the budget measures (see the module comment). */
-export type MeasuredLight = "blended-source" | "fainter-image";
+export type MeasuredLight = "blended-source" | "fainter-image" | "orbiting-star";
 
 /** The measured light in words, as the depth answer and the target page name it. */
 export const measuredLightWords: Record<MeasuredLight, string> = {
   "blended-source": "the magnified source with its blend",
   "fainter-image": "the fainter image",
+  "orbiting-star": "the orbiting star",
 };
 
 export interface TargetPhotonBudget {
@@ -140,6 +146,13 @@ function blendedMagnitudes(visitsJdUtc: Float64Array, source: SourceBrightness, 
   return magnitudes;
 }
 
+/** The periapsis passage after the cycle's start; null while the orbit or its periapsis time is not set. */
+function passageOf(orbit: OrbitInputs, cycleStartJdUtc: number): PeriapsisPassage | null {
+  const outcome = relativisticOrbitOf(orbit);
+  if ("missing" in outcome || orbit.periapsisJdUtc === null || !Number.isFinite(orbit.periapsisJdUtc)) return null;
+  return periapsisPassage(outcome.orbit, orbit.periapsisJdUtc, cycleStartJdUtc);
+}
+
 /**
  * The photon budget of a target in `caseId` (see the module comment), or why there is none. Throws
  * only for inputs outside the photometry layer's domains, which the settings' schema keeps out.
@@ -150,6 +163,8 @@ export function targetPhotonBudget(input: {
   event: EventTiming;
   schedule: ObservingSchedule | null;
   inputs: PhotonBudgetInputs;
+  /** The orbiting star of the relativistic-orbit case (every value null for other targets). */
+  orbit: OrbitInputs;
 }): PhotonBudgetOutcome {
   const { caseId, solution, event, schedule } = input;
   if (caseId === "horizon-scale" || "notApplicable" in input.inputs) return { notApplicable: true };
@@ -161,17 +176,21 @@ export function targetPhotonBudget(input: {
   }
 
   const isEvent = caseId === "photometric-microlensing" || caseId === "astrometric-microlensing";
+  const isOrbit = caseId === "relativistic-orbit";
   const einsteinTimeDays = solution.einsteinTimeS === null ? null : solution.einsteinTimeS / DAY_S;
+  const passage = isOrbit ? passageOf(input.orbit, schedule.cycle.startJdUtc) : null;
   const { from, to } =
     isEvent && event.peakJdUtc !== null && einsteinTimeDays !== null
       ? visitRange(schedule.visitsJdUtc, event.peakJdUtc - einsteinTimeDays, event.peakJdUtc + einsteinTimeDays)
-      : { from: 0, to: schedule.visitsJdUtc.length };
+      : passage !== null
+        ? visitRange(schedule.visitsJdUtc, passage.jdUtc - passage.windowHalfDays, passage.jdUtc + passage.windowHalfDays)
+        : { from: 0, to: schedule.visitsJdUtc.length };
   const visitsJdUtc = slice(schedule.visitsJdUtc, from, to);
-  const imageMagnitudes = isEvent ? [] : solution.images.map((image) => source.sourceMagnitude - 2.5 * Math.log10(Math.abs(image.magnification)));
+  const imageMagnitudes = isEvent || isOrbit ? [] : solution.images.map((image) => source.sourceMagnitude - 2.5 * Math.log10(Math.abs(image.magnification)));
   // The fainter primary image (the second, images being brightest first), or the only one.
   const magnitudes = isEvent
     ? blendedMagnitudes(visitsJdUtc, source, event, einsteinTimeDays)
-    : new Float64Array(visitsJdUtc.length).fill(imageMagnitudes[Math.min(1, imageMagnitudes.length - 1)]);
+    : new Float64Array(visitsJdUtc.length).fill(isOrbit ? source.sourceMagnitude : imageMagnitudes[Math.min(1, imageMagnitudes.length - 1)]);
   const all = schedule.visitSky;
   const visitSky: VisitSky = {
     airmass: slice(all.airmass, from, to),
@@ -224,7 +243,7 @@ export function targetPhotonBudget(input: {
 
   return {
     budget: {
-      measured: isEvent ? "blended-source" : "fainter-image",
+      measured: isEvent ? "blended-source" : isOrbit ? "orbiting-star" : "fainter-image",
       bandLabel: setup.sky.band.label,
       signalToNoiseGoal: setup.signalToNoiseGoal,
       visitExposureS: setup.visitExposureS,

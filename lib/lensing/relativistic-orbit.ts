@@ -24,6 +24,7 @@
 import { AU_M, DAY_S, GM_SUN_M3_PER_S2, SOLAR_MASS_LENGTH_M, SPEED_OF_LIGHT_KM_PER_S, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics/constants";
 import { traceBoundOrbit } from "@/lib/physics/orbit-tracer";
 import { exactPeriastronAdvance, periastronAdvance } from "@/lib/physics/relativistic-effects";
+import { PERIAPSIS_WINDOW_FRACTION } from "./feasibility-rules";
 import type { OrbitInputs } from "./science-cases";
 import { numberWords } from "./science-case-words";
 
@@ -362,4 +363,18 @@ export function nextPeriapsisJdUtc(orbit: RelativisticOrbit, periapsisJdUtc: num
   const passage = periapsisJdUtc + Math.ceil((afterJdUtc - periapsisJdUtc) / period) * period;
   // (after − T0)/P rounded down across an integer puts the passage one period early
   return passage < afterJdUtc ? passage + period : passage;
+}
+
+/** A periapsis passage a campaign aims at: its date (Julian date UTC) and the half-width of its window, days. */
+export interface PeriapsisPassage {
+  jdUtc: number;
+  windowHalfDays: number;
+}
+
+/**
+ * The passage a campaign starting at `afterJdUtc` aims at: the next periapsis (nextPeriapsisJdUtc) and
+ * its window, ±PERIAPSIS_WINDOW_FRACTION of the period (feasibility-rules.ts).
+ */
+export function periapsisPassage(orbit: RelativisticOrbit, periapsisJdUtc: number, afterJdUtc: number): PeriapsisPassage {
+  return { jdUtc: nextPeriapsisJdUtc(orbit, periapsisJdUtc, afterJdUtc), windowHalfDays: PERIAPSIS_WINDOW_FRACTION * orbit.periodDays };
 }

@@ -13,13 +13,12 @@ import { MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics/constants"
 import {
   gradeAtLeast,
   PERIAPSIS_EPOCHS_RULE,
-  PERIAPSIS_WINDOW_FRACTION,
   periapsisSeasonVerdict,
   PRECESSION_SIGNAL_RULE,
   REDSHIFT_SIGNAL_RULE,
   type KnownVerdict,
 } from "./feasibility-rules";
-import { nextPeriapsisJdUtc, relativisticOrbitOf, type RelativisticOrbit, type RelativisticOrbitOutcome } from "./relativistic-orbit";
+import { periapsisPassage, relativisticOrbitOf, type RelativisticOrbit, type RelativisticOrbitOutcome } from "./relativistic-orbit";
 import { missingInput, readSchedule, type Question } from "./science-case-answer";
 import { daysInCycleAround, daysToUsableTime, isInCycle, isInSeason, visitsBetween } from "./science-case-schedule";
 import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
@@ -49,7 +48,7 @@ function nextPassage(question: Question, inputs: ScienceCaseInputs, outcome: Rel
   if ("answer" in read) return read;
   const { orbit } = outcome;
   return {
-    passage: { orbit, jdUtc: nextPeriapsisJdUtc(orbit, t0, read.schedule.cycle.startJdUtc), windowHalfDays: PERIAPSIS_WINDOW_FRACTION * orbit.periodDays },
+    passage: { orbit, ...periapsisPassage(orbit, t0, read.schedule.cycle.startJdUtc) },
     schedule: read.schedule,
   };
 }

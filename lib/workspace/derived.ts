@@ -24,7 +24,7 @@ import { lensHypothesisErrors, lensHypothesisSchema, type LensHypothesis } from 
  * of a lensing formula, a feasibility rule or the schedule: startup re-derives every older row, so no
  * stored verdict is ever stale.
  */
-export const DERIVATION_VERSION = 4;
+export const DERIVATION_VERSION = 5;
 
 /** A target's computed columns, in the units their names say; null where the model gives no value. */
 export interface DerivedColumns {
@@ -226,7 +226,7 @@ export function targetCaseReport(h: LensHypothesis, settings: FeasibilitySetting
   const inferred = h.scienceCase == null ? defaultScienceCase(solution, instrument, orbit) : null;
   const scienceCase: TargetCase = inferred === null ? { caseId: h.scienceCase!, isChosen: true, reason: null } : { caseId: inferred.caseId, isChosen: false, reason: inferred.reason };
   const event = eventTimingOf(h, solution, geometry);
-  const photonBudget = targetPhotonBudget({ caseId: scienceCase.caseId, solution, event, schedule, inputs: photonBudgetInputsOf(h, settings) });
+  const photonBudget = targetPhotonBudget({ caseId: scienceCase.caseId, solution, event, schedule, inputs: photonBudgetInputsOf(h, settings), orbit });
   const answers = scienceCaseQuestions(scienceCase.caseId, {
     solution,
     event,

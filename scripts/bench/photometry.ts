@@ -7,7 +7,7 @@ import { standardBand, typicalDarkSiteConditions } from "@/lib/photometry/bands"
 import { KOLMOGOROV_MOFFAT_BETA } from "@/lib/photometry/psf";
 import { visitPhotometry, visitPhotometrySeries, type BandSky, type PhotometryInstrument } from "@/lib/photometry/visit-budget";
 import { targetPhotonBudget } from "@/lib/lensing/photon-budget";
-import { eventTimingOf, lensSolutionOf, photonBudgetInputsOf, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { eventTimingOf, lensSolutionOf, orbitInputsOf, photonBudgetInputsOf, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { photometrySettingsSchema } from "@/lib/workspace/photometry-schema";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
@@ -146,7 +146,7 @@ const prepared = sky1000.map((_, t) => {
   const h = hypotheses[t % hypotheses.length];
   const solved = lensSolutionOf(h)!;
   const caseId = h.lensModel === "point" ? ("photometric-microlensing" as const) : ("resolved-images" as const);
-  return { caseId, solution: solved.solution, event: eventTimingOf(h, solved.solution, solved.geometry), schedule: scheduleList[t], inputs: photonBudgetInputsOf(h, proposal) };
+  return { caseId, solution: solved.solution, event: eventTimingOf(h, solved.solution, solved.geometry), schedule: scheduleList[t], inputs: photonBudgetInputsOf(h, proposal), orbit: orbitInputsOf(h, solved.geometry) };
 });
 let gradedVisits = 0;
 let requestedHours = 0;

@@ -3,7 +3,7 @@ import { targetPhotonBudget } from "@/lib/lensing/photon-budget";
 import { depthAnswer } from "@/lib/lensing/science-case-depth";
 import { DAY_S } from "@/lib/physics/constants";
 import type { ObservingSchedule } from "@/lib/schedule";
-import { eventTimingOf, lensSolutionOf, photonBudgetInputsOf, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { eventTimingOf, lensSolutionOf, orbitInputsOf, photonBudgetInputsOf, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { defaultPhotometrySettings, photometrySettingsSchema } from "@/lib/workspace/photometry-schema";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import { sourcePhotometryErrors, type LensHypothesis } from "@/lib/workspace/target-schema";
@@ -46,12 +46,13 @@ function schedule(visitsJdUtc: number[]): ObservingSchedule {
       moonSeparationDeg,
       moonPhaseAngleDeg: new Float32Array(n).fill(20),
     },
+    cycle: { startJdUtc: visitsJdUtc[0], endJdUtc: visitsJdUtc[n - 1] },
   } as unknown as ObservingSchedule;
 }
 
-function budgetOf(h: LensHypothesis, visits: number[], caseId: "photometric-microlensing" | "resolved-images" | "horizon-scale" = "photometric-microlensing", s = settings) {
+function budgetOf(h: LensHypothesis, visits: number[], caseId: "photometric-microlensing" | "resolved-images" | "horizon-scale" | "relativistic-orbit" = "photometric-microlensing", s = settings) {
   const solved = lensSolutionOf(h)!;
-  return targetPhotonBudget({ caseId, solution: solved.solution, event: eventTimingOf(h, solved.solution, solved.geometry), schedule: schedule(visits), inputs: photonBudgetInputsOf(h, s) });
+  return targetPhotonBudget({ caseId, solution: solved.solution, event: eventTimingOf(h, solved.solution, solved.geometry), schedule: schedule(visits), inputs: photonBudgetInputsOf(h, s), orbit: orbitInputsOf(h, solved.geometry) });
 }
 
 const tEDays = lensSolutionOf(event)!.solution.einsteinTimeS! / DAY_S;
@@ -114,6 +115,35 @@ describe("a target's photon budget", () => {
     expect(outcome.budget.magnitudes[0]).toBeCloseTo(19 - 2.5 * Math.log10(Math.abs(faint.magnification)), 12);
     const images = lensSolutionOf(lens)!.solution.images;
     expect(outcome.budget.imageMagnitudes).toEqual(images.map((image) => 19 - 2.5 * Math.log10(Math.abs(image.magnification))));
+  });
+
+  it("measures the orbiting star itself in a relativistic orbit, at the visits within ±10 % of the period around the next periapsis", () => {
+    // a = 700 au about 5.2 × 10⁶ M☉: P = √(a³/M) yr = 8.12 yr = 2966 d (Kepler's third law), window ±296.6 d.
+    const periapsisJdUtc = 2_463_500.5;
+    const star: LensHypothesis = {
+      lensModel: "point",
+      lensMassSolar: 5.2e6,
+      lensDistancePc: 8300,
+      sourceDistancePc: 9000,
+      sourceOffsetThetaE: 2,
+      orbitSemiMajorAxisAu: 700,
+      orbitEccentricity: 0.93,
+      orbitPeriapsisJdUtc: periapsisJdUtc,
+      sourceMagnitude: 14.1,
+      blendFraction: 1,
+    };
+    const everyTenDays = Array.from({ length: 200 }, (_, i) => periapsisJdUtc - 1000 + 10 * i);
+    const outcome = budgetOf(star, everyTenDays, "relativistic-orbit");
+    if (!("budget" in outcome)) throw new Error("no budget");
+    const halfDays = 0.1 * Math.sqrt(700 ** 3 / 5.2e6) * 365.25;
+    const inWindow = everyTenDays.filter((jd) => Math.abs(jd - periapsisJdUtc) <= halfDays);
+    expect(inWindow.length).toBe(59);
+    expect(Array.from(outcome.budget.visitsJdUtc)).toEqual(inWindow);
+    expect(outcome.budget.measured).toBe("orbiting-star");
+    expect(new Set(outcome.budget.magnitudes)).toEqual(new Set([14.1]));
+    // Without its periapsis time the passage cannot be placed: every planned visit is graded.
+    const unplaced = budgetOf({ ...star, orbitPeriapsisJdUtc: null }, everyTenDays, "relativistic-orbit");
+    expect("budget" in unplaced && unplaced.budget.visitsJdUtc.length).toBe(200);
   });
 
   it("names the missing input in words, and asks nothing of horizon-scale imaging or of a bench without a camera", () => {
