@@ -230,11 +230,10 @@ function drawRingLabels(context: CanvasRenderingContext2D, projection: FigurePro
     const { angleRad, side } = ringLabelPlacement(ring);
     const at = projection.point(ring.radiusM * Math.cos(angleRad), ring.radiusM * Math.sin(angleRad), 0);
     if (at === undefined) continue;
-    context.textAlign = side === "left" ? "right" : side === "right" ? "left" : "center";
-    context.textBaseline = side === "above" ? "bottom" : "top";
-    const dx = side === "left" ? -4 * s : side === "right" ? 4 * s : 0;
-    const dy = side === "above" ? -3 * s : 2 * s;
-    haloText(context, ringLabelText(ring), at.x + dx, at.y + dy, s);
+    context.textAlign = side === "left" ? "right" : "left";
+    context.textBaseline = "top";
+    const dx = side === "left" ? -4 * s : 4 * s;
+    haloText(context, ringLabelText(ring), at.x + dx, at.y + 2 * s, s);
   }
 }
 

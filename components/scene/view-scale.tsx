@@ -13,7 +13,6 @@ const RING_POINTS = 192;
 const LABEL_SHIFT: Record<ReturnType<typeof ringLabelPlacement>["side"], string> = {
   left: "translate(calc(-100% - 4px), 2px)",
   right: "translate(4px, 2px)",
-  above: "translate(-50%, calc(-100% - 3px))",
 };
 
 function SceneLabel({ position, shift, text, layer }: { position: [number, number, number]; shift: string; text: string; layer: RefObject<HTMLDivElement | null> }) {

@@ -135,8 +135,12 @@ export function vertexColours(colours: Uint8Array, rayFirstPoint: Uint32Array, i
   return out;
 }
 
-/** Bundles of more rays than this draw each ray fainter (our rule, from the 5,000-ray demo bundle). */
-const DENSE_BUNDLE_RAYS = 2000;
+/**
+ * Bundles of more rays than this draw each ray fainter (our rule: at 2,000 rays the demo fan's
+ * incoming rays lie about five to a pixel on the 1,084-pixel view, and at full opacity they added up
+ * to a white slab).
+ */
+const DENSE_BUNDLE_RAYS = 400;
 
 /**
  * The factor on every ray's opacity for a bundle of `rayCount` rays: 1 up to DENSE_BUNDLE_RAYS, then

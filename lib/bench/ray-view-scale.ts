@@ -82,11 +82,13 @@ export const ringLabelText = (ring: ScaleRing): string => (ring.physical === und
  * Where a ring's label stands, in the view and on the saved figure alike: the point of the ring at
  * `angleRad` in the rays' plane (from +x toward +y), and the side of that point the text extends to.
  * The horizon's and photon sphere's labels lean apart (lower left, lower right) so they stay legible
- * when both rings are a few pixels wide; the round rings are labelled on the axis toward the source.
+ * when both rings are a few pixels wide; the round rings are labelled on the diagonal toward the
+ * source (upper left), where neighbouring labels stand apart in height as well as in width (on the
+ * axis, those of 10 M steps overlapped).
  */
-export function ringLabelPlacement(ring: Pick<ScaleRing, "kind">): { angleRad: number; side: "left" | "right" | "above" } {
+export function ringLabelPlacement(ring: Pick<ScaleRing, "kind">): { angleRad: number; side: "left" | "right" } {
   if (ring.kind === "horizon") return { angleRad: (5 * Math.PI) / 4, side: "left" };
-  if (ring.kind === "round") return { angleRad: Math.PI, side: "above" };
+  if (ring.kind === "round") return { angleRad: (3 * Math.PI) / 4, side: "left" };
   return { angleRad: -Math.PI / 4, side: "right" };
 }
 

@@ -64,6 +64,7 @@ describe("colouring the rays by a quantity", () => {
 
   it("draws each ray of a dense bundle fainter, as 1/√N past 2,000 rays", () => {
     expect(densityOpacity(400)).toBe(1);
-    expect(densityOpacity(8000)).toBeCloseTo(0.5, 12);
+    expect(densityOpacity(2000)).toBeCloseTo(Math.sqrt(0.2), 12);
+    expect(densityOpacity(8000)).toBeCloseTo(Math.sqrt(0.05), 12);
   });
 });

@@ -42,7 +42,7 @@ describe("the ray view's scale rings", () => {
   it("places the horizon's and photon sphere's labels apart, the round ones on the source side", () => {
     expect(ringLabelPlacement({ kind: "horizon" }).side).toBe("left");
     expect(ringLabelPlacement({ kind: "photon-sphere" }).side).toBe("right");
-    expect(ringLabelPlacement({ kind: "round" })).toEqual({ angleRad: Math.PI, side: "above" });
+    expect(ringLabelPlacement({ kind: "round" })).toEqual({ angleRad: (3 * Math.PI) / 4, side: "left" });
   });
 
   it("rounds down to 1, 2 or 5 × 10ⁿ and reaches the observer's axis past the rays", () => {
