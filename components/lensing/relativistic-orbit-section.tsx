@@ -95,12 +95,15 @@ interface RelativisticOrbitSectionProps {
  * tracer with its periapses.
  */
 export function RelativisticOrbitSection({ targetName, outcome, periapsisJdUtc, fromJdUtc }: RelativisticOrbitSectionProps) {
+  const heading = (
+    <h2 id="orbit-heading" className="text-xl font-semibold">
+      The orbiting star
+    </h2>
+  );
   if ("missing" in outcome) {
     return (
       <section aria-labelledby="orbit-heading" className="space-y-2" data-testid="relativistic-orbit">
-        <h2 id="orbit-heading" className="text-xl font-semibold">
-          The orbiting star
-        </h2>
+        {heading}
         <p className="text-sm" data-testid="orbit-missing">
           {outcome.missing}
         </p>
@@ -112,9 +115,7 @@ export function RelativisticOrbitSection({ targetName, outcome, periapsisJdUtc, 
   const next = periapsisJdUtc === null ? null : nextPeriapsisJdUtc(orbit, periapsisJdUtc, fromJdUtc);
   return (
     <section aria-labelledby="orbit-heading" className="space-y-4" data-testid="relativistic-orbit">
-      <h2 id="orbit-heading" className="text-xl font-semibold">
-        The orbiting star
-      </h2>
+      {heading}
       <p className="text-sm" data-testid="orbit-next-periapsis">
         {next === null ? "Set a time of periapsis to date the next passage." : `Next periapsis: ${dateWords(next)}.`}
       </p>

@@ -1,8 +1,8 @@
 import { readFile } from "node:fs/promises";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoSketch, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { criticalImpactParameter, einsteinRadius, MILLIARCSECOND_RAD } from "@/lib/physics";
+import { benchLink, drawnMarks, waitForNextDrawnBundle } from "./support/bench-page";
 import { launchBrowser, newPage } from "./support/browser";
 import extractChunks from "png-chunks-extract";
 import { decode as decodeText } from "png-chunk-text";
@@ -18,21 +18,12 @@ afterAll(async () => {
   await browser?.close();
 });
 
-const benchLink = (changes: Partial<Sketch>) => `/bench?${sketchToQueryString({ ...demoSketch, ...changes })}`;
-
 /** The Einstein radius as shown (default unit mas), as a number of milliarcseconds. */
 async function shownThetaEMas(page: Page): Promise<number> {
   const text = (await page.getByTestId("result-theta-e").textContent()) ?? "";
   expect(text).toMatch(/ mas$/);
   return Number(text.replace(/ mas$/, ""));
 }
-
-/** Resolves once the scene reports a newly drawn bundle (one more "bundle drawn" mark than before). */
-async function waitForNextDrawnBundle(page: Page, marksBefore: number): Promise<void> {
-  await page.waitForFunction((count) => performance.getEntriesByName("bench:bundle-drawn").length > count, marksBefore, { timeout: 60_000 });
-}
-
-const drawnMarks = (page: Page) => page.evaluate(() => performance.getEntriesByName("bench:bundle-drawn").length);
 
 describe("lens bench", () => {
   it("opens from a link with parameters and shows the Einstein radius the physics module computes", async () => {

@@ -2,7 +2,7 @@ import { readFile } from "node:fs/promises";
 import extractChunks from "png-chunks-extract";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { demoSketch, sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
+import { benchLink, drawnMarks, waitForNextDrawnBundle } from "./support/bench-page";
 import { launchBrowser, newPage } from "./support/browser";
 
 let browser: Browser;
@@ -14,15 +14,6 @@ beforeAll(async () => {
 afterAll(async () => {
   await browser?.close();
 });
-
-const benchLink = (changes: Partial<Sketch>) => `/bench?${sketchToQueryString({ ...demoSketch, ...changes })}`;
-
-const drawnMarks = (page: Page) => page.evaluate(() => performance.getEntriesByName("bench:bundle-drawn").length);
-
-/** Resolves once the scene reports a newly drawn bundle (one more "bundle drawn" mark than before). */
-async function waitForNextDrawnBundle(page: Page, marksBefore: number): Promise<void> {
-  await page.waitForFunction((count) => performance.getEntriesByName("bench:bundle-drawn").length > count, marksBefore, { timeout: 60_000 });
-}
 
 interface RayPixels {
   width: number;
