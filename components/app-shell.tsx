@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { ArcwrightMark } from "@/components/arcwright-mark";
-import { AccountMenu } from "@/components/workspace/account-menu";
-import { AdminNavLink } from "@/components/workspace/admin-nav-link";
+import { AccountMenu } from "@/components/account/account-menu";
+import { AdminNavLink } from "@/components/admin/admin-nav-link";
 import { primaryNavigation } from "@/components/navigation";
 
 /** The frame around every page: product name, the areas of the product, and the page itself. */

@@ -7,8 +7,8 @@
  */
 
 import { transfer, wrap, type Remote } from "comlink";
-import { chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
-import type { BundleLayout } from "@/lib/bench/bundle-layout";
+import { chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/ray-view/assemble-bundle";
+import type { BundleLayout } from "@/lib/ray-view/bundle-layout";
 import type { AssembleRequest, ChunkRequest, RayTraceWorkerApi } from "./ray-trace.worker";
 
 /** Rays per chunk: small enough for smooth progress and quick cancellation, large enough to amortize messaging. */

@@ -7,8 +7,8 @@
  */
 
 import { expose, transfer } from "comlink";
-import { assembleBundle, bundleBuffers, chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
-import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
+import { assembleBundle, bundleBuffers, chunkBuffers, type AssembledBundle, type TracedChunk } from "@/lib/ray-view/assemble-bundle";
+import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/ray-view/bundle-vertices";
 import { traceRayBundle } from "@/lib/physics";
 
 /** Relative tolerance for drawn rays: far below a pixel at any zoom the view allows, and quick. */

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { AdminAccounts } from "@/components/workspace/admin-accounts";
+import { AdminAccounts } from "@/components/admin/admin-accounts";
 import { AppError } from "@/lib/errors";
 import { listAccounts } from "@/lib/server/admin";
 import { loadForPage } from "@/lib/server/page-access";

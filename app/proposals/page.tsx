@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { NewProposalForm } from "@/components/workspace/new-proposal-form";
+import { NewProposalForm } from "@/components/proposals/new-proposal-form";
 import { roleLabels } from "@/lib/workspace/roles";
 import { loadForPage } from "@/lib/server/page-access";
 import { listProposals } from "@/lib/server/proposals";

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { ResetRequestForm } from "@/components/workspace/reset-forms";
+import { ResetRequestForm } from "@/components/account/reset-forms";
 
 export const metadata: Metadata = { title: "Reset your password" };
 

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { signInErrorMessage } from "@/lib/auth/sign-in-errors";
-import { SignInForm } from "@/components/workspace/sign-in-form";
+import { SignInForm } from "@/components/account/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in" };
 

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { SignUpForm } from "@/components/workspace/sign-up-form";
+import { SignUpForm } from "@/components/account/sign-up-form";
 
 export const metadata: Metadata = { title: "Create an account" };
 

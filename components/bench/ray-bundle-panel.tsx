@@ -2,17 +2,17 @@
 
 import dynamic from "next/dynamic";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { withLensSurface } from "@/lib/bench/bundle-surface";
+import { RAY_FATES, type AssembledBundle } from "@/lib/ray-view/assemble-bundle";
+import { withLensSurface } from "@/lib/ray-view/bundle-surface";
 import { formatPlain } from "@/lib/bench/display-units";
 import { hasPhotonSphere, lensRadiusInMassUnits } from "@/lib/bench/lens-surface";
 import { parseBundle } from "@/lib/bench/parse-sketch";
-import { quantityScale, RAY_COLOURINGS, rampStops, rayQuantity, type QuantityScale, type RayColouring } from "@/lib/bench/ray-view-colour";
-import { sliderTimeM, sliderTimeText, TIME_SLIDER_STEPS } from "@/lib/bench/ray-view-time";
+import { quantityScale, RAY_COLOURINGS, rampStops, rayQuantity, type QuantityScale, type RayColouring } from "@/lib/ray-view/colour";
+import { sliderTimeM, sliderTimeText, TIME_SLIDER_STEPS } from "@/lib/ray-view/time";
 import type { Sketch } from "@/lib/bench/sketch-state";
 import { fateStyles } from "@/components/scene/fate-styles";
 import { PNG_SCALES, type PngScale } from "@/components/scene/png-scale";
-import { withRayViewProvenance } from "@/lib/bench/ray-view-png";
+import { withRayViewProvenance } from "@/lib/ray-view/png";
 import { physicalSizeChunk, withPngChunks } from "@/lib/exports/png-text";
 import type { RayBundleView, RayColouringValues } from "@/components/scene/ray-bundle-canvas";
 import type { FigureKeyEntry } from "@/components/scene/ray-figure";

@@ -10,10 +10,10 @@ import { targetBodyFromSketch } from "@/lib/workspace/bench-link";
 import { roleCan, roleLabels } from "@/lib/workspace/roles";
 import type { ProposalSummary } from "@/lib/server/proposals";
 import type { TargetView } from "@/lib/workspace/target-view";
-import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
-import { Field, FormError, buttonClass } from "@/components/workspace/field";
-import { formatQuantity } from "@/components/workspace/format";
-import { formValues, useFormSubmit } from "@/components/workspace/use-form-submit";
+import { apiFetch, swrFetcher } from "@/components/shared/api-client";
+import { Field, FormError, buttonClass } from "@/components/shared/field";
+import { formatQuantity } from "@/components/shared/format";
+import { formValues, useFormSubmit } from "@/components/shared/use-form-submit";
 
 interface SessionAnswer {
   user?: { name?: string | null };

@@ -1,8 +1,8 @@
 "use client";
 
 import { useCallback, useEffect, useRef, useState } from "react";
-import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { bundleLayout } from "@/lib/bench/bundle-layout";
+import type { AssembledBundle } from "@/lib/ray-view/assemble-bundle";
+import { bundleLayout } from "@/lib/ray-view/bundle-layout";
 import type { BundleInputs } from "@/lib/bench/parse-sketch";
 import { RayTracePool } from "@/workers/ray-trace-pool";
 

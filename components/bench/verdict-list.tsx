@@ -1,4 +1,4 @@
-import { CaseAnswers } from "@/components/workspace/case-answers";
+import { CaseAnswers } from "@/components/shared/case-answers";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import type { TargetCaseReport } from "@/lib/workspace/derived";
 

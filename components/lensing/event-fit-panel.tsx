@@ -4,7 +4,7 @@ import { useEffect, useId, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import useSWR, { useSWRConfig } from "swr";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
-import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
+import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { targetPhotometryUrl, type TargetPhotometryView } from "@/lib/event-photometry/views";
 import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, EventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";

@@ -6,13 +6,13 @@ import { timeKinds, timeOffsetsDays, type TimeKind } from "@/lib/event-photometr
 import type { BrightnessKind, PhotometryMapping } from "@/lib/event-photometry/mapping";
 import { timeScales, type TimeScale } from "@/lib/event-photometry/time-scales";
 import { targetPhotometryUrl, type PhotometryCommitResult, type PhotometryFileView, type PhotometryPreviewView, type PhotometryRowView, type TargetPhotometryView } from "@/lib/event-photometry/views";
-import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
-import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
-import { formatDateTime } from "@/components/workspace/format";
-import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { apiFetch, swrFetcher } from "@/components/shared/api-client";
+import { FormError, buttonClass, quietButtonClass } from "@/components/shared/field";
+import { formatDateTime } from "@/components/shared/format";
+import { useFormSubmit } from "@/components/shared/use-form-submit";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
 import { VirtualRows } from "@/components/uploads/virtual-rows";
-import { ConfirmDelete } from "@/components/workspace/confirm-delete";
+import { ConfirmDelete } from "@/components/shared/confirm-delete";
 
 const inputClass = "rounded-md border border-void-edge bg-void px-2 py-1 text-sm";
 const plural = (n: number, word: string) => `${n.toLocaleString("en-US")} ${word}${n === 1 ? "" : "s"}`;

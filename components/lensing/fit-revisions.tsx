@@ -5,10 +5,10 @@ import useSWR, { useSWRConfig } from "swr";
 import { targetRevisionsUrl, type TargetRevisionView } from "@/lib/workspace/fit-revision";
 import { changedFields, fitRevisionFieldLabels, fitRevisionValueWords } from "@/lib/workspace/fit-revision-words";
 import { numberWords } from "@/lib/lensing/science-case-words";
-import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
-import { FormError, quietButtonClass } from "@/components/workspace/field";
-import { formatDateTime } from "@/components/workspace/format";
-import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { apiFetch, swrFetcher } from "@/components/shared/api-client";
+import { FormError, quietButtonClass } from "@/components/shared/field";
+import { formatDateTime } from "@/components/shared/format";
+import { useFormSubmit } from "@/components/shared/use-form-submit";
 
 interface FitRevisionsProps {
   proposalId: string;

@@ -1,4 +1,4 @@
-import type { RayFate } from "@/lib/bench/assemble-bundle";
+import type { RayFate } from "@/lib/ray-view/assemble-bundle";
 import { plotPalette, printPalette } from "@/lib/figures/plot-palette";
 import type { InkColour } from "./scene-colours";
 

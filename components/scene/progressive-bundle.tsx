@@ -3,8 +3,8 @@
 import { useFrame, useThree, type RootState } from "@react-three/fiber";
 import { useCallback, useEffect, useMemo, useRef, type RefObject } from "react";
 import * as THREE from "three";
-import type { AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { FIRST_FRAME_SEGMENTS, UPLOAD_FRAME_SEGMENTS, nextFrameSegments, segmentTotal, shareOfGroups } from "@/lib/bench/progressive-draw";
+import type { AssembledBundle } from "@/lib/ray-view/assemble-bundle";
+import { FIRST_FRAME_SEGMENTS, UPLOAD_FRAME_SEGMENTS, nextFrameSegments, segmentTotal, shareOfGroups } from "@/lib/ray-view/progressive-draw";
 import { RayBundleLines, WavefrontLines, type RayViewUniforms, type WavefrontPassUniforms } from "./ray-bundle-lines";
 import { sceneBackground, sceneInks } from "./scene-colours";
 

@@ -2,8 +2,8 @@
 
 import { useEffect, useLayoutEffect, useMemo, type Ref } from "react";
 import * as THREE from "three";
-import { RAY_FATES, type AssembledBundle, type RayFate } from "@/lib/bench/assemble-bundle";
-import { TIME_RULE_GLSL } from "@/lib/bench/ray-view-time";
+import { RAY_FATES, type AssembledBundle, type RayFate } from "@/lib/ray-view/assemble-bundle";
+import { TIME_RULE_GLSL } from "@/lib/ray-view/time";
 import { fateStyles } from "./fate-styles";
 
 /**
@@ -113,7 +113,7 @@ function fateMaterials(shared: RayViewUniforms): Record<RayFate, THREE.ShaderMat
 
 export interface RayBundleLinesProps {
   bundle: AssembledBundle;
-  /** Each vertex's colour, [r, g, b] 0–255 (lib/bench/ray-view-colour's vertexColours); undefined: by fate. */
+  /** Each vertex's colour, [r, g, b] 0–255 (lib/ray-view/colour.ts's vertexColours); undefined: by fate. */
   colours: Uint8Array | undefined;
   uniforms: RayViewUniforms;
   ref: Ref<THREE.LineSegments>;

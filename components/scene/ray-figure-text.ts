@@ -1,13 +1,13 @@
 /**
  * The words, numbers and PNG chunks of the 3D view's saved figure: its DPI, the sketch's mass and the
- * caption (the scale's rings and bar are lib/bench/ray-view-scale's). Pure (no DOM), for the browser.
+ * caption (the scale's rings and bar are lib/ray-view/scale.ts). Pure (no DOM), for the browser.
  */
 import { formatPlain } from "@/lib/bench/display-units";
 import { defaultUnits } from "@/lib/bench/parse-sketch";
 import { lensSketches, type Sketch } from "@/lib/bench/sketch-state";
 import { internationalTextChunk, type PngChunk } from "@/lib/exports/png-text";
 import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
-import { physicalLengthText } from "@/lib/bench/ray-view-scale";
+import { physicalLengthText } from "@/lib/ray-view/scale";
 import { parseMass } from "@/lib/physics";
 import type { PngScale } from "./png-scale";
 

@@ -8,10 +8,10 @@
  * caption and the key (fates by colour and dash, or the colour ramp with its values).
  */
 import * as THREE from "three";
-import { RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { densityOpacity, rampStops, type QuantityScale } from "@/lib/bench/ray-view-colour";
-import { OBSERVER_AXIS_LABEL, physicalLengthText, ringLabelPlacement, ringLabelText, scaleBarLengthM, type ScaleRing } from "@/lib/bench/ray-view-scale";
-import { pathUpToTime } from "@/lib/bench/ray-view-time";
+import { RAY_FATES, type AssembledBundle } from "@/lib/ray-view/assemble-bundle";
+import { densityOpacity, rampStops, type QuantityScale } from "@/lib/ray-view/colour";
+import { OBSERVER_AXIS_LABEL, physicalLengthText, ringLabelPlacement, ringLabelText, scaleBarLengthM, type ScaleRing } from "@/lib/ray-view/scale";
+import { pathUpToTime } from "@/lib/ray-view/time";
 import { plotFont, printPalette } from "@/lib/figures/plot-palette";
 import { fateStyles } from "./fate-styles";
 import type { PngScale } from "./png-scale";

@@ -3,7 +3,7 @@
 import { Html } from "@react-three/drei";
 import { useEffect, useMemo, type RefObject } from "react";
 import * as THREE from "three";
-import { OBSERVER_AXIS_LABEL, ringLabelPlacement, ringLabelText, type ScaleRing } from "@/lib/bench/ray-view-scale";
+import { OBSERVER_AXIS_LABEL, ringLabelPlacement, ringLabelText, type ScaleRing } from "@/lib/ray-view/scale";
 import { sceneInks } from "./scene-colours";
 
 /** Points per ring: smooth at the largest ring on a full-width view. */

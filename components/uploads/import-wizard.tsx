@@ -22,10 +22,10 @@ import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
 import type { FieldErrors } from "@/lib/errors";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
-import { apiFetch } from "@/components/workspace/api-client";
-import { FormError, buttonClass, quietButtonClass } from "@/components/workspace/field";
-import { formatQuantity } from "@/components/workspace/format";
-import { useFormSubmit } from "@/components/workspace/use-form-submit";
+import { apiFetch } from "@/components/shared/api-client";
+import { FormError, buttonClass, quietButtonClass } from "@/components/shared/field";
+import { formatQuantity } from "@/components/shared/format";
+import { useFormSubmit } from "@/components/shared/use-form-submit";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
 import { VirtualRows } from "@/components/uploads/virtual-rows";
 

@@ -3,8 +3,8 @@
 import { useState } from "react";
 import useSWR from "swr";
 import type { AttachmentView } from "@/lib/server/attachments";
-import { apiFetch, swrFetcher } from "@/components/workspace/api-client";
-import { FormError } from "@/components/workspace/field";
+import { apiFetch, swrFetcher } from "@/components/shared/api-client";
+import { FormError } from "@/components/shared/field";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
 
 const NOTE_URL = /^\/api\/proposals\/([^/]+)\/targets\/([^/]+)\/notes\/([^/]+)$/;

@@ -2,7 +2,7 @@
 // so every connection carries one member's session and every answer is counted under its kind.
 import autocannon from "autocannon";
 
-/** The target table's page size (components/workspace/target-table-state.ts). */
+/** The target table's page size (components/targets/target-table-state.ts). */
 const pageSizeRows = 50;
 /** Computed columns the table sorts by on the server (lib/workspace/target-query.ts). */
 const computedSortColumns = ["einsteinRadiusMas", "imageSeparationMas", "magnificationTotal", "timeDelayDays", "crossingTimeDays"];

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { formatDateTime } from "@/components/workspace/format";
+import { formatDateTime } from "@/components/shared/format";
 import { isMailboxEnabled, listMailbox } from "@/lib/server/mailbox";
 
 export const metadata: Metadata = { title: "Mailbox (development)" };

@@ -1,11 +1,11 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { ActivityFeed } from "@/components/workspace/activity-feed";
-import { ConfirmDelete } from "@/components/workspace/confirm-delete";
-import { MembersPanel } from "@/components/workspace/members-panel";
-import { TargetForm } from "@/components/workspace/target-form";
-import { TargetTable } from "@/components/workspace/target-table";
-import { initialTargetSorting, targetPageSize } from "@/components/workspace/target-table-state";
+import { ActivityFeed } from "@/components/proposals/activity-feed";
+import { ConfirmDelete } from "@/components/shared/confirm-delete";
+import { MembersPanel } from "@/components/proposals/members-panel";
+import { TargetForm } from "@/components/targets/target-form";
+import { TargetTable } from "@/components/targets/target-table";
+import { initialTargetSorting, targetPageSize } from "@/components/targets/target-table-state";
 import { roleLabels } from "@/lib/workspace/roles";
 import { listMembers } from "@/lib/server/members";
 import { loadForPage } from "@/lib/server/page-access";

@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { ResetPasswordForm } from "@/components/workspace/reset-forms";
+import { ResetPasswordForm } from "@/components/account/reset-forms";
 
 export const metadata: Metadata = { title: "Choose a new password" };
 

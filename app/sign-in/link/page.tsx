@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { LinkSignIn } from "@/components/workspace/sign-in-form";
+import { LinkSignIn } from "@/components/account/sign-in-form";
 
 export const metadata: Metadata = { title: "Sign in by link" };
 

@@ -4,7 +4,7 @@ import { describe, expect, it, vi } from "vitest";
 
 // The form is a client component (hooks, next-auth's browser client); this test is about the page's
 // own alert, so the form renders as nothing.
-vi.mock("@/components/workspace/sign-in-form", () => ({ SignInForm: () => null }));
+vi.mock("@/components/account/sign-in-form", () => ({ SignInForm: () => null }));
 
 import SignInPage from "@/app/sign-in/page";
 import { signInErrorMessages } from "@/lib/auth/sign-in-errors";

@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { assembleBundle, type TracedChunk } from "@/lib/bench/assemble-bundle";
-import { withLensSurface } from "@/lib/bench/bundle-surface";
+import { assembleBundle, type TracedChunk } from "@/lib/ray-view/assemble-bundle";
+import { withLensSurface } from "@/lib/ray-view/bundle-surface";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
 import { hasPhotonSphere, lensRadiusInMassUnits, surfaceImpactParameterM } from "@/lib/bench/lens-surface";
 import { parseSketch } from "@/lib/bench/parse-sketch";

@@ -2,7 +2,7 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { XMLValidator } from "fast-xml-parser";
 import { describe, expect, it } from "vitest";
-import { ScheduleTimeline } from "@/components/workspace/schedule-timeline";
+import { ScheduleTimeline } from "@/components/targets/schedule-timeline";
 import { demoPhotometry, demoSourcePhotometry } from "@/db/seed/demo-photon-budget";
 import { demoProposal, demoTargets } from "@/db/seed/demo-scenario";
 import { demoCycle, demoInterferometer } from "@/db/seed/demo-sky-cycle";

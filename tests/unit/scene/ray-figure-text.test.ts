@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { bundleMassSolar, CAPTION_KEYWORD, captionChunk, figureDpi, rayFigureCaption } from "@/components/scene/ray-figure-text";
-import { physicalLengthText, scaleBarLengthM } from "@/lib/bench/ray-view-scale";
+import { physicalLengthText, scaleBarLengthM } from "@/lib/ray-view/scale";
 import { physicalSizeChunk } from "@/lib/exports/png-text";
 import { PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { demoSketch } from "@/lib/bench/sketch-state";

@@ -1,11 +1,11 @@
 import * as THREE from "three";
 import { afterEach, beforeAll, describe, expect, it, vi } from "vitest";
-import { assembleBundle, RAY_FATES, type AssembledBundle } from "@/lib/bench/assemble-bundle";
-import { bundleLayout } from "@/lib/bench/bundle-layout";
-import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/bench/bundle-vertices";
-import { rayColours } from "@/lib/bench/ray-view-colour";
-import { defaultViewDirection, extentOf, frameExtent } from "@/lib/bench/ray-view-frame";
-import { observerAxisTipM, OBSERVER_AXIS_LABEL, scaleRings } from "@/lib/bench/ray-view-scale";
+import { assembleBundle, RAY_FATES, type AssembledBundle } from "@/lib/ray-view/assemble-bundle";
+import { bundleLayout } from "@/lib/ray-view/bundle-layout";
+import { arrivalTimes, drawnRays, wavefrontPoints } from "@/lib/ray-view/bundle-vertices";
+import { rayColours } from "@/lib/ray-view/colour";
+import { defaultViewDirection, extentOf, frameExtent } from "@/lib/ray-view/frame";
+import { observerAxisTipM, OBSERVER_AXIS_LABEL, scaleRings } from "@/lib/ray-view/scale";
 import { traceRayBundle } from "@/lib/physics";
 import { fateStyles } from "@/components/scene/fate-styles";
 import { composeRayFigure } from "@/components/scene/ray-figure";

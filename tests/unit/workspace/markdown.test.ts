@@ -1,7 +1,7 @@
 import { renderToStaticMarkup } from "react-dom/server";
 import { createElement } from "react";
 import { describe, expect, it } from "vitest";
-import { Markdown } from "@/components/workspace/markdown";
+import { Markdown } from "@/components/notes/markdown";
 
 const render = (source: string) => renderToStaticMarkup(createElement(Markdown, { source }));
 

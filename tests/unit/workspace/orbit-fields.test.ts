@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { targetBodyOf, SEMI_MAJOR_AXIS_INPUT } from "@/components/workspace/target-edit-fields";
-import { targetFieldTexts } from "@/components/workspace/target-edit-form";
+import { targetBodyOf, SEMI_MAJOR_AXIS_INPUT } from "@/components/targets/target-edit-fields";
+import { targetFieldTexts } from "@/components/targets/target-edit-form";
 import { createTargetSchema, lensHypothesisErrors, orbitErrors, semiMajorAxisKeyOf, updateTargetSchema } from "@/lib/workspace/target-schema";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import type { TargetView } from "@/lib/workspace/target-view";

@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { photometryBody, photometryFieldTexts, skyInputName, skyOwnMarkerName } from "@/components/workspace/photometry-body";
-import { targetBodyOf } from "@/components/workspace/target-edit-fields";
-import { targetFieldTexts } from "@/components/workspace/target-edit-form";
+import { photometryBody, photometryFieldTexts, skyInputName, skyOwnMarkerName } from "@/components/shared/photometry-body";
+import { targetBodyOf } from "@/components/targets/target-edit-fields";
+import { targetFieldTexts } from "@/components/targets/target-edit-form";
 import { typicalDarkSiteConditions } from "@/lib/photometry/bands";
 import { defaultPhotometrySettings, photometrySettingsSchema, type PhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { createTargetSchema } from "@/lib/workspace/target-schema";

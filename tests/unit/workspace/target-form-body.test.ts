@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { targetBodyOf } from "@/components/workspace/target-edit-fields";
-import { targetFieldTexts } from "@/components/workspace/target-edit-form";
+import { targetBodyOf } from "@/components/targets/target-edit-fields";
+import { targetFieldTexts } from "@/components/targets/target-edit-form";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { createTargetSchema } from "@/lib/workspace/target-schema";
 import { exportRows } from "../exports/fixtures";

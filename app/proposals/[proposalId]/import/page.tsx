@@ -1,5 +1,5 @@
 import type { Metadata } from "next";
-import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
+import { ProposalPageHeader } from "@/components/proposals/proposal-page-header";
 import { ImportWizard } from "@/components/uploads/import-wizard";
 import { roleLabels } from "@/lib/workspace/roles";
 import { loadForPage } from "@/lib/server/page-access";

@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
-import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
-import { ProposalSettingsForm } from "@/components/workspace/proposal-settings-form";
+import { ProposalPageHeader } from "@/components/proposals/proposal-page-header";
+import { ProposalSettingsForm } from "@/components/proposals/proposal-settings-form";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposal } from "@/lib/server/proposals";
 

@@ -1,6 +1,6 @@
 import Link from "next/link";
 import type { Metadata } from "next";
-import { ProposalPageHeader } from "@/components/workspace/proposal-page-header";
+import { ProposalPageHeader } from "@/components/proposals/proposal-page-header";
 import { ProposalSeason } from "@/components/sky/proposal-season";
 import { DEFAULT_SAFE_SUN_ELONGATION_DEG } from "@/lib/astro/constants";
 import { clearNightsText, moonRuleText, seasonWindowQuerySchema } from "@/lib/figures/season-view";

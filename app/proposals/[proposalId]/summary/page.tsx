@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { NightFigureDownloads, SeasonFigureDownloads } from "@/components/exports/sky-figure-downloads";
 import { TableDownloads } from "@/components/exports/table-downloads";
-import { verdictClass } from "@/components/workspace/format";
+import { verdictClass } from "@/components/shared/format";
 import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import { provenanceLines } from "@/lib/exports/provenance";

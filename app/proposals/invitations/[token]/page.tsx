@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import Link from "next/link";
-import { AcceptInvitation } from "@/components/workspace/accept-invitation";
+import { AcceptInvitation } from "@/components/proposals/accept-invitation";
 import { roleLabels } from "@/lib/workspace/roles";
 import { previewInvitation } from "@/lib/server/invitations";
 import { loadForPage } from "@/lib/server/page-access";
