@@ -1,6 +1,6 @@
 import { defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { describe, expect, it } from "vitest";
-import { DERIVATION_VERSION, deriveTargetColumns, targetCaseReport, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
+import { DERIVATION_VERSION, deriveTargetColumns, targetCaseReport, targetSchedule, targetSchedules, type FeasibilitySettings } from "@/lib/workspace/derived";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
 import { parseEventPeakJdUtc } from "@/lib/workspace/event-peak";
 
@@ -125,5 +125,29 @@ describe("an incomplete hypothesis", () => {
   it("yields nulls and no answers rather than an error", () => {
     const d = deriveTargetColumns({ lensModel: "point", lensMassSolar: null, lensDistancePc: 4000, sourceDistancePc: 8000, sourceOffsetThetaE: 0.3 }, noCycle, null);
     expect(d).toMatchObject({ einsteinRadiusMas: null, answeredCase: null, caseVerdict: "unknown", caseAnswers: [] });
+  });
+});
+
+// The kept single-target schedule must be the very schedule the batch computes (the batch is
+// checked against astropy in tests/unit/schedule), handed back again for the same inputs only.
+describe("one target's kept schedule", () => {
+  it("is the batch's schedule, kept for the same conditions and coordinates", () => {
+    const kept = targetSchedule(southern, bulgeTarget);
+    expect(kept).toEqual(targetSchedules(southern, [bulgeTarget])[0]);
+    expect(targetSchedule(southern, { ...bulgeTarget })).toBe(kept);
+  });
+
+  it("is simulated afresh when a condition or the coordinates change", () => {
+    const kept = targetSchedule(southern, bulgeTarget);
+    const slowerCadence = { ...southern, instrument: { ...southern.instrument, cadenceHours: 24 } };
+    const other = targetSchedule(slowerCadence, bulgeTarget);
+    expect(other).not.toBe(kept);
+    expect(other).toEqual(targetSchedules(slowerCadence, [bulgeTarget])[0]);
+    expect(other!.visitsJdUtc.length).toBeLessThan(kept!.visitsJdUtc.length);
+    expect(targetSchedule(southern, { ...bulgeTarget, decDeg: -29.3 })).not.toBe(kept);
+  });
+
+  it("is null without cycle dates", () => {
+    expect(targetSchedule(noCycle, bulgeTarget)).toBeNull();
   });
 });

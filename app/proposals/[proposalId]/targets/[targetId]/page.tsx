@@ -18,7 +18,7 @@ import { nightDateSchema } from "@/lib/astro/inputs";
 import { currentNightIso, jdUtcFromDate } from "@/lib/astro/time";
 import { benchLink } from "@/lib/workspace/bench-link";
 import { scienceCaseLabels } from "@/lib/lensing/science-cases";
-import { eventTimingOf, lensSolutionOf, orbitInputsOf, targetCaseReport, targetSchedules } from "@/lib/workspace/derived";
+import { eventTimingOf, lensSolutionOf, orbitInputsOf, targetCaseReport, targetSchedule } from "@/lib/workspace/derived";
 import { ScheduleTimeline } from "@/components/targets/schedule-timeline";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { microlensingFigures, type MicrolensingFigures } from "@/lib/workspace/microlensing-figures";
@@ -115,7 +115,7 @@ export default async function TargetPage({
   ];
   // Solved once (the photon ring is the costly part) and shared by the figures, the case and the timeline.
   const solved = lensSolutionOf(target);
-  const schedule = targetSchedules(proposal, [target])[0];
+  const schedule = targetSchedule(proposal, target);
   const computed: [string, string, string][] = [
     ["einstein-radius", "Einstein radius", formatWithUnit(target.einsteinRadiusMas, "mas")],
     ["image-separation", "Image separation", formatWithUnit(target.imageSeparationMas, "mas")],
