@@ -17,7 +17,8 @@ import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
 import { tryLock } from "./lib/lock.mjs";
-import { freePort, waitForHttp } from "./lib/ports.mjs";
+import getPort from "get-port";
+import { waitForHttp } from "./lib/ports.mjs";
 import { Cluster } from "./lib/postgres.mjs";
 import { run, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
 import { throwawaySecrets } from "./lib/secrets.mjs";
@@ -101,12 +102,12 @@ async function main() {
   const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));
   chmodSync(tmp, 0o755); // the server's own user must reach its folder inside
   const secrets = throwawaySecrets();
-  cluster = new Cluster({ root: join(tmp, "postgres"), port: await freePort(), password: secrets.postgresPassword, throwaway: true });
+  cluster = new Cluster({ root: join(tmp, "postgres"), port: await getPort(), password: secrets.postgresPassword, throwaway: true });
   try {
     cluster.initialize();
     cluster.start();
     cluster.ensureDatabase("arcwright_test");
-    const appPort = await freePort();
+    const appPort = await getPort();
     const appUrl = `http://127.0.0.1:${appPort}`;
     const baseEnv = appEnvironment({ databaseUrl: cluster.url("arcwright_test"), appUrl, secrets, nodeEnv: "test" });
     await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env: baseEnv });
@@ -127,7 +128,7 @@ async function main() {
     if (phases.includes("e2e")) {
       // The shared build folder is reused while the sources are unchanged; a run that finds it in use
       // by another run builds into a folder of its own and removes it afterwards.
-      const release = tryLock(join(repoRoot, ".next-test.lock"));
+      const release = tryLock(join(repoRoot, ".next-test"));
       const distDir = release ? ".next-test" : `.next-test-${process.pid}`;
       cleanups.push(release ?? (() => rmSync(join(repoRoot, distDir), { recursive: true, force: true })));
       const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });

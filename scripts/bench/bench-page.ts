@@ -12,9 +12,10 @@
 // on a free loopback port from an existing build (ARCWRIGHT_DIST_DIR, default .next).
 import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
-import { createServer } from "node:net";
 import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
+import getPort from "get-port";
+import { waitForHttp } from "@/scripts/lib/ports.mjs";
 import { demoSketch, sketchToQueryString } from "@/lib/bench/sketch-state";
 import { launchBrowser } from "../../tests/e2e/support/browser";
 
@@ -23,30 +24,6 @@ const RUNS = Number(process.env.BENCH_RUNS ?? 5);
 const TARGET_SECONDS = 1.5;
 const LONG_TASK_LIMIT_MS = 50;
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => (typeof address === "object" && address !== null ? resolve(address.port) : reject(new Error("no port"))));
-    });
-  });
-}
-
-async function waitForApp(url: string, timeoutMs: number): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    try {
-      if ((await fetch(url, { signal: AbortSignal.timeout(5000) })).ok) return;
-    } catch {
-      // not listening yet
-    }
-    await new Promise((resolve) => setTimeout(resolve, 250));
-  }
-  throw new Error(`${url} did not answer within ${timeoutMs / 1000} s`);
-}
-
 async function startApp(): Promise<{ baseUrl: string; server?: ChildProcess }> {
   const given = process.env.BENCH_BASE_URL;
   if (given !== undefined && given !== "") return { baseUrl: given.replace(/\/$/, "") };
@@ -54,13 +31,13 @@ async function startApp(): Promise<{ baseUrl: string; server?: ChildProcess }> {
   if (!existsSync(join(distDir, "BUILD_ID"))) {
     throw new Error(`no build in ${distDir}: run \`npx next build\` (with ARCWRIGHT_DIST_DIR if you use one) or set BENCH_BASE_URL`);
   }
-  const port = await freePort();
+  const port = await getPort();
   const server = spawn(process.execPath, [join("node_modules", "next", "dist", "bin", "next"), "start", "-p", String(port), "-H", "127.0.0.1"], {
     stdio: "ignore",
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" },
   });
   const baseUrl = `http://127.0.0.1:${port}`;
-  await waitForApp(`${baseUrl}/bench`, 60_000);
+  await waitForHttp(`${baseUrl}/bench`, { timeoutMs: 60_000 });
   return { baseUrl, server };
 }
 

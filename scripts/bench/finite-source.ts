@@ -6,7 +6,7 @@
 //       for the uniform disk; its former point-source shortcut never fired on this grid) against
 //       finiteSourceMagnification, in the same process, with the largest relative difference;
 //   (b) a limb-darkened (a = 0.5) finite-source fit of the demo event's photometry
-//       (public/demo/cbw-24-0117-photometry.csv, 310 points), read as the upload reads it;
+//       (public/demo/cinder-avocet-photometry.csv, 310 points), read as the upload reads it;
 //   (c) the prediction from that fit with the page's options (fit-choices.ts: 1,000 draws on a
 //       0.1 d grid) and with the former finite-source rule's 200 draws on a 0.25 d grid.
 import { readFileSync } from "node:fs";
@@ -48,7 +48,7 @@ for (const a of [LIMB_DARKENING_U, 0]) {
   );
 }
 
-const table = readPhotometryFile(readFileSync(join(process.cwd(), "public", "demo", "cbw-24-0117-photometry.csv")));
+const table = readPhotometryFile(readFileSync(join(process.cwd(), "public", "demo", "cinder-avocet-photometry.csv")));
 const direction = { raDeg: parseRightAscensionDeg("17 52 31.8"), decDeg: parseDeclinationDeg("-29 41 07") };
 const { points } = readEventPhotometry(table, proposePhotometryMapping(table.columns, table.rows).mapping, { direction });
 let fit = fitPointLens(points, { finiteSource: { limbDarkeningU: LIMB_DARKENING_U } });

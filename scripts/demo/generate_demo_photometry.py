@@ -1,7 +1,7 @@
 #!/usr/bin/python3
-"""The demo event CBW-24-0117's photometry (an invented event of the demo proposal,
+"""The demo event Cinder Avocet's photometry (an invented event of the demo proposal,
 db/seed/demo-scenario.ts): a rising point-lens light curve observed until 2031-06-04, about a week
-before the stored peak (2031-06-11 04:00 UTC), written to public/demo/cbw-24-0117-photometry.csv.
+before the stored peak (2031-06-11 04:00 UTC), written to public/demo/cinder-avocet-photometry.csv.
 Run with Debian's /usr/bin/python3 (python3-numpy, python3-astropy); one fixed seed, so the file is
 the same at every run.
 
@@ -43,7 +43,7 @@ warnings.filterwarnings("ignore", category=ErfaWarning)
 # its leap-second file's age (the product counts none after 2017 either).
 log.setLevel("ERROR")
 
-OUT = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "public", "demo", "cbw-24-0117-photometry.csv")
+OUT = os.path.join(os.path.dirname(os.path.abspath(__file__)), "..", "..", "public", "demo", "cinder-avocet-photometry.csv")
 SEED = 117
 EVENT = SkyCoord("17 52 31.8", "-29 41 07", unit=(u.hourangle, u.deg))
 GEOCENTRE = EarthLocation.from_geocentric(0 * u.m, 0 * u.m, 0 * u.m)

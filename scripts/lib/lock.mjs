@@ -1,37 +1,27 @@
-// A folder lock between concurrent runs on one clone (e.g. two `npm test` runs and one build folder).
-import { mkdirSync, readFileSync, rmSync, writeFileSync } from "node:fs";
-import { join } from "node:path";
+// A lock between concurrent runs on one clone (e.g. two `npm test` runs and one build folder), held
+// with `proper-lockfile`: a lock folder whose time the holder refreshes, so the lock of a run that died
+// is taken over once it has gone stale.
+import lockfile from "proper-lockfile";
+import { log } from "./log.mjs";
 
-function isAlive(pid) {
-  try {
-    process.kill(pid, 0);
-    return true;
-  } catch {
-    return false;
-  }
-}
+/** A lock not refreshed for this long belongs to a run that died (the holder refreshes it every 10 s). */
+const STALE_MS = 30_000;
 
 /**
- * Takes the lock at `path` if nobody alive holds it (a lock left by a dead process is taken over).
- * Returns its release function, or null when another live process holds it.
+ * Takes the lock of `path` (the folder `path + ".lock"`; `path` itself need not exist) if no live run
+ * holds it. Returns its release function, or null when another run holds it.
  */
 export function tryLock(path) {
-  for (let attempt = 0; attempt < 2; attempt++) {
-    try {
-      mkdirSync(path);
-      writeFileSync(join(path, "pid"), String(process.pid));
-      return () => rmSync(path, { recursive: true, force: true });
-    } catch (error) {
-      if (error.code !== "EEXIST") throw error;
-    }
-    let holder = NaN;
-    try {
-      holder = Number(readFileSync(join(path, "pid"), "utf8"));
-    } catch {
-      return null; // just made by another run that has not written its pid yet
-    }
-    if (isAlive(holder)) return null;
-    rmSync(path, { recursive: true, force: true });
+  try {
+    return lockfile.lockSync(path, {
+      realpath: false,
+      stale: STALE_MS,
+      update: STALE_MS / 3,
+      // Someone removed the lock folder under a running run: say so rather than crash the run.
+      onCompromised: (error) => log("lock", `the lock of ${path} was lost: ${error.message}`),
+    });
+  } catch (error) {
+    if (error.code === "ELOCKED") return null;
+    throw error;
   }
-  return null;
 }

@@ -1,18 +1,8 @@
-// Loopback ports: a free one for throwaway servers, and a wait until a server answers.
-import { createServer } from "node:net";
-
-/** A TCP port on 127.0.0.1 that nothing listens on right now. */
-export function freePort() {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.unref();
-    server.on("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const { port } = server.address();
-      server.close(() => resolve(port));
-    });
-  });
-}
+// A wait until a loopback server answers. Free ports come from the `get-port` package.
+//
+// Kept our own rather than `wait-on`: this is one fetch loop on Node's own fetch, which the
+// package would replace with axios, joi, lodash and rxjs (and axios honours HTTP(S)_PROXY settings,
+// which must never route a loopback health check).
 
 /** Polls `url` until it answers with `expectStatus`, or fails after `timeoutMs`. */
 export async function waitForHttp(url, { timeoutMs = 60_000, expectStatus = 200 } = {}) {
