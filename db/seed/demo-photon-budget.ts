@@ -31,16 +31,16 @@ export const demoPhotometry: PhotometrySettingsInput = {
 /**
  * Each demo target's source in Ks (its own magnitude, unmagnified) and blend fraction f_s: bulge
  * giants and dwarfs behind a crowded field, quasar images behind galaxies (invented values).
- * CBW-24-0203 is a faint dwarf in a bright blend: the depth answer fails for it.
+ * Cinder Bunting is a faint dwarf in a bright blend: the depth answer fails for it.
  */
 export const demoSourcePhotometry: Record<string, { sourceMagnitude: number; blendFraction: number }> = {
-  "CBW-24-0117": { sourceMagnitude: 17.8, blendFraction: 0.7 },
-  "CBW-24-0203": { sourceMagnitude: 23.4, blendFraction: 0.1 },
-  "CBW-24-0311": { sourceMagnitude: 16.9, blendFraction: 0.85 },
-  "CBW-24-0422": { sourceMagnitude: 15.2, blendFraction: 1 },
-  "CBW-24-0518": { sourceMagnitude: 18.4, blendFraction: 0.4 },
-  "CBW-24-0604": { sourceMagnitude: 17.1, blendFraction: 0.6 },
-  "CBW-24-0733": { sourceMagnitude: 18.0, blendFraction: 0.5 },
+  "Cinder Avocet": { sourceMagnitude: 17.8, blendFraction: 0.7 },
+  "Cinder Bunting": { sourceMagnitude: 23.4, blendFraction: 0.1 },
+  "Cinder Curlew": { sourceMagnitude: 16.9, blendFraction: 0.85 },
+  "Cinder Dunlin": { sourceMagnitude: 15.2, blendFraction: 1 },
+  "Cinder Egret": { sourceMagnitude: 18.4, blendFraction: 0.4 },
+  "Cinder Fieldfare": { sourceMagnitude: 17.1, blendFraction: 0.6 },
+  "Cinder Godwit": { sourceMagnitude: 18.0, blendFraction: 0.5 },
   "Lantern Arc": { sourceMagnitude: 18.6, blendFraction: 1 },
   "Quillfeather Lens": { sourceMagnitude: 19.4, blendFraction: 1 },
   "Hollowmere Pair": { sourceMagnitude: 18.9, blendFraction: 1 },

@@ -73,7 +73,7 @@ export interface PhotometryPreviewView {
 export interface PhotometryCommitResult {
   file: PhotometryFileView;
   renamed: { from: string; to: string }[];
-  /** The answer in words: "Kept 312 points in 2 datasets (…) from ogle.csv. Dataset “OGLE I” is kept as “OGLE I (2)”: another file of CBW-24-0117 has a dataset of that name." */
+  /** The answer in words: "Kept 312 points in 2 datasets (…) from ogle.csv. Dataset “OGLE I” is kept as “OGLE I (2)”: another file of Cinder Avocet has a dataset of that name." */
   message: string;
 }
 

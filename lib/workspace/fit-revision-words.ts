@@ -73,12 +73,12 @@ function timingWords(values: FitRevisionValues): string {
   ].join(", ");
 }
 
-/** The feed's subject of an applied fit: "CBW-24-0117: t0 …, u0 0.081, t_E 27.6 d (χ²/dof 1.02, 412 points)". */
+/** The feed's subject of an applied fit: "Cinder Avocet: t0 …, u0 0.081, t_E 27.6 d (χ²/dof 1.02, 412 points)". */
 export function fitAppliedWords(targetName: string, after: FitRevisionValues, summary: Pick<FitSummary, "chi2" | "dof" | "pointCount">): string {
   return `${targetName}: ${timingWords(after)} (χ²/dof ${numberWords(summary.chi2 / summary.dof)}, ${summary.pointCount} points)`;
 }
 
-/** The feed's subject of an undone fit: "CBW-24-0117, back to t0 …, u0 0.3, t_E from θ_E / μ_rel". */
+/** The feed's subject of an undone fit: "Cinder Avocet, back to t0 …, u0 0.3, t_E from θ_E / μ_rel". */
 export function fitUndoneWords(targetName: string, restored: FitRevisionValues): string {
   return `${targetName}, back to ${timingWords(restored)}`;
 }

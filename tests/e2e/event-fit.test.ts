@@ -16,7 +16,7 @@ afterAll(async () => {
 
 const run = Date.now().toString(36);
 /** The demo event's photometry as a user downloads it (scripts/demo/generate_demo_photometry.py writes it). */
-const demoPhotometryFile = "public/demo/cbw-24-0117-photometry.csv";
+const demoPhotometryFile = "public/demo/cinder-avocet-photometry.csv";
 
 /** Every case answer on the target page: its id, verdict and sentence. */
 async function caseAnswers(page: Page): Promise<string[]> {
@@ -36,7 +36,7 @@ describe("an ongoing event: photometry, fit, apply and undo (issue #19)", () => 
   it("a PI drops the demo event's photometry on its target, fits it, applies the fit and sees the verdicts follow; undo restores them", async () => {
     const { page, context, consoleErrors } = await newPage(browser);
     await signInAsDemo(page, "pi");
-    // A copy of the demo event CBW-24-0117 in a proposal of the test's own.
+    // A copy of the demo event Cinder Avocet in a proposal of the test's own.
     const { proposalId, targetId } = await createOwnTarget(
       context.request,
       {
@@ -61,7 +61,7 @@ describe("an ongoing event: photometry, fit, apply and undo (issue #19)", () => 
     const section = page.getByTestId("event-photometry");
     await section.getByRole("button", { name: "Add photometry" }).click();
     await section.getByTestId("photometry-dropzone").locator('input[type="file"]').setInputFiles({
-      name: "cbw-24-0117-photometry.csv",
+      name: "cinder-avocet-photometry.csv",
       mimeType: "text/csv",
       buffer: readFileSync(demoPhotometryFile),
     });

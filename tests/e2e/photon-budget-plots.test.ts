@@ -20,7 +20,7 @@ describe("the photon budget's plots on a target page (issue #17)", () => {
     await page.getByRole("link", { name: demoProposalTitle }).click();
     await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
     // The faint dwarf in a bright blend: every visit falls short of S/N 50 (demo-photon-budget.test.ts).
-    await page.getByRole("link", { name: "CBW-24-0203" }).click();
+    await page.getByRole("link", { name: "Cinder Bunting" }).click();
     await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
 
     const timeline = page.getByTestId("schedule-timeline");
@@ -33,7 +33,7 @@ describe("the photon budget's plots on a target page (issue #17)", () => {
     const sky = page.getByTestId("night-sky-brightness");
     await sky.waitFor();
     expect(await sky.getAttribute("data-night")).toBe("2031-06-10");
-    expect(await sky.getAttribute("aria-label")).toMatch(/^Sky at CBW-24-0203 from .+ in Ks \(2MASS\), night of 2031-06-10: from [\d.]+ to [\d.]+ mag\/arcsec²/);
+    expect(await sky.getAttribute("aria-label")).toMatch(/^Sky at Cinder Bunting from .+ in Ks \(2MASS\), night of 2031-06-10: from [\d.]+ to [\d.]+ mag\/arcsec²/);
     await page.getByRole("button", { name: "Download the sky brightness figure as SVG" }).waitFor();
     expect(consoleErrors.filter((message) => !message.includes("Failed to load resource"))).toEqual([]);
   });

@@ -19,7 +19,7 @@ describe("a target's simulated observing schedule", () => {
     await signInAsDemo(page, "coi");
     await page.getByRole("link", { name: demoProposalTitle }).click();
     await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
-    await page.getByRole("link", { name: "CBW-24-0117" }).click();
+    await page.getByRole("link", { name: "Cinder Avocet" }).click();
     await page.waitForURL(/\/targets\/[0-9a-f-]{36}/);
 
     const timeline = page.getByTestId("schedule-timeline");

@@ -36,7 +36,7 @@ describe("the demo proposal answered by science case", () => {
 
     // A June bulge event: a photometric microlensing event, its peak in usable time; no question of
     // resolving its images or timing their delay is asked.
-    await openTarget(page, proposalUrl, "CBW-24-0117");
+    await openTarget(page, proposalUrl, "Cinder Avocet");
     expect(await page.getByTestId("science-case").textContent()).toContain("Photometric microlensing event");
     expect(await sentenceOf(page, "peak-window")).toMatch(/falls in a usable window/);
     expect(await sentenceOf(page, "event-visits")).toMatch(/The schedule collects \d+ visits within t0 ± t_E/);
@@ -59,7 +59,7 @@ describe("the demo proposal answered by science case", () => {
     expect(onBench).toEqual(onTarget);
 
     // Its peak in early February, before the bulge clears the morning twilight: the season gap.
-    await openTarget(page, proposalUrl, "CBW-24-0733");
+    await openTarget(page, proposalUrl, "Cinder Godwit");
     expect(await sentenceOf(page, "peak-window")).toMatch(/season gap/);
 
     // A galaxy lens whose delay (about nine months) is longer than its observing season.

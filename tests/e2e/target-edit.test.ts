@@ -98,7 +98,7 @@ describe("editing and deleting targets and proposals in the browser", () => {
     await confirm.getByRole("button", { name: "Delete for good" }).click();
     await page.waitForURL(/\/proposals\/[0-9a-f-]{36}$/);
     await page.getByTestId("target-table").waitFor();
-    await page.getByTestId("target-row").filter({ hasText: "CBW-24-0117" }).waitFor();
+    await page.getByTestId("target-row").filter({ hasText: "Cinder Avocet" }).waitFor();
     expect(await page.getByTestId("target-row").filter({ hasText: name }).count()).toBe(0);
     const gone = await context.request.get(`${page.url().replace("/proposals/", "/api/proposals/")}/targets?q=${name}`);
     expect((await gone.json()).total).toBe(0);

@@ -139,8 +139,8 @@ describe("a target's photometry through the upload service and its routes", () =
 
   it("the demo event's file: two datasets from one file, proposed whole, read back grouped by dataset and sorted by time", async () => {
     const world = await createWorld();
-    const demo = readFileSync(join(process.cwd(), "public", "demo", "cbw-24-0117-photometry.csv"), "utf8");
-    const { fileId } = await upload(world, "cbw-24-0117-photometry.csv", demo);
+    const demo = readFileSync(join(process.cwd(), "public", "demo", "cinder-avocet-photometry.csv"), "utf8");
+    const { fileId } = await upload(world, "cinder-avocet-photometry.csv", demo);
     const { body } = await preview(world, world.actors.coi, { fileId });
     expect(body.mappingProblems).toEqual([]);
     expect(body.summary).toBe("310 points in 2 datasets (Halcyon Survey I: 256, Mesa Lucerna V: 54)");

@@ -6,9 +6,9 @@ import { mappingProblems, readEventPhotometry, readPhotometryFile } from "@/lib/
 import { fitPointLens } from "@/lib/lensing/fit";
 import { parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 
-// public/demo/cbw-24-0117-photometry.csv, written by scripts/demo/generate_demo_photometry.py with
+// public/demo/cinder-avocet-photometry.csv, written by scripts/demo/generate_demo_photometry.py with
 // the truth t0 = 2031-06-13 10:00 UTC, u0 = 0.08, t_E = 28 d (stated there).
-const bytes = readFileSync(join(process.cwd(), "public", "demo", "cbw-24-0117-photometry.csv"));
+const bytes = readFileSync(join(process.cwd(), "public", "demo", "cinder-avocet-photometry.csv"));
 const direction = { raDeg: parseRightAscensionDeg("17 52 31.8"), decDeg: parseDeclinationDeg("-29 41 07") };
 const T0_TRUTH_JD_UTC = 2_463_030.916_666_7; // 2031-06-13 10:00 UTC: JD 2440587.5 + Date.UTC(2031, 5, 13, 10) / 86400000
 

@@ -18,7 +18,7 @@ const settings: FeasibilitySettings = {
   photometry: photometrySettingsSchema.parse(demoPhotometry),
   ...demoCycle,
 };
-const demo = demoTargets.find((t) => t.name === "CBW-24-0203")!;
+const demo = demoTargets.find((t) => t.name === "Cinder Bunting")!;
 const row = { ...demo, ...demoSourcePhotometry[demo.name], raDeg: parseRightAscensionDeg(demo.ra), decDeg: parseDeclinationDeg(demo.dec) };
 const schedule = targetSchedules(settings, [row])[0];
 const solved = lensSolutionOf(row)!;

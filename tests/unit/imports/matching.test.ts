@@ -36,8 +36,8 @@ describe("nameKey", () => {
 describe("TargetMatcher", () => {
   const existing = [
     { id: "t1", name: "Lantern Arc", raDeg: 63.0396, decDeg: -15.5611 },
-    { id: "t2", name: "CBW-0117", raDeg: 268.1325, decDeg: -29.6853 },
-    { id: "t3", name: "CBW-0118", raDeg: 268.1325, decDeg: -29.6853 + 1.5 / 3600 },
+    { id: "t2", name: "Cinder Avocet", raDeg: 268.1325, decDeg: -29.6853 },
+    { id: "t3", name: "Cinder Bunting", raDeg: 268.1325, decDeg: -29.6853 + 1.5 / 3600 },
   ];
 
   it("matches on the name first, whatever the position", () => {

@@ -14,10 +14,10 @@ function preview(body: string, header = HEADER) {
 
 describe("validateImportRows", () => {
   it("turns a complete row into a typed candidate target with ICRS degrees and the fields' units", () => {
-    const { rows, validRowCount, invalidRowCount } = preview("CBW-0117,17 52 31.8,-29 41 07,0.32,5.2,8.1,0.12,6.1,1,high-mag;remnant");
+    const { rows, validRowCount, invalidRowCount } = preview("Cinder Avocet,17 52 31.8,-29 41 07,0.32,5.2,8.1,0.12,6.1,1,high-mag;remnant");
     expect(rows[0].errors).toEqual([]);
     expect(rows[0].target).toEqual({
-      name: "CBW-0117",
+      name: "Cinder Avocet",
       ra: (17 + 52 / 60 + 31.8 / 3600) * 15,
       dec: -(29 + 41 / 60 + 7 / 3600),
       lensModel: "point",

@@ -43,11 +43,11 @@ describe("the demo proposal's photon budget", () => {
   });
 
   it("fails the faint dwarf in a bright blend, and passes the bright giants", () => {
-    // CBW-24-0203: Ks 23.4 with f_s = 0.1 at A(0.45) = 2.3: S/N 13 where 50 is asked (infeasible, our rule: below half).
-    expect(depthOf("CBW-24-0203").verdict).toBe("infeasible");
-    expect(depthOf("CBW-24-0203").sentence).toMatch(/reaches only S\/N 13\.\d in the 1110 s a visit leaves \(goal 50/);
-    expect(depthOf("CBW-24-0117").verdict).toBe("feasible");
-    expect(depthOf("CBW-24-0422").sentence).toMatch(/The centroid is then measured to [\d.]+ mas \(photon-limited\)\./);
+    // Cinder Bunting: Ks 23.4 with f_s = 0.1 at A(0.45) = 2.3: S/N 13 where 50 is asked (infeasible, our rule: below half).
+    expect(depthOf("Cinder Bunting").verdict).toBe("infeasible");
+    expect(depthOf("Cinder Bunting").sentence).toMatch(/reaches only S\/N 13\.\d in the 1110 s a visit leaves \(goal 50/);
+    expect(depthOf("Cinder Avocet").verdict).toBe("feasible");
+    expect(depthOf("Cinder Dunlin").sentence).toMatch(/The centroid is then measured to [\d.]+ mas \(photon-limited\)\./);
   });
 
   it("asks for exposures and overheads over the visits: fewer hours than whole visits, more than overheads alone", () => {
@@ -61,14 +61,14 @@ describe("the demo proposal's photon budget", () => {
 });
 
 describe("one demo target's S/N at its peak, against the fixture generator's own calculation", () => {
-  // tests/fixtures/generate_photometry.py, case "demo target CBW-24-0117 at its peak": every step from
+  // tests/fixtures/generate_photometry.py, case "demo target Cinder Avocet at its peak": every step from
   // its paper in mpmath (Paczyński's A(u0), the blend, Bouguer extinction, the moonlit sky of
   // Krisciunas & Schaefer 1991, the Moffat PSF, Howell's CCD equation), none of our code.
   const fixture = loadBudgetFixture<{ cases: { input: Record<string, number | string> & { name: string }; expected: { signalToNoise: number; exposureForGoalS: number } }[] }>("visit-budget.json");
-  const worked = fixture.cases.find((c) => c.input.name.startsWith("demo target CBW-24-0117"))!;
+  const worked = fixture.cases.find((c) => c.input.name.startsWith("demo target Cinder Avocet"))!;
 
   it("reads the demo's camera and source through the product's own path to the same S/N", () => {
-    const target = rows.find((row) => row.name === "CBW-24-0117")!;
+    const target = rows.find((row) => row.name === "Cinder Avocet")!;
     const solved = lensSolutionOf(target)!;
     const event = eventTimingOf(target, solved.solution, solved.geometry);
     const magnification = eventMagnificationAtOffset(event.impactParameterThetaE!, event);

@@ -27,15 +27,15 @@ describe("the demo proposal's science cases", () => {
   });
 
   it("samples the June high-magnification event from the southern site", () => {
-    expect(answer(main.get("CBW-24-0117"), "peak-window").verdict).toBe("feasible");
-    expect(answer(main.get("CBW-24-0117"), "peak-visits").verdict).toBe("feasible");
+    expect(answer(main.get("Cinder Avocet"), "peak-window").verdict).toBe("feasible");
+    expect(answer(main.get("Cinder Avocet"), "peak-visits").verdict).toBe("feasible");
   });
 
   it("fails an event whose peak falls in the bulge's season gap (early February, morning twilight)", () => {
-    const gap = answer(main.get("CBW-24-0733"), "peak-window");
+    const gap = answer(main.get("Cinder Godwit"), "peak-window");
     expect(gap.verdict).not.toBe("feasible");
     expect(gap.sentence).toMatch(/season gap/);
-    expect(answer(main.get("CBW-24-0733"), "peak-visits").verdict).toBe("infeasible");
+    expect(answer(main.get("Cinder Godwit"), "peak-visits").verdict).toBe("infeasible");
   });
 
   it("fails a time delay longer than the lens's observing season", () => {
@@ -46,8 +46,8 @@ describe("the demo proposal's science cases", () => {
   });
 
   it("grades the dark remnant as astrometric microlensing against 0.1 mas per epoch", () => {
-    expect(main.get("CBW-24-0422")!.answeredCase).toBe("astrometric-microlensing");
-    expect(answer(main.get("CBW-24-0422"), "astrometric-shift").verdict).toBe("feasible");
+    expect(main.get("Cinder Dunlin")!.answeredCase).toBe("astrometric-microlensing");
+    expect(answer(main.get("Cinder Dunlin"), "astrometric-shift").verdict).toBe("feasible");
   });
 
   it("fails a shadow below λ/B and passes one above it", () => {

@@ -13,7 +13,7 @@ const proposal = {
   site: { name: "Mesa Lucerna Station", latitudeDeg: -31.27, longitudeDeg: -68.93, elevationM: 2480, horizonLimitDeg: 20 },
   instrument: { resolutionMas: 50, cadenceHours: 12, campaignLengthDays: 90 },
 };
-const target = { name: "CBW-24-0117", ra: "17 52 31.8", dec: "-29 41 07", lensModel: "point", lensMassSolar: 0.32, lensDistancePc: 5200, sourceDistancePc: 8100, sourceOffsetThetaE: 0.12, priority: 1 };
+const target = { name: "Cinder Avocet", ra: "17 52 31.8", dec: "-29 41 07", lensModel: "point", lensMassSolar: 0.32, lensDistancePc: 5200, sourceDistancePc: 8100, sourceOffsetThetaE: 0.12, priority: 1 };
 
 /** The path of every issue, joined with dots (the form's field names). */
 function refusedFields(result: { success: boolean; error?: { issues: { path: PropertyKey[] }[] } }): string[] {
@@ -54,7 +54,7 @@ describe("names refuse Unicode direction controls; the implicit marks and free t
 
   it("in a target's name, a proposal's title, cycle and site name, and an account's name", () => {
     for (const control of controls) {
-      expect(refusedFields(createTargetSchema.safeParse({ ...target, name: `CBW${control}-17` }))).toEqual(["name"]);
+      expect(refusedFields(createTargetSchema.safeParse({ ...target, name: `Cinder${control} Avocet` }))).toEqual(["name"]);
       const hostile = { ...proposal, title: `A${control}b`, cycle: `20${control}33A`, site: { ...proposal.site, name: `Mesa${control} Lucerna` } };
       expect(refusedFields(createProposalSchema.safeParse(hostile)).sort()).toEqual(["cycle", "site.name", "title"]);
       expect(refusedFields(accountSchema.safeParse({ email: "a@example.org", name: `Ilse${control}`, password: "long-enough-password" }))).toEqual(["name"]);
