@@ -9,6 +9,7 @@ import { SeasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfWindows } from "@/lib/figures/season-view";
 import { SeasonTable } from "./season-table";
 import { parseSkyQuery, skyQuantitySpecs, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
+import { seasonNightsRangeWords } from "@/lib/astro/season-length";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
 import { useSeason } from "./use-season";
 
@@ -51,7 +52,7 @@ const fieldLabels: { field: Exclude<SkyQueryField, "date">; label: string; hint:
   { field: "ra", label: "Right ascension", hint: "hh mm ss.s or degrees (ICRS)" },
   { field: "dec", label: "Declination", hint: "±dd mm ss or degrees (ICRS)" },
   { field: "airmass", label: "Air mass limit", hint: "2 ≈ 30° altitude" },
-  { field: "nights", label: "Season length (nights)", hint: "from the chosen night, 7 to 366" },
+  { field: "nights", label: "Season length (nights)", hint: `from the chosen night, ${seasonNightsRangeWords}` },
 ];
 
 /**

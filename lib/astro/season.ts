@@ -20,12 +20,15 @@ import {
 import { altitudeLimit, type AltitudeLimit } from "./limits";
 import { buildNightGrid, hoursOfDarkness } from "./night-grid";
 import { fillSineAltitudes, hoursAboveInDarkness, isTooCloseToSun, upperCulminationAltitudeDeg } from "./target-night";
+import { SEASON_MAX_NIGHTS, SEASON_MIN_NIGHTS } from "./season-length";
 import { addDaysIso, astroTimeFromJdUtc } from "./time";
+
+// The season view's importers read the night limit here as well (./season-length is its home).
+export { SEASON_MAX_NIGHTS } from "./season-length";
 
 const DEG = Math.PI / 180;
 
-/** At most this many nights (a long observing cycle) and targets (a large survey list) per request. */
-export const SEASON_MAX_NIGHTS = 400;
+/** At most this many targets (a large survey list) per request; nights: ./season-length. */
 export const SEASON_MAX_TARGETS = 5000;
 /** Nights per "week" of the best-week summary. */
 export const SEASON_WEEK_NIGHTS = 7;
@@ -83,7 +86,7 @@ export interface SeasonWindows {
 const nightCountSchema = z
   .number({ error: "The number of nights must be a whole number." })
   .int("The number of nights must be a whole number.")
-  .min(1, "The number of nights is at least 1.")
+  .min(SEASON_MIN_NIGHTS, `The number of nights is at least ${SEASON_MIN_NIGHTS}.`)
   .max(SEASON_MAX_NIGHTS, `The number of nights is at most ${SEASON_MAX_NIGHTS}.`);
 const targetListSchema = z
   .array(skyTargetSchema)

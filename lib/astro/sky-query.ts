@@ -7,6 +7,7 @@ import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/
 import { proposalQuantities } from "@/lib/workspace/proposal-schema";
 import { readQuantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 import { parseNumber, QuantityError } from "@/lib/physics/units";
+import { SEASON_DEFAULT_NIGHTS, SEASON_MAX_NIGHTS, SEASON_MIN_NIGHTS, seasonNightsRangeWords } from "@/lib/astro/season-length";
 
 export const skyQueryFields = ["site", "lat", "lon", "elev", "horizon", "ra", "dec", "date", "airmass", "nights"] as const;
 export type SkyQueryField = (typeof skyQueryFields)[number];
@@ -26,7 +27,7 @@ export function defaultSkyQuery(todayIso: string): SkyQuery {
     dec: "-29 00 28.1",
     date: todayIso,
     airmass: "2",
-    nights: "183",
+    nights: String(SEASON_DEFAULT_NIGHTS),
   };
 }
 
@@ -53,8 +54,6 @@ export interface ParsedSkyQuery {
   nightCount: number;
 }
 
-const MAX_SEASON_NIGHTS = 366;
-
 /**
  * The page's quantity fields read as the proposal settings read the same quantities (units, comma
  * rules and messages from the one parser), so a site is typed one way everywhere.
@@ -67,7 +66,7 @@ export const skyQuantitySpecs = {
   airmass: proposalQuantities.airmassLimit,
 } as const satisfies Partial<Record<SkyQueryField, QuantitySpec>>;
 
-const seasonLengthMessage = `The season is a whole number of nights from 7 to ${MAX_SEASON_NIGHTS}.`;
+const seasonLengthMessage = `The season is a whole number of nights ${seasonNightsRangeWords}.`;
 
 /** The season length in nights, with the comma rules of every number field; NaN when not a number. */
 function nightCountOf(text: string): number {
@@ -115,7 +114,7 @@ export function parseSkyQuery(query: SkyQuery): { value: ParsedSkyQuery; errors:
   const limits = skyLimitsSchema.safeParse({ airmassLimit: quantity("airmass") });
   if (!limits.success) errors.airmass ??= limits.error.issues[0].message;
   const nightCount = nightCountOf(query.nights);
-  if (!(Number.isInteger(nightCount) && nightCount >= 7 && nightCount <= MAX_SEASON_NIGHTS)) errors.nights = seasonLengthMessage;
+  if (!(Number.isInteger(nightCount) && nightCount >= SEASON_MIN_NIGHTS && nightCount <= SEASON_MAX_NIGHTS)) errors.nights = seasonLengthMessage;
   if (Object.keys(errors).length > 0 || !site.success || !date.success || !limits.success) return { value: null, errors };
   return {
     value: { site: site.data, target: { name: "Target", raDeg, decDeg }, nightDateIso: date.data, limits: limits.data, nightCount },

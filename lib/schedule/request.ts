@@ -18,8 +18,8 @@ import {
   type SkySiteInput,
   type SkyTarget,
 } from "@/lib/astro/inputs";
-import { SEASON_MAX_NIGHTS, SEASON_MAX_TARGETS } from "@/lib/astro/season";
-import { addDaysIso, nightStartJdUtc } from "@/lib/astro/time";
+import { SEASON_MAX_TARGETS } from "@/lib/astro/season";
+import { cycleTooLongMessage, nightCountInclusive, SEASON_MAX_NIGHTS } from "@/lib/astro/season-length";
 
 const finite = (message: string) => z.number({ error: message }).finite(message);
 
@@ -61,14 +61,10 @@ export const scheduleConstraintsSchema = z
     { error: "The schedule request is missing: give the cycle, the cadence and the time per visit." },
   )
   .superRefine((value, context) => {
-    const nights = cycleNightCountOf(value.cycleStartNightIso, value.cycleEndNightIso);
+    const nights = nightCountInclusive(value.cycleStartNightIso, value.cycleEndNightIso);
     if (nights < 1) context.addIssue({ code: "custom", path: ["cycleEndNightIso"], message: "The last night of the cycle comes on or after the first." });
     else if (nights > SEASON_MAX_NIGHTS) {
-      context.addIssue({
-        code: "custom",
-        path: ["cycleEndNightIso"],
-        message: `The cycle is at most ${SEASON_MAX_NIGHTS} nights (last night ${addDaysIso(value.cycleStartNightIso, SEASON_MAX_NIGHTS - 1)} at the latest).`,
-      });
+      context.addIssue({ code: "custom", path: ["cycleEndNightIso"], message: cycleTooLongMessage(value.cycleStartNightIso) });
     }
   });
 
@@ -120,11 +116,6 @@ export interface ScheduleSettings {
   clearNightFraction: number;
 }
 
-/** Nights from `startIso` to `endIso` inclusive (evening dates); < 1 when the end comes first. */
-function cycleNightCountOf(startIso: string, endIso: string): number {
-  return Math.round(nightStartJdUtc(endIso, 0) - nightStartJdUtc(startIso, 0)) + 1;
-}
-
 /** Validates the conditions; throws `AppError("bad_request:sky")` naming the first invalid field. */
 export function parseScheduleConditions(request: ScheduleConditions): ScheduleSettings {
   if (typeof request !== "object" || request === null) throw new AppError("bad_request:sky", "The schedule request is missing.", { _: ["The schedule request is missing."] });
@@ -142,7 +133,7 @@ export function parseScheduleConditions(request: ScheduleConditions): ScheduleSe
     site,
     limits,
     firstNightIso: constraints.cycleStartNightIso,
-    nightCount: cycleNightCountOf(constraints.cycleStartNightIso, constraints.cycleEndNightIso),
+    nightCount: nightCountInclusive(constraints.cycleStartNightIso, constraints.cycleEndNightIso),
     moonMinSeparationDeg: constraints.moon.minSeparationDeg,
     moonMaxIlluminatedFraction: constraints.moon.maxIlluminatedFraction,
     cadenceDays: constraints.cadenceHours / 24,

@@ -2,8 +2,7 @@ import { z } from "zod";
 import { nameText, storedText } from "@/lib/workspace/stored-text";
 import type { FieldErrors } from "@/lib/errors";
 import { nightDateSchema, type SkySiteInput } from "@/lib/astro/inputs";
-import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
-import { addDaysIso } from "@/lib/astro/time";
+import { cycleTooLongMessage, nightCountInclusive, SEASON_MAX_NIGHTS } from "@/lib/astro/season-length";
 import { quantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 import { photometrySettingsErrors, photometrySettingsSchema, type PhotometrySettings } from "@/lib/workspace/photometry-schema";
 
@@ -247,11 +246,6 @@ export const createProposalSchema = proposalSchema;
  */
 export const updateProposalSchema = z.object(proposalFields).partial();
 
-/** Nights from `startIso` to `endIso` inclusive (both evening dates, `YYYY-MM-DD`). */
-export function cycleNightCount(startIso: string, endIso: string): number {
-  return Math.round((Date.parse(`${endIso}T00:00:00Z`) - Date.parse(`${startIso}T00:00:00Z`)) / 86_400_000) + 1;
-}
-
 /**
  * The checks across fields, on the proposal as it will be stored: cycle dates both or neither, in
  * order and at most `SEASON_MAX_NIGHTS` nights long (what the season view computes); wavelength and
@@ -272,9 +266,9 @@ export function proposalSettingsErrors(
   if ((start === null) !== (end === null)) {
     fields[start === null ? "cycleStartDate" : "cycleEndDate"] = ["Give both the first and the last night of the cycle, or neither."];
   } else if (start !== null && end !== null) {
-    const nights = cycleNightCount(start, end);
+    const nights = nightCountInclusive(start, end);
     if (nights < 1) fields.cycleEndDate = ["The last night comes on or after the first."];
-    else if (nights > SEASON_MAX_NIGHTS) fields.cycleEndDate = [`The cycle is at most ${SEASON_MAX_NIGHTS} nights (last night ${addDaysIso(start, SEASON_MAX_NIGHTS - 1)} at the latest).`];
+    else if (nights > SEASON_MAX_NIGHTS) fields.cycleEndDate = [cycleTooLongMessage(start)];
   }
   const { interferometerWavelengthMm: wavelength, interferometerBaselineKm: baseline } = p.instrument;
   if ((wavelength === null) !== (baseline === null)) {

@@ -4,7 +4,7 @@ import { z } from "zod";
 import { dbClient } from "@/db/client";
 import { targets, type Proposal } from "@/db/schema";
 import { nightDateSchema } from "@/lib/astro/inputs";
-import { SEASON_MAX_NIGHTS } from "@/lib/astro/season";
+import { SEASON_DEFAULT_NIGHTS, SEASON_MAX_NIGHTS } from "@/lib/astro/season-length";
 import { seasonWindowQuerySchema } from "@/lib/figures/season-view";
 import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
@@ -36,7 +36,7 @@ function skyContextOf(p: Proposal) {
 }
 
 const DAY_MS = 86_400_000;
-const DEFAULT_SEASON_NIGHTS = 183;
+const DEFAULT_SEASON_NIGHTS = SEASON_DEFAULT_NIGHTS;
 
 /** Nights from the cycle's first to last night inclusive, bounded by the season limit. */
 function cycleNights(p: Proposal): number | undefined {

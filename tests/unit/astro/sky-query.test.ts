@@ -24,7 +24,7 @@ describe("the sky page reads its site as the proposal settings do (issue 15: one
     expect(errors?.lat).toMatch(/^Latitude: '5 kpc' .*; type e\.g\. -24\.6 deg\.$/);
     expect(errors?.lon).toMatch(/^Longitude is empty; type e\.g\./);
     expect(errors?.airmass).toMatch(/^Airmass limit: 'a lot' /);
-    expect(errors?.nights).toBe("The season is a whole number of nights from 7 to 366.");
+    expect(errors?.nights).toBe("The season is a whole number of nights from 1 to 366.");
     for (const message of Object.values(errors ?? {})) expect(message).not.toMatch(/[a-z][A-Z]|Deg\b|NaN|Invalid input/);
   });
 

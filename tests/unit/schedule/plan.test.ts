@@ -150,7 +150,7 @@ describe("the request is checked and refused in words naming the field", () => {
     [{ moon: { minSeparationDeg: 200 } }, "moon.minSeparationDeg", /Moon separation/i],
     [{ moon: { maxIlluminatedFraction: 1.5 } }, "moon.maxIlluminatedFraction", /Moon illumination/i],
     [{ cycleEndNightIso: "2022-02-01" }, "cycleEndNightIso", /last night of the cycle/i],
-    [{ cycleEndNightIso: "2023-12-31" }, "cycleEndNightIso", /at most 400 nights/],
+    [{ cycleEndNightIso: "2023-12-31" }, "cycleEndNightIso", /at most 366 nights/],
     [{ cycleStartNightIso: "2022-02-30" }, "cycleStartNightIso", /real calendar date/],
   ] as const)("%o", (change, field, words) => {
     try {
