@@ -13,6 +13,7 @@ import type { PhotometryPoint } from "@/lib/lensing/fit-input";
 import { EARLIEST_PHOTOMETRY_JD, fullJd, jdUtcOfTime, LATEST_PHOTOMETRY_JD, type EventDirection, type EventTimeFormat } from "./event-time";
 import { timeFormatLabel, type BrightnessKind, type PhotometryMapping } from "./mapping";
 import { REFERENCE_MAGNITUDE } from "./reference-magnitude";
+import { readPlainNumber } from "@/lib/numbers/plain-number";
 
 export { REFERENCE_MAGNITUDE } from "./reference-magnitude";
 
@@ -101,8 +102,8 @@ type CellReading = { value: number } | { problem: string };
 function readNumberCell(cell: string | undefined): CellReading {
   const text = (cell ?? "").trim();
   if (text === "") return { problem: "is empty" };
-  const value = /^[-+0-9.eE]+$/.test(text) ? Number(text) : Number.NaN;
-  return Number.isFinite(value) ? { value } : { problem: `“${text.slice(0, 40)}” is not a number` };
+  const value = readPlainNumber(text);
+  return value !== undefined && Number.isFinite(value) ? { value } : { problem: `“${text.slice(0, 40)}” is not a number` };
 }
 
 /** The calendar date of a Julian date, "1953-05-04", or "far outside" for a date JavaScript cannot hold. */

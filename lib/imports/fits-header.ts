@@ -1,5 +1,6 @@
 import { AppError } from "@/lib/errors";
 import { MAX_FITS_CARDS_PER_HDU, MAX_FITS_HDUS } from "@/lib/imports/limits";
+import { PLAIN_MANTISSA_SOURCE } from "@/lib/numbers/plain-number";
 
 /** FITS 4.0 §3.1: a file is a sequence of 2880-byte blocks; a header is 80-byte cards, 36 a block. */
 export const FITS_BLOCK_BYTES = 2880;
@@ -74,7 +75,7 @@ const trimTrailingSpaces = (text: string) => text.replace(/(?<! ) +$/, "");
 
 const INTEGER = /^[+-]?\d+$/;
 // Real numbers may use D for the exponent (§4.2.4).
-const REAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[ED][+-]?\d+)?$/i;
+const REAL = new RegExp(String.raw`^[+-]?${PLAIN_MANTISSA_SOURCE}(?:[ED][+-]?\d+)?$`, "i");
 
 function checkValueText(text: string): void {
   if (text === "" || text === "T" || text === "F" || INTEGER.test(text) || REAL.test(text) || /^\(.*\)$/.test(text)) return;

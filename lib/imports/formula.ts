@@ -3,13 +3,14 @@
  * or a carriage return may be run as a formula when a CSV export is opened in a spreadsheet.
  * Imported values are stored as written; these functions neutralize them on the way out.
  */
+import { PLAIN_NUMBER_SOURCE } from "@/lib/numbers/plain-number";
 
 /**
  * A text that would start a formula: it leads with one of those characters and is not a plain
  * decimal number, which is inert in every spreadsheet (so "-12.5" is left as it is). A RegExp, so
  * papaparse's `escapeFormulae` can take it for text cells kept as text.
  */
-export const FORMULA_CELL = /^(?![+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$)[=+\-@\t\r]/i;
+export const FORMULA_CELL = new RegExp(String.raw`^(?!${PLAIN_NUMBER_SOURCE}$)[=+\-@\t\r]`);
 
 /** Whether a text cell would start a formula in a spreadsheet. */
 export function isFormulaLike(text: string): boolean {

@@ -21,6 +21,7 @@ import { wordedIssue } from "@/lib/workspace/issue-words";
 import { createNoteSchema } from "@/lib/workspace/note-schema";
 import { createTargetSchema, lensHypothesisErrors, sourcePhotometryErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 
+import { PLAIN_NUMBER } from "@/lib/numbers/plain-number";
 /** Values used for every row where the file has no column (or an empty cell) for the field. */
 export interface ImportFill {
   lensModel?: LensModel;
@@ -49,7 +50,6 @@ export interface ImportPreview {
 
 // Spellings of "no value" in exported tables (common practice); such a cell is empty.
 const MISSING = new Set(["", "nan", "null", "none", "--", "-", "n/a", "na"]);
-const PLAIN_NUMBER = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:e[+-]?\d+)?$/i;
 const HOUR_UNITS = new Set(["h", "hr", "hour", "hours", "hourangle"]);
 const DEGREE_UNITS = new Set(["deg", "degree", "degrees", "°"]);
 // A magnitude without a named system (VOUnit "mag"): the band's own system, as the target keeps it.
