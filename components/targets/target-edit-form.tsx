@@ -8,16 +8,7 @@ import { FormError, buttonClass, quietButtonClass } from "@/components/shared/fi
 import { SEMI_MAJOR_AXIS_INPUT, TargetFieldset, targetBodyOf, type GeometrySource, type TargetFieldTexts } from "@/components/targets/target-edit-fields";
 import { formValues, useFormSubmit } from "@/components/shared/use-form-submit";
 import { eventPeakText } from "@/lib/workspace/event-peak";
-
-/**
- * Degrees as text that parses back to the same double (`String` gives the shortest round-trip form),
- * so saving an untouched form does not move the target. Exponent forms, which the coordinate parser
- * does not read, only occur within 1e-6° of zero, where twelve decimals keep it below a nanoarcsecond.
- */
-function degreesText(value: number): string {
-  const text = String(value);
-  return /e/i.test(text) ? value.toFixed(12) : text;
-}
+import { degreesFieldText } from "@/lib/workspace/coordinates";
 
 const textOf = (value: number | null | undefined) => (value == null ? "" : String(value));
 
@@ -25,8 +16,8 @@ const textOf = (value: number | null | undefined) => (value == null ? "" : Strin
 export function targetFieldTexts(t: TargetView): TargetFieldTexts {
   return {
     name: t.name,
-    ra: degreesText(t.raDeg),
-    dec: degreesText(t.decDeg),
+    ra: degreesFieldText(t.raDeg),
+    dec: degreesFieldText(t.decDeg),
     lensMassSolar: textOf(t.lensMassSolar),
     velocityDispersionKmPerS: textOf(t.velocityDispersionKmPerS),
     lensDistancePc: textOf(t.lensDistancePc),

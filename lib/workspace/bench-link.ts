@@ -6,6 +6,7 @@ import { DEFAULT_COSMOLOGY, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/phys
 import type { FeasibilitySettings } from "@/lib/workspace/derived";
 import type { LensHypothesis } from "@/lib/workspace/target-schema";
 import { eventPeakText } from "@/lib/workspace/event-peak";
+import { degreesFieldText } from "@/lib/workspace/coordinates";
 
 /** What "Open in the lens bench" reads of a target: its hypothesis and its position (ICRS degrees). */
 export interface BenchTarget extends LensHypothesis {
@@ -15,9 +16,6 @@ export interface BenchTarget extends LensHypothesis {
 
 /** A stored number as the bench reads it back exactly: the shortest decimal that parses to it; "" when not set. */
 const typed = (value: number | null | undefined, unit?: string) => (value == null ? "" : unit === undefined ? String(value) : `${value} ${unit}`);
-
-/** A coordinate in decimal degrees, which the coordinate reader takes as written (no exponent form). */
-const degreesText = (value: number) => (String(value).includes("e") ? value.toFixed(15) : String(value));
 
 /**
  * The sketch of a target under its proposal: every stored input of the target (lens, geometry, β as
@@ -45,8 +43,8 @@ export function benchSketchOf(h: BenchTarget, proposal: FeasibilitySettings): Sk
     beta: String(h.sourceOffsetThetaE),
     betaUnit: "thetaE",
     mu: typed(h.properMotionMasPerYr, "mas/yr"),
-    ra: degreesText(h.raDeg),
-    dec: degreesText(h.decDeg),
+    ra: degreesFieldText(h.raDeg),
+    dec: degreesFieldText(h.decDeg),
     case: h.scienceCase ?? "inferred",
     t0: h.eventPeakJdUtc == null ? "" : eventPeakText(h.eventPeakJdUtc),
     rstar: typed(h.sourceRadiusSolar),

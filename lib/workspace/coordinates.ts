@@ -11,6 +11,16 @@ export class CoordinateError extends Error {
   }
 }
 
+/**
+ * Decimal degrees as a form field holds them, so the coordinate reader gives back the same double:
+ * JavaScript's shortest round-trip text; the exponent forms, which the reader does not take, occur
+ * only within 1e-6° of zero and are written with fifteen decimals (an error below 2e-12″).
+ */
+export function degreesFieldText(valueDeg: number): string {
+  const text = String(valueDeg);
+  return text.includes("e") ? valueDeg.toFixed(15) : text;
+}
+
 /** The longest coordinate text read: a typed or pasted position with every decimal a catalogue gives is far shorter. */
 export const MAX_COORDINATE_CHARS = 64;
 

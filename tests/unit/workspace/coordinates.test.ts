@@ -1,6 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { slowdown } from "../../support/timing";
-import { CoordinateError, formatDeclination, formatRightAscension, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
+import { CoordinateError, degreesFieldText, formatDeclination, formatRightAscension, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 
 describe("right ascension", () => {
   it.each([
@@ -82,5 +82,16 @@ describe("hostile text (regression: a 3 KB coordinate held a server process for 
     expect(parseRightAscensionDeg("17   45   40.04")).toBeCloseTo(266.41683333, 7);
     expect(parseRightAscensionDeg("17 h 45 m 40.04 s")).toBeCloseTo(266.41683333, 7);
     expect(parseDeclinationDeg("- 29 : 00 : 28.1")).toBeCloseTo(-29.00780556, 7);
+  });
+});
+
+describe("degrees as a form field holds them (the target form and the bench link)", () => {
+  it("reads back as the same double, with no exponent form the reader refuses", () => {
+    expect(degreesFieldText(266.41683333333333)).toBe("266.41683333333333");
+    // 1e-7 is "1e-7" in JavaScript's shortest form; fifteen decimals write it plainly.
+    expect(degreesFieldText(1e-7)).toBe("0.000000100000000");
+    expect(degreesFieldText(-5e-8)).toBe("-0.000000050000000");
+    for (const value of [-29.00780555555556, 1e-7, -5e-8, 0]) expect(parseDeclinationDeg(degreesFieldText(value))).toBe(value);
+    expect(parseRightAscensionDeg(degreesFieldText(266.41683333333333))).toBe(266.41683333333333);
   });
 });
