@@ -4,7 +4,7 @@ import dynamic from "next/dynamic";
 import { useCallback, useEffect, useMemo, useRef, useState } from "react";
 import { RAY_FATES, type AssembledBundle } from "@/lib/ray-view/assemble-bundle";
 import { withLensSurface } from "@/lib/ray-view/bundle-surface";
-import { formatPlain } from "@/lib/bench/display-units";
+import { formatSignificant } from "@/lib/numbers/significant";
 import { hasPhotonSphere, lensRadiusInMassUnits } from "@/lib/bench/lens-surface";
 import { parseBundle } from "@/lib/bench/parse-sketch";
 import { quantityScale, RAY_COLOURINGS, rampStops, rayQuantity, type QuantityScale, type RayColouring } from "@/lib/ray-view/colour";
@@ -258,7 +258,7 @@ export function RayBundlePanel({ sketch, onFieldChange }: RayBundlePanelProps) {
       ) : null}
       {hasSurface ? (
         <p className="text-sm text-ember" data-testid="ray-bundle-surface-note">
-          This lens has a surface at R = {formatPlain(radiusOverM, 3)} M, outside its photon sphere (3 M): rays with b below R end on it, and it has no
+          This lens has a surface at R = {formatSignificant(radiusOverM, 3)} M, outside its photon sphere (3 M): rays with b below R end on it, and it has no
           photon sphere, horizon or shadow.
           {radiusOverM >= (bundle?.startRadiusM ?? INITIAL_START_RADIUS_M) ? " The whole traced region lies inside the body, so every ray here ends on its surface." : ""}
         </p>

@@ -2,8 +2,9 @@
 
 import type { BenchResults, DeflectionRow, ResultRow } from "@/lib/bench/compute-results";
 import { WEAK_FIELD_TOLERANCE } from "@/lib/bench/compute-results";
-import { AUTO_UNIT, displayUnit, formatInUnit, formatPlain, unitChoices, unitLabel } from "@/lib/bench/display-units";
+import { AUTO_UNIT, displayUnit, formatInUnit, unitChoices, unitLabel } from "@/lib/bench/display-units";
 import { CopyRowButton } from "./copy-row-button";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** The user's unit per row id (from the link) and how to change one; AUTO_UNIT clears the choice. */
 export interface UnitChoices {
@@ -112,9 +113,9 @@ function DeflectionRows({ deflections, units }: { deflections: DeflectionRow[]; 
         </thead>
         <tbody>
           {deflections.map((row) => {
-            const difference = formatPlain(row.fractionalDifference, 3);
+            const difference = formatSignificant(row.fractionalDifference, 3);
             const flag = row.hitsSurface ? " — the ray ends on the lens's surface" : row.isWeakFieldOff ? ` — weak field off by more than ${WEAK_FIELD_TOLERANCE * 100}%` : "";
-            const rowText = `${row.label}: b = ${formatPlain(row.bOverM)} M, α exact = ${angle(row.exactRad)}, α weak field = ${angle(row.weakFieldRad)}, fractional difference ${difference}${flag}`;
+            const rowText = `${row.label}: b = ${formatSignificant(row.bOverM)} M, α exact = ${angle(row.exactRad)}, α weak field = ${angle(row.weakFieldRad)}, fractional difference ${difference}${flag}`;
             return (
               <tr key={row.id} className="border-t border-void-edge" data-testid={row.id}>
                 <th scope="row" className="py-1 pr-2 text-left font-normal text-dusk">
@@ -125,7 +126,7 @@ function DeflectionRows({ deflections, units }: { deflections: DeflectionRow[]; 
                     </span>
                   ) : null}
                 </th>
-                <td className="py-1 pr-2 font-mono text-glint">{formatPlain(row.bOverM)}</td>
+                <td className="py-1 pr-2 font-mono text-glint">{formatSignificant(row.bOverM)}</td>
                 <td className="py-1 pr-2 font-mono text-glint">{angle(row.exactRad)}</td>
                 <td className="py-1 pr-2 font-mono text-glint">{angle(row.weakFieldRad)}</td>
                 <td className={`py-1 pr-2 font-mono ${row.isWeakFieldOff ? "text-alarm" : "text-glint"}`}>

@@ -12,7 +12,7 @@ import type { ProposalSummary } from "@/lib/server/proposals";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { Field, FormError, buttonClass } from "@/components/shared/field";
-import { formatQuantity } from "@/components/shared/format";
+import { formatSignificant } from "@/lib/numbers/significant";
 import { formValues, useFormSubmit } from "@/components/shared/use-form-submit";
 
 interface SessionAnswer {
@@ -107,7 +107,7 @@ export function SaveTarget({ sketch, parsed, isComputable }: SaveTargetProps) {
           <FormError message={message} />
           {saved && (
             <p role="status" className="text-sm text-glint" data-testid="saved-target">
-              Saved {saved.target.name}: Einstein radius {formatQuantity(saved.target.einsteinRadiusMas)} mas.{" "}
+              Saved {saved.target.name}: Einstein radius {formatSignificant(saved.target.einsteinRadiusMas)} mas.{" "}
               <Link href={`/proposals/${saved.proposalId}`}>Open the proposal</Link>
             </p>
           )}

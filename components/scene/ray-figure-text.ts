@@ -2,7 +2,7 @@
  * The words, numbers and PNG chunks of the 3D view's saved figure: its DPI, the sketch's mass and the
  * caption (the scale's rings and bar are lib/ray-view/scale.ts). Pure (no DOM), for the browser.
  */
-import { formatPlain } from "@/lib/bench/display-units";
+
 import { defaultUnits } from "@/lib/bench/parse-sketch";
 import { lensSketches, type Sketch } from "@/lib/bench/sketch-state";
 import { internationalTextChunk, type PngChunk } from "@/lib/exports/png-text";
@@ -10,6 +10,7 @@ import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { physicalLengthText } from "@/lib/ray-view/scale";
 import { parseMass } from "@/lib/physics";
 import type { PngScale } from "./png-scale";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** CSS pixels per inch: 1px = 1/96 in (CSS Values and Units Level 3, §5.2 absolute lengths). */
 const CSS_PX_PER_INCH = 96;
@@ -50,7 +51,7 @@ export function rayFigureCaption({ massSolar, bMinM, bMaxM, rayCount, layout }: 
   const mass =
     massSolar === undefined
       ? "a Schwarzschild mass M (lengths in units of M = GM/c²)"
-      : `a Schwarzschild mass of ${formatPlain(massSolar)} M☉ (lengths in units of M = GM/c² = ${physicalLengthText(1, massSolar)})`;
+      : `a Schwarzschild mass of ${formatSignificant(massSolar)} M☉ (lengths in units of M = GM/c² = ${physicalLengthText(1, massSolar)})`;
   const shape = layout === "fan" ? "a planar fan" : "a full cylinder";
-  return `Exact light paths past ${mass}: ${rayCount} rays in ${shape}, impact parameters b = ${formatPlain(bMinM)} to ${formatPlain(bMaxM)} M. ${PRODUCT_NAME} ${PRODUCT_VERSION}.`;
+  return `Exact light paths past ${mass}: ${rayCount} rays in ${shape}, impact parameters b = ${formatSignificant(bMinM)} to ${formatSignificant(bMaxM)} M. ${PRODUCT_NAME} ${PRODUCT_VERSION}.`;
 }

@@ -1,18 +1,11 @@
 import type { Verdict } from "@/lib/lensing/feasibility-rules";
+import { DEFAULT_SIGNIFICANT_DIGITS, formatSignificant } from "@/lib/numbers/significant";
 
 export { verdictLabels } from "@/lib/workspace/case-verdict-words";
 
-/** Four significant digits, exponent form for very small or large values; "—" where there is no value. */
-export function formatQuantity(value: number | null | undefined, digits = 4): string {
-  if (value === null || value === undefined || !Number.isFinite(value)) return "—";
-  const magnitude = Math.abs(value);
-  if (magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e6)) return value.toExponential(digits - 1);
-  return Number(value.toPrecision(digits)).toString();
-}
-
-/** A value with its unit, or a bare "—" when there is no value. */
-export function formatWithUnit(value: number | null | undefined, unit: string, digits = 4): string {
-  const text = formatQuantity(value, digits);
+/** A value with its unit (significant digits as `formatSignificant` writes them), or a bare "—" when there is no value. */
+export function formatWithUnit(value: number | null | undefined, unit: string, digits = DEFAULT_SIGNIFICANT_DIGITS): string {
+  const text = formatSignificant(value, digits);
   return text === "—" ? text : `${text} ${unit}`;
 }
 

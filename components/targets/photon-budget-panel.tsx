@@ -1,13 +1,13 @@
-import { formatQuantity } from "@/components/shared/format";
 import { measuredLightWords, type PhotonBudgetOutcome, type TargetPhotonBudget } from "@/lib/lensing/photon-budget";
 import type { VisitPhotometry } from "@/lib/photometry/visit-budget";
 import { dateWords } from "@/lib/lensing/science-case-words";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** Rows of the per-visit table shown at once; the rest are counted (the figures carry every visit). */
 const SHOWN_VISITS = 400;
 
 function snrText(snr: number, precisionMmag: number): string {
-  return `S/N ${formatQuantity(snr, 3)} (${formatQuantity(precisionMmag, 3)} mmag)`;
+  return `S/N ${formatSignificant(snr, 3)} (${formatSignificant(precisionMmag, 3)} mmag)`;
 }
 
 function ReferenceRow({ label, photometry, exposureS }: { label: string; photometry: VisitPhotometry; exposureS: number }) {
@@ -15,7 +15,7 @@ function ReferenceRow({ label, photometry, exposureS }: { label: string; photome
     <div className="contents">
       <dt className="text-dusk-dim">{label}</dt>
       <dd className="tabular-nums">
-        {snrText(photometry.signalToNoise, photometry.precisionMmag)} in {formatQuantity(exposureS, 3)} s; goal reached in {formatQuantity(photometry.exposureForGoalS, 3)} s
+        {snrText(photometry.signalToNoise, photometry.precisionMmag)} in {formatSignificant(exposureS, 3)} s; goal reached in {formatSignificant(photometry.exposureForGoalS, 3)} s
         {photometry.isSaturated ? " (saturates: split the exposure)" : ""}
       </dd>
     </div>
@@ -54,14 +54,14 @@ function BudgetDetails({ budget }: { budget: TargetPhotonBudget }) {
       <dl className="grid grid-cols-[auto_1fr] gap-x-4 gap-y-1 text-sm">
         <dt className="text-dusk-dim">Measured</dt>
         <dd>
-          {measuredLightWords[budget.measured]}, in {budget.bandLabel}; S/N goal {formatQuantity(budget.signalToNoiseGoal, 3)}, up to {formatQuantity(budget.visitExposureS, 3)} s
-          of exposure per visit after {formatQuantity(budget.overheadS, 3)} s of overhead
+          {measuredLightWords[budget.measured]}, in {budget.bandLabel}; S/N goal {formatSignificant(budget.signalToNoiseGoal, 3)}, up to {formatSignificant(budget.visitExposureS, 3)} s
+          of exposure per visit after {formatSignificant(budget.overheadS, 3)} s of overhead
         </dd>
         {budget.imageMagnitudes.length > 0 && (
           <>
             <dt className="text-dusk-dim">Images</dt>
             <dd className="tabular-nums" data-testid="image-magnitudes">
-              {budget.imageMagnitudes.map((magnitude) => formatQuantity(magnitude, 4)).join(", ")} mag (the source's magnitude less 2.5 log₁₀ |μ| of each image, brightest first)
+              {budget.imageMagnitudes.map((magnitude) => formatSignificant(magnitude, 4)).join(", ")} mag (the source's magnitude less 2.5 log₁₀ |μ| of each image, brightest first)
             </dd>
           </>
         )}
@@ -69,7 +69,7 @@ function BudgetDetails({ budget }: { budget: TargetPhotonBudget }) {
         {budget.peak !== null && <ReferenceRow label="Peak" photometry={budget.peak} exposureS={budget.visitExposureS} />}
         <dt className="text-dusk-dim">Hours requested</dt>
         <dd className="tabular-nums" data-testid="target-time-request">
-          {formatQuantity(budget.timeRequestHours, 3)} h over {count} {count === 1 ? "visit" : "visits"}
+          {formatSignificant(budget.timeRequestHours, 3)} h over {count} {count === 1 ? "visit" : "visits"}
         </dd>
       </dl>
       {count > 0 && (
@@ -92,13 +92,13 @@ function BudgetDetails({ budget }: { budget: TargetPhotonBudget }) {
                 {Array.from({ length: shown }, (_, i) => (
                   <tr key={i} className={i === budget.worstVisit ? "font-semibold" : undefined}>
                     <td className="px-2 py-0.5">{dateWords(budget.visitsJdUtc[i])}{i === budget.worstVisit ? " (worst)" : ""}</td>
-                    <td className="px-2 py-0.5">{formatQuantity(budget.magnitudes[i], 4)}</td>
-                    <td className="px-2 py-0.5">{formatQuantity(visitSky.airmass[i], 3)}</td>
+                    <td className="px-2 py-0.5">{formatSignificant(budget.magnitudes[i], 4)}</td>
+                    <td className="px-2 py-0.5">{formatSignificant(visitSky.airmass[i], 3)}</td>
                     <td className="px-2 py-0.5">{visitSky.moonZenithDeg[i] > 90 ? "down" : `${Math.round(visitSky.moonSeparationDeg[i])}° away`}</td>
-                    <td className="px-2 py-0.5">{formatQuantity(series.skyMagPerArcsec2[i], 4)}</td>
-                    <td className="px-2 py-0.5">{formatQuantity(series.signalToNoise[i], 3)}</td>
+                    <td className="px-2 py-0.5">{formatSignificant(series.skyMagPerArcsec2[i], 4)}</td>
+                    <td className="px-2 py-0.5">{formatSignificant(series.signalToNoise[i], 3)}</td>
                     <td className="px-2 py-0.5">
-                      {formatQuantity(series.exposureForGoalS[i], 3)}
+                      {formatSignificant(series.exposureForGoalS[i], 3)}
                       {series.saturated[i] ? " (saturates)" : ""}
                     </td>
                   </tr>

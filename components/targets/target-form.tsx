@@ -8,7 +8,7 @@ import { unsolvedColumns } from "@/lib/workspace/derived";
 import type { TargetPage, TargetView } from "@/lib/workspace/target-view";
 import { apiFetch } from "@/components/shared/api-client";
 import { FormError, buttonClass } from "@/components/shared/field";
-import { formatQuantity } from "@/components/shared/format";
+import { formatSignificant } from "@/lib/numbers/significant";
 import { TargetFieldset, targetBodyOf, type GeometrySource } from "@/components/targets/target-edit-fields";
 import { emptyFilters, initialTargetSorting, targetListUrl, targetPageSize } from "@/components/targets/target-table-state";
 import { formValues, useFormSubmit } from "@/components/shared/use-form-submit";
@@ -129,7 +129,7 @@ export function TargetForm({ proposalId, initialPage }: { proposalId: string; in
       <FormError message={message} />
       {added && (
         <p role="status" className="text-glint" data-testid="added-target">
-          Added {added.name}: Einstein radius {formatQuantity(added.einsteinRadiusMas)} mas.
+          Added {added.name}: Einstein radius {formatSignificant(added.einsteinRadiusMas)} mas.
         </p>
       )}
       <button type="submit" className={buttonClass} disabled={isBusy}>

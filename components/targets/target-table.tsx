@@ -13,14 +13,15 @@ import { scienceCaseIds, scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { answerLine, caseVerdictLine } from "@/lib/workspace/case-verdict-words";
 import { swrFetcher } from "@/components/shared/api-client";
 import { ChoiceOptions } from "@/components/shared/choice-options";
-import { formatQuantity, verdictClass, verdictLabels } from "@/components/shared/format";
+import { verdictClass, verdictLabels } from "@/components/shared/format";
 import { emptyFilters, initialTargetSorting, targetListUrl, targetPageSize, type TargetFilters } from "@/components/targets/target-table-state";
 import { PageStepper } from "@/components/page-stepper";
 
+import { formatSignificant } from "@/lib/numbers/significant";
 const features = tableFeatures({ rowSortingFeature });
 
 const numberCell = (digits = 4) => (info: { getValue: () => unknown }) => (
-  <span className="tabular-nums">{formatQuantity(info.getValue() as number | null, digits)}</span>
+  <span className="tabular-nums">{formatSignificant(info.getValue() as number | null, digits)}</span>
 );
 
 /** The case's verdict naming the questions behind it; the title lists every answer. */

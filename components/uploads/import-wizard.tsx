@@ -24,7 +24,7 @@ import type { FieldErrors } from "@/lib/errors";
 import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
 import { apiFetch } from "@/components/shared/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/shared/field";
-import { formatQuantity } from "@/components/shared/format";
+import { formatSignificant } from "@/lib/numbers/significant";
 import { useFormSubmit } from "@/components/shared/use-form-submit";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";
 import { VirtualRows } from "@/components/uploads/virtual-rows";
@@ -326,17 +326,17 @@ function UnmappedColumns({ preview, mapping, noteColumn }: { preview: ImportPrev
 function valueText(row: ImportRowView): string {
   const v = row.values;
   if (!v) return "";
-  const parts = [`RA ${formatQuantity(v.ra, 7)}°`, `Dec ${formatQuantity(v.dec, 7)}°`, lensModelOf(v.lensModel).shortLabel];
-  if (v.lensMassSolar != null) parts.push(`${formatQuantity(v.lensMassSolar)} M☉`);
-  if (v.velocityDispersionKmPerS != null) parts.push(`σ ${formatQuantity(v.velocityDispersionKmPerS)} km/s`);
-  if (v.lensDistancePc != null) parts.push(`D_L ${formatQuantity(v.lensDistancePc)} pc`);
-  if (v.sourceDistancePc != null) parts.push(`D_S ${formatQuantity(v.sourceDistancePc)} pc`);
+  const parts = [`RA ${formatSignificant(v.ra, 7)}°`, `Dec ${formatSignificant(v.dec, 7)}°`, lensModelOf(v.lensModel).shortLabel];
+  if (v.lensMassSolar != null) parts.push(`${formatSignificant(v.lensMassSolar)} M☉`);
+  if (v.velocityDispersionKmPerS != null) parts.push(`σ ${formatSignificant(v.velocityDispersionKmPerS)} km/s`);
+  if (v.lensDistancePc != null) parts.push(`D_L ${formatSignificant(v.lensDistancePc)} pc`);
+  if (v.sourceDistancePc != null) parts.push(`D_S ${formatSignificant(v.sourceDistancePc)} pc`);
   if (v.lensRedshift != null) parts.push(`z_L ${v.lensRedshift}`);
   if (v.sourceRedshift != null) parts.push(`z_S ${v.sourceRedshift}`);
   if (v.scienceCase != null) parts.push(scienceCaseLabels[v.scienceCase]);
   if (v.eventPeakJdUtc != null) parts.push(`t0 ${formatEventPeak(v.eventPeakJdUtc)}`);
-  if (v.sourceRadiusSolar != null) parts.push(`R* ${formatQuantity(v.sourceRadiusSolar)} R☉`);
-  if (v.sourceRadiusThetaE != null) parts.push(`ρ ${formatQuantity(v.sourceRadiusThetaE)}`);
+  if (v.sourceRadiusSolar != null) parts.push(`R* ${formatSignificant(v.sourceRadiusSolar)} R☉`);
+  if (v.sourceRadiusThetaE != null) parts.push(`ρ ${formatSignificant(v.sourceRadiusThetaE)}`);
   if (v.limbDarkeningU != null) parts.push(`LD ${v.limbDarkeningU}`);
   return parts.join(" · ");
 }

@@ -11,10 +11,11 @@ import { nightStartJdUtc } from "@/lib/astro/time";
 import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
 import { eventTimingOf } from "@/lib/workspace/derived";
 import { FINITE_SOURCE_METHOD } from "@/lib/lensing/finite-source";
-import { formatPlain, type DisplayKind } from "./display-units";
+import type { DisplayKind } from "./display-units";
 import { eventMagnification } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
 import { lensParametersOf, sourceOffsetThetaEOf, type SketchInputs } from "./parse-sketch";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 export interface ResultRow {
   id: string;
@@ -190,7 +191,7 @@ function pointLensResults(inputs: SketchInputs, massSolar: number, radiusM: numb
       kind: "ratio",
       value: peak.magnification,
       ...(peak.isLimitedBySourceSize
-        ? { note: `limited by the source's size: for a disk of ρ = ${formatPlain(sourceRadiusThetaE ?? 0, 3)} θ_E it differs by more than 1% from a point source's ${formatPlain(peak.pointSourceMagnification, 4)}; ${FINITE_SOURCE_METHOD}` }
+        ? { note: `limited by the source's size: for a disk of ρ = ${formatSignificant(sourceRadiusThetaE ?? 0, 3)} θ_E it differs by more than 1% from a point source's ${formatSignificant(peak.pointSourceMagnification, 4)}; ${FINITE_SOURCE_METHOD}` }
         : {}),
       ...(peak.magnification === 0 ? { note: "the source is behind the lens at closest approach: no image is seen" } : {}),
     },

@@ -16,7 +16,7 @@ import {
   MILLIARCSECOND_RAD,
   PARSEC_M,
 } from "@/lib/physics";
-import { superscript } from "@/lib/physics/quantity-vocabulary";
+import { DEFAULT_SIGNIFICANT_DIGITS, formatSignificant } from "@/lib/numbers/significant";
 
 export type DisplayKind = "angle" | "time" | "length" | "ratio";
 
@@ -39,41 +39,21 @@ export function unitLabel(unit: string): string {
 }
 
 /** Significant digits shown in the results panel; copying a row keeps the same text. */
-export const RESULT_DIGITS = 4;
-
-/** "1.5e-7" → "1.5 × 10⁻⁷": the exponent as astronomers write it; plain numbers pass unchanged. */
-function withPowerOfTen(text: string): string {
-  // Split by index, not by a pattern: the text's number is "<mantissa>e<exponent>", then " <unit>".
-  const space = text.indexOf(" ");
-  const number = space < 0 ? text : text.slice(0, space);
-  const exponentAt = number.indexOf("e");
-  if (exponentAt < 0) return text;
-  const exponent = superscript(Number(number.slice(exponentAt + 1)));
-  return `${number.slice(0, exponentAt)} × 10${exponent}${space < 0 ? "" : text.slice(space)}`;
-}
+export const RESULT_DIGITS = DEFAULT_SIGNIFICANT_DIGITS;
 
 /** Formats `value` (radians, seconds, metres, or a plain ratio) in `unit`, with the unit written for people. */
 export function formatInUnit(kind: DisplayKind, value: number, unit: string, digits = RESULT_DIGITS): string {
-  if (!Number.isFinite(value)) return value > 0 ? "∞" : value < 0 ? "−∞" : "—";
+  if (!Number.isFinite(value)) return formatSignificant(value);
   switch (kind) {
     case "angle":
-      return withPowerOfTen(formatAngle(value, unit, digits).replace(/ uas$/, " µas"));
+      return formatAngle(value, unit, digits).replace(/ uas$/, " µas");
     case "time":
-      return withPowerOfTen(formatTime(value, unit, digits).replace(/ us$/, " µs"));
+      return formatTime(value, unit, digits).replace(/ us$/, " µs");
     case "length":
-      return withPowerOfTen(formatDistance(value / PARSEC_M, unit, digits));
+      return formatDistance(value / PARSEC_M, unit, digits);
     case "ratio":
-      return formatPlain(value, digits);
+      return formatSignificant(value, digits);
   }
-}
-
-/** A dimensionless number in the same style (× 10ⁿ outside 1e-3..1e6). */
-export function formatPlain(value: number, digits = RESULT_DIGITS): string {
-  if (!Number.isFinite(value)) return value > 0 ? "∞" : value < 0 ? "−∞" : "—";
-  const magnitude = Math.abs(value);
-  if (value === 0 || (magnitude >= 1e-3 && magnitude < 1e6)) return String(Number(value.toPrecision(digits)));
-  const [mantissa, exponent] = value.toExponential(digits - 1).split("e");
-  return withPowerOfTen(`${Number(mantissa)}e${Number(exponent)}`);
 }
 
 /** Longest span still read in days (our rule, from the issue: "days → years above ~1,000 d"). */

@@ -37,6 +37,7 @@ import { proposalQuantities, proposalSettingsErrors } from "@/lib/workspace/prop
 import { readQuantityField, type QuantitySpec } from "@/lib/workspace/quantity-field";
 import { targetQuantities } from "@/lib/workspace/target-schema";
 import { fieldLabels, type Sketch, type SketchField } from "./sketch-state";
+import { roundToSignificant } from "@/lib/numbers/significant";
 
 /** Most rays the bench traces at once (issue 4: "count up to 5,000"). */
 export const MAX_RAY_COUNT = 5000;
@@ -251,7 +252,7 @@ export const SIGMA_WARNING_KM_PER_S = 1500;
 
 function readGeometry(reader: FieldReader, sketch: Sketch): Pick<SketchInputs, "geometry" | "redshifts"> {
   if (sketch.geometry === "distance") {
-    const distanceMessage = "Distances lie between 1e-6 pc (0.2 au) and 20 Gpc";
+    const distanceMessage = `Distances lie between ${boundText(acceptedRanges.distancePc.min)} pc (0.2 au) and 20 Gpc`;
     const dLensPc = reader.read("dl", (text) => parseDistance(text, { defaultUnit: defaultUnits.dl }), within(acceptedRanges.distancePc, distanceMessage));
     const dSourcePc = reader.read("ds", (text) => parseDistance(text, { defaultUnit: defaultUnits.ds }), (value) => {
       if (!isInRange(value, acceptedRanges.distancePc)) return distanceMessage;
@@ -294,7 +295,7 @@ function readSourceOffset(reader: FieldReader, sketch: Sketch): SourceOffsetInpu
  * Twelve significant digits: a unit conversion ("4 kpc" → 3999.9999999999995 pc, "6 h" in seconds and
  * back) comes back as typed, so a stored value carried through a link is the stored value again.
  */
-export const tidy = (value: number) => Number(value.toPrecision(12));
+export const tidy = (value: number) => roundToSignificant(value, 12);
 
 /** The proposal's instrument: the bench's typed fields in a proposal's stored units (mas, h, d, mm, km). */
 function readInstrument(reader: FieldReader, sketch: Sketch): FeasibilitySettings["instrument"] {

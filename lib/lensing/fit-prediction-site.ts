@@ -20,7 +20,7 @@ import { formatUtcClock } from "@/lib/astro/sky-format";
 import { addDaysIso } from "@/lib/astro/time";
 import type { ObservingSchedule, ScheduleGapReason, TimeSpanJd } from "@/lib/schedule/types";
 import { skyAtTimes } from "@/lib/schedule/visit-sky";
-import { formatNumberForPeople } from "@/lib/physics/units";
+import { formatSignificant } from "@/lib/numbers/significant";
 import type { FitPrediction } from "./fit-prediction";
 import { firstVisitFrom, gapAt, isInCycle } from "./science-case-schedule";
 import { dateWords, dayWords, gapReasonWords, visitsWords } from "./science-case-words";
@@ -90,7 +90,7 @@ export function sitePeakOutlook(input: { prediction: Pick<FitPrediction, "t0Days
   const start = firstVisitFrom(schedule.visitsJdUtc, peakJdUtc - sigmaDays);
   const end = firstVisitFrom(schedule.visitsJdUtc, peakJdUtc + sigmaDays);
   const visitsInSigmaJdUtc = schedule.visitsJdUtc.slice(start, end);
-  const peak = `Peak ${dateWords(peakJdUtc)} ± ${formatNumberForPeople(sigmaDays, SIGMA_DIGITS)} d`;
+  const peak = `Peak ${dateWords(peakJdUtc)} ± ${formatSignificant(sigmaDays, SIGMA_DIGITS)} d`;
   const visits = ` ${visitsWords(visitsInSigmaJdUtc.length)} of the schedule ${visitsInSigmaJdUtc.length === 1 ? "starts" : "start"} within t0 ± 1σ.`;
 
   const index = nightIndexOf(schedule, peakJdUtc);

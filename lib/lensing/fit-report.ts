@@ -8,6 +8,7 @@ import { magnitudeOfFlux } from "@/lib/event-photometry/reference-magnitude";
 import { formatUtcDateTime } from "@/lib/astro/sky-format";
 import type { ApplyFitRequest } from "@/lib/workspace/fit-revision";
 import type { PointLensFit } from "./fit";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** The nonlinear parameters in the fit's covariance order, with their label and unit on the page. */
 const parameterLabels: Record<string, { label: string; unit: string }> = {
@@ -31,7 +32,7 @@ export function sigmaOf(fit: Pick<PointLensFit, "parameterOrder" | "covariance">
  * six significant digits when σ is not known.
  */
 export function valueWithSigma(value: number, sigma: number): string {
-  if (!Number.isFinite(sigma) || sigma <= 0) return `${Number(value.toPrecision(6))} (no error: the covariance is singular)`;
+  if (!Number.isFinite(sigma) || sigma <= 0) return `${formatSignificant(value, 6)} (no error: the covariance is singular)`;
   const decimals = Math.min(12, Math.max(0, 1 - Math.floor(Math.log10(sigma))));
   return `${value.toFixed(decimals)} ± ${sigma.toFixed(decimals)}`;
 }
@@ -54,7 +55,7 @@ export function fitParameterRows(fit: PointLensFit): FitParameterRow[] {
     if (value === undefined || labels === undefined) return [];
     const sigma = sigmaOf(fit, name);
     const unit = labels.unit === "" ? "" : ` ${labels.unit}`;
-    const text = name === "t0Days" ? `${formatUtcDateTime(value)} ± ${Number.isFinite(sigma) ? Number(sigma.toPrecision(2)) : "?"} d (JD ${value.toFixed(4)})` : `${valueWithSigma(value, sigma)}${unit}`;
+    const text = name === "t0Days" ? `${formatUtcDateTime(value)} ± ${Number.isFinite(sigma) ? formatSignificant(sigma, 2) : "?"} d (JD ${value.toFixed(4)})` : `${valueWithSigma(value, sigma)}${unit}`;
     return [{ name, label: labels.label, value, sigma, text }];
   });
 }

@@ -43,6 +43,7 @@ import { pointLensMagnification } from "@/lib/physics/point-lens";
 import { finiteSourceMagnification } from "./finite-source";
 import { checkPhotometry, FitInputError, type CheckedPhotometry, type PhotometryPoint } from "./fit-input";
 import { parallaxOffsetsAu } from "./fit-parallax";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 export { FitInputError, MAX_FIT_ROWS } from "./fit-input";
 export type { PhotometryPoint } from "./fit-input";
@@ -479,12 +480,12 @@ function search(problem: Problem, start: number[], progress: FitProgress, stage:
     const isStationary = previousChi2 - chi2 <= STATIONARY_CHI2_CHANGE * chi2;
     const noise = Math.max(1, chi2 / dof);
     if (decrease <= CONVERGED_CHI2_DECREASE * noise || (isStationary && decrease <= STATIONARY_CHI2_DECREASE * noise)) return { q, chi2, converged: true, reason: null, iterations };
-    if (isStationary) return { q, chi2, converged: false, reason: `the search stalled: χ² no longer falls, yet a step is predicted to lower it by ${decrease.toPrecision(2)}`, iterations };
+    if (isStationary) return { q, chi2, converged: false, reason: `the search stalled: χ² no longer falls, yet a step is predicted to lower it by ${formatSignificant(decrease, 2)}`, iterations };
     lastFall = previousChi2 - chi2;
     previousChi2 = chi2;
   }
   const chi2 = problem.chi2At(q);
-  return { q, chi2, converged: false, reason: `χ² was still falling (by ${lastFall.toPrecision(2)} in the last ${ROUND_ITERATIONS} iterations) after ${iterations} iterations`, iterations };
+  return { q, chi2, converged: false, reason: `χ² was still falling (by ${formatSignificant(lastFall, 2)} in the last ${ROUND_ITERATIONS} iterations) after ${iterations} iterations`, iterations };
 }
 
 /** t0 candidates (days, relative to the frame): each dataset's most significant bright point and its brightest 5-point run. */

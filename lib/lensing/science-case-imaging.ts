@@ -9,7 +9,7 @@ import { MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { CONTRAST_RULE, gradeAtLeast, interferometerBeamRad, RESOLUTION_RULE, SHADOW_RULE, type KnownVerdict } from "./feasibility-rules";
 import { missingInput, type Question } from "./science-case-answer";
 import type { CaseAnswer, InstrumentSettings, ScienceCaseInputs } from "./science-cases";
-import { formatNumberForPeople } from "@/lib/physics/units";
+import { formatSignificant } from "@/lib/numbers/significant";
 import { angleWords, numberWords } from "./science-case-words";
 
 /**
@@ -142,7 +142,7 @@ function photonRingAnswer(inputs: ScienceCaseInputs): CaseAnswer {
   };
   const { photonRingDiameterRad: ringRad, shadowDiameterRad: shadowRad } = inputs.solution;
   if (ringRad === null || shadowRad === null) return { ...question, verdict: "infeasible", figure: "no photon ring", sentence: EXTENDED };
-  const ring = `The first relativistic Einstein ring (n = 1) is ${angleWords(ringRad)} across, ${formatNumberForPeople(ringRad / shadowRad, 5)} times the shadow's`;
+  const ring = `The first relativistic Einstein ring (n = 1) is ${angleWords(ringRad)} across, ${formatSignificant(ringRad / shadowRad, 5)} times the shadow's`;
   const interferometer = inputs.instrument.interferometer;
   if (interferometer === null) return missingInput(question, `${ring}. ${NO_INTERFEROMETER}`, angleWords(ringRad));
   const graded = againstBeam(ringRad, interferometer);

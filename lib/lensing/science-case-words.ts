@@ -1,6 +1,6 @@
 /**
  * How the science cases write their numbers and the schedule's gaps: numbers by the product's
- * formatNumberForPeople (three significant digits), angles in µas, mas or arcsec (rotations up to
+ * formatSignificant (three significant digits), angles in µas, mas or arcsec (rotations up to
  * arcmin and degrees), speeds in km/s, times in s, h, d or yr, whichever keeps the number short, and
  * dates as UTC date and clock.
  */
@@ -8,14 +8,14 @@
 import { formatUtcDateTime } from "@/lib/astro/sky-format";
 import { dateFromJdUtc } from "@/lib/astro/time";
 import { ARCSECOND_RAD, DAY_S, JULIAN_YEAR_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
-import { formatNumberForPeople } from "@/lib/physics/units";
+import { formatSignificant } from "@/lib/numbers/significant";
 import type { ScheduleGapReason } from "@/lib/schedule/types";
 
 const DIGITS = 3;
 
 /** A plain number, three significant digits ("10.1", "3.3 × 10⁻⁷"). */
 export function numberWords(value: number): string {
-  return formatNumberForPeople(value, DIGITS);
+  return formatSignificant(value, DIGITS);
 }
 
 /** An angle given in radians: µas below 1 mas, mas below 1″, else arcsec. */

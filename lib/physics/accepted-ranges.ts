@@ -7,6 +7,7 @@
  */
 
 import { PARSEC_M, SOLAR_MASS_LENGTH_M } from "./constants";
+import { formatExactForPeople } from "@/lib/numbers/significant";
 
 /** A closed range of accepted values, in the unit the key names. */
 export interface AcceptedRange {
@@ -93,19 +94,20 @@ export const acceptedRanges = {
 } as const satisfies Record<string, AcceptedRange>;
 
 /**
- * A bound as a user reads it and may type it back: "1000", "20 000 000 000", "0.001", "1e-6", "1e16".
+ * A bound as a user reads it and may type it back: "1000", "20 000 000 000", "0.001", "1 × 10⁻⁶",
+ * "1 × 10¹⁶" (powers of ten as every number for people is written: `formatExactForPeople`).
  * Digits are grouped in threes by a narrow no-break space from five digits on (SI Brochure, 9th ed.,
  * §5.4.4), never by a comma: the quantity parser refuses "3,000" as ambiguous (3000 or 3.000).
  */
 export function boundText(value: number): string {
-  if (!(value >= 1e-3 && value < 1e12)) return value.toExponential().replace("e+", "e");
+  if (!(value >= 1e-3 && value < 1e12)) return formatExactForPeople(value);
   const [whole, fraction] = String(Number(value.toFixed(6))).split(".");
   let grouped = whole;
   if (whole.length > 4) for (let end = whole.length - 3; end > 0; end -= 3) grouped = `${grouped.slice(0, end)}\u202f${grouped.slice(end)}`;
   return fraction === undefined ? grouped : `${grouped}.${fraction}`;
 }
 
-/** "1e-6 and 1000": a range as the bench's messages say it. */
+/** "1 × 10⁻⁶ and 1000": a range as the bench's messages say it. */
 export function rangeText(range: AcceptedRange): string {
   return `${boundText(range.min)} and ${boundText(range.max)}`;
 }

@@ -16,8 +16,9 @@
 import type { Unit } from "mathjs";
 import { SOLAR_MASS_LENGTH_M, SOLAR_MASS_TIME_S, SPEED_OF_LIGHT_M_PER_S } from "./constants";
 import { readLeadingNumber } from "./quantity-text";
-import { math, readUnit, superscript, unitLabel, type UnitFactor } from "./quantity-vocabulary";
+import { math, readUnit, unitLabel, type UnitFactor } from "./quantity-vocabulary";
 import { readCompoundAngle } from "./sexagesimal-angle";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** The quantities the parsers read; each error names one of them. */
 export type QuantityKind = "mass" | "distance" | "length" | "wavelength" | "angle" | "velocity" | "proper motion" | "time" | "number";
@@ -358,22 +359,6 @@ function defaultDisplayUnit(kind: Exclude<QuantityKind, "number">, value: number
   return RESULT_UNITS[kind];
 }
 
-/**
- * A number for people, to `significantDigits` significant digits with trailing zeros dropped: plain
- * from 0.001 to below 100000, otherwise "4.1 × 10⁶" with superscript exponent; a real minus sign
- * (U+2212); "—" for NaN and "∞", "−∞" for infinities.
- */
-export function formatNumberForPeople(value: number, significantDigits = 4): string {
-  if (Number.isNaN(value)) return "—";
-  if (!Number.isFinite(value)) return value > 0 ? "∞" : "−∞";
-  if (value === 0) return "0";
-  const [mantissa, exponentText] = Math.abs(value).toExponential(significantDigits - 1).split("e");
-  const exponent = Number(exponentText);
-  const sign = value < 0 ? "−" : "";
-  if (exponent >= -3 && exponent < 5) return `${sign}${String(Number(Math.abs(value).toPrecision(significantDigits)))}`;
-  return `${sign}${String(Number(mantissa))} × 10${superscript(exponent)}`;
-}
-
 /** A value followed by its unit label; the degree, minute and second signs follow the number unspaced. */
 function withLabel(number: string, label: string): string {
   return ["°", "′", "″"].includes(label) ? `${number}${label}` : `${number} ${label}`;
@@ -397,24 +382,16 @@ export function echoQuantity(kind: QuantityKind, text: string, options?: ParseOp
     throw error;
   }
   const { value, parsed } = reading;
-  if (kind === "number" || parsed === undefined) return { ok: true, text: `= ${formatNumberForPeople(value)}`, assumedUnit: false };
+  if (kind === "number" || parsed === undefined) return { ok: true, text: `= ${formatSignificant(value)}`, assumedUnit: false };
   const display = readUnit(options?.displayUnit ?? defaultDisplayUnit(kind, value));
   const result = readUnit(RESULT_UNITS[kind]);
   if (!display.ok || !result.ok || !display.unit.equalBase(result.unit)) throw new Error(`echoQuantity: '${options?.displayUnit}' is not a ${kind} unit`);
-  const shown = withLabel(formatNumberForPeople(value * result.one.to(display.unit).toNumber()), unitLabel(display.factors));
+  const shown = withLabel(formatSignificant(value * result.one.to(display.unit).toNumber()), unitLabel(display.factors));
   const notes: string[] = [];
-  if (kind === "wavelength" && parsed.index === 1) notes.push(withLabel(formatNumberForPeople(parsed.value), unitLabel(parsed.unit.factors)));
+  if (kind === "wavelength" && parsed.index === 1) notes.push(withLabel(formatSignificant(parsed.value), unitLabel(parsed.unit.factors)));
   if (kind === "mass" && parsed.index > 0) notes.push(`typed as GM/c${parsed.index === 1 ? "²" : "³"}`);
   if (parsed.isAssumed) notes.push(`no unit typed: taken as ${unitLabel(parsed.unit.factors)}`);
   return { ok: true, text: `= ${shown}${notes.map((note) => ` (${note})`).join("")}`, assumedUnit: parsed.isAssumed };
-}
-
-/** Formats a number to `significantDigits` digits, plain in [1e-3, 1e6), exponential outside. */
-function formatNumber(value: number, significantDigits: number): string {
-  const magnitude = Math.abs(value);
-  if (value === 0 || (magnitude >= 1e-3 && magnitude < 1e6)) return String(Number(value.toPrecision(significantDigits)));
-  const [mantissa, exponent] = value.toExponential(significantDigits - 1).split("e");
-  return `${String(Number(mantissa))}e${Number(exponent)}`;
 }
 
 /** A unit given to a formatter, read by the same vocabulary as typed units. */
@@ -432,8 +409,8 @@ function formatIn(kind: QuantityKind, value: number, fromUnit: string, toUnit: s
   const target = knownUnit(kind, toUnit);
   const from = math.unit(1, fromUnit);
   if (!from.equalBase(target)) throw new QuantityError(kind, toUnit, `is not ${articleFor(kind)} ${kind} unit`);
-  if (!Number.isFinite(value)) return formatNumberForPeople(value);
-  return `${formatNumber(value * from.to(target).toNumber(), significantDigits)} ${toUnit}`;
+  if (!Number.isFinite(value)) return formatSignificant(value);
+  return `${formatSignificant(value * from.to(target).toNumber(), significantDigits)} ${toUnit}`;
 }
 
 /**

@@ -8,7 +8,7 @@
  */
 import { interpolateCividis, rgb } from "d3";
 import type { AssembledBundle } from "./assemble-bundle";
-import { formatPlain } from "../bench/display-units";
+import { formatSignificant, roundToSignificant } from "@/lib/numbers/significant";
 
 export type RayColouring = "fate" | "deflection" | "arrival";
 
@@ -59,12 +59,12 @@ function logTicks(min: number, max: number): QuantityScale["ticks"] {
   const ticks: QuantityScale["ticks"] = [];
   for (let decade = 10 ** Math.floor(Math.log10(min)); decade <= max; decade *= 10) {
     for (const step of [1, 2, 5]) {
-      const value = Number((step * decade).toPrecision(6));
-      if (value >= min * (1 - 1e-9) && value <= max * (1 + 1e-9)) ticks.push({ fraction: fraction(value), label: formatPlain(value, 3) });
+      const value = roundToSignificant(step * decade, 6);
+      if (value >= min * (1 - 1e-9) && value <= max * (1 + 1e-9)) ticks.push({ fraction: fraction(value), label: formatSignificant(value, 3) });
     }
   }
   if (ticks.length >= 2) return ticks;
-  return [min, max].map((value) => ({ fraction: fraction(value), label: formatPlain(value, 3) }));
+  return [min, max].map((value) => ({ fraction: fraction(value), label: formatSignificant(value, 3) }));
 }
 
 /** The logarithmic scale of `values` (the finite, positive ones); undefined when there are none. */

@@ -5,7 +5,8 @@
  * Lengths in units of M = GM/c². Pure (no DOM), for the view, the figure and their tests.
  */
 import { SOLAR_MASS_LENGTH_M } from "@/lib/physics";
-import { formatInUnit, formatPlain, naturalLengthUnit } from "../bench/display-units";
+import { formatInUnit, naturalLengthUnit } from "../bench/display-units";
+import { formatSignificant, roundToSignificant } from "@/lib/numbers/significant";
 
 /** Horizon and photon-sphere radii of a Schwarzschild mass, units of M. */
 const HORIZON_M = 2;
@@ -63,14 +64,14 @@ export function scaleRings(outerRadiusM: number, surfaceRadiusM: number, massSol
   });
   const rings =
     surfaceRadiusM > 0
-      ? [ring("surface", surfaceRadiusM, `lens surface, R = ${formatPlain(surfaceRadiusM, 3)} M`)]
+      ? [ring("surface", surfaceRadiusM, `lens surface, R = ${formatSignificant(surfaceRadiusM, 3)} M`)]
       : [ring("horizon", HORIZON_M, `horizon, r = ${HORIZON_M} M`), ring("photon-sphere", PHOTON_SPHERE_M, `photon sphere, r = ${PHOTON_SPHERE_M} M`)];
   if (!(outerRadiusM > 0) || !Number.isFinite(outerRadiusM)) return rings;
   const stepM = roundDownToNice(outerRadiusM / MIN_ROUND_RINGS);
   const innerM = Math.max(INNER_CLEAR_M, surfaceRadiusM);
   for (let k = 1; k * stepM <= outerRadiusM * (1 + 1e-9); k++) {
-    const radiusM = Number((k * stepM).toPrecision(12));
-    if (radiusM > innerM) rings.push(ring("round", radiusM, `${formatPlain(radiusM)} M`));
+    const radiusM = roundToSignificant(k * stepM, 12);
+    if (radiusM > innerM) rings.push(ring("round", radiusM, `${formatSignificant(radiusM)} M`));
   }
   return rings;
 }

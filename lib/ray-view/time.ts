@@ -5,7 +5,8 @@
  * in TypeScript for the saved figure and the tests and in GLSL for the view's shaders, side by side.
  */
 import { SOLAR_MASS_TIME_S } from "@/lib/physics";
-import { formatInUnit, formatPlain, naturalTimeUnit } from "../bench/display-units";
+import { formatInUnit, naturalTimeUnit } from "../bench/display-units";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** Positions of the slider; the last shows every path whole. */
 export const TIME_SLIDER_STEPS = 400;
@@ -57,7 +58,7 @@ export function pathUpToTime(vertices: Float32Array, timesM: Float32Array, first
 /** The slider's reading: "all paths whole", or "t = 120 M" and, for a known mass, "(59.1 µs)". */
 export function sliderTimeText(timeM: number, massSolar: number | undefined): string {
   if (!Number.isFinite(timeM)) return "all paths whole";
-  const inM = `t = ${formatPlain(timeM, 3)} M`;
+  const inM = `t = ${formatSignificant(timeM, 3)} M`;
   if (massSolar === undefined) return inM;
   const seconds = timeM * massSolar * SOLAR_MASS_TIME_S;
   return `${inM} (${formatInUnit("time", seconds, naturalTimeUnit(seconds), 3)})`;

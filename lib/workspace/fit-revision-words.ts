@@ -4,11 +4,11 @@
  * the activity feed. Shared by the data access (the feed's entries) and the revisions list.
  */
 import { standardBand } from "@/lib/photometry/bands";
-import { formatNumberForPeople } from "@/lib/physics/units";
 import { daysWords, numberWords } from "@/lib/lensing/science-case-words";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { CUSTOM_BAND_ID } from "@/lib/workspace/photometry-schema";
 import { fitRevisionFields, type FitRevisionField, type FitRevisionValues, type FitSummary } from "@/lib/workspace/fit-revision";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 /** Each field as the revisions list names it. */
 export const fitRevisionFieldLabels: Record<FitRevisionField, string> = {
@@ -52,7 +52,7 @@ export function fitRevisionValueWords(field: FitRevisionField, value: number | s
       return daysWords(value);
     // Magnitudes to the hundredth, as photometry quotes them (common practice).
     case "sourceMagnitude":
-      return `${formatNumberForPeople(value, 4)} mag`;
+      return `${formatSignificant(value, 4)} mag`;
     default:
       return numberWords(value);
   }

@@ -11,7 +11,6 @@ import { boundText, type AcceptedRange } from "@/lib/physics/accepted-ranges";
 import {
   MAX_QUANTITY_CHARS,
   QuantityError,
-  formatNumberForPeople,
   parseAngle,
   parseDistance,
   parseLength,
@@ -23,6 +22,7 @@ import {
   parseWavelength,
   type QuantityKind,
 } from "@/lib/physics/units";
+import { formatSignificant, roundToSignificant } from "@/lib/numbers/significant";
 
 /** How one field reads its text: the parser's kind, the stored unit and what to suggest typing. */
 export interface QuantitySpec {
@@ -63,7 +63,7 @@ const toStored: Record<string, (parsed: number) => number> = {
 // A value typed with a unit is rounded to 15 significant digits: a unit conversion (a product of
 // doubles) leaves noise in the 16th-17th digit, and "2.2 um" should be stored as 0.0022 mm, not
 // 0.0021999999999999997. No conversion factor of the parser is known to more digits than that.
-const tidy = (value: number) => Number(value.toPrecision(15));
+const tidy = (value: number) => roundToSignificant(value, 15);
 
 /** A length that may be zero or negative (a site below sea level): the parser reads magnitudes only. */
 function signedLengthM(text: string, unit: string): number {
@@ -184,7 +184,7 @@ export function quantityEcho(spec: QuantitySpec, text: string): { ok: true; text
   const reading = readQuantityField(spec, text);
   if (!reading.ok) return { ok: false, message: reading.message };
   // The echo formats the stored value itself (in the stored unit), so it shows exactly what is saved.
-  const shown = `= ${formatNumberForPeople(reading.value)}`;
+  const shown = `= ${formatSignificant(reading.value)}`;
   // A plain number typed as it will be stored needs no echo; "0,5" read as 0.5 does.
   if (spec.unitWords === undefined) return String(reading.value) === text.trim() ? null : { ok: true, text: shown };
   // No space before a degree sign (SI Brochure, 9th ed., §5.4.3); other units follow a space.

@@ -3,7 +3,7 @@
  * over the visits each science case needs), and the sentence the proposal page, the technical summary
  * and its PDF write for it.
  */
-import { formatNumberForPeople } from "@/lib/physics/units";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 export interface ProposalTimeRequest {
   /** Σ of the targets' time requests, h. */
@@ -31,6 +31,6 @@ export function timeRequestSentence(request: ProposalTimeRequest): string {
     return "no photon budget yet: set the telescope aperture in the proposal settings and each target's source magnitude";
   }
   const unbudgeted = request.targetCount - request.budgetedTargets;
-  const hours = `${formatNumberForPeople(request.totalHours, 3)} h (exposures and overheads over the visits each case needs) for ${request.budgetedTargets} of ${request.targetCount} targets`;
+  const hours = `${formatSignificant(request.totalHours, 3)} h (exposures and overheads over the visits each case needs) for ${request.budgetedTargets} of ${request.targetCount} targets`;
   return unbudgeted > 0 ? `${hours}; ${unbudgeted} without a photon budget (see each target's depth answer)` : hours;
 }

@@ -78,7 +78,7 @@ describe("editing and deleting targets and proposals in the browser", () => {
     await edit.getByLabel("Lens mass (M☉)").fill("-2");
     await edit.getByRole("button", { name: "Save changes" }).click();
     await edit.getByLabel("Lens mass (M☉)").and(page.locator('[aria-invalid="true"]')).waitFor();
-    await expect(edit.getByRole("alert").first().textContent()).resolves.toBe("The lens mass is from 1e-15 to 1e16 solar masses (an asteroid to ten times the largest galaxy cluster).");
+    await expect(edit.getByRole("alert").first().textContent()).resolves.toBe("The lens mass is from 1 × 10⁻¹⁵ to 1 × 10¹⁶ solar masses (an asteroid to ten times the largest galaxy cluster).");
 
     await edit.getByLabel("Lens mass (M☉)").fill("2");
     await edit.getByLabel("Right ascension").fill("18 00 00");

@@ -196,7 +196,7 @@ describe("who may apply and undo, and what is refused", () => {
       [{ ...fit, einsteinTimeDays: "27.6" }, "einsteinTimeDays", /^The fit's Einstein time t_E must be a number\.$/],
       [{ ...fit, t0JdUtc: 2451544.5 - 1 }, "t0JdUtc", /^The fit's peak time t0 is a Julian date \(UTC\) from 2451544\.5/],
       [{ ...fit, t0JdUtc: 2488069.5 }, "t0JdUtc", /before 2488069\.5 \(2100\)/],
-      [{ ...fit, u0: 0 }, "u0", /^The fit's impact parameter u0 is from 1e-6 to 1000 Einstein radii/],
+      [{ ...fit, u0: 0 }, "u0", /^The fit's impact parameter u0 is from 1 × 10⁻⁶ to 1000 Einstein radii/],
       [{ ...fit, blendFraction: 0 }, "blendFraction", /^The blend fraction f_s from the fit is from 0\.001 to 1/],
       [{ ...fit, blendFraction: 1.2 }, "blendFraction", /blend fraction f_s/],
       [{ ...fit, rho: 50 }, "rho", /^The fit's source radius ρ is from/],

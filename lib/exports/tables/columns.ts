@@ -6,7 +6,8 @@
 import { z } from "zod";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { answersLine } from "@/lib/workspace/case-verdict-words";
-import { headerOf, roundSignificant } from "./data-table";
+import { machineSignificantText, roundToSignificant } from "@/lib/numbers/significant";
+import { headerOf } from "./data-table";
 
 export { headerOf };
 
@@ -169,13 +170,16 @@ export function isWrittenAsStored(chosen: ChosenColumn): boolean {
 /** A cell as a data format writes it: a double rounded to `dataDigitsOf`, anything else as it is. */
 export function dataCellOf(row: TargetView, chosen: ChosenColumn): CellValue {
   const value = cellOf(row, chosen.column);
-  return typeof value === "number" && chosen.column.kind === "double" ? roundSignificant(value, dataDigitsOf(chosen)) : value;
+  return typeof value === "number" && chosen.column.kind === "double" ? roundToSignificant(value, dataDigitsOf(chosen)) : value;
 }
 
-/** A cell as text: doubles at their significant digits (shortest form that holds them), "" for null. */
+/**
+ * A cell as LaTeX's and the summary's text: doubles at their significant digits in the machine form
+ * (`machineSignificantText`, which the LaTeX writer sets as a power of ten), "" for null.
+ */
 export function cellText(value: CellValue, chosen: ChosenColumn): string {
   if (value === null) return "";
-  if (typeof value === "number") return chosen.column.kind === "double" ? String(roundSignificant(value, chosen.digits)) : String(value);
+  if (typeof value === "number") return chosen.column.kind === "double" ? machineSignificantText(value, chosen.digits) : String(value);
   return value;
 }
 

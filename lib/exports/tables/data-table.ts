@@ -7,6 +7,7 @@ import { XMLBuilder } from "fast-xml-parser";
 import Papa from "papaparse";
 import { Document, isMap, isSeq, visit } from "yaml";
 import type { Provenance } from "@/lib/exports/provenance";
+import { roundToSignificant } from "@/lib/numbers/significant";
 import { xmlCharacters } from "./xml";
 
 export interface DataColumn {
@@ -44,11 +45,6 @@ export function headerOf(column: Pick<DataColumn, "label" | "unit">): string {
   return column.unit === "" ? column.label : `${column.label} [${column.unit}]`;
 }
 
-/** Rounds to `digits` significant digits (IEEE round-trip of `toPrecision`). */
-export function roundSignificant(value: number, digits: number): number {
-  return Number(value.toPrecision(digits));
-}
-
 /**
  * A cell as the data formats hold it: a double at its column's significant digits, NaN as nothing,
  * a whole number as it is, a text as it is.
@@ -56,7 +52,7 @@ export function roundSignificant(value: number, digits: number): number {
 function writtenCell(value: DataCell, column: DataColumn): DataCell {
   if (typeof value !== "number") return value;
   if (Number.isNaN(value)) return null;
-  if (column.kind === "double" && column.digits !== undefined && Number.isFinite(value)) return roundSignificant(value, column.digits);
+  if (column.kind === "double" && column.digits !== undefined && Number.isFinite(value)) return roundToSignificant(value, column.digits);
   return value;
 }
 

@@ -68,7 +68,7 @@ describe("Einstein radius of a point lens", () => {
 describe("peak magnification", () => {
   it("refuses u0 = β = 1e-9 (the issue's unbounded peak) and accepts the range's floor, 1e-6", () => {
     const tiny = parseSketch(sketch({ beta: "1e-9" }));
-    expect(tiny.ok || tiny.fieldErrors.beta).toMatch(/^β must lie between 1e-6 and 1000/);
+    expect(tiny.ok || tiny.fieldErrors.beta).toMatch(/^β must lie between 1 × 10⁻⁶ and 1000/);
     expect(parseSketch(sketch({ beta: "1e-6" })).ok).toBe(true);
   });
 

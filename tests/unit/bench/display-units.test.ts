@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { AUTO_UNIT, displayUnit, formatInUnit, formatPlain, readUnitChoices, withUnitChoice } from "@/lib/bench/display-units";
+import { AUTO_UNIT, displayUnit, formatInUnit, readUnitChoices, withUnitChoice } from "@/lib/bench/display-units";
 import { demoSketch, sketchFromSearchParams, sketchToQueryString } from "@/lib/bench/sketch-state";
 import { AU_M, DAY_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics";
 
@@ -34,10 +34,11 @@ describe("readable result units", () => {
     expect(displayUnit("ratio", 3, "yr")).toBe("");
   });
 
-  it("writes powers of ten as astronomers do, never as 1.746e6", () => {
-    expect(formatPlain(2.5e7)).toBe("2.5 × 10⁷");
-    expect(formatPlain(-3e-9)).toBe("-3 × 10⁻⁹");
-    expect(formatPlain(5.075)).toBe("5.075");
+  it("writes powers of ten as astronomers do, never as 1.746e6, ratios included", () => {
+    expect(formatInUnit("ratio", 2.5e7, "")).toBe("2.5 × 10⁷");
+    expect(formatInUnit("ratio", -3e-9, "")).toBe("−3 × 10⁻⁹");
+    expect(formatInUnit("angle", -1.5e-7 * MICROARCSECOND_RAD, "uas")).toBe("−1.5 × 10⁻⁷ µas");
+    expect(formatInUnit("ratio", Number.NaN, "")).toBe("—");
   });
 });
 

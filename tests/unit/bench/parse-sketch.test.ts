@@ -64,7 +64,7 @@ describe("parseSketch", () => {
     const parsed = parseSketch(sketch({ mass: "-1 Msun", beta: "0", cadence: "1 kg", rays: "5001", bmax: "0.1", clear: "0" }));
     if (parsed.ok) throw new Error("expected errors");
     expect(parsed.fieldErrors.mass).toMatch(/^Lens mass: '-1 Msun' .*greater than zero/);
-    expect(parsed.fieldErrors.beta).toBe("β must lie between 1e-6 and 1000 θ_E (closer, a real source's size caps the magnification)");
+    expect(parsed.fieldErrors.beta).toBe("β must lie between 1 × 10⁻⁶ and 1000 θ_E (closer, a real source's size caps the magnification)");
     expect(parsed.fieldErrors.clear).toBe("The clear-night fraction is from 0.01 to 1 (every night clear).");
     expect(parsed.fieldErrors.cadence).toMatch(/^Cadence: '1 kg' /);
     expect(parsed.fieldErrors.rays).toBe("The ray count must be a whole number from 1 to 5000");

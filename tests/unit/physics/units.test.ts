@@ -193,11 +193,12 @@ describe("formatters", () => {
     expect(formatDistance(8100, "kpc")).toBe("8.1 kpc");
     expect(formatAngle(parseAngle("45 uas"), "uas")).toBe("45 uas");
     expect(formatAngle(parseAngle("1.2 arcsec"), "mas")).toBe("1200 mas");
-    expect(formatMass(4e6)).toBe("4e6 Msun");
+    expect(formatMass(4e6)).toBe("4 × 10⁶ Msun");
     expect(formatMass(1, "km")).toBe("1.477 km");
     expect(formatMass(1, "us")).toBe("4.925 us");
     expect(formatVelocity(250, "m/s")).toBe("250000 m/s");
-    expect(formatVelocity(2500, "m/s")).toBe("2.5e6 m/s");
+    expect(formatVelocity(2500, "m/s")).toBe("2.5 × 10⁶ m/s");
+    expect(formatVelocity(-2500, "m/s")).toBe("−2.5 × 10⁶ m/s");
     expect(formatProperMotion(parseProperMotion("5 mas/yr"))).toBe("5 mas/yr");
     expect(formatTime(86_400 * 3)).toBe("3 d");
     expect(() => formatDistance(1, "kg")).toThrow("distance: 'kg' is not a distance unit");

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import Link from "next/link";
 import { ConfirmDelete } from "@/components/shared/confirm-delete";
 import { TargetNightPanel } from "@/components/sky/target-night-panel";
-import { formatQuantity, formatWithUnit } from "@/components/shared/format";
+import { formatWithUnit } from "@/components/shared/format";
 import { CaseAnswers } from "@/components/shared/case-answers";
 import { PhotonBudgetPanel } from "@/components/targets/photon-budget-panel";
 import { TargetEditForm } from "@/components/targets/target-edit-form";
@@ -32,6 +32,7 @@ import { listNotes } from "@/lib/server/notes";
 import { loadForPage } from "@/lib/server/page-access";
 import { getProposal } from "@/lib/server/proposals";
 import { getTarget } from "@/lib/server/targets";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 export const metadata: Metadata = { title: "Target" };
 
@@ -57,9 +58,9 @@ function microlensingRows(figures: MicrolensingFigures | null): [string, string,
 /** The orbiting star's elements as the team gave them, when it gave any (a point-mass lens only). */
 function orbitRows(t: TargetView): [string, string][] {
   if (orbitFields.every((field) => t[field] == null)) return [];
-  const angle = (value: number | null | undefined) => (value == null ? "—" : `${formatQuantity(value)}°`);
+  const angle = (value: number | null | undefined) => (value == null ? "—" : `${formatSignificant(value)}°`);
   return [
-    ["Orbiting star: a, e", `${t.orbitSemiMajorAxisAu != null ? `${formatQuantity(t.orbitSemiMajorAxisAu)} au` : t.orbitSemiMajorAxisMas != null ? `${formatQuantity(t.orbitSemiMajorAxisMas)} mas at the lens distance` : "—"}, ${formatQuantity(t.orbitEccentricity)}`],
+    ["Orbiting star: a, e", `${t.orbitSemiMajorAxisAu != null ? `${formatSignificant(t.orbitSemiMajorAxisAu)} au` : t.orbitSemiMajorAxisMas != null ? `${formatSignificant(t.orbitSemiMajorAxisMas)} mas at the lens distance` : "—"}, ${formatSignificant(t.orbitEccentricity)}`],
     ["Orbital period", t.orbitPeriodDays == null ? "— (from the lens mass)" : formatWithUnit(t.orbitPeriodDays, "d")],
     ["Time of periapsis T_p", t.orbitPeriapsisJdUtc == null ? "—" : formatEventPeak(t.orbitPeriapsisJdUtc)],
     ["Inclination i, node Ω, argument ω", `${angle(t.orbitInclinationDeg)}, ${angle(t.orbitNodeDeg)}, ${angle(t.orbitPeriapsisArgumentDeg)}`],
@@ -82,33 +83,33 @@ export default async function TargetPage({
   const apiBase = `/api/proposals/${proposal.id}/targets/${target.id}`;
   const { instrument } = proposal;
   const parameters: [string, string][] = [
-    ["Right ascension (ICRS)", `${target.raText} (${formatQuantity(target.raDeg, 8)}°)`],
-    ["Declination (ICRS)", `${target.decText} (${formatQuantity(target.decDeg, 8)}°)`],
+    ["Right ascension (ICRS)", `${target.raText} (${formatSignificant(target.raDeg, 8)}°)`],
+    ["Declination (ICRS)", `${target.decText} (${formatSignificant(target.decDeg, 8)}°)`],
     ["Lens model", lensModelLabels[target.lensModel]],
-    ...(target.lensMassSolar != null ? [["Lens mass", `${formatQuantity(target.lensMassSolar)} M☉`] as [string, string]] : []),
-    ...(target.velocityDispersionKmPerS != null ? [["Velocity dispersion", `${formatQuantity(target.velocityDispersionKmPerS)} km/s`] as [string, string]] : []),
-    ...(target.lensDistancePc != null ? [["Lens / source distance", `${formatQuantity(target.lensDistancePc)} pc / ${formatQuantity(target.sourceDistancePc)} pc`] as [string, string]] : []),
+    ...(target.lensMassSolar != null ? [["Lens mass", `${formatSignificant(target.lensMassSolar)} M☉`] as [string, string]] : []),
+    ...(target.velocityDispersionKmPerS != null ? [["Velocity dispersion", `${formatSignificant(target.velocityDispersionKmPerS)} km/s`] as [string, string]] : []),
+    ...(target.lensDistancePc != null ? [["Lens / source distance", `${formatSignificant(target.lensDistancePc)} pc / ${formatSignificant(target.sourceDistancePc)} pc`] as [string, string]] : []),
     ...(target.lensRedshift != null ? [["Lens / source redshift", `${target.lensRedshift} / ${target.sourceRedshift}`] as [string, string]] : []),
-    ["Source offset", `${formatQuantity(target.sourceOffsetThetaE)} θE`],
+    ["Source offset", `${formatSignificant(target.sourceOffsetThetaE)} θE`],
     ["Relative proper motion", formatWithUnit(target.properMotionMasPerYr, "mas/yr")],
     ["Science case", target.scienceCase == null ? "Inferred from the model and numbers" : scienceCaseLabels[target.scienceCase]],
     ["Event peak t0", target.eventPeakJdUtc == null ? "—" : formatEventPeak(target.eventPeakJdUtc)],
     [
       "Source radius",
       target.sourceRadiusSolar != null
-        ? `${formatQuantity(target.sourceRadiusSolar)} R☉`
+        ? `${formatSignificant(target.sourceRadiusSolar)} R☉`
         : target.sourceRadiusThetaE != null
-          ? `ρ = ${formatQuantity(target.sourceRadiusThetaE)} θE`
+          ? `ρ = ${formatSignificant(target.sourceRadiusThetaE)} θE`
           : "— (a point source)",
     ],
-    ["Limb darkening", target.limbDarkeningU == null ? "— (a uniform disk)" : formatQuantity(target.limbDarkeningU)],
+    ["Limb darkening", target.limbDarkeningU == null ? "— (a uniform disk)" : formatSignificant(target.limbDarkeningU)],
     [
       "Source magnitude",
       target.sourceMagnitude == null
         ? "— (needed for the photon budget)"
-        : `${formatQuantity(target.sourceMagnitude)} in ${photometryBandOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId)?.label ?? "the proposal's own band (not described yet)"}`,
+        : `${formatSignificant(target.sourceMagnitude)} in ${photometryBandOf(proposal.photometry, target.sourceBand ?? proposal.photometry.bandId)?.label ?? "the proposal's own band (not described yet)"}`,
     ],
-    ["Blend fraction f_s", target.blendFraction == null ? "1 (no blended light)" : formatQuantity(target.blendFraction)],
+    ["Blend fraction f_s", target.blendFraction == null ? "1 (no blended light)" : formatSignificant(target.blendFraction)],
     ...orbitRows(target),
     ["Priority", String(target.priority)],
     ["Tags", target.tags.join(", ") || "—"],
@@ -119,7 +120,7 @@ export default async function TargetPage({
   const computed: [string, string, string][] = [
     ["einstein-radius", "Einstein radius", formatWithUnit(target.einsteinRadiusMas, "mas")],
     ["image-separation", "Image separation", formatWithUnit(target.imageSeparationMas, "mas")],
-    ["magnification", "Total magnification", formatQuantity(target.magnificationTotal)],
+    ["magnification", "Total magnification", formatSignificant(target.magnificationTotal)],
     ["time-delay", "Time delay between images", formatWithUnit(target.timeDelayDays, "d")],
     ["crossing-time", "Einstein crossing time", formatWithUnit(target.crossingTimeDays, "d")],
     ["shadow", "Shadow angular diameter", formatWithUnit(target.shadowDiameterMicroarcsec, "µas")],
