@@ -4,7 +4,7 @@ import Link from "next/link";
 import { useState } from "react";
 import useSWR from "swr";
 import { roleLabels, siteRoleLabels, siteRoles, type SiteRole } from "@/lib/workspace/roles";
-import type { AccountPage, AccountView } from "@/lib/server/admin";
+import type { AccountPage, AccountView } from "@/lib/workspace/account-view";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { ChoiceOptions } from "@/components/shared/choice-options";
 import { FormError } from "@/components/shared/field";

@@ -8,7 +8,7 @@ import { sketchToQueryString, type Sketch } from "@/lib/bench/sketch-state";
 import { TARGET_COSMOLOGY_TEXT, usesOtherCosmology } from "@/lib/bench/case-report";
 import { targetBodyFromSketch } from "@/lib/workspace/bench-link";
 import { roleCan, roleLabels } from "@/lib/workspace/roles";
-import type { ProposalSummary } from "@/lib/server/proposals";
+import type { ProposalSummary } from "@/lib/workspace/proposal-view";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { Field, FormError, buttonClass } from "@/components/shared/field";

@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import useSWR from "swr";
-import type { NoteView } from "@/lib/server/notes";
+import type { NoteView } from "@/lib/workspace/note-view";
 import { ApiError, apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/shared/field";
 import { formatDateTime } from "@/components/shared/format";

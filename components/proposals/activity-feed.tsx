@@ -1,7 +1,7 @@
 "use client";
 
 import useSWRInfinite from "swr/infinite";
-import type { ActivityEntry } from "@/lib/server/activity";
+import type { ActivityEntry } from "@/lib/workspace/activity-view";
 import { swrFetcher } from "@/components/shared/api-client";
 import { formatDateTime } from "@/components/shared/format";
 

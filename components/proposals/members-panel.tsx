@@ -2,8 +2,7 @@
 
 import useSWR from "swr";
 import { proposalRoles, roleLabels, type ProposalRole } from "@/lib/workspace/roles";
-import type { InvitationView } from "@/lib/server/invitations";
-import type { MemberView } from "@/lib/server/members";
+import type { InvitationView, MemberView } from "@/lib/workspace/member-view";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { ChoiceOptions } from "@/components/shared/choice-options";
 import { Field, FormError, quietButtonClass } from "@/components/shared/field";

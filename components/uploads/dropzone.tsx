@@ -1,7 +1,7 @@
 "use client";
 
 import { generateUploadDropzone } from "@uploadthing/react";
-import type { UploadRouter } from "@/app/api/uploadthing/core";
+import type { UploadRouter } from "@/lib/workspace/upload-view";
 
 /** The SDK's dropzone, typed by the app's upload routes (the route config is fetched from /api/uploadthing). */
 export const UploadDropzone = generateUploadDropzone<UploadRouter>();

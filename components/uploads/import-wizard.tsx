@@ -21,7 +21,7 @@ import { scienceCaseLabels } from "@/lib/lensing/science-cases";
 import { formatEventPeak } from "@/lib/workspace/event-peak";
 import { quantityEcho } from "@/lib/workspace/quantity-field";
 import type { FieldErrors } from "@/lib/errors";
-import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/server/imports";
+import type { ImportPreviewView, ImportResult, ImportRowView } from "@/lib/workspace/import-view";
 import { apiFetch } from "@/components/shared/api-client";
 import { FormError, buttonClass, quietButtonClass } from "@/components/shared/field";
 import { formatSignificant } from "@/lib/numbers/significant";

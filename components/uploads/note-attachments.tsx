@@ -2,7 +2,7 @@
 
 import { useState } from "react";
 import useSWR from "swr";
-import type { AttachmentView } from "@/lib/server/attachments";
+import type { AttachmentView } from "@/lib/workspace/attachment-view";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import { FormError } from "@/components/shared/field";
 import { UploadDropzone, dropzoneAppearance, refusalOf } from "@/components/uploads/dropzone";

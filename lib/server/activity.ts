@@ -7,26 +7,9 @@ import { cursorQuerySchema } from "@/lib/workspace/target-query";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
+import type { ActivityAction, ActivityEntry } from "@/lib/workspace/activity-view";
 
 type Writer = Pick<Database, "insert">;
-
-/** Verbs of the feed, `<subject>.<what happened>`. */
-export type ActivityAction =
-  | "proposal.created"
-  | "proposal.updated"
-  | "member.joined"
-  | "member.role_changed"
-  | "member.removed"
-  | "invitation.sent"
-  | "invitation.revoked"
-  | "target.added"
-  | "target.updated"
-  | "target.removed"
-  | "target.fit_applied"
-  | "target.fit_undone"
-  | "note.added"
-  | "note.edited"
-  | "note.removed";
 
 /** Written inside the transaction of the change it describes, so the feed never lists what did not happen. */
 export async function recordActivity(
@@ -34,14 +17,6 @@ export async function recordActivity(
   entry: { proposalId: string; actorId: string; action: ActivityAction; subject: string },
 ): Promise<void> {
   await tx.insert(activity).values(entry);
-}
-
-export interface ActivityEntry {
-  id: number;
-  action: ActivityAction;
-  subject: string;
-  actorName: string | null;
-  createdAt: string;
 }
 
 /** The newest entries first, `limit` at a time; `before` is the id of the last entry already shown. */

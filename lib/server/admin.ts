@@ -4,36 +4,12 @@ import { dbClient } from "@/db/client";
 import { proposalMembers, proposals, users } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { accountListQuerySchema, accountParamsSchema, changeSiteRoleSchema } from "@/lib/workspace/admin-schema";
-import { siteRoleCan, siteRoleLabels, type ProposalRole, type SiteRole } from "@/lib/workspace/roles";
+import { siteRoleCan, siteRoleLabels } from "@/lib/workspace/roles";
 import { parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
 import { likePattern } from "@/lib/server/targets";
-
-/** One proposal an account belongs to, with the role it holds there. */
-export interface AccountMembership {
-  proposalId: string;
-  title: string;
-  cycle: string;
-  role: ProposalRole;
-}
-
-/** An account as the admin page sees it; never the password hash. */
-export interface AccountView {
-  userId: string;
-  name: string;
-  email: string;
-  siteRole: SiteRole;
-  createdAt: string;
-  proposals: AccountMembership[];
-}
-
-export interface AccountPage {
-  accounts: AccountView[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+import type { AccountMembership, AccountPage, AccountView } from "@/lib/workspace/account-view";
 
 /**
  * 401 signed out, 403 for anyone but a site admin. The admin area is no secret (the header link is

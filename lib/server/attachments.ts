@@ -4,29 +4,17 @@ import { z } from "zod";
 import { dbClient, type Database } from "@/db/client";
 import { noteAttachments, notes, targets, uploadedFiles } from "@/db/schema";
 import { AppError } from "@/lib/errors";
-import { checkAttachment, servedFormOf, SIGNATURE_BYTES, type AttachmentKind, type ServedForm } from "@/lib/imports/attachment-type";
+import { checkAttachment, servedFormOf, SIGNATURE_BYTES, type ServedForm } from "@/lib/imports/attachment-type";
 import type { FitsHeader } from "@/lib/imports/fits-header";
 import { MAX_ATTACHMENT_BYTES } from "@/lib/imports/limits";
 import { noteParamsSchema } from "@/lib/workspace/ids";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
-import { refuseOversize, type UploadOutcome } from "@/lib/server/imports";
-import { deleteStoredFiles, fetchStoredBytes, openStoredFile } from "@/lib/server/uploads";
+import type { UploadOutcome } from "@/lib/workspace/upload-view";
+import { deleteStoredFiles, fetchStoredBytes, openStoredFile, refuseOversize } from "@/lib/server/uploads";
+import type { AttachmentView } from "@/lib/workspace/attachment-view";
 
 type Queryable = Pick<Database, "select">;
-
-export interface AttachmentView {
-  id: string;
-  noteId: string;
-  name: string;
-  kind: AttachmentKind;
-  sizeBytes: number;
-  /** FITS only: the primary header (keywords, BITPIX, axes, header and data sizes). */
-  fitsHeader: FitsHeader | null;
-  /** The app's own URL for the file; it checks access at every read and sends the bytes itself. */
-  fileUrl: string;
-  createdAt: string;
-}
 
 /** What an attachment upload's middleware hands to its completion step. */
 export type AttachmentUploadMetadata = {

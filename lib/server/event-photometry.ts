@@ -18,8 +18,8 @@ import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
-import { refuseOversize, type UploadOutcome } from "@/lib/server/imports";
-import { deleteStoredFiles, fetchStoredBytes } from "@/lib/server/uploads";
+import type { UploadOutcome } from "@/lib/workspace/upload-view";
+import { deleteStoredFiles, fetchStoredBytes, refuseOversize } from "@/lib/server/uploads";
 
 type Queryable = Pick<Database, "select">;
 

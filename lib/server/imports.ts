@@ -4,60 +4,25 @@ import { dbClient, type Database } from "@/db/client";
 import { imports, proposals, targets, uploadedFiles, type UploadedFile } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { proposeColumnMapping, proposeNoteColumn, type ColumnMapping } from "@/lib/imports/columns";
-import { formatMebibytes, type ImportColumn, type ImportTable } from "@/lib/imports/import-table";
+import type { ImportTable } from "@/lib/imports/import-table";
 import { MAX_IMPORT_BYTES } from "@/lib/imports/limits";
 import { mergedHypothesis, planImport, type ExistingTarget, type ImportPlan, type PlannedRow } from "@/lib/imports/plan";
 import { readImportFile } from "@/lib/imports/read-import-file";
 import { importCommitSchema, importPreviewSchema } from "@/lib/imports/request";
 import { checkColumnMapping, validateImportRows, type ImportFill } from "@/lib/imports/rows";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
-import type { CreateTargetInput } from "@/lib/workspace/target-schema";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { insertFirstNotes } from "@/lib/server/notes";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { deriveMany, feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { parseOrThrow } from "@/lib/server/http";
-import { deleteRefusedUpload, fetchStoredBytes } from "@/lib/server/uploads";
+import { deleteRefusedUpload, fetchStoredBytes, refuseOversize } from "@/lib/server/uploads";
 import { z } from "zod";
+import type { ImportPreviewView, ImportResult } from "@/lib/workspace/import-view";
+import type { UploadOutcome } from "@/lib/workspace/upload-view";
 
 type Queryable = Pick<Database, "select">;
-
-/** One row of the preview as the mapping step shows it. */
-export interface ImportRowView {
-  rowNumber: number;
-  cells: PlannedRow["cells"];
-  /** The parsed target (ra/dec in ICRS degrees); null for a row with errors. */
-  values: CreateTargetInput | null;
-  errors: string[];
-  action: PlannedRow["action"]["kind"];
-  /** What the action means for this row ("updates TB-ML-0001, matched by position 0.4″"). */
-  detail: string;
-  /** For a refused row, every cell as the file wrote it, for the refused-rows download. */
-  fileCells?: string[];
-}
-
-export interface ImportPreviewView {
-  file: { id: string; name: string; sizeBytes: number; format: ImportTable["format"] };
-  columns: ImportColumn[];
-  proposedMapping: ColumnMapping;
-  mapping: ColumnMapping;
-  /** The column whose text becomes each new target's first note; null for none. */
-  noteColumn: number | null;
-  fill: ImportFill;
-  toleranceArcsec: number;
-  rows: ImportRowView[];
-  counts: ImportPlan["counts"];
-}
-
-export interface ImportResult {
-  importId: string;
-  added: number;
-  updated: number;
-  skipped: number;
-  /** Refused rows the user chose to leave out (0 for a file imported whole). */
-  leftOut: number;
-}
 
 /** What a target-list upload's middleware hands to its completion step. */
 export type TargetListUploadMetadata = {
@@ -78,15 +43,6 @@ export async function authorizeTargetListUpload(input: unknown, actor: Actor | n
   refuseOversize(files, MAX_IMPORT_BYTES, "payload_too_large:import", "a target list");
   return { proposalId, userId: who.userId };
 }
-
-/** Refuses before upload a file whose declared size is over the limit (checked again on the bytes). */
-export function refuseOversize(files: readonly { size: number }[], maxBytes: number, code: `payload_too_large:${string}`, what: string): void {
-  const tooLarge = files.find((file) => file.size > maxBytes);
-  if (tooLarge) throw new AppError(code, `The file is larger than ${formatMebibytes(maxBytes)}, the limit for ${what}.`);
-  if (files.some((file) => file.size === 0)) throw new AppError(`bad_request:${code.split(":")[1]}`, "The file is empty.");
-}
-
-export type UploadOutcome = { ok: true; fileId: string } | { ok: false; message: string };
 
 /**
  * The completion step of a target-list upload: fetch the stored bytes, read them as CSV or VOTable

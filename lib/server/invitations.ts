@@ -12,17 +12,9 @@ import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
 import { appLink, linkMail, sendMail } from "@/lib/server/mailer";
+import type { InvitationView } from "@/lib/workspace/member-view";
 
 export const invitationLifetimeDays = 7;
-
-export interface InvitationView {
-  id: string;
-  email: string;
-  role: ProposalRole;
-  invitedByName: string | null;
-  expiresAt: string;
-  createdAt: string;
-}
 
 /** What the person holding an invitation link may see before accepting it. */
 export interface InvitationPreview {

@@ -5,19 +5,12 @@ import { proposalMembers, users } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { memberParamsSchema, proposalParamsSchema } from "@/lib/workspace/ids";
 import { changeRoleSchema } from "@/lib/workspace/member-schema";
-import { roleLabels, type ProposalRole } from "@/lib/workspace/roles";
+import { roleLabels } from "@/lib/workspace/roles";
 import { authorize, parseIds } from "@/lib/server/access";
 import { recordActivity } from "@/lib/server/activity";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
-
-export interface MemberView {
-  userId: string;
-  name: string;
-  email: string;
-  role: ProposalRole;
-  joinedAt: string;
-}
+import type { MemberView } from "@/lib/workspace/member-view";
 
 type Tx = Pick<Database, "select">;
 

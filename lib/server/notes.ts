@@ -11,26 +11,9 @@ import { forgetNoteFiles } from "@/lib/server/attachments";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
 import { deleteStoredFiles } from "@/lib/server/uploads";
+import type { NoteRevisionView, NoteView } from "@/lib/workspace/note-view";
 
 type Queryable = Pick<Database, "select">;
-
-export interface NoteView {
-  id: string;
-  targetId: string;
-  body: string;
-  version: number;
-  authorName: string | null;
-  updatedByName: string | null;
-  createdAt: string;
-  updatedAt: string;
-}
-
-export interface NoteRevisionView {
-  version: number;
-  body: string;
-  editedByName: string | null;
-  editedAt: string;
-}
 
 const author = aliasedTable(users, "author");
 const editor = aliasedTable(users, "editor");

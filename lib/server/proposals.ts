@@ -21,15 +21,7 @@ import type { ProposalTimeRequest } from "@/lib/workspace/time-request";
 import { parseOrThrow } from "@/lib/server/http";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import { deleteStoredFiles } from "@/lib/server/uploads";
-
-export interface ProposalSummary {
-  id: string;
-  title: string;
-  cycle: string;
-  role: ProposalRole;
-  targetCount: number;
-  updatedAt: string;
-}
+import type { ProposalSummary } from "@/lib/workspace/proposal-view";
 
 export interface ProposalDetail extends ProposalInput {
   id: string;

@@ -4,7 +4,7 @@ import { AppError } from "@/lib/errors";
 import { authorize } from "@/lib/server/access";
 import { findActor } from "@/lib/server/accounts";
 import { requireActor } from "@/lib/server/actor";
-import type { UploadOutcome } from "@/lib/server/imports";
+import type { UploadOutcome } from "@/lib/workspace/upload-view";
 import { deleteRefusedUpload } from "@/lib/server/uploads";
 
 /** What every upload route's middleware hands on: who uploads, to which proposal. */

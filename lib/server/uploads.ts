@@ -2,6 +2,7 @@ import "server-only";
 import { UTApi } from "uploadthing/server";
 import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
+import { formatMebibytes } from "@/lib/imports/import-table";
 
 let client: UTApi | undefined;
 
@@ -117,4 +118,11 @@ const REFUSED_FILE_DELAY_MS = 1_000;
  */
 export function deleteRefusedUpload(key: string): void {
   setTimeout(() => void deleteStoredFiles([key]), REFUSED_FILE_DELAY_MS).unref?.();
+}
+
+/** Refuses before upload a file whose declared size is over the limit (checked again on the bytes). */
+export function refuseOversize(files: readonly { size: number }[], maxBytes: number, code: `payload_too_large:${string}`, what: string): void {
+  const tooLarge = files.find((file) => file.size > maxBytes);
+  if (tooLarge) throw new AppError(code, `The file is larger than ${formatMebibytes(maxBytes)}, the limit for ${what}.`);
+  if (files.some((file) => file.size === 0)) throw new AppError(`bad_request:${code.split(":")[1]}`, "The file is empty.");
 }

@@ -1,6 +1,6 @@
 import { createRouteHandler } from "uploadthing/next";
 import { sessionActor } from "@/lib/server/session";
-import { uploadRouter, withSignInCheck } from "./core";
+import { uploadRouter, withSignInCheck } from "@/lib/server/upload-router";
 
 const handlers = createRouteHandler({ router: uploadRouter });
 

@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { vi } from "vitest";
 import { createRouteHandler, UTApi } from "uploadthing/server";
-import { makeUploadRouter, withSignInCheck } from "@/app/api/uploadthing/core";
+import { makeUploadRouter, withSignInCheck } from "@/lib/server/upload-router";
 import type { Actor } from "@/lib/server/actor";
 import { startUploadFake, type UploadFake } from "@/scripts/fakes/uploads.mjs";
 

@@ -11,6 +11,7 @@ import { errorResponse } from "@/lib/server/http";
 import { authorizeTargetListUpload, recordTargetListUpload } from "@/lib/server/imports";
 import { sessionActor } from "@/lib/server/session";
 import { completeUpload } from "@/lib/server/upload-completion";
+import type { UploadRouter } from "@/lib/workspace/upload-view";
 
 const f = createUploadthing();
 
@@ -43,7 +44,7 @@ const attachmentConfig = { blob: { maxFileSize: "16MB", maxFileCount: 1, acl: "p
  * be used after a removal), fetches the bytes, checks the type by content and records the file,
  * answering `{ ok: false, message }` (file deleted) when it is refused.
  */
-export function makeUploadRouter(getActor: GetActor) {
+export function makeUploadRouter(getActor: GetActor): UploadRouter {
   return {
     targetList: f(targetListConfig)
       .input(z.object({ proposalId: z.string() }))
@@ -61,7 +62,6 @@ export function makeUploadRouter(getActor: GetActor) {
 }
 
 export const uploadRouter = makeUploadRouter(sessionActor);
-export type UploadRouter = typeof uploadRouter;
 
 /**
  * A cross-site request answers 403 and a signed-out upload request 401, in the product's error shape,
