@@ -1,4 +1,5 @@
 import { NextResponse, type NextRequest } from "next/server";
+import { proxyEnv } from "@/lib/env";
 import { contentSecurityPolicy, originOf } from "@/lib/security/content-security-policy";
 
 /**
@@ -9,13 +10,14 @@ import { contentSecurityPolicy, originOf } from "@/lib/security/content-security
  * the browser hangs up.)
  */
 export function proxy(request: NextRequest) {
+  const env = proxyEnv();
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
   const policy = contentSecurityPolicy({
     nonce,
-    development: process.env.NODE_ENV === "development",
-    connectOrigins: originOf(process.env.UPLOADTHING_INGEST_URL),
-    imageOrigins: uploadFileOrigins(),
-    https: (process.env.NEXTAUTH_URL ?? "").startsWith("https://"),
+    development: env.NODE_ENV === "development",
+    connectOrigins: originOf(env.UPLOADTHING_INGEST_URL),
+    imageOrigins: uploadFileOrigins(env.UPLOADTHING_UFS_HOST),
+    https: env.NEXTAUTH_URL.startsWith("https://"),
   });
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set("x-nonce", nonce);
@@ -26,8 +28,7 @@ export function proxy(request: NextRequest) {
 }
 
 /** Where the upload service serves stored files from (host[:port], http only for a local fake). */
-function uploadFileOrigins(): string[] {
-  const host = process.env.UPLOADTHING_UFS_HOST;
+function uploadFileOrigins(host: string | undefined): string[] {
   if (!host) return [];
   // The SDK itself writes http:// file URLs only for a host containing "local".
   return [`${host.includes("local") ? "http" : "https"}://${host}`];

@@ -2,7 +2,8 @@ import { z } from "zod";
 
 /**
  * The server's environment, validated once. Every other module reads configuration through
- * `serverEnv()`, never `process.env` directly, so a bad value fails at boot with the variable's name.
+ * `serverEnv()` (the proxy through `proxyEnv()`, which checks only its own few settings), never
+ * `process.env` directly, so a bad value fails at boot with the variable's name.
  */
 export const serverEnvSchema = z.object({
   NODE_ENV: z.enum(["development", "test", "production"]).default("development"),
@@ -80,9 +81,8 @@ export class EnvError extends Error {
   }
 }
 
-/** Validates an environment record (normally `process.env`). Pure: safe to call in tests. */
-export function parseServerEnv(source: Record<string, string | undefined>): ServerEnv {
-  const result = serverEnvSchema.safeParse(source);
+function parseWith<T extends z.ZodType>(schema: T, source: Record<string, string | undefined>): z.infer<T> {
+  const result = schema.safeParse(source);
   if (!result.success) {
     throw new EnvError(
       result.error.issues.map((issue) => ({ variable: String(issue.path[0] ?? "?"), message: issue.message })),
@@ -91,10 +91,42 @@ export function parseServerEnv(source: Record<string, string | undefined>): Serv
   return result.data;
 }
 
+/** Validates an environment record (normally `process.env`). Pure: safe to call in tests. */
+export function parseServerEnv(source: Record<string, string | undefined>): ServerEnv {
+  return parseWith(serverEnvSchema, source);
+}
+
+/**
+ * The few settings the proxy (proxy.ts, run before every page) reads to write the page's
+ * Content-Security-Policy: the same rules as the server's, but only these, so the proxy neither needs
+ * nor checks the database's or the mail's settings.
+ */
+export const proxyEnvSchema = serverEnvSchema.pick({
+  NODE_ENV: true,
+  NEXTAUTH_URL: true,
+  UPLOADTHING_INGEST_URL: true,
+  UPLOADTHING_UFS_HOST: true,
+});
+
+export type ProxyEnv = z.infer<typeof proxyEnvSchema>;
+
+/** Validates the proxy's settings from an environment record. Pure: safe to call in tests. */
+export function parseProxyEnv(source: Record<string, string | undefined>): ProxyEnv {
+  return parseWith(proxyEnvSchema, source);
+}
+
 let cached: ServerEnv | undefined;
 
 /** The validated environment of this process (parsed on first use). */
 export function serverEnv(): ServerEnv {
   cached ??= parseServerEnv(process.env);
   return cached;
+}
+
+let cachedProxy: ProxyEnv | undefined;
+
+/** The proxy's validated settings, parsed on its first request and kept: it runs before every page. */
+export function proxyEnv(): ProxyEnv {
+  cachedProxy ??= parseProxyEnv(process.env);
+  return cachedProxy;
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { EnvError, parseServerEnv } from "@/lib/env";
+import { EnvError, parseProxyEnv, parseServerEnv } from "@/lib/env";
 
 const valid = { DATABASE_URL: "postgres://arc:pw@127.0.0.1:54329/arcwright" };
 
@@ -35,6 +35,29 @@ describe("parseServerEnv", () => {
       expect(error).toBeInstanceOf(EnvError);
       const variables = (error as EnvError).issues.map((i) => i.variable).sort();
       expect(variables).toEqual(["DATABASE_POOL_MAX", "NODE_ENV"]);
+    }
+  });
+});
+
+describe("parseProxyEnv", () => {
+  it("needs none of the database's settings: an empty environment gives the documented defaults", () => {
+    const env = parseProxyEnv({});
+    expect(env).toEqual({ NODE_ENV: "development", NEXTAUTH_URL: "http://127.0.0.1:3000" });
+  });
+
+  it("ignores the settings it does not read, even invalid ones", () => {
+    const env = parseProxyEnv({ DATABASE_URL: "mysql://x@y/z", DATABASE_POOL_MAX: "0", UPLOADTHING_UFS_HOST: "localhost:9100" });
+    expect(env.UPLOADTHING_UFS_HOST).toBe("localhost:9100");
+    expect(env).not.toHaveProperty("DATABASE_URL");
+  });
+
+  it("refuses a bad value of its own settings with the server's rule, naming the variable", () => {
+    try {
+      parseProxyEnv({ NEXTAUTH_URL: "example.org", UPLOADTHING_UFS_HOST: "http://localhost:9100" });
+      expect.unreachable("parseProxyEnv accepted a relative NEXTAUTH_URL");
+    } catch (error) {
+      expect(error).toBeInstanceOf(EnvError);
+      expect((error as EnvError).issues.map((i) => i.variable).sort()).toEqual(["NEXTAUTH_URL", "UPLOADTHING_UFS_HOST"]);
     }
   });
 });
