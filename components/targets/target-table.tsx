@@ -17,8 +17,8 @@ import { verdictClass, verdictLabels } from "@/components/shared/format";
 import { emptyFilters, initialTargetSorting, targetListUrl, targetPageSize, type TargetFilters } from "@/components/targets/target-table-state";
 import { PageStepper } from "@/components/page-stepper";
 import { formatSignificant } from "@/lib/numbers/significant";
-const features = tableFeatures({ rowSortingFeature });
 
+const features = tableFeatures({ rowSortingFeature });
 
 const numberCell = (digits = 4) => (info: { getValue: () => unknown }) => (
   <span className="tabular-nums">{formatSignificant(info.getValue() as number | null, digits)}</span>
