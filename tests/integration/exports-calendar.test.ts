@@ -7,7 +7,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { proposals, targets } from "@/db/schema";
 import { dateFromJdUtc } from "@/lib/astro/time";
-import { calendarRoutes } from "@/lib/exports/calendar/server";
+import { calendarRoutes } from "@/lib/server/api/export-routes";
 import type { Actor } from "@/lib/server/actor";
 import { getProposal } from "@/lib/server/proposals";
 import { getTarget } from "@/lib/server/targets";

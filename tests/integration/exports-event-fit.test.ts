@@ -10,8 +10,8 @@ import { eventPhotometry, proposals, targets, uploadedFiles } from "@/db/schema"
 import { jdUtcFromDate } from "@/lib/astro/time";
 import type { PhotometryMapping } from "@/lib/event-photometry/mapping";
 import type { PhotometryDataset } from "@/lib/event-photometry/read-event-photometry";
-import { eventFitFigure, parseEventFitQuery } from "@/lib/exports/server/event-fit-figure";
-import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { eventFitFigure, parseEventFitQuery } from "@/lib/server/exports/event-fit-figure";
+import { skyFigureRoutes } from "@/lib/server/api/figure-routes";
 import { PRODUCT_NAME, PRODUCT_VERSION } from "@/lib/exports/provenance";
 import { headerOf } from "@/lib/exports/tables/data-table";
 import type { Actor } from "@/lib/server/actor";

@@ -11,8 +11,8 @@ import { targets } from "@/db/schema";
 import { PRODUCT_NAME, PRODUCT_VERSION, PROVENANCE_HEADER, type Provenance } from "@/lib/exports/provenance";
 import { tableWriters } from "@/lib/exports/tables/formats";
 import type { Actor } from "@/lib/server/actor";
-import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
-import { technicalSummaryRoutes } from "@/lib/exports/server/routes";
+import { benchFigureRoutes, skyFigureRoutes } from "@/lib/server/api/figure-routes";
+import { technicalSummaryRoutes } from "@/lib/server/api/export-routes";
 import { createWorld } from "./support/world";
 
 afterAll(async () => {

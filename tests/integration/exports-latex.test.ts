@@ -7,7 +7,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { demoTargets } from "@/db/seed/demo-scenario";
 import { demoCycle } from "@/db/seed/demo-sky-cycle";
-import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { targetTableExportRoutes } from "@/lib/server/api/export-routes";
 import { exportColumnKeys, tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { targetTableLatex } from "@/lib/exports/tables/latex";
 import { updateProposal } from "@/lib/server/proposals";

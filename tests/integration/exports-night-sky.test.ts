@@ -4,7 +4,7 @@ import { afterAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { proposals } from "@/db/schema";
 import type { Actor } from "@/lib/server/actor";
-import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { skyFigureRoutes } from "@/lib/server/api/figure-routes";
 import { createWorld } from "./support/world";
 
 afterAll(async () => {

@@ -7,7 +7,7 @@ import { XMLParser } from "fast-xml-parser";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import type { Actor } from "@/lib/server/actor";
-import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { targetTableExportRoutes } from "@/lib/server/api/export-routes";
 import { demoTargets } from "@/db/seed/demo-scenario";
 import { descriptionOf, exportColumnKeys, exportColumnOf, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTableJson } from "@/lib/exports/tables/json";

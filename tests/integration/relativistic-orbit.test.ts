@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { orbitingStar } from "@/db/seed/demo-scenario";
 import { demoCycle } from "@/db/seed/demo-sky-cycle";
-import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { targetTableExportRoutes } from "@/lib/server/api/export-routes";
 import { AppError } from "@/lib/errors";
 import { previewImport } from "@/lib/server/imports";
 import { getProposal, updateProposal } from "@/lib/server/proposals";

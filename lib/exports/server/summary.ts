@@ -1,88 +1,44 @@
-import "server-only";
-import { z } from "zod";
-import { nightDateSchema } from "@/lib/astro/inputs";
-import { serverEnv } from "@/lib/env";
+/**
+ * The technical summary PDF of a proposal, assembled from its target table and the figures the
+ * data-access layer loaded (lib/server/exports/summary.ts).
+ */
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
 import { technicalSummaryPdf } from "@/lib/exports/figures/summary-pdf";
 import { buildProvenance } from "@/lib/exports/provenance";
-import type { Actor } from "@/lib/server/actor";
-import { parseOrThrow } from "@/lib/server/http";
-import { loadSkyFigure } from "./sky-figures";
-import { loadTargetTable } from "./target-table";
+import type { TargetTable } from "@/lib/exports/tables/table";
 
-const summaryFigures = ["season", "night"] as const;
+/** The figures a summary may carry, by name. */
+export const summaryFigures = ["season", "night"] as const;
+
+export type SummaryFigure = (typeof summaryFigures)[number];
 
 /** Night charts in one summary at most: a page each. */
-const MAX_NIGHT_CHARTS = 6;
+export const MAX_NIGHT_CHARTS = 6;
 
-const summaryQuerySchema = z.object({
-  figures: z
-    .string()
-    .optional()
-    .transform((text, ctx) => {
-      // The season chart by default; night charts only when asked for, since they need chosen targets.
-      const names = text === undefined || text.trim() === "" ? ["season"] : text.split(",").map((n) => n.trim());
-      const unknown = [...new Set(names.filter((n) => !(summaryFigures as readonly string[]).includes(n)))];
-      if (unknown.length > 0) {
-        ctx.addIssue({ code: "custom", message: `Unknown figure: ${unknown.join(", ")}. Known: ${summaryFigures.join(", ")}.` });
-        return z.NEVER;
-      }
-      // Each name is a whole chart (a season chart is the slowest part): a repeat would only redo the work.
-      if (new Set(names).size !== names.length) {
-        ctx.addIssue({ code: "custom", message: `Name each figure once (at most ${summaryFigures.length}: ${summaryFigures.join(", ")}).` });
-        return z.NEVER;
-      }
-      return names as (typeof summaryFigures)[number][];
-    }),
-  /** Targets (ids, comma-separated) whose night charts the summary carries, with `figures=night`. */
-  nightTargets: z
-    .string()
-    .optional()
-    .transform((text) => (text === undefined || text.trim() === "" ? [] : text.split(",").map((id) => id.trim())))
-    .pipe(
-      z
-        .array(z.uuid({ error: "Name each target by its id." }))
-        .max(MAX_NIGHT_CHARTS, `At most ${MAX_NIGHT_CHARTS} night charts.`)
-        .refine((ids) => new Set(ids).size === ids.length, "Name each target once."),
-    ),
-  /** The night (evening date) of those charts; checked here, so a bad one is refused under its own name. */
-  night: nightDateSchema.optional(),
-  columns: z.string().optional(),
-  digits: z.string().optional(),
-}).refine((q) => !q.figures.includes("night") || q.nightTargets.length > 0, {
-  path: ["nightTargets"],
-  message: "Choose at least one target for the night charts.",
-});
-
-/** The cycle's first night when the proposal has one, else tonight (UTC date). */
-function defaultNightOf(inputs: Record<string, unknown>): string {
-  const cycleStart = inputs.cycleStartDate;
+/** The night of the summary's night charts when none is named: the cycle's first night when the table's proposal has one, else tonight (UTC date). */
+export function summaryNightOf(table: TargetTable): string {
+  const cycleStart = table.provenance.inputs.cycleStartDate;
   return typeof cycleStart === "string" && cycleStart !== "" ? cycleStart : new Date().toISOString().slice(0, 10);
 }
 
 /**
- * The technical summary PDF of a proposal: the target table (chosen columns) and the chosen figures.
- * Each part is loaded through its own authorized data-access function, so the same role rules hold.
+ * The summary of `table` with `plots` (in the order they were asked for), its provenance naming the
+ * choices (`figures`, `nightTargets`, `night`) and the references of the table and of every figure;
+ * `author` is who exports it, `appOrigin` the app's public origin.
  */
-export async function technicalSummary(params: unknown, query: Record<string, string>, actor: Actor | null): Promise<{ pdf: Uint8Array; title: string }> {
-  const { figures, nightTargets, night, columns, digits } = parseOrThrow(summaryQuerySchema, query, "summary");
-  const { table } = await loadTargetTable(params, { format: "json", columns, digits }, actor);
-  const plots: PlotExport[] = [];
-  for (const figure of figures) {
-    // A proposal without targets has no season to chart; the summary still carries its (empty) table.
-    if (figure === "season" && table.rows.length > 0) plots.push(await loadSkyFigure({ ...(params as object), figure }, {}, actor));
-    if (figure === "night") {
-      const date = night ?? defaultNightOf(table.provenance.inputs);
-      for (const targetId of nightTargets) plots.push(await loadSkyFigure({ ...(params as object), figure }, { targetId, date }, actor));
-    }
-  }
+export async function technicalSummaryOf(
+  table: TargetTable,
+  plots: PlotExport[],
+  choices: { figures: readonly SummaryFigure[]; nightTargets: readonly string[]; night: string | undefined },
+  { author, appOrigin }: { author: string | undefined; appOrigin: string },
+): Promise<{ pdf: Uint8Array; title: string }> {
   const proposalId = String(table.provenance.inputs.proposalId);
   const provenance = buildProvenance({
     subject: `Technical summary of the proposal "${table.title}"`,
-    reproduceUrl: new URL(`/proposals/${proposalId}/summary`, serverEnv().NEXTAUTH_URL).toString(),
-    inputs: { ...table.provenance.inputs, figures: figures.join(","), nightTargets: nightTargets.join(",") || null, night: night ?? null },
+    reproduceUrl: new URL(`/proposals/${proposalId}/summary`, appOrigin).toString(),
+    inputs: { ...table.provenance.inputs, figures: choices.figures.join(","), nightTargets: choices.nightTargets.join(",") || null, night: choices.night ?? null },
     // The table's and every bundled figure's.
     references: [...table.provenance.references, ...plots.flatMap((plot) => plot.provenance.references)].map((reference) => reference.key),
   });
-  return { pdf: await technicalSummaryPdf(table, plots, provenance, { author: actor?.name }), title: table.title };
+  return { pdf: await technicalSummaryPdf(table, plots, provenance, { author }), title: table.title };
 }

@@ -1,31 +1,20 @@
-import "server-only";
+/**
+ * The target table export assembled from the rows the data-access layer loaded
+ * (lib/server/exports/target-table.ts): the chosen columns and the provenance record.
+ */
+import type { Proposal } from "@/db/schema";
 import type { CitationKey } from "@/lib/citations/references";
-import { feasibilityRuleReferences } from "@/lib/lensing/feasibility-rules";
-import { asc, eq } from "drizzle-orm";
-import { z } from "zod";
-import { dbClient } from "@/db/client";
-import { targets } from "@/db/schema";
-import { serverEnv } from "@/lib/env";
 import { buildProvenance } from "@/lib/exports/provenance";
-import { dataDigitsOf, tableColumnsQuerySchema, type ChosenColumn } from "@/lib/exports/tables/columns";
-import { tableFormats, tableWriteOptionsSchema, type TableFormat, type TableWriteOptions } from "@/lib/exports/tables/formats";
+import { dataDigitsOf, type ChosenColumn } from "@/lib/exports/tables/columns";
+import type { TableFormat, TableWriteOptions } from "@/lib/exports/tables/formats";
 import type { TargetTable } from "@/lib/exports/tables/table";
-import { proposalParamsSchema } from "@/lib/workspace/ids";
+import { feasibilityRuleReferences } from "@/lib/lensing/feasibility-rules";
 import { storedPhotometrySettings } from "@/lib/workspace/photometry-schema";
-import { authorize, parseIds } from "@/lib/server/access";
-import { requireActor, type Actor } from "@/lib/server/actor";
-import { instrumentSettingsOf } from "@/lib/server/derived-columns";
-import { parseOrThrow } from "@/lib/server/http";
-import { targetViewOf } from "@/lib/server/targets";
+import type { InstrumentSettings } from "@/lib/workspace/proposal-schema";
+import type { TargetView } from "@/lib/workspace/target-view";
 
 /** Most rows one table export writes; far above a proposal's target list, low enough to bound the work. */
 export const MAX_EXPORT_ROWS = 20_000;
-
-const tableQuerySchema = tableWriteOptionsSchema.extend({
-  format: z.enum(tableFormats, { error: `The format must be one of ${tableFormats.join(", ")}.` }).default("csv"),
-  columns: z.string().optional(),
-  digits: z.string().optional(),
-});
 
 /**
  * The methods the table's computed columns come from (lib/citations): the lensing layer's solutions
@@ -39,31 +28,40 @@ const TARGET_TABLE_REFERENCES: readonly CitationKey[] = [
   ]),
 ];
 
+export interface TargetTableExport {
+  table: TargetTable;
+  format: TableFormat;
+  options: TableWriteOptions;
+}
+
 /**
- * A proposal's whole target list (priority, then name) with the chosen columns and the provenance
- * of the export. Any member may export, viewers included (the same rule as reading the table).
- * Order: validate the id and the query → session → load and role → read.
+ * A proposal's target table in the chosen format and columns: `rows` in the order they are written
+ * (priority, then name), `instrument` the proposal's instrument settings, `appOrigin` the app's
+ * public origin (the provenance's reproduce link).
  */
-export async function loadTargetTable(params: unknown, query: unknown, actor: Actor | null): Promise<{ table: TargetTable; format: TableFormat; options: TableWriteOptions }> {
-  const { proposalId } = parseIds(proposalParamsSchema, params, "proposal");
-  const { format, fit, ...columnQuery } = parseOrThrow(tableQuerySchema, query, "export");
-  const columns = parseOrThrow(tableColumnsQuerySchema, columnQuery, "export");
-  const who = requireActor(actor);
-  const { db } = dbClient();
-  const { proposal } = await authorize(db, proposalId, who, "read", "export");
-  const rows = await db
-    .select()
-    .from(targets)
-    .where(eq(targets.proposalId, proposalId))
-    .orderBy(asc(targets.priority), asc(targets.name), asc(targets.id))
-    .limit(MAX_EXPORT_ROWS);
-  const instrument = instrumentSettingsOf(proposal);
+export function targetTableOf({
+  proposal,
+  instrument,
+  rows,
+  columns,
+  format,
+  fit,
+  appOrigin,
+}: {
+  proposal: Proposal;
+  instrument: InstrumentSettings;
+  rows: TargetView[];
+  columns: ChosenColumn[];
+  format: TableFormat;
+  fit: TableWriteOptions["fit"];
+  appOrigin: string;
+}): TargetTableExport {
   const photometry = storedPhotometrySettings(proposal.photometry);
   // LaTeX shows the display digits; the data formats write inputs as stored (17) unless asked.
   const digitsOf = format === "tex" ? (c: ChosenColumn) => c.digits : dataDigitsOf;
   const provenance = buildProvenance({
     subject: `Target table of the proposal "${proposal.title}" (${proposal.cycle})`,
-    reproduceUrl: new URL(`/proposals/${proposal.id}`, serverEnv().NEXTAUTH_URL).toString(),
+    reproduceUrl: new URL(`/proposals/${proposal.id}`, appOrigin).toString(),
     inputs: {
       proposalId: proposal.id,
       proposalUpdatedAt: proposal.updatedAt.toISOString(),
@@ -86,5 +84,5 @@ export async function loadTargetTable(params: unknown, query: unknown, actor: Ac
     },
     references: TARGET_TABLE_REFERENCES,
   });
-  return { table: { title: proposal.title, columns, rows: rows.map(targetViewOf), provenance }, format, options: { fit } };
+  return { table: { title: proposal.title, columns, rows, provenance }, format, options: { fit } };
 }

@@ -3,7 +3,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { dbClient } from "@/db/client";
 import { exportColumnKeys } from "@/lib/exports/tables/columns";
 import { tableFormats } from "@/lib/exports/tables/formats";
-import { targetTableExportRoutes, technicalSummaryRoutes } from "@/lib/exports/server/routes";
+import { targetTableExportRoutes, technicalSummaryRoutes } from "@/lib/server/api/export-routes";
 import { targetCollectionRoutes } from "@/lib/server/api/target-routes";
 import { createTarget, updateTarget } from "@/lib/server/targets";
 import type { TargetView } from "@/lib/workspace/target-view";

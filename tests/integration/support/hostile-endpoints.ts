@@ -6,7 +6,7 @@ import { activity, imports, invitations, noteAttachments, noteRevisions, notes, 
 import { demoSketch } from "@/lib/bench/sketch-state";
 import { benchFigureKinds } from "@/lib/exports/figures/bench-figures";
 import { skyFigureKinds } from "@/lib/exports/figures/sky-figures";
-import { benchFigureRoutes, skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { benchFigureRoutes, skyFigureRoutes } from "@/lib/server/api/figure-routes";
 import { socketAddressHeader } from "@/lib/security/client-address";
 import { accountRoutes as publicAccountRoutes } from "@/lib/server/api/account-routes";
 import { acceptInvitationRoutes } from "@/lib/server/api/member-routes";

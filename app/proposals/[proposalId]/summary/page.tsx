@@ -6,7 +6,7 @@ import { verdictClass } from "@/components/shared/format";
 import { summaryCaseOf } from "@/lib/exports/case-summary";
 import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
 import { provenanceLines } from "@/lib/exports/provenance";
-import { loadTargetTable } from "@/lib/exports/server/target-table";
+import { loadTargetTable } from "@/lib/server/exports/target-table";
 import { loadForPage } from "@/lib/server/page-access";
 import { timeRequestOf, timeRequestSentence } from "@/lib/workspace/time-request";
 import { SummaryPdfDownload } from "@/components/exports/summary-pdf-download";

@@ -1,4 +1,4 @@
-import { benchFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { benchFigureRoutes } from "@/lib/server/api/figure-routes";
 import { sessionActor } from "@/lib/server/session";
 
 export const { GET } = benchFigureRoutes(sessionActor);

@@ -1,4 +1,4 @@
-import { calendarRoutes } from "@/lib/exports/calendar/server";
+import { calendarRoutes } from "@/lib/server/api/export-routes";
 import { sessionActor } from "@/lib/server/session";
 
 export const { GET } = calendarRoutes(sessionActor);

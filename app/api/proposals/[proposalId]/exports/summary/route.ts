@@ -1,4 +1,4 @@
-import { technicalSummaryRoutes } from "@/lib/exports/server/routes";
+import { technicalSummaryRoutes } from "@/lib/server/api/export-routes";
 import { sessionActor } from "@/lib/server/session";
 
 export const { GET } = technicalSummaryRoutes(sessionActor);

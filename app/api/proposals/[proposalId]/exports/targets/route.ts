@@ -1,4 +1,4 @@
-import { targetTableExportRoutes } from "@/lib/exports/server/routes";
+import { targetTableExportRoutes } from "@/lib/server/api/export-routes";
 import { sessionActor } from "@/lib/server/session";
 
 export const { GET } = targetTableExportRoutes(sessionActor);

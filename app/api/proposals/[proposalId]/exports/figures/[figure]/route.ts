@@ -1,4 +1,4 @@
-import { skyFigureRoutes } from "@/lib/exports/server/figure-routes";
+import { skyFigureRoutes } from "@/lib/server/api/figure-routes";
 import { sessionActor } from "@/lib/server/session";
 
 export const { GET } = skyFigureRoutes(sessionActor);

@@ -12,7 +12,7 @@ import { endpoint, queryOf } from "@/lib/server/api/endpoint";
 import { handle, parseOrThrow } from "@/lib/server/http";
 import type { RouteContext } from "@/lib/server/api/endpoint";
 import type { GetActor } from "@/lib/server/actor";
-import { loadSkyFigure } from "./sky-figures";
+import { loadSkyFigure } from "@/lib/server/exports/sky-figures";
 
 const benchFigureParamsSchema = z.object({ figure: z.enum(benchFigureKinds) });
 

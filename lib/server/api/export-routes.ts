@@ -1,10 +1,12 @@
 import "server-only";
-import type { GetActor } from "@/lib/server/actor";
-import { endpoint, queryOf } from "@/lib/server/api/endpoint";
+import { CALENDAR_CONTENT_TYPE } from "@/lib/exports/calendar/ical";
 import { attachmentHeaders, fileSlug, tableDownload } from "@/lib/exports/download";
 import { tableWriters } from "@/lib/exports/tables/formats";
-import { technicalSummary } from "./summary";
-import { loadTargetTable } from "./target-table";
+import type { GetActor } from "@/lib/server/actor";
+import { endpoint, queryOf } from "@/lib/server/api/endpoint";
+import { loadCalendar } from "@/lib/server/exports/calendar";
+import { technicalSummary } from "@/lib/server/exports/summary";
+import { loadTargetTable } from "@/lib/server/exports/target-table";
 
 type ProposalParams = { proposalId: string };
 
@@ -30,6 +32,16 @@ export function technicalSummaryRoutes(getActor: GetActor) {
     GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
       const { pdf, title } = await technicalSummary(params, queryOf(request), actor);
       return new Response(Buffer.from(pdf), { headers: attachmentHeaders(`${fileSlug(title)}-technical-summary.pdf`, "application/pdf") });
+    }),
+  };
+}
+
+/** /api/proposals/[proposalId]/exports/calendar?targetId=…: the iCalendar download. */
+export function calendarRoutes(getActor: GetActor) {
+  return {
+    GET: endpoint<ProposalParams>(getActor, async ({ request, params, actor }) => {
+      const { ics, fileName } = await loadCalendar(params, queryOf(request), actor);
+      return new Response(ics, { headers: attachmentHeaders(fileName, CALENDAR_CONTENT_TYPE) });
     }),
   };
 }
