@@ -20,8 +20,8 @@ import { QuantityError, parseDistance, parseLength, parseMass, parseProperMotion
 import { wordedIssue } from "@/lib/workspace/issue-words";
 import { createNoteSchema } from "@/lib/workspace/note-schema";
 import { createTargetSchema, lensHypothesisErrors, sourcePhotometryErrors, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
-
 import { PLAIN_NUMBER } from "@/lib/numbers/plain-number";
+
 /** Values used for every row where the file has no column (or an empty cell) for the field. */
 export interface ImportFill {
   lensModel?: LensModel;
