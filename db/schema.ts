@@ -16,7 +16,7 @@ import {
   uuid,
 } from "drizzle-orm/pg-core";
 import { lensModelIds } from "../lib/lensing/registry";
-import { scienceCaseIds } from "../lib/lensing/science-cases";
+import { scienceCaseIds } from "../lib/lensing/science-case-inputs";
 
 /** Which seed sets have been applied to this database, so seeding runs once and never duplicates. */
 export const seedRuns = pgTable("seed_runs", {

@@ -1,5 +1,5 @@
 import { verdictClass } from "@/components/shared/format";
-import type { CaseAnswer } from "@/lib/lensing/science-cases";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 import { verdictWithFigure } from "@/lib/workspace/case-verdict-words";
 
 /**

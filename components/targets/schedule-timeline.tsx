@@ -6,7 +6,7 @@ import { dashPatterns, plotFont, plotPalette } from "@/lib/figures/plot-palette"
 import { signalToNoiseAxis, signalToNoiseMarks } from "@/lib/figures/signal-to-noise-track";
 import { delayedImagesTimeline, lightCurveTimeline, type TimelinePoint } from "@/lib/figures/timeline-event";
 import type { TargetPhotonBudget } from "@/lib/lensing/photon-budget";
-import type { EventTiming, ScienceCaseId } from "@/lib/lensing/science-cases";
+import type { EventTiming, ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { dateWords, dayWords, daysWords, numberWords } from "@/lib/lensing/science-case-words";
 import type { LensSolution } from "@/lib/lensing/solution";
 import { DAY_S } from "@/lib/physics/constants";

@@ -3,7 +3,8 @@
 import type { FieldErrors } from "@/lib/errors";
 import { lensModelOf, lensParameters, usesParameter } from "@/lib/lensing/registry";
 import type { LensParameterKey } from "@/lib/lensing/lens-model";
-import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
+import { scienceCaseIds, type ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { lensModelLabels, lensModels, semiMajorAxisKeyOf, targetQuantities, type CreateTargetInput, type LensModel } from "@/lib/workspace/target-schema";
 import { ChoiceOptions } from "@/components/shared/choice-options";
 import { BandOptions } from "@/components/shared/photometry-fields";

@@ -5,7 +5,7 @@
 import type { ProposalRole, SiteRole } from "@/lib/workspace/roles";
 import type { TargetStatus } from "@/lib/workspace/status";
 import type { LensModel } from "@/lib/workspace/target-schema";
-import type { ScienceCaseId } from "@/lib/lensing/science-cases";
+import type { ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { parseEventPeakJdUtc, parsePeriapsisJdUtc } from "@/lib/workspace/event-peak";
 
 export interface DemoAccount {

@@ -12,7 +12,7 @@ import { hypothesisFromSketch } from "@/lib/workspace/bench-link";
 import { eventTimingOf } from "@/lib/workspace/derived";
 import { FINITE_SOURCE_METHOD } from "@/lib/lensing/finite-source";
 import type { DisplayKind } from "./display-units";
-import { eventMagnification } from "./event-magnification";
+import { eventMagnification, type EventSourceDisk } from "./event-magnification";
 import { hasPhotonSphere, surfaceImpactParameterM } from "./lens-surface";
 import { lensParametersOf, sourceOffsetThetaEOf, type SketchInputs } from "./parse-sketch";
 import { formatSignificant } from "@/lib/numbers/significant";
@@ -62,7 +62,8 @@ export interface BenchResults {
   notes: { id: string; text: string }[];
 }
 
-export interface MicrolensingEvent {
+/** The bench's microlensing event: its scales and timing, and its source (`EventSourceDisk`). */
+export interface MicrolensingEvent extends EventSourceDisk {
   thetaERad: number;
   einsteinTimeS: number;
   /** The peak, seconds from the campaign's start (`peakFromCampaignStartS`). */
@@ -73,12 +74,6 @@ export interface MicrolensingEvent {
   u0ThetaE: number;
   cadenceS: number;
   campaignS: number;
-  /** The source's radius in θ_E (ρ), whose finite-source magnification is drawn; null for a point source. */
-  sourceRadiusThetaE: number | null;
-  /** Linear limb-darkening coefficient of the source disk (0: uniform). */
-  limbDarkeningU: number;
-  /** Images closer to the lens than this (θ_E) are behind its body; 0 for a compact lens. */
-  occultingRadiusThetaE: number;
 }
 
 function deflectionRow(id: string, label: string, bOverM: number, surfaceBOverM = 0): DeflectionRow {

@@ -11,7 +11,6 @@
 // bench page must not load.
 import { finiteSourceMagnification } from "@/lib/lensing/finite-source";
 import { pointLensImages } from "@/lib/physics";
-import type { MicrolensingEvent } from "./compute-results";
 
 /** The source's size "limits" the magnification when it moves it by more than this share from a point source's. */
 const SOURCE_SIZE_LIMIT_SHARE = 0.01;
@@ -24,8 +23,18 @@ export interface EventMagnification {
   isLimitedBySourceSize: boolean;
 }
 
+/** The event's source as the magnification sees it: its disk and what the lens's body hides. */
+export interface EventSourceDisk {
+  /** The source's radius in θ_E (ρ), whose finite-source magnification is drawn; null for a point source. */
+  sourceRadiusThetaE: number | null;
+  /** Linear limb-darkening coefficient of the source disk (0: uniform). */
+  limbDarkeningU: number;
+  /** Images closer to the lens than this (θ_E) are behind its body; 0 for a compact lens. */
+  occultingRadiusThetaE: number;
+}
+
 /** Magnification at offset `u` (θ_E, ≥ 0) of the event's source, as an observer sees it; a point source when ρ is null. */
-export function eventMagnification(u: number, event: Pick<MicrolensingEvent, "sourceRadiusThetaE" | "limbDarkeningU" | "occultingRadiusThetaE">): EventMagnification {
+export function eventMagnification(u: number, event: EventSourceDisk): EventMagnification {
   const images = pointLensImages(u);
   const isPlusSeen = images.thetaPlus >= event.occultingRadiusThetaE;
   const isMinusSeen = Math.abs(images.thetaMinus) >= event.occultingRadiusThetaE;

@@ -28,7 +28,7 @@ import { acceptedRanges, isInRange, lensCompactness, MAX_LENS_COMPACTNESS, bound
 import { DAY_S, JULIAN_YEAR_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import type { LensParameterKey } from "@/lib/lensing/lens-model";
 import { lensModelOf } from "@/lib/lensing/registry";
-import type { ScienceCaseId } from "@/lib/lensing/science-cases";
+import type { ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { nightDateSchema } from "@/lib/astro/inputs";
 import { CoordinateError, parseDeclinationDeg, parseRightAscensionDeg } from "@/lib/workspace/coordinates";
 import type { FeasibilitySettings } from "@/lib/workspace/derived";

@@ -6,7 +6,7 @@
 
 import { z } from "zod";
 import { lensModelIds, type LensModelId } from "@/lib/lensing/registry";
-import { scienceCaseIds } from "@/lib/lensing/science-cases";
+import { scienceCaseIds } from "@/lib/lensing/science-case-inputs";
 
 /** Longest text a field accepts from a URL; far above any real quantity, short enough to bound work. */
 const MAX_FIELD_CHARS = 80;

@@ -14,7 +14,8 @@ import {
 import type { ImportTable } from "@/lib/imports/import-table";
 import { sourceBandChoicesText, sourceBandOfText } from "@/lib/imports/source-band";
 import { lensModelIds, lensModelOfAlias, lensModelOfParameters, lensModels } from "@/lib/lensing/registry";
-import { scienceCaseIds, scienceCaseLabels, type ScienceCaseId } from "@/lib/lensing/science-cases";
+import { scienceCaseLabels } from "@/lib/lensing/science-cases";
+import { scienceCaseIds, type ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { JULIAN_YEAR_S, MILLIARCSECOND_RAD, SOLAR_RADIUS_M } from "@/lib/physics/constants";
 import { QuantityError, parseDistance, parseLength, parseMass, parseProperMotion, parseVelocity } from "@/lib/physics/units";
 import { wordedIssue } from "@/lib/workspace/issue-words";

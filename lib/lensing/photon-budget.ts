@@ -37,7 +37,7 @@ import type { ObservingSchedule, VisitSky } from "@/lib/schedule/types";
 import { eventMagnificationAtOffset } from "./microlensing";
 import { periapsisPassage, relativisticOrbitOf, type PeriapsisPassage } from "./relativistic-orbit";
 import { firstVisitFrom } from "./science-case-schedule";
-import type { EventTiming, OrbitInputs, ScienceCaseId } from "./science-cases";
+import type { EventTiming, OrbitInputs, ScienceCaseId } from "./science-case-inputs";
 import type { LensSolution } from "./solution";
 
 /** What the proposal's photometry settings give the budget. */

@@ -25,7 +25,7 @@ import { AU_M, DAY_S, GM_SUN_M3_PER_S2, SOLAR_MASS_LENGTH_M, SPEED_OF_LIGHT_KM_P
 import { traceBoundOrbit } from "@/lib/physics/orbit-tracer";
 import { exactPeriastronAdvance, periastronAdvance } from "@/lib/physics/relativistic-effects";
 import { PERIAPSIS_WINDOW_FRACTION } from "./feasibility-rules";
-import type { OrbitInputs } from "./science-cases";
+import type { OrbitInputs } from "./science-case-inputs";
 import { numberWords } from "./science-case-words";
 
 /** An offset on the sky from the compact mass, mas: east and north (position angle from north through east). */

@@ -5,7 +5,7 @@
 
 import { emptyScheduleMessage } from "@/lib/schedule/empty-reason";
 import type { ObservingSchedule } from "@/lib/schedule/types";
-import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { NO_SCHEDULE_SENTENCE } from "./science-case-words";
 
 /** What a question is, before it is answered. */

@@ -11,7 +11,7 @@ import { pointLensImages } from "@/lib/physics/point-lens";
 import { ASTROMETRIC_DETECTION_RULE, ASTROMETRIC_EPOCH_RULE, ASTROMETRIC_NEAR_PEAK_FRACTION, gradeAtLeast, type KnownVerdict } from "./feasibility-rules";
 import { missingInput, readSchedule, type Question } from "./science-case-answer";
 import { firstVisitFrom } from "./science-case-schedule";
-import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { angleWords, dateWords, daysWords, numberWords, visitsWords } from "./science-case-words";
 
 const SHIFT_SOURCES = "Walker 1995, ApJ 453, 37; Miyamoto & Yoshii 1995, AJ 110, 1427; Høg, Novikov & Polnarev 1995, A&A 294, 287 (from memory)";

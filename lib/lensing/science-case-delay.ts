@@ -8,7 +8,7 @@ import { DAY_S } from "@/lib/physics/constants";
 import { DELAY_CADENCE_RULE, DELAY_SEASON_RULE, DELAY_SEASONS_RULE, DELAY_VISITS_RULE, gradeAtLeast, type KnownVerdict } from "./feasibility-rules";
 import { missingInput, readSchedule, type Question } from "./science-case-answer";
 import { seasonSummary } from "./science-case-schedule";
-import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { dayWords, daysWords, numberWords, visitsWords } from "./science-case-words";
 
 const SINGLE_IMAGE = "The lens forms a single image for this hypothesis: there is no second image, so no time delay to measure.";

@@ -7,7 +7,7 @@ import { MOONLIGHT_MODEL_MIN_SEPARATION_DEG } from "@/lib/photometry/moon-sky";
 import { DEPTH_RULE, gradeAtLeast, worseVerdict } from "./feasibility-rules";
 import { measuredLightWords, type PhotonBudgetOutcome, type TargetPhotonBudget } from "./photon-budget";
 import { missingInput, type Question } from "./science-case-answer";
-import type { CaseAnswer } from "./science-cases";
+import type { CaseAnswer } from "./science-case-questions";
 import { dayWords, numberWords, visitsWords } from "./science-case-words";
 
 const QUESTION: Question = {

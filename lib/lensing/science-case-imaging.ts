@@ -8,7 +8,8 @@
 import { MILLIARCSECOND_RAD } from "@/lib/physics/constants";
 import { CONTRAST_RULE, gradeAtLeast, interferometerBeamRad, RESOLUTION_RULE, SHADOW_RULE, type KnownVerdict } from "./feasibility-rules";
 import { missingInput, type Question } from "./science-case-answer";
-import type { CaseAnswer, InstrumentSettings, ScienceCaseInputs } from "./science-cases";
+import type { InstrumentSettings } from "./science-case-inputs";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { formatSignificant } from "@/lib/numbers/significant";
 import { angleWords, numberWords } from "./science-case-words";
 

@@ -21,7 +21,7 @@ import {
 import { periapsisPassage, relativisticOrbitOf, type RelativisticOrbit, type RelativisticOrbitOutcome } from "./relativistic-orbit";
 import { missingInput, readSchedule, type Question } from "./science-case-answer";
 import { daysInCycleAround, daysToUsableTime, isInCycle, isInSeason, visitsBetween } from "./science-case-schedule";
-import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { angleWords, dateWords, dayWords, daysWords, numberWords, rotationWords, SEASON_GAP_WORDS, speedWords, visitsWords } from "./science-case-words";
 
 const NEEDS_PERIAPSIS_DATE = "Set the time of one periapsis passage of the star";

@@ -22,7 +22,7 @@ import {
 import { peakMagnification } from "./microlensing";
 import { missingInput, readSchedule, type Question } from "./science-case-answer";
 import { cycleDays, daysInCycleAround, daysToUsableTime, gapAt, isInCycle, isInSeason, visitsBetween } from "./science-case-schedule";
-import type { CaseAnswer, ScienceCaseInputs } from "./science-cases";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { dateWords, daysWords, gapReasonWords, isCalendarDate, numberWords, SEASON_GAP_WORDS, visitsWords } from "./science-case-words";
 
 const PACZYNSKI = "Paczyński 1986, ApJ 304, 1";

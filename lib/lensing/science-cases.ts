@@ -7,7 +7,6 @@
  */
 
 import { DAY_S, MILLIARCSECOND_RAD } from "@/lib/physics/constants";
-import type { ObservingSchedule } from "@/lib/schedule/types";
 import {
   ASTROMETRIC_DEFAULT_MIN_OFFSET_THETA_E,
   ASTROMETRIC_DEFAULT_MIN_PRECISIONS,
@@ -16,7 +15,8 @@ import {
   RESOLUTION_RULE,
   type Verdict,
 } from "./feasibility-rules";
-import type { PhotonBudgetOutcome } from "./photon-budget";
+import type { InstrumentSettings, OrbitInputs, ScienceCaseId } from "./science-case-inputs";
+import type { CaseAnswer, ScienceCaseInputs } from "./science-case-questions";
 import { astrometricAnswers } from "./science-case-astrometric";
 import { depthAnswer } from "./science-case-depth";
 import { timeDelayAnswers } from "./science-case-delay";
@@ -27,10 +27,6 @@ import { relativisticOrbitOf } from "./relativistic-orbit";
 import { angleWords, daysWords, numberWords, rotationWords } from "./science-case-words";
 import type { LensSolution } from "./solution";
 
-/** The case ids, once: a tuple for zod and database enums. */
-export const scienceCaseIds = ["photometric-microlensing", "astrometric-microlensing", "resolved-images", "time-delay", "horizon-scale", "relativistic-orbit"] as const;
-export type ScienceCaseId = (typeof scienceCaseIds)[number];
-
 /** How each case is named to people (the trade's terms). */
 export const scienceCaseLabels: Record<ScienceCaseId, string> = {
   "photometric-microlensing": "Photometric microlensing event",
@@ -40,119 +36,6 @@ export const scienceCaseLabels: Record<ScienceCaseId, string> = {
   "horizon-scale": "Horizon-scale imaging",
   "relativistic-orbit": "Relativistic orbit",
 };
-
-/** The event's timing and source, for the microlensing cases. */
-export interface EventTiming {
-  /** Time of the closest approach (the peak), Julian date UTC; null when not set. */
-  peakJdUtc: number | null;
-  /** Impact parameter u0, units of θ_E, ≥ 0; null when not set. */
-  impactParameterThetaE: number | null;
-  /** The source's angular radius in units of θ_E, ρ = θ_s / θ_E, ≥ 0; null for a point source (radius not set). */
-  sourceRadiusThetaE: number | null;
-  /** Linear limb-darkening coefficient a of I(r) ∝ 1 − a(1 − √(1 − r²)), 0 ≤ a ≤ 1 (0: uniform disk). */
-  limbDarkeningU: number;
-}
-
-/** The instrument's side of the comparisons; each setting null when the proposal does not give it. */
-export interface InstrumentSettings {
-  /** Resolution of a single telescope: the PSF's FWHM, mas. */
-  psfFwhmMas: number | null;
-  /** An interferometer: observing wavelength (mm) and longest baseline (km), both or none. */
-  interferometer: { wavelengthMm: number; longestBaselineKm: number } | null;
-  /** Astrometric precision of one epoch (one visit), mas. */
-  astrometricPrecisionMas: number | null;
-  /**
-   * Reachable contrast: the largest flux ratio, brighter over fainter (≥ 1), at which the fainter of two
-   * images is still detected beside the brighter. A contrast given as Δm magnitudes is 10^(0.4 Δm).
-   */
-  reachableContrast: number | null;
-  /** Radial-velocity precision of one spectroscopic epoch, km/s. */
-  spectroscopicPrecisionKmPerS: number | null;
-}
-
-/** The campaign's span and pace. */
-export interface CampaignSettings {
-  /** Length of the monitoring campaign, days; null to use the cycle's length from the schedule. */
-  lengthDays: number | null;
-  /** Time between visits the proposal asks for, hours; null when not set. */
-  cadenceHours: number | null;
-}
-
-/**
- * A star (or pulsar) orbiting the compact lens, as the target gives it, for the relativistic-orbit
- * case; each value null when not set.
- */
-export interface OrbitInputs {
-  /** The compact mass, M☉ (the target's lens mass); null to take it from the period (Kepler's third law). */
-  centralMassSolar: number | null;
-  /** Distance to the compact mass, pc (the target's lens distance), for angles on the sky. */
-  distancePc: number | null;
-  /** Semi-major axis, au; null to read it from `semiMajorAxisMas`. */
-  semiMajorAxisAu: number | null;
-  /** Semi-major axis as an angle at `distancePc`, mas (used when `semiMajorAxisAu` is null). */
-  semiMajorAxisMas: number | null;
-  /** Eccentricity, 0 ≤ e < 1. */
-  eccentricity: number | null;
-  /** Orbital period, days (used for the mass when `centralMassSolar` is null). */
-  periodDays: number | null;
-  /** A time of periapsis passage, Julian date UTC. */
-  periapsisJdUtc: number | null;
-  /** Inclination, longitude of the ascending node and argument of periapsis, degrees (the usual visual-binary convention). */
-  inclinationDeg: number | null;
-  nodeDeg: number | null;
-  periapsisArgumentDeg: number | null;
-}
-
-/** Everything the questions read. */
-export interface ScienceCaseInputs {
-  solution: LensSolution;
-  event: EventTiming;
-  instrument: InstrumentSettings;
-  /** The target's simulated schedule over the cycle; null when the proposal has no site or cycle dates. */
-  schedule: ObservingSchedule | null;
-  campaign: CampaignSettings;
-  /** The target's photon budget in this case, or why there is none (photon-budget.ts). */
-  photonBudget: PhotonBudgetOutcome;
-  /** The orbiting star of the relativistic-orbit case (every value null for other targets). */
-  orbit: OrbitInputs;
-}
-
-/** Stable question ids (also test ids on the page). */
-export type CaseQuestionId =
-  | "peak-magnification"
-  | "event-visits"
-  | "peak-visits"
-  | "peak-window"
-  | "event-duration"
-  | "astrometric-shift"
-  | "astrometric-detection"
-  | "image-separation"
-  | "flux-ratio"
-  | "delay-season"
-  | "delay-visits"
-  | "delay-cadence"
-  | "seasons-covered"
-  | "shadow"
-  | "photon-ring"
-  | "periapsis-season"
-  | "periapsis-epochs"
-  | "precession-signal"
-  | "redshift-signal"
-  | "depth";
-
-/** One answered question. */
-export interface CaseAnswer {
-  id: CaseQuestionId;
-  /** The question as the page names it. */
-  question: string;
-  verdict: Verdict;
-  /** The number behind the verdict, in words with units ("—" when there is none). */
-  figure: string;
-  /** The answer as a full sentence with its number; for "unknown", the missing input in words. */
-  sentence: string;
-  /** The rule's source: a paper, "common practice" or "our rule". */
-  source: string;
-}
 
 /** The questions of a case with their answers, in the order the page shows them. */
 export function scienceCaseQuestions(caseId: ScienceCaseId, inputs: ScienceCaseInputs): CaseAnswer[] {

@@ -5,7 +5,7 @@ import { proposals, targets, type Target } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import { formatDeclination, formatRightAscension } from "@/lib/workspace/coordinates";
 import type { TargetPage, TargetView } from "@/lib/workspace/target-view";
-import type { CaseAnswer } from "@/lib/lensing/science-cases";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 import { proposalParamsSchema, targetParamsSchema } from "@/lib/workspace/ids";
 import { canChangeStatus } from "@/lib/workspace/status";
 import { targetListQuerySchema, type TargetSortColumn } from "@/lib/workspace/target-query";

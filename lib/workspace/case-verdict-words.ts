@@ -3,7 +3,7 @@
  * the table exports): each verdict names its question, so no badge has to be matched to a header.
  */
 import type { Verdict } from "@/lib/lensing/feasibility-rules";
-import type { CaseAnswer } from "@/lib/lensing/science-cases";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 
 /** How a verdict reads to people. */
 export const verdictLabels: Record<Verdict, string> = {

@@ -3,15 +3,9 @@ import type { LensGeometry } from "@/lib/lensing/lens-model";
 import { sourceRadiusInThetaE } from "@/lib/lensing/microlensing";
 import { solveLens } from "@/lib/lensing/registry";
 import { caseVerdictOf, type Verdict } from "@/lib/lensing/feasibility-rules";
-import {
-  defaultScienceCase,
-  scienceCaseQuestions,
-  type CaseAnswer,
-  type EventTiming,
-  type InstrumentSettings as CaseInstrument,
-  type OrbitInputs,
-  type ScienceCaseId,
-} from "@/lib/lensing/science-cases";
+import { defaultScienceCase, scienceCaseQuestions } from "@/lib/lensing/science-cases";
+import type { EventTiming, InstrumentSettings as CaseInstrument, OrbitInputs, ScienceCaseId } from "@/lib/lensing/science-case-inputs";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 import type { LensSolution } from "@/lib/lensing/solution";
 import { targetPhotonBudget, type PhotonBudgetInputs, type PhotonBudgetOutcome } from "@/lib/lensing/photon-budget";
 import { bandSkyOf, psfShapeOf } from "@/lib/workspace/photometry-schema";

@@ -3,7 +3,7 @@ import { storedText } from "@/lib/workspace/stored-text";
 import { lensModels } from "@/lib/workspace/target-schema";
 import { targetStatuses } from "@/lib/workspace/status";
 import { verdicts } from "@/lib/lensing/feasibility-rules";
-import { scienceCaseIds } from "@/lib/lensing/science-cases";
+import { scienceCaseIds } from "@/lib/lensing/science-case-inputs";
 
 /** Columns the target table may be sorted by; anything else is refused, never passed to SQL. */
 export const targetSortColumns = [

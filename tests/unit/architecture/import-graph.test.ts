@@ -41,7 +41,7 @@ const under = (...folders: string[]) => (path: string) => folders.some((folder) 
  * layer: it is a program (run by scripts/seed.ts) that writes the demo through the domain's own
  * schemas, password hashing and derived columns, like scripts/, so it may use lib.
  */
-const libModulesTheDatabaseLayerNeeds = new Set(["lib/env.ts", "lib/lensing/registry.ts", "lib/lensing/science-cases.ts"]);
+const libModulesTheDatabaseLayerNeeds = new Set(["lib/env.ts", "lib/lensing/registry.ts", "lib/lensing/science-case-inputs.ts"]);
 
 const layerRules: LayerRule[] = [
   { name: "lib, workers and db import nothing of components or app", from: under("lib", "workers", "db"), to: under("components", "app") },

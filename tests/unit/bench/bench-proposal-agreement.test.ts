@@ -4,7 +4,7 @@ import { benchCaseReport, benchSchedule, benchScheduleRequest, type BenchSchedul
 import { computeResults } from "@/lib/bench/compute-results";
 import { parseSketch } from "@/lib/bench/parse-sketch";
 import { sketchFromSearchParams } from "@/lib/bench/sketch-state";
-import { scienceCaseIds, type ScienceCaseId } from "@/lib/lensing/science-cases";
+import { scienceCaseIds, type ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { DAY_S, MICROARCSECOND_RAD, MILLIARCSECOND_RAD } from "@/lib/physics";
 import type { ObservingSchedule } from "@/lib/schedule";
 import { benchLink, hypothesisFromSketch, type BenchTarget } from "@/lib/workspace/bench-link";

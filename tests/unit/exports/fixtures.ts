@@ -1,4 +1,4 @@
-import type { CaseAnswer } from "@/lib/lensing/science-cases";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { buildProvenance } from "@/lib/exports/provenance";
 

@@ -1,5 +1,5 @@
 /** Orbiting stars for the relativistic-orbit tests, as a target's fields (OrbitInputs). */
-import type { OrbitInputs } from "@/lib/lensing/science-cases";
+import type { OrbitInputs } from "@/lib/lensing/science-case-inputs";
 
 /** A target without an orbiting star. */
 export const noOrbit: OrbitInputs = {

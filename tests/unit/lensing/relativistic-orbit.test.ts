@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { nextPeriapsisJdUtc, relativisticOrbitOf, SKY_SAMPLES, type RelativisticOrbit, type SkyPoint } from "@/lib/lensing/relativistic-orbit";
-import type { OrbitInputs } from "@/lib/lensing/science-cases";
+import type { OrbitInputs } from "@/lib/lensing/science-case-inputs";
 import { ARCSECOND_RAD, JULIAN_YEAR_S, DAY_S } from "@/lib/physics/constants";
 import { noOrbit, S2 } from "./orbit-inputs";
 

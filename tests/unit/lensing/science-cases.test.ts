@@ -1,15 +1,7 @@
 import { describe, expect, it } from "vitest";
-import {
-  defaultScienceCase,
-  scienceCaseIds,
-  scienceCaseLabels,
-  scienceCaseQuestions,
-  type CaseAnswer,
-  type CaseQuestionId,
-  type InstrumentSettings,
-  type ScienceCaseId,
-  type ScienceCaseInputs,
-} from "@/lib/lensing/science-cases";
+import { defaultScienceCase, scienceCaseLabels, scienceCaseQuestions } from "@/lib/lensing/science-cases";
+import { scienceCaseIds, type InstrumentSettings, type ScienceCaseId } from "@/lib/lensing/science-case-inputs";
+import type { CaseAnswer, CaseQuestionId, ScienceCaseInputs } from "@/lib/lensing/science-case-questions";
 import type { LensSolution } from "@/lib/lensing/solution";
 import {
   DAY_S,

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import type { CaseAnswer } from "@/lib/lensing/science-cases";
+import type { CaseAnswer } from "@/lib/lensing/science-case-questions";
 import { answerLine, answersLine, caseVerdictLine } from "@/lib/workspace/case-verdict-words";
 
 const answer = (id: CaseAnswer["id"], question: string, verdict: CaseAnswer["verdict"], figure = "—"): CaseAnswer => ({ id, question, verdict, figure, sentence: `${question}.`, source: "our rule" });

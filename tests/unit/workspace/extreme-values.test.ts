@@ -9,7 +9,7 @@ import { parseCsvTable } from "@/lib/imports/csv";
 import { validateImportRows } from "@/lib/imports/rows";
 import { deriveTargetColumns } from "@/lib/workspace/derived";
 import { instrumentSchema } from "@/lib/workspace/proposal-schema";
-import { scienceCaseIds } from "@/lib/lensing/science-cases";
+import { scienceCaseIds } from "@/lib/lensing/science-case-inputs";
 import { createTargetSchema, lensHypothesisErrors } from "@/lib/workspace/target-schema";
 
 /**
