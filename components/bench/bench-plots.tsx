@@ -4,11 +4,12 @@ import { useMemo } from "react";
 import type { BenchResults } from "@/lib/bench/compute-results";
 import { angleInUnit, naturalAngleUnit, unitLabel } from "@/lib/bench/display-units";
 import { astrometricTrack, deflectionCurves, lightCurve } from "@/lib/bench/plot-data";
-import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
-import { DeflectionPlot } from "@/lib/figures/deflection-plot";
-import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
-import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
+import { astrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
+import { deflectionPlot } from "@/lib/figures/deflection-plot";
+import { lensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
+import { lightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import type { ObservingSchedule } from "@/lib/schedule";
 
 const PLOT_WIDTH = 540;
@@ -27,35 +28,43 @@ function PlotCard({ children, testId }: { children: React.ReactNode; testId: str
  * epochs are the simulated schedule's visits once it is known, the ones the science case counts.
  */
 export function BenchPlots({ results, schedule }: { results: BenchResults; schedule: ObservingSchedule | undefined }) {
-  const curves = useMemo(() => deflectionCurves(), []);
+  const deflectionTree = useMemo(() => deflectionPlot({ curves: deflectionCurves(), width: PLOT_WIDTH, height: PLOT_HEIGHT }), []);
   const event = results.event;
-  const eventPlots = useMemo(() => (event === undefined ? undefined : { light: lightCurve(event, schedule), track: astrometricTrack(event, schedule) }), [event, schedule]);
+  const layout = results.lensPlane;
+  const thetaERad = layout.thetaERad;
+  const lensPlaneTree = useMemo(() => {
+    const angleUnit = naturalAngleUnit(thetaERad);
+    return lensPlaneDiagram({ layout, thetaEInUnit: angleInUnit(thetaERad, angleUnit), unitLabel: unitLabel(angleUnit), width: PLOT_WIDTH, height: PLOT_HEIGHT });
+  }, [layout, thetaERad]);
+  const eventPlots = useMemo(() => {
+    if (event === undefined) return undefined;
+    const light = lightCurve(event, schedule);
+    // The centroid shift is ~θ_E/3: a finer unit often reads better there.
+    const shiftUnit = naturalAngleUnit(thetaERad / 3);
+    const track = astrometricTrackPlot({ track: astrometricTrack(event, schedule), thetaEInUnit: angleInUnit(thetaERad, shiftUnit), unitLabel: unitLabel(shiftUnit), width: PLOT_WIDTH, height: PLOT_HEIGHT });
+    return { isLimitedBySourceSize: light.isLimitedBySourceSize, light: lightCurvePlot({ lightCurve: light, width: PLOT_WIDTH, height: PLOT_HEIGHT }), track };
+  }, [event, schedule, thetaERad]);
   const isScheduled = schedule !== undefined && event?.campaignStartJdUtc != null;
-  const thetaERad = results.lensPlane.thetaERad;
-  const angleUnit = naturalAngleUnit(thetaERad);
-  const thetaEInUnit = angleInUnit(thetaERad, angleUnit);
-  // The centroid shift is ~θ_E/3: a finer unit often reads better there.
-  const shiftUnit = naturalAngleUnit(thetaERad / 3);
   return (
     <section aria-label="Plots" className="grid gap-4 xl:grid-cols-2">
       <PlotCard testId="plot-lens-plane">
-        <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={thetaEInUnit} unitLabel={unitLabel(angleUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+        <FigureSvg tree={lensPlaneTree} />
         <FigureDownloads path="/api/bench/exports/lens-plane" isSketchFromAddress figureName="lens-plane diagram" />
       </PlotCard>
       <PlotCard testId="plot-deflection">
-        <DeflectionPlot curves={curves} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+        <FigureSvg tree={deflectionTree} />
         <FigureDownloads path="/api/bench/exports/deflection" isSketchFromAddress figureName="deflection plot" />
       </PlotCard>
       {eventPlots !== undefined ? (
         <>
           <PlotCard testId="plot-light-curve">
-            <LightCurvePlot lightCurve={eventPlots.light} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+            <FigureSvg tree={eventPlots.light} />
             <figcaption className="px-2 text-xs text-dusk-dim" data-testid="light-curve-epochs">
               {isScheduled
                 ? "Epochs: the visits the simulated schedule places in the campaign (dark, above the limits, clear nights), from the cycle's first night."
                 : "Epochs: one per cadence interval from the campaign's start, until a schedule is simulated (it needs the cycle dates and the event peak)."}
             </figcaption>
-            {eventPlots.light.isLimitedBySourceSize ? (
+            {eventPlots.isLimitedBySourceSize ? (
               <figcaption className="px-2 text-xs text-ember" data-testid="light-curve-capped">
                 The peak is limited by the source&apos;s size: the curve is a uniform disk&apos;s finite-source magnification, which differs there
                 by more than 1% from a point source&apos;s.
@@ -64,7 +73,7 @@ export function BenchPlots({ results, schedule }: { results: BenchResults; sched
             <FigureDownloads path="/api/bench/exports/light-curve" isSketchFromAddress figureName="light curve" />
           </PlotCard>
           <PlotCard testId="plot-astrometric-track">
-            <AstrometricTrackPlot track={eventPlots.track} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} width={PLOT_WIDTH} height={PLOT_HEIGHT} />
+            <FigureSvg tree={eventPlots.track} />
             <FigureDownloads path="/api/bench/exports/astrometric-track" isSketchFromAddress figureName="astrometric track" />
           </PlotCard>
         </>

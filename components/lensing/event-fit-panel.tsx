@@ -4,10 +4,11 @@ import { useEffect, useId, useMemo, useRef, useState } from "react";
 import { useRouter } from "next/navigation";
 import useSWR, { useSWRConfig } from "swr";
 import { FigureDownloads } from "@/components/exports/figure-downloads";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import { apiFetch, swrFetcher } from "@/components/shared/api-client";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { targetPhotometryUrl, type TargetPhotometryView } from "@/lib/event-photometry/views";
-import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, EventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";
+import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, eventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";
 import { eventFitView } from "@/lib/figures/event-fit-view";
 import type { PhotometryPoint, PointLensFit } from "@/lib/lensing/fit";
 import { defaultEventFitChoices, defaultReferenceDataset, eventFitQuery, fitOptionsOf, isBand, predictionOptionsOf, type BandName, type EventFitChoices, type EventFitTarget } from "@/lib/lensing/fit-choices";
@@ -262,6 +263,8 @@ interface FitResultProps {
 function FitResult({ done, view, title, referenceDataset, onReferenceChange, outlook, bandNote, isStale, exportQuery, exportPath }: FitResultProps) {
   const id = useId();
   const { fit } = done;
+  // Clip ids unique on the page: url(#…) resolves to the first element of that id in the document.
+  const figure = useMemo(() => (view === null ? null : eventFitPlot({ view, title, width: EVENT_FIT_WIDTH_PX, height: EVENT_FIT_HEIGHT_PX, idPrefix: `event-fit-${id.replace(/[^A-Za-z0-9-]/g, "")}` })), [view, title, id]);
   return (
     <div className="space-y-3" data-testid="fit-result">
       {isStale ? <p className="text-dusk-dim">The photometry has changed since this fit; the figure and numbers are of the points it was fitted on.</p> : null}
@@ -318,10 +321,10 @@ function FitResult({ done, view, title, referenceDataset, onReferenceChange, out
       ) : null}
       {bandNote !== null ? <p className="text-dusk-dim">{bandNote}</p> : null}
       <p data-testid="fit-prediction">{done.prediction === null ? (done.predictionReason ?? "No prediction.") : outlook}</p>
-      {view !== null ? (
+      {view !== null && figure !== null ? (
         <figure className="space-y-1">
           <div className="overflow-x-auto">
-            <EventFitPlot view={view} title={title} width={EVENT_FIT_WIDTH_PX} height={EVENT_FIT_HEIGHT_PX} />
+            <FigureSvg tree={figure} />
           </div>
           <figcaption className="text-xs text-dusk-dim">
             Every dataset is drawn on {view.referenceDataset}&apos;s magnitudes through the fit (common practice); the band is the prediction&apos;s 68 % interval from the last point, with the site&apos;s usable windows shaded.

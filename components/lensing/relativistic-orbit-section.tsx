@@ -3,7 +3,8 @@ import { nextPeriapsisJdUtc } from "@/lib/lensing/relativistic-orbit";
 import { dateWords, daysWords, numberWords, speedWords } from "@/lib/lensing/science-case-words";
 import { ARCSECOND_RAD, SPEED_OF_LIGHT_KM_PER_S } from "@/lib/physics/constants";
 import { orbitSkyTitle, orbitSkyView } from "@/lib/figures/orbit-sky-view";
-import { ORBIT_SKY_SIZE_PX, OrbitSkyPlot } from "@/lib/figures/orbit-sky-plot";
+import { ORBIT_SKY_SIZE_PX, orbitSkyPlot } from "@/lib/figures/orbit-sky-plot";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import { OrbitScenePanel } from "@/components/lensing/orbit-scene-panel";
 
 /** An advance per orbit both ways: "12.1′ (727″)". */
@@ -154,7 +155,7 @@ export function RelativisticOrbitSection({ targetName, outcome, periapsisJdUtc, 
           </p>
         ) : (
           <figure className="space-y-2" data-testid="orbit-sky" data-magnification={view.magnification}>
-            <OrbitSkyPlot view={view} title={orbitSkyTitle(targetName)} size={ORBIT_SKY_SIZE_PX} />
+            <FigureSvg tree={orbitSkyPlot({ view, title: orbitSkyTitle(targetName), size: ORBIT_SKY_SIZE_PX })} />
             <figcaption className="text-xs text-dusk-dim">
               Offsets from the compact mass in mas at the lens distance, north up, east left.{" "}
               {view.magnification > 1

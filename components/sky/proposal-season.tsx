@@ -2,9 +2,10 @@
 
 import { useMemo, useState } from "react";
 import { weekWithMostTargetsAtBest } from "@/lib/astro/season";
-import { SeasonChart } from "@/lib/figures/season-chart";
+import { seasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfSchedules, seasonWeekCount, weekRangeText } from "@/lib/figures/season-view";
 import type { ScheduleConditions } from "@/lib/schedule";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import { ScheduleSeasonTable } from "./schedule-season-table";
 import { useProposalSchedules } from "./use-proposal-schedules";
 
@@ -34,6 +35,7 @@ export function ProposalSeason({ conditions, targets }: ProposalSeasonProps) {
   // The list's headline week: the one in which the most targets are in one of their own best weeks.
   // A count of targets: hours of different targets are never added.
   const headline = useMemo(() => (view ? weekWithMostTargetsAtBest(view.rows, seasonWeekCount(view.nightDatesIso)) : null), [view]);
+  const chart = useMemo(() => (view ? seasonChart({ view, targetIndices: pageIndices }) : null), [view, pageIndices]);
 
   if (status === "failed") return <p role="alert" className="text-alarm">The schedule could not be simulated: {error}</p>;
   if (!view) return <p className="text-dusk-dim">Simulating the schedule for {targets.length} targets…</p>;
@@ -66,7 +68,7 @@ export function ProposalSeason({ conditions, targets }: ProposalSeasonProps) {
           Next targets
         </button>
       </nav>
-      <SeasonChart view={view} targetIndices={pageIndices} />
+      {chart ? <FigureSvg tree={chart} /> : null}
       <ScheduleSeasonTable view={view} targetIndices={pageIndices} />
     </div>
   );

@@ -2,10 +2,11 @@
 
 import { useEffect, useId, useMemo, useState } from "react";
 import { nightlyVisibility } from "@/lib/astro/visibility";
-import { NightChart } from "@/lib/figures/night-chart";
+import { nightChart } from "@/lib/figures/night-chart";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import { NightDateControl } from "./night-date-control";
 import { NightFigures } from "./night-figures";
-import { SeasonChart } from "@/lib/figures/season-chart";
+import { seasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfWindows } from "@/lib/figures/season-view";
 import { SeasonTable } from "./season-table";
 import { parseSkyQuery, skyQuantitySpecs, skyQueryToString, type SkyQuery, type SkyQueryField } from "@/lib/astro/sky-query";
@@ -72,6 +73,8 @@ export function SkyPlanner({ initialQuery }: { initialQuery: SkyQuery }) {
     [parsed],
   );
   const season = useSeason(seasonRequest);
+  const nightTree = useMemo(() => (visibility ? nightChart({ visibility }) : null), [visibility]);
+  const seasonTree = useMemo(() => (season.value ? seasonChart({ view: seasonViewOfWindows(season.value), targetIndices: season.value.targets.map((_, index) => index) }) : null), [season.value]);
 
   useEffect(() => {
     const search = skyQueryToString(query);
@@ -93,10 +96,10 @@ export function SkyPlanner({ initialQuery }: { initialQuery: SkyQuery }) {
         </div>
       </form>
 
-      {visibility ? (
+      {visibility && nightTree ? (
         <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
           <div className="rounded-md border border-void-edge">
-            <NightChart visibility={visibility} />
+            <FigureSvg tree={nightTree} />
             <p className="px-3 py-2 text-xs text-dusk-dim">
               Sky shading from light to dark: day, civil, nautical and astronomical twilight, darkness (Sun below −18°).
               Green fill: dark time above the limit. Air mass: Pickering 2002. Times UTC.
@@ -114,7 +117,7 @@ export function SkyPlanner({ initialQuery }: { initialQuery: SkyQuery }) {
         {season.status === "computing" ? <p className="text-dusk-dim">Computing the season…</p> : null}
         {season.value ? (
           <>
-            <SeasonChart view={seasonViewOfWindows(season.value)} targetIndices={season.value.targets.map((_, index) => index)} />
+            {seasonTree ? <FigureSvg tree={seasonTree} /> : null}
             <SeasonTable season={season.value} targetIndices={season.value.targets.map((_, index) => index)} />
           </>
         ) : null}

@@ -1,13 +1,14 @@
 "use client";
 
-import { useEffect, useMemo, useState } from "react";
+import { useEffect, useId, useMemo, useState } from "react";
 import type { SkySiteInput } from "@/lib/astro/inputs";
 import { nightlyVisibility } from "@/lib/astro/visibility";
-import { NightChart } from "@/lib/figures/night-chart";
-import { NightSkyBrightnessChart } from "@/lib/figures/night-sky-brightness";
+import { nightChart } from "@/lib/figures/night-chart";
+import { nightSkyBrightnessChart } from "@/lib/figures/night-sky-brightness";
 import { nightSkyBrightness } from "@/lib/photometry/night-sky";
 import type { BandSky } from "@/lib/photometry/visit-budget";
 import { NightSkyFigureDownloads } from "@/components/exports/sky-figure-downloads";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import type { ObservingSchedule } from "@/lib/schedule";
 import { nightPlan } from "@/lib/schedule/timeline-plot";
 import { NightDateControl } from "./night-date-control";
@@ -51,6 +52,13 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, 
       return { sky: null, error: `The sky brightness could not be computed: ${error instanceof Error ? error.message : String(error)}` };
     }
   }, [site, target, nightIso, bandSky]);
+  const nightTree = useMemo(
+    () => (result.visibility ? nightChart({ visibility: result.visibility, plannedVisits: schedule === null ? undefined : { visitsJdUtc: plan.visitsJdUtc, visitLengthDays: schedule.visitLengthDays } }) : null),
+    [result, schedule, plan],
+  );
+  // Ids unique on the page: url(#…) resolves to the first element of that id in the document.
+  const skyIdPrefix = `night-sky-${useId().replace(/[^A-Za-z0-9-]/g, "")}`;
+  const skyTree = useMemo(() => (nightSky.sky !== null ? nightSkyBrightnessChart({ sky: nightSky.sky, idPrefix: skyIdPrefix }) : null), [nightSky, skyIdPrefix]);
 
   useEffect(() => {
     const url = new URL(window.location.href);
@@ -65,10 +73,10 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, 
         Night from {site.name}
       </h2>
       <NightDateControl value={nightIso} onChange={setNightIso} />
-      {result.visibility ? (
+      {result.visibility && nightTree ? (
         <div className="grid gap-6 lg:grid-cols-[2fr_1fr]">
           <div className="rounded-md border border-void-edge">
-            <NightChart visibility={result.visibility} plannedVisits={schedule === null ? undefined : { visitsJdUtc: plan.visitsJdUtc, visitLengthDays: schedule.visitLengthDays }} />
+            <FigureSvg tree={nightTree} />
             <p className="px-3 pt-2 text-sm" data-testid="night-planned-visits" data-count={plan.visitsJdUtc.length}>
               {plan.sentence}
             </p>
@@ -79,9 +87,9 @@ export function TargetNightPanel({ site, target, airmassLimit, initialNightIso, 
           </div>
           <NightFigures visibility={result.visibility} />
           <div className="rounded-md border border-void-edge lg:col-span-2" data-testid="night-sky-panel">
-            {nightSky.sky !== null ? (
+            {skyTree !== null ? (
               <>
-                <NightSkyBrightnessChart sky={nightSky.sky} />
+                <FigureSvg tree={skyTree} />
                 <p className="px-3 py-2 text-xs text-dusk-dim">
                   Sky surface brightness at the target in its band through astronomical darkness while it is up (brighter up): the dark sky at the target&apos;s zenith distance (the site&apos;s zenith value,
                   Krisciunas &amp; Schaefer 1991 eq. 2) dashed, and with the Moon&apos;s light added (K&amp;S eq. 15 in V, carried to the band by the Sun&apos;s colour), the Moon&apos;s share hatched

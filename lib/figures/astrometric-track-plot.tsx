@@ -1,6 +1,8 @@
+/** @jsxImportSource hastscript/svg */
 import { line, scaleLinear } from "d3";
 import type { AstrometricTrack, CurvePoint } from "@/lib/bench/plot-data";
-import { defaultMargins, Marker, PlotAxes, PlotLegend, PlotSurface } from "./plot-axes";
+import type { FigureTree } from "./figure-tree";
+import { defaultMargins, marker, plotAxes, plotLegend, plotSurface } from "./plot-axes";
 import { plotPalette, type PlotPalette } from "./plot-palette";
 
 interface AstrometricTrackPlotProps {
@@ -15,7 +17,7 @@ interface AstrometricTrackPlotProps {
 }
 
 /** The centroid shift of the images on the sky through the event, to equal scale on both axes. */
-export function AstrometricTrackPlot({ track, thetaEInUnit, unitLabel, width, height, palette = plotPalette }: AstrometricTrackPlotProps) {
+export function astrometricTrackPlot({ track, thetaEInUnit, unitLabel, width, height, palette = plotPalette }: AstrometricTrackPlotProps): FigureTree {
   const margins = defaultMargins;
   // Centroid shift peaks at θ_E/(2√2) ≈ 0.354 θ_E (u = √2); ±0.4 θ_E holds the whole track.
   const half = 0.4 * thetaEInUnit;
@@ -25,23 +27,23 @@ export function AstrometricTrackPlot({ track, thetaEInUnit, unitLabel, width, he
   const x = scaleLinear().domain([-half * aspect, half * aspect]).range([margins.left, width - margins.right]);
   const y = scaleLinear().domain([-half, half]).range([height - margins.bottom, margins.top]);
   const path = line<CurvePoint>().x((point) => x(point.x * thetaEInUnit)).y((point) => y(point.y * thetaEInUnit));
-  return (
-    <PlotSurface palette={palette} width={width} height={height} label="Astrometric centroid track">
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel={`shift along the lens–source motion (${unitLabel})`} yLabel={`shift across it (${unitLabel})`} title="Astrometric centroid shift" />
+  return plotSurface(
+    { palette, width, height, label: "Astrometric centroid track" },
+    <>
+      {plotAxes({ palette, x, y, width, height, margins, xLabel: `shift along the lens–source motion (${unitLabel})`, yLabel: `shift across it (${unitLabel})`, title: "Astrometric centroid shift" })}
       <path d={path(track.track) ?? ""} fill="none" stroke={palette.bluishGreen} strokeWidth={2} />
-      {track.epochs.map((epoch, index) => (
-        <Marker key={index} shape="square" cx={x(epoch.x * thetaEInUnit)} cy={y(epoch.y * thetaEInUnit)} size={4} color={palette.orange} isHollow />
-      ))}
-      <Marker shape="cross" cx={x(0)} cy={y(0)} size={8} color={palette.ink} />
-      <PlotLegend palette={palette}
-        x={margins.left + 8}
-        y={margins.top + 6}
-        entries={[
+      {track.epochs.map((epoch) => marker({ shape: "square", cx: x(epoch.x * thetaEInUnit), cy: y(epoch.y * thetaEInUnit), size: 4, color: palette.orange, isHollow: true }))}
+      {marker({ shape: "cross", cx: x(0), cy: y(0), size: 8, color: palette.ink })}
+      {plotLegend({
+        palette,
+        x: margins.left + 8,
+        y: margins.top + 6,
+        entries: [
           { label: "centroid track, t_0 ± 6 t_E", color: palette.bluishGreen },
           { label: "epochs in the campaign", color: palette.orange, marker: "square" },
           { label: "unlensed source position", color: palette.ink, marker: "cross" },
-        ]}
-      />
-    </PlotSurface>
+        ],
+      })}
+    </>,
   );
 }

@@ -1,7 +1,9 @@
+/** @jsxImportSource hastscript/svg */
 import { line, scaleLog } from "d3";
 import type { CurvePoint, DeflectionCurves } from "@/lib/bench/plot-data";
-import { defaultMargins, PlotAxes, PlotLegend, PlotSurface } from "./plot-axes";
-import { PlotText } from "./plot-text";
+import type { FigureTree } from "./figure-tree";
+import { defaultMargins, plotAxes, plotLegend, plotSurface } from "./plot-axes";
+import { plotText } from "./plot-text";
 import { dashPatterns, plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 
 interface DeflectionPlotProps {
@@ -13,7 +15,7 @@ interface DeflectionPlotProps {
 }
 
 /** Deflection α against impact parameter b/M on log axes: exact, weak-field orders 1–3, strong-deflection limit, b_c. */
-export function DeflectionPlot({ curves, width, height, palette = plotPalette }: DeflectionPlotProps) {
+export function deflectionPlot({ curves, width, height, palette = plotPalette }: DeflectionPlotProps): FigureTree {
   const margins = defaultMargins;
   const x = scaleLog().domain([curves.criticalBOverM * 0.9, curves.exact[curves.exact.length - 1].x]).range([margins.left, width - margins.right]);
   const y = scaleLog().domain([curves.exact[curves.exact.length - 1].y * 0.7, 20]).range([height - margins.bottom, margins.top]).clamp(true);
@@ -26,22 +28,23 @@ export function DeflectionPlot({ curves, width, height, palette = plotPalette }:
     { label: "strong-deflection limit", points: curves.strongField, color: palette.reddishPurple, dash: dashPatterns.dotted, width: 2.2 },
   ];
   const xCritical = x(curves.criticalBOverM);
-  return (
-    <PlotSurface palette={palette} width={width} height={height} label="Deflection angle against impact parameter">
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="impact parameter b / M (M = GM/c²)" yLabel="deflection α (rad)" title="Deflection angle" xTicks={5} yTicks={5} />
+  return plotSurface(
+    { palette, width, height, label: "Deflection angle against impact parameter" },
+    <>
+      {plotAxes({ palette, x, y, width, height, margins, xLabel: "impact parameter b / M (M = GM/c²)", yLabel: "deflection α (rad)", title: "Deflection angle", xTicks: 5, yTicks: 5 })}
       <g clipPath="url(#deflection-clip)">
         <clipPath id="deflection-clip">
           <rect x={margins.left} y={margins.top} width={width - margins.left - margins.right} height={height - margins.top - margins.bottom} />
         </clipPath>
         {series.map((entry) => (
-          <path key={entry.label} d={path(entry.points) ?? ""} fill="none" stroke={entry.color} strokeWidth={entry.width} strokeDasharray={entry.dash} />
+          <path d={path(entry.points) ?? ""} fill="none" stroke={entry.color} strokeWidth={entry.width} strokeDasharray={entry.dash} />
         ))}
       </g>
       <line x1={xCritical} x2={xCritical} y1={margins.top} y2={height - margins.bottom} stroke={palette.vermillion} strokeWidth={1.5} strokeDasharray="3 2" />
       <text x={xCritical + 4} y={height - margins.bottom - 6} fontFamily={plotFont} fontSize={11} fill={palette.vermillion}>
-        <PlotText text="b_c = 3√3 M" fontSize={11} />
+        {plotText({ text: "b_c = 3√3 M", fontSize: 11 })}
       </text>
-      <PlotLegend palette={palette} x={width - margins.right - 170} y={margins.top + 6} entries={series.map(({ label, color, dash }) => ({ label, color, dash }))} />
-    </PlotSurface>
+      {plotLegend({ palette, x: width - margins.right - 170, y: margins.top + 6, entries: series.map(({ label, color, dash }) => ({ label, color, dash })) })}
+    </>,
   );
 }

@@ -1,8 +1,9 @@
-import { useId } from "react";
+/** @jsxImportSource hastscript/svg */
 import { area, line, scaleLinear } from "d3";
 import { dateFromJdUtc } from "@/lib/astro/time";
 import type { EventFitView } from "./event-fit-view";
-import { Marker, PlotAxes, PlotLegend, PlotSurface, type LegendEntry, type PlotMargins } from "./plot-axes";
+import type { FigureTree } from "./figure-tree";
+import { marker, plotAxes, plotLegend, plotSurface, type LegendEntry, type PlotMargins } from "./plot-axes";
 import { dashPatterns, plotPalette, type PlotPalette } from "./plot-palette";
 
 /** The figure's size (CSS px) on the target page and in the exports. */
@@ -22,6 +23,8 @@ interface EventFitPlotProps {
   height: number;
   /** The screen style unless given; exports draw in `printPalette`. */
   palette?: PlotPalette;
+  /** Starts the ids of the figure's clip paths, which must be unique in the page or file (`url(#…)` finds the first). */
+  idPrefix?: string;
 }
 
 /** Share of the height the light-curve panel takes; the residual panel has the rest. */
@@ -37,7 +40,7 @@ function timeScale(view: EventFitView, width: number, withLabels: boolean) {
   const x = scaleLinear()
     .domain([from - view.originJdUtc, to - view.originJdUtc])
     .range([margins.left, width - margins.right]);
-  // PlotAxes labels ticks through the scale's own tickFormat: whole days from a midnight are dates.
+  // plotAxes labels ticks through the scale's own tickFormat: whole days from a midnight are dates.
   x.tickFormat = () => (value) => (withLabels ? dateFromJdUtc(view.originJdUtc + Number(value)).toISOString().slice(0, 10) : "");
   return x;
 }
@@ -48,8 +51,7 @@ function timeScale(view: EventFitView, width: number, withLabels: boolean) {
  * prediction's 68 % band over the next days with the site's usable windows shaded and the schedule's
  * visits ticked at the foot, and the residuals below against calendar dates (UTC).
  */
-export function EventFitPlot({ view, title, width, height, palette = plotPalette }: EventFitPlotProps) {
-  const idBase = `event-fit-${useId().replace(/[^A-Za-z0-9-]/g, "")}`;
+export function eventFitPlot({ view, title, width, height, palette = plotPalette, idPrefix: idBase = "event-fit" }: EventFitPlotProps): FigureTree {
   const mainHeight = Math.round(height * MAIN_PANEL_SHARE);
   const residualHeight = height - mainHeight;
   const x = timeScale(view, width, false);
@@ -87,8 +89,9 @@ export function EventFitPlot({ view, title, width, height, palette = plotPalette
     ...(view.windows.length > 0 ? [{ label: "site's usable windows (shaded)", color: palette.bluishGreen, marker: "square" as const }] : []),
     ...(view.visitsJdUtc.length > 0 ? [{ label: "schedule visits (ticks at the foot)", color: palette.vermillion, dash: dashPatterns.dashDot }] : []),
   ];
-  return (
-    <PlotSurface palette={palette} width={width} height={height} label={title}>
+  return plotSurface(
+    { palette, width, height, label: title },
+    <>
       <defs>
         <clipPath id={`${idBase}-main`}>
           <rect x={margins.left} y={top} width={width - margins.left - margins.right} height={bottom - top} />
@@ -98,9 +101,9 @@ export function EventFitPlot({ view, title, width, height, palette = plotPalette
         </clipPath>
       </defs>
       {view.windows.map((w) => (
-        <rect key={w.startJdUtc} x={at(w.startJdUtc)} width={Math.max(0.5, at(w.endJdUtc) - at(w.startJdUtc))} y={top} height={bottom - top} fill={palette.bluishGreen} fillOpacity={0.18} />
+        <rect x={at(w.startJdUtc)} width={Math.max(0.5, at(w.endJdUtc) - at(w.startJdUtc))} y={top} height={bottom - top} fill={palette.bluishGreen} fillOpacity={0.18} />
       ))}
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={mainHeight} margins={margins} xLabel="" yLabel={`magnitude (${view.referenceDataset} scale)`} title={title} />
+      {plotAxes({ palette, x, y, width, height: mainHeight, margins, xLabel: "", yLabel: `magnitude (${view.referenceDataset} scale)`, title })}
       <g clipPath={`url(#${idBase}-main)`}>
         {band && prediction ? (
           <>
@@ -110,30 +113,30 @@ export function EventFitPlot({ view, title, width, height, palette = plotPalette
           </>
         ) : null}
         {view.datasets.map((d) => (
-          <g key={d.name} stroke={palette[d.colour]}>
+          <g stroke={palette[d.colour]}>
             {Array.from(d.magnitude, (m, k) =>
-              isDrawn(m) && isDrawn(d.magnitudeError[k]) ? <line key={k} x1={at(d.tJdUtc[k])} x2={at(d.tJdUtc[k])} y1={y(m - d.magnitudeError[k])} y2={y(m + d.magnitudeError[k])} strokeWidth={1} /> : null,
+              isDrawn(m) && isDrawn(d.magnitudeError[k]) ? <line x1={at(d.tJdUtc[k])} x2={at(d.tJdUtc[k])} y1={y(m - d.magnitudeError[k])} y2={y(m + d.magnitudeError[k])} strokeWidth={1} /> : null,
             )}
-            {Array.from(d.magnitude, (m, k) => (isDrawn(m) ? <Marker key={k} shape={d.marker} cx={at(d.tJdUtc[k])} cy={y(m)} size={5} color={palette[d.colour]} /> : null))}
+            {Array.from(d.magnitude, (m, k) => (isDrawn(m) ? marker({ shape: d.marker, cx: at(d.tJdUtc[k]), cy: y(m), size: 5, color: palette[d.colour] }) : null))}
           </g>
         ))}
         <path d={curve(Array.from(view.model.tJdUtc, (_, k) => k)) ?? ""} fill="none" stroke={palette.ink} strokeWidth={1.5} />
         {Array.from(view.visitsJdUtc, (t) => (
-          <line key={t} x1={at(t)} x2={at(t)} y1={bottom} y2={bottom - VISIT_TICK_PX} stroke={palette.vermillion} strokeWidth={1} />
+          <line x1={at(t)} x2={at(t)} y1={bottom} y2={bottom - VISIT_TICK_PX} stroke={palette.vermillion} strokeWidth={1} />
         ))}
       </g>
-      <PlotLegend palette={palette} x={margins.left + 8} y={top + 6} entries={legend} />
+      {plotLegend({ palette, x: margins.left + 8, y: top + 6, entries: legend })}
       <g transform={`translate(0 ${mainHeight})`}>
-        <PlotAxes palette={palette} x={xResidual} y={yResidual} width={width} height={residualHeight} margins={residualMargins} xLabel="date (UTC)" yLabel="data − model (mag)" yTicks={3} title="" />
+        {plotAxes({ palette, x: xResidual, y: yResidual, width, height: residualHeight, margins: residualMargins, xLabel: "date (UTC)", yLabel: "data − model (mag)", yTicks: 3, title: "" })}
         <g clipPath={`url(#${idBase}-residual)`}>
           <line x1={residualMargins.left} x2={width - residualMargins.right} y1={yResidual(0)} y2={yResidual(0)} stroke={palette.ink} strokeWidth={1} />
           {view.datasets.map((d) => (
-            <g key={d.name} stroke={palette[d.colour]}>
+            <g stroke={palette[d.colour]}>
               {Array.from(d.residualMag, (r, k) =>
                 isDrawn(r) ? (
-                  <g key={k}>
+                  <g>
                     {isDrawn(d.magnitudeError[k]) ? <line x1={at(d.tJdUtc[k])} x2={at(d.tJdUtc[k])} y1={yResidual(r - d.magnitudeError[k])} y2={yResidual(r + d.magnitudeError[k])} strokeWidth={1} /> : null}
-                    <Marker shape={d.marker} cx={at(d.tJdUtc[k])} cy={yResidual(r)} size={4} color={palette[d.colour]} />
+                    {marker({ shape: d.marker, cx: at(d.tJdUtc[k]), cy: yResidual(r), size: 4, color: palette[d.colour] })}
                   </g>
                 ) : null,
               )}
@@ -141,6 +144,6 @@ export function EventFitPlot({ view, title, width, height, palette = plotPalette
           ))}
         </g>
       </g>
-    </PlotSurface>
+    </>,
   );
 }

@@ -1,6 +1,8 @@
+/** @jsxImportSource hastscript/svg */
 import { scaleLinear } from "d3";
 import type { LensPlaneLayout } from "@/lib/bench/compute-results";
-import { defaultMargins, Marker, PlotAxes, PlotLegend, PlotSurface } from "./plot-axes";
+import type { FigureTree } from "./figure-tree";
+import { defaultMargins, marker, plotAxes, plotLegend, plotSurface } from "./plot-axes";
 import { dashPatterns, plotPalette, type PlotPalette } from "./plot-palette";
 
 interface LensPlaneDiagramProps {
@@ -18,7 +20,7 @@ interface LensPlaneDiagramProps {
  * The lens plane to scale: lens at the origin, Einstein ring, true source position and the images
  * along the lens–source line. Image marker area ∝ |μ|; filled for even parity, hollow for inverted.
  */
-export function LensPlaneDiagram({ layout, thetaEInUnit, unitLabel, width, height, palette = plotPalette }: LensPlaneDiagramProps) {
+export function lensPlaneDiagram({ layout, thetaEInUnit, unitLabel, width, height, palette = plotPalette }: LensPlaneDiagramProps): FigureTree {
   const margins = defaultMargins;
   const reach = Math.max(1.5, ...layout.images.map((image) => Math.abs(image.thetaThetaE) * 1.2), layout.betaThetaE * 1.2) * thetaEInUnit;
   const plotWidth = width - margins.left - margins.right;
@@ -27,33 +29,34 @@ export function LensPlaneDiagram({ layout, thetaEInUnit, unitLabel, width, heigh
   const x = scaleLinear().domain([-reach * aspect, reach * aspect]).range([margins.left, width - margins.right]);
   const y = scaleLinear().domain([-reach, reach]).range([height - margins.bottom, margins.top]);
   const ringRadiusPx = x(thetaEInUnit) - x(0);
-  return (
-    <PlotSurface palette={palette} width={width} height={height} label="Lens-plane diagram">
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel={`angle along the lens–source line (${unitLabel})`} yLabel={`angle across it (${unitLabel})`} title="Lens plane, to scale" />
+  return plotSurface(
+    { palette, width, height, label: "Lens-plane diagram" },
+    <>
+      {plotAxes({ palette, x, y, width, height, margins, xLabel: `angle along the lens–source line (${unitLabel})`, yLabel: `angle across it (${unitLabel})`, title: "Lens plane, to scale" })}
       <circle cx={x(0)} cy={y(0)} r={ringRadiusPx} fill="none" stroke={palette.skyBlue} strokeWidth={1.5} strokeDasharray={dashPatterns.dashed} />
-      <Marker shape="cross" cx={x(0)} cy={y(0)} size={10} color={palette.ink} />
-      <Marker shape="diamond" cx={x(layout.betaThetaE * thetaEInUnit)} cy={y(0)} size={9} color={palette.yellow} isHollow />
-      {layout.images.map((image) => (
-        <Marker
-          key={image.thetaThetaE}
-          shape="circle"
-          cx={x(image.thetaThetaE * thetaEInUnit)}
-          cy={y(0)}
-          size={Math.min(28, 6 * Math.sqrt(Math.abs(image.magnification)))}
-          color={palette.orange}
-          isHollow={image.magnification < 0}
-        />
-      ))}
-      <PlotLegend palette={palette}
-        x={margins.left + 8}
-        y={margins.top + 6}
-        entries={[
+      {marker({ shape: "cross", cx: x(0), cy: y(0), size: 10, color: palette.ink })}
+      {marker({ shape: "diamond", cx: x(layout.betaThetaE * thetaEInUnit), cy: y(0), size: 9, color: palette.yellow, isHollow: true })}
+      {layout.images.map((image) =>
+        marker({
+          shape: "circle",
+          cx: x(image.thetaThetaE * thetaEInUnit),
+          cy: y(0),
+          size: Math.min(28, 6 * Math.sqrt(Math.abs(image.magnification))),
+          color: palette.orange,
+          isHollow: image.magnification < 0,
+        }),
+      )}
+      {plotLegend({
+        palette,
+        x: margins.left + 8,
+        y: margins.top + 6,
+        entries: [
           { label: "lens", color: palette.ink, marker: "cross" },
           { label: "Einstein ring θ_E", color: palette.skyBlue, dash: dashPatterns.dashed },
           { label: "source (true position)", color: palette.yellow, marker: "diamond" },
           { label: "images (area ∝ |μ|, hollow: inverted)", color: palette.orange, marker: "circle" },
-        ]}
-      />
-    </PlotSurface>
+        ],
+      })}
+    </>,
   );
 }

@@ -1,8 +1,10 @@
+/** @jsxImportSource hastscript/svg */
 import { area, bisectLeft, line, scaleLinear } from "d3";
 import type { NightVisibility } from "@/lib/astro/visibility";
 import { SUNRISE_GEOMETRIC_ALTITUDE_DEG, TWILIGHT_ALTITUDE_DEG } from "@/lib/astro/constants";
 import { apparentAltitudeForAirmassDeg } from "@/lib/astro/airmass";
-import { defaultMargins, Marker, PlotAxes, PlotLegend } from "./plot-axes";
+import { svgElement, type FigureTree } from "./figure-tree";
+import { defaultMargins, marker, plotAxes, plotLegend } from "./plot-axes";
 import { dashPatterns, plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 import { formatUtcClock } from "@/lib/astro/sky-format";
 import { visitMarks } from "@/lib/schedule/timeline-plot";
@@ -52,7 +54,7 @@ const HOUR = 1 / 24;
  * an hour before sunset to an hour after sunrise (the whole noon-to-noon window when the Sun does
  * not set or rise).
  */
-export function NightChart({ visibility, plannedVisits, targetName, siteName, width = 760, height = 360, palette = plotPalette }: NightChartProps) {
+export function nightChart({ visibility, plannedVisits, targetName, siteName, width = 760, height = 360, palette = plotPalette }: NightChartProps): FigureTree {
   const { samples, twilight, passages, limit } = visibility;
   const margins = { ...defaultMargins, right: 56 };
   const count = samples.jdUtc.length;
@@ -64,7 +66,7 @@ export function NightChart({ visibility, plannedVisits, targetName, siteName, wi
   const dayZero = Math.floor(windowStart - 0.5) + 0.5;
   const toHours = (jd: number) => (jd - dayZero) * 24;
   const x = scaleLinear().domain([toHours(from), toHours(to)]).range([margins.left, width - margins.right]);
-  // PlotAxes labels ticks through the scale's own tickFormat: give it clock hours modulo 24.
+  // plotAxes labels ticks through the scale's own tickFormat: give it clock hours modulo 24.
   x.tickFormat = () => (value) => `${String(((Number(value) % 24) + 24) % 24).padStart(2, "0")}h`;
   const y = scaleLinear().domain([0, 90]).range([height - margins.bottom, margins.top]);
   const [x0, x1] = x.range();
@@ -100,7 +102,7 @@ export function NightChart({ visibility, plannedVisits, targetName, siteName, wi
     return samples.altitudeDeg[k - 1] + ((samples.altitudeDeg[k] - samples.altitudeDeg[k - 1]) * (jdUtc - ja)) / (jb - ja);
   };
 
-  return (
+  return svgElement(
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={`Altitude and air mass through the night of ${visibility.nightDateIso}`} data-testid="night-chart" data-night={visibility.nightDateIso}>
       <rect width={width} height={height} fill={palette.ground} />
       <defs>
@@ -110,21 +112,21 @@ export function NightChart({ visibility, plannedVisits, targetName, siteName, wi
       </defs>
       <g clipPath={`url(#${clipId})`}>
         {bands.map((band) => (
-          <rect key={band.start} x={x(toHours(band.start))} width={Math.max(0, x(toHours(band.end + 1 / 288)) - x(toHours(band.start)))} y={y1} height={y0 - y1} fill={palette.skyShades[band.shade]} />
+          <rect x={x(toHours(band.start))} width={Math.max(0, x(toHours(band.end + 1 / 288)) - x(toHours(band.start)))} y={y1} height={y0 - y1} fill={palette.skyShades[band.shade]} />
         ))}
       </g>
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC)" yLabel="apparent altitude (°)" yTicks={6} title={nightChartTitle(visibility.nightDateIso, targetName, siteName)} />
+      {plotAxes({ palette, x, y, width, height, margins, xLabel: "time (UTC)", yLabel: "apparent altitude (°)", yTicks: 6, title: nightChartTitle(visibility.nightDateIso, targetName, siteName) })}
       <g clipPath={`url(#${clipId})`}>
         <path d={darkAbove} fill={palette.bluishGreen} fillOpacity={0.3} />
         <line x1={x0} x2={x1} y1={y(limit.apparentDeg)} y2={y(limit.apparentDeg)} stroke={palette.orange} strokeDasharray={dashPatterns.dashed} strokeWidth={1.5} />
         <path d={curve(samples.moonAltitudeDeg)} fill="none" stroke={palette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={2} />
         {visits.map((visit) => (
-          <rect key={visit.startJdUtc} x={x(toHours(visit.startJdUtc))} width={Math.max(1.5, x(toHours(visit.endJdUtc)) - x(toHours(visit.startJdUtc)))} y={y1} height={y0 - y1} fill={palette.ink} fillOpacity={0.12} />
+          <rect x={x(toHours(visit.startJdUtc))} width={Math.max(1.5, x(toHours(visit.endJdUtc)) - x(toHours(visit.startJdUtc)))} y={y1} height={y0 - y1} fill={palette.ink} fillOpacity={0.12} />
         ))}
         <path d={curve(samples.altitudeDeg)} fill="none" stroke={palette.skyBlue} strokeWidth={2.5} />
         {visits.map((visit) => {
           const middle = (visit.startJdUtc + visit.endJdUtc) / 2;
-          return <Marker key={visit.startJdUtc} shape="diamond" cx={x(toHours(middle))} cy={y(altitudeAt(middle))} size={8} color={palette.ink} />;
+          return marker({ shape: "diamond", cx: x(toHours(middle)), cy: y(altitudeAt(middle)), size: 8, color: palette.ink });
         })}
         {isTransitShown ? (
           <g>
@@ -140,7 +142,7 @@ export function NightChart({ visibility, plannedVisits, targetName, siteName, wi
           // Each label sits where Pickering's air mass (not sec z) takes that value.
           const exact = apparentAltitudeForAirmassDeg(airmass);
           return (
-            <g key={airmass}>
+            <g>
               <line x1={x1} x2={x1 + 4} y1={y(exact)} y2={y(exact)} stroke={palette.frame} />
               <text x={x1 + 7} y={y(exact) + 4}>{airmass}</text>
             </g>
@@ -150,18 +152,19 @@ export function NightChart({ visibility, plannedVisits, targetName, siteName, wi
           air mass
         </text>
       </g>
-      <PlotLegend palette={palette}
-        x={x0 + 8}
-        y={y1 + 22}
-        entries={[
+      {plotLegend({
+        palette,
+        x: x0 + 8,
+        y: y1 + 22,
+        entries: [
           { label: "target", color: palette.skyBlue },
           { label: "Moon", color: palette.yellow, dash: dashPatterns.dotted },
           { label: `limit ${limit.apparentDeg.toFixed(1)}° (${limit.binding})`, color: palette.orange, dash: dashPatterns.dashed },
           { label: "transit", color: palette.ink, dash: dashPatterns.dashDot },
           ...(visits.length > 0 ? [{ label: "planned visit", color: palette.ink, marker: "diamond" as const }] : []),
-        ]}
-      />
-    </svg>
+        ],
+      })}
+    </svg>,
   );
 }
 

@@ -1,8 +1,9 @@
-import { useId } from "react";
+/** @jsxImportSource hastscript/svg */
 import { area, line, scaleLinear } from "d3";
 import { formatUtcClock } from "@/lib/astro/sky-format";
 import type { NightSkyBrightness } from "@/lib/photometry/night-sky";
-import { defaultMargins, PlotAxes, PlotLegend } from "./plot-axes";
+import { svgElement, type FigureTree } from "./figure-tree";
+import { defaultMargins, plotAxes, plotLegend } from "./plot-axes";
 import { dashPatterns, plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 
 interface NightSkyBrightnessChartProps {
@@ -11,6 +12,8 @@ interface NightSkyBrightnessChartProps {
   height?: number;
   /** The screen style unless given; exports draw in `printPalette`. */
   palette?: PlotPalette;
+  /** Starts the ids of the figure's clip path and hatch, which must be unique in the page or file (`url(#…)` finds the first). */
+  idPrefix?: string;
 }
 
 /** One point of a drawn curve; null breaks the curve where the target is down between two samples. */
@@ -49,8 +52,7 @@ export function nightSkyBrightnessSummary(sky: NightSkyBrightness): string {
  * solid line, the Moon's added light shaded (and hatched) between them, and the Moon rising or
  * setting marked. Times on the axis are UTC hours; the view spans astronomical darkness.
  */
-export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palette = plotPalette }: NightSkyBrightnessChartProps) {
-  const idBase = `night-sky-${useId().replace(/[^A-Za-z0-9-]/g, "")}`;
+export function nightSkyBrightnessChart({ sky, width = 760, height = 340, palette = plotPalette, idPrefix: idBase = "night-sky" }: NightSkyBrightnessChartProps): FigureTree {
   const margins = { ...defaultMargins, top: 46 };
   const [x0, x1] = [margins.left, width - margins.right];
   const [y0, y1] = [height - margins.bottom, margins.top];
@@ -100,7 +102,7 @@ export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palett
   const clipId = `${idBase}-clip`;
   const hatchId = `${idBase}-moon`;
 
-  return (
+  return svgElement(
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label={label} data-testid="night-sky-brightness" data-night={sky.nightDateIso}>
       <rect width={width} height={height} fill={palette.ground} />
       <defs>
@@ -112,7 +114,7 @@ export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palett
           <line x1="0" y1="0" x2="0" y2="5" stroke={palette.yellow} strokeWidth="1.2" />
         </pattern>
       </defs>
-      <PlotAxes palette={palette} x={x} y={y} width={width} height={height} margins={margins} xLabel="time (UTC), astronomical darkness" yLabel="sky brightness (mag/arcsec²)" yTicks={5} title={title} />
+      {plotAxes({ palette, x, y, width, height, margins, xLabel: "time (UTC), astronomical darkness", yLabel: "sky brightness (mag/arcsec²)", yTicks: 5, title })}
       {empty !== null ? (
         <text x={(x0 + x1) / 2} y={(y0 + y1) / 2} textAnchor="middle" fontFamily={plotFont} fontSize={12} fill={palette.text}>
           {empty}
@@ -124,7 +126,7 @@ export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palett
             <path d={curve((point) => point.total)} fill="none" stroke={palette.ink} strokeWidth={2} />
             <path d={curve((point) => point.dark)} fill="none" stroke={palette.skyBlue} strokeWidth={2} strokeDasharray={dashPatterns.dashed} />
             {sky.moonCrossings.map((crossing) => (
-              <g key={crossing.jdUtc}>
+              <g>
                 <line x1={x(toHours(crossing.jdUtc))} x2={x(toHours(crossing.jdUtc))} y1={y0} y2={y1} stroke={palette.yellow} strokeDasharray={dashPatterns.dotted} strokeWidth={1.5} />
                 <text x={x(toHours(crossing.jdUtc)) + (crossing.kind === "rise" ? 4 : -4)} y={y0 - 8} textAnchor={crossing.kind === "rise" ? "start" : "end"} fontFamily={plotFont} fontSize={11} fill={palette.yellow}>
                   {crossing.kind === "rise" ? "Moon rises" : "Moon sets"} {formatUtcClock(crossing.jdUtc)}
@@ -132,19 +134,20 @@ export function NightSkyBrightnessChart({ sky, width = 760, height = 340, palett
               </g>
             ))}
           </g>
-          <PlotLegend palette={palette}
-            isRow
-            x={x0 - 6}
-            y={19}
-            entries={[
+          {plotLegend({
+            palette,
+            isRow: true,
+            x: x0 - 6,
+            y: 19,
+            entries: [
               { label: "sky with the Moon", color: palette.ink },
               { label: "dark sky (no Moon)", color: palette.skyBlue, dash: dashPatterns.dashed },
               { label: "Moon's added light (hatched)", color: palette.yellow, marker: "square" },
               ...(sky.moonCrossings.length > 0 ? [{ label: "Moon rises or sets", color: palette.yellow, dash: dashPatterns.dotted }] : []),
-            ]}
-          />
+            ],
+          })}
         </>
       )}
-    </svg>
+    </svg>,
   );
 }

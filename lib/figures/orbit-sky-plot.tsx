@@ -1,7 +1,9 @@
+/** @jsxImportSource hastscript/svg */
 import { line, scaleLinear } from "d3";
 import type { SkyPoint } from "@/lib/lensing/relativistic-orbit";
 import type { OrbitSkyView } from "./orbit-sky-view";
-import { Marker, PlotAxes, PlotLegend, PlotSurface, type LegendEntry, type PlotMargins } from "./plot-axes";
+import type { FigureTree } from "./figure-tree";
+import { marker, plotAxes, plotLegend, plotSurface, type LegendEntry, type PlotMargins } from "./plot-axes";
 import { dashPatterns, plotPalette, type PlotPalette } from "./plot-palette";
 
 /** The figure's size (CSS px) on the target page: square, so both axes keep one scale. */
@@ -23,7 +25,7 @@ const margins: PlotMargins = { top: 28, right: 16, bottom: 46, left: 62 };
  * magnified by the labelled factor; the compact mass, the periapsis, the apoapsis and the advanced
  * periapsis marked, each with its own marker shape.
  */
-export function OrbitSkyPlot({ view, title, size, palette = plotPalette }: OrbitSkyPlotProps) {
+export function orbitSkyPlot({ view, title, size, palette = plotPalette }: OrbitSkyPlotProps): FigureTree {
   // The plot area is made square: the same pixels per mas on both axes.
   const side = size - Math.max(margins.left + margins.right, margins.top + margins.bottom);
   const x = scaleLinear().domain(view.eastDomainMas).range([margins.left, margins.left + side]);
@@ -43,17 +45,18 @@ export function OrbitSkyPlot({ view, title, size, palette = plotPalette }: Orbit
     { label: isMagnified ? "next periapsis (magnified)" : "next periapsis", color: palette.skyBlue, marker: "diamond" as const },
   ];
   const at = (p: SkyPoint) => ({ cx: x(p.eastMas), cy: y(p.northMas) });
-  return (
-    <PlotSurface palette={palette} width={margins.left + side + margins.right} height={margins.top + side + margins.bottom} label={title}>
-      <PlotAxes palette={palette} x={x} y={y} width={margins.left + side + margins.right} height={margins.top + side + margins.bottom} margins={margins} xLabel="east offset (mas)" yLabel="north offset (mas)" title={title} />
+  return plotSurface(
+    { palette, width: margins.left + side + margins.right, height: margins.top + side + margins.bottom, label: title },
+    <>
+      {plotAxes({ palette, x, y, width: margins.left + side + margins.right, height: margins.top + side + margins.bottom, margins, xLabel: "east offset (mas)", yLabel: "north offset (mas)", title })}
       <path d={path(view.newtonian)} fill="none" stroke={palette.ink} strokeWidth={1.5} data-testid="orbit-sky-newtonian" />
       <path d={path(view.precessing)} fill="none" stroke={palette.orange} strokeWidth={1.5} strokeDasharray={dashPatterns.dashed} data-testid="orbit-sky-precessing" />
       {isMagnified ? <path d={path(view.magnified)} fill="none" stroke={palette.skyBlue} strokeWidth={1.5} strokeDasharray={dashPatterns.dotted} data-testid="orbit-sky-magnified" /> : null}
-      <Marker shape="cross" {...at({ eastMas: 0, northMas: 0 })} size={9} color={palette.ink} />
-      <Marker shape="circle" {...at(view.periapsis)} size={7} color={palette.vermillion} />
-      <Marker shape="square" {...at(view.apoapsis)} size={7} color={palette.bluishGreen} />
-      <Marker shape="diamond" {...at(view.advancedPeriapsis)} size={8} color={palette.skyBlue} isHollow />
-      <PlotLegend palette={palette} x={margins.left + 6} y={margins.top + 6} entries={legend} />
-    </PlotSurface>
+      {marker({ shape: "cross", ...at({ eastMas: 0, northMas: 0 }), size: 9, color: palette.ink })}
+      {marker({ shape: "circle", ...at(view.periapsis), size: 7, color: palette.vermillion })}
+      {marker({ shape: "square", ...at(view.apoapsis), size: 7, color: palette.bluishGreen })}
+      {marker({ shape: "diamond", ...at(view.advancedPeriapsis), size: 8, color: palette.skyBlue, isHollow: true })}
+      {plotLegend({ palette, x: margins.left + 6, y: margins.top + 6, entries: legend })}
+    </>,
   );
 }

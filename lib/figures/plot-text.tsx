@@ -1,26 +1,30 @@
-import type { ReactNode } from "react";
+/** @jsxImportSource hastscript/svg */
+import type { ElementContent } from "hast";
+import { svgElement } from "./figure-tree";
 
 /**
  * Label text with real subscripts and superscripts: `θ_E`, `t_0`, `b_c` (one character after `_`),
  * `_{ab}` and `^{−3}` for longer runs. Each script is a `<tspan>` shifted by `dy` in smaller type, the
  * text after it shifted back, which browsers, resvg and svg-to-pdfkit all lay out the same way.
  */
-export function PlotText({ text, fontSize }: { text: string; fontSize: number }): ReactNode {
+export function plotText({ text, fontSize }: { text: string; fontSize: number }): ElementContent[] {
   const parts = scriptParts(text);
-  if (parts.length === 1 && parts[0].shift === 0) return text;
+  if (parts.length === 1 && parts[0].shift === 0) return [{ type: "text", value: text }];
   const scriptSize = Math.round(fontSize * 0.72 * 10) / 10;
-  const nodes: ReactNode[] = [];
+  const nodes: ElementContent[] = [];
   let baseline = 0;
-  parts.forEach((part, index) => {
+  parts.forEach((part) => {
     const offset = Math.round(part.shift * fontSize * 10) / 10;
     const dy = offset - baseline;
     baseline = offset;
-    if (dy === 0 && part.shift === 0) nodes.push(part.text);
+    if (dy === 0 && part.shift === 0) nodes.push({ type: "text", value: part.text });
     else
       nodes.push(
-        <tspan key={index} dy={dy === 0 ? undefined : dy} fontSize={part.shift === 0 ? undefined : scriptSize}>
-          {part.text}
-        </tspan>,
+        svgElement(
+          <tspan dy={dy === 0 ? undefined : dy} fontSize={part.shift === 0 ? undefined : scriptSize}>
+            {part.text}
+          </tspan>,
+        ),
       );
   });
   return nodes;

@@ -2,7 +2,7 @@ import type { ScaleContinuousNumeric } from "d3";
 
 type Scale = ScaleContinuousNumeric<number, number>;
 
-/** A tick's label: a plain number, or a power of ten written `10^{n}` for PlotText. */
+/** A tick's label: a plain number, or a power of ten written `10^{n}` for plotText. */
 export interface AxisTick {
   value: number;
   /** null for an unlabelled (minor) tick. */

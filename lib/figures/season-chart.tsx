@@ -1,5 +1,7 @@
+/** @jsxImportSource hastscript/svg */
 import { interpolateCividis, scaleLinear, scaleSequential } from "d3";
-import { Marker, PlotAxes } from "./plot-axes";
+import { svgElement, type FigureTree } from "./figure-tree";
+import { marker, plotAxes } from "./plot-axes";
 import { plotFont, plotPalette, type PlotPalette } from "./plot-palette";
 import type { SeasonView } from "./season-view";
 
@@ -64,7 +66,7 @@ function yearSpan(nightDatesIso: readonly string[]): string {
  * rows with nothing usable in the range are marked with a cross. Ticks carry full dates (the year
  * included); names are never cut: the name column widens to the longest, then long names wrap.
  */
-export function SeasonChart({ view, targetIndices, width = 900, palette = plotPalette }: SeasonChartProps) {
+export function seasonChart({ view, targetIndices, width = 900, palette = plotPalette }: SeasonChartProps): FigureTree {
   const nightCount = view.nightDatesIso.length;
   const longest = Math.max(0, ...targetIndices.map((index) => view.rows[index].name.length));
   const left = Math.round(Math.min(width * MAX_LEFT_SHARE, Math.max(MIN_LEFT_PX, longest * LABEL_CHAR_PX + NAME_GAP_PX + 8)));
@@ -85,7 +87,7 @@ export function SeasonChart({ view, targetIndices, width = 900, palette = plotPa
   const colour = scaleSequential(interpolateCividis).domain([0, Math.max(1, maxHours)]);
   const cellWidth = (width - left - margins.right) / nightCount;
   const legendStops = [0, 0.25, 0.5, 0.75, 1];
-  return (
+  return svgElement(
     <svg xmlns="http://www.w3.org/2000/svg" width="100%" viewBox={`0 0 ${width} ${height}`} role="img" aria-label="Usable dark hours per night for each target" data-testid="season-chart">
       <rect width={width} height={height} fill={palette.ground} />
       <defs>
@@ -93,27 +95,26 @@ export function SeasonChart({ view, targetIndices, width = 900, palette = plotPa
           <line x1="0" y1="0" x2="0" y2="4" stroke={palette.ink} strokeWidth="1.5" />
         </pattern>
       </defs>
-      <PlotAxes
-        palette={palette}
-        x={x}
-        y={scaleLinear().domain([0, 1]).range([height - margins.bottom, margins.top])}
-        yTicks={0}
-        width={width}
-        height={height}
-        margins={chartMargins}
-        xLabel={`night (evening date, ${yearSpan(view.nightDatesIso)})`}
-        yLabel=""
-        title="Usable dark hours per night"
-      />
+      {plotAxes({
+        palette,
+        x,
+        y: scaleLinear().domain([0, 1]).range([height - margins.bottom, margins.top]),
+        yTicks: 0,
+        width,
+        height,
+        margins: chartMargins,
+        xLabel: `night (evening date, ${yearSpan(view.nightDatesIso)})`,
+        yLabel: "",
+        title: "Usable dark hours per night",
+      })}
       {targetIndices.map((targetIndex, row) => {
         const target = view.rows[targetIndex];
         const top = rowTops[row];
         const rowHeight = ROW_HEIGHT + (names[row].length - 1) * LINE_HEIGHT;
         return (
-          <g key={targetIndex}>
+          <g>
             {Array.from(target.hoursPerNight, (hours, night) => (
               <rect
-                key={night}
                 x={x(night)}
                 y={top + 1}
                 width={cellWidth + 0.3}
@@ -123,28 +124,28 @@ export function SeasonChart({ view, targetIndices, width = 900, palette = plotPa
             ))}
             <text x={left - NAME_GAP_PX} y={top + ROW_HEIGHT / 2 + 4} textAnchor="end" fontFamily={plotFont} fontSize={11} fill={target.isEmpty ? palette.vermillion : palette.text}>
               {names[row].map((line, index) => (
-                <tspan key={index} x={left - NAME_GAP_PX} dy={index === 0 ? undefined : LINE_HEIGHT}>
+                <tspan x={left - NAME_GAP_PX} dy={index === 0 ? undefined : LINE_HEIGHT}>
                   {line}
                 </tspan>
               ))}
             </text>
             {/* A drawn cross rather than the ✕ character, which no embedded font has. */}
-            {target.isEmpty ? <Marker shape="cross" cx={left - NAME_GAP_PX / 2} cy={top + ROW_HEIGHT / 2} size={7} color={palette.vermillion} /> : null}
+            {target.isEmpty ? marker({ shape: "cross", cx: left - NAME_GAP_PX / 2, cy: top + ROW_HEIGHT / 2, size: 7, color: palette.vermillion }) : null}
           </g>
         );
       })}
       <g fontFamily={plotFont} fontSize={10} fill={palette.text}>
         {legendStops.map((stop, i) => (
-          <g key={stop}>
+          <g>
             <rect x={left + i * 46} y={LEGEND_Y} width={44} height={10} fill={colour(stop * Math.max(1, maxHours))} />
             <text x={left + i * 46} y={LEGEND_Y + 22}>{(stop * Math.max(1, maxHours)).toFixed(1)} h</text>
           </g>
         ))}
         <rect x={left + 5 * 46 + 10} y={LEGEND_Y} width={20} height={10} fill="url(#season-sun-hatch)" stroke={palette.grid} strokeWidth={0.5} />
         <text x={left + 5 * 46 + 34} y={LEGEND_Y + 9}>too close to the Sun</text>
-        <Marker shape="cross" cx={left + 5 * 46 + 150} cy={LEGEND_Y + 5} size={7} color={palette.vermillion} />
+        {marker({ shape: "cross", cx: left + 5 * 46 + 150, cy: LEGEND_Y + 5, size: 7, color: palette.vermillion })}
         <text x={left + 5 * 46 + 158} y={LEGEND_Y + 9}>no usable night</text>
       </g>
-    </svg>
+    </svg>,
   );
 }

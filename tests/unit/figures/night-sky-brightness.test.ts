@@ -2,15 +2,16 @@ import { createElement } from "react";
 import { renderToStaticMarkup } from "react-dom/server";
 import { XMLValidator } from "fast-xml-parser";
 import { describe, expect, it } from "vitest";
+import { FigureSvg } from "@/components/figures/figure-svg";
 import { TargetNightPanel } from "@/components/sky/target-night-panel";
-import { NightSkyBrightnessChart } from "@/lib/figures/night-sky-brightness";
+import { nightSkyBrightnessChart } from "@/lib/figures/night-sky-brightness";
 import { nightSkyBrightness } from "@/lib/photometry/night-sky";
 import { bandSkyOf, defaultPhotometrySettings } from "@/lib/workspace/photometry-schema";
 import { bulge, southSite } from "../schedule/sites";
 
 const found = bandSkyOf(defaultPhotometrySettings, "jc-i");
 if (!("sky" in found)) throw new Error(found.missing);
-const render = (sky: ReturnType<typeof nightSkyBrightness>) => renderToStaticMarkup(createElement(NightSkyBrightnessChart, { sky }));
+const render = (sky: ReturnType<typeof nightSkyBrightness>) => renderToStaticMarkup(createElement(FigureSvg, { tree: nightSkyBrightnessChart({ sky }) }));
 
 describe("the sky brightness figure (night-sky-brightness.tsx)", () => {
   it("names target, site, band and night in its title, labels the inverted axis and its legend, and marks the Moon rising", () => {

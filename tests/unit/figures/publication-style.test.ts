@@ -6,7 +6,8 @@ import { benchPlotExport } from "@/lib/exports/figures/bench-figures";
 import { nightPlotExport, scheduleSeasonPlotExport } from "@/lib/exports/figures/sky-figures";
 import { sketchFromSearchParams } from "@/lib/bench/sketch-state";
 import { deflectionCurves } from "@/lib/bench/plot-data";
-import { DeflectionPlot } from "@/lib/figures/deflection-plot";
+import { FigureSvg } from "@/components/figures/figure-svg";
+import { deflectionPlot } from "@/lib/figures/deflection-plot";
 import { plotPalette, printPalette } from "@/lib/figures/plot-palette";
 import { scriptParts } from "@/lib/figures/plot-text";
 import { wrapName } from "@/lib/figures/season-chart";
@@ -34,7 +35,7 @@ describe("publication style of exported figures (issue 18, item 5)", () => {
       expect(svg).not.toContain(plotPalette.ink);
     }
     expect(printPalette.text).toBe("#1a1a1a");
-    const screen = renderToStaticMarkup(createElement(DeflectionPlot, { curves: deflectionCurves(), width: 540, height: 340 }));
+    const screen = renderToStaticMarkup(createElement(FigureSvg, { tree: deflectionPlot({ curves: deflectionCurves(), width: 540, height: 340 }) }));
     expect(groundFill(screen)).toBe("#0b0f17");
   });
 
