@@ -38,7 +38,7 @@ export function benchInputs() {
     results,
     event,
     schedule,
-    // The units bench-figures.tsx draws in: θ_E's for the lens plane, θ_E/3's for the centroid shift.
+    // The units bench-figures.ts draws in: θ_E's for the lens plane, θ_E/3's for the centroid shift.
     lensPlaneUnit: naturalAngleUnit(results.lensPlane.thetaERad),
     shiftUnit: naturalAngleUnit(results.lensPlane.thetaERad / 3),
     lightCurve: lightCurve(event, schedule),

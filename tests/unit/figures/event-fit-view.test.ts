@@ -1,9 +1,8 @@
-import { createElement } from "react";
 import { describe, expect, it } from "vitest";
 import { eventFitData } from "@/lib/exports/figure-data/event-fit-data";
-import { renderStaticSvg } from "@/lib/exports/figures/static-markup";
+import { figureMarkup } from "@/lib/exports/figures/figure-markup";
 import { buildProvenance } from "@/lib/exports/provenance";
-import { EventFitPlot } from "@/lib/figures/event-fit-plot";
+import { eventFitPlot } from "@/lib/figures/event-fit-plot";
 import { eventFitView } from "@/lib/figures/event-fit-view";
 import { printPalette } from "@/lib/figures/plot-palette";
 import { fitPointLens, type PhotometryPoint } from "@/lib/lensing/fit";
@@ -104,9 +103,9 @@ describe("event-fit figure: what it draws (lib/figures/event-fit-view.ts)", () =
   });
 
   it("draws in SVG with the datasets and the legend's words, and its data table holds every point and band step", () => {
-    const svg = renderStaticSvg(createElement(EventFitPlot, { view, title: "Light curve of TB-1", width: 760, height: 460, palette: printPalette }));
+    const svg = figureMarkup(eventFitPlot({ view, title: "Light curve of TB-1", width: 760, height: 460, palette: printPalette }));
     expect(svg).toContain('aria-label="Light curve of TB-1"');
-    for (const words of ["Survey", "Site V", "model (on Survey)", "prediction, 68 % band", "site&#x27;s usable windows (shaded)", "schedule visits (ticks at the foot)", "date (UTC)", "data − model (mag)"]) expect(svg).toContain(words);
+    for (const words of ["Survey", "Site V", "model (on Survey)", "prediction, 68 % band", "site's usable windows (shaded)", "schedule visits (ticks at the foot)", "date (UTC)", "data − model (mag)"]) expect(svg).toContain(words);
     const provenance = buildProvenance({ subject: "test", reproduceUrl: "http://arcwright.test/", inputs: {}, exportedAt: new Date(0) });
     const table = eventFitData({ view, title: "t", provenance });
     expect(table.rows.length).toBe(points.length + view.prediction!.tJdUtc.length);

@@ -1,4 +1,3 @@
-import { renderStaticSvg } from "./static-markup";
 import { benchSchedule, benchScheduleRequest } from "@/lib/bench/case-report";
 import { computeResults, type BenchResults } from "@/lib/bench/compute-results";
 import type { ObservingSchedule } from "@/lib/schedule";
@@ -10,15 +9,16 @@ import { AppError } from "@/lib/errors";
 import { summaryOf } from "@/lib/workspace/issue-words";
 import type { CitationKey } from "@/lib/citations/references";
 import { buildProvenance } from "@/lib/exports/provenance";
-import { AstrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
-import { DeflectionPlot } from "@/lib/figures/deflection-plot";
-import { LensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
-import { LightCurvePlot } from "@/lib/figures/light-curve-plot";
+import { astrometricTrackPlot } from "@/lib/figures/astrometric-track-plot";
+import { deflectionPlot } from "@/lib/figures/deflection-plot";
+import type { FigureTree } from "@/lib/figures/figure-tree";
+import { lensPlaneDiagram } from "@/lib/figures/lens-plane-diagram";
+import { lightCurvePlot } from "@/lib/figures/light-curve-plot";
 import { printPalette } from "@/lib/figures/plot-palette";
 import type { Provenance } from "@/lib/exports/provenance";
 import { astrometricTrackData, deflectionData, lensPlaneData, lightCurveData } from "@/lib/exports/figure-data/bench-data";
 import type { DataTable } from "@/lib/exports/tables/data-table";
-import type { ReactElement } from "react";
+import { figureMarkup } from "./figure-markup";
 import type { PlotExport } from "./figure-response";
 
 export const benchFigureKinds = ["lens-plane", "deflection", "light-curve", "astrometric-track"] as const;
@@ -43,19 +43,19 @@ const titles: Record<BenchFigureKind, string> = {
   "astrometric-track": "Astrometric centroid track",
 };
 
-/** A bench figure's plot element and the table of what it draws (given the export's provenance). */
-function benchFigure(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined): { element: ReactElement; data: (provenance: Provenance) => DataTable } {
+/** A bench figure's tree and the table of what it draws (given the export's provenance). */
+function benchFigure(kind: BenchFigureKind, results: BenchResults, schedule: ObservingSchedule | undefined): { tree: FigureTree; data: (provenance: Provenance) => DataTable } {
   // Exports are drawn in the publication style: white ground, dark ink.
   const size = { width: BENCH_PLOT_WIDTH_PX, height: BENCH_PLOT_HEIGHT_PX, palette: printPalette };
   const thetaERad = results.lensPlane.thetaERad;
   if (kind === "deflection") {
     const curves = deflectionCurves();
-    return { element: <DeflectionPlot curves={curves} {...size} />, data: (provenance) => deflectionData({ curves, provenance }) };
+    return { tree: deflectionPlot({ curves, ...size }), data: (provenance) => deflectionData({ curves, provenance }) };
   }
   if (kind === "lens-plane") {
     const unit = naturalAngleUnit(thetaERad);
     return {
-      element: <LensPlaneDiagram layout={results.lensPlane} thetaEInUnit={angleInUnit(thetaERad, unit)} unitLabel={unitLabel(unit)} {...size} />,
+      tree: lensPlaneDiagram({ layout: results.lensPlane, thetaEInUnit: angleInUnit(thetaERad, unit), unitLabel: unitLabel(unit), ...size }),
       data: (provenance) => lensPlaneData({ layout: results.lensPlane, unit, provenance }),
     };
   }
@@ -63,20 +63,20 @@ function benchFigure(kind: BenchFigureKind, results: BenchResults, schedule: Obs
   if (event === undefined) throw new AppError("bad_request:figure", "The light curve and astrometric track are drawn for a compact (point) lens.", { lens: ["Choose the point lens for this figure."] });
   if (kind === "light-curve") {
     const curve = lightCurve(event, schedule);
-    return { element: <LightCurvePlot lightCurve={curve} {...size} />, data: (provenance) => lightCurveData({ lightCurve: curve, event, provenance }) };
+    return { tree: lightCurvePlot({ lightCurve: curve, ...size }), data: (provenance) => lightCurveData({ lightCurve: curve, event, provenance }) };
   }
   // The same unit choice as the bench: the centroid shift is ~θ_E/3.
   const shiftUnit = naturalAngleUnit(thetaERad / 3);
   const track = astrometricTrack(event, schedule);
   return {
-    element: <AstrometricTrackPlot track={track} thetaEInUnit={angleInUnit(thetaERad, shiftUnit)} unitLabel={unitLabel(shiftUnit)} {...size} />,
+    tree: astrometricTrackPlot({ track, thetaEInUnit: angleInUnit(thetaERad, shiftUnit), unitLabel: unitLabel(shiftUnit), ...size }),
     data: (provenance) => astrometricTrackData({ track, thetaERad, unit: shiftUnit, event, provenance }),
   };
 }
 
 /**
  * A bench plot regenerated on the server from the bench's URL parameters: the same parsing and
- * computation as the page (`lib/bench`) and the same plot component, rendered to static SVG markup.
+ * computation as the page (`lib/bench`) and the same figure tree the page draws, written as SVG markup.
  * A sketch that does not parse is refused with the bench's own message for each field.
  */
 export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin: string, exportedAt?: Date): PlotExport {
@@ -105,5 +105,5 @@ export function benchPlotExport(kind: BenchFigureKind, sketch: Sketch, appOrigin
     references: figureReferences[kind],
     exportedAt,
   });
-  return { markup: renderStaticSvg(figure.element), title: titles[kind], fileStem: `bench-${kind}`, provenance, data: figure.data(provenance) };
+  return { markup: figureMarkup(figure.tree), title: titles[kind], fileStem: `bench-${kind}`, provenance, data: figure.data(provenance) };
 }

@@ -1,17 +1,17 @@
-import { renderStaticSvg } from "./static-markup";
 import type { SkyLimitsInput, SkySiteInput, SkyTarget } from "@/lib/astro/inputs";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
-import { NightChart } from "@/lib/figures/night-chart";
-import { NightSkyBrightnessChart, nightSkyBrightnessTitle } from "@/lib/figures/night-sky-brightness";
+import { nightChart } from "@/lib/figures/night-chart";
+import { nightSkyBrightnessChart, nightSkyBrightnessTitle } from "@/lib/figures/night-sky-brightness";
 import { nightSkyBrightness } from "@/lib/photometry/night-sky";
 import type { BandSky } from "@/lib/photometry/visit-budget";
 import { printPalette } from "@/lib/figures/plot-palette";
-import { SeasonChart } from "@/lib/figures/season-chart";
+import { seasonChart } from "@/lib/figures/season-chart";
 import { seasonViewOfSchedules } from "@/lib/figures/season-view";
 import { observingSchedules, type ScheduleConditions } from "@/lib/schedule";
 import { skyQueryToString } from "@/lib/astro/sky-query";
 import { nightData, nightSkyData, seasonData } from "@/lib/exports/figure-data/sky-data";
+import { figureMarkup } from "./figure-markup";
 import type { PlotExport } from "./figure-response";
 
 export const skyFigureKinds = ["night", "season", "night-sky", "event-fit"] as const;
@@ -44,12 +44,12 @@ const siteInputs = ({ site, limits }: SkyContext) => ({
 });
 
 /**
- * The night chart of one target on one night, drawn by the sky view's own component; the link back
+ * The night chart of one target on one night, the same figure as the sky view's; the link back
  * opens the sky-windows page with the same site, target, night and limit.
  */
 export function nightPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, context: SkyContext): PlotExport {
   const visibility = nightlyVisibility(context.site, target, nightDateIso, context.limits);
-  const markup = renderStaticSvg(<NightChart visibility={visibility} targetName={target.name} siteName={context.site.name} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_CHART_HEIGHT_PX} palette={printPalette} />);
+  const markup = figureMarkup(nightChart({ visibility, targetName: target.name, siteName: context.site.name, width: NIGHT_CHART_WIDTH_PX, height: NIGHT_CHART_HEIGHT_PX, palette: printPalette }));
   const s = siteInputs(context);
   const query = skyQueryToString({
     site: s.site,
@@ -76,11 +76,11 @@ export function nightPlotExport(target: SkyTarget & { name: string }, nightDateI
 
 /**
  * The sky brightness at one target through one night in its band (`nightSkyBrightness`), drawn by
- * the target page's own component; the link back opens the target page on that night.
+ * the same figure as the target page's; the link back opens the target page on that night.
  */
 export function nightSkyPlotExport(target: SkyTarget & { name: string }, nightDateIso: string, bandSky: BandSky, context: SkyContext & { reproducePath: string }): PlotExport {
   const sky = nightSkyBrightness({ site: context.site, target, nightDateIso, bandSky });
-  const markup = renderStaticSvg(<NightSkyBrightnessChart sky={sky} width={NIGHT_CHART_WIDTH_PX} height={NIGHT_SKY_CHART_HEIGHT_PX} palette={printPalette} />);
+  const markup = figureMarkup(nightSkyBrightnessChart({ sky, width: NIGHT_CHART_WIDTH_PX, height: NIGHT_SKY_CHART_HEIGHT_PX, palette: printPalette }));
   const title = nightSkyBrightnessTitle(sky);
   const reproduceUrl = new URL(context.reproducePath, context.appOrigin);
   reproduceUrl.searchParams.set("night", nightDateIso);
@@ -118,7 +118,7 @@ export function scheduleSeasonPlotExport(targets: (SkyTarget & { name: string })
   const schedules = observingSchedules({ ...conditions, targets: shown });
   const view = seasonViewOfSchedules(shown.map((t) => t.name), schedules);
   const targetIndices = shown.map((_, index) => index);
-  const markup = renderStaticSvg(<SeasonChart view={view} targetIndices={targetIndices} width={SEASON_CHART_WIDTH_PX} palette={printPalette} />);
+  const markup = figureMarkup(seasonChart({ view, targetIndices, width: SEASON_CHART_WIDTH_PX, palette: printPalette }));
   const nightCount = view.nightDatesIso.length;
   const { cycleStartNightIso: startNightIso, moon } = conditions;
   const title = `Usable dark hours per night of the observing schedule from ${startNightIso} (${nightCount} nights)`;

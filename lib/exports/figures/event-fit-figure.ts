@@ -1,7 +1,7 @@
 import type { CitationKey } from "@/lib/citations/references";
 import { buildProvenance, type ProvenanceValue } from "@/lib/exports/provenance";
 import { eventFitData } from "@/lib/exports/figure-data/event-fit-data";
-import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, EventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";
+import { EVENT_FIT_HEIGHT_PX, EVENT_FIT_WIDTH_PX, eventFitPlot, eventFitTitle } from "@/lib/figures/event-fit-plot";
 import { eventFitView } from "@/lib/figures/event-fit-view";
 import { printPalette } from "@/lib/figures/plot-palette";
 import type { PhotometryPoint, PointLensFit } from "@/lib/lensing/fit";
@@ -9,8 +9,8 @@ import type { EventFitChoices, EventFitTarget } from "@/lib/lensing/fit-choices"
 import type { FitPrediction } from "@/lib/lensing/fit-prediction";
 import type { ObservingSchedule } from "@/lib/schedule/types";
 import { utcIsoOfJd } from "@/lib/exports/figure-data/columns";
+import { figureMarkup } from "./figure-markup";
 import type { PlotExport } from "./figure-response";
-import { renderStaticSvg } from "./static-markup";
 
 export interface EventFitExportInput {
   target: EventFitTarget & { id: string; name: string };
@@ -29,7 +29,7 @@ export interface EventFitExportInput {
 }
 
 /**
- * The event-fit figure and its data as exports: drawn by the page's own component in the print
+ * The event-fit figure and its data as exports: the page's own figure tree in the print
  * style, with the fit's result, the choices that reproduce it and the methods' references in the
  * provenance (Paczyński 1986 light curve; Levenberg 1944 and Marquardt 1963 with Golub & Pereyra 1973's
  * variable projection for the fit; Gould 2004 for the parallax frame; the finite source's Lee et al.
@@ -40,7 +40,7 @@ export function eventFitPlotExport(input: EventFitExportInput): PlotExport {
   const model = { limbDarkeningU: target.limbDarkeningU ?? 0, event: { raDeg: target.raDeg, decDeg: target.decDeg } };
   const view = eventFitView({ fit, points: input.points, referenceDataset: input.referenceDataset, prediction: input.prediction, schedule: input.schedule, model });
   const title = eventFitTitle(target.name, fit);
-  const markup = renderStaticSvg(<EventFitPlot view={view} title={title} width={EVENT_FIT_WIDTH_PX} height={EVENT_FIT_HEIGHT_PX} palette={printPalette} />);
+  const markup = figureMarkup(eventFitPlot({ view, title, width: EVENT_FIT_WIDTH_PX, height: EVENT_FIT_HEIGHT_PX, palette: printPalette }));
   const reproduceUrl = new URL(input.reproducePath, input.appOrigin).toString();
   const references: CitationKey[] = ["paczynski1986", "levenberg1944", "marquardt1963", "golub1973", "gould2004", "okabe2008"];
   if (choices.finiteSource) references.push("lee2009", "gould2008", "pejcha2009");
