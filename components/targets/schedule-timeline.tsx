@@ -3,7 +3,7 @@ import { FigureSvg } from "@/components/figures/figure-svg";
 import { plotPalette } from "@/lib/figures/plot-palette";
 import { SCHEDULE_TIMELINE_WIDTH_PX, scheduleTimelinePlot, spanFill, type EventPanel } from "@/lib/figures/schedule-timeline-plot";
 import type { TargetPhotonBudget } from "@/lib/lensing/photon-budget";
-import type { EventTiming, ScienceCaseId } from "@/lib/lensing/science-cases";
+import type { EventTiming, ScienceCaseId } from "@/lib/lensing/science-case-inputs";
 import { dateWords, numberWords } from "@/lib/lensing/science-case-words";
 import type { LensSolution } from "@/lib/lensing/solution";
 import { emptyScheduleMessage, type ObservingSchedule } from "@/lib/schedule";
