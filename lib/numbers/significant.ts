@@ -9,8 +9,9 @@
  *   VOTable, JSON) and LaTeX's numbers, which readers such as astropy parse: the shortest decimal that
  *   holds the rounded double ("1.5e-7", ASCII minus), so a value read back is the double written.
  *
- * Rounding is IEEE round-half-even on the binary value (what `toExponential` does), so 9.995 (stored
- * as 9.99499999999999957…) rounds to 9.99 at three digits.
+ * Rounding is of the exact binary value, a tie going to the larger magnitude (`toExponential`,
+ * ECMA-262 §21.1.3.2): 9.995, stored as 9.99499999999999921…, is 9.99 at three digits; 0.125, stored
+ * exactly, is 0.13 at two.
  */
 import { format } from "d3";
 import { superscript } from "@/lib/physics/quantity-vocabulary";

@@ -30,12 +30,15 @@ describe("numbers for people (formatSignificant)", () => {
     expect(formatSignificant(9.9951, 3)).toBe("10");
   });
 
-  it("rounds the stored double: 9.995 is 9.99499999999999957… so three digits give 9.99", () => {
+  it("rounds the stored double: 9.995 is 9.99499999999999921… so three digits give 9.99", () => {
     expect((9.995).toPrecision(20)).toBe("9.9949999999999992184");
     expect(formatSignificant(9.995, 3)).toBe("9.99");
     expect(formatSignificant(9.995, 4)).toBe("9.995");
     // 99.95 is 99.950000000000002842…, above the half: 100 at three digits.
     expect(formatSignificant(99.95, 3)).toBe("100");
+    // 0.125 is exact in binary: a true tie, which goes to the larger magnitude (ECMA-262 toExponential).
+    expect(formatSignificant(0.125, 2)).toBe("0.13");
+    expect(formatSignificant(-0.125, 2)).toBe("−0.13");
   });
 
   it("writes negatives with a true minus sign and zero without one", () => {
