@@ -73,7 +73,7 @@ describe("every numeric target field, tiny or huge", () => {
     const result = createTargetSchema.safeParse({ name: "T", ra: 10, dec: 10, priority: 1, ...pointByDistance, lensDistancePc: 5e-324 });
     expect(result.success).toBe(false);
     expect(result.error!.issues.map((i) => [i.path.join("."), i.message])).toEqual([
-      ["lensDistancePc", "The lens distance is from 1e-6 to 20\u202f000\u202f000\u202f000 parsecs (0.2 au to beyond the observable universe)."],
+      ["lensDistancePc", "The lens distance is from 1 × 10⁻⁶ to 20\u202f000\u202f000\u202f000 parsecs (0.2 au to beyond the observable universe)."],
     ]);
   });
 

@@ -61,7 +61,7 @@ describe("the orbit's elements", () => {
     expect(refusal("orbitInclinationDeg", "200 deg")).toMatch(/^The inclination is from 0° to 180°/);
     expect(refusal("orbitNodeDeg", 361)).toMatch(/^The longitude of the ascending node Ω is from 0° to 360°/);
     expect(refusal("orbitPeriapsisArgumentDeg", "5 kpc")).toMatch(/^Argument of periapsis ω: '5 kpc' is a distance, not an angle/);
-    expect(refusal("orbitSemiMajorAxisAu", "1e6 au")).toMatch(/^The semi-major axis is from 1e-4 to 100\u202f000 au/);
+    expect(refusal("orbitSemiMajorAxisAu", "1e6 au")).toMatch(/^The semi-major axis is from 1 × 10⁻⁴ to 100\u202f000 au/);
     expect(refusal("orbitSemiMajorAxisMas", "2 deg")).toMatch(/^The semi-major axis as an angle is from 0.001 to 1\u202f000\u202f000 mas/);
     expect(refusal("orbitPeriodDays", "1e5 yr")).toMatch(/^The orbital period is from 0.001 to 10\u202f000\u202f000 days/);
     expect(refusal("orbitPeriapsisJdUtc", "1850-01-01")).toBe(
