@@ -82,7 +82,7 @@ export function defaultReferenceDataset(datasets: readonly { name: string; band?
   return (band === null ? undefined : datasets.find((d) => isBand(d.band, band)))?.name ?? datasets[0].name;
 }
 
-/** The figure export's query for a fit with these choices (read by lib/exports/server/event-fit-figure.ts). */
+/** The figure export's query for a fit with these choices (read by lib/server/exports/event-fit-figure.ts). */
 export function eventFitQuery(targetId: string, choices: EventFitChoices, referenceDataset: string): Record<string, string> {
   const flag = (on: boolean) => (on ? "1" : "0");
   return { targetId, rescale: flag(choices.rescaleErrors), finite: flag(choices.finiteSource), parallax: flag(choices.parallax), reference: referenceDataset };

@@ -13,7 +13,7 @@ import { benchInputs, nightInput, nightSkyInput, provenance, seasonInput } from 
 /** The text a CSV cell holds after papaparse's formula guard (a leading apostrophe; OWASP CSV injection). */
 const csvCell = (cell: DataTable["rows"][number][number]) => (typeof cell === "string" && /^[=+\-@\t\r]/.test(cell) ? `'${cell}` : cell);
 
-/** Every figure's data table, built from the data its figure draws (as bench-figures.tsx and sky-figures.tsx compute it). */
+/** Every figure's data table, built from the data its figure draws (as bench-figures.ts and sky-figures.ts compute it). */
 function figureTables(): DataTable[] {
   const bench = benchInputs();
   const season = seasonInput();

@@ -410,12 +410,12 @@ describe("the walk covers every schema of the product", () => {
     "lib/schedule/request.ts",
   ]);
   const onlyThroughParseOrThrow = new Set([
-    "lib/exports/server/figure-routes.ts",
-    "lib/exports/server/sky-figures.ts",
-    "lib/exports/server/event-fit-figure.ts",
-    "lib/exports/server/summary.ts",
-    "lib/exports/server/target-table.ts",
-    "lib/exports/calendar/server.ts",
+    "lib/server/api/figure-routes.ts",
+    "lib/server/exports/sky-figures.ts",
+    "lib/server/exports/event-fit-figure.ts",
+    "lib/server/exports/summary.ts",
+    "lib/server/exports/target-table.ts",
+    "lib/server/exports/calendar.ts",
     "lib/citations/bibtex-route.ts",
     "lib/server/imports.ts",
   ]);
@@ -424,7 +424,7 @@ describe("the walk covers every schema of the product", () => {
     "lib/server/sessions.ts": "the claims of the app's own signed cookie",
     "lib/server/mailbox.ts": "the local mail fake's stored messages",
     "lib/bench/sketch-state.ts": "every field falls back with .catch: the URL's sketch never refuses",
-    "app/api/uploadthing/core.ts": "the upload route's input, checked again by completeUpload's own refusals",
+    "lib/server/upload-router.ts": "the upload route's input, checked again by completeUpload's own refusals",
   };
 
   function sources(dir: string): string[] {
