@@ -23,9 +23,6 @@ import { fillSineAltitudes, hoursAboveInDarkness, isTooCloseToSun, upperCulminat
 import { SEASON_MAX_NIGHTS, SEASON_MIN_NIGHTS } from "./season-length";
 import { addDaysIso, astroTimeFromJdUtc } from "./time";
 
-// The season view's importers read the night limit here as well (./season-length is its home).
-export { SEASON_MAX_NIGHTS } from "./season-length";
-
 const DEG = Math.PI / 180;
 
 /** At most this many targets (a large survey list) per request; nights: ./season-length. */

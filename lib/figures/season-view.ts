@@ -7,7 +7,8 @@
  */
 import { z } from "zod";
 import { nightDateSchema } from "@/lib/astro/inputs";
-import { SEASON_MAX_NIGHTS, SEASON_WEEK_NIGHTS, type SeasonWindows } from "@/lib/astro/season";
+import { SEASON_WEEK_NIGHTS, type SeasonWindows } from "@/lib/astro/season";
+import { SEASON_MAX_NIGHTS, SEASON_MIN_NIGHTS } from "@/lib/astro/season-length";
 import { addDaysIso } from "@/lib/astro/time";
 import { emptyScheduleMessage, type MoonConstraintInput, type ObservingSchedule, type ObservingSeason } from "@/lib/schedule";
 
@@ -20,7 +21,7 @@ export const seasonWindowQuerySchema = z.object({
   nights: z.coerce
     .number({ error: "The number of nights must be a whole number." })
     .int("The number of nights must be a whole number.")
-    .min(1, "The number of nights is at least 1.")
+    .min(SEASON_MIN_NIGHTS, `The number of nights is at least ${SEASON_MIN_NIGHTS}.`)
     .max(SEASON_MAX_NIGHTS, `The number of nights is at most ${SEASON_MAX_NIGHTS}.`)
     .optional(),
 });

@@ -3,7 +3,7 @@
  * (lib/server/exports/sky-figures.ts): one target's night, or the season of the proposal's targets.
  */
 import type { Proposal, Target } from "@/db/schema";
-import { SEASON_DEFAULT_NIGHTS, SEASON_MAX_NIGHTS } from "@/lib/astro/season-length";
+import { nightCountInclusive, SEASON_DEFAULT_NIGHTS, SEASON_MAX_NIGHTS, SEASON_MIN_NIGHTS } from "@/lib/astro/season-length";
 import { addDaysIso } from "@/lib/astro/time";
 import { AppError } from "@/lib/errors";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
@@ -23,14 +23,10 @@ export function skyContextOf(p: Proposal, appOrigin: string) {
 
 export type SkyFigureContext = ReturnType<typeof skyContextOf>;
 
-const DAY_MS = 86_400_000;
-const DEFAULT_SEASON_NIGHTS = SEASON_DEFAULT_NIGHTS;
-
 /** Nights from the cycle's first to last night inclusive, bounded by the season limit. */
 function cycleNights(p: Proposal): number | undefined {
   if (!p.cycleStartDate || !p.cycleEndDate) return undefined;
-  const nights = Math.round((Date.parse(p.cycleEndDate) - Date.parse(p.cycleStartDate)) / DAY_MS) + 1;
-  return Math.min(SEASON_MAX_NIGHTS, Math.max(1, nights));
+  return Math.min(SEASON_MAX_NIGHTS, Math.max(SEASON_MIN_NIGHTS, nightCountInclusive(p.cycleStartDate, p.cycleEndDate)));
 }
 
 /**
@@ -53,7 +49,7 @@ export function nightFigureOf(proposal: Proposal, target: Target, figure: "night
 /**
  * The season chart of a proposal's targets (`rows` in priority, then name order; ICRS degrees) from
  * `window.start` for `window.nights` nights; defaults: the proposal's cycle, else today for
- * DEFAULT_SEASON_NIGHTS nights. `settings` are the proposal's schedule settings.
+ * SEASON_DEFAULT_NIGHTS nights. `settings` are the proposal's schedule settings.
  */
 export function seasonFigureOf(
   proposal: Proposal,
@@ -67,7 +63,7 @@ export function seasonFigureOf(
     throw new AppError("bad_request:figure", message, { _: [message] });
   }
   const start = window.start ?? proposal.cycleStartDate ?? new Date().toISOString().slice(0, 10);
-  const nights = window.nights ?? cycleNights(proposal) ?? DEFAULT_SEASON_NIGHTS;
+  const nights = window.nights ?? cycleNights(proposal) ?? SEASON_DEFAULT_NIGHTS;
   // The proposal's schedule conditions over the requested nights (the cycle's by default).
   const conditions = scheduleConditionsOf({ ...settings, cycleStartDate: start, cycleEndDate: addDaysIso(start, nights - 1) })!;
   return scheduleSeasonPlotExport(rows, conditions, { ...context, reproducePath: `/proposals/${proposal.id}/sky` });

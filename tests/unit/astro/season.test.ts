@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
-import { bestWeekIndices, seasonWindows, SEASON_MAX_NIGHTS, weeklySums, weekWithMostTargetsAtBest } from "@/lib/astro/season";
+import { bestWeekIndices, seasonWindows, weeklySums, weekWithMostTargetsAtBest } from "@/lib/astro/season";
+import { SEASON_MAX_NIGHTS } from "@/lib/astro/season-length";
 import { addDaysIso, nightStartJdUtc } from "@/lib/astro/time";
 import { nightlyVisibility } from "@/lib/astro/visibility";
 import { AppError } from "@/lib/errors";
