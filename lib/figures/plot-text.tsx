@@ -1,10 +1,12 @@
 /** @jsxImportSource hastscript/svg */
 import type { ElementContent } from "hast";
+import { raisedPowerParts } from "@/lib/physics/quantity-vocabulary";
 import { svgElement } from "./figure-tree";
 
 /**
  * Label text with real subscripts and superscripts: `θ_E`, `t_0`, `b_c` (one character after `_`),
- * `_{ab}` and `^{−3}` for longer runs. Each script is a `<tspan>` shifted by `dy` in smaller type, the
+ * `_{ab}` and `^{−3}` for longer runs, and superscript characters as written by the number formatter
+ * ("10⁻³", drawn as `^{−3}`: the bundled faces lack their glyphs). Each script is a `<tspan>` shifted by `dy` in smaller type, the
  * text after it shifted back, which browsers, resvg and svg-to-pdfkit all lay out the same way.
  */
 export function plotText({ text, fontSize }: { text: string; fontSize: number }): ElementContent[] {
@@ -43,14 +45,17 @@ export function scriptParts(text: string): { text: string; shift: number }[] {
     if (last && last.shift === shift) last.text += run;
     else parts.push({ text: run, shift });
   };
+  const pushLine = (run: string) => {
+    for (const part of raisedPowerParts(run)) push(part.text, part.isRaised ? SUPERSCRIPT_EM : 0);
+  };
   const pattern = /([_^])(?:\{([^}]*)\}|([\p{L}\p{N}]))/gu;
   let from = 0;
   for (const match of text.matchAll(pattern)) {
-    push(text.slice(from, match.index), 0);
+    pushLine(text.slice(from, match.index));
     push(match[2] ?? match[3], match[1] === "_" ? SUBSCRIPT_EM : SUPERSCRIPT_EM);
     from = match.index + match[0].length;
   }
-  push(text.slice(from), 0);
+  pushLine(text.slice(from));
   return parts.length === 0 ? [{ text: "", shift: 0 }] : parts;
 }
 

@@ -1,4 +1,5 @@
 import type { ScaleContinuousNumeric } from "d3";
+import { formatSignificant } from "@/lib/numbers/significant";
 
 type Scale = ScaleContinuousNumeric<number, number>;
 
@@ -28,7 +29,7 @@ export function axisTicks(scale: Scale, count: number): AxisTick[] {
     const decadeOf = (value: number) => Math.round(Math.log10(value));
     const isDecade = (value: number) => Math.abs(Math.log10(value) - decadeOf(value)) < 1e-9;
     if (values.filter(isDecade).length >= 2) return values.map((value) => ({ value, label: isDecade(value) ? `10^{${withMinusSign(String(decadeOf(value)))}}` : null }));
-    return values.map((value) => ({ value, label: withMinusSign(String(Number(value.toPrecision(6)))) }));
+    return values.map((value) => ({ value, label: formatSignificant(value, 6) }));
   }
   const format = scale.tickFormat(count);
   return values.map((value) => ({ value, label: withMinusSign(format(value)) }));

@@ -286,6 +286,32 @@ export function superscript(power: number): string {
   return power < 0 ? `${SUPERSCRIPT_MINUS}${digits}` : digits;
 }
 
+/**
+ * A text cut at its powers written in superscript characters that the bundled faces cannot draw
+ * ("10⁻¹²": they have ¹²³ but nothing else of U+2070–U+207F), each such power given on the line
+ * ("−12") and marked raised, for figures and PDFs to draw in raised smaller type. A power of ¹²³
+ * alone ("arcsec²") stays as written.
+ */
+export function raisedPowerParts(text: string): { text: string; isRaised: boolean }[] {
+  const parts: { text: string; isRaised: boolean }[] = [];
+  let from = 0;
+  for (const match of text.matchAll(/[⁰¹²³⁴⁵⁶⁷⁸⁹⁺⁻]+/g)) {
+    if (/^[¹²³]+$/.test(match[0])) continue;
+    if (match.index > from) parts.push({ text: text.slice(from, match.index), isRaised: false });
+    parts.push({ text: [...match[0]].map(baseOfSuperscript).join(""), isRaised: true });
+    from = match.index + match[0].length;
+  }
+  if (from < text.length || parts.length === 0) parts.push({ text: text.slice(from), isRaised: false });
+  return parts;
+}
+
+/** What a superscript character stands for on the line ("⁷" → "7", "⁻" → "−", "⁺" → "+"). */
+function baseOfSuperscript(character: string): string {
+  if (character === SUPERSCRIPT_MINUS) return "−";
+  if (character === "⁺") return "+";
+  return String(SUPERSCRIPT_DIGITS.indexOf(character));
+}
+
 /** How a unit read by readUnit is written for people: "km/s", "mas/yr", "M☉", "µas/d". */
 export function unitLabel(factors: UnitFactor[]): string {
   const part = (factor: UnitFactor, power: number) => `${factor.label}${power === 1 ? "" : superscript(power)}`;

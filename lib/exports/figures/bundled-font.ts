@@ -132,6 +132,8 @@ export interface PdfFace {
   resvgFamily: string;
   /** The advance width of a text set in this face, in em. */
   widthEm: (text: string) => number;
+  /** The face's ascent, in em (pdfkit places a text's top there). */
+  ascentEm: number;
   data: Buffer;
   hasGlyph: (codePoint: number) => boolean;
 }
@@ -139,6 +141,7 @@ export interface PdfFace {
 interface FontkitFont {
   hasGlyphForCodePoint(codePoint: number): boolean;
   unitsPerEm: number;
+  ascent: number;
   layout(text: string): { advanceWidth: number };
 }
 
@@ -164,7 +167,7 @@ export function bundledPdfFaces(weight: BundledWeight): PdfFace[] {
     const face = (name: string, path: string, family: string): PdfFace => {
       const data = sfntOf(path);
       const font = fontkit().create(data);
-      return { name, resvgFamily: family, data, hasGlyph: (codePoint) => font.hasGlyphForCodePoint(codePoint), widthEm: (text) => font.layout(text).advanceWidth / font.unitsPerEm };
+      return { name, resvgFamily: family, data, hasGlyph: (codePoint) => font.hasGlyphForCodePoint(codePoint), widthEm: (text) => font.layout(text).advanceWidth / font.unitsPerEm, ascentEm: font.ascent / font.unitsPerEm };
     };
     const math = face(PDF_MATH_FONT, mathFontFile("woff"), resvgFamily.math);
     cachedPdfFaces = new Map(bundledWeights.map((w) => [w, [...bundledSubsets.map((subset) => face(subsetFontName(w, subset), sourceSansFile(subset, w, "woff"), resvgFamily[subset])), math]]));

@@ -8,6 +8,7 @@ import { RESVG_PACKAGE } from "./png";
 import type { Provenance } from "@/lib/exports/provenance";
 import { BUNDLED_FONT_FAMILY, bundledPdfFaces, bundledSfntFiles, bundledWeights, PDF_FONT, PDF_FONT_SEMIBOLD, type BundledWeight } from "./bundled-font";
 import { resvgSvg } from "./resvg-text";
+import { raisedPowerParts } from "@/lib/physics/quantity-vocabulary";
 import type { SvgFigure } from "./svg-document";
 
 export { PDF_FONT, PDF_FONT_SEMIBOLD };
@@ -63,18 +64,39 @@ export function provenancePdf(provenance: Provenance, title: string, { author, s
  * none has stays in the text face (its missing-glyph box, not dropped). pdfkit draws a text in a
  * single font, and a glyph its font lacks would be lost.
  */
-export function pdfTextRuns(text: string, weight: BundledWeight): { font: string; text: string }[] {
+export function pdfTextRuns(text: string, weight: BundledWeight): PdfTextRun[] {
   const faces = bundledPdfFaces(weight);
-  const runs: { font: string; text: string }[] = [];
-  for (const character of text) {
-    const codePoint = character.codePointAt(0)!;
-    const font = (faces.find((face) => face.hasGlyph(codePoint)) ?? faces[0]).name;
-    const last = runs.at(-1);
-    if (last?.font === font) last.text += character;
-    else runs.push({ font, text: character });
+  const runs: PdfTextRun[] = [];
+  for (const { text: partText, isRaised } of raisedPowerParts(text)) {
+    for (const character of partText) {
+      const codePoint = character.codePointAt(0)!;
+      const face = faces.find((each) => each.hasGlyph(codePoint)) ?? faces[0];
+      const last = runs.at(-1);
+      if (last?.font === face.name && last.isRaised === isRaised) last.text += character;
+      else runs.push({ font: face.name, text: character, isRaised, ascentEm: face.ascentEm });
+    }
   }
   return runs;
 }
+
+/** One run of a PDF text: drawn in one face, on the line or raised as a superscript. */
+export interface PdfTextRun {
+  font: string;
+  text: string;
+  /** A superscript ("10⁻⁷"'s "−7"), drawn in smaller type above the baseline. */
+  isRaised: boolean;
+  /** The face's ascent, em. */
+  ascentEm: number;
+}
+
+/**
+ * Powers are drawn as their characters on the line (`raisedPowerParts`) in smaller raised type:
+ * none of the bundled faces has U+2070–U+207F (Google's subsets keep only ⁴), and a "10⁻⁷" printed
+ * as "10" would misstate a number by orders of magnitude. The size and raise are the figures' own
+ * (plot-text.ts).
+ */
+const SUPERSCRIPT_SCALE = 0.72;
+const SUPERSCRIPT_RAISE_EM = 0.38;
 
 /**
  * Writes a text at the current size, each run in the face that has its glyphs: in the flow, or from
@@ -88,17 +110,23 @@ export function writePdfText(
   at?: { x: number; y: number },
 ): void {
   const runs = pdfTextRuns(text, weight);
+  // pdfkit keeps the current size privately; the callers set it before writing.
+  const sizePt = (doc as unknown as { _fontSize: number })._fontSize;
   runs.forEach((run, index) => {
     const runOptions = { ...options, continued: index < runs.length - 1 || options.continued === true };
-    doc.font(run.font);
+    // pdfkit places a run's top (its face's ascent) at the line's y, or offsets it by a numeric
+    // `baseline`: a raised run's baseline sits SUPERSCRIPT_RAISE_EM above the line's.
+    if (run.isRaised) Object.assign(runOptions, { baseline: SUPERSCRIPT_RAISE_EM * sizePt - run.ascentEm * sizePt });
+    doc.font(run.font).fontSize(run.isRaised ? sizePt * SUPERSCRIPT_SCALE : sizePt);
     if (index === 0 && at !== undefined) doc.text(run.text, at.x, at.y, runOptions);
     else doc.text(run.text, runOptions);
   });
+  doc.fontSize(sizePt);
 }
 
 /** The width of a text at the current size, measured run by run in the faces that draw it (pt). */
 function runsWidthPt(doc: PDFKit.PDFDocument, text: string, weight: BundledWeight): number {
-  return pdfTextRuns(text, weight).reduce((sum, run) => sum + doc.font(run.font).widthOfString(run.text), 0);
+  return pdfTextRuns(text, weight).reduce((sum, run) => sum + doc.font(run.font).widthOfString(run.text) * (run.isRaised ? SUPERSCRIPT_SCALE : 1), 0);
 }
 
 /**

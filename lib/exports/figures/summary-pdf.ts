@@ -2,7 +2,7 @@ import "server-only";
 import { provenanceLines, type Provenance } from "@/lib/exports/provenance";
 import { timeRequestOf, timeRequestSentence } from "@/lib/workspace/time-request";
 import { summaryCaseOf } from "@/lib/exports/case-summary";
-import { cellOf, cellText, headerOf } from "@/lib/exports/tables/columns";
+import { cellOf, cellTextForPeople, headerOf } from "@/lib/exports/tables/columns";
 import type { TargetTable } from "@/lib/exports/tables/table";
 import type { PlotExport } from "./figure-response";
 import { drawFigure, PDF_FONT, PDF_FONT_SEMIBOLD, pdfBytes, provenancePdf, writePdfText } from "./pdf";
@@ -41,7 +41,7 @@ export async function technicalSummaryPdf(table: TargetTable, figures: PlotExpor
     doc.moveTo(doc.page.margins.left, doc.y - 1.5).lineTo(doc.page.margins.left + width, doc.y - 1.5).lineWidth(0.3).stroke("#888888");
   };
   drawRow(table.columns.map(({ column }) => headerOf(column)), true);
-  for (const row of table.rows.slice(0, SUMMARY_MAX_ROWS)) drawRow(table.columns.map((chosen) => cellText(cellOf(row, chosen.column), chosen) || "–"), false);
+  for (const row of table.rows.slice(0, SUMMARY_MAX_ROWS)) drawRow(table.columns.map((chosen) => cellTextForPeople(cellOf(row, chosen.column), chosen) || "–"), false);
   if (table.rows.length > SUMMARY_MAX_ROWS) doc.moveDown().text(`${table.rows.length - SUMMARY_MAX_ROWS} more targets are in the table exports.`);
   doc.x = doc.page.margins.left;
   doc.moveDown().font(PDF_FONT_SEMIBOLD).fontSize(11).text("Science cases", { width });

@@ -6,7 +6,7 @@
 import { z } from "zod";
 import type { TargetView } from "@/lib/workspace/target-view";
 import { answersLine } from "@/lib/workspace/case-verdict-words";
-import { machineSignificantText, roundToSignificant } from "@/lib/numbers/significant";
+import { formatSignificant, machineSignificantText, roundToSignificant } from "@/lib/numbers/significant";
 import { headerOf } from "./data-table";
 
 export { headerOf };
@@ -181,6 +181,12 @@ export function cellText(value: CellValue, chosen: ChosenColumn): string {
   if (value === null) return "";
   if (typeof value === "number") return chosen.column.kind === "double" ? machineSignificantText(value, chosen.digits) : String(value);
   return value;
+}
+
+/** A cell as a person reads it in a printed table (the technical summary): doubles by `formatSignificant`. */
+export function cellTextForPeople(value: CellValue, chosen: ChosenColumn): string {
+  if (typeof value === "number" && chosen.column.kind === "double") return formatSignificant(value, chosen.digits);
+  return cellText(value, chosen);
 }
 
 const digitsSchema = z.coerce.number().int().min(MIN_DIGITS).max(MAX_DIGITS);

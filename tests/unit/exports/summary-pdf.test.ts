@@ -42,6 +42,15 @@ describe("technical summary: each target's science case in sentences (issue 16, 
     expect(text).not.toMatch(/Resolution verdict/);
   });
 
+  it("writes the table's numbers for people, the data files' machine form left to the data files", async () => {
+    const rows = [{ ...exportRows[0], einsteinRadiusMas: -1.5e-7 }];
+    const text = await pdfText(await technicalSummaryPdf({ ...table, rows }, [], exportProvenance));
+    // The exponent is drawn (raised, as normal digits in smaller type: the bundled faces have no
+    // superscript digits), where it used to be dropped with its missing glyphs.
+    expect(text).toContain("−1.5 × 10−7");
+    expect(text).not.toContain("1.5e-7");
+  });
+
   it("states the hours the proposal asks for, summed over the targets' photon budgets (issue 17, item 5)", async () => {
     const rows = [{ ...exportRows[0], timeRequestHours: 3.25 }, { ...exportRows[1], timeRequestHours: 1.5 }, { ...exportRows[1], id: "third", timeRequestHours: null }];
     const text = await pdfText(await technicalSummaryPdf({ ...table, rows }, [], exportProvenance));
@@ -59,7 +68,8 @@ describe("technical summary: each target's science case in sentences (issue 16, 
   });
 
   it("cuts a text into runs per font: Latin, Latin extended, Greek, then the bundled Noto Sans Math for symbols", () => {
-    expect(pdfTextRuns("Paczyński θ_E ☉", 400)).toEqual([
+    const fontsAndTexts = (text: string, weight: 400 | 600) => pdfTextRuns(text, weight).map(({ font, text: run }) => ({ font, text: run }));
+    expect(fontsAndTexts("Paczyński θ_E ☉", 400)).toEqual([
       { font: PDF_FONT, text: "Paczy" },
       { font: `${PDF_FONT}-latin-ext`, text: "ń" },
       { font: PDF_FONT, text: "ski " },
@@ -68,6 +78,15 @@ describe("technical summary: each target's science case in sentences (issue 16, 
       { font: "NotoSansMath", text: "☉" },
     ]);
     // A character no bundled face has stays in the text face (drawn as its missing-glyph box, not dropped from the run).
-    expect(pdfTextRuns("M✕", 600)).toEqual([{ font: PDF_FONT_SEMIBOLD, text: "M✕" }]);
+    expect(fontsAndTexts("M✕", 600)).toEqual([{ font: PDF_FONT_SEMIBOLD, text: "M✕" }]);
+  });
+
+  it("raises a power of ten's superscript digits in smaller type (no bundled face has U+2070–U+207F)", () => {
+    expect(pdfTextRuns("4.1 × 10⁻¹² M☉", 400).map(({ text, isRaised }) => ({ text, isRaised }))).toEqual([
+      { text: "4.1 × 10", isRaised: false },
+      { text: "−12", isRaised: true },
+      { text: " M", isRaised: false },
+      { text: "☉", isRaised: false },
+    ]);
   });
 });

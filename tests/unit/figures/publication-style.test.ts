@@ -10,6 +10,8 @@ import { FigureSvg } from "@/components/figures/figure-svg";
 import { deflectionPlot } from "@/lib/figures/deflection-plot";
 import { plotPalette, printPalette } from "@/lib/figures/plot-palette";
 import { scriptParts } from "@/lib/figures/plot-text";
+import { axisTicks } from "@/lib/figures/plot-ticks";
+import { scaleLog } from "d3";
 import { wrapName } from "@/lib/figures/season-chart";
 import { bulge, bulgeSeason, southSite } from "../schedule/sites";
 
@@ -51,6 +53,20 @@ describe("publication style of exported figures (issue 18, item 5)", () => {
       { text: "−3", shift: -0.38 },
       { text: " rad", shift: 0 },
     ]);
+  });
+
+  it("draws the number formatter's powers of ten as raised scripts (the bundled faces have no superscript glyphs)", () => {
+    expect(scriptParts("4.1 × 10⁻¹² M☉")).toEqual([
+      { text: "4.1 × 10", shift: 0 },
+      { text: "−12", shift: -0.38 },
+      { text: " M☉", shift: 0 },
+    ]);
+    // A log axis under two decades labels its ticks with the number formatter: 3 × 10⁻⁷ … at that scale.
+    const labels = axisTicks(scaleLog().domain([2e-7, 9e-7]), 5).map((tick) => tick.label);
+    expect(labels).toContain("3 × 10⁻⁷");
+    expect(scriptParts("3 × 10⁻⁷").map((part) => part.shift)).toEqual([0, -0.38]);
+    // ¹²³ are in the bundled faces: a unit's square stays the glyph it is.
+    expect(scriptParts("mag/arcsec²")).toEqual([{ text: "mag/arcsec²", shift: 0 }]);
   });
 
   it("deflection ticks carry no SI prefix (d3 wrote 0.01 rad as '10m'): decades are powers of ten with a true minus", () => {
