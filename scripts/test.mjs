@@ -17,8 +17,7 @@ import { ensureNodeModules } from "./lib/deps.mjs";
 import { startFakes } from "./lib/fakes.mjs";
 import { log } from "./lib/log.mjs";
 import { tryLock } from "./lib/lock.mjs";
-import getPort from "get-port";
-import { waitForHttp } from "./lib/ports.mjs";
+import { freePort, waitForHttp } from "./lib/ports.mjs";
 import { Cluster } from "./lib/postgres.mjs";
 import { run, runOrThrow, startChild, stopAll } from "./lib/processes.mjs";
 import { throwawaySecrets } from "./lib/secrets.mjs";
@@ -102,12 +101,12 @@ async function main() {
   const tmp = mkdtempSync(join(tmpdir(), "arcwright-test-"));
   chmodSync(tmp, 0o755); // the server's own user must reach its folder inside
   const secrets = throwawaySecrets();
-  cluster = new Cluster({ root: join(tmp, "postgres"), port: await getPort(), password: secrets.postgresPassword, throwaway: true });
+  cluster = new Cluster({ root: join(tmp, "postgres"), port: await freePort(), password: secrets.postgresPassword, throwaway: true });
   try {
     cluster.initialize();
     cluster.start();
     cluster.ensureDatabase("arcwright_test");
-    const appPort = await getPort();
+    const appPort = await freePort();
     const appUrl = `http://127.0.0.1:${appPort}`;
     const baseEnv = appEnvironment({ databaseUrl: cluster.url("arcwright_test"), appUrl, secrets, nodeEnv: "test" });
     await runOrThrow("migrations", bin("tsx"), ["scripts/migrate.ts"], { cwd: repoRoot, env: baseEnv });

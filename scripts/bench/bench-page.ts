@@ -14,8 +14,7 @@ import { spawn, type ChildProcess } from "node:child_process";
 import { existsSync } from "node:fs";
 import { cpus, loadavg } from "node:os";
 import { join } from "node:path";
-import getPort from "get-port";
-import { waitForHttp } from "@/scripts/lib/ports.mjs";
+import { freePort, waitForHttp } from "@/scripts/lib/ports.mjs";
 import { demoSketch, sketchToQueryString } from "@/lib/bench/sketch-state";
 import { launchBrowser } from "../../tests/e2e/support/browser";
 
@@ -31,7 +30,7 @@ async function startApp(): Promise<{ baseUrl: string; server?: ChildProcess }> {
   if (!existsSync(join(distDir, "BUILD_ID"))) {
     throw new Error(`no build in ${distDir}: run \`npx next build\` (with ARCWRIGHT_DIST_DIR if you use one) or set BENCH_BASE_URL`);
   }
-  const port = await getPort();
+  const port = await freePort();
   const server = spawn(process.execPath, [join("node_modules", "next", "dist", "bin", "next"), "start", "-p", String(port), "-H", "127.0.0.1"], {
     stdio: "ignore",
     env: { ...process.env, NEXT_TELEMETRY_DISABLED: "1" },

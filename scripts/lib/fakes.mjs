@@ -3,7 +3,7 @@
 import { connect } from "node:net";
 import { join } from "node:path";
 import { fileURLToPath } from "node:url";
-import getPort from "get-port";
+import { freePort } from "./ports.mjs";
 import { startChild } from "./processes.mjs";
 import { log } from "./log.mjs";
 import { startUploadFake } from "../fakes/uploads.mjs";
@@ -30,7 +30,7 @@ async function waitForPort(port, timeoutMs = 10_000) {
 
 /** The fake SMTP server (child process): every message the app sends lands in `stateDir/mailbox`. */
 async function startMailFake(stateDir) {
-  const port = await getPort();
+  const port = await freePort();
   const mailboxDir = join(stateDir, "mailbox");
   const child = startChild("smtp fake", process.execPath, [smtpScript, "--port", String(port), "--dir", mailboxDir]);
   const exited = new Promise((_, reject) => child.once("exit", (code) => reject(new Error(`smtp fake exited (${code})`))));

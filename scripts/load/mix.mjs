@@ -1,6 +1,5 @@
 // The load run's request mix and its autocannon instances: one instance per request kind and member,
 // so every connection carries one member's session and every answer is counted under its kind.
-import autocannon from "autocannon";
 
 /** The target table's page size (components/targets/target-table-state.ts). */
 const pageSizeRows = 50;
@@ -110,6 +109,8 @@ export async function preflight(appUrl, kinds, members) {
  * together would all send in the same instant every period, a burst no team of people makes.
  */
 export async function runMix({ appUrl, kinds, members, durationSeconds, totalConnections, requestsPerSecondPerConnection, recorder, onStart }) {
+  // Loaded here, not at the top: the load run imports this module before `npm ci` has installed it.
+  const { default: autocannon } = await import("autocannon");
   const instances = [];
   /** Paced connections still waiting for their moment to start. */
   const starts = [];

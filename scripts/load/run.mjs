@@ -28,8 +28,7 @@ import { ensureNodeModules } from "../lib/deps.mjs";
 import { startFakes } from "../lib/fakes.mjs";
 import { tryLock } from "../lib/lock.mjs";
 import { log } from "../lib/log.mjs";
-import getPort from "get-port";
-import { waitForHttp } from "../lib/ports.mjs";
+import { freePort, waitForHttp } from "../lib/ports.mjs";
 import { Cluster } from "../lib/postgres.mjs";
 import { runOrThrow, startChild, stopAll } from "../lib/processes.mjs";
 import { throwawaySecrets } from "../lib/secrets.mjs";
@@ -90,7 +89,7 @@ async function main() {
   const secrets = throwawaySecrets();
   // Not `throwaway`: the data goes when the run ends, but writes should cost what they cost in
   // production (fsync on), or the write figures would flatter the app.
-  cluster = new Cluster({ root: join(tmp, "postgres"), port: await getPort(), password: secrets.postgresPassword });
+  cluster = new Cluster({ root: join(tmp, "postgres"), port: await freePort(), password: secrets.postgresPassword });
   cluster.initialize();
   cluster.start();
   cluster.ensureDatabase("arcwright_load");
@@ -101,7 +100,7 @@ async function main() {
   const distDir = release ? ".next-load" : `.next-load-${process.pid}`;
   cleanups.push(release ?? (() => rmSync(join(repoRoot, distDir), { recursive: true, force: true })));
 
-  const appPort = await getPort();
+  const appPort = await freePort();
   const appUrl = `http://127.0.0.1:${appPort}`;
   const fakes = await startFakes({ stateDir: join(tmp, "fakes"), appUrl });
   cleanups.push(fakes.stop);

@@ -5,8 +5,7 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 import { Cluster } from "@/scripts/lib/postgres.mjs";
-import getPort from "get-port";
-import { waitForHttp } from "@/scripts/lib/ports.mjs";
+import { freePort, waitForHttp } from "@/scripts/lib/ports.mjs";
 
 /**
  * What the resilience tests start for themselves, apart from the shared server the other browser
@@ -73,7 +72,7 @@ export interface TestCluster {
 export async function startCluster(): Promise<TestCluster> {
   const root = mkdtempSync(join(tmpdir(), "arcwright-resilience-"));
   chmodSync(root, 0o755);
-  const options = { root: join(root, "postgres"), port: await getPort(), password: randomBytes(18).toString("base64url"), throwaway: true };
+  const options = { root: join(root, "postgres"), port: await freePort(), password: randomBytes(18).toString("base64url"), throwaway: true };
   const cluster = new Cluster(options);
   cluster.initialize();
   cluster.start();
@@ -140,7 +139,7 @@ export interface InstanceOptions {
  * service's callback, which goes to this instance. Resolves once /api/health answers 200.
  */
 export async function startInstance({ databaseUrl, logDir, name, port, webProcesses }: InstanceOptions): Promise<AppInstance> {
-  const chosenPort = port ?? (await getPort());
+  const chosenPort = port ?? (await freePort());
   const url = `http://127.0.0.1:${chosenPort}`;
   const logFile = join(logDir, `${name}.log`);
   const log = createWriteStream(logFile, { flags: "a" });

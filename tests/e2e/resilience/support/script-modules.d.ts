@@ -27,6 +27,8 @@ declare module "@/scripts/lib/postgres.mjs" {
 }
 
 declare module "@/scripts/lib/ports.mjs" {
+  /** A TCP port on 127.0.0.1 that nothing listens on right now. */
+  export function freePort(): Promise<number>;
   /** Polls `url` until it answers `expectStatus` (200), or throws after `timeoutMs`. */
   export function waitForHttp(url: string, options?: { timeoutMs?: number; expectStatus?: number }): Promise<void>;
 }
