@@ -38,6 +38,10 @@ export default defineConfig({
           include: ["tests/integration/**/*.test.ts"],
           // Files run in parallel workers, each on its own copy of the database (`npm test` makes them).
           setupFiles: ["tests/support/worker-database.ts", "tests/support/property-seed.ts"],
+          // Files share a worker's loaded packages (Node caches them) instead of a fresh worker each;
+          // worker-database.ts gives every file fresh project modules and the worker's starting
+          // environment, which is what isolation gave them here.
+          isolate: false,
           testTimeout: 20_000,
           hookTimeout: 30_000,
           server: { deps: { inline: ["next-auth"] } },

@@ -5,6 +5,25 @@
  * Vitest numbers its workers 1..maxWorkers in VITEST_POOL_ID. Without the variable (a single file run
  * by hand against one database) nothing changes.
  */
+import { vi } from "vitest";
+
+/**
+ * Files of a worker run one after another in one process (`isolate: false`): each starts from the
+ * worker's environment as it was before the first file (a file's mail catcher or upload fake sets
+ * SMTP_PORT, UPLOADTHING_…), with fresh project modules (the validated environment is module state)
+ * and a database client of its own, while the packages stay loaded.
+ */
+const globals = globalThis as { arcwrightStartingEnv?: Record<string, string | undefined> };
+globals.arcwrightStartingEnv ??= { ...process.env };
+for (const name of Object.keys(process.env)) if (!(name in globals.arcwrightStartingEnv)) delete process.env[name];
+Object.assign(process.env, globals.arcwrightStartingEnv);
+vi.resetModules();
+// db/client.ts keeps its pool on globalThis (for the dev server's reloads): a file's own client, then.
+const kept = globalThis as { arcwrightDb?: { sql: { end(options?: { timeout?: number }): Promise<void> } } };
+const previousClient = kept.arcwrightDb;
+delete kept.arcwrightDb;
+await previousClient?.sql.end({ timeout: 5 });
+
 const workerDatabases = Number(process.env.ARCWRIGHT_WORKER_DATABASES ?? 0);
 const poolId = Number(process.env.VITEST_POOL_ID ?? 0);
 
