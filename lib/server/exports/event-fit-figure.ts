@@ -6,7 +6,7 @@ import { targets, type Proposal } from "@/db/schema";
 import { AppError } from "@/lib/errors";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
 import type { ProvenanceValue } from "@/lib/exports/provenance";
-import { eventFitFigureOf, requirePointLensFit, type EventFitQuery } from "@/lib/exports/server/event-fit-figure";
+import { eventFitFigureOf, requirePointLensFit, type EventFitQuery } from "@/lib/exports/assembly/event-fit-figure";
 import type { Actor } from "@/lib/server/actor";
 import { feasibilitySettingsOf } from "@/lib/server/derived-columns";
 import { getTargetPhotometry } from "@/lib/server/event-photometry";

@@ -9,7 +9,7 @@ import { AppError } from "@/lib/errors";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
 import { skyFigureKinds } from "@/lib/exports/figures/sky-figures";
-import { nightFigureOf, seasonFigureOf, skyContextOf } from "@/lib/exports/server/sky-figures";
+import { nightFigureOf, seasonFigureOf, skyContextOf } from "@/lib/exports/assembly/sky-figures";
 import { authorize, parseIds } from "@/lib/server/access";
 import { requireActor, type Actor } from "@/lib/server/actor";
 import { feasibilitySettingsOf } from "@/lib/server/derived-columns";

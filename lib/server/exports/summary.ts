@@ -3,7 +3,7 @@ import { z } from "zod";
 import { nightDateSchema } from "@/lib/astro/inputs";
 import { serverEnv } from "@/lib/env";
 import type { PlotExport } from "@/lib/exports/figures/figure-response";
-import { MAX_NIGHT_CHARTS, summaryFigures, summaryNightOf, technicalSummaryOf, type SummaryFigure } from "@/lib/exports/server/summary";
+import { MAX_NIGHT_CHARTS, summaryFigures, summaryNightOf, technicalSummaryOf, type SummaryFigure } from "@/lib/exports/assembly/summary";
 import type { Actor } from "@/lib/server/actor";
 import { parseOrThrow } from "@/lib/server/http";
 import { loadSkyFigure } from "./sky-figures";

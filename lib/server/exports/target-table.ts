@@ -4,7 +4,7 @@ import { z } from "zod";
 import { dbClient } from "@/db/client";
 import { targets } from "@/db/schema";
 import { serverEnv } from "@/lib/env";
-import { MAX_EXPORT_ROWS, targetTableOf, type TargetTableExport } from "@/lib/exports/server/target-table";
+import { MAX_EXPORT_ROWS, targetTableOf, type TargetTableExport } from "@/lib/exports/assembly/target-table";
 import { tableColumnsQuerySchema } from "@/lib/exports/tables/columns";
 import { tableFormats, tableWriteOptionsSchema } from "@/lib/exports/tables/formats";
 import { proposalParamsSchema } from "@/lib/workspace/ids";
