@@ -21,6 +21,7 @@
  * 1 au at 1 pc is 1″ (the parsec's definition, IAU 2015 Resolution B2).
  */
 
+import { LRUCache } from "lru-cache";
 import { AU_M, DAY_S, GM_SUN_M3_PER_S2, SOLAR_MASS_LENGTH_M, SPEED_OF_LIGHT_KM_PER_S, SPEED_OF_LIGHT_M_PER_S } from "@/lib/physics/constants";
 import { traceBoundOrbit } from "@/lib/physics/orbit-tracer";
 import { exactPeriastronAdvance, periastronAdvance } from "@/lib/physics/relativistic-effects";
@@ -281,6 +282,22 @@ function roemerDelayS(semiMajorAxisAu: number, eccentricity: number, orientation
  * terms are relative O(GM/(c² r_p))).
  */
 export function relativisticOrbitOf(inputs: OrbitInputs): RelativisticOrbitOutcome {
+  const key = JSON.stringify(inputs);
+  const kept = orbitOutcomes.get(key);
+  if (kept !== undefined) return kept;
+  const outcome = orbitOutcomeOf(inputs);
+  orbitOutcomes.set(key, outcome);
+  return outcome;
+}
+
+/**
+ * Outcomes already computed, by their inputs (all an outcome depends on, so a kept one is never stale):
+ * a target page asks for its star's orbit four times (the inferred case, the photon budget's periapsis
+ * window, the case's answers, the section), 0.5–20 ms each. Shared between callers: read, never change.
+ */
+const orbitOutcomes = new LRUCache<string, RelativisticOrbitOutcome>({ max: 128 });
+
+function orbitOutcomeOf(inputs: OrbitInputs): RelativisticOrbitOutcome {
   const missing: string[] = [];
   const axis = semiMajorAxisOf(inputs);
   if ("wrong" in axis) return { missing: axis.wrong };

@@ -237,3 +237,15 @@ describe("missing and unusable inputs, in the user's words", () => {
     expect(relativisticOrbitOf({ ...base, semiMajorAxisAu: 0.2 })).toEqual({ missing: expect.stringMatching(/^The star would pass within 2\.53 GM\/c² of the compact mass, inside the last stable orbits/) });
   });
 });
+
+// The kept outcome must be the computed one (checked above against Mercury, S2 and mpmath), handed
+// back for equal inputs only.
+describe("an orbit asked for again", () => {
+  it("is the outcome already computed for equal inputs, and computed afresh for others", () => {
+    const first = relativisticOrbitOf(S2);
+    expect(relativisticOrbitOf({ ...S2 })).toBe(first);
+    const other = relativisticOrbitOf({ ...S2, eccentricity: 0.5 });
+    expect(other).not.toBe(first);
+    expect("orbit" in other && "orbit" in first && other.orbit.eccentricity).toBe(0.5);
+  });
+});
